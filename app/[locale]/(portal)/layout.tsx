@@ -1,0 +1,11 @@
+import { setRequestLocale } from "next-intl/server";
+import type { ReactNode } from "react";
+import { PortalShell } from "@/components/layout/portal-shell";
+import { requirePageRole } from "@/lib/auth/permissions";
+
+export default async function PortalLayout({ children, params }: { children: ReactNode; params: Promise<{ locale: string }> }) {
+  const { locale } = await params;
+  setRequestLocale(locale as "en");
+  await requirePageRole(locale, "patient", "carer");
+  return <PortalShell>{children}</PortalShell>;
+}

@@ -1,0 +1,15 @@
+import { setRequestLocale } from "next-intl/server";
+import type { ReactNode } from "react";
+import { StaffShell } from "@/components/layout/staff-shell";
+import { requirePageRole } from "@/lib/auth/permissions";
+
+export default async function StaffLayout({ children, params }: { children: ReactNode; params: Promise<{ locale: string }> }) {
+  const { locale } = await params;
+  setRequestLocale(locale as "en");
+  const viewer = await requirePageRole(locale, "admin", "clinician");
+  return (
+    <StaffShell role={viewer.role} name={viewer.name}>
+      {children}
+    </StaffShell>
+  );
+}

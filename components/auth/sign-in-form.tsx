@@ -1,0 +1,59 @@
+"use client";
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useLocale, useTranslations } from "next-intl";
+import { useState } from "react";
+import { useForm } from "react-hook-form";
+import { Button } from "@/components/ui/button";
+import { Field } from "@/components/ui/field";
+import { authClient } from "@/lib/auth-client";
+import { signInSchema, type SignInInput } from "@/lib/validations/auth";
+
+export function SignInForm() {
+  const t = useTranslations("SignIn");
+  const locale = useLocale();
+  const [formError, setFormError] = useState<string | null>(null);
+  const {
+    register,
+    handleSubmit,
+    formState: { errors, isSubmitting },
+  } = useForm<SignInInput>({ resolver: zodResolver(signInSchema) });
+
+  const onSubmit = handleSubmit(async (values) => {
+    setFormError(null);
+    const { error } = await authClient.signIn.email({ email: values.email, password: values.password });
+    if (error) {
+      setFormError(error.status === 429 ? t("tooMany") : error.status === 403 ? t("inactive") : t("wrong"));
+      return;
+    }
+    // The server sends each role on to its own home.
+    window.location.assign(`/${locale}/home`);
+  });
+
+  return (
+    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
+      {formError ? (
+        <p role="alert" className="rounded-lg border-2 border-level-emergency bg-level-emergency-soft p-3 font-bold text-level-emergency-ink">
+          {formError}
+        </p>
+      ) : null}
+      <Field
+        label={t("email")}
+        type="email"
+        autoComplete="username"
+        inputMode="email"
+        errors={errors.email ? [t("emailInvalid")] : undefined}
+        {...register("email")}
+      />
+      <Field
+        label={t("password")}
+        type="password"
+        autoComplete="current-password"
+        errors={errors.password ? [t("passwordRequired")] : undefined}
+        {...register("password")}
+      />
+      <Button type="submit" disabled={isSubmitting} className="w-full text-lg">
+        {isSubmitting ? t("signingIn") : t("submit")}
+      </Button>
+    </form>
+  );
+}

@@ -1,0 +1,62 @@
+import { getTranslations } from "next-intl/server";
+import type { ReactNode } from "react";
+import { LogoMark } from "@/components/ui/logo";
+import type { Role } from "@/lib/auth/session";
+import { Link } from "@/lib/i18n/navigation";
+import { LanguageSwitcher } from "./language-switcher";
+
+type Item = { href: string; label: string };
+
+/** Staff pages: a left navigation on wide screens, a bottom bar on phones. */
+export async function StaffShell({ role, name, children }: { role: Role; name: string; children: ReactNode }) {
+  const t = await getTranslations("Nav");
+  const items: Item[] =
+    role === "admin" ? [{ href: "/admin", label: t("admin") }] : [{ href: "/caseload", label: t("caseload") }];
+  items.push({ href: "/sign-out", label: t("signOut") });
+  return (
+    <div className="min-h-dvh text-staff md:flex">
+      <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:start-2 focus:top-2 focus:bg-paper-raised focus:p-2">
+        {t("skip")}
+      </a>
+      <aside className="hidden w-60 shrink-0 flex-col gap-6 border-e border-stone-faint bg-paper-sunk p-5 md:flex">
+        <div className="flex items-center gap-2 text-xl font-bold text-brand">
+          <LogoMark />
+          <span>Caddis</span>
+        </div>
+        <nav aria-label={t("label")} className="flex flex-col gap-1">
+          {items.map((i) => (
+            <Link key={i.href} href={i.href} className="rounded-lg px-3 py-2 font-bold text-brand hover:bg-brand-soft">
+              {i.label}
+            </Link>
+          ))}
+        </nav>
+        <div className="mt-auto flex flex-col gap-3 text-sm">
+          <p className="text-ink-soft">{t("signedInAs", { name })}</p>
+          <LanguageSwitcher />
+        </div>
+      </aside>
+      <div className="flex min-w-0 flex-1 flex-col pb-20 md:pb-0">
+        <header className="flex items-center justify-between gap-3 border-b border-stone-faint px-4 py-3 md:hidden">
+          <div className="flex items-center gap-2 font-bold text-brand">
+            <LogoMark className="h-7 w-7" />
+            <span>Caddis</span>
+          </div>
+          <LanguageSwitcher />
+        </header>
+        <main id="main" className="mx-auto w-full max-w-6xl flex-1 p-4 md:p-8">
+          {children}
+        </main>
+      </div>
+      <nav
+        aria-label={t("label")}
+        className="fixed inset-x-0 bottom-0 flex border-t border-stone-faint bg-paper-raised md:hidden"
+      >
+        {items.map((i) => (
+          <Link key={i.href} href={i.href} className="flex min-h-14 flex-1 items-center justify-center font-bold text-brand">
+            {i.label}
+          </Link>
+        ))}
+      </nav>
+    </div>
+  );
+}

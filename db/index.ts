@@ -1,0 +1,33 @@
+// The database client: one pg pool per process, cached on globalThis so development reloads
+// do not open a new pool each time.
+import { drizzle, type NodePgDatabase } from "drizzle-orm/node-postgres";
+import pg from "pg";
+import { env } from "@/lib/env";
+import * as schema from "./schema";
+
+export type Database = NodePgDatabase<typeof schema>;
+export type Transaction = Parameters<Parameters<Database["transaction"]>[0]>[0];
+/** A database handle or an open transaction: query functions accept either. */
+export type Executor = Database | Transaction;
+
+const cache = globalThis as unknown as { caddisPool?: pg.Pool; caddisDb?: Database };
+
+function createPool() {
+  const pool = new pg.Pool({
+    connectionString: env.DATABASE_URL,
+    max: env.DATABASE_POOL_MAX,
+    connectionTimeoutMillis: 5_000,
+    idleTimeoutMillis: 30_000,
+  });
+  // A dropped connection (e.g. a database restart) must not crash the process; the pool
+  // replaces the client on the next query.
+  pool.on("error", (err) => console.error("[db] idle client error:", err.message));
+  return pool;
+}
+
+export const pool: pg.Pool = cache.caddisPool ?? createPool();
+export const db: Database = cache.caddisDb ?? drizzle(pool, { schema, casing: "snake_case" });
+cache.caddisPool = pool;
+cache.caddisDb = db;
+
+export { schema };

@@ -1,0 +1,39 @@
+import "server-only";
+import { and, desc, eq, inArray, isNull } from "drizzle-orm";
+import { db } from "@/db";
+import { careTeam, catheterEpisodes, checkIns, organisations, patients } from "@/db/schema";
+
+/** What the portal's Today page needs for one patient the viewer may see. */
+export async function getTodaySummary({ patientId }: { patientId: string }) {
+  const [patient] = await db
+    .select({ id: patients.id, givenName: patients.givenName, familyName: patients.familyName })
+    .from(patients)
+    .where(eq(patients.id, patientId));
+  if (!patient) return null;
+  const [episode] = await db
+    .select({
+      route: catheterEpisodes.route,
+      sizeCh: catheterEpisodes.sizeCh,
+      balloonMl: catheterEpisodes.balloonMl,
+      insertedAt: catheterEpisodes.insertedAt,
+      plannedChangeOn: catheterEpisodes.plannedChangeOn,
+    })
+    .from(catheterEpisodes)
+    .where(and(eq(catheterEpisodes.patientId, patientId), isNull(catheterEpisodes.removedAt)));
+  const [lastCheckIn] = await db
+    .select({ level: checkIns.level, createdAt: checkIns.createdAt })
+    .from(checkIns)
+    .where(eq(checkIns.patientId, patientId))
+    .orderBy(desc(checkIns.createdAt))
+    .limit(1);
+  const team = await db
+    .select({ name: organisations.name, phone: organisations.phone, outOfHoursPhone: organisations.outOfHoursPhone })
+    .from(organisations)
+    .where(
+      inArray(
+        organisations.id,
+        db.select({ id: careTeam.organisationId }).from(careTeam).where(eq(careTeam.patientId, patientId)),
+      ),
+    );
+  return { patient, episode: episode ?? null, lastCheckIn: lastCheckIn ?? null, team };
+}

@@ -1,0 +1,357 @@
+/**
+ * The invented Eastmere demo: one hospital (wards Larch and Rowan), a community nursing team,
+ * two GP practices, staff, patients with different catheter histories, a carer. Idempotent:
+ * running it again changes nothing that is already there. Prints the demo accounts.
+ * Every name, number and address here is invented; 01632 960xxx is a range set aside for fiction.
+ */
+import { randomUUID } from "node:crypto";
+import path from "node:path";
+import { fileURLToPath } from "node:url";
+import { and, eq, sql } from "drizzle-orm";
+import { db, pool, type Database } from "./index";
+import {
+  account,
+  careTeam,
+  carerLinks,
+  catheterEpisodes,
+  episodeEvents,
+  memberships,
+  organisations,
+  patients,
+  settings,
+  user,
+  type NewCatheterEpisode,
+  type OrganisationKind,
+} from "./schema";
+import { hashPassword } from "@/lib/auth/password";
+
+type Role = "admin" | "clinician" | "patient" | "carer";
+
+export const demoAccounts: { email: string; password: string; name: string; role: Role; orgs: string[]; locale: string; note: string }[] = [
+  { email: "admin@eastmere.example", password: "Eastmere-admin-2026", name: "Morgan Hale", role: "admin", orgs: ["Larch Ward", "Rowan Ward", "Harbourside Community Nursing Team"], locale: "en", note: "organisation admin" },
+  { email: "ward.nurse@eastmere.example", password: "Eastmere-ward-2026", name: "Tomasz Reid", role: "clinician", orgs: ["Larch Ward"], locale: "en", note: "discharge nurse, Larch Ward" },
+  { email: "community.nurse@eastmere.example", password: "Eastmere-community-2026", name: "Grace Mensah", role: "clinician", orgs: ["Harbourside Community Nursing Team"], locale: "en", note: "district nurse, Harbourside" },
+  { email: "rowan.nurse@eastmere.example", password: "Eastmere-rowan-2026", name: "Priya Sandhu", role: "clinician", orgs: ["Rowan Ward"], locale: "en", note: "clinician of another team (visiting)" },
+  { email: "arthur.pell@eastmere.example", password: "Eastmere-patient-2026", name: "Arthur Pell", role: "patient", orgs: [], locale: "en", note: "patient, latex allergy" },
+  { email: "yusuf.haddad@eastmere.example", password: "Eastmere-patient-ar-2026", name: "Yusuf Haddad", role: "patient", orgs: [], locale: "ar", note: "patient, suprapubic, Arabic" },
+  { email: "joan.pell@eastmere.example", password: "Eastmere-carer-2026", name: "Joan Pell", role: "carer", orgs: [], locale: "en", note: "carer of Arthur Pell" },
+];
+
+const orgs: { name: string; kind: OrganisationKind; parentName?: string; phone: string; outOfHoursPhone?: string; inboxEmail: string; locale: string; languages: string[] }[] = [
+  { name: "Larch Ward", kind: "hospital_ward", parentName: "Eastmere General Hospital", phone: "01632 960 101", inboxEmail: "larch.ward@eastmere.example", locale: "en", languages: ["en", "pl", "ro", "ar", "ur", "es"] },
+  { name: "Rowan Ward", kind: "hospital_ward", parentName: "Eastmere General Hospital", phone: "01632 960 102", inboxEmail: "rowan.ward@eastmere.example", locale: "en", languages: ["en", "pl", "ro", "ar", "ur", "es"] },
+  { name: "Harbourside Community Nursing Team", kind: "community_team", phone: "01632 960 210", outOfHoursPhone: "01632 960 299", inboxEmail: "harbourside.team@eastmere.example", locale: "en", languages: ["en", "pl", "ro", "ar", "ur", "es"] },
+  { name: "Millbrook Surgery", kind: "gp_practice", phone: "01632 960 310", inboxEmail: "millbrook.surgery@eastmere.example", locale: "en", languages: ["en"] },
+  { name: "Quayside Practice", kind: "gp_practice", phone: "01632 960 320", inboxEmail: "quayside.practice@eastmere.example", locale: "en", languages: ["en"] },
+];
+
+function daysFromToday(days: number, today = new Date()): Date {
+  const d = new Date(today);
+  d.setUTCHours(10, 0, 0, 0);
+  d.setUTCDate(d.getUTCDate() + days);
+  return d;
+}
+const isoDate = (d: Date) => d.toISOString().slice(0, 10);
+
+async function upsertOrganisation(tx: Database, o: (typeof orgs)[number]) {
+  const [row] = await tx
+    .insert(organisations)
+    .values({ ...o, parentName: o.parentName ?? null, outOfHoursPhone: o.outOfHoursPhone ?? null })
+    .onConflictDoNothing({ target: [organisations.name, organisations.kind] })
+    .returning({ id: organisations.id });
+  if (row) return row.id;
+  const [found] = await tx
+    .select({ id: organisations.id })
+    .from(organisations)
+    .where(and(eq(organisations.name, o.name), eq(organisations.kind, o.kind)));
+  return found.id;
+}
+
+async function upsertUser(tx: Database, a: (typeof demoAccounts)[number]) {
+  const [existing] = await tx.select({ id: user.id }).from(user).where(eq(user.email, a.email));
+  if (existing) return existing.id;
+  const id = randomUUID();
+  await tx.insert(user).values({ id, email: a.email, name: a.name, role: a.role, locale: a.locale, emailVerified: true });
+  await tx.insert(account).values({
+    id: randomUUID(),
+    userId: id,
+    accountId: id,
+    providerId: "credential",
+    password: await hashPassword(a.password),
+  });
+  return id;
+}
+
+type DemoPatient = {
+  hrn: string;
+  givenName: string;
+  familyName: string;
+  dateOfBirth: string;
+  sex: "female" | "male";
+  locale: string;
+  weightKg: number;
+  allergies?: { latex?: boolean; chlorhexidine?: boolean; lidocaine?: boolean; other?: string };
+  gp: string;
+  team: string[];
+  account?: string;
+  episodes: (Omit<NewCatheterEpisode, "patientId" | "insertedAt" | "plannedChangeOn" | "reviewDueOn" | "insertedByName" | "indication"> & {
+    insertedDaysAgo: number;
+    dwellDays: number;
+    removedDaysAgo?: number;
+    unplannedReason?: "blockage" | "bypassing" | "expelled" | "infection" | "other";
+    indication?: string;
+    by: string;
+    org: string;
+  })[];
+};
+
+const silicone14 = {
+  route: "urethral" as const,
+  catheterType: "two-way" as const,
+  material: "all-silicone" as const,
+  lengthCategory: "standard" as const,
+  sizeCh: 14,
+  balloonMl: 10,
+  makerBalloonMl: 10,
+  maker: "Northfen Medical (demo)",
+  gelKind: "plain" as const,
+  gelVolumeMl: 11,
+};
+
+// Halina's catheters block after about three weeks; her history shows it.
+const halinaEpisodes: DemoPatient["episodes"] = [120, 99, 78, 57, 36].map((ago, i, all) => ({
+  ...silicone14,
+  material: "hydrogel-coated-latex" as const,
+  lengthCategory: "female" as const,
+  gelVolumeMl: 6,
+  lot: `HN${2400 + i}`,
+  expiry: isoDate(daysFromToday(500)),
+  insertedDaysAgo: ago,
+  dwellDays: 84,
+  removedDaysAgo: i < all.length - 1 ? all[i + 1] : undefined,
+  unplannedReason: i < all.length - 1 ? ("blockage" as const) : undefined,
+  indication: "Chronic urinary retention",
+  by: "Grace Mensah",
+  org: "Harbourside Community Nursing Team",
+}));
+
+export const demoPatients: DemoPatient[] = [
+  {
+    hrn: "EM-100-001",
+    givenName: "Arthur",
+    familyName: "Pell",
+    dateOfBirth: "1944-03-12",
+    sex: "male",
+    locale: "en",
+    weightKg: 74,
+    allergies: { latex: true },
+    gp: "Millbrook Surgery",
+    team: ["Harbourside Community Nursing Team"],
+    account: "arthur.pell@eastmere.example",
+    episodes: [
+      { ...silicone14, lot: "AP7731", expiry: isoDate(daysFromToday(400)), insertedDaysAgo: 80, dwellDays: 84, indication: "Chronic urinary retention, not suitable for intermittent catheterisation", by: "Grace Mensah", org: "Harbourside Community Nursing Team" },
+    ],
+  },
+  {
+    hrn: "EM-100-002",
+    givenName: "Halina",
+    familyName: "Nowak",
+    dateOfBirth: "1950-09-02",
+    sex: "female",
+    locale: "pl",
+    weightKg: 63,
+    gp: "Quayside Practice",
+    team: ["Harbourside Community Nursing Team"],
+    episodes: halinaEpisodes,
+  },
+  {
+    hrn: "EM-100-003",
+    givenName: "Yusuf",
+    familyName: "Haddad",
+    dateOfBirth: "1958-01-20",
+    sex: "male",
+    locale: "ar",
+    weightKg: 81,
+    allergies: { chlorhexidine: true },
+    gp: "Millbrook Surgery",
+    team: ["Harbourside Community Nursing Team"],
+    account: "yusuf.haddad@eastmere.example",
+    episodes: [
+      { ...silicone14, route: "suprapubic", sizeCh: 16, gelKind: "plain", lot: "YH5520", expiry: isoDate(daysFromToday(300)), insertedDaysAgo: 30, dwellDays: 84, indication: "Neurogenic bladder; urethral route not suitable", by: "Grace Mensah", org: "Harbourside Community Nursing Team" },
+    ],
+  },
+  {
+    hrn: "EM-100-004",
+    givenName: "Maria",
+    familyName: "Popescu",
+    dateOfBirth: "1955-06-30",
+    sex: "female",
+    locale: "ro",
+    weightKg: 68,
+    gp: "Quayside Practice",
+    team: ["Larch Ward", "Harbourside Community Nursing Team"],
+    episodes: [
+      { ...silicone14, lengthCategory: "female", gelVolumeMl: 6, material: "ptfe-coated-latex", lot: "MP1180", expiry: isoDate(daysFromToday(200)), insertedDaysAgo: 12, dwellDays: 28, awaitingTwoc: true, indication: "Acute urinary retention after surgery", by: "Tomasz Reid", org: "Larch Ward" },
+    ],
+  },
+  {
+    hrn: "EM-100-005",
+    givenName: "Rosa",
+    familyName: "Jiménez",
+    dateOfBirth: "1967-11-08",
+    sex: "female",
+    locale: "es",
+    weightKg: 70,
+    gp: "Millbrook Surgery",
+    team: ["Harbourside Community Nursing Team"],
+    episodes: [
+      { ...silicone14, lengthCategory: "female", gelVolumeMl: 6, lot: "RJ3302", expiry: isoDate(daysFromToday(20)), insertedDaysAgo: 88, dwellDays: 84, indication: "Intractable incontinence with skin breakdown", by: "Grace Mensah", org: "Harbourside Community Nursing Team" },
+    ],
+  },
+  {
+    hrn: "EM-100-006",
+    givenName: "Imran",
+    familyName: "Qureshi",
+    dateOfBirth: "1946-04-15",
+    sex: "male",
+    locale: "ur",
+    weightKg: 66,
+    allergies: { lidocaine: true },
+    gp: "Quayside Practice",
+    team: ["Harbourside Community Nursing Team"],
+    episodes: [
+      { ...silicone14, sizeCh: 16, gelKind: "plain", lot: "IQ9021", expiry: isoDate(daysFromToday(600)), insertedDaysAgo: 78, dwellDays: 84, indication: "Bladder outflow obstruction awaiting surgery", by: "Grace Mensah", org: "Harbourside Community Nursing Team" },
+    ],
+  },
+];
+
+export async function seed({ quiet = false }: { quiet?: boolean } = {}) {
+  const orgIds = new Map<string, string>();
+  const userIds = new Map<string, string>();
+  await db.transaction(async (tx) => {
+    const t = tx as unknown as Database;
+    for (const o of orgs) orgIds.set(o.name, await upsertOrganisation(t, o));
+    for (const a of demoAccounts) {
+      const id = await upsertUser(t, a);
+      userIds.set(a.email, id);
+      for (const org of a.orgs) {
+        await tx.insert(memberships).values({ userId: id, organisationId: orgIds.get(org)! }).onConflictDoNothing();
+      }
+    }
+    await tx
+      .insert(settings)
+      .values([
+        { key: "emergencyNumber", value: "999" },
+        { key: "outOfHoursServiceName", value: "Eastmere out-of-hours nursing line" },
+      ])
+      .onConflictDoNothing();
+
+    const nameToUser = new Map(demoAccounts.map((a) => [a.name, userIds.get(a.email)!]));
+    for (const p of demoPatients) {
+      const [inserted] = await tx
+        .insert(patients)
+        .values({
+          healthRecordNumber: p.hrn,
+          givenName: p.givenName,
+          familyName: p.familyName,
+          dateOfBirth: p.dateOfBirth,
+          sex: p.sex,
+          preferredLocale: p.locale,
+          weightKg: p.weightKg,
+          allergyLatex: p.allergies?.latex ?? false,
+          allergyChlorhexidine: p.allergies?.chlorhexidine ?? false,
+          allergyLidocaine: p.allergies?.lidocaine ?? false,
+          allergyOther: p.allergies?.other ?? null,
+          gpPracticeId: orgIds.get(p.gp)!,
+          userId: p.account ? userIds.get(p.account)! : null,
+        })
+        .onConflictDoNothing({ target: patients.healthRecordNumber })
+        .returning({ id: patients.id });
+      if (!inserted) continue; // already seeded
+      const patientId = inserted.id;
+      for (const team of p.team) {
+        await tx.insert(careTeam).values({ patientId, organisationId: orgIds.get(team)! }).onConflictDoNothing();
+      }
+      let previous: string | null = null;
+      let previousUnplanned: DemoPatient["episodes"][number]["unplannedReason"];
+      for (const e of p.episodes) {
+        const { insertedDaysAgo, dwellDays, removedDaysAgo, unplannedReason, by, org, indication, ...device } = e;
+        const insertedAt = daysFromToday(-insertedDaysAgo);
+        const removedAt = removedDaysAgo !== undefined ? daysFromToday(-removedDaysAgo) : null;
+        const [ep] = await tx
+          .insert(catheterEpisodes)
+          .values({
+            ...device,
+            patientId,
+            previousEpisodeId: previous,
+            organisationId: orgIds.get(org)!,
+            indication: indication ?? "Chronic urinary retention",
+            insertedAt,
+            insertedByUserId: nameToUser.get(by) ?? null,
+            insertedByName: by,
+            maxDwellDays: dwellDays,
+            plannedChangeOn: isoDate(daysFromToday(-insertedDaysAgo + dwellDays)),
+            reviewDueOn: isoDate(daysFromToday(-insertedDaysAgo + Math.min(dwellDays, 28))),
+            residualUrineMl: 150,
+            removedAt,
+            removalReason: removedAt ? (unplannedReason ?? "planned change") : null,
+          })
+          .returning({ id: catheterEpisodes.id });
+        await tx.insert(episodeEvents).values({
+          episodeId: ep.id,
+          patientId,
+          kind: !previous ? "insertion" : previousUnplanned ? "unplanned_change" : "planned_change",
+          reason: previous && previousUnplanned ? previousUnplanned : null,
+          occurredAt: insertedAt,
+          recordedByUserId: nameToUser.get(by) ?? null,
+          recordedByName: by,
+          organisationId: orgIds.get(org)!,
+        });
+        previous = ep.id;
+        previousUnplanned = unplannedReason;
+      }
+    }
+    const arthur = await tx.select({ id: patients.id }).from(patients).where(eq(patients.healthRecordNumber, "EM-100-001"));
+    const joan = userIds.get("joan.pell@eastmere.example")!;
+    const [link] = await tx
+      .select({ id: carerLinks.id })
+      .from(carerLinks)
+      .where(and(eq(carerLinks.patientId, arthur[0].id), eq(carerLinks.carerUserId, joan)));
+    if (!link) {
+      await tx.insert(carerLinks).values({
+        patientId: arthur[0].id,
+        carerUserId: joan,
+        invitedEmail: "joan.pell@eastmere.example",
+        invitedByUserId: userIds.get("arthur.pell@eastmere.example")!,
+        status: "active",
+        acceptedAt: new Date(),
+      });
+    }
+  });
+  if (!quiet) printAccounts();
+  return { orgIds, userIds };
+}
+
+export function printAccounts() {
+  const url = process.env.APP_URL ?? "http://localhost:3000";
+  console.log(`\nCaddis demo (invented Eastmere scenario) — sign in at ${url}/en/sign-in\n`);
+  const w = Math.max(...demoAccounts.map((a) => a.email.length));
+  for (const a of demoAccounts) {
+    console.log(`  ${a.role.padEnd(9)} ${a.email.padEnd(w)}  ${a.password.padEnd(26)} ${a.note}`);
+  }
+  console.log("");
+}
+
+if (process.argv[1] && path.resolve(process.argv[1]) === fileURLToPath(import.meta.url)) {
+  seed()
+    .then(async () => {
+      const [{ n }] = await db.select({ n: sql<number>`count(*)::int` }).from(patients);
+      console.log(`[seed] done: ${n} patients`);
+      await pool.end();
+    })
+    .catch(async (e) => {
+      console.error("[seed] failed:", e);
+      await pool.end();
+      process.exit(1);
+    });
+}

@@ -1,0 +1,61 @@
+import "server-only";
+import { headers } from "next/headers";
+import { cache } from "react";
+import { getMembershipOrganisationIds, getOwnPatientIds, type Role } from "@/db/queries/access";
+import { auth } from "@/lib/auth";
+
+export type { Role };
+export const roles: readonly Role[] = ["admin", "clinician", "patient", "carer"];
+
+export type Viewer = {
+  userId: string;
+  name: string;
+  email: string;
+  role: Role;
+  locale: string;
+  /** Staff: the organisations they belong to. */
+  organisationIds: string[];
+  /** Patients: themselves. Carers: the patients whose link is active. */
+  patientIds: string[];
+};
+
+function isRole(value: unknown): value is Role {
+  return typeof value === "string" && (roles as readonly string[]).includes(value);
+}
+
+/** The signed-in person for a request, or null. Deactivated accounts count as signed out. */
+export async function getViewerFromHeaders(h: Headers): Promise<Viewer | null> {
+  const result = await auth.api.getSession({ headers: h });
+  if (!result) return null;
+  const u = result.user as typeof result.user & { role?: unknown; locale?: unknown; deactivatedAt?: unknown };
+  if (u.deactivatedAt || !isRole(u.role)) return null;
+  const staff = u.role === "admin" || u.role === "clinician";
+  const [organisationIds, patientIds] = await Promise.all([
+    staff ? getMembershipOrganisationIds({ userId: u.id }) : Promise.resolve([]),
+    staff ? Promise.resolve([]) : getOwnPatientIds({ userId: u.id, role: u.role }),
+  ]);
+  return {
+    userId: u.id,
+    name: u.name,
+    email: u.email,
+    role: u.role,
+    locale: typeof u.locale === "string" ? u.locale : "en",
+    organisationIds,
+    patientIds,
+  };
+}
+
+/** Cached per request for server components, layouts and actions. */
+export const getViewer = cache(async (): Promise<Viewer | null> => getViewerFromHeaders(await headers()));
+
+export function homePathFor(role: Role): string {
+  switch (role) {
+    case "admin":
+      return "/admin";
+    case "clinician":
+      return "/caseload";
+    case "patient":
+    case "carer":
+      return "/today";
+  }
+}

@@ -1,0 +1,50 @@
+import { z } from "zod";
+
+// Every setting Caddis reads from the environment, validated once. Defaults are the loopback
+// services that `npm start` and `npm test` bring up; production sets each one explicitly.
+const schema = z.object({
+  NODE_ENV: z.enum(["development", "production", "test"]).default("development"),
+  APP_URL: z.url().default("http://localhost:3000"),
+  DATABASE_URL: z.string().min(1).default("postgres://postgres@127.0.0.1:5433/caddis"),
+  DATABASE_POOL_MAX: z.coerce.number().int().min(1).max(100).default(10),
+  BETTER_AUTH_SECRET: z.string().min(32).optional(),
+  SMTP_URL: z.string().min(1).default("smtp://127.0.0.1:1025"),
+  MAIL_FROM: z.string().min(3).default("Caddis <no-reply@caddis.invalid>"),
+  MAIL_INBOX_URL: z.url().default("http://127.0.0.1:1080"),
+  S3_ENDPOINT: z.url().default("http://127.0.0.1:4569"),
+  S3_REGION: z.string().default("us-east-1"),
+  S3_BUCKET: z.string().default("caddis-uploads"),
+  S3_ACCESS_KEY_ID: z.string().default("S3RVER"),
+  S3_SECRET_ACCESS_KEY: z.string().default("S3RVER"),
+  S3_FORCE_PATH_STYLE: z
+    .enum(["true", "false"])
+    .default("true")
+    .transform((v) => v === "true"),
+  // Header the load balancer sets with the client address; empty means use none (loopback only).
+  CLIENT_IP_HEADER: z.string().default("x-forwarded-for"),
+  // Salt for the hashed IP addresses kept in audit events and rate-limit keys.
+  AUDIT_IP_SALT: z.string().min(8).default("caddis-local-ip-salt"),
+  CADDIS_DATA_DIR: z.string().default(".data"),
+});
+
+export type Env = z.infer<typeof schema>;
+
+function load(): Env {
+  const parsed = schema.safeParse(process.env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join(".")}: ${i.message}`);
+    throw new Error(`Invalid environment:\n${lines.join("\n")}`);
+  }
+  return parsed.data;
+}
+
+export const env: Env = load();
+
+/** The secret that signs session cookies; a fixed value only outside production. */
+export function authSecret(): string {
+  if (env.BETTER_AUTH_SECRET) return env.BETTER_AUTH_SECRET;
+  if (env.NODE_ENV === "production" && process.env.NEXT_PHASE !== "phase-production-build") {
+    throw new Error("BETTER_AUTH_SECRET must be set in production (npm start writes one to .data/).");
+  }
+  return "caddis-development-secret-not-for-production-use";
+}

@@ -1,0 +1,54 @@
+// Kept cheap on purpose: locale routing, a per-request CSP nonce, and a redirect to sign-in when
+// no session cookie is present. It never decides authorisation: pages and handlers do.
+import createMiddleware from "next-intl/middleware";
+import { NextResponse, type NextRequest } from "next/server";
+import { routing } from "@/lib/i18n/routing";
+
+const intl = createMiddleware(routing);
+
+const signedInAreas = /^\/(en|es|pl|ro|ar|ur)\/(caseload|patients|admin|scan|today|my-catheter|check-in|diary|help|people|learn|account|home)(\/|$)/;
+
+function contentSecurityPolicy(nonce: string) {
+  const dev = process.env.NODE_ENV !== "production";
+  const s3 = process.env.S3_PUBLIC_ENDPOINT ?? process.env.S3_ENDPOINT ?? "http://127.0.0.1:4569";
+  return [
+    "default-src 'self'",
+    `script-src 'self' 'nonce-${nonce}' 'strict-dynamic'${dev ? " 'unsafe-eval'" : ""}`,
+    "style-src 'self' 'unsafe-inline'",
+    "img-src 'self' data: blob:",
+    "font-src 'self'",
+    `connect-src 'self' ${new URL(s3).origin}`,
+    "media-src 'self' blob:",
+    "worker-src 'self' blob:",
+    "manifest-src 'self'",
+    "object-src 'none'",
+    "base-uri 'self'",
+    "form-action 'self'",
+    "frame-ancestors 'none'",
+  ].join("; ");
+}
+
+export default function proxy(request: NextRequest) {
+  const { pathname } = request.nextUrl;
+  const hasSession =
+    request.cookies.has("better-auth.session_token") || request.cookies.has("__Secure-better-auth.session_token");
+  if (signedInAreas.test(pathname) && !hasSession) {
+    const locale = pathname.split("/")[1];
+    const url = request.nextUrl.clone();
+    url.pathname = `/${locale}/sign-in`;
+    url.search = "";
+    return NextResponse.redirect(url);
+  }
+  const nonce = Buffer.from(crypto.getRandomValues(new Uint8Array(16))).toString("base64");
+  const csp = contentSecurityPolicy(nonce);
+  // next-intl forwards the request headers, so the nonce reaches the page renderer.
+  request.headers.set("x-nonce", nonce);
+  request.headers.set("Content-Security-Policy", csp);
+  const response = intl(request);
+  response.headers.set("Content-Security-Policy", csp);
+  return response;
+}
+
+export const config = {
+  matcher: ["/((?!api|_next|.*\\..*).*)"],
+};
