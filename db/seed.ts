@@ -278,7 +278,7 @@ export async function seed({ quiet = false }: { quiet?: boolean } = {}) {
         const { insertedDaysAgo, dwellDays, removedDaysAgo, unplannedReason, by, org, indication, ...device } = e;
         const insertedAt = daysFromToday(-insertedDaysAgo);
         const removedAt = removedDaysAgo !== undefined ? daysFromToday(-removedDaysAgo) : null;
-        const [ep] = await tx
+        const [ep]: { id: string }[] = await tx
           .insert(catheterEpisodes)
           .values({
             ...device,

@@ -4,7 +4,13 @@ import { defineConfig } from "vitest/config";
 const root = fileURLToPath(new URL(".", import.meta.url));
 
 export default defineConfig({
-  resolve: { alias: { "@": root } },
+  resolve: {
+    alias: {
+      "@/": `${root}/`,
+      // Route handlers and query modules import "server-only"; in tests they run on the server.
+      "server-only": `${root}/tests/support/server-only.ts`,
+    },
+  },
   test: {
     coverage: {
       provider: "v8",
@@ -23,12 +29,22 @@ export default defineConfig({
           name: "integration",
           include: ["tests/integration/**/*.test.ts"],
           environment: "node",
-          // One database per run; files share it, so run them one after another.
+          // One database per run (made by scripts/test.ts or the global setup); files share it.
           fileParallelism: false,
           globalSetup: ["tests/integration/global-setup.ts"],
-          setupFiles: ["tests/integration/setup.ts"],
           testTimeout: 30_000,
           hookTimeout: 60_000,
+        },
+      },
+      {
+        extends: true,
+        test: {
+          name: "e2e",
+          include: ["tests/e2e/**/*.test.ts"],
+          environment: "node",
+          fileParallelism: false,
+          testTimeout: 90_000,
+          hookTimeout: 90_000,
         },
       },
     ],

@@ -1,0 +1,101 @@
+/**
+ * `npm test`: every test, on services this script starts on loopback.
+ *   1. unit tests (vitest, with the lib/clinical coverage gate)
+ *   2. integration tests on a fresh PostgreSQL database with migrations and the demo seed
+ *   3. end-to-end tests in Debian's chromium against the production build of the app
+ * `npm test -- unit|integration|e2e` runs one stage. The test database is dropped at the end.
+ */
+import { spawn, spawnSync } from "node:child_process";
+import path from "node:path";
+import { fileURLToPath } from "node:url";
+import { ensureTools } from "./ensure-tools";
+import { defaults, dropDatabase, ensureDatabase, portOpen, servicesUp } from "./services";
+
+const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
+const bin = (name: string) => path.join(root, "node_modules/.bin", name);
+const stage = process.argv[2] ?? "all";
+const started = Date.now();
+
+function run(cmd: string, args: string[], env: NodeJS.ProcessEnv, label: string) {
+  const t = Date.now();
+  console.log(`\n[test] ── ${label}`);
+  const r = spawnSync(cmd, args, { cwd: root, stdio: "inherit", env });
+  console.log(`[test] ${label}: ${r.status === 0 ? "passed" : "FAILED"} in ${((Date.now() - t) / 1000).toFixed(0)} s`);
+  return r.status === 0;
+}
+
+async function waitForHttp(url: string, seconds: number) {
+  for (let i = 0; i < seconds * 4; i++) {
+    try {
+      const r = await fetch(url, { redirect: "manual" });
+      if (r.status < 500) return;
+    } catch {
+      /* not up yet */
+    }
+    await new Promise((r) => setTimeout(r, 250));
+  }
+  throw new Error(`app did not answer on ${url} within ${seconds} s`);
+}
+
+async function main() {
+  const base: NodeJS.ProcessEnv = { ...process.env, NEXT_TELEMETRY_DISABLED: "1", NODE_OPTIONS: "" };
+  let ok = true;
+
+  if (stage === "all" || stage === "unit") {
+    ok = run(bin("vitest"), ["run", "--project", "unit", ...(stage === "all" ? ["--coverage"] : [])], { ...base, NODE_ENV: "test" }, "unit tests") && ok;
+  }
+  if (stage === "unit") return ok;
+
+  await servicesUp();
+  const dbName = `caddis_test_${process.pid}_${Date.now().toString(36)}`;
+  const dbUrl = new URL(defaults.databaseUrl);
+  dbUrl.pathname = `/${dbName}`;
+  const databaseUrl = dbUrl.toString();
+  await ensureDatabase(databaseUrl);
+  const env: NodeJS.ProcessEnv = { ...base, DATABASE_URL: databaseUrl, CADDIS_TEST_DATABASE: "1" };
+  try {
+    if (!run(bin("tsx"), ["db/migrate.ts"], env, "migrations on a fresh database")) return false;
+    if (!run(bin("tsx"), ["db/seed.ts"], env, "demo seed")) return false;
+
+    if (stage === "all" || stage === "integration") {
+      ok = run(bin("vitest"), ["run", "--project", "integration"], { ...env, NODE_ENV: "test" }, "integration tests") && ok;
+    }
+    if (stage === "all" || stage === "e2e") {
+      ensureTools();
+      const port = Number(process.env.E2E_PORT ?? 3100);
+      if (await portOpen(port)) throw new Error(`port ${port} is busy; set E2E_PORT`);
+      const appUrl = `http://localhost:${port}`;
+      const appEnv: NodeJS.ProcessEnv = {
+        ...env,
+        APP_URL: appUrl,
+        BETTER_AUTH_SECRET: "e2e-secret-0123456789abcdefghijklmnopqrstuvwxyz",
+        NODE_ENV: "production",
+      };
+      if (!run(bin("next"), ["build"], appEnv, "production build")) return false;
+      const server = spawn(bin("next"), ["start", "-p", String(port), "-H", "127.0.0.1"], {
+        cwd: root,
+        env: appEnv,
+        stdio: ["ignore", "inherit", "inherit"],
+      });
+      try {
+        await waitForHttp(`${appUrl}/en/sign-in`, 60);
+        ok = run(bin("vitest"), ["run", "--project", "e2e"], { ...env, NODE_ENV: "test", E2E_BASE_URL: appUrl }, "end-to-end tests") && ok;
+      } finally {
+        server.kill("SIGTERM");
+      }
+    }
+  } finally {
+    if (!process.env.KEEP_TEST_DB) await dropDatabase(databaseUrl).catch(() => {});
+  }
+  return ok;
+}
+
+main()
+  .then((ok) => {
+    console.log(`\n[test] ${ok ? "all stages passed" : "some stages FAILED"} in ${((Date.now() - started) / 1000).toFixed(0)} s`);
+    process.exit(ok ? 0 : 1);
+  })
+  .catch((e) => {
+    console.error(`[test] ${e instanceof Error ? e.stack : e}`);
+    process.exit(1);
+  });
