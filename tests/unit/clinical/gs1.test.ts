@@ -1,4 +1,4 @@
-import bwipjs from "bwip-js";
+import bwipjs from "bwip-js/node";
 import { format, isValid, lastDayOfMonth, parse } from "date-fns";
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
