@@ -27,28 +27,30 @@ export interface Finding {
   source: SourceId;
 }
 
-export type FindingCode =
-  | "device-expired"
-  | "device-expiring-soon"
-  | "expiry-missing"
-  | "lot-missing"
-  | "gtin-invalid"
-  | "latex-allergy"
-  | "latex-allergy-unknown"
-  | "chlorhexidine-allergy"
-  | "chlorhexidine-allergy-unknown"
-  | "chlorhexidine-check-catheter"
-  | "lidocaine-allergy"
-  | "lidocaine-allergy-unknown"
-  | "female-length-male"
-  | "female-length-sex-unknown"
-  | "female-length-suprapubic"
-  | "paediatric-patient"
-  | "paediatric-length-adult"
-  | "balloon-differs-from-maker"
-  | "balloon-not-usual-adult"
-  | "size-larger-than-routine"
-  | "dwell-over-12-weeks";
+export const FINDING_CODES = [
+  "device-expired",
+  "device-expiring-soon",
+  "expiry-missing",
+  "lot-missing",
+  "gtin-invalid",
+  "latex-allergy",
+  "latex-allergy-unknown",
+  "chlorhexidine-allergy",
+  "chlorhexidine-allergy-unknown",
+  "chlorhexidine-check-catheter",
+  "lidocaine-allergy",
+  "lidocaine-allergy-unknown",
+  "female-length-male",
+  "female-length-sex-unknown",
+  "female-length-suprapubic",
+  "paediatric-patient",
+  "paediatric-length-adult",
+  "balloon-differs-from-maker",
+  "balloon-not-usual-adult",
+  "size-larger-than-routine",
+  "dwell-over-12-weeks",
+] as const;
+export type FindingCode = (typeof FINDING_CODES)[number];
 
 /** Thresholds for checkDevice, each with its source. */
 export const DEVICE_RULES = {
