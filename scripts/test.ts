@@ -41,6 +41,9 @@ async function main() {
   const base: NodeJS.ProcessEnv = { ...process.env, NEXT_TELEMETRY_DISABLED: "1", NODE_OPTIONS: "" };
   let ok = true;
 
+  if (stage === "all") {
+    ok = run(bin("tsc"), ["--noEmit", "-p", "tsconfig.json"], base, "type check (app, scripts and tests)") && ok;
+  }
   if (stage === "all" || stage === "unit") {
     ok = run(bin("vitest"), ["run", "--project", "unit", ...(stage === "all" ? ["--coverage"] : [])], { ...base, NODE_ENV: "test" }, "unit tests") && ok;
   }
