@@ -132,10 +132,10 @@ export function checkDevice(
       add("warn", "device-expiring-soon", `Expires on ${device.expiry}, within ${warnDays} days.`, "common-practice");
     }
   }
-  if (device.lot === undefined || device.lot.trim() === "") {
+  if (typeof device.lot !== "string" || device.lot.trim() === "") {
     add("info", "lot-missing", "No lot (batch) number recorded.", "eaun-2012-ch12");
   }
-  if (device.gtin !== undefined && device.gtin !== "" && !isValidGtin(device.gtin)) {
+  if (device.gtin !== undefined && device.gtin !== null && device.gtin !== "" && !isValidGtin(device.gtin)) {
     add("warn", "gtin-invalid", "The product number (GTIN) has a wrong check digit: rescan or retype it.", "gs1-genspecs");
   }
 
@@ -196,7 +196,7 @@ export function checkDevice(
       add(severity, "balloon-not-usual-adult", `Balloon ${balloonMl} ml: the usual adult volume is ${usual} ml of sterile water.`, "handbook-balloon-10ml");
     }
     const rule = route === "urethral" ? DEVICE_RULES.routineMaxChUrethral : DEVICE_RULES.routineMaxChSuprapubic;
-    if (sizeCh > rule.value && !(device.largerSizeReason && device.largerSizeReason.trim())) {
+    if (sizeCh > rule.value && !(typeof device.largerSizeReason === "string" && device.largerSizeReason.trim())) {
       add("warn", "size-larger-than-routine", `${sizeCh} Ch is larger than routine (over ${rule.value} Ch): record the reason.`, rule.source);
     }
   }

@@ -11,7 +11,7 @@ const readme = readFileSync(join(root, "lib", "clinical", "README.md"), "utf8");
 
 const SEVERITIES = ["minor", "significant", "considerable", "major", "catastrophic"];
 const LIKELIHOODS = ["very low", "low", "medium", "high", "very high"];
-// Source: DCB0129/0160 risk matrix (security-accessibility.md, seen in transcriptions)
+// Source: DCB0129/0160 implementation guidance risk matrix (seen in secondary copies, not the published document)
 const MATRIX: Record<string, number[]> = {
   "very high": [3, 4, 4, 5, 5],
   high: [2, 3, 3, 4, 5],
