@@ -11,12 +11,12 @@ export const GS_VISIBLE = "\u241d";
 
 const GS_TEXT = /<GS>|\{GS\}|\[GS\]|<FNC1>|\{FNC1\}|\^\]|\u241d/gi;
 
-/** Every spelling of the group separator → ASCII 29; line ends and stray spaces trimmed. */
+/**
+ * Every spelling of the group separator → ASCII 29; whitespace removed (GS1's character set
+ * for these fields has no space, so a space is always typing or a line end).
+ */
 export function normaliseScan(raw: string): string {
-  return raw
-    .replace(GS_TEXT, GS)
-    .replace(/[\r\n\t]+/g, "")
-    .trim();
+  return raw.replace(GS_TEXT, GS).replace(/\s+/g, "");
 }
 
 /** For display in the scan field: ASCII 29 → the visible symbol. */

@@ -140,19 +140,26 @@ export const insertionObject = z.object({
 
 type InsertionShape = z.infer<typeof insertionObject>;
 
+/**
+ * Cross-field rules run even when other fields already failed, so the nurse sees every
+ * problem at once; they read the values defensively for that reason.
+ */
+const always = { when: (p: { value: unknown }) => typeof p.value === "object" && p.value !== null };
+
 /** Rules across fields, shared by the insertion and change schemas. */
 function insertionRules(v: InsertionShape, ctx: z.RefinementCtx) {
-  if (v.gelKind !== "none" && v.gelVolumeMl === undefined) {
+  if ((GEL_KINDS as readonly unknown[]).includes(v.gelKind) && v.gelKind !== "none" && typeof v.gelVolumeMl !== "number") {
     ctx.addIssue({ code: "custom", path: ["gelVolumeMl"], message: "gel_volume_required" });
   }
-  const seen = new Set<string>();
+  if (!Array.isArray(v.overrides)) return;
+  const seen = new Set<unknown>();
   v.overrides.forEach((o, i) => {
-    if (seen.has(o.code)) ctx.addIssue({ code: "custom", path: ["overrides", i, "code"], message: "duplicate" });
-    seen.add(o.code);
+    if (o && seen.has(o.code)) ctx.addIssue({ code: "custom", path: ["overrides", i, "code"], message: "duplicate" });
+    seen.add(o?.code);
   });
 }
 
-export const insertionSchema = insertionObject.superRefine(insertionRules);
+export const insertionSchema = insertionObject.superRefine(insertionRules, always);
 export type InsertionInput = z.infer<typeof insertionSchema>;
 
 export const changeSchema = insertionObject
@@ -174,7 +181,7 @@ export const changeSchema = insertionObject
     if (v.unplannedReason === "other" && !v.reasonNotes) {
       ctx.addIssue({ code: "custom", path: ["reasonNotes"], message: "notes_required" });
     }
-  });
+  }, always);
 export type ChangeInput = z.infer<typeof changeSchema>;
 
 export const removalSchema = z
@@ -189,8 +196,8 @@ export const removalSchema = z
   })
   .superRefine((v, ctx) => {
     if (v.reason === "other" && !v.notes) ctx.addIssue({ code: "custom", path: ["notes"], message: "notes_required" });
-    if (!v.catheterIntact && !v.notes) ctx.addIssue({ code: "custom", path: ["notes"], message: "notes_required" });
-  });
+    if (v.catheterIntact === false && !v.notes) ctx.addIssue({ code: "custom", path: ["notes"], message: "notes_required" });
+  }, always);
 export type RemovalInput = z.infer<typeof removalSchema>;
 
 export const voidSchema = z.object({
@@ -214,7 +221,7 @@ export const twocSchema = z
       ctx.addIssue({ code: "custom", path: ["failedAction"], message: "passed_no_action" });
     }
     if (v.failedAction === "other" && !v.notes) ctx.addIssue({ code: "custom", path: ["notes"], message: "notes_required" });
-  });
+  }, always);
 export type TwocInput = z.infer<typeof twocSchema>;
 
 /** Every message key the schemas above can produce (the form translates each). */
