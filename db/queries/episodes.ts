@@ -216,3 +216,19 @@ export async function insertEpisodeEvent({ values }: { values: NewEpisodeEvent }
   const [row] = await tx.insert(episodeEvents).values(values).returning({ id: episodeEvents.id });
   return row.id;
 }
+
+/** Everything a recording form needs to open: the patient, the catheter in place, the last one, and how past ones ended. */
+export async function getRecordingContext({ patientId }: { patientId: string }, tx: Executor = db) {
+  const [patient, active, latest, endings] = await Promise.all([
+    getPatientForRecording({ patientId }, tx),
+    getActiveEpisode({ patientId }, tx),
+    getLatestEpisode({ patientId }, tx),
+    listEpisodeEndings({ patientId }, tx),
+  ]);
+  return {
+    patient,
+    active: active ? toEpisodeDto(active) : null,
+    latest: latest ? toEpisodeDto(latest) : null,
+    endings: endings.map((e) => ({ insertedAt: e.insertedAt, removedAt: e.removedAt, removalReason: e.removalReason })),
+  };
+}
