@@ -293,15 +293,15 @@ export function DeviceEpisodeForm({
           />
           <TextInput
             label={t("field.sizeCh")}
-            unit="Ch"
+            unit={t("unit.ch")}
             inputMode="numeric"
             hint={mm ? t("hint.sizeMm", { mm }) : t("hint.size")}
             className="tabular"
             {...register("sizeCh")}
             errors={err("sizeCh")}
           />
-          <TextInput label={t("field.balloonMl")} unit="ml" inputMode="numeric" hint={t("hint.balloon")} {...register("balloonMl")} errors={err("balloonMl")} />
-          <TextInput label={t("field.makerBalloonMl")} unit="ml" inputMode="numeric" hint={t("hint.makerBalloon")} {...register("makerBalloonMl")} errors={err("makerBalloonMl")} />
+          <TextInput label={t("field.balloonMl")} unit={t("unit.ml")} inputMode="numeric" hint={t("hint.balloon")} {...register("balloonMl")} errors={err("balloonMl")} />
+          <TextInput label={t("field.makerBalloonMl")} unit={t("unit.ml")} inputMode="numeric" hint={t("hint.makerBalloon")} {...register("makerBalloonMl")} errors={err("makerBalloonMl")} />
           {sizeCh > routineMax || draft.largerSizeReason ? (
             <TextArea
               label={t("field.largerSizeReason", { max: routineMax })}
@@ -350,7 +350,7 @@ export function DeviceEpisodeForm({
           <Select label={t("field.gelKind")} placeholder={t("choose")} options={options(GEL_KINDS, "gelKind")} {...register("gelKind")} errors={err("gelKind")} />
           <TextInput
             label={t("field.gelVolumeMl")}
-            unit="ml"
+            unit={t("unit.ml")}
             inputMode="decimal"
             hint={t("hint.gel")}
             disabled={draft.gelKind === "none"}
@@ -363,7 +363,7 @@ export function DeviceEpisodeForm({
         </Section>
 
         <Section title={t("section.urine")}>
-          <TextInput label={t("field.residualUrineMl")} unit="ml" inputMode="numeric" {...register("residualUrineMl")} errors={err("residualUrineMl")} />
+          <TextInput label={t("field.residualUrineMl")} unit={t("unit.ml")} inputMode="numeric" {...register("residualUrineMl")} errors={err("residualUrineMl")} />
           <TextInput label={t("field.urineDescription")} hint={t("hint.urine")} {...register("urineDescription")} errors={err("urineDescription")} />
           <Checkbox label={t("field.specimenTaken")} {...register("specimenTaken")} />
         </Section>

@@ -98,7 +98,7 @@ export function RemovalForm({ patientId, current }: { patientId: string; current
         />
         <TextInput
           label={t("field.balloonDeflatedMl")}
-          unit="ml"
+          unit={t("unit.ml")}
           inputMode="numeric"
           hint={t("hint.deflated", { balloon: current.balloonMl })}
           {...register("balloonDeflatedMl")}

@@ -77,10 +77,10 @@ export function ScanField({ today, onRead }: { today: string; onRead: (fill: Sca
           className="tabular min-h-12 w-full rounded-lg border-2 border-stone-line bg-paper-raised px-3 font-mono text-ink"
           data-testid="scan-input"
         />
-        <Button variant="secondary" onClick={() => read(raw)} data-testid="scan-read">
+        <Button variant="secondary" className="shrink-0 whitespace-nowrap" onClick={() => read(raw)} data-testid="scan-read">
           {t("read")}
         </Button>
-        <Button variant="secondary" onClick={() => setCameraOpen((o) => !o)} aria-expanded={cameraOpen} data-testid="camera-open">
+        <Button variant="secondary" className="shrink-0 whitespace-nowrap" onClick={() => setCameraOpen((o) => !o)} aria-expanded={cameraOpen} data-testid="camera-open">
           <CameraIcon />
           {cameraOpen ? t("cameraClose") : t("camera")}
         </Button>

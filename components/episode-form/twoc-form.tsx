@@ -104,7 +104,7 @@ export function TwocForm({ patientId, removedAt }: { patientId: string; removedA
               <TextInput
                 className="flex-1"
                 label={t("field.voidN", { n: i + 1 })}
-                unit="ml"
+                unit={t("unit.ml")}
                 inputMode="numeric"
                 {...register(`voids.${i}.volumeMl` as never)}
                 errors={err(`voids.${i}.volumeMl`)}
@@ -123,7 +123,7 @@ export function TwocForm({ patientId, removedAt }: { patientId: string; removedA
             </p>
           </div>
         </fieldset>
-        <TextInput label={t("field.postVoidResidualMl")} unit="ml" inputMode="numeric" hint={t("hint.residual")} {...register("postVoidResidualMl")} errors={err("postVoidResidualMl")} />
+        <TextInput label={t("field.postVoidResidualMl")} unit={t("unit.ml")} inputMode="numeric" hint={t("hint.residual")} {...register("postVoidResidualMl")} errors={err("postVoidResidualMl")} />
         {outcome === "failed" ? (
           <Select
             label={t("field.failedAction")}
