@@ -2,7 +2,7 @@
 // into the scan field, the latex stop for a latex-allergic patient, its override, the save and
 // the record; the camera reading a GS1 DataMatrix; and screenshots of every form.
 import { randomUUID } from "node:crypto";
-import { and, eq, isNull } from "drizzle-orm";
+import { and, eq, inArray, isNull } from "drizzle-orm";
 import AxeBuilder from "@axe-core/playwright";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
@@ -20,6 +20,7 @@ const BRACKETED = "(01)09506000134352(17)281100(10)AB12(21)XYZ";
 
 let browser: Browser;
 let harbourside: string;
+const created: string[] = [];
 
 async function makePatient(opts: { latex?: boolean; familyName?: string } = {}) {
   const [p] = await db
@@ -33,6 +34,7 @@ async function makePatient(opts: { latex?: boolean; familyName?: string } = {}) 
       allergyLatex: opts.latex ?? false,
     })
     .returning({ id: patients.id });
+  created.push(p.id);
   await db.insert(careTeam).values({ patientId: p.id, organisationId: harbourside });
   return p.id;
 }
@@ -96,6 +98,8 @@ beforeAll(async () => {
 });
 afterAll(async () => {
   await browser?.close();
+  // Other tests read the demo caseloads: leave no test patient behind.
+  if (created.length) await db.delete(patients).where(inArray(patients.id, created));
   await pool.end();
 });
 
