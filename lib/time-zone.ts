@@ -43,3 +43,14 @@ export function lastDays(n: number, timeZone = deploymentTimeZone(), now = new D
   const base = Date.UTC(Number(today.slice(0, 4)), Number(today.slice(5, 7)) - 1, Number(today.slice(8, 10)));
   return Array.from({ length: n }, (_, i) => new Date(base - i * 86_400_000).toISOString().slice(0, 10));
 }
+
+/** Whole years from a YYYY-MM-DD birth date to a YYYY-MM-DD day. */
+export function ageOn(dateOfBirth: string, day: string = todayIso()): number {
+  const years = Number(day.slice(0, 4)) - Number(dateOfBirth.slice(0, 4));
+  return day.slice(5) < dateOfBirth.slice(5) ? years - 1 : years;
+}
+
+/** Whole days from one YYYY-MM-DD date to another (negative when `to` is earlier). */
+export function daysBetween(from: string, to: string): number {
+  return Math.round((Date.parse(`${to}T00:00:00Z`) - Date.parse(`${from}T00:00:00Z`)) / 86_400_000);
+}

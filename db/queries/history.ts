@@ -3,7 +3,7 @@ import "server-only";
 // it ended, and the blockage pattern computed from it by lib/clinical.
 import { asc, desc, eq } from "drizzle-orm";
 import { db, type Executor } from "@/db";
-import { catheterEpisodes, episodeEvents, organisations } from "@/db/schema";
+import { catheterEpisodes, episodeEvents, organisations, type CatheterEpisode } from "@/db/schema";
 import {
   blockagePattern,
   parseIsoDate,
@@ -27,10 +27,10 @@ export type HistoryEvent = {
 
 export type HistoryEpisode = {
   id: string;
-  route: string;
-  catheterType: string;
-  material: string;
-  lengthCategory: string;
+  route: CatheterEpisode["route"];
+  catheterType: CatheterEpisode["catheterType"];
+  material: CatheterEpisode["material"];
+  lengthCategory: CatheterEpisode["lengthCategory"];
   sizeCh: number;
   balloonMl: number;
   maker: string | null;
