@@ -299,12 +299,12 @@ function CaseloadTable({ rows, query, onSort }: { rows: CaseloadRow[]; query: Ca
                 <div className="tabular text-sm text-ink-soft">{r.healthRecordNumber}</div>
                 {r.awaitingTwoc ? <div className="text-sm font-bold text-level-soon-ink">{t("awaitingTwoc")}</div> : null}
               </td>
-              <td className="tabular p-3">{device(r)}</td>
-              <td className="tabular p-3">{days(r)}</td>
-              <td className="tabular p-3">
+              <td className="tabular whitespace-nowrap p-3">{device(r)}</td>
+              <td className="tabular whitespace-nowrap p-3">{days(r)}</td>
+              <td className="tabular whitespace-nowrap p-3">
                 <DateWithState date={date(r.plannedChangeOn)} state={r.changeState} />
               </td>
-              <td className="tabular p-3">
+              <td className="tabular whitespace-nowrap p-3">
                 <DateWithState date={date(r.reviewDueOn)} state={r.reviewState} />
               </td>
               <td className="p-3">{r.latestCheckInLevel ? <LevelBadge level={r.latestCheckInLevel} /> : <span className="text-ink-soft">{t("noCheckIn")}</span>}</td>

@@ -56,7 +56,7 @@ export function LevelIcon({ level, className = "h-4 w-4" }: { level: Level; clas
 export function LevelBadge({ level, className = "" }: { level: Level; className?: string }) {
   const t = useTranslations("LevelBadge");
   return (
-    <span className={`inline-flex items-center gap-1.5 rounded-full border px-2.5 py-0.5 text-sm font-bold ${styles[level]} ${className}`}>
+    <span className={`inline-flex items-center gap-1.5 whitespace-nowrap rounded-full border px-2.5 py-0.5 text-sm font-bold ${styles[level]} ${className}`}>
       <LevelIcon level={level} />
       {t(level)}
     </span>

@@ -120,10 +120,10 @@ export default async function CheckInsTab({ params }: { params: Promise<{ locale
             <tbody>
               {days.map((d) => (
                 <tr key={d.day} className="border-t border-stone-faint align-top">
-                  <th scope="row" className="tabular p-3 text-start">{day(d.day)}</th>
-                  <td className="tabular p-3 text-end">{d.inCount ? t("ml", { ml: d.inMl }) : "—"}</td>
-                  <td className="tabular p-3 text-end">{d.outCount ? t("ml", { ml: d.outMl }) : "—"}</td>
-                  <td className="tabular p-3 text-end">{d.inCount || d.outCount ? t("mlSigned", { ml: format.number(d.balanceMl, { signDisplay: "exceptZero" }) }) : "—"}</td>
+                  <th scope="row" className="tabular whitespace-nowrap p-3 text-start">{day(d.day)}</th>
+                  <td className="tabular whitespace-nowrap p-3 text-end">{d.inCount ? t("ml", { ml: d.inMl }) : "—"}</td>
+                  <td className="tabular whitespace-nowrap p-3 text-end">{d.outCount ? t("ml", { ml: d.outMl }) : "—"}</td>
+                  <td className="tabular whitespace-nowrap p-3 text-end">{d.inCount || d.outCount ? t("mlSigned", { ml: format.number(d.balanceMl, { signDisplay: "exceptZero" }) }) : "—"}</td>
                   <td className="tabular p-3 text-sm">
                     {d.entries.length
                       ? d.entries
