@@ -263,10 +263,10 @@ function DateWithState({ date, state }: { date: string; state: CaseloadRow["chan
 function CaseloadTable({ rows, query, onSort }: { rows: CaseloadRow[]; query: CaseloadQuery; onSort: (s: CaseloadSort) => void }) {
   const { t, date, device, days } = useCells();
   const header = (label: string, sort?: CaseloadSort) => {
-    if (!sort) return <th scope="col" className="p-3 text-start align-bottom">{label}</th>;
+    if (!sort) return <th scope="col" className="px-2.5 py-3 text-start align-bottom">{label}</th>;
     const active = query.sort === sort;
     return (
-      <th scope="col" className="p-3 text-start align-bottom" aria-sort={active ? (query.dir === "asc" ? "ascending" : "descending") : "none"}>
+      <th scope="col" className="px-2.5 py-3 text-start align-bottom" aria-sort={active ? (query.dir === "asc" ? "ascending" : "descending") : "none"}>
         <button type="button" onClick={() => onSort(sort)} className="inline-flex items-center gap-1 font-bold text-brand underline-offset-4 hover:underline">
           {label}
           <span aria-hidden="true">{active ? (query.dir === "asc" ? "▲" : "▼") : "↕"}</span>
@@ -292,23 +292,23 @@ function CaseloadTable({ rows, query, onSort }: { rows: CaseloadRow[]; query: Ca
         <tbody>
           {rows.map((r) => (
             <tr key={r.patientId} className="border-t border-stone-faint align-top">
-              <td className="p-3">
-                <Link href={`/patients/${r.patientId}`} className="font-bold text-brand underline underline-offset-4">
+              <td className="px-2.5 py-3">
+                <Link href={`/patients/${r.patientId}`} className="whitespace-nowrap font-bold text-brand underline underline-offset-4">
                   {r.name}
                 </Link>
-                <div className="tabular text-sm text-ink-soft">{r.healthRecordNumber}</div>
+                <div className="tabular whitespace-nowrap text-sm text-ink-soft">{r.healthRecordNumber}</div>
                 {r.awaitingTwoc ? <div className="text-sm font-bold text-level-soon-ink">{t("awaitingTwoc")}</div> : null}
               </td>
-              <td className="tabular whitespace-nowrap p-3">{device(r)}</td>
-              <td className="tabular whitespace-nowrap p-3">{days(r)}</td>
-              <td className="tabular whitespace-nowrap p-3">
+              <td className="tabular whitespace-nowrap px-2.5 py-3">{device(r)}</td>
+              <td className="tabular whitespace-nowrap px-2.5 py-3">{days(r)}</td>
+              <td className="tabular whitespace-nowrap px-2.5 py-3">
                 <DateWithState date={date(r.plannedChangeOn)} state={r.changeState} />
               </td>
-              <td className="tabular whitespace-nowrap p-3">
+              <td className="tabular whitespace-nowrap px-2.5 py-3">
                 <DateWithState date={date(r.reviewDueOn)} state={r.reviewState} />
               </td>
-              <td className="p-3">{r.latestCheckInLevel ? <LevelBadge level={r.latestCheckInLevel} /> : <span className="text-ink-soft">{t("noCheckIn")}</span>}</td>
-              <td className="p-3">{r.state ? <StateBadge state={r.state} /> : "—"}</td>
+              <td className="px-2.5 py-3">{r.latestCheckInLevel ? <LevelBadge level={r.latestCheckInLevel} /> : <span className="text-ink-soft">{t("noCheckIn")}</span>}</td>
+              <td className="px-2.5 py-3">{r.state ? <StateBadge state={r.state} /> : "—"}</td>
             </tr>
           ))}
         </tbody>
