@@ -1,6 +1,6 @@
 import { db } from "@/db";
 import { getPatientRecord, updatePatient } from "@/db/queries/patients";
-import { requireRole } from "@/lib/auth/permissions";
+import { requireRole, requireStaffPatientAccess } from "@/lib/auth/permissions";
 import { AppError } from "@/lib/errors";
 import { handle, json } from "@/lib/http";
 import { openPatientRecord } from "@/lib/patient-record";
@@ -23,6 +23,8 @@ export const GET = handle<Ctx>(async (request, { params }) => {
 export const PATCH = handle<Ctx>(async (request, { params }) => {
   const { patientId } = await params;
   const viewer = await requireRole(request, "clinician");
+  // Who may touch the record first, so a stranger learns nothing from a validation answer.
+  await requireStaffPatientAccess(viewer, patientId);
   const input = await parseJsonBody(request, patientUpdateSchema);
   await db.transaction(async (tx) => {
     const via = await openPatientRecord({ viewer, patientId, action: "patient.update", request, details: { fields: Object.keys(input) } }, tx);
