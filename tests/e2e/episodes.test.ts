@@ -108,8 +108,8 @@ describe("recording an insertion in Chromium", () => {
     const patientId = await makePatient({ latex: true });
     const page = await nurse();
     await page.goto(`/en/patients/${patientId}/record/insertion`);
-    await expect.poll(() => page.locator("h1").first().textContent()).toBe("Record an insertion");
-    await expect.poll(() => page.getByTestId("allergies").textContent()).toContain("Latex");
+    await expect.poll(() => page.getByTestId("record-title").textContent()).toBe("Record an insertion");
+    await expect.poll(() => page.getByTestId("allergy-box").textContent()).toContain("Latex");
 
     // A USB scanner types the element string; the group separator arrives as Ctrl+] and the scan ends with Enter.
     const scan = page.getByTestId("scan-input");
