@@ -21,7 +21,8 @@ export default defineConfig({
     projects: [
       {
         extends: true,
-        test: { name: "unit", include: ["tests/unit/**/*.test.ts"], environment: "node" },
+        // Property tests run hundreds of cases; a loaded machine must not make them time out.
+        test: { name: "unit", include: ["tests/unit/**/*.test.ts"], environment: "node", testTimeout: 60_000 },
       },
       {
         extends: true,
