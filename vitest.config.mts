@@ -29,9 +29,10 @@ export default defineConfig({
           name: "integration",
           include: ["tests/integration/**/*.test.ts"],
           environment: "node",
-          // One database per run (made by scripts/test.ts or the global setup); files share it.
+          // One database per run (made by scripts/test.ts or the global setup), copied per file.
           fileParallelism: false,
           globalSetup: ["tests/integration/global-setup.ts"],
+          setupFiles: ["tests/integration/per-file-database.ts"],
           testTimeout: 30_000,
           hookTimeout: 60_000,
         },

@@ -57,6 +57,11 @@ export const matrix: Row[] = [
   { route: "GET /api/caseload", expect: clinicianOnly },
   { route: "GET /api/admin/organisations", expect: adminOnly },
   { route: "GET /api/portal/today", expect: portalOnly },
+  { route: "POST /api/patients/[patientId]/episodes", params: patient, expect: staffOnPatient },
+  { route: "POST /api/patients/[patientId]/episodes/change", params: patient, expect: staffOnPatient },
+  { route: "POST /api/patients/[patientId]/episodes/removal", params: patient, expect: staffOnPatient },
+  { route: "POST /api/patients/[patientId]/episodes/twoc", params: patient, expect: staffOnPatient },
+  { route: "POST /api/patients/[patientId]/episodes/check", params: patient, expect: staffOnPatient },
   // Clinician workspace: caseload export, registration, the record's details, history, access log.
   { route: "GET /api/caseload/export", expect: clinicianOnly },
   {
