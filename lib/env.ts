@@ -18,6 +18,8 @@ const schema = z.object({
   MAIL_RETRY_MAX_SECONDS: z.coerce.number().min(0.01).max(86_400).default(3_600),
   MAIL_LEASE_SECONDS: z.coerce.number().min(1).max(3_600).default(300),
   MAIL_POLL_SECONDS: z.coerce.number().min(0.05).max(600).default(5),
+  // A worker that delivers only keys with this prefix (e.g. "care-team-alert:" for an alert lane).
+  MAIL_WORKER_KEY_PREFIX: z.string().default(""),
   // "off" keeps the outbox worker and schedules out of the Next.js process (run scripts/worker.ts).
   CADDIS_BACKGROUND: z.enum(["on", "off"]).default("on"),
   // When the care teams' weekly digest is queued (cron, in CADDIS_TIME_ZONE).

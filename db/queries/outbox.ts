@@ -37,14 +37,20 @@ export async function notifyOutbox({ id }: { id: string }, tx: Executor = db) {
  * Claims the next message that is due (queued and due now, or 'sending' with a lapsed lease):
  * status 'sending', one more attempt, a fresh claim token and a lease. Null when nothing is due.
  */
-export async function claimNextMessage({ leaseMs }: { leaseMs: number }, tx: Executor = db): Promise<OutboundMessage | null> {
+export async function claimNextMessage(
+  { leaseMs, keyPrefix }: { leaseMs: number; /** Only keys starting with this (a dedicated lane, e.g. "care-team-alert:"). */ keyPrefix?: string },
+  tx: Executor = db,
+): Promise<OutboundMessage | null> {
   const due = tx
     .select({ id: outboundMessages.id })
     .from(outboundMessages)
     .where(
-      or(
-        and(eq(outboundMessages.status, "queued"), lte(outboundMessages.nextAttemptAt, sql`now()`)),
-        and(eq(outboundMessages.status, "sending"), lt(outboundMessages.leaseUntil, sql`now()`)),
+      and(
+        or(
+          and(eq(outboundMessages.status, "queued"), lte(outboundMessages.nextAttemptAt, sql`now()`)),
+          and(eq(outboundMessages.status, "sending"), lt(outboundMessages.leaseUntil, sql`now()`)),
+        ),
+        keyPrefix ? like(outboundMessages.idempotencyKey, `${escapeLike(keyPrefix)}%`) : undefined,
       ),
     )
     .orderBy(asc(outboundMessages.nextAttemptAt), asc(outboundMessages.createdAt))
@@ -144,9 +150,13 @@ export async function getPatientMessage({ patientId, messageId }: { patientId: s
   return row ?? null;
 }
 
+function escapeLike(text: string) {
+  return text.replace(/[\\%_]/g, (c) => `\\${c}`);
+}
+
 /** How many resends of a message exist (keys `<key>:resend:<n>`). */
 export async function countResends({ idempotencyKey }: { idempotencyKey: string }, tx: Executor = db) {
-  const pattern = `${idempotencyKey.replace(/[\\%_]/g, (c) => `\\${c}`)}:resend:%`;
+  const pattern = `${escapeLike(idempotencyKey)}:resend:%`;
   const [row] = await tx
     .select({ n: sql<number>`count(*)::int` })
     .from(outboundMessages)

@@ -30,10 +30,12 @@ export type OutboxWorkerOptions = {
   /** LISTEN for queueMessage's NOTIFY (default true). */
   listen?: boolean;
   databaseUrl?: string;
+  /** Deliver only messages whose idempotency key starts with this (a dedicated lane). */
+  keyPrefix?: string;
   log?: (message: string) => void;
 };
 
-type Resolved = Required<Omit<OutboxWorkerOptions, "smtpUrl">> & { smtpUrl: string };
+type Resolved = Required<Omit<OutboxWorkerOptions, "smtpUrl" | "keyPrefix">> & { smtpUrl: string; keyPrefix: string | undefined };
 
 function resolve(o: OutboxWorkerOptions): Resolved {
   return {
@@ -47,6 +49,7 @@ function resolve(o: OutboxWorkerOptions): Resolved {
     concurrency: o.concurrency ?? 2,
     listen: o.listen ?? true,
     databaseUrl: o.databaseUrl ?? env.DATABASE_URL,
+    keyPrefix: o.keyPrefix ?? (env.MAIL_WORKER_KEY_PREFIX || undefined),
     log: o.log ?? ((m) => console.log(`[outbox] ${m}`)),
   };
 }
@@ -71,7 +74,7 @@ export type DeliveryOutcome = "sent" | "retry" | "failed" | "claim-lost";
 /** Claims and sends one due message; null when none is due. */
 export async function deliverNext(options: OutboxWorkerOptions & { transport: MailTransport }): Promise<DeliveryOutcome | null> {
   const o = resolve(options);
-  const row = await claimNextMessage({ leaseMs: o.leaseMs });
+  const row = await claimNextMessage({ leaseMs: o.leaseMs, keyPrefix: o.keyPrefix });
   if (!row) return null;
   const claimToken = row.claimToken!;
   // A lease that ran out after the last try (the worker died, perhaps because of this message).
