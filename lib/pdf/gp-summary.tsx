@@ -22,27 +22,33 @@ function styles(rtl: boolean) {
   const align = rtl ? "right" : "left";
   const family = rtl ? ["CaddisArabic", ...PDF_FONT_FAMILY.filter((f) => f !== "CaddisArabic")] : PDF_FONT_FAMILY;
   return StyleSheet.create({
-    page: { paddingTop: 36, paddingBottom: 54, paddingHorizontal: 40, fontFamily: family, fontSize: 10.5, color: c.ink, lineHeight: 1.45 },
+    page: { paddingTop: 36, paddingBottom: 54, paddingHorizontal: 40, fontFamily: family, fontSize: 10.5, color: c.ink },
     brand: { fontSize: 14, fontWeight: 700, color: c.brand, textAlign: align, marginBottom: 6 },
     title: { fontSize: 18, fontWeight: 700, marginBottom: 6, textAlign: align },
-    intro: { marginBottom: 8, textAlign: align },
+    intro: { lineHeight: 1.45, marginBottom: 8, textAlign: align },
     heading: { fontSize: 12.5, fontWeight: 700, color: c.brand, marginTop: 10, marginBottom: 4, textAlign: align },
     row: { flexDirection: rtl ? "row-reverse" : "row", borderBottomWidth: 0.75, borderBottomColor: c.line, paddingVertical: 3 },
-    label: { width: "38%", fontWeight: 700, color: c.soft, textAlign: align, paddingHorizontal: 3 },
-    value: { width: "62%", textAlign: align, paddingHorizontal: 3 },
-    para: { marginBottom: 5, textAlign: align },
-    item: { marginBottom: 2, textAlign: align },
-    cellHead: { flex: 1, fontWeight: 700, backgroundColor: c.sunk, padding: 3, textAlign: align },
-    cell: { flex: 1, padding: 3, textAlign: align },
+    label: { lineHeight: 1.45, width: "38%", fontWeight: 700, color: c.soft, textAlign: align, paddingHorizontal: 3 },
+    value: { lineHeight: 1.45, width: "62%", textAlign: align, paddingHorizontal: 3 },
+    para: { lineHeight: 1.45, marginBottom: 5, textAlign: align },
+    item: { lineHeight: 1.45, marginBottom: 2, textAlign: align },
+    cellHead: { lineHeight: 1.45, flex: 1, fontWeight: 700, backgroundColor: c.sunk, padding: 3, textAlign: align },
+    cell: { lineHeight: 1.45, flex: 1, padding: 3, textAlign: align },
+    // No lineHeight on the page: inherited, it hides the text this one draws with `render` (@react-pdf 4.9).
     footer: { position: "absolute", bottom: 20, left: 40, right: 40, fontSize: 8.5, color: c.soft, textAlign: align },
-    small: { fontSize: 8.5, color: c.soft, marginTop: 2, textAlign: align },
+    small: { lineHeight: 1.45, fontSize: 8.5, color: c.soft, marginTop: 2, textAlign: align },
   });
 }
 
 function BlockView({ block, s, rtl }: { block: Block; s: ReturnType<typeof styles>; rtl: boolean }) {
   switch (block.type) {
     case "heading":
-      return <Text style={s.heading}>{block.text}</Text>;
+      // Never the last line of a page without what it heads.
+      return (
+        <Text style={s.heading} minPresenceAhead={48}>
+          {block.text}
+        </Text>
+      );
     case "paragraph":
       return <Text style={s.para}>{block.text}</Text>;
     case "facts":
@@ -78,7 +84,7 @@ function BlockView({ block, s, rtl }: { block: Block; s: ReturnType<typeof style
             ...(rtl ? { borderRightWidth: 4, borderRightColor: strong } : { borderLeftWidth: 4, borderLeftColor: strong }),
           }}
         >
-          <Text style={{ textAlign: rtl ? "right" : "left" }}>
+          <Text style={{ textAlign: rtl ? "right" : "left", lineHeight: 1.45 }}>
             <Text style={{ fontWeight: 700, color: strong }}>{block.label}</Text> {block.text}
           </Text>
         </View>
@@ -119,6 +125,13 @@ export async function renderContentPdf(content: EmailContent, meta: { kind: stri
   const doc = (
     <Document title={content.title} author="Caddis" subject={content.subject} creator="Caddis" producer="Caddis" language={content.locale}>
       <Page size="A4" style={s.page}>
+        <Text
+          style={s.footer}
+          fixed
+          render={({ pageNumber, totalPages }) =>
+            `${t("pdf.generated", { date: d.at(meta.generatedAt) })} · ${t("pdf.page", { page: pageNumber, pages: totalPages })}`
+          }
+        />
         <Text style={s.brand}>{t("pdf.brand")}</Text>
         <Text style={s.title}>{content.title}</Text>
         {content.intro ? <Text style={s.intro}>{content.intro}</Text> : null}
@@ -132,13 +145,6 @@ export async function renderContentPdf(content: EmailContent, meta: { kind: stri
             </Text>
           ))}
         </View>
-        <Text
-          style={s.footer}
-          fixed
-          render={({ pageNumber, totalPages }) =>
-            `${t("pdf.generated", { date: d.at(meta.generatedAt) })} · ${t("pdf.page", { page: pageNumber, pages: totalPages })}`
-          }
-        />
       </Page>
     </Document>
   );
