@@ -1,21 +1,15 @@
 /**
  * A standalone background worker: delivers the e-mail outbox and runs the pg-boss schedules
  * (the care teams' weekly digest). Run as many as you like beside the app servers:
- *   node --conditions=import --import tsx scripts/worker.ts              outbox + schedules
- *   node --conditions=import --import tsx scripts/worker.ts --outbox-only
- * `--conditions=import`: @react-pdf's packages export their files for `import` only, and tsx
- * loads this project's .ts files as CommonJS. Configuration from the environment
- * (DATABASE_URL, SMTP_URL, MAIL_*; see .env.example).
+ *   npx tsx scripts/worker.ts              outbox + schedules
+ *   npx tsx scripts/worker.ts --outbox-only
+ * (`node --import tsx scripts/worker.ts` runs it as one process, for process managers.)
+ * Configuration from the environment (DATABASE_URL, SMTP_URL, MAIL_*; see .env.example).
  */
 import "./server-only-shim.cjs";
 import { startBackground } from "@/lib/jobs/runtime";
 
 async function main() {
-  const flags = [...process.execArgv, process.env.NODE_OPTIONS ?? ""].join(" ");
-  if (!/--conditions[= ]import|-C[= ]?import/.test(flags)) {
-    console.error("[worker] start me with: node --conditions=import --import tsx scripts/worker.ts (PDF attachments need it)");
-    process.exit(2);
-  }
   const outboxOnly = process.argv.includes("--outbox-only");
   const background = await startBackground({ outbox: true, schedules: !outboxOnly });
   const stop = async (signal: string) => {

@@ -250,6 +250,6 @@ export async function renderGpSummaryAttachment(params: Record<string, string>) 
   );
   const { renderContentPdf } = await import("@/lib/pdf/gp-summary");
   const locale = emailLocale(params.locale);
-  const content = await renderContentPdf(gpSummaryContent(facts, locale), { kind: "gp-summary", generatedAt: new Date() });
+  const content = await renderContentPdf(gpSummaryContent(facts, locale), { generatedAt: new Date() });
   return { content, contentType: "application/pdf" };
 }

@@ -1,11 +1,66 @@
 import "server-only";
 // The GP summary as a PDF (A4), drawn from the same content model as the e-mail so the two
 // always agree. Same toolkit and fonts as the passport booklet.
-import { Document, Page, renderToBuffer, StyleSheet, Text, View } from "@react-pdf/renderer";
+// @react-pdf/renderer is imported dynamically: scripts/worker.ts runs under tsx as CommonJS,
+// where a static import fails (@react-pdf's packages export their files for `import` only).
+import path from "node:path";
+import type { Styles } from "@react-pdf/renderer";
 import type { Block, EmailContent } from "@/lib/email/render";
 import { emailDates, emailTranslator } from "@/lib/email/i18n";
 import { directionOf } from "@/lib/i18n/routing";
-import { PDF_FONT_FAMILY, registerPdfFonts } from "./fonts";
+
+type Pdf = typeof import("@react-pdf/renderer");
+
+// Two @react-pdf 4.9 text-layout quirks, seen in rendered pages: bidi marks inside a text (Intl
+// puts them in Arabic dates) come out of order, so they are removed; and a right-to-left text
+// loses its first letter's body (only its dots are drawn) unless it starts with a right-to-left
+// mark and ends with a zero-width space, so each such text gets both.
+const bidiMarks = /[\u061c\u200e\u200f\u202a-\u202e\u2066-\u2069]/g;
+const cleaner = (rtl: boolean) => (text: string) => (rtl ? `\u200f${text.replace(bidiMarks, "")}\u200b` : text.replace(bidiMarks, ""));
+
+function plainBlock(b: Block, plain: (text: string) => string): Block {
+  switch (b.type) {
+    case "heading":
+    case "paragraph":
+      return { ...b, text: plain(b.text) };
+    case "facts":
+      return { ...b, rows: b.rows.map((r) => ({ label: plain(r.label), value: plain(r.value) })) };
+    case "list":
+      return { ...b, items: b.items.map(plain) };
+    case "notice":
+      return { ...b, label: plain(b.label), text: plain(b.text) };
+    case "table":
+      return { ...b, head: b.head.map(plain), rows: b.rows.map((r) => r.map(plain)) };
+    case "action":
+      return b;
+  }
+}
+
+// The same families as the passport's lib/pdf/fonts.ts (.woff files: woff2 crashes fontkit);
+// Latin, Latin Extended and Arabic are separate subsets, so text names all three.
+export const PDF_FONT_FAMILY = ["CaddisLatin", "CaddisLatinExt", "CaddisArabic"];
+
+function registerFonts(pdf: Pdf) {
+  const have = new Set(pdf.Font.getRegisteredFontFamilies());
+  const face = (folder: string, file: string) => path.join(process.cwd(), "fonts", folder, file);
+  const families: [string, string, string][] = [
+    ["CaddisLatin", "atkinson-hyperlegible", "atkinson-hyperlegible-latin"],
+    ["CaddisLatinExt", "atkinson-hyperlegible", "atkinson-hyperlegible-latin-ext"],
+    ["CaddisArabic", "noto-sans-arabic", "noto-sans-arabic-arabic"],
+  ];
+  for (const [family, folder, stem] of families) {
+    if (have.has(family)) continue;
+    pdf.Font.register({
+      family,
+      fonts: [
+        { src: face(folder, `${stem}-400-normal.woff`), fontWeight: 400 },
+        { src: face(folder, `${stem}-700-normal.woff`), fontWeight: 700 },
+      ],
+    });
+  }
+  // Hyphenating clinical words and names helps no one; break only at spaces.
+  pdf.Font.registerHyphenationCallback((word) => [word]);
+}
 
 const c = {
   brand: "#0b5563",
@@ -19,28 +74,32 @@ const c = {
 } as const;
 
 function styles(rtl: boolean) {
-  const align = rtl ? "right" : "left";
+  const align = rtl ? ("right" as const) : ("left" as const);
   const family = rtl ? ["CaddisArabic", ...PDF_FONT_FAMILY.filter((f) => f !== "CaddisArabic")] : PDF_FONT_FAMILY;
-  return StyleSheet.create({
+  // The paragraph direction, set on every text (it is not inherited): a line mixing Arabic with a
+  // Latin name then reads from the right.
+  const direction = rtl ? ("rtl" as const) : ("ltr" as const);
+  return {
     page: { paddingTop: 36, paddingBottom: 54, paddingHorizontal: 40, fontFamily: family, fontSize: 10.5, color: c.ink },
-    brand: { fontSize: 14, fontWeight: 700, color: c.brand, textAlign: align, marginBottom: 6 },
-    title: { fontSize: 18, fontWeight: 700, marginBottom: 6, textAlign: align },
-    intro: { lineHeight: 1.45, marginBottom: 8, textAlign: align },
-    heading: { fontSize: 12.5, fontWeight: 700, color: c.brand, marginTop: 10, marginBottom: 4, textAlign: align },
+    brand: { direction, fontSize: 14, fontWeight: 700, color: c.brand, textAlign: align, marginBottom: 6 },
+    title: { direction, fontSize: 18, fontWeight: 700, marginBottom: 6, textAlign: align },
+    intro: { direction, lineHeight: 1.45, marginBottom: 8, textAlign: align },
+    heading: { direction, fontSize: 12.5, fontWeight: 700, color: c.brand, marginTop: 10, marginBottom: 4, textAlign: align },
     row: { flexDirection: rtl ? "row-reverse" : "row", borderBottomWidth: 0.75, borderBottomColor: c.line, paddingVertical: 3 },
-    label: { lineHeight: 1.45, width: "38%", fontWeight: 700, color: c.soft, textAlign: align, paddingHorizontal: 3 },
-    value: { lineHeight: 1.45, width: "62%", textAlign: align, paddingHorizontal: 3 },
-    para: { lineHeight: 1.45, marginBottom: 5, textAlign: align },
-    item: { lineHeight: 1.45, marginBottom: 2, textAlign: align },
-    cellHead: { lineHeight: 1.45, flex: 1, fontWeight: 700, backgroundColor: c.sunk, padding: 3, textAlign: align },
-    cell: { lineHeight: 1.45, flex: 1, padding: 3, textAlign: align },
+    label: { direction, lineHeight: 1.45, width: "38%", fontWeight: 700, color: c.soft, textAlign: align, paddingHorizontal: 3 },
+    value: { direction, lineHeight: 1.45, width: "62%", textAlign: align, paddingHorizontal: 3 },
+    para: { direction, lineHeight: 1.45, marginBottom: 5, textAlign: align },
+    item: { direction, lineHeight: 1.45, marginBottom: 2, textAlign: align },
+    cellHead: { direction, lineHeight: 1.45, flex: 1, fontWeight: 700, backgroundColor: c.sunk, padding: 3, textAlign: align },
+    cell: { direction, lineHeight: 1.45, flex: 1, padding: 3, textAlign: align },
     // No lineHeight on the page: inherited, it hides the text this one draws with `render` (@react-pdf 4.9).
-    footer: { position: "absolute", bottom: 20, left: 40, right: 40, fontSize: 8.5, color: c.soft, textAlign: align },
-    small: { lineHeight: 1.45, fontSize: 8.5, color: c.soft, marginTop: 2, textAlign: align },
-  });
+    footer: { direction, position: "absolute", bottom: 20, left: 40, right: 40, fontSize: 8.5, color: c.soft, textAlign: align },
+    small: { direction, lineHeight: 1.45, fontSize: 8.5, color: c.soft, marginTop: 2, textAlign: align },
+  } satisfies Styles;
 }
 
-function BlockView({ block, s, rtl }: { block: Block; s: ReturnType<typeof styles>; rtl: boolean }) {
+function BlockView({ pdf, block, s, rtl }: { pdf: Pdf; block: Block; s: ReturnType<typeof styles>; rtl: boolean }) {
+  const { Text, View } = pdf;
   switch (block.type) {
     case "heading":
       // Never the last line of a page without what it heads.
@@ -84,7 +143,7 @@ function BlockView({ block, s, rtl }: { block: Block; s: ReturnType<typeof style
             ...(rtl ? { borderRightWidth: 4, borderRightColor: strong } : { borderLeftWidth: 4, borderLeftColor: strong }),
           }}
         >
-          <Text style={{ textAlign: rtl ? "right" : "left", lineHeight: 1.45 }}>
+          <Text style={{ textAlign: rtl ? "right" : "left", lineHeight: 1.45, direction: rtl ? "rtl" : "ltr" }}>
             <Text style={{ fontWeight: 700, color: strong }}>{block.label}</Text> {block.text}
           </Text>
         </View>
@@ -116,8 +175,18 @@ function BlockView({ block, s, rtl }: { block: Block; s: ReturnType<typeof style
   }
 }
 
-export async function renderContentPdf(content: EmailContent, meta: { kind: string; generatedAt: Date }): Promise<Buffer> {
-  registerPdfFonts();
+export async function renderContentPdf(raw: EmailContent, meta: { generatedAt: Date }): Promise<Buffer> {
+  const plain = cleaner(directionOf(raw.locale) === "rtl");
+  const content: EmailContent = {
+    ...raw,
+    title: plain(raw.title),
+    intro: raw.intro ? plain(raw.intro) : raw.intro,
+    blocks: raw.blocks.map((b) => plainBlock(b, plain)),
+    footer: raw.footer.map(plain),
+  };
+  const pdf: Pdf = await import("@react-pdf/renderer");
+  const { Document, Page, Text, View } = pdf;
+  registerFonts(pdf);
   const rtl = directionOf(content.locale) === "rtl";
   const s = styles(rtl);
   const t = emailTranslator(content.locale);
@@ -129,14 +198,14 @@ export async function renderContentPdf(content: EmailContent, meta: { kind: stri
           style={s.footer}
           fixed
           render={({ pageNumber, totalPages }) =>
-            `${t("pdf.generated", { date: d.at(meta.generatedAt) })} · ${t("pdf.page", { page: pageNumber, pages: totalPages })}`
+            plain(`${t("pdf.generated", { date: d.at(meta.generatedAt) })} · ${t("pdf.page", { page: pageNumber, pages: totalPages })}`)
           }
         />
-        <Text style={s.brand}>{t("pdf.brand")}</Text>
+        <Text style={s.brand}>{plain(t("pdf.brand"))}</Text>
         <Text style={s.title}>{content.title}</Text>
         {content.intro ? <Text style={s.intro}>{content.intro}</Text> : null}
         {content.blocks.map((b, i) => (
-          <BlockView key={i} block={b} s={s} rtl={rtl} />
+          <BlockView key={i} pdf={pdf} block={b} s={s} rtl={rtl} />
         ))}
         <View style={{ marginTop: 12 }}>
           {content.footer.map((f, i) => (
@@ -148,5 +217,5 @@ export async function renderContentPdf(content: EmailContent, meta: { kind: stri
       </Page>
     </Document>
   );
-  return renderToBuffer(doc);
+  return pdf.renderToBuffer(doc);
 }

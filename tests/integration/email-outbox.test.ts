@@ -200,7 +200,7 @@ async function holdingSmtp() {
 
 function startWorkerProcess(env: Record<string, string>): ChildProcess {
   // node itself (not the tsx wrapper), so SIGKILL hits the worker and not a parent that relays signals.
-  const child = spawn(process.execPath, ["--conditions=import", "--import", "tsx", "scripts/worker.ts", "--outbox-only"], {
+  const child = spawn(process.execPath, ["--import", "tsx", "scripts/worker.ts", "--outbox-only"], {
     cwd: root,
     env: { ...process.env, NODE_ENV: "test", ...env },
     stdio: ["ignore", "pipe", "pipe"],

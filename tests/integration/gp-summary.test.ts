@@ -1,5 +1,6 @@
 // The GP summary: the e-mail reaches the practice inbox with its PDF and the right facts; what a
 // patient or clinician typed is escaped; one summary per event; no inbox → kept as failed.
+import { spawn } from "node:child_process";
 import fs from "node:fs";
 import path from "node:path";
 import { eq } from "drizzle-orm";
@@ -36,7 +37,7 @@ describe("GP summary", () => {
   it("a change reaches the GP inbox, HTML and text, with the PDF attached and the right facts", async () => {
     const first = await insertEpisode(fx.patientId, { sizeCh: 16, insertedAt: new Date(Date.now() - 60 * 86_400_000) });
     await db.update(catheterEpisodes).set({ removedAt: new Date(), removalReason: "blockage" }).where(eq(catheterEpisodes.id, first.episode.id));
-    const { episode, event } = await insertEpisode(fx.patientId, {
+    const { event } = await insertEpisode(fx.patientId, {
       kind: "unplanned_change",
       reason: "blockage",
       previousEpisodeId: first.episode.id,
@@ -90,7 +91,6 @@ describe("GP summary", () => {
     expect(text).toContain("Grace Mensah");
     expect(text).toContain("February 22, 2027");
     expect(text).toContain("Løvgren");
-    void episode;
   });
 
   it("escapes what was typed: no HTML injection in the e-mail", async () => {
@@ -125,9 +125,7 @@ describe("GP summary", () => {
   });
 
   it("passport issue, removal and a trial without catheter each send their own summary", async () => {
-    const [active] = await db.select().from(catheterEpisodes).where(eq(catheterEpisodes.patientId, fx.patientId)).orderBy(catheterEpisodes.createdAt);
     const current = (await db.select().from(catheterEpisodes).where(eq(catheterEpisodes.patientId, fx.patientId))).find((e) => !e.removedAt)!;
-    void active;
     const [pp] = await db
       .insert(passports)
       .values({ patientId: fx.patientId, tokenHash: `t-${fx.tag}`, shortCodeHash: `s-${fx.tag}`, languages: ["en", "pl"] })
@@ -150,7 +148,35 @@ describe("GP summary", () => {
     expect(twocMail.text).toContain("Voided 250 ml twice");
     expect(twocMail.text).toContain("No catheter is in place now.");
     expect(twocMail.attachments).toHaveLength(1);
-  });
+
+    // A removal, delivered by the standalone worker (scripts/worker.ts), which renders the PDF too.
+    const { episode: third } = await insertEpisode(fx.patientId, { sizeCh: 12 });
+    await db.update(catheterEpisodes).set({ removedAt: new Date(), removalReason: "No longer needed: voiding well" }).where(eq(catheterEpisodes.id, third.id));
+    const [removal] = await db
+      .insert(episodeEvents)
+      .values({ episodeId: third.id, patientId: fx.patientId, kind: "removal", occurredAt: new Date(), recordedByName: "Grace Mensah" })
+      .returning();
+    await db.transaction((tx) => queueGpSummary(tx, { patientId: fx.patientId, eventId: removal.id, cause: "removal", actorName: "Grace Mensah" }));
+    const worker = spawn(process.execPath, ["--import", "tsx", "scripts/worker.ts", "--outbox-only"], {
+      cwd: path.resolve(__dirname, "../.."),
+      env: { ...process.env, NODE_ENV: "test", MAIL_WORKER_KEY_PREFIX: `gp-summary:removal:${removal.id}`, MAIL_POLL_SECONDS: "0.2" },
+      stdio: ["ignore", "pipe", "pipe"],
+    });
+    const log = fs.createWriteStream(path.join(out, `worker-pdf-${worker.pid}.log`));
+    worker.stdout?.pipe(log);
+    worker.stderr?.pipe(log);
+    try {
+      const all = await waitForEmails(fx.gpInbox, 5, { timeoutMs: 30_000 });
+      const removalMail = all.find((m) => m.subject.includes("removed"))!;
+      expect(removalMail.text).toContain("No longer needed: voiding well");
+      expect(removalMail.text).toContain("12 Ch");
+      expect(removalMail.text).toContain("No catheter is in place now.");
+      const [a] = removalMail.attachments!;
+      expect((await attachmentOf(removalMail, a.filename)).subarray(0, 5).toString()).toBe("%PDF-");
+    } finally {
+      worker.kill("SIGTERM");
+    }
+  }, 60_000);
 
   it("in the practice's language, and kept as failed when the practice has no inbox", async () => {
     const es = await mailPatient({ gpLocale: "es" });
