@@ -57,6 +57,10 @@ export const matrix: Row[] = [
   { route: "GET /api/caseload", expect: clinicianOnly },
   { route: "GET /api/admin/organisations", expect: adminOnly },
   { route: "GET /api/portal/today", expect: portalOnly },
+  { route: "GET /api/patients/[patientId]/messages", params: patient, expect: staffOnPatient },
+  { route: "POST /api/patients/[patientId]/messages/[messageId]/resend", exempt: "needs a message of the patient: its full matrix is in letters-supplies.test.ts" },
+  { route: "GET /api/patients/[patientId]/supply-requests", params: patient, expect: staffOnPatient },
+  { route: "POST /api/patients/[patientId]/supply-requests", params: patient, expect: staffOnPatient },
 ];
 
 export { patient as patientParams };
