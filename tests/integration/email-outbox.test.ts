@@ -12,13 +12,14 @@ import { outboundMessages } from "@/db/schema";
 import { messageIdFor } from "@/lib/email/message-id";
 import { queueMessage } from "@/lib/email/outbox";
 import { drainOutbox, retryDelayMs } from "@/lib/jobs/outbox-worker";
-import { POST as createSupply } from "@/app/api/patients/[patientId]/supply-requests/route";
+import { POST as createSupplyRoute } from "@/app/api/patients/[patientId]/supply-requests/route";
 import { suppliesFor } from "@/lib/clinical";
 import { call, sessionFor } from "../support/http";
 import { emailsTo, freePort, insertEpisode, mailPatient, privateMailDev } from "../support/mail";
 
 const root = path.resolve(__dirname, "../..");
 const quiet = () => {};
+const createSupply = createSupplyRoute as unknown as Parameters<typeof call>[0];
 const tagOf = () => Math.random().toString(36).slice(2, 10);
 
 async function queueTestMessages(prefix: string, n: number, domain = "outbox-test.example") {

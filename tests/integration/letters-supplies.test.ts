@@ -2,9 +2,9 @@
 // (computed and adjusted quantities kept, e-mail to the GP, bad input writes nothing).
 import { and, count, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { POST as resend } from "@/app/api/patients/[patientId]/messages/[messageId]/resend/route";
-import { GET as listMessages } from "@/app/api/patients/[patientId]/messages/route";
-import { GET as listSupplies, POST as createSupply } from "@/app/api/patients/[patientId]/supply-requests/route";
+import { POST as resendRoute } from "@/app/api/patients/[patientId]/messages/[messageId]/resend/route";
+import { GET as listMessagesRoute } from "@/app/api/patients/[patientId]/messages/route";
+import { GET as listSuppliesRoute, POST as createSupplyRoute } from "@/app/api/patients/[patientId]/supply-requests/route";
 import { db } from "@/db";
 import { auditEvents, catheterEpisodes, organisations, outboundMessages, supplyRequests } from "@/db/schema";
 import { suppliesFor } from "@/lib/clinical";
@@ -15,6 +15,12 @@ import { call, sessionFor } from "../support/http";
 import { insertEpisode, mailPatient, waitForEmails, type MailFixture } from "../support/mail";
 
 const quiet = () => {};
+// The handlers type their params; the test helper takes any.
+const h = (fn: unknown) => fn as Parameters<typeof call>[0];
+const resend = h(resendRoute);
+const listMessages = h(listMessagesRoute);
+const listSupplies = h(listSuppliesRoute);
+const createSupply = h(createSupplyRoute);
 let fx: MailFixture;
 let other: MailFixture;
 let failedId: string;
