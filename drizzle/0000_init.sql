@@ -234,6 +234,7 @@ CREATE TABLE "outbound_messages" (
 	"source_id" text,
 	"resend_of_id" uuid,
 	"created_by_user_id" text,
+	"redact_after_send" boolean DEFAULT false NOT NULL,
 	"status" text DEFAULT 'queued' NOT NULL,
 	"attempts" integer DEFAULT 0 NOT NULL,
 	"last_error" text,

@@ -73,7 +73,14 @@ export async function claimNextMessage(
 export async function markMessageSent({ id, claimToken }: { id: string; claimToken: string }, tx: Executor = db) {
   const rows = await tx
     .update(outboundMessages)
-    .set({ status: "sent", sentAt: sql`now()`, claimToken: null, leaseUntil: null })
+    .set({
+      status: "sent",
+      sentAt: sql`now()`,
+      claimToken: null,
+      leaseUntil: null,
+      html: sql`case when ${outboundMessages.redactAfterSend} then '' else ${outboundMessages.html} end`,
+      text: sql`case when ${outboundMessages.redactAfterSend} then '' else ${outboundMessages.text} end`,
+    })
     .where(and(eq(outboundMessages.id, id), eq(outboundMessages.claimToken, claimToken), eq(outboundMessages.status, "sending")))
     .returning({ id: outboundMessages.id });
   return rows.length > 0;
@@ -92,6 +99,12 @@ export async function markMessageAttemptFailed(
       claimToken: null,
       leaseUntil: null,
       nextAttemptAt: final ? sql`${outboundMessages.nextAttemptAt}` : sql`now() + ${Math.round(retryInMs)} * interval '1 millisecond'`,
+      ...(final
+        ? {
+            html: sql`case when ${outboundMessages.redactAfterSend} then '' else ${outboundMessages.html} end`,
+            text: sql`case when ${outboundMessages.redactAfterSend} then '' else ${outboundMessages.text} end`,
+          }
+        : {}),
     })
     .where(and(eq(outboundMessages.id, id), eq(outboundMessages.claimToken, claimToken), eq(outboundMessages.status, "sending")))
     .returning({ id: outboundMessages.id });
@@ -112,6 +125,8 @@ export type OutboundMessageDto = {
   createdAt: string;
   resendOfId: string | null;
   attachments: string[];
+  /** The body held a one-time secret and was blanked once sent (or given up). */
+  redacted: boolean;
 };
 
 export function toMessageDto(m: OutboundMessage): OutboundMessageDto {
@@ -129,6 +144,7 @@ export function toMessageDto(m: OutboundMessage): OutboundMessageDto {
     createdAt: m.createdAt.toISOString(),
     resendOfId: m.resendOfId,
     attachments: m.attachments.map((a) => a.filename),
+    redacted: m.redactAfterSend && (m.status === "sent" || m.status === "failed") && m.text === "",
   };
 }
 

@@ -375,6 +375,9 @@ export const outboundMessages = pgTable(
     sourceId: text("source_id"),
     resendOfId: uuid("resend_of_id"),
     createdByUserId: text("created_by_user_id").references(() => user.id, { onDelete: "set null" }),
+    // Bodies holding a one-time secret (an activation code, an invitation link) are blanked once
+    // sent, so the secret does not stay readable in the record; such a message is never resent.
+    redactAfterSend: boolean("redact_after_send").notNull().default(false),
     status: text("status", { enum: outboundStatuses }).notNull().default("queued"),
     attempts: integer("attempts").notNull().default(0),
     lastError: text("last_error"),

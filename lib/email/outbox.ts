@@ -27,6 +27,8 @@ export type QueueMessageInput = {
   sourceId?: string | null;
   resendOfId?: string | null;
   createdByUserId?: string | null;
+  /** The body holds a one-time secret: blank it once sent, and never resend it. */
+  redactAfterSend?: boolean;
 };
 
 export type QueuedMessage = { id: string; created: boolean; status: "queued" | "sending" | "sent" | "failed" };
@@ -52,8 +54,9 @@ export async function queueMessage(tx: Executor, input: QueueMessageInput): Prom
         toAddress: deliverable ? to : "",
         // A header value never spans lines.
         subject: input.subject.replace(/[\r\n]+/g, " ").trim(),
-        html: input.html,
-        text: input.text,
+        // Undeliverable and holding a one-time secret: keep the row, not the secret.
+        html: !deliverable && input.redactAfterSend ? "" : input.html,
+        text: !deliverable && input.redactAfterSend ? "" : input.text,
         attachments: input.attachments ?? [],
         locale: input.locale ?? "en",
         patientId: input.patientId ?? null,
@@ -61,6 +64,7 @@ export async function queueMessage(tx: Executor, input: QueueMessageInput): Prom
         sourceId: input.sourceId ?? null,
         resendOfId: input.resendOfId ?? null,
         createdByUserId: input.createdByUserId ?? null,
+        redactAfterSend: input.redactAfterSend ?? false,
         // Nothing to send to: kept as failed so the Letters tab and the digest show it.
         ...(deliverable ? {} : { status: "failed" as const, lastError: NO_RECIPIENT }),
       },

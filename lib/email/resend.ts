@@ -12,6 +12,9 @@ export async function resendMessage(tx: Executor, { original, createdByUserId }:
   if (original.status === "queued" || original.status === "sending") {
     throw new AppError("conflict", "This message is still on its way.");
   }
+  if (original.redactAfterSend) {
+    throw new AppError("conflict", "This message held a one-time code or link: send a new invitation instead.");
+  }
   const rootKey = original.idempotencyKey.replace(/(:resend:\d+)+$/, "");
   const n = (await countResends({ idempotencyKey: rootKey }, tx)) + 1;
   const org = original.organisationId ? await getOrganisation({ id: original.organisationId }, tx) : null;

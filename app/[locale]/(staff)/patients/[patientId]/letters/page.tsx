@@ -11,7 +11,7 @@ import { AppError } from "@/lib/errors";
 import { Link } from "@/lib/i18n/navigation";
 import { openPatientRecord } from "@/lib/patient-record";
 
-const kinds = ["gp-summary", "supply-request", "care-team-alert", "digest"] as const;
+const kinds = ["gp-summary", "supply-request", "care-team-alert", "digest", "portal-invite", "carer-invite"] as const;
 
 export async function generateMetadata() {
   const t = await getTranslations("Letters");
@@ -99,13 +99,17 @@ export default async function LettersPage({ params }: { params: Promise<{ locale
                   </>
                 ) : null}
               </dl>
-              <details className="mt-3">
-                <summary className="cursor-pointer font-bold text-brand underline underline-offset-4">{t("showText")}</summary>
-                <pre dir="auto" className="mt-2 max-h-96 overflow-auto whitespace-pre-wrap rounded-lg bg-paper-sunk p-3 font-sans text-sm">
-                  {m.text}
-                </pre>
-              </details>
-              {m.status === "sent" || m.status === "failed" ? (
+              {m.redacted ? (
+                <p className="mt-3 text-sm text-ink-soft">{t("redacted")}</p>
+              ) : (
+                <details className="mt-3">
+                  <summary className="cursor-pointer font-bold text-brand underline underline-offset-4">{t("showText")}</summary>
+                  <pre dir="auto" className="mt-2 max-h-96 overflow-auto whitespace-pre-wrap rounded-lg bg-paper-sunk p-3 font-sans text-sm">
+                    {m.text}
+                  </pre>
+                </details>
+              )}
+              {(m.status === "sent" || m.status === "failed") && !m.redacted && !m.kind.endsWith("-invite") ? (
                 <div className="mt-4">
                   <ResendButton patientId={patientId} messageId={m.id} subject={m.subject} />
                 </div>
