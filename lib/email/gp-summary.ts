@@ -115,7 +115,10 @@ export function gpSummaryContent(facts: GpSummaryFacts, locale: string): EmailCo
     const rows: { label: string; value: string }[] = [{ label: t("gp.when"), value: d.at(new Date(facts.occurredAt)) }];
     if (c === "twoc" && facts.event?.twocOutcome) rows.push({ label: t("gp.twocOutcome"), value: t(`enum.twoc.${facts.event.twocOutcome}`) });
     const reason = facts.previous?.removalReason;
-    if (c === "removal" && reason) rows.push({ label: t("gp.removalReason"), value: reason });
+    if (c === "removal" && reason) {
+      const known = ["no-longer-needed", "trial-without-catheter", "problem", "patient-choice", "other"].includes(reason);
+      rows.push({ label: t("gp.removalReason"), value: known ? t(`enum.removalReason.${reason as "other"}`) : reason });
+    }
     if (facts.event?.notes) rows.push({ label: t("gp.notes"), value: facts.event.notes });
     blocks.push({ type: "facts", rows });
   }

@@ -41,7 +41,7 @@ describe("letters, supplies and the GP summary in the fake inbox", () => {
     expect(mail.attachments?.[0].contentType).toBe("application/pdf");
 
     await page.goto(`/en/patients/${fx.patientId}/letters`);
-    await expect.poll(() => page.getByRole("heading", { level: 1 }).textContent()).toBe("Letters");
+    await expect.poll(() => page.getByRole("heading", { level: 2 }).textContent()).toBe("Letters");
     await expect.poll(async () => (await page.getByText("Sent", { exact: true }).count()) > 0).toBe(true);
     await page.getByText("Show what it says").first().click();
     await screenshot(page, "letters-en");
@@ -64,7 +64,7 @@ describe("letters, supplies and the GP summary in the fake inbox", () => {
 
   it("a nurse reviews, adjusts and sends a supply request; it is kept and reaches the practice", async () => {
     await page.goto(`/en/patients/${fx.patientId}/supplies`);
-    await expect.poll(() => page.getByRole("heading", { level: 1 }).textContent()).toBe("Supply request");
+    await expect.poll(() => page.getByRole("heading", { level: 2 }).textContent()).toBe("Supply request");
     await page.getByLabel("Period").selectOption("56");
     await expect.poll(() => page.locator("#qty-night-bag").inputValue()).toBe("56");
     await page.locator("#qty-leg-bag").fill("9");
@@ -89,17 +89,17 @@ describe("letters, supplies and the GP summary in the fake inbox", () => {
   it("Arabic: the Letters tab and the supply request read right to left", async () => {
     await page.goto(`/ar/patients/${fx.patientId}/letters`);
     expect(await page.locator("html").getAttribute("dir")).toBe("rtl");
-    await expect.poll(() => page.getByRole("heading", { level: 1 }).textContent()).toBe("الرسائل");
+    await expect.poll(() => page.getByRole("heading", { level: 2 }).textContent()).toBe("الرسائل");
     await screenshot(page, "letters-ar");
     await page.goto(`/ar/patients/${fx.patientId}/supplies`);
-    await expect.poll(() => page.getByRole("heading", { level: 1 }).textContent()).toBe("طلب مستلزمات");
+    await expect.poll(() => page.getByRole("heading", { level: 2 }).textContent()).toBe("طلب مستلزمات");
     await screenshot(page, "supplies-ar");
   });
 
   it("a phone-sized Letters tab has no sideways scrolling, and another team's clinician is refused", async () => {
     await page.setViewportSize({ width: 360, height: 780 });
     await page.goto(`/en/patients/${fx.patientId}/letters`);
-    await expect.poll(() => page.getByRole("heading", { level: 1 }).textContent()).toBe("Letters");
+    await expect.poll(() => page.getByRole("heading", { level: 2 }).textContent()).toBe("Letters");
     expect(await page.evaluate(() => document.documentElement.scrollWidth <= window.innerWidth + 1)).toBe(true);
     await screenshot(page, "letters-en-phone");
 

@@ -1,15 +1,12 @@
-import { headers } from "next/headers";
 import { notFound } from "next/navigation";
 import { getFormatter, getTranslations } from "next-intl/server";
 import { ResendButton } from "@/components/letters/resend-button";
 import { StatusBadge } from "@/components/letters/status-badge";
 import { getPatientForMail } from "@/db/queries/mail-context";
 import { listPatientMessages } from "@/db/queries/outbox";
-import { requirePageRole } from "@/lib/auth/permissions";
 import { NO_RECIPIENT } from "@/lib/email/outbox";
-import { AppError } from "@/lib/errors";
 import { Link } from "@/lib/i18n/navigation";
-import { openPatientRecord } from "@/lib/patient-record";
+import { openRecordPage } from "@/lib/patient-record-page";
 
 const kinds = ["gp-summary", "supply-request", "care-team-alert", "digest", "portal-invite", "carer-invite"] as const;
 
@@ -20,13 +17,8 @@ export async function generateMetadata() {
 
 export default async function LettersPage({ params }: { params: Promise<{ locale: string; patientId: string }> }) {
   const { locale, patientId } = await params;
-  const viewer = await requirePageRole(locale, "clinician");
-  try {
-    await openPatientRecord({ viewer, patientId, action: "patient.view.letters", request: { headers: await headers() } });
-  } catch (e) {
-    if (e instanceof AppError && e.code === "not_found") notFound();
-    throw e;
-  }
+  // The clinician role, the access check and the audit event before any data is read.
+  await openRecordPage({ locale, patientId, action: "patient.view.letters" });
   const [t, format, patient, messages] = await Promise.all([
     getTranslations("Letters"),
     getFormatter(),
@@ -40,10 +32,7 @@ export default async function LettersPage({ params }: { params: Promise<{ locale
     <div className="flex flex-col gap-6">
       <div className="flex flex-wrap items-end justify-between gap-4">
         <div>
-          <p className="font-bold text-ink-soft">
-            {patient.givenName} {patient.familyName} · <span className="tabular">{patient.healthRecordNumber}</span>
-          </p>
-          <h1 className="text-3xl font-bold">{t("title")}</h1>
+          <h2 className="text-2xl font-bold">{t("title")}</h2>
           <p className="text-ink-soft">{t("intro")}</p>
         </div>
         <Link
@@ -65,7 +54,7 @@ export default async function LettersPage({ params }: { params: Promise<{ locale
                     {kindLabel(m.kind)}
                     {m.resendOfId ? ` · ${t("isResend")}` : ""}
                   </p>
-                  <h2 className="text-lg font-bold break-words">{m.subject}</h2>
+                  <h3 className="text-lg font-bold break-words">{m.subject}</h3>
                 </div>
                 <StatusBadge status={m.status} label={t(`status.${m.status}`)} />
               </div>

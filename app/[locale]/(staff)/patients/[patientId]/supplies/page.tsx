@@ -1,13 +1,10 @@
-import { headers } from "next/headers";
 import { notFound } from "next/navigation";
 import { getFormatter, getTranslations } from "next-intl/server";
 import { StatusBadge } from "@/components/letters/status-badge";
 import { SupplyRequestForm } from "@/components/supplies/supply-request-form";
 import { getSupplyContext, listSupplyRequests } from "@/db/queries/supply-requests";
-import { requirePageRole } from "@/lib/auth/permissions";
-import { AppError } from "@/lib/errors";
 import { Link } from "@/lib/i18n/navigation";
-import { openPatientRecord } from "@/lib/patient-record";
+import { openRecordPage } from "@/lib/patient-record-page";
 
 export async function generateMetadata() {
   const t = await getTranslations("Supplies");
@@ -18,13 +15,8 @@ const items = ["catheter", "leg-bag", "night-bag", "valve", "gel"] as const;
 
 export default async function SuppliesPage({ params }: { params: Promise<{ locale: string; patientId: string }> }) {
   const { locale, patientId } = await params;
-  const viewer = await requirePageRole(locale, "clinician");
-  try {
-    await openPatientRecord({ viewer, patientId, action: "patient.view.supplies", request: { headers: await headers() } });
-  } catch (e) {
-    if (e instanceof AppError && e.code === "not_found") notFound();
-    throw e;
-  }
+  // The clinician role, the access check and the audit event before any data is read.
+  await openRecordPage({ locale, patientId, action: "patient.view.supplies" });
   const [t, tl, format, ctx, history] = await Promise.all([
     getTranslations("Supplies"),
     getTranslations("Letters"),
@@ -38,10 +30,7 @@ export default async function SuppliesPage({ params }: { params: Promise<{ local
     <div className="flex flex-col gap-8">
       <div className="flex flex-wrap items-end justify-between gap-4">
         <div>
-          <p className="font-bold text-ink-soft">
-            {ctx.patient.givenName} {ctx.patient.familyName} · <span className="tabular">{ctx.patient.healthRecordNumber}</span>
-          </p>
-          <h1 className="text-3xl font-bold">{t("title")}</h1>
+          <h2 className="text-2xl font-bold">{t("title")}</h2>
           <p className="text-ink-soft">{t("intro", { gp: ctx.gp?.name ?? t("noGpName") })}</p>
         </div>
         <Link
@@ -52,9 +41,9 @@ export default async function SuppliesPage({ params }: { params: Promise<{ local
         </Link>
       </div>
       <section aria-labelledby="new-request" className="rounded-card border border-stone-faint bg-paper-raised p-5 shadow-sm">
-        <h2 id="new-request" className="mb-1 text-xl font-bold">
+        <h3 id="new-request" className="mb-1 text-xl font-bold">
           {t("newRequest")}
-        </h2>
+        </h3>
         {ctx.episode && ctx.changeIntervalDays ? (
           <>
             <p className="mb-4 text-ink-soft">
@@ -72,9 +61,9 @@ export default async function SuppliesPage({ params }: { params: Promise<{ local
         )}
       </section>
       <section aria-labelledby="history">
-        <h2 id="history" className="mb-3 text-xl font-bold">
+        <h3 id="history" className="mb-3 text-xl font-bold">
           {t("history")}
-        </h2>
+        </h3>
         {history.length === 0 ? (
           <p>{t("historyEmpty")}</p>
         ) : (
