@@ -221,22 +221,34 @@ CREATE TABLE "organisations" (
 CREATE TABLE "outbound_messages" (
 	"id" uuid PRIMARY KEY DEFAULT gen_random_uuid() NOT NULL,
 	"idempotency_key" text NOT NULL,
+	"message_id" text NOT NULL,
 	"kind" text NOT NULL,
 	"to_address" text NOT NULL,
 	"subject" text NOT NULL,
 	"html" text NOT NULL,
 	"text" text NOT NULL,
 	"attachments" jsonb DEFAULT '[]'::jsonb NOT NULL,
+	"locale" text DEFAULT 'en' NOT NULL,
 	"patient_id" uuid,
 	"organisation_id" uuid,
+	"source_id" text,
+	"resend_of_id" uuid,
+	"created_by_user_id" text,
+	"redact_after_send" boolean DEFAULT false NOT NULL,
 	"status" text DEFAULT 'queued' NOT NULL,
 	"attempts" integer DEFAULT 0 NOT NULL,
 	"last_error" text,
 	"next_attempt_at" timestamp with time zone DEFAULT now() NOT NULL,
+	"claim_token" uuid,
+	"lease_until" timestamp with time zone,
 	"sent_at" timestamp with time zone,
 	"created_at" timestamp with time zone DEFAULT now() NOT NULL,
 	"updated_at" timestamp with time zone DEFAULT now() NOT NULL,
-	CONSTRAINT "outbound_messages_idempotency_key_unique" UNIQUE("idempotency_key")
+	CONSTRAINT "outbound_messages_idempotency_key_unique" UNIQUE("idempotency_key"),
+	CONSTRAINT "outbox_attempts_ck" CHECK ("outbound_messages"."attempts" >= 0),
+	CONSTRAINT "outbox_sent_ck" CHECK ("outbound_messages"."status" <> 'sent' or "outbound_messages"."sent_at" is not null),
+	CONSTRAINT "outbox_sending_ck" CHECK ("outbound_messages"."status" <> 'sending' or ("outbound_messages"."lease_until" is not null and "outbound_messages"."claim_token" is not null)),
+	CONSTRAINT "outbox_to_ck" CHECK ("outbound_messages"."to_address" <> '' or "outbound_messages"."status" = 'failed')
 );
 --> statement-breakpoint
 CREATE TABLE "passports" (
@@ -286,6 +298,22 @@ CREATE TABLE "settings" (
 	"value" jsonb NOT NULL,
 	"created_at" timestamp with time zone DEFAULT now() NOT NULL,
 	"updated_at" timestamp with time zone DEFAULT now() NOT NULL
+);
+--> statement-breakpoint
+CREATE TABLE "supply_requests" (
+	"id" uuid PRIMARY KEY DEFAULT gen_random_uuid() NOT NULL,
+	"patient_id" uuid NOT NULL,
+	"episode_id" uuid,
+	"gp_practice_id" uuid,
+	"period_days" integer NOT NULL,
+	"items" jsonb NOT NULL,
+	"note" text,
+	"requested_by_user_id" text,
+	"requested_by_name" text NOT NULL,
+	"message_id" uuid,
+	"created_at" timestamp with time zone DEFAULT now() NOT NULL,
+	"updated_at" timestamp with time zone DEFAULT now() NOT NULL,
+	CONSTRAINT "supply_requests_period_ck" CHECK ("supply_requests"."period_days" between 1 and 366)
 );
 --> statement-breakpoint
 CREATE TABLE "uploads" (
@@ -340,10 +368,16 @@ ALTER TABLE "memberships" ADD CONSTRAINT "memberships_user_id_user_id_fk" FOREIG
 ALTER TABLE "memberships" ADD CONSTRAINT "memberships_organisation_id_organisations_id_fk" FOREIGN KEY ("organisation_id") REFERENCES "public"."organisations"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "outbound_messages" ADD CONSTRAINT "outbound_messages_patient_id_patients_id_fk" FOREIGN KEY ("patient_id") REFERENCES "public"."patients"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "outbound_messages" ADD CONSTRAINT "outbound_messages_organisation_id_organisations_id_fk" FOREIGN KEY ("organisation_id") REFERENCES "public"."organisations"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "outbound_messages" ADD CONSTRAINT "outbound_messages_created_by_user_id_user_id_fk" FOREIGN KEY ("created_by_user_id") REFERENCES "public"."user"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "passports" ADD CONSTRAINT "passports_patient_id_patients_id_fk" FOREIGN KEY ("patient_id") REFERENCES "public"."patients"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "passports" ADD CONSTRAINT "passports_issued_by_user_id_user_id_fk" FOREIGN KEY ("issued_by_user_id") REFERENCES "public"."user"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "patients" ADD CONSTRAINT "patients_user_id_user_id_fk" FOREIGN KEY ("user_id") REFERENCES "public"."user"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "patients" ADD CONSTRAINT "patients_gp_practice_id_organisations_id_fk" FOREIGN KEY ("gp_practice_id") REFERENCES "public"."organisations"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "supply_requests" ADD CONSTRAINT "supply_requests_patient_id_patients_id_fk" FOREIGN KEY ("patient_id") REFERENCES "public"."patients"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "supply_requests" ADD CONSTRAINT "supply_requests_episode_id_catheter_episodes_id_fk" FOREIGN KEY ("episode_id") REFERENCES "public"."catheter_episodes"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "supply_requests" ADD CONSTRAINT "supply_requests_gp_practice_id_organisations_id_fk" FOREIGN KEY ("gp_practice_id") REFERENCES "public"."organisations"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "supply_requests" ADD CONSTRAINT "supply_requests_requested_by_user_id_user_id_fk" FOREIGN KEY ("requested_by_user_id") REFERENCES "public"."user"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "supply_requests" ADD CONSTRAINT "supply_requests_message_id_outbound_messages_id_fk" FOREIGN KEY ("message_id") REFERENCES "public"."outbound_messages"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "uploads" ADD CONSTRAINT "uploads_patient_id_patients_id_fk" FOREIGN KEY ("patient_id") REFERENCES "public"."patients"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "uploads" ADD CONSTRAINT "uploads_uploaded_by_user_id_user_id_fk" FOREIGN KEY ("uploaded_by_user_id") REFERENCES "public"."user"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "visit_access" ADD CONSTRAINT "visit_access_patient_id_patients_id_fk" FOREIGN KEY ("patient_id") REFERENCES "public"."patients"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
@@ -370,11 +404,14 @@ CREATE INDEX "memberships_org_idx" ON "memberships" USING btree ("organisation_i
 CREATE UNIQUE INDEX "organisations_name_kind_uq" ON "organisations" USING btree ("name","kind");--> statement-breakpoint
 CREATE INDEX "organisations_kind_idx" ON "organisations" USING btree ("kind");--> statement-breakpoint
 CREATE INDEX "outbox_status_idx" ON "outbound_messages" USING btree ("status","next_attempt_at");--> statement-breakpoint
+CREATE INDEX "outbox_lease_idx" ON "outbound_messages" USING btree ("lease_until") WHERE "outbound_messages"."status" = 'sending';--> statement-breakpoint
 CREATE INDEX "outbox_patient_idx" ON "outbound_messages" USING btree ("patient_id","created_at");--> statement-breakpoint
+CREATE INDEX "outbox_resend_of_idx" ON "outbound_messages" USING btree ("resend_of_id");--> statement-breakpoint
 CREATE INDEX "passports_patient_idx" ON "passports" USING btree ("patient_id");--> statement-breakpoint
 CREATE UNIQUE INDEX "passports_one_current_uq" ON "passports" USING btree ("patient_id") WHERE "passports"."revoked_at" is null;--> statement-breakpoint
 CREATE UNIQUE INDEX "patients_hrn_uq" ON "patients" USING btree ("health_record_number");--> statement-breakpoint
 CREATE INDEX "patients_family_name_idx" ON "patients" USING btree (lower("family_name"));--> statement-breakpoint
 CREATE INDEX "patients_gp_idx" ON "patients" USING btree ("gp_practice_id");--> statement-breakpoint
+CREATE INDEX "supply_requests_patient_idx" ON "supply_requests" USING btree ("patient_id","created_at");--> statement-breakpoint
 CREATE INDEX "uploads_patient_idx" ON "uploads" USING btree ("patient_id","created_at");--> statement-breakpoint
 CREATE INDEX "visit_access_user_patient_idx" ON "visit_access" USING btree ("user_id","patient_id","expires_at");

@@ -73,6 +73,10 @@ export const matrix: Row[] = [
   { route: "PATCH /api/patients/[patientId]", params: patient, expect: staffOnPatient },
   { route: "GET /api/patients/[patientId]/history", params: patient, expect: staffOnPatient },
   { route: "GET /api/patients/[patientId]/access-log", params: patient, expect: staffOnPatient },
+  { route: "GET /api/patients/[patientId]/messages", params: patient, expect: staffOnPatient },
+  { route: "POST /api/patients/[patientId]/messages/[messageId]/resend", exempt: "needs a message of the patient: its full matrix is in letters-supplies.test.ts" },
+  { route: "GET /api/patients/[patientId]/supply-requests", params: patient, expect: staffOnPatient },
+  { route: "POST /api/patients/[patientId]/supply-requests", params: patient, expect: staffOnPatient },
 ];
 
 export { patient as patientParams };
