@@ -175,6 +175,7 @@ CREATE TABLE "check_ins" (
 	"level" text NOT NULL,
 	"rule_ids" text[] NOT NULL,
 	"idempotency_key" text NOT NULL,
+	"answered_at" timestamp with time zone,
 	"reviewed_at" timestamp with time zone,
 	"reviewed_by_user_id" text,
 	"created_at" timestamp with time zone DEFAULT now() NOT NULL,

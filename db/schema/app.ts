@@ -297,6 +297,8 @@ export const checkIns = pgTable(
     level: text("level", { enum: checkInLevels }).notNull(),
     ruleIds: text("rule_ids").array().notNull(),
     idempotencyKey: text("idempotency_key").notNull().unique(),
+    // When the person answered, as the phone tells it (an offline check-in arrives later).
+    answeredAt: timestamp("answered_at", { withTimezone: true }),
     reviewedAt: timestamp("reviewed_at", { withTimezone: true }),
     reviewedByUserId: text("reviewed_by_user_id").references(() => user.id, { onDelete: "set null" }),
     ...timestamps,
