@@ -9,17 +9,23 @@ import { POST as activate } from "@/app/api/activate/route";
 import { POST as bagChangesPost } from "@/app/api/bag-changes/route";
 import { POST as acceptCarer } from "@/app/api/carer-invites/accept/route";
 import { POST as checkInsPost } from "@/app/api/check-ins/route";
-import { DELETE as diaryDelete } from "@/app/api/diary/[id]/route";
+import { DELETE as diaryDeleteRaw } from "@/app/api/diary/[id]/route";
 import { GET as diaryGet, POST as diaryPost } from "@/app/api/diary/route";
 import { GET as me } from "@/app/api/me/route";
-import { DELETE as carerDelete } from "@/app/api/patients/[patientId]/carers/[linkId]/route";
-import { POST as carersPost } from "@/app/api/patients/[patientId]/carers/route";
-import { POST as invitePost } from "@/app/api/patients/[patientId]/invite/route";
+import { DELETE as carerDeleteRaw } from "@/app/api/patients/[patientId]/carers/[linkId]/route";
+import { POST as carersPostRaw } from "@/app/api/patients/[patientId]/carers/route";
+import { POST as invitePostRaw } from "@/app/api/patients/[patientId]/invite/route";
 import { db } from "@/db";
 import { auditEvents, bagChanges, carerLinks, checkIns, diaryEntries, patientInvites, patients, user } from "@/db/schema";
 import { LIMITS } from "@/lib/rate-limit";
 import { CODE_BITS } from "@/lib/secret-codes";
 import { call, sessionFor } from "../support/http";
+
+// Handlers with typed params, called through the untyped test helper.
+const carersPost = carersPostRaw as unknown as Parameters<typeof call>[0];
+const carerDelete = carerDeleteRaw as unknown as Parameters<typeof call>[0];
+const invitePost = invitePostRaw as unknown as Parameters<typeof call>[0];
+const diaryDelete = diaryDeleteRaw as unknown as Parameters<typeof call>[0];
 
 type Staff = "communityNurse" | "rowanNurse" | "admin" | "wardNurse";
 const ids: Record<string, string> = {};
