@@ -24,6 +24,7 @@ import {
   type OrganisationKind,
 } from "./schema";
 import { hashPassword } from "@/lib/auth/password";
+import { planDates } from "@/lib/clinical";
 
 type Role = "admin" | "clinician" | "patient" | "carer";
 
@@ -290,8 +291,11 @@ export async function seed({ quiet = false }: { quiet?: boolean } = {}) {
             insertedByUserId: nameToUser.get(by) ?? null,
             insertedByName: by,
             maxDwellDays: dwellDays,
-            plannedChangeOn: isoDate(daysFromToday(-insertedDaysAgo + dwellDays)),
-            reviewDueOn: isoDate(daysFromToday(-insertedDaysAgo + Math.min(dwellDays, 28))),
+            // Dates from the same rules the episode forms use.
+            ...(() => {
+              const plan = planDates({ insertedOn: isoDate(insertedAt), material: device.material, route: device.route, maxDwellDays: dwellDays });
+              return { plannedChangeOn: plan.change.date, reviewDueOn: plan.review.date };
+            })(),
             residualUrineMl: 150,
             removedAt,
             removalReason: removedAt ? (unplannedReason ?? "planned change") : null,
