@@ -8,7 +8,7 @@ export const DELETE = handle<{ params: Promise<{ patientId: string; linkId: stri
   const viewer = await requireUser(request);
   const { patientId, linkId } = await params;
   const via = await requireCarerManager(viewer, patientId);
-  if (!isUuid(linkId)) throw new AppError("not_found");
+  if (!isUuid(linkId)) throw new AppError("validation_failed", undefined, { fields: { linkId: ["invalid"] } });
   await removeCarer({ viewer, via, patientId, linkId, request });
   return new Response(null, { status: 204 });
 });
