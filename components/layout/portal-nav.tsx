@@ -15,8 +15,13 @@ export function PortalNav() {
   const t = useTranslations("Portal.nav");
   const pathname = usePathname();
   return (
-    <nav aria-label={t("label")} className="fixed inset-x-0 bottom-0 z-10 border-t border-stone-faint bg-paper-raised pb-[env(safe-area-inset-bottom)]">
-      <ul className="mx-auto flex max-w-xl">
+    // With very large text (the phone's text size at 200 %), the bar stops floating over the
+    // page and becomes a 2 × 2 block at its end; "Get help" stays in the sticky header.
+    <nav
+      aria-label={t("label")}
+      className="fixed inset-x-0 bottom-0 z-10 border-t border-stone-faint bg-paper-raised pb-[env(safe-area-inset-bottom)] max-[22em]:static"
+    >
+      <ul className="mx-auto flex max-w-xl max-[22em]:grid max-[22em]:grid-cols-2">
         {items.map(({ href, key, Icon, match }) => {
           const current = match.some((m) => pathname === m || pathname.startsWith(`${m}/`));
           return (

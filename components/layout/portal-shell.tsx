@@ -15,7 +15,7 @@ export async function PortalShell({ children }: { children: ReactNode }) {
       <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:start-2 focus:top-2 focus:z-20 focus:bg-paper-raised focus:p-3">
         {t("skip")}
       </a>
-      <header className="sticky top-0 z-10 border-b border-stone-faint bg-paper-raised">
+      <header className="sticky top-0 z-20 border-b border-stone-faint bg-paper-raised">
         <div className="mx-auto flex max-w-xl flex-wrap items-center justify-between gap-2 px-4 py-2">
           <Link href="/today" className="flex min-h-12 items-center gap-2 text-xl font-bold text-brand">
             <LogoMark />
@@ -31,7 +31,7 @@ export async function PortalShell({ children }: { children: ReactNode }) {
           </Link>
         </div>
       </header>
-      <main id="main" className="mx-auto w-full max-w-xl flex-1 px-4 pb-36 pt-5 [overflow-wrap:break-word]">
+      <main id="main" className="mx-auto w-full max-w-xl flex-1 px-4 pb-36 pt-5 [overflow-wrap:break-word] max-[22em]:pb-8">
         {children}
       </main>
       <PortalNav />
