@@ -19,6 +19,7 @@ export function PortalNav() {
     // page and becomes a 2 × 2 block at its end; "Get help" stays in the sticky header.
     <nav
       aria-label={t("label")}
+      data-testid="portal-nav"
       className="fixed inset-x-0 bottom-0 z-10 border-t border-stone-faint bg-paper-raised pb-[env(safe-area-inset-bottom)] max-[22em]:static"
     >
       <ul className="mx-auto flex max-w-xl max-[22em]:grid max-[22em]:grid-cols-2">

@@ -11,13 +11,13 @@ import { PortalNav } from "./portal-nav";
 export async function PortalShell({ children }: { children: ReactNode }) {
   const t = await getTranslations("Portal");
   return (
-    <div className="flex min-h-dvh flex-col text-body">
+    <div className="flex min-h-dvh flex-col text-body hyphens-auto [overflow-wrap:anywhere]">
       <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:start-2 focus:top-2 focus:z-20 focus:bg-paper-raised focus:p-3">
         {t("skip")}
       </a>
       <header className="sticky top-0 z-20 border-b border-stone-faint bg-paper-raised">
-        <div className="mx-auto flex max-w-xl flex-wrap items-center justify-between gap-2 px-4 py-2">
-          <Link href="/today" className="flex min-h-12 items-center gap-2 text-xl font-bold text-brand">
+        <div className="mx-auto flex max-w-xl flex-wrap items-center justify-between gap-2 px-4 py-2 max-[22em]:justify-center max-[22em]:py-1">
+          <Link href="/today" className="flex min-h-12 items-center gap-2 text-xl font-bold text-brand max-[22em]:hidden">
             <LogoMark />
             <span>Caddis</span>
           </Link>
@@ -31,7 +31,7 @@ export async function PortalShell({ children }: { children: ReactNode }) {
           </Link>
         </div>
       </header>
-      <main id="main" className="mx-auto w-full max-w-xl flex-1 px-4 pb-36 pt-5 [overflow-wrap:break-word] max-[22em]:pb-8">
+      <main id="main" className="mx-auto w-full max-w-xl flex-1 px-4 pb-36 pt-5 max-[22em]:pb-8">
         {children}
       </main>
       <PortalNav />

@@ -11,6 +11,14 @@ export function telHref(phone: string) {
 }
 
 /**
+ * A phone number kept left to right inside right-to-left text (Unicode isolates), so that
+ * "01632 960 210" is not shown as "210 960 01632" in Arabic or Urdu.
+ */
+export function ltr(text: string) {
+  return `\u2066${text}\u2069`;
+}
+
+/**
  * The numbers to call as big tel: buttons. The emergency number comes from the deployment's
  * settings; when it is missing we say so rather than guess one.
  */
@@ -24,7 +32,7 @@ export function CallButtons({ contacts, emergencyFirst = true, showEmergency = t
       data-testid="call-emergency"
     >
       <PhoneIcon className="h-7 w-7 shrink-0" />
-      <span>{t("emergency", { number: contacts.emergencyNumber })}</span>
+      <span>{t("emergency", { number: ltr(contacts.emergencyNumber) })}</span>
     </a>
   ) : (
     <p key="emergency" className="rounded-lg border-2 border-level-emergency bg-level-emergency-soft p-3 font-bold text-level-emergency-ink" data-testid="emergency-not-configured">
@@ -35,13 +43,13 @@ export function CallButtons({ contacts, emergencyFirst = true, showEmergency = t
     o.phone ? (
       <a key={`${o.name}-day`} href={telHref(o.phone)} className="flex min-h-14 items-center gap-3 rounded-lg border-2 border-brand bg-paper-raised px-4 py-2 font-bold text-brand" data-testid="call-team">
         <PhoneIcon className="h-7 w-7 shrink-0" />
-        <span>{t("team", { team: o.name, number: o.phone })}</span>
+        <span>{t("team", { team: o.name, number: ltr(o.phone) })}</span>
       </a>
     ) : null,
     o.outOfHoursPhone ? (
       <a key={`${o.name}-ooh`} href={telHref(o.outOfHoursPhone)} className="flex min-h-14 items-center gap-3 rounded-lg border-2 border-brand bg-paper-raised px-4 py-2 font-bold text-brand">
         <PhoneIcon className="h-7 w-7 shrink-0" />
-        <span>{t("outOfHours", { number: o.outOfHoursPhone })}</span>
+        <span>{t("outOfHours", { number: ltr(o.outOfHoursPhone) })}</span>
       </a>
     ) : null,
   ]);

@@ -17,7 +17,9 @@ const PHONE = /^\+?[0-9][0-9 ()-]{1,19}$/;
  */
 export async function readEmergencyNumber(tx: Executor = db): Promise<string | null> {
   const [row] = await tx.select({ value: settings.value }).from(settings).where(eq(settings.key, "emergencyNumber"));
-  const value = row?.value;
+  // drizzle parses a jsonb string a second time, so "999" can come back as the number 999.
+  const raw = row?.value;
+  const value = typeof raw === "number" && Number.isInteger(raw) && raw >= 0 ? String(raw) : raw;
   return typeof value === "string" && PHONE.test(value.trim()) ? value.trim() : null;
 }
 

@@ -1,7 +1,7 @@
 // "How am I?" on a 390 × 844 phone in Chromium: scripted answer sets give the expected level
 // (word, mark and colour together), the result is stored once, and a check-in made offline is
 // kept on the phone and delivered exactly once when the network returns.
-import type { Browser } from "playwright-core";
+import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { demo } from "../support/http";
 import { launch, screenshot, signInAs } from "./support/browser";
@@ -72,30 +72,41 @@ const scripts: { name: string; steps: Step[]; level: string; reason?: RegExp; ad
 ];
 
 describe("check-in on a phone", () => {
-  it("a patient signs in and gets the expected level for each scripted answer set", async () => {
-    const page = await phonePage(browser);
-    await signInAs(page, demo.patient.email, demo.patient.password);
+  describe("a patient signs in and gets the expected level for each scripted answer set", () => {
+    let page: Page;
+    beforeAll(async () => {
+      page = await phonePage(browser);
+      await signInAs(page, demo.patient.email, demo.patient.password);
+    });
+    afterAll(async () => {
+      await page?.context().close();
+    });
     const words: Record<string, RegExp> = { emergency: /Emergency: call now/, urgent: /Urgent: get help today/, soon: /Soon: tell your care team/, "self-care": /Self-care at home/ };
+
     for (const s of scripts) {
-      expect(s.steps.length, `${s.name}: at most about 10 taps`).toBeLessThanOrEqual(11);
-      const result = await runCheckIn(page, s.steps);
-      expect(await result.getAttribute("data-level"), s.name).toBe(s.level);
-      // Word, mark and colour together: the badge has the level's word and an SVG mark.
-      const badge = result.locator(`[data-level="${s.level}"]`).first();
-      expect(await badge.textContent()).toMatch(words[s.level]);
-      expect(await badge.locator("svg").count()).toBe(1);
-      if (s.reason) expect(await result.textContent()).toMatch(s.reason);
-      if (s.advice) expect(await result.textContent()).toMatch(s.advice);
-      // The emergency number and the care team's number as tel: links.
-      expect(await page.locator('[data-testid="check-in-result"] a[href="tel:999"]').count()).toBeGreaterThan(0);
-      expect(await page.locator('[data-testid="check-in-result"] a[href^="tel:01632"]').count()).toBeGreaterThan(0);
-      await expect.poll(() => result.getAttribute("data-delivery"), { timeout: 15_000 }).toBe("sent");
-      await screenshot(page, `portal-check-in-result-${s.level}-${s.name.replace(/[^a-z0-9]+/gi, "-")}-en`);
+      it(`${s.name} → ${s.level}`, async () => {
+        expect(s.steps.length, `${s.name}: at most about 10 taps`).toBeLessThanOrEqual(11);
+        const result = await runCheckIn(page, s.steps);
+        expect(await result.getAttribute("data-level"), s.name).toBe(s.level);
+        // Word, mark and colour together: the badge has the level's word and an SVG mark.
+        const badge = result.locator(`[data-level="${s.level}"]`).first();
+        expect(await badge.textContent()).toMatch(words[s.level]);
+        expect(await badge.locator("svg").count()).toBe(1);
+        if (s.reason) expect(await result.textContent()).toMatch(s.reason);
+        if (s.advice) expect(await result.textContent()).toMatch(s.advice);
+        // The emergency number and the care team's number as tel: links.
+        expect(await page.locator('[data-testid="check-in-result"] a[href="tel:999"]').count()).toBeGreaterThan(0);
+        expect(await page.locator('[data-testid="check-in-result"] a[href^="tel:01632"]').count()).toBeGreaterThan(0);
+        await expect.poll(() => result.getAttribute("data-delivery"), { timeout: 15_000 }).toBe("sent");
+        await screenshot(page, `portal-check-in-result-${s.level}-${s.name.replace(/[^a-z0-9]+/gi, "-")}-en`);
+      });
     }
-    // Today shows the last check-in and its advice.
-    await page.goto("/en/today");
-    expect(await page.locator("[data-level]").first().getAttribute("data-level")).toBe("self-care");
-    await page.context().close();
+
+    it("Today then shows the last check-in and its advice", async () => {
+      await page.goto("/en/today");
+      expect(await page.locator("[data-level]").first().getAttribute("data-level")).toBe("self-care");
+      expect(await page.textContent("main")).toMatch(/You can look after this at home/);
+    });
   });
 
   it("shows the result in Arabic, right to left, with the same level", async () => {

@@ -414,3 +414,24 @@ describe("carers", () => {
     expect((await (await inv("joan.pell@eastmere.example")).json()).error.fields.email).toEqual(["already_linked"]);
   });
 });
+
+describe("emergency number", () => {
+  it("reads the emergency number from the settings and never guesses one", async () => {
+    const { readEmergencyNumber } = await import("@/db/queries/contacts");
+    const { settings } = await import("@/db/schema");
+    // Seeded demo deployment: 999 (db/seed.ts).
+    expect(await readEmergencyNumber()).toBe("999");
+    const [saved] = await db.select().from(settings).where(eq(settings.key, "emergencyNumber"));
+    try {
+      await db.update(settings).set({ value: "call someone" }).where(eq(settings.key, "emergencyNumber"));
+      expect(await readEmergencyNumber()).toBeNull();
+      await db.update(settings).set({ value: "+44 1632 960000" }).where(eq(settings.key, "emergencyNumber"));
+      expect(await readEmergencyNumber()).toBe("+44 1632 960000");
+      await db.delete(settings).where(eq(settings.key, "emergencyNumber"));
+      expect(await readEmergencyNumber()).toBeNull();
+    } finally {
+      await db.insert(settings).values({ key: "emergencyNumber", value: saved.value }).onConflictDoUpdate({ target: settings.key, set: { value: saved.value } });
+    }
+    expect(await readEmergencyNumber()).toBe("999");
+  });
+});

@@ -19,7 +19,7 @@ export default async function OfflinePage({ params }: { params: Promise<{ locale
   const t = await getTranslations("Offline");
   const emergency = await readEmergencyNumber();
   return (
-    <main className="mx-auto flex min-h-dvh max-w-xl flex-col gap-5 p-5 text-body" data-testid="offline-page">
+    <main className="mx-auto flex min-h-dvh max-w-xl flex-col gap-5 p-5 text-body [overflow-wrap:anywhere]" data-testid="offline-page">
       <div className="flex items-center gap-2 text-2xl font-bold text-brand">
         <LogoMark className="h-9 w-9" />
         <span>Caddis</span>
@@ -35,7 +35,7 @@ export default async function OfflinePage({ params }: { params: Promise<{ locale
         {emergency ? (
           <a href={telHref(emergency)} className="flex min-h-14 items-center gap-3 rounded-lg bg-level-emergency px-4 text-lg font-bold text-white">
             <PhoneIcon className="h-7 w-7 shrink-0" />
-            {t("call", { number: emergency })}
+            {t("call", { number: `\u2066${emergency}\u2069` })}
           </a>
         ) : (
           <p className="font-bold">{t("noNumber")}</p>

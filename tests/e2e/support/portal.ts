@@ -37,7 +37,14 @@ export async function runCheckIn(page: Page, steps: Step[], locale = "en") {
   for (const step of steps) {
     const question = await page.locator("[data-question]").getAttribute("data-question");
     if (typeof step === "string") {
-      await page.locator(`[data-question="${question}"] [data-answer="${step}"]`).click();
+      const button = page.locator(`[data-question="${question}"] [data-answer="${step}"]`);
+      const toggle = (await button.getAttribute("aria-pressed")) !== null;
+      await button.click();
+      // A tick in a "tap all that apply" list stays on the same screen.
+      if (toggle) {
+        await page.waitForFunction((s) => document.querySelector(`[data-answer="${s}"]`)?.getAttribute("aria-pressed") === "true", step);
+        continue;
+      }
     } else {
       await page.locator("#temperature").fill(step.temperature);
       await page.locator('[data-question="temperatureC"] button[type="submit"]').click();
@@ -104,4 +111,21 @@ export async function overflowProblems(page: Page) {
 export async function signInFresh(page: Page, email: string, password: string, locale = "en") {
   const { signInAs } = await import("./browser");
   await signInAs(page, email, password, locale);
+}
+
+/**
+ * A whole-page screenshot that keeps the text size: Playwright's fullPage capture resets
+ * Chromium's font-size setting, so the viewport is made as tall as the page instead.
+ */
+export async function screenshotAtTextSize(page: Page, name: string, percent: number) {
+  const { screenshotDir } = await import("./browser");
+  const fs = await import("node:fs");
+  const path = await import("node:path");
+  fs.mkdirSync(screenshotDir, { recursive: true });
+  const height = Math.min(12_000, await page.evaluate(() => document.documentElement.scrollHeight));
+  await page.setViewportSize({ width: PHONE.viewport.width, height });
+  await setTextSize(page, percent);
+  await page.screenshot({ path: path.join(screenshotDir, `${name}.png`) });
+  await page.setViewportSize(PHONE.viewport);
+  await setTextSize(page, percent);
 }

@@ -1,4 +1,4 @@
-import { existsSync, readFileSync } from "node:fs";
+import { existsSync, readdirSync, readFileSync } from "node:fs";
 import { dirname, join } from "node:path";
 import { fileURLToPath } from "node:url";
 import { describe, expect, it } from "vitest";
@@ -19,6 +19,18 @@ const MATRIX: Record<string, number[]> = {
   low: [1, 2, 2, 3, 4],
   "very low": [1, 1, 2, 2, 3],
 };
+/** A cited test file by name anywhere under tests/ (unit, integration or e2e); names are unique. */
+function findTestFile(name: string): string {
+  const hits: string[] = [];
+  const walk = (dir: string) => {
+    for (const e of readdirSync(dir, { withFileTypes: true })) {
+      if (e.isDirectory()) walk(join(dir, e.name));
+      else if (e.name === name) hits.push(join(dir, e.name));
+    }
+  };
+  walk(join(root, "tests"));
+  return hits.length === 1 ? hits[0] : join(root, "tests", "unit", "clinical", name);
+}
 const risk = (sev: string, lik: string) => MATRIX[lik][SEVERITIES.indexOf(sev)];
 
 const rows = doc
@@ -61,7 +73,7 @@ describe("docs/clinical-safety.md", () => {
       const cites = [...r[13].matchAll(/`([\w.-]+\.test\.ts)` › "([^"]+)"/g)];
       expect(cites.length, r[0]).toBeGreaterThan(0);
       for (const [, file, name] of cites) {
-        const path = join(root, "tests", "unit", "clinical", file);
+        const path = findTestFile(file);
         expect(existsSync(path), path).toBe(true);
         expect(readFileSync(path, "utf8"), `${r[0]}: ${file} › ${name}`).toContain(name);
       }
