@@ -84,7 +84,7 @@ export function DiaryView({ patientId, weightKg, fluidLimitMl }: { patientId: st
   const week = [6, 5, 4, 3, 2, 1, 0].map((n) => fluidBalance(clinical, localIso(startOfDay(n))));
   const output = weightKg ? urineOutputRate(clinical, weightKg, OUTPUT_WINDOW_HOURS, new Date()) : null;
   const todays = entries.filter((e) => localIso(new Date(e.at)) === todayIso).reverse();
-  const ml = (n: number) => `${format.number(n)} ml`;
+  const ml = (n: number) => t("amount", { ml: format.number(n) });
   const time = (iso: string) => format.dateTime(new Date(iso), { hour: "numeric", minute: "2-digit" });
 
   return (
@@ -184,7 +184,7 @@ export function DiaryView({ patientId, weightKg, fluidLimitMl }: { patientId: st
                     type="button"
                     disabled={remove.isPending}
                     onClick={() => remove.mutate(e.id)}
-                    className="min-h-12 min-w-12 rounded-lg border-2 border-brand px-3 font-bold text-brand"
+                    className="min-h-12 min-w-12 shrink-0 rounded-lg border-2 border-brand px-3 font-bold text-brand [overflow-wrap:normal]"
                     aria-label={t("removeEntry", { what: t(e.kind === "in" ? "drinkEntry" : "bagEntry", { ml: e.volumeMl }), time: time(e.at) })}
                   >
                     {t("remove")}
@@ -256,7 +256,7 @@ function CustomAmount({ kind, onAdd, disabled }: { kind: "in" | "out"; onAdd: (m
           className="min-h-14 w-32 rounded-lg border-2 border-stone-line bg-paper-raised px-3 text-xl tabular"
           {...register("volumeMl")}
         />
-        <span className="text-lg font-bold">ml</span>
+        <span className="text-lg font-bold">{t("unit")}</span>
         <button type="submit" disabled={disabled} className="min-h-14 min-w-24 rounded-lg bg-brand px-5 text-lg font-bold text-white">
           {t("add")}
         </button>

@@ -9,6 +9,7 @@ import type { FluidBalance } from "@/lib/clinical";
  */
 export function WeekChart({ days }: { days: FluidBalance[] }) {
   const t = useTranslations("Diary.week");
+  const tu = useTranslations("Diary");
   const format = useFormatter();
   const max = Math.max(1000, ...days.flatMap((d) => [d.inMl, d.outMl]));
   const w = 340;
@@ -20,7 +21,7 @@ export function WeekChart({ days }: { days: FluidBalance[] }) {
   const y = (ml: number) => base - ((base - top) * ml) / max;
   const label = (d: string) => format.dateTime(new Date(`${d}T12:00:00Z`), { weekday: "short", timeZone: "UTC" });
   const longLabel = (d: string) => format.dateTime(new Date(`${d}T12:00:00Z`), { weekday: "long", day: "numeric", month: "long", timeZone: "UTC" });
-  const ml = (n: number) => `${format.number(n)} ml`;
+  const ml = (n: number) => tu("amount", { ml: format.number(n) });
 
   return (
     <figure className="flex flex-col gap-3">

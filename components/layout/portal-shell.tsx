@@ -11,7 +11,7 @@ import { PortalNav } from "./portal-nav";
 export async function PortalShell({ children }: { children: ReactNode }) {
   const t = await getTranslations("Portal");
   return (
-    <div className="flex min-h-dvh flex-col text-body hyphens-auto [overflow-wrap:anywhere]">
+    <div className="flex min-h-dvh flex-col text-body hyphens-auto [overflow-wrap:anywhere] max-[22em]:[&_.rounded-card]:p-3">
       <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:start-2 focus:top-2 focus:z-20 focus:bg-paper-raised focus:p-3">
         {t("skip")}
       </a>
@@ -31,7 +31,7 @@ export async function PortalShell({ children }: { children: ReactNode }) {
           </Link>
         </div>
       </header>
-      <main id="main" className="mx-auto w-full max-w-xl flex-1 px-4 pb-36 pt-5 max-[22em]:pb-8">
+      <main id="main" className="mx-auto w-full max-w-xl flex-1 px-4 pb-36 pt-5 max-[22em]:px-2 max-[22em]:pb-8">
         {children}
       </main>
       <PortalNav />

@@ -11,6 +11,14 @@ export function RemoveCarerButton({ patientId, linkId, name }: { patientId: stri
   const [asking, setAsking] = useState(false);
   const [busy, setBusy] = useState(false);
   const [error, setError] = useState(false);
+  const [removed, setRemoved] = useState(false);
+  if (removed) {
+    return (
+      <p role="status" className="font-bold" data-testid="carer-removed">
+        {t("done", { name })}
+      </p>
+    );
+  }
   if (!asking) {
     return (
       <Button variant="secondary" className="w-full" onClick={() => setAsking(true)} data-testid="remove-carer">
@@ -32,6 +40,7 @@ export function RemoveCarerButton({ patientId, linkId, name }: { patientId: stri
           const res = await fetch(`/api/patients/${patientId}/carers/${linkId}`, { method: "DELETE" });
           setBusy(false);
           if (!res.ok && res.status !== 404) return setError(true);
+          setRemoved(true);
           router.refresh();
         }}
       >

@@ -15,7 +15,13 @@ export function telHref(phone: string) {
  * "01632 960 210" is not shown as "210 960 01632" in Arabic or Urdu.
  */
 export function ltr(text: string) {
-  return `\u2066${text}\u2069`;
+  // No-break spaces: the number wraps as one piece when the text is large.
+  return `\u2066${text.replace(/ /g, "\u00a0")}\u2069`;
+}
+
+/** A name in its own direction (first strong character) inside the other language's text. */
+export function isolate(text: string) {
+  return `\u2068${text}\u2069`;
 }
 
 /**
@@ -43,7 +49,7 @@ export function CallButtons({ contacts, emergencyFirst = true, showEmergency = t
     o.phone ? (
       <a key={`${o.name}-day`} href={telHref(o.phone)} className="flex min-h-14 items-center gap-3 rounded-lg border-2 border-brand bg-paper-raised px-4 py-2 font-bold text-brand" data-testid="call-team">
         <PhoneIcon className="h-7 w-7 shrink-0" />
-        <span>{t("team", { team: o.name, number: ltr(o.phone) })}</span>
+        <span>{t("team", { team: isolate(o.name), number: ltr(o.phone) })}</span>
       </a>
     ) : null,
     o.outOfHoursPhone ? (

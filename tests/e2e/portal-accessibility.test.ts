@@ -6,7 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { LEARN_PAGES } from "@/lib/learn";
 import { demo } from "../support/http";
 import { launch, screenshot, signInAs } from "./support/browser";
-import { closeDatabase, overflowProblems, phonePage, runCheckIn, screenshotAtTextSize, seriousViolations, setTextSize, smallTargets } from "./support/portal";
+import { closeDatabase, overflowProblems, patientIdByHrn, phonePage, runCheckIn, screenshotAtTextSize, seriousViolations, setTextSize, smallTargets } from "./support/portal";
 
 let browser: Browser;
 beforeAll(async () => {
@@ -22,6 +22,20 @@ const publicPages = ["/activate", "/carer-invite/not-a-real-invitation-token-000
 
 const shotName = (path: string, locale: string, suffix = "") => `portal${path.replace(/\//g, "-").replace(/-not-a-real.*/, "-invalid")}-${locale}${suffix}`;
 
+/** A week of drinks and bag emptyings, so the diary's chart and table have something to show. */
+async function fillDiary(page: Page, patientId: string) {
+  const origin = new URL(page.url()).origin;
+  const now = Date.now();
+  for (let day = 6; day >= 0; day--) {
+    for (const [hoursAgo, kind, volumeMl] of [[2, "in", 250], [4, "out", 350], [6, "in", 330], [9, "out", 500], [11, "in", 500]] as const) {
+      const at = new Date(now - day * 86_400_000 - hoursAgo * 3_600_000);
+      if (now - at.getTime() > 6.9 * 86_400_000) continue;
+      const res = await page.request.post("/api/diary", { data: { patientId, kind, volumeMl: volumeMl - day * 10, at: at.toISOString() }, headers: { origin } });
+      expect(res.status()).toBe(201);
+    }
+  }
+}
+
 async function settle(page: Page, path: string) {
   if (path === "/diary") await page.waitForSelector('[data-testid="today-in"]');
   if (path === "/check-in") await page.waitForSelector("[data-question]");
@@ -35,6 +49,7 @@ for (const locale of ["en", "ar"] as const) {
       page = await phonePage(browser);
       const who = locale === "en" ? demo.patient : demo.patientAr;
       await signInAs(page, who.email, who.password, locale);
+      await fillDiary(page, await patientIdByHrn(locale === "en" ? "EM-100-001" : "EM-100-003"));
     });
     afterAll(async () => {
       await page?.context().close();
