@@ -114,3 +114,22 @@ for (const locale of ["en", "ar"] as const) {
     }
   });
 }
+
+describe("installable", () => {
+  it("has a web app manifest with 192 and 512 px icons from the Caddis mark, linked from every page", async () => {
+    const page = await phonePage(browser);
+    await page.goto("/en/sign-in");
+    const href = await page.locator('link[rel="manifest"]').getAttribute("href");
+    expect(href).toBe("/manifest.webmanifest");
+    const manifest = await (await page.request.get(href!)).json();
+    expect(manifest.display).toBe("standalone");
+    const sizes = manifest.icons.map((i: { sizes: string }) => i.sizes);
+    expect(sizes).toEqual(expect.arrayContaining(["192x192", "512x512"]));
+    for (const icon of manifest.icons as { src: string; type: string }[]) {
+      const res = await page.request.get(icon.src);
+      expect(res.status(), icon.src).toBe(200);
+      expect(res.headers()["content-type"]).toContain(icon.type.split("+")[0]);
+    }
+    await page.context().close();
+  });
+});
