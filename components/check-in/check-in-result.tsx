@@ -80,7 +80,8 @@ export function CheckInResult({ patientId, route, answers, idempotencyKey, conta
       <Link href="/today" className="flex min-h-14 items-center justify-center rounded-lg bg-brand px-4 text-xl font-bold text-white">
         {t("result.done")}
       </Link>
-      <SafetyNotice contacts={contacts} />
+      {/* The numbers are under "Who to call" above. */}
+      <SafetyNotice contacts={contacts} withNumbers={false} />
     </section>
   );
 }

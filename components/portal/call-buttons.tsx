@@ -64,7 +64,7 @@ export function CallButtons({ contacts, emergencyFirst = true, showEmergency = t
 }
 
 /** Every guidance page and result: general information, not a diagnosis, and who to call. */
-export function SafetyNotice({ contacts }: { contacts: Contacts }) {
+export function SafetyNotice({ contacts, withNumbers = true }: { contacts: Contacts; withNumbers?: boolean }) {
   const t = useTranslations("Portal.safety");
   return (
     <aside aria-labelledby="safety-title" className="flex flex-col gap-3 rounded-card border-2 border-stone-line bg-paper-sunk p-4" data-testid="safety-notice">
@@ -72,7 +72,7 @@ export function SafetyNotice({ contacts }: { contacts: Contacts }) {
         {t("title")}
       </h2>
       <p>{t("body")}</p>
-      <CallButtons contacts={contacts} />
+      {withNumbers ? <CallButtons contacts={contacts} /> : null}
     </aside>
   );
 }
