@@ -133,6 +133,7 @@ export const carerLinks = pgTable(
     invitedEmail: text("invited_email").notNull(),
     invitedByUserId: text("invited_by_user_id").references(() => user.id, { onDelete: "set null" }),
     inviteTokenHash: text("invite_token_hash").unique(),
+    inviteExpiresAt: timestamp("invite_expires_at", { withTimezone: true }),
     status: text("status", { enum: ["pending", "active", "revoked"] }).notNull().default("pending"),
     acceptedAt: timestamp("accepted_at", { withTimezone: true }),
     revokedAt: timestamp("revoked_at", { withTimezone: true }),
@@ -296,6 +297,8 @@ export const checkIns = pgTable(
     level: text("level", { enum: checkInLevels }).notNull(),
     ruleIds: text("rule_ids").array().notNull(),
     idempotencyKey: text("idempotency_key").notNull().unique(),
+    // When the person answered, as the phone tells it (an offline check-in arrives later).
+    answeredAt: timestamp("answered_at", { withTimezone: true }),
     reviewedAt: timestamp("reviewed_at", { withTimezone: true }),
     reviewedByUserId: text("reviewed_by_user_id").references(() => user.id, { onDelete: "set null" }),
     ...timestamps,
@@ -486,6 +489,61 @@ export const settings = pgTable("settings", {
   ...timestamps,
 });
 
+// One-time codes a clinician gives a patient to open their portal account. Only an HMAC of the
+// code is kept; a code is used once, expires, and a newer code for the same patient revokes it.
+export const patientInvites = pgTable(
+  "patient_invites",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    patientId: uuid("patient_id")
+      .notNull()
+      .references(() => patients.id, { onDelete: "cascade" }),
+    codeHash: text("code_hash").notNull().unique(),
+    // When given, the patient must activate with this address.
+    email: text("email"),
+    createdByUserId: text("created_by_user_id").references(() => user.id, { onDelete: "set null" }),
+    expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
+    usedAt: timestamp("used_at", { withTimezone: true }),
+    revokedAt: timestamp("revoked_at", { withTimezone: true }),
+    ...timestamps,
+  },
+  (t) => [
+    index("patient_invites_patient_idx").on(t.patientId),
+    uniqueIndex("patient_invites_one_live_uq").on(t.patientId).where(sql`${t.usedAt} is null and ${t.revokedAt} is null`),
+  ],
+);
+
+export const bagKinds = ["leg-bag", "valve"] as const;
+
+// "I changed my leg bag / valve today", logged by the patient or carer; the next change is
+// worked out by lib/clinical nextBagChange from the latest row of each kind.
+export const bagChanges = pgTable(
+  "bag_changes",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    patientId: uuid("patient_id")
+      .notNull()
+      .references(() => patients.id, { onDelete: "cascade" }),
+    kind: text("kind", { enum: bagKinds }).notNull(),
+    changedOn: date("changed_on").notNull(),
+    recordedByUserId: text("recorded_by_user_id").references(() => user.id, { onDelete: "set null" }),
+    ...timestamps,
+  },
+  (t) => [index("bag_changes_patient_idx").on(t.patientId, t.kind, t.changedOn)],
+);
+
+// Fixed-window attempt counters for our own endpoints (activation codes, carer invitations),
+// in PostgreSQL so limits hold across app instances. better-auth's rate_limit is its own.
+export const attemptCounters = pgTable(
+  "attempt_counters",
+  {
+    key: text("key").primaryKey(),
+    count: integer("count").notNull(),
+    windowStartedAt: timestamp("window_started_at", { withTimezone: true }).notNull(),
+  },
+  (t) => [index("attempt_counters_window_idx").on(t.windowStartedAt), check("attempt_counters_count_ck", sql`${t.count} >= 0`)],
+);
+
 export type Organisation = typeof organisations.$inferSelect;
 export type NewOrganisation = typeof organisations.$inferInsert;
 export type Membership = typeof memberships.$inferSelect;
@@ -507,3 +565,5 @@ export type NewSupplyRequest = typeof supplyRequests.$inferInsert;
 export type AuditEvent = typeof auditEvents.$inferSelect;
 export type NewAuditEvent = typeof auditEvents.$inferInsert;
 export type VisitAccess = typeof visitAccess.$inferSelect;
+export type PatientInvite = typeof patientInvites.$inferSelect;
+export type BagChange = typeof bagChanges.$inferSelect;
