@@ -12,6 +12,8 @@ const schema = z.object({
   MAIL_FROM: z.string().min(3).default("Caddis <no-reply@caddis.invalid>"),
   MAIL_INBOX_URL: z.url().default("http://127.0.0.1:1080"),
   S3_ENDPOINT: z.url().default("http://127.0.0.1:4569"),
+  // Address browsers use for presigned uploads, when it differs from S3_ENDPOINT.
+  S3_PUBLIC_ENDPOINT: z.preprocess((v) => (v === "" ? undefined : v), z.url().optional()),
   S3_REGION: z.string().default("us-east-1"),
   S3_BUCKET: z.string().default("caddis-uploads"),
   S3_ACCESS_KEY_ID: z.string().default("S3RVER"),
