@@ -112,12 +112,26 @@ const styles = StyleSheet.create({
   value: { fontSize: 11.5, fontWeight: 700 },
   columns: { flexDirection: "row", gap: 14 },
   column: { flex: 1 },
-  section: { marginTop: 10 },
+  section: { marginTop: 8 },
   box: { borderWidth: 1, borderColor: colour.faint, borderRadius: 6, padding: 10 },
   footer: { position: "absolute", bottom: 18, left: 26, right: 26, borderTopWidth: 0.5, borderTopColor: colour.faint, paddingTop: 4 },
 });
 
 const LRM = "\u200E";
+// Latin and Latin Extended glyphs come from two subset files, so "każdej" is two font runs, and
+// react-pdf offers a hyphenation break between runs. The line breaker's infinity forbids it.
+const NO_BREAK = 10000;
+
+/**
+ * react-pdf 4.9 slices a glyph run from the last glyph of its first character, so an Arabic run
+ * that begins with a dotted letter (drawn as a base glyph plus a dot mark in Noto Sans Arabic)
+ * loses the base glyph and is measured too narrow, and wrapped lines overflow. Every Arabic
+ * run begins after a space or Latin text (a different font), so we start each one with U+061C
+ * ARABIC LETTER MARK: zero width, right-to-left, and in the Arabic font's own run.
+ */
+export function arabicRunSafe(text: string): string {
+  return text.replace(/(^|[^\u0600-\u06FF])(?=[\u0600-\u06FF])/g, "$1\u061C");
+}
 
 /** Latin letters and digits inside a right-to-left line stay one left-to-right run. */
 function iso(s: PdfStrings, value: string) {
@@ -131,7 +145,15 @@ function dir(s: PdfStrings) {
 
 function T({ s, style, children }: { s: PdfStrings; style?: object | object[]; children: ReactNode }) {
   const extra = Array.isArray(style) ? style : style ? [style] : [];
-  return <Text style={[dir(s), { lineHeight: 1.35 }, ...extra, ...(s.rtl ? [{ fontSize: bigger(extra) }] : [])]}>{children}</Text>;
+  return (
+    <Text
+      hyphenationPenalty={NO_BREAK}
+      // Arabic script is taller: more leading, one step larger (visual.md).
+      style={[dir(s), { lineHeight: 1.35 }, ...extra, ...(s.rtl ? [{ fontSize: bigger(extra), lineHeight: 1.5 }] : [])]}
+    >
+      {s.rtl && typeof children === "string" ? arabicRunSafe(children) : children}
+    </Text>
+  );
 }
 
 function bigger(styleList: object[]): number {
@@ -188,7 +210,10 @@ function Footer({ all }: { all: PdfStrings[] }) {
       ))}
       <Text
         style={[dir(first), { fontSize: 7.5, color: colour.inkSoft }]}
-        render={({ pageNumber, totalPages }) => first.t("page", { page: iso(first, String(pageNumber)), total: iso(first, String(totalPages)) })}
+        render={({ pageNumber, totalPages }) => {
+          const text = first.t("page", { page: iso(first, String(pageNumber)), total: iso(first, String(totalPages)) });
+          return first.rtl ? arabicRunSafe(text) : text;
+        }}
       />
     </View>
   );
@@ -218,17 +243,15 @@ function AllergyBox({ all, data }: { all: PdfStrings[]; data: PassportBookletDat
           const items = allergyList(s, data.patient.allergies);
           return (
             <View>
-              <T s={s} style={{ fontSize: 13, fontWeight: 700, color: any ? colour.emergency : colour.ink }}>
+              <T s={s} style={{ fontSize: 11, fontWeight: 700, color: any ? colour.emergency : colour.ink }}>
                 {s.t("allergiesTitle")}
               </T>
               {items.length ? (
                 <>
-                  {items.map((item) => (
-                    <T key={item} s={s} style={{ fontSize: 13, fontWeight: 700 }}>
-                      {item}
-                    </T>
-                  ))}
-                  <T s={s} style={{ fontSize: 9.5 }}>
+                  <T s={s} style={{ fontSize: 13, fontWeight: 700 }}>
+                    {items.join(s.rtl ? "، " : ", ")}
+                  </T>
+                  <T s={s} style={{ fontSize: 8.5 }}>
                     {s.t("allergyCheck")}
                   </T>
                 </>
@@ -246,9 +269,10 @@ function AllergyBox({ all, data }: { all: PdfStrings[]; data: PassportBookletDat
 function Cover({ all, data }: { all: PdfStrings[]; data: PassportBookletData }) {
   const first = all[0];
   const p = data.patient;
+  const row = first.rtl ? "row-reverse" : "row";
   return (
     <Page size="A5" style={styles.page}>
-      <View style={[styles.brandRow, { flexDirection: first.rtl ? "row-reverse" : "row" }]}>
+      <View style={[styles.brandRow, { flexDirection: row }]}>
         <Mark />
         <Text style={styles.brandName}>Caddis</Text>
       </View>
@@ -257,16 +281,16 @@ function Cover({ all, data }: { all: PdfStrings[]; data: PassportBookletData }) 
           {s.t("title")}
         </T>
       ))}
-      <View style={{ marginTop: 6 }}>
-        <Columns all={all}>{(s) => <T s={s} style={{ fontSize: 10 }}>{s.t("carry")}</T>}</Columns>
+      <View style={{ marginTop: 4 }}>
+        <Columns all={all}>{(s) => <T s={s} style={{ fontSize: 9.5 }}>{s.t("carry")}</T>}</Columns>
       </View>
 
-      <View style={[styles.section, styles.box, { borderColor: colour.brand }]}>
+      <View style={[styles.section, styles.box, { borderColor: colour.brand, paddingVertical: 7 }]}>
         <DualLabel all={all} k={(s) => s.t("name")} />
         <T s={first} style={{ fontSize: 18, fontWeight: 700 }}>
           {`${p.givenName} ${p.familyName}`}
         </T>
-        <View style={{ flexDirection: first.rtl ? "row-reverse" : "row", gap: 18, marginTop: 4 }}>
+        <View style={{ flexDirection: row, gap: 18, marginTop: 2 }}>
           <View>
             <DualLabel all={all} k={(s) => s.t("dateOfBirth")} />
             <T s={first} style={styles.value}>
@@ -282,28 +306,26 @@ function Cover({ all, data }: { all: PdfStrings[]; data: PassportBookletData }) 
         </View>
       </View>
 
-      <View style={[styles.section, { alignItems: "center" }]} wrap={false}>
-        <Image src={data.qrPngDataUrl} style={{ width: 128, height: 128 }} />
-        <DualLabel all={all} k={(s) => s.t("code")} />
-        <Text style={{ fontSize: 20, fontWeight: 700, letterSpacing: 1.5, marginTop: 1 }}>{data.shortCode}</Text>
-        <T s={first} style={[styles.small, { textAlign: "center" }]}>
-          {`${first.t("issued")} ${first.moment(data.issuedAt)} · ${first.t("issuedBy")} ${iso(first, data.issuedByName)}`}
-        </T>
-      </View>
-      <View style={{ marginTop: 6 }}>
-        <Columns all={all}>
-          {(s) => (
-            <View>
-              <T s={s} style={{ fontSize: 10.5, fontWeight: 700 }}>
+      <View style={[styles.section, { flexDirection: row, gap: 12, alignItems: "center" }]} wrap={false}>
+        <Image src={data.qrPngDataUrl} style={{ width: 118, height: 118 }} />
+        <View style={{ flex: 1 }}>
+          <DualLabel all={all} k={(s) => s.t("code")} />
+          <Text style={[dir(first), { fontSize: 19, fontWeight: 700, letterSpacing: 1 }]}>{iso(first, data.shortCode)}</Text>
+          {all.map((s, i) => (
+            <View key={s.locale} style={{ marginTop: i === 0 ? 3 : 2 }}>
+              <T s={s} style={{ fontSize: 9.5, fontWeight: 700 }}>
                 {s.t("scanTitle")}
               </T>
-              <T s={s} style={{ fontSize: 9 }}>
+              <T s={s} style={{ fontSize: 8, color: colour.inkSoft }}>
                 {s.t("scanHint")}
               </T>
             </View>
-          )}
-        </Columns>
+          ))}
+        </View>
       </View>
+      <T s={first} style={[styles.small, { marginTop: 2 }]}>
+        {`${first.t("issued")} ${first.moment(data.issuedAt)} · ${first.t("issuedBy")} ${iso(first, data.issuedByName)}`}
+      </T>
 
       <View style={styles.section}>
         <AllergyBox all={all} data={data} />
@@ -313,15 +335,69 @@ function Cover({ all, data }: { all: PdfStrings[]; data: PassportBookletData }) 
   );
 }
 
-function Fact({ s, label, value }: { s: PdfStrings; label: string; value: string }) {
+type FactRow = {
+  /** One label per language, patient's language first. */
+  labels: string[];
+  /** One value per language; shown once when every language writes it the same way. */
+  values: string[];
+  /** A language-neutral line under the value (a team's name). */
+  note?: string;
+  big?: boolean;
+};
+
+/** Label and value rows, each label in every language beside its value. */
+function FactTable({ all, rows }: { all: PdfStrings[]; rows: FactRow[] }) {
+  const first = all[0];
+  const row = first.rtl ? "row-reverse" : "row";
   return (
-    <View style={{ marginBottom: 3 }} wrap={false}>
-      <T s={s} style={styles.label}>
-        {label}
-      </T>
-      <T s={s} style={styles.value}>
-        {value}
-      </T>
+    <View>
+      {rows.map((r, index) => {
+        const strip = (v: string) => v.replaceAll(LRM, "");
+        const distinct = r.values.filter((v, i) => i === 0 || strip(v) !== strip(r.values[0]));
+        return (
+          <View
+            key={index}
+            wrap={false}
+            style={{ flexDirection: row, borderBottomWidth: 0.5, borderBottomColor: colour.faint, paddingVertical: 1 }}
+          >
+            <View style={{ width: "38%", paddingHorizontal: 2 }}>
+              {r.labels.map((label, i) => (
+                <T
+                  key={i}
+                  s={all[i]}
+                  style={
+                    i === 0
+                      ? { fontSize: 9, color: colour.ink }
+                      : { fontSize: 8, color: colour.inkSoft, ...(first.rtl ? { textAlign: "right" } : {}) }
+                  }
+                >
+                  {label}
+                </T>
+              ))}
+            </View>
+            <View style={{ width: "62%", paddingHorizontal: 2 }}>
+              {distinct.map((v, i) => (
+                <T
+                  key={i}
+                  s={all[r.values.indexOf(v)]}
+                  style={
+                    i === 0
+                      ? { fontSize: r.big ? 12.5 : 11, fontWeight: 700 }
+                      : { fontSize: 9, color: colour.inkSoft, ...(first.rtl ? { textAlign: "right" } : {}) }
+                  }
+                >
+                  {v}
+                </T>
+              ))}
+              {r.note ? (
+                <T s={first} style={{ fontSize: 8.5, color: colour.inkSoft }}>
+                  {iso(first, r.note)}
+                </T>
+              ) : null}
+            </View>
+          </View>
+        );
+      })}
     </View>
   );
 }
@@ -340,29 +416,34 @@ function SectionTitle({ all, k }: { all: PdfStrings[]; k: (s: PdfStrings) => str
   );
 }
 
-function deviceFacts(s: PdfStrings, d: BookletDevice): { label: string; value: string }[] {
-  const rows = [
-    { label: s.t("route"), value: s.t(`routes.${d.route}`) },
-    { label: s.t("catheterType"), value: s.t(`catheterTypes.${d.catheterType}`) },
-    { label: s.t("material"), value: s.t(`materials.${d.material}`) },
-    { label: s.t("length"), value: s.t(`lengths.${d.lengthCategory}`) },
-    { label: s.t("size"), value: s.t("sizeValue", { ch: iso(s, String(d.sizeCh)), mm: iso(s, s.number(d.sizeMm)) }) },
-    { label: s.t("balloon"), value: s.t("balloonValue", { ml: iso(s, String(d.balloonMl)) }) },
-    { label: s.t("maker"), value: d.maker ? iso(s, [d.maker, d.productName].filter(Boolean).join(" · ")) : "—" },
-    { label: s.t("lot"), value: d.lot ? iso(s, d.lot) : "—" },
-    { label: s.t("expiry"), value: s.day(d.expiry) },
-    { label: s.t("insertedOn"), value: s.moment(d.insertedAt) },
+function deviceRows(all: PdfStrings[], d: BookletDevice): FactRow[] {
+  const each = (f: (s: PdfStrings) => string) => all.map(f);
+  const row = (label: (s: PdfStrings) => string, value: (s: PdfStrings) => string): FactRow => ({
+    labels: each(label),
+    values: each(value),
+  });
+  return [
+    row((s) => s.t("route"), (s) => s.t(`routes.${d.route}`)),
+    row((s) => s.t("catheterType"), (s) => s.t(`catheterTypes.${d.catheterType}`)),
+    row((s) => s.t("material"), (s) => s.t(`materials.${d.material}`)),
+    row((s) => s.t("length"), (s) => s.t(`lengths.${d.lengthCategory}`)),
     {
-      label: s.t("insertedBy"),
-      value: iso(s, [d.insertedByName, d.organisationName].filter(Boolean).join(", ")),
+      ...row((s) => s.t("size"), (s) => s.t("sizeValue", { ch: iso(s, String(d.sizeCh)), mm: iso(s, s.number(d.sizeMm)) })),
+      big: true,
     },
-    { label: s.t("indication"), value: d.indication },
+    { ...row((s) => s.t("balloon"), (s) => s.t("balloonValue", { ml: iso(s, String(d.balloonMl)) })), big: true },
+    // Maker and lot on one row: they are read together (a recall names both).
+    row(
+      (s) => `${s.t("maker")} · ${s.t("lot")}`,
+      (s) => `${d.maker ? iso(s, [d.maker, d.productName].filter(Boolean).join(" ")) : "—"} · ${d.lot ? iso(s, d.lot) : "—"}`,
+    ),
+    row((s) => s.t("expiry"), (s) => s.day(d.expiry)),
+    {
+      ...row((s) => s.t("insertedOn"), (s) => s.moment(d.insertedAt)),
+      note: [d.insertedByName, d.organisationName].filter(Boolean).join(", "),
+    },
+    row((s) => s.t("indication"), () => d.indication),
   ];
-  return rows;
-}
-
-function phoneLine(s: PdfStrings, phone: string | null) {
-  return phone ? iso(s, phone) : s.t("noPhone");
 }
 
 function DevicePage({ all, data }: { all: PdfStrings[]; data: PassportBookletData }) {
@@ -372,104 +453,113 @@ function DevicePage({ all, data }: { all: PdfStrings[]; data: PassportBookletDat
       <SectionTitle all={all} k={(s) => s.t("deviceTitle")} />
       {d ? (
         <>
-          <View style={[styles.box, { marginBottom: 10 }, { backgroundColor: colour.brandSoft, borderColor: colour.brand }]} wrap={false}>
-            <Columns all={all}>
-              {(s) => (
-                <View>
-                  <T s={s} style={{ fontSize: 13, fontWeight: 700, color: colour.brand }}>
-                    {s.t("datesTitle")}
-                  </T>
-                  <T s={s} style={styles.label}>
-                    {s.t("nextChange")}
-                  </T>
-                  <T s={s} style={{ fontSize: 15, fontWeight: 700 }}>
-                    {s.day(d.plannedChangeOn)}
-                  </T>
-                  <T s={s} style={styles.label}>
-                    {s.t("reviewDue")}
-                  </T>
-                  <T s={s} style={{ fontSize: 15, fontWeight: 700 }}>
-                    {s.day(d.reviewDueOn)}
-                  </T>
-                  <T s={s} style={{ fontSize: 8.5, marginTop: 4 }}>
-                    {s.t("datesNote")}
-                  </T>
+          <View style={[styles.box, { backgroundColor: colour.brandSoft, borderColor: colour.brand, marginBottom: 6, paddingVertical: 5 }]} wrap={false}>
+            <DualLabel all={all} k={(s) => s.t("datesTitle")} style={{ fontSize: 9, fontWeight: 700, color: colour.brand }} />
+            <View style={{ flexDirection: all[0].rtl ? "row-reverse" : "row", gap: 12 }}>
+              {([
+                ["nextChange", d.plannedChangeOn],
+                ["reviewDue", d.reviewDueOn],
+              ] as const).map(([key, date]) => (
+                <View key={key} style={{ flex: 1 }}>
+                  {all.map((s, i) => (
+                    <View key={s.locale}>
+                      <T s={s} style={styles.label}>
+                        {s.t(key)}
+                      </T>
+                      <T s={s} style={i === 0 ? { fontSize: 14, fontWeight: 700 } : { fontSize: 10, fontWeight: 700, color: colour.inkSoft }}>
+                        {s.day(date)}
+                      </T>
+                    </View>
+                  ))}
                 </View>
-              )}
-            </Columns>
+              ))}
+            </View>
+            <View style={{ marginTop: 2 }}>
+              <Columns all={all}>{(s) => <T s={s} style={{ fontSize: 7.5 }}>{s.t("datesNote")}</T>}</Columns>
+            </View>
           </View>
-          <Columns all={all}>
-            {(s) => (
-              <View>
-                {deviceFacts(s, d).map((f) => (
-                  <Fact key={f.label} s={s} label={f.label} value={f.value} />
-                ))}
-              </View>
-            )}
-          </Columns>
+          <FactTable all={all} rows={deviceRows(all, d)} />
         </>
       ) : (
         <Columns all={all}>{(s) => <T s={s} style={{ fontSize: 13 }}>{s.t("noDevice")}</T>}</Columns>
       )}
-
       <Footer all={all} />
     </Page>
   );
 }
 
-function HelpPage({ all, data }: { all: PdfStrings[]; data: PassportBookletData }) {
+/** One page per language, facing each other in the folded booklet: room for big type. */
+function HelpPage({ s, all, data }: { s: PdfStrings; all: PdfStrings[]; data: PassportBookletData }) {
   const c = data.contacts;
   const team = c.careTeams.find((t) => t.phone) ?? null;
   const ooh = c.careTeams.find((t) => t.outOfHoursPhone)?.outOfHoursPhone ?? null;
-  const bullet = (s: PdfStrings, text: string) => (
-    <T key={text} s={s} style={{ fontSize: 10, marginBottom: 1.5 }}>
+  const bullet = (text: string) => (
+    <T key={text} s={s} style={{ fontSize: 11, marginBottom: 1.5 }}>
       {`•  ${text}`}
     </T>
   );
   return (
     <Page size="A5" style={styles.page} wrap>
-      <SectionTitle all={all} k={(s) => s.t("helpTitle")} />
-      <Columns all={all}>{(s) => <T s={s} style={{ fontWeight: 700 }}>{s.t("helpGeneral")}</T>}</Columns>
+      <View style={{ marginBottom: 6, borderBottomWidth: 1.5, borderBottomColor: colour.brand, paddingBottom: 3 }}>
+        <T s={s} style={styles.h2}>
+          {s.t("helpTitle")}
+        </T>
+      </View>
+      <T s={s} style={{ fontWeight: 700, fontSize: 11.5 }}>
+        {s.t("helpGeneral")}
+      </T>
       <View style={[styles.section, styles.box, { borderWidth: 2.5, borderColor: colour.emergency }]} wrap={false}>
-        <Columns all={all}>
-          {(s) => (
-            <View>
-              <T s={s} style={{ fontSize: 13, fontWeight: 700, color: colour.emergency }}>
-                {s.t("emergencyIntro", { number: iso(s, c.emergencyNumber) })}
-              </T>
-              {(["emergency1", "emergency2", "emergency3", "emergency4"] as const).map((k) => bullet(s, s.t(k)))}
-            </View>
-          )}
-        </Columns>
+        <T s={s} style={{ fontSize: 14, fontWeight: 700, color: colour.emergency }}>
+          {s.t("emergencyIntro", { number: iso(s, c.emergencyNumber) })}
+        </T>
+        {(["emergency1", "emergency2", "emergency3", "emergency4"] as const).map((k) => bullet(s.t(k)))}
       </View>
       <View style={[styles.section, styles.box, { borderWidth: 2, borderColor: colour.urgent }]} wrap={false}>
-        <Columns all={all}>
-          {(s) => (
-            <View>
-              <T s={s} style={{ fontSize: 12, fontWeight: 700, color: colour.urgent }}>
-                {s.t("urgentIntro")}
-              </T>
-              {team ? (
-                <T s={s} style={{ fontSize: 11, fontWeight: 700 }}>
-                  {`${s.t("careTeam")}: ${iso(s, team.phone!)}`}
-                </T>
-              ) : null}
-              {ooh ? (
-                <T s={s} style={{ fontSize: 11, fontWeight: 700 }}>
-                  {`${s.t("outOfHours")}: ${iso(s, ooh)}`}
-                </T>
-              ) : null}
-              {(["urgent1", "urgent2", "urgent3", "urgent4", "urgent5"] as const).map((k) => bullet(s, s.t(k)))}
-            </View>
-          )}
-        </Columns>
+        <T s={s} style={{ fontSize: 13, fontWeight: 700, color: colour.urgent }}>
+          {s.t("urgentIntro")}
+        </T>
+        {team ? (
+          <T s={s} style={{ fontSize: 12, fontWeight: 700 }}>
+            {`${s.t("careTeam")}: ${iso(s, team.phone!)}`}
+          </T>
+        ) : null}
+        {ooh ? (
+          <T s={s} style={{ fontSize: 12, fontWeight: 700 }}>
+            {`${s.t("outOfHours")}: ${iso(s, ooh)}`}
+          </T>
+        ) : null}
+        {(["urgent1", "urgent2", "urgent3", "urgent4", "urgent5"] as const).map((k) => bullet(s.t(k)))}
       </View>
       <View style={styles.section} wrap={false}>
-        <Columns all={all}>{(s) => <T s={s} style={{ fontSize: 10.5 }}>{s.t("selfCare")}</T>}</Columns>
+        <T s={s} style={{ fontSize: 11 }}>
+          {s.t("selfCare")}
+        </T>
       </View>
       <Footer all={all} />
     </Page>
   );
+}
+
+function contactRows(all: PdfStrings[], c: PassportBookletData["contacts"]): FactRow[] {
+  const each = (f: (s: PdfStrings) => string) => all.map(f);
+  const rows: FactRow[] = [{ labels: each((s) => s.t("emergency")), values: each((s) => iso(s, c.emergencyNumber)), big: true }];
+  for (const team of c.careTeams) {
+    rows.push({ labels: each((s) => s.t("careTeam")), values: each((s) => phoneLine(s, team.phone)), note: team.name, big: true });
+    if (team.outOfHoursPhone) {
+      rows.push({
+        labels: each((s) => s.t("outOfHours")),
+        values: each((s) => iso(s, team.outOfHoursPhone!)),
+        note: c.outOfHoursServiceName ?? undefined,
+        big: true,
+      });
+    }
+  }
+  if (c.gp) rows.push({ labels: each((s) => s.t("gp")), values: each((s) => phoneLine(s, c.gp!.phone)), note: c.gp.name });
+  return rows;
+}
+
+function phoneLine(s: PdfStrings, phone: string | null) {
+  return phone ? iso(s, phone) : s.t("noPhone");
 }
 
 function eventWhat(s: PdfStrings, e: BookletEvent): string {
@@ -484,7 +574,7 @@ function eventDetails(s: PdfStrings, e: BookletEvent): string {
   if (e.sizeCh) parts.push(iso(s, `${e.sizeCh} Ch`));
   if (e.material) parts.push(s.t(`materials.${e.material}`));
   if (e.lot) parts.push(`${s.t("lot")} ${iso(s, e.lot)}`);
-  return parts.join(", ") || "—";
+  return parts.join(s.rtl ? "، " : ", ") || "—";
 }
 
 function ContactsAndHistoryPage({ all, data }: { all: PdfStrings[]; data: PassportBookletData }) {
@@ -495,29 +585,8 @@ function ContactsAndHistoryPage({ all, data }: { all: PdfStrings[]; data: Passpo
   const cellPad = { paddingHorizontal: 3 };
   return (
     <Page size="A5" style={styles.page} wrap>
-      <View>
-        <SectionTitle all={all} k={(s) => s.t("contactsTitle")} />
-        <Columns all={all}>
-          {(s) => (
-            <View>
-              <Fact s={s} label={s.t("emergency")} value={iso(s, c.emergencyNumber)} />
-              {c.careTeams.map((team) => (
-                <View key={team.name}>
-                  <Fact s={s} label={`${s.t("careTeam")}: ${iso(s, team.name)}`} value={phoneLine(s, team.phone)} />
-                  {team.outOfHoursPhone ? (
-                    <Fact
-                      s={s}
-                      label={`${s.t("outOfHours")}${c.outOfHoursServiceName ? `: ${iso(s, c.outOfHoursServiceName)}` : ""}`}
-                      value={iso(s, team.outOfHoursPhone)}
-                    />
-                  ) : null}
-                </View>
-              ))}
-              {c.gp ? <Fact s={s} label={`${s.t("gp")}: ${iso(s, c.gp.name)}`} value={phoneLine(s, c.gp.phone)} /> : null}
-            </View>
-          )}
-        </Columns>
-      </View>
+      <SectionTitle all={all} k={(s) => s.t("contactsTitle")} />
+      <FactTable all={all} rows={contactRows(all, c)} />
       <View style={styles.section} minPresenceAhead={80}>
         <SectionTitle all={all} k={(s) => s.t("historyTitle")} />
       </View>
@@ -591,7 +660,9 @@ export function PassportBooklet({ data }: { data: PassportBookletData }) {
     >
       <Cover all={all} data={data} />
       <DevicePage all={all} data={data} />
-      <HelpPage all={all} data={data} />
+      {all.map((s) => (
+        <HelpPage key={s.locale} s={s} all={all} data={data} />
+      ))}
       <ContactsAndHistoryPage all={all} data={data} />
     </Document>
   );
