@@ -5,6 +5,8 @@ const withNextIntl = createNextIntlPlugin("./lib/i18n/request.ts");
 
 const nextConfig: NextConfig = {
   poweredByHeader: false,
+  // The build checks the app's own code; `npm test` type-checks everything, tests included.
+  typescript: { tsconfigPath: "tsconfig.build.json" },
   reactStrictMode: true,
   serverExternalPackages: ["@react-pdf/renderer", "pg", "pg-boss"],
   experimental: {

@@ -41,6 +41,9 @@ async function main() {
   const base: NodeJS.ProcessEnv = { ...process.env, NEXT_TELEMETRY_DISABLED: "1", NODE_OPTIONS: "" };
   let ok = true;
 
+  if (stage === "all") {
+    ok = run(bin("tsc"), ["--noEmit", "-p", "tsconfig.json"], base, "type check (app, scripts and tests)") && ok;
+  }
   if (stage === "all" || stage === "unit") {
     ok = run(bin("vitest"), ["run", "--project", "unit", ...(stage === "all" ? ["--coverage"] : [])], { ...base, NODE_ENV: "test" }, "unit tests") && ok;
   }
@@ -79,7 +82,14 @@ async function main() {
       });
       try {
         await waitForHttp(`${appUrl}/en/sign-in`, 60);
-        ok = run(bin("vitest"), ["run", "--project", "e2e"], { ...env, NODE_ENV: "test", E2E_BASE_URL: appUrl }, "end-to-end tests") && ok;
+        ok =
+          run(
+            bin("vitest"),
+            ["run", "--project", "e2e"],
+            // The second-instance test starts another server with the same settings.
+            { ...env, NODE_ENV: "test", E2E_BASE_URL: appUrl, E2E_APP_SECRET: appEnv.BETTER_AUTH_SECRET },
+            "end-to-end tests",
+          ) && ok;
       } finally {
         server.kill("SIGTERM");
       }

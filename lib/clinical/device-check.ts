@@ -27,28 +27,30 @@ export interface Finding {
   source: SourceId;
 }
 
-export type FindingCode =
-  | "device-expired"
-  | "device-expiring-soon"
-  | "expiry-missing"
-  | "lot-missing"
-  | "gtin-invalid"
-  | "latex-allergy"
-  | "latex-allergy-unknown"
-  | "chlorhexidine-allergy"
-  | "chlorhexidine-allergy-unknown"
-  | "chlorhexidine-check-catheter"
-  | "lidocaine-allergy"
-  | "lidocaine-allergy-unknown"
-  | "female-length-male"
-  | "female-length-sex-unknown"
-  | "female-length-suprapubic"
-  | "paediatric-patient"
-  | "paediatric-length-adult"
-  | "balloon-differs-from-maker"
-  | "balloon-not-usual-adult"
-  | "size-larger-than-routine"
-  | "dwell-over-12-weeks";
+export const FINDING_CODES = [
+  "device-expired",
+  "device-expiring-soon",
+  "expiry-missing",
+  "lot-missing",
+  "gtin-invalid",
+  "latex-allergy",
+  "latex-allergy-unknown",
+  "chlorhexidine-allergy",
+  "chlorhexidine-allergy-unknown",
+  "chlorhexidine-check-catheter",
+  "lidocaine-allergy",
+  "lidocaine-allergy-unknown",
+  "female-length-male",
+  "female-length-sex-unknown",
+  "female-length-suprapubic",
+  "paediatric-patient",
+  "paediatric-length-adult",
+  "balloon-differs-from-maker",
+  "balloon-not-usual-adult",
+  "size-larger-than-routine",
+  "dwell-over-12-weeks",
+] as const;
+export type FindingCode = (typeof FINDING_CODES)[number];
 
 /** Thresholds for checkDevice, each with its source. */
 export const DEVICE_RULES = {
@@ -130,10 +132,10 @@ export function checkDevice(
       add("warn", "device-expiring-soon", `Expires on ${device.expiry}, within ${warnDays} days.`, "common-practice");
     }
   }
-  if (device.lot === undefined || device.lot.trim() === "") {
+  if (typeof device.lot !== "string" || device.lot.trim() === "") {
     add("info", "lot-missing", "No lot (batch) number recorded.", "eaun-2012-ch12");
   }
-  if (device.gtin !== undefined && device.gtin !== "" && !isValidGtin(device.gtin)) {
+  if (device.gtin !== undefined && device.gtin !== null && device.gtin !== "" && !isValidGtin(device.gtin)) {
     add("warn", "gtin-invalid", "The product number (GTIN) has a wrong check digit: rescan or retype it.", "gs1-genspecs");
   }
 
@@ -194,7 +196,7 @@ export function checkDevice(
       add(severity, "balloon-not-usual-adult", `Balloon ${balloonMl} ml: the usual adult volume is ${usual} ml of sterile water.`, "handbook-balloon-10ml");
     }
     const rule = route === "urethral" ? DEVICE_RULES.routineMaxChUrethral : DEVICE_RULES.routineMaxChSuprapubic;
-    if (sizeCh > rule.value && !(device.largerSizeReason && device.largerSizeReason.trim())) {
+    if (sizeCh > rule.value && !(typeof device.largerSizeReason === "string" && device.largerSizeReason.trim())) {
       add("warn", "size-larger-than-routine", `${sizeCh} Ch is larger than routine (over ${rule.value} Ch): record the reason.`, rule.source);
     }
   }

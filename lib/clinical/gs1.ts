@@ -82,6 +82,7 @@ function findAi(text: string, at: number): string | undefined {
  * YYMMDD → YYYY-MM-DD, or an error message. Day 00 means the last day of the month.
  * Century (GS1 GS 7.12): difference = YY − current YY; ≥ 51 → previous century,
  * ≤ −50 → next century, else this century.
+ * Local policy, the maker's instructions and clinical judgement come first.
  */
 export function gs1Date(yymmdd: string, today?: DateInput): string | { error: string } {
   if (!/^\d{6}$/.test(yymmdd)) return { error: "date must be six digits YYMMDD" };
@@ -142,8 +143,9 @@ function splitElementString(text: string, errors: string[]): Gs1Element[] {
 
 /**
  * Parse a GS1 element string as a scanner types it (FNC1 as ASCII 29, optional symbology
- * prefix) or in the printed bracket form "(01)…(17)…(10)…". Never throws: problems are
- * listed in `errors`, and a field with an error is left out of the result.
+ * prefix) or in the printed bracket form "(01)…(17)…(10)…". Label problems never throw: they
+ * are listed in `errors`, and a field with an error is left out of the result (an invalid
+ * `today` does throw ClinicalInputError).
  * `today` fixes the century window (default: now).
  * Local policy, the maker's instructions and clinical judgement come first.
  */
@@ -156,7 +158,9 @@ export function parseGs1(text: string, today?: DateInput): Gs1Result {
   }
   let body = text.replace(/[\r\n]+$/, "").replace(/^\s+/, "");
   body = body.replace(SYMBOLOGY_PREFIX, "");
-  const elements = body.includes("(") ? splitBracketed(body, errors) : splitElementString(body, errors);
+  // Bracket form only when the text does not start as an element string, so a "(" inside a lot is safe.
+  const bracketed = /^\(\d{2,4}\)/.test(body) || (!/^[\d\u001d]/.test(body) && /\(\d{2,4}\)/.test(body));
+  const elements = bracketed ? splitBracketed(body, errors) : splitElementString(body, errors);
   result.elements = elements;
 
   for (const { ai, value } of elements) {

@@ -120,7 +120,10 @@ export function nextBagChange(bag: BagInUse, today?: DateInput): BagChange {
   };
 }
 
-/** nextBagChange for each bag in use, soonest first. */
+/**
+ * nextBagChange for each bag in use, soonest first.
+ * Local policy, the maker's instructions and clinical judgement come first.
+ */
 export function bagSchedule(bags: readonly BagInUse[], today?: DateInput): BagChange[] {
   if (!Array.isArray(bags)) throw new ClinicalInputError("bags", "missing", "bags must be a list");
   return bags.map((b) => nextBagChange(b, today)).sort((a, b) => a.daysUntil - b.daysUntil);

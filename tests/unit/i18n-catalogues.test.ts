@@ -11,8 +11,37 @@ function keys(obj: unknown, prefix = ""): string[] {
   return Object.entries(obj).flatMap(([k, v]) => keys(v, prefix ? `${prefix}.${k}` : k));
 }
 
+/** Argument names of an ICU message, including those nested in plural/select branches. */
+function args(text: string): Set<string> {
+  const out = new Set<string>();
+  let i = 0;
+  while (i < text.length) {
+    if (text[i] !== "{") {
+      i++;
+      continue;
+    }
+    let depth = 0;
+    let j = i;
+    for (; j < text.length; j++) {
+      if (text[j] === "{") depth++;
+      else if (text[j] === "}" && --depth === 0) break;
+    }
+    const inner = text.slice(i + 1, j);
+    const [name, type] = inner.split(",", 2).map((s) => s.trim());
+    out.add(name);
+    if (type === "plural" || type === "select" || type === "selectordinal") {
+      const branches = inner.slice(inner.indexOf(",", inner.indexOf(",") + 1) + 1);
+      for (const b of branches.match(/\{[^{}]*(?:\{[^{}]*\}[^{}]*)*\}/g) ?? []) {
+        for (const n of args(b.slice(1, -1))) out.add(n);
+      }
+    }
+    i = j + 1;
+  }
+  return out;
+}
+
 function placeholders(text: string): string[] {
-  return [...text.matchAll(/\{\s*([a-zA-Z0-9_]+)/g)].map((m) => m[1]).sort();
+  return [...args(text)].sort();
 }
 
 const en = load("en");

@@ -1,4 +1,4 @@
-import bwipjs from "bwip-js";
+import bwipjs from "bwip-js/node";
 import { format, isValid, lastDayOfMonth, parse } from "date-fns";
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
@@ -190,5 +190,18 @@ describe("GS1 date rules agree with date-fns", () => {
       }),
       { numRuns: 500 },
     );
+  });
+});
+
+describe("parseGs1 edge cases", () => {
+  it("a bracket inside a scanned lot does not switch to the bracket form", () => {
+    // Source: GS1 General Specifications (character set 82 allows "(" in AI 10)
+    const r = parseGs1(`0109506000134352${"10"}AB(12)${GS}21X`, TODAY);
+    expect(r).toMatchObject({ gtin: "09506000134352", lot: "AB(12)", serial: "X", errors: [] });
+  });
+
+  it("a group separator after a fixed field is skipped", () => {
+    // Source: GS1 General Specifications (FNC1 after a fixed-length field is allowed)
+    expect(parseGs1(`]C1${GS}0109506000134352${GS}17281100`, TODAY)).toMatchObject({ gtin: "09506000134352", expiry: "2028-11-30", errors: [] });
   });
 });

@@ -168,7 +168,7 @@ function worsen(a: CheckInAnswers, field: string, steps: number): CheckInAnswers
       else w.temperatureC = Math.min(45, Math.max(25, a.temperatureC + (a.temperatureC >= 37 ? 0.4 : -0.4) * steps));
       break;
     }
-    default: (w as Record<string, unknown>)[field] = true;
+    default: (w as unknown as Record<string, unknown>)[field] = true;
   }
   return w;
 }

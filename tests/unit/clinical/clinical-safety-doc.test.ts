@@ -1,0 +1,85 @@
+import { existsSync, readFileSync } from "node:fs";
+import { dirname, join } from "node:path";
+import { fileURLToPath } from "node:url";
+import { describe, expect, it } from "vitest";
+import { FINDING_CODES, sourceTitle, SOURCES, TRIAGE_RULES, type SourceId } from "@/lib/clinical";
+
+// Test-only file reads; lib/clinical itself never imports node:.
+const root = join(dirname(fileURLToPath(import.meta.url)), "..", "..", "..");
+const doc = readFileSync(join(root, "docs", "clinical-safety.md"), "utf8");
+const readme = readFileSync(join(root, "lib", "clinical", "README.md"), "utf8");
+
+const SEVERITIES = ["minor", "significant", "considerable", "major", "catastrophic"];
+const LIKELIHOODS = ["very low", "low", "medium", "high", "very high"];
+// Source: DCB0129/0160 implementation guidance risk matrix (seen in secondary copies, not the published document)
+const MATRIX: Record<string, number[]> = {
+  "very high": [3, 4, 4, 5, 5],
+  high: [2, 3, 3, 4, 5],
+  medium: [2, 2, 3, 3, 4],
+  low: [1, 2, 2, 3, 4],
+  "very low": [1, 1, 2, 2, 3],
+};
+const risk = (sev: string, lik: string) => MATRIX[lik][SEVERITIES.indexOf(sev)];
+
+const rows = doc
+  .split("\n")
+  .filter((l) => /^\| H-/.test(l))
+  .map((l) => l.split("|").slice(1, -1).map((c) => c.trim()));
+
+describe("docs/clinical-safety.md", () => {
+  it("the matrix at the top matches the lookup table", () => {
+    for (const lik of LIKELIHOODS) {
+      expect(doc).toContain(`| ${lik} | ${MATRIX[lik].join(" | ")} |`);
+    }
+  });
+
+  it("has a row for each hazard these rules control", () => {
+    expect(rows.length).toBeGreaterThanOrEqual(13);
+    for (const name of ["length", "size", "Allergy", "Expired", "Missed change", "Missed sepsis", "bacteriuria", "low urine output"]) {
+      expect(rows.some((r) => r[1].includes(name))).toBe(true);
+    }
+  });
+
+  it("every row has 16 columns, valid grades, risks from the matrix and a status", () => {
+    for (const r of rows) {
+      expect(r).toHaveLength(16);
+      const [iSev, iLik, iRisk] = [r[6], r[7], Number(r[8])];
+      const [rSev, rLik, rRisk] = [r[10], r[11], Number(r[12])];
+      expect(SEVERITIES).toContain(iSev);
+      expect(SEVERITIES).toContain(rSev);
+      expect(LIKELIHOODS).toContain(iLik);
+      expect(LIKELIHOODS).toContain(rLik);
+      expect(iRisk, `${r[0]} initial`).toBe(risk(iSev, iLik));
+      expect(rRisk, `${r[0]} residual`).toBe(risk(rSev, rLik));
+      expect(rRisk).toBeLessThanOrEqual(iRisk);
+      expect(["open", "transferred", "closed"]).toContain(r[15]);
+    }
+  });
+
+  it("every cited test exists in the cited file", () => {
+    for (const r of rows) {
+      const cites = [...r[13].matchAll(/`([\w.-]+\.test\.ts)` › "([^"]+)"/g)];
+      expect(cites.length, r[0]).toBeGreaterThan(0);
+      for (const [, file, name] of cites) {
+        const path = join(root, "tests", "unit", "clinical", file);
+        expect(existsSync(path), path).toBe(true);
+        expect(readFileSync(path, "utf8"), `${r[0]}: ${file} › ${name}`).toContain(name);
+      }
+    }
+  });
+});
+
+describe("lib/clinical/README.md", () => {
+  it("lists every triage rule and every device finding code", () => {
+    for (const rule of TRIAGE_RULES) expect(readme).toContain(rule.id);
+    for (const code of FINDING_CODES) expect(readme).toContain(code.replace(/-unknown$/, ""));
+  });
+
+  it("every source id has a title and evidence", () => {
+    for (const [id, s] of Object.entries(SOURCES)) {
+      expect(sourceTitle(id as SourceId)).toBe(s.title);
+      expect(s.title.length).toBeGreaterThan(5);
+      expect(["seen", "recalled", "common-practice"]).toContain(s.evidence);
+    }
+  });
+});
