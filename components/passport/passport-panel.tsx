@@ -3,7 +3,7 @@
 // issue request; this component holds them only in memory and never stores them.
 import { useMutation } from "@tanstack/react-query";
 import { useFormatter, useTranslations } from "next-intl";
-import { useState } from "react";
+import { useEffect, useRef, useState } from "react";
 import { Button, buttonClass } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
 import type { PassportOverview } from "@/db/queries/passports";
@@ -16,16 +16,39 @@ type Issued = {
   shortCode: string;
   qrSvg: string;
   pdfUrl: string;
+  gpSummaryQueued: boolean;
+  activation: { code: string; expiresAt: string; activateUrl: string; pdfBase64: string } | null;
 };
 
-async function issue(patientId: string, reissue: boolean): Promise<Issued> {
+/** Why an issue failed, as one of the panel's messages. */
+type IssueFailure = "emergencyNumber" | "hasAccount" | "other";
+
+class IssueError extends Error {
+  constructor(readonly reason: IssueFailure) {
+    super(reason);
+  }
+}
+
+async function issue(patientId: string, reissue: boolean, activationCode: boolean): Promise<Issued> {
   const res = await fetch(`/api/patients/${patientId}/passport`, {
     method: "POST",
     headers: { "content-type": "application/json" },
-    body: JSON.stringify(reissue ? { reissue: true } : {}),
+    body: JSON.stringify({ ...(reissue ? { reissue: true } : {}), ...(activationCode ? { activationCode: true } : {}) }),
   });
-  if (!res.ok) throw new Error(`passport issue failed: ${res.status}`);
+  if (!res.ok) {
+    const body = await res.json().catch(() => null);
+    const fields = body?.error?.fields ?? {};
+    if (fields.emergencyNumber) throw new IssueError("emergencyNumber");
+    if (fields.activationCode) throw new IssueError("hasAccount");
+    throw new IssueError("other");
+  }
   return res.json();
+}
+
+/** The one-time booklet (with the activation code) as a download link held in memory only. */
+function pdfObjectUrl(base64: string): string {
+  const bytes = Uint8Array.from(atob(base64), (c) => c.charCodeAt(0));
+  return URL.createObjectURL(new Blob([bytes], { type: "application/pdf" }));
 }
 
 function svgDataUrl(svg: string) {
@@ -38,25 +61,60 @@ export function PassportPanel({
   overview,
   languages,
   hasDevice,
+  canOfferActivation,
 }: {
   patientId: string;
   overview: PassportOverview;
   languages: string[];
   hasDevice: boolean;
+  /** No portal account yet and the viewer is in the care team: offer a code on the booklet. */
+  canOfferActivation: boolean;
 }) {
   const t = useTranslations("Passport");
   const format = useFormatter();
   const router = useRouter();
   const [issued, setIssued] = useState<Issued | null>(null);
   const [confirming, setConfirming] = useState(false);
+  const [withCode, setWithCode] = useState(false);
+  const [codePdfUrl, setCodePdfUrl] = useState<string | null>(null);
+  const confirmRef = useRef<HTMLButtonElement>(null);
+  const issuedRef = useRef<HTMLHeadingElement>(null);
   const mutation = useMutation({
-    mutationFn: (reissue: boolean) => issue(patientId, reissue),
+    mutationFn: (reissue: boolean) => issue(patientId, reissue, canOfferActivation && withCode),
     onSuccess: (result) => {
       setIssued(result);
+      setCodePdfUrl(result.activation ? pdfObjectUrl(result.activation.pdfBase64) : null);
       setConfirming(false);
+      setWithCode(false);
       router.refresh();
     },
   });
+  // The dialog takes focus when it opens; the new passport when it arrives.
+  useEffect(() => {
+    if (confirming) confirmRef.current?.focus();
+  }, [confirming]);
+  useEffect(() => {
+    if (issued) issuedRef.current?.focus();
+  }, [issued]);
+  useEffect(() => () => {
+    if (codePdfUrl) URL.revokeObjectURL(codePdfUrl);
+  }, [codePdfUrl]);
+  const failure = mutation.error instanceof IssueError ? mutation.error.reason : "other";
+  const activationChoice = canOfferActivation ? (
+    <label className="flex max-w-prose items-start gap-3">
+      <input
+        type="checkbox"
+        checked={withCode}
+        onChange={(e) => setWithCode(e.target.checked)}
+        className="mt-1 h-6 w-6 shrink-0 accent-brand"
+        data-testid="passport-activation-choice"
+      />
+      <span>
+        <span className="font-bold">{t("activationOffer")}</span>
+        <span className="block text-ink-soft">{t("activationHint")}</span>
+      </span>
+    </label>
+  ) : null;
   const current = overview.current;
   const when = (iso: string) => format.dateTime(new Date(iso), { dateStyle: "medium", timeStyle: "short" });
   const languageNames = (codes: string[]) => codes.map((c) => localeNames[c as Locale] ?? c).join(" + ");
@@ -73,11 +131,16 @@ export function PassportPanel({
           <span className="font-bold">{t("languages")}:</span> {languageNames(languages)}
         </p>
         {!hasDevice ? <p className="rounded-lg border-2 border-stone-line bg-paper-sunk p-3">{t("noDevice")}</p> : null}
+        <p className="max-w-prose rounded-lg border border-stone-faint bg-paper-sunk p-3" data-testid="passport-safety">
+          {t("safety")}
+        </p>
       </section>
 
       {issued ? (
         <Card className="flex flex-col gap-4 border-2 border-brand" data-testid="passport-issued">
-          <h3 className="text-xl font-bold">{t("issuedTitle")}</h3>
+          <h3 ref={issuedRef} tabIndex={-1} className="text-xl font-bold">
+            {t("issuedTitle")}
+          </h3>
           <p role="status" className="rounded-lg border-2 border-level-urgent bg-level-urgent-soft p-3 font-bold text-level-urgent-ink">
             {t("showOnce")}
           </p>
@@ -105,11 +168,39 @@ export function PassportPanel({
                   {issued.url}
                 </p>
               </div>
-              <a href={pdfUrl} download className={buttonClass("primary")} data-testid="passport-download">
-                {t("download")}
+              {issued.activation && codePdfUrl ? (
+                <div className="flex flex-col gap-2 rounded-lg border-2 border-brand bg-brand-soft p-3" data-testid="passport-activation">
+                  <p className="font-bold">{t("activationTitle")}</p>
+                  <p className="tabular text-2xl font-bold tracking-wider" dir="ltr" data-testid="passport-activation-code">
+                    {issued.activation.code}
+                  </p>
+                  <p>{t("activationExpires", { date: format.dateTime(new Date(issued.activation.expiresAt), { dateStyle: "long" }) })}</p>
+                  <a
+                    href={codePdfUrl}
+                    download={`caddis-passport-${issued.passport.issuedAt.slice(0, 10)}-portal.pdf`}
+                    className={buttonClass("primary")}
+                    data-testid="passport-download-with-code"
+                  >
+                    {t("downloadWithCode")}
+                  </a>
+                  <p className="text-sm">{t("activationNotStored")}</p>
+                </div>
+              ) : null}
+              <a
+                href={pdfUrl}
+                download
+                className={buttonClass(issued.activation ? "secondary" : "primary")}
+                data-testid="passport-download"
+              >
+                {issued.activation ? t("downloadWithoutCode") : t("download")}
               </a>
             </div>
           </div>
+          {issued.gpSummaryQueued ? (
+            <p role="status" data-testid="passport-gp-queued">
+              {t("gpQueued")}
+            </p>
+          ) : null}
         </Card>
       ) : null}
 
@@ -137,7 +228,12 @@ export function PassportPanel({
                   {t("download")}
                 </a>
               ) : null}
-              <Button variant={issued ? "secondary" : "primary"} onClick={() => setConfirming(true)} disabled={mutation.isPending || confirming}>
+              <Button
+                variant={issued ? "secondary" : "primary"}
+                onClick={() => setConfirming(true)}
+                disabled={mutation.isPending || confirming}
+                data-testid="passport-reissue"
+              >
                 {t("reissue")}
               </Button>
             </div>
@@ -146,8 +242,9 @@ export function PassportPanel({
         ) : (
           <>
             <p>{t("none")}</p>
+            {activationChoice}
             <div>
-              <Button onClick={() => mutation.mutate(false)} disabled={mutation.isPending}>
+              <Button onClick={() => mutation.mutate(false)} disabled={mutation.isPending} data-testid="passport-issue">
                 {mutation.isPending ? t("issuing") : t("issue")}
               </Button>
             </div>
@@ -159,10 +256,18 @@ export function PassportPanel({
               {t("confirmTitle")}
             </p>
             <p id="reissue-body">{t("confirmBody")}</p>
+            {activationChoice}
             <div className="flex flex-wrap gap-3">
-              <Button variant="danger" onClick={() => mutation.mutate(true)} disabled={mutation.isPending}>
+              <button
+                type="button"
+                ref={confirmRef}
+                className={buttonClass("danger")}
+                onClick={() => mutation.mutate(true)}
+                disabled={mutation.isPending}
+                data-testid="passport-reissue-confirm"
+              >
                 {mutation.isPending ? t("issuing") : t("confirm")}
-              </Button>
+              </button>
               <Button variant="secondary" onClick={() => setConfirming(false)} disabled={mutation.isPending}>
                 {t("cancel")}
               </Button>
@@ -171,7 +276,7 @@ export function PassportPanel({
         ) : null}
         {mutation.isError ? (
           <p role="alert" className="font-bold text-level-emergency-ink">
-            {t("error")}
+            {failure === "emergencyNumber" ? t("errorEmergency") : failure === "hasAccount" ? t("errorHasAccount") : t("error")}
           </p>
         ) : null}
       </Card>

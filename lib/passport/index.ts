@@ -12,12 +12,15 @@ import {
   type BookletRecord,
   type PassportSummary,
 } from "@/db/queries/passports";
+import { getPatientForInvite } from "@/db/queries/invitations";
 import { audit } from "@/lib/audit";
 import type { Viewer } from "@/lib/auth/session";
 import { charriereToMm } from "@/lib/clinical";
+import { queueGpSummary } from "@/lib/email/gp-summary";
 import { env } from "@/lib/env";
 import { AppError } from "@/lib/errors";
 import { isLocale } from "@/lib/i18n/routing";
+import { newPatientActivation, recordPatientInvite, type PatientActivation } from "@/lib/invitations";
 import { renderPassportPdf, type PassportBookletData } from "@/lib/pdf";
 import { qrPngDataUrl, qrSvg } from "@/lib/qr";
 import { deleteObject, putObject } from "@/lib/storage";
@@ -165,6 +168,13 @@ export type IssuedPassport = {
   shortCode: string;
   qrSvg: string;
   revokedIds: string[];
+  /**
+   * Only when asked for: the portal activation code and the booklet that prints it. Neither is
+   * stored (the code as an HMAC only); the stored booklet is the same booklet without it.
+   */
+  activation: { code: string; expiresAt: string; activateUrl: string; pdf: Buffer } | null;
+  /** The GP summary queued in the issuing transaction (null if one existed for this passport). */
+  gpSummaryQueued: boolean;
 };
 
 /**
@@ -178,14 +188,28 @@ export async function issuePassport({
   patientId,
   via,
   request,
+  withActivationCode = false,
 }: {
   viewer: Viewer;
   patientId: string;
   via?: "care_team" | "visit_access";
   request?: Request | { headers: Headers } | null;
+  /** Print a fresh one-time portal activation code on the booklet (care team only). */
+  withActivationCode?: boolean;
 }): Promise<IssuedPassport> {
   const record = await getBookletRecord({ patientId });
   if (!record) throw new AppError("not_found");
+  let activation: PatientActivation | null = null;
+  if (withActivationCode) {
+    if ((via ?? "care_team") !== "care_team") {
+      throw new AppError("forbidden", "Only the patient's care team can give a portal activation code.");
+    }
+    const invitee = await getPatientForInvite({ patientId });
+    if (invitee?.userId) {
+      throw new AppError("conflict", "This patient already has a portal account.", { fields: { activationCode: ["has_account"] } });
+    }
+    activation = newPatientActivation(record.patient.preferredLocale);
+  }
   const passportId = randomUUID();
   const token = generateToken();
   const code = generateShortCode();
@@ -200,6 +224,10 @@ export async function issuePassport({
     issuedByName: viewer.name,
   });
   const pdf = await renderPassportPdf(data);
+  // Rendered before the transaction (it takes a while); thrown away if the transaction fails.
+  const activationPdf = activation
+    ? await renderPassportPdf({ ...data, portalActivation: { code: activation.code, expiresAt: activation.expiresAt, activateUrl: activation.activateUrl } })
+    : null;
   const key = passportPdfKey({ patientId, passportId });
   await putObject({ key, body: pdf, contentType: "application/pdf" });
   try {
@@ -216,6 +244,9 @@ export async function issuePassport({
         },
         tx,
       );
+      const invite = activation
+        ? await recordPatientInvite(tx, { viewer, patientId, activation, request, details: { onPassport: passportId } })
+        : null;
       await audit(
         {
           action: "passport.issue",
@@ -223,11 +254,19 @@ export async function issuePassport({
           patientId,
           via: via ?? "care_team",
           request,
-          details: { passportId, revoked: replaced.revokedIds, languages: data.locales, pdfBytes: pdf.byteLength },
+          details: {
+            passportId,
+            revoked: replaced.revokedIds,
+            languages: data.locales,
+            pdfBytes: pdf.byteLength,
+            ...(invite ? { activationInviteId: invite.id } : {}),
+          },
         },
         tx,
       );
-      return replaced;
+      // The GP practice hears of the issue from the outbox, in this same transaction.
+      const summary = await queueGpSummary(tx, { patientId, passportId, cause: "passport", actorName: viewer.name });
+      return { ...replaced, gpSummaryQueued: summary.created };
     });
     return {
       passport: {
@@ -241,6 +280,11 @@ export async function issuePassport({
       shortCode: formatShortCode(code),
       qrSvg: await qrSvg(url),
       revokedIds: result.revokedIds,
+      activation:
+        activation && activationPdf
+          ? { code: activation.code, expiresAt: activation.expiresAt.toISOString(), activateUrl: activation.activateUrl, pdf: activationPdf }
+          : null,
+      gpSummaryQueued: result.gpSummaryQueued,
     };
   } catch (error) {
     await deleteObject({ key }).catch(() => {});

@@ -75,6 +75,8 @@ export type PassportBookletData = {
     careTeams: BookletContact[];
     gp: BookletContact | null;
   };
+  /** A one-time portal activation code, printed on its own page; never on the stored copy. */
+  portalActivation?: { code: string; expiresAt: Date; activateUrl: string } | null;
 };
 
 const colour = {
@@ -648,6 +650,46 @@ function ContactsAndHistoryPage({ all, data }: { all: PdfStrings[]; data: Passpo
   );
 }
 
+/** The patient's way into the portal: the code once, big, with where to type it and until when. */
+function PortalPage({ all, activation }: { all: PdfStrings[]; activation: NonNullable<PassportBookletData["portalActivation"]> }) {
+  const first = all[0];
+  return (
+    <Page size="A5" style={styles.page}>
+      <View style={{ marginBottom: 6, borderBottomWidth: 1.5, borderBottomColor: colour.brand, paddingBottom: 3 }}>
+        {all.map((s, i) => (
+          <T key={s.locale} s={s} style={i === 0 ? styles.h2 : [styles.h2, { fontSize: 13, color: colour.inkSoft }]}>
+            {s.t("portalTitle")}
+          </T>
+        ))}
+      </View>
+      <Columns all={all}>{(s) => <T s={s} style={{ fontSize: 11 }}>{s.t("portalIntro")}</T>}</Columns>
+      <View style={[styles.section, styles.box, { borderWidth: 2, borderColor: colour.brand, alignItems: "center", paddingVertical: 12 }]} wrap={false}>
+        <DualLabel all={all} k={(s) => s.t("portalCode")} />
+        <Text style={{ fontSize: 24, fontWeight: 700, letterSpacing: 2, marginTop: 4, direction: "ltr", textAlign: "center" }}>{activation.code}</Text>
+        <Text style={{ fontSize: 10, marginTop: 6, direction: "ltr", textAlign: "center" }}>{activation.activateUrl}</Text>
+      </View>
+      <View style={styles.section}>
+        <Columns all={all}>
+          {(s) => (
+            <View>
+              <T s={s} style={{ fontSize: 11, fontWeight: 700 }}>
+                {s.t("portalExpires", { date: s.moment(activation.expiresAt) })}
+              </T>
+              <T s={s} style={{ fontSize: 10, marginTop: 4 }}>
+                {s.t("portalOnce")}
+              </T>
+            </View>
+          )}
+        </Columns>
+      </View>
+      <T s={first} style={[styles.small, { marginTop: 10 }]}>
+        {first.t("portalPrivate")}
+      </T>
+      <Footer all={all} />
+    </Page>
+  );
+}
+
 export function PassportBooklet({ data }: { data: PassportBookletData }) {
   const all = data.locales.map((l) => pdfStrings(l));
   return (
@@ -664,6 +706,7 @@ export function PassportBooklet({ data }: { data: PassportBookletData }) {
         <HelpPage key={s.locale} s={s} all={all} data={data} />
       ))}
       <ContactsAndHistoryPage all={all} data={data} />
+      {data.portalActivation ? <PortalPage all={all} activation={data.portalActivation} /> : null}
     </Document>
   );
 }

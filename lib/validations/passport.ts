@@ -5,6 +5,8 @@ import { z } from "zod";
 export const passportIssueSchema = z
   .object({
     reissue: z.boolean({ error: "invalid" }).optional(),
+    // Print a fresh one-time portal activation code on the booklet (patients with no account).
+    activationCode: z.boolean({ error: "invalid" }).optional(),
   })
   .strict();
 

@@ -20,7 +20,8 @@ export const GET = handle<Ctx>(async (request, { params }) => {
 /**
  * Issue, or reissue with `{ "reissue": true }`: a new token and short code, the booklet made
  * and stored, the old passport revoked at once. The answer carries the token address, the
- * code and the QR once; nothing can show them again.
+ * code and the QR once; nothing can show them again. `{ "activationCode": true }` also prints
+ * a fresh portal activation code on a booklet sent in this answer (only the HMAC is kept).
  */
 export const POST = handle<Ctx>(async (request, { params }) => {
   const { patientId } = await params;
@@ -33,7 +34,13 @@ export const POST = handle<Ctx>(async (request, { params }) => {
       fields: { reissue: ["confirm_reissue"] },
     });
   }
-  const issued = await issuePassport({ viewer, patientId, via: via === "visit_access" ? "visit_access" : "care_team", request });
+  const issued = await issuePassport({
+    viewer,
+    patientId,
+    via: via === "visit_access" ? "visit_access" : "care_team",
+    request,
+    withActivationCode: input.activationCode === true,
+  });
   return json(
     {
       passport: issued.passport,
@@ -42,6 +49,16 @@ export const POST = handle<Ctx>(async (request, { params }) => {
       qrSvg: issued.qrSvg,
       revokedIds: issued.revokedIds,
       pdfUrl: `/api/patients/${patientId}/passport/pdf`,
+      gpSummaryQueued: issued.gpSummaryQueued,
+      // The booklet with the activation code travels in this answer only; it is never stored.
+      activation: issued.activation
+        ? {
+            code: issued.activation.code,
+            expiresAt: issued.activation.expiresAt,
+            activateUrl: issued.activation.activateUrl,
+            pdfBase64: issued.activation.pdf.toString("base64"),
+          }
+        : null,
     },
     { status: 201 },
   );
