@@ -6,7 +6,7 @@ import "server-only";
 import { randomUUID } from "node:crypto";
 import { fileTypeFromBuffer } from "file-type";
 import { db } from "@/db";
-import { getUploadRow, insertUpload, setUploadStatus, uploadDto, type UploadDto } from "@/db/queries/uploads";
+import { getUploadRow, insertUpload, markUploadRemoved, setUploadStatus, uploadDto, type UploadDto } from "@/db/queries/uploads";
 import type { PatientAccessVia } from "@/db/queries/access";
 import type { Upload } from "@/db/schema";
 import { audit } from "@/lib/audit";
@@ -144,6 +144,37 @@ export async function completeUpload({
     );
     return dto;
   });
+}
+
+/**
+ * Takes a file off the record (wrong patient, wrong file): the row is kept as "removed" with
+ * its audit event, the bytes are deleted from the store after the transaction commits. Care
+ * team only; the caller has checked.
+ */
+export async function removeUpload({
+  viewer,
+  patientId,
+  via,
+  uploadId,
+  request,
+}: {
+  viewer: Viewer;
+  patientId: string;
+  via: PatientAccessVia;
+  uploadId: string;
+  request: Request;
+}): Promise<void> {
+  const row = await db.transaction(async (tx) => {
+    const removed = await markUploadRemoved({ patientId, uploadId }, tx);
+    if (!removed) throw new AppError("not_found");
+    await audit(
+      { action: "upload.remove", actor: viewer, patientId, via, request, details: { uploadId, category: removed.category, was: removed.status } },
+      tx,
+    );
+    return removed;
+  });
+  // After the commit: a failed delete leaves bytes nobody can reach (the row says removed).
+  await deleteObject({ key: row.objectKey }).catch(() => {});
 }
 
 /** A server-set download name (never the uploader's): caddis-discharge-letter-2026-05-03.pdf */

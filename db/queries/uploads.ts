@@ -1,6 +1,6 @@
 import "server-only";
 // Uploads of one patient: rows and their explicit DTO (never the object key).
-import { and, desc, eq } from "drizzle-orm";
+import { and, desc, eq, ne } from "drizzle-orm";
 import { db, type Executor } from "@/db";
 import { uploads, user, type Upload } from "@/db/schema";
 
@@ -62,9 +62,22 @@ export async function listUploads({ patientId }: { patientId: string }, tx: Exec
     .select({ upload: uploads, uploadedByName: user.name })
     .from(uploads)
     .leftJoin(user, eq(user.id, uploads.uploadedByUserId))
-    .where(eq(uploads.patientId, patientId))
+    // Removed files stay as rows (and in the audit log) but are no longer part of the record.
+    .where(and(eq(uploads.patientId, patientId), ne(uploads.status, "removed")))
     .orderBy(desc(uploads.createdAt));
   return rows.map((r) => toDto({ ...r.upload, uploadedByName: r.uploadedByName }));
+}
+
+/** Marks an upload removed, if it still is not; returns the row as it was, or null. */
+export async function markUploadRemoved({ patientId, uploadId }: { patientId: string; uploadId: string }, tx: Executor): Promise<Upload | null> {
+  const [row] = await tx
+    .select()
+    .from(uploads)
+    .where(and(eq(uploads.id, uploadId), eq(uploads.patientId, patientId), ne(uploads.status, "removed")))
+    .for("update");
+  if (!row) return null;
+  await tx.update(uploads).set({ status: "removed" }).where(eq(uploads.id, uploadId));
+  return row;
 }
 
 export { toDto as uploadDto };

@@ -6,6 +6,7 @@ import { PNG } from "pngjs";
 import { beforeAll, describe, expect, it } from "vitest";
 import { POST as complete } from "@/app/api/patients/[patientId]/uploads/[uploadId]/complete/route";
 import { GET as download } from "@/app/api/patients/[patientId]/uploads/[uploadId]/file/route";
+import { DELETE as removeRoute } from "@/app/api/patients/[patientId]/uploads/[uploadId]/route";
 import { GET as list, POST as declare } from "@/app/api/patients/[patientId]/uploads/route";
 import { db } from "@/db";
 import { auditEvents, uploads } from "@/db/schema";
@@ -269,5 +270,63 @@ describe("bad input and access", () => {
     expect((await call(list, `/api/patients/${halina}/uploads`, { cookie: admin, params: { patientId: halina } })).status).toBe(403);
     expect((await finish(halina, any.id, admin)).status).toBe(403);
     expect((await call(download, `/api/patients/${halina}/uploads/${any.id}/file`, { cookie: admin, params: { patientId: halina, uploadId: any.id } })).status).toBe(403);
+  });
+});
+
+describe("removing a file from the record", () => {
+  let id: string;
+  let key: string;
+
+  async function readyPng(patientId: string) {
+    const bytes = pngBytes();
+    const declared = (await (await start(patientId, { category: "site-photo", label: "Site, wrong patient", contentType: "image/png", sizeBytes: bytes.length })).json()) as Declared;
+    await putTo(declared, bytes, "image/png");
+    expect((await finish(patientId, declared.upload.id)).status).toBe(200);
+    return declared.upload.id;
+  }
+  const del = (patientId: string, uploadId: string, cookie?: string) =>
+    call(removeRoute, `/api/patients/${patientId}/uploads/${uploadId}`, { method: "DELETE", cookie, params: { patientId, uploadId } });
+
+  beforeAll(async () => {
+    id = await readyPng(halina);
+    key = (await keyOf(id)).key;
+  });
+
+  it("refuses others before anything changes: other organisation 404, patient/carer/admin 403, anonymous 401", async () => {
+    expect((await del(halina, id, await sessionFor("wardNurse"))).status).toBe(404);
+    for (const who of ["patient", "carer", "admin"] as const) expect((await del(halina, id, await sessionFor(who))).status, who).toBe(403);
+    expect((await del(halina, id)).status).toBe(401);
+    expect((await keyOf(id)).status).toBe("ready");
+    expect(await headObject({ key })).not.toBeNull();
+  });
+
+  it("an id of another patient, or not an id, is not found", async () => {
+    expect((await del(arthur, id, nurse)).status).toBe(404);
+    expect((await del(halina, "not-an-id", nurse)).status).toBe(404);
+    expect((await keyOf(id)).status).toBe("ready");
+  });
+
+  it("the care team removes it: 204, the bytes deleted, the row kept as removed and audited, gone from the list and the download", async () => {
+    const res = await del(halina, id, nurse);
+    expect(res.status).toBe(204);
+    expect((await keyOf(id)).status).toBe("removed");
+    expect(await headObject({ key })).toBeNull();
+    const listed = await (await call(list, `/api/patients/${halina}/uploads`, { cookie: nurse, params: { patientId: halina } })).json();
+    expect(listed.uploads.map((u: { id: string }) => u.id)).not.toContain(id);
+    expect((await call(download, `/api/patients/${halina}/uploads/${id}/file`, { cookie: nurse, params: { patientId: halina, uploadId: id } })).status).toBe(404);
+    const [audited] = await db
+      .select({ n: sql<number>`count(*)::int` })
+      .from(auditEvents)
+      .where(sql`${auditEvents.action} = 'upload.remove' and ${auditEvents.details}->>'uploadId' = ${id}`);
+    expect(audited.n).toBe(1);
+  });
+
+  it("removing it again: 404, and no second audit event", async () => {
+    expect((await del(halina, id, nurse)).status).toBe(404);
+    const [audited] = await db
+      .select({ n: sql<number>`count(*)::int` })
+      .from(auditEvents)
+      .where(sql`${auditEvents.action} = 'upload.remove' and ${auditEvents.details}->>'uploadId' = ${id}`);
+    expect(audited.n).toBe(1);
   });
 });

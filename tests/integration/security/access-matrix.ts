@@ -118,6 +118,8 @@ export const matrix: Row[] = [
     expect: { anonymous: 401, admin: 403, careTeamClinician: "allowed", otherClinician: 404, patient: 404, otherPatient: 404, carer: 404 },
   },
   { route: "GET /api/patients/[patientId]/uploads/[uploadId]/file", params: upload, expect: staffOnPatient },
+  // Last of the upload rows: the care team's call removes the fixture file.
+  { route: "DELETE /api/patients/[patientId]/uploads/[uploadId]", params: upload, expect: staffOnPatient },
   { route: "GET /api/patients/[patientId]/messages", params: patient, expect: staffOnPatient },
   { route: "POST /api/patients/[patientId]/messages/[messageId]/resend", exempt: "needs a message of the patient: its full matrix is in letters-supplies.test.ts" },
   { route: "GET /api/patients/[patientId]/supply-requests", params: patient, expect: staffOnPatient },
