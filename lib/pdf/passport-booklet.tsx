@@ -652,7 +652,6 @@ function ContactsAndHistoryPage({ all, data }: { all: PdfStrings[]; data: Passpo
 
 /** The patient's way into the portal: the code once, big, with where to type it and until when. */
 function PortalPage({ all, activation }: { all: PdfStrings[]; activation: NonNullable<PassportBookletData["portalActivation"]> }) {
-  const first = all[0];
   return (
     <Page size="A5" style={styles.page}>
       <View style={{ marginBottom: 6, borderBottomWidth: 1.5, borderBottomColor: colour.brand, paddingBottom: 3 }}>
@@ -682,9 +681,15 @@ function PortalPage({ all, activation }: { all: PdfStrings[]; activation: NonNul
           )}
         </Columns>
       </View>
-      <T s={first} style={[styles.small, { marginTop: 10 }]}>
-        {first.t("portalPrivate")}
-      </T>
+      <View style={{ marginTop: 10 }}>
+        <Columns all={all}>
+          {(s) => (
+            <T s={s} style={styles.small}>
+              {s.t("portalPrivate")}
+            </T>
+          )}
+        </Columns>
+      </View>
       <Footer all={all} />
     </Page>
   );
