@@ -3,7 +3,7 @@
 // issue request; this component holds them only in memory and never stores them.
 import { useMutation } from "@tanstack/react-query";
 import { useFormatter, useTranslations } from "next-intl";
-import { useEffect, useRef, useState } from "react";
+import { useEffect, useRef, useState, useTransition } from "react";
 import { Button, buttonClass } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
 import type { PassportOverview } from "@/db/queries/passports";
@@ -77,6 +77,8 @@ export function PassportPanel({
   const [confirming, setConfirming] = useState(false);
   const [withCode, setWithCode] = useState(false);
   const [codePdfUrl, setCodePdfUrl] = useState<string | null>(null);
+  // The current passport and the history come from the server: refreshed after an issue.
+  const [refreshing, startRefresh] = useTransition();
   const confirmRef = useRef<HTMLButtonElement>(null);
   const issuedRef = useRef<HTMLHeadingElement>(null);
   const mutation = useMutation({
@@ -86,7 +88,7 @@ export function PassportPanel({
       setCodePdfUrl(result.activation ? pdfObjectUrl(result.activation.pdfBase64) : null);
       setConfirming(false);
       setWithCode(false);
-      router.refresh();
+      startRefresh(() => router.refresh());
     },
   });
   // The dialog takes focus when it opens; the new passport when it arrives.
@@ -204,7 +206,7 @@ export function PassportPanel({
         </Card>
       ) : null}
 
-      <Card className="flex flex-col gap-4" data-testid="passport-current">
+      <Card className={`flex flex-col gap-4 ${refreshing ? "opacity-60" : ""}`} aria-busy={refreshing || undefined} data-testid="passport-current">
         <h3 className="text-xl font-bold">{t("current")}</h3>
         {current ? (
           <>

@@ -137,7 +137,8 @@ describe("passport tab", () => {
     expect(await findPassportByToken(firstToken)).toBeNull();
     const secondToken = (await page.getByTestId("passport-url").textContent())!.trim().split("/p/")[1];
     expect(await findPassportByToken(secondToken)).toMatchObject({ patientId: fixture.patientId });
-    await expect.poll(() => page.getByRole("cell", { name: new RegExp(en.Passport.statusRevoked) }).count()).toBe(1);
+    // The history refreshes from the server after the reissue.
+    await expect.poll(() => page.getByRole("cell", { name: new RegExp(en.Passport.statusRevoked) }).count(), { timeout: 15_000 }).toBe(1);
   });
 
   it("each issue sends its own GP summary to the practice through the outbox", async () => {
@@ -155,13 +156,16 @@ describe("passport tab", () => {
     await page.getByTestId("passport-reissue-confirm").click();
     await page.getByTestId("passport-issued").waitFor();
     expect((await page.getByTestId("passport-code").textContent())!.trim()).toMatch(CODE);
+    // Wait for the history to show the new passport (pl, pl, ar: three rows).
+    await expect.poll(() => page.locator("table tbody tr").count(), { timeout: 15_000 }).toBe(3);
     const scroll = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
     expect(scroll).toBeLessThanOrEqual(0);
     await screenshot(page, "passport-ar-issued");
     const booklet = await downloadOf(page, "passport-download", "passport-e2e-ar.pdf");
     const text = await pdfText(booklet);
     expect(text).toContain(en.PassportPdf.title);
-    expect(text).toContain(ar.PassportPdf.title);
+    // The text layer keeps Arabic in visual order and splits some words: single labels are compared.
+    for (const word of [ar.PassportPdf.route, ar.PassportPdf.balloon, ar.PassportPdf.allergiesTitle]) expect(text, word).toContain(word);
 
     // And an English-only booklet, for the renders.
     await db.update(patients).set({ preferredLocale: "en" }).where(eq(patients.id, fixture.patientId));
@@ -192,14 +196,14 @@ describe("documents tab", () => {
     await page.getByTestId("upload-submit").click();
     await expect.poll(() => page.getByTestId("upload-status").textContent(), { timeout: 20_000 }).toBe(en.Uploads.uploaded);
     const item = page.getByTestId("upload-item");
-    await expect.poll(() => item.count()).toBe(1);
+    await expect.poll(() => item.count(), { timeout: 15_000 }).toBe(1);
     const thumb = item.locator("img");
-    await expect.poll(() => thumb.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth > 0)).toBe(true);
+    await expect.poll(() => thumb.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth > 0), { timeout: 15_000 }).toBe(true);
     await screenshot(page, "documents-en");
 
     await page.getByTestId("upload-remove").click();
     await page.getByTestId("upload-remove-confirm").click();
-    await expect.poll(() => item.count()).toBe(0);
+    await expect.poll(() => item.count(), { timeout: 15_000 }).toBe(0);
     expect(await page.getByText(en.Uploads.empty).isVisible()).toBe(true);
   });
 
