@@ -35,6 +35,9 @@ async function pdfText(pdf: Buffer) {
   }
 }
 
+/** Letter-spaced big type can come back from the text layer with a space inside ("KT T4"). */
+const squashed = (t: string) => t.replace(/\s/g, "");
+
 async function saved(download: Download, name: string): Promise<Buffer> {
   const file = path.join(outDir, name);
   fs.mkdirSync(outDir, { recursive: true });
@@ -103,13 +106,13 @@ describe("passport tab", () => {
     expect(text).toContain(pl.PassportPdf.title);
     expect(text).toContain(en.PassportPdf.title);
     expect(text).toContain("LOT-E2E-PASS");
-    expect(text).toContain(firstCode);
+    expect(squashed(text)).toContain(firstCode);
     expect(text).not.toContain(en.PassportPdf.portalTitle);
 
     const activation = (await page.getByTestId("passport-activation-code").textContent())!.trim();
     const withCode = await downloadOf(page, "passport-download-with-code", "passport-e2e-pl-portal.pdf");
     const codeText = await pdfText(withCode);
-    expect(codeText).toContain(activation);
+    expect(squashed(codeText)).toContain(activation);
     expect(codeText).toContain(pl.PassportPdf.portalTitle);
     expect(codeText).toContain(en.PassportPdf.portalTitle);
   });

@@ -109,13 +109,15 @@ describe("portal activation code on the booklet", () => {
 
   it("the one-time booklet carries the code in Polish and English; the stored booklet does not", async () => {
     const text = await pdfText(oneTime);
-    expect(text).toContain(code);
+    // Letter-spaced big type can come back from the text layer with a space inside ("KT T4").
+    const squashed = (t: string) => t.replace(/\s/g, "");
+    expect(squashed(text)).toContain(code);
     expect(text).toContain(pl.PassportPdf.portalTitle);
     expect(text).toContain(en.PassportPdf.portalTitle);
     const stored = await call(getPdf, `/api/patients/${halina}/passport/pdf`, { cookie: nurse, params: { patientId: halina } });
     const storedText = await pdfText(Buffer.from(await stored.arrayBuffer()));
     expect(storedText).toContain(en.PassportPdf.title);
-    expect(storedText).not.toContain(code);
+    expect(squashed(storedText)).not.toContain(code);
     expect(storedText).not.toContain(en.PassportPdf.portalTitle);
   });
 
