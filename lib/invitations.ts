@@ -61,17 +61,53 @@ export async function createPatientInvite({
   const patient = await getPatientForInvite({ patientId });
   if (!patient) throw new AppError("not_found");
   if (patient.userId) throw new AppError("conflict", "This patient already has a portal account.");
-  const code = newActivationCode();
-  const expiresAt = new Date(Date.now() + ACTIVATION_DAYS * DAY);
-  const activateUrl = `${env.APP_URL}/${patient.preferredLocale}/activate`;
+  const activation = newPatientActivation(patient.preferredLocale);
+  const { code, activateUrl } = activation;
   const delivery = await db.transaction(async (tx) => {
-    // One live code per patient: a new one replaces any other.
-    await revokeLivePatientInvites({ patientId }, tx);
-    const invite = await insertPatientInvite({ patientId, codeHash: hashActivationCode(code), email: email ?? null, createdByUserId: viewer.userId, expiresAt }, tx);
-    await audit({ action: "portal.invite", actor: viewer, patientId, via: "care_team", request, details: { inviteId: invite.id, byEmail: Boolean(email) } }, tx);
-    return email ? sendPatientInvitation(tx, { patientId, email, code, activateUrl, inviteId: invite.id, expiresAt }) : { emailed: false };
+    const invite = await recordPatientInvite(tx, { viewer, patientId, activation, email, request });
+    return email ? sendPatientInvitation(tx, { patientId, email, code, activateUrl, inviteId: invite.id, expiresAt: activation.expiresAt }) : { emailed: false };
   });
-  return { code, expiresAt: expiresAt.toISOString(), activateUrl, emailed: delivery.emailed };
+  return { code, expiresAt: activation.expiresAt.toISOString(), activateUrl, emailed: delivery.emailed };
+}
+
+export type PatientActivation = { code: string; expiresAt: Date; activateUrl: string };
+
+/** A fresh code, its expiry and the page to type it on (nothing stored yet). */
+export function newPatientActivation(preferredLocale: string): PatientActivation {
+  return {
+    code: newActivationCode(),
+    expiresAt: new Date(Date.now() + ACTIVATION_DAYS * DAY),
+    activateUrl: `${env.APP_URL}/${preferredLocale}/activate`,
+  };
+}
+
+/**
+ * Stores a code's HMAC in the caller's transaction (the passport issue prints one on the
+ * booklet): any other live code is revoked first, and the audit event is written with it.
+ * Refuses a patient who has an account by now (checked again inside the transaction).
+ */
+export async function recordPatientInvite(
+  tx: Executor,
+  {
+    viewer,
+    patientId,
+    activation,
+    email,
+    request,
+    details,
+  }: { viewer: Viewer; patientId: string; activation: PatientActivation; email?: string; request?: Request | { headers: Headers } | null; details?: Record<string, unknown> },
+) {
+  const patient = await getPatientForInvite({ patientId }, tx);
+  if (!patient) throw new AppError("not_found");
+  if (patient.userId) throw new AppError("conflict", "This patient already has a portal account.");
+  // One live code per patient: a new one replaces any other.
+  await revokeLivePatientInvites({ patientId }, tx);
+  const invite = await insertPatientInvite(
+    { patientId, codeHash: hashActivationCode(activation.code), email: email ?? null, createdByUserId: viewer.userId, expiresAt: activation.expiresAt },
+    tx,
+  );
+  await audit({ action: "portal.invite", actor: viewer, patientId, via: "care_team", request, details: { inviteId: invite.id, byEmail: Boolean(email), ...details } }, tx);
+  return invite;
 }
 
 /** The code and link go by e-mail through the outbox, queued in the invitation's transaction. */

@@ -1,22 +1,20 @@
 "use client";
 import { useTranslations } from "next-intl";
 import { useEffect, useState } from "react";
+import { ACCEPTED_PHOTO_TYPES, precheck, uploadFile } from "@/components/uploads/upload-file";
 
-const MAX_BYTES = 10 * 1024 * 1024;
-const TYPES = ["image/jpeg", "image/png", "image/webp", "image/heic"];
+const TYPES: readonly string[] = ACCEPTED_PHOTO_TYPES;
 
-type State = "idle" | "sending" | "sent" | "not-ready" | "error" | "too-big" | "wrong-type";
+type State = "idle" | "sending" | "sent" | "error" | "too-big" | "wrong-type";
 
 /**
  * A photo for the nurse (e.g. the skin around a tummy catheter), through the same upload service
- * as the clinician side. Built against the API expected from branch helper/passport:
- *   POST /api/patients/:id/uploads { category, fileName, contentType, sizeBytes }
- *     → { upload: { id }, url, method?, headers? }   (a presigned S3 PUT)
- *   PUT url (the file) → POST /api/patients/:id/uploads/:uploadId/complete
- * The lead adjusts the three calls below if the merged service differs.
+ * as the record's Documents tab (components/uploads/upload-file.ts): declared to the app, sent
+ * to the store with a presigned PUT, then checked from its bytes on the server.
  */
 export function SitePhotoUpload({ patientId }: { patientId: string }) {
   const t = useTranslations("MyCatheter.photo");
+  const tu = useTranslations("Uploads");
   const [file, setFile] = useState<File | null>(null);
   const [preview, setPreview] = useState<string | null>(null);
   const [state, setState] = useState<State>("idle");
@@ -31,22 +29,12 @@ export function SitePhotoUpload({ patientId }: { patientId: string }) {
   async function send() {
     if (!file) return;
     setState("sending");
-    try {
-      const start = await fetch(`/api/patients/${patientId}/uploads`, {
-        method: "POST",
-        headers: { "content-type": "application/json" },
-        body: JSON.stringify({ category: "site-photo", fileName: file.name || "photo", contentType: file.type, sizeBytes: file.size }),
-      });
-      if (start.status === 404 || start.status === 405) return setState("not-ready");
-      if (!start.ok) return setState("error");
-      const body = await start.json();
-      const put = await fetch(body.url, { method: body.method ?? "PUT", headers: { "content-type": file.type, ...(body.headers ?? {}) }, body: file });
-      if (!put.ok) return setState("error");
-      const done = await fetch(`/api/patients/${patientId}/uploads/${body.upload?.id ?? body.id}/complete`, { method: "POST", headers: { "content-type": "application/json" }, body: "{}" });
-      setState(done.ok ? "sent" : "error");
-      if (done.ok) setFile(null);
-    } catch {
-      setState("error");
+    const outcome = await uploadFile({ patientId, file, category: "site-photo", label: tu("categories.site-photo") });
+    if (outcome.ok) {
+      setState("sent");
+      setFile(null);
+    } else {
+      setState(outcome.reason === "failed" ? "error" : outcome.reason);
     }
   }
 
@@ -66,8 +54,8 @@ export function SitePhotoUpload({ patientId }: { patientId: string }) {
           onChange={(e) => {
             const f = e.target.files?.[0] ?? null;
             setState("idle");
-            if (f && f.size > MAX_BYTES) return setState("too-big");
-            if (f && !TYPES.includes(f.type)) return setState("wrong-type");
+            const problem = f ? precheck(f, TYPES) : null;
+            if (problem === "too-big" || problem === "wrong-type") return setState(problem);
             setFile(f);
           }}
         />

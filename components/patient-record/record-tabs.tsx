@@ -6,6 +6,7 @@ const tabs = [
   { key: "device", path: "" },
   { key: "history", path: "/history" },
   { key: "passport", path: "/passport" },
+  { key: "documents", path: "/documents" },
   { key: "checkIns", path: "/check-ins" },
   { key: "letters", path: "/letters" },
   { key: "access", path: "/access" },

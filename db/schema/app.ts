@@ -339,7 +339,8 @@ export const uploads = pgTable(
     label: text("label").notNull(),
     contentType: text("content_type"),
     sizeBytes: integer("size_bytes"),
-    status: text("status", { enum: ["pending", "ready", "rejected"] }).notNull().default("pending"),
+    // "removed": a care-team clinician took it off the record; the bytes are deleted from the store.
+    status: text("status", { enum: ["pending", "ready", "rejected", "removed"] }).notNull().default("pending"),
     ...timestamps,
   },
   (t) => [

@@ -1,0 +1,34 @@
+import { notFound } from "next/navigation";
+import { getTranslations } from "next-intl/server";
+import { PassportPanel } from "@/components/passport/passport-panel";
+import { getPatientForInvite } from "@/db/queries/invitations";
+import { getPassportOverview } from "@/db/queries/passports";
+import { getPatientRecord } from "@/db/queries/patients";
+import { passportLanguages } from "@/lib/passport";
+import { openRecordPage } from "@/lib/patient-record-page";
+
+export async function generateMetadata() {
+  const t = await getTranslations("Passport");
+  return { title: t("title") };
+}
+
+export default async function PassportTab({ params }: { params: Promise<{ locale: string; patientId: string }> }) {
+  const { locale, patientId } = await params;
+  const { via } = await openRecordPage({ locale, patientId, action: "patient.view.passport" });
+  const [record, overview, invitee] = await Promise.all([
+    getPatientRecord({ patientId }),
+    getPassportOverview({ patientId }),
+    getPatientForInvite({ patientId }),
+  ]);
+  if (!record || !invitee) notFound();
+  return (
+    <PassportPanel
+      patientId={patientId}
+      overview={overview}
+      languages={passportLanguages(record.patient.preferredLocale)}
+      hasDevice={Boolean(record.currentEpisode)}
+      // Only the care team gives activation codes (as on the invite route), and only before an account exists.
+      canOfferActivation={via === "care_team" && !invitee.userId && !invitee.closedAt}
+    />
+  );
+}

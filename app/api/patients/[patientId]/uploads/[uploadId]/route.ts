@@ -1,0 +1,17 @@
+import { isUuid, requireRole, requireStaffPatientAccess } from "@/lib/auth/permissions";
+import { AppError } from "@/lib/errors";
+import { handle } from "@/lib/http";
+import { removeUpload } from "@/lib/uploads";
+
+type Ctx = { params: Promise<{ patientId: string; uploadId: string }> };
+
+/** Takes a photo or document off the record; the bytes are deleted from the store. Care team only. */
+export const DELETE = handle<Ctx>(async (request, { params }) => {
+  const { patientId, uploadId } = await params;
+  const viewer = await requireRole(request, "clinician");
+  const via = await requireStaffPatientAccess(viewer, patientId);
+  if (via !== "care_team") throw new AppError("forbidden", "Only the patient's care team can remove a file.");
+  if (!isUuid(uploadId)) throw new AppError("not_found");
+  await removeUpload({ viewer, patientId, via, uploadId, request });
+  return new Response(null, { status: 204 });
+});

@@ -1,0 +1,247 @@
+"use client";
+// The record's photos and documents: add one (presigned upload, checked again from its bytes
+// on the server), see them as thumbnails or file rows, download, remove with a confirmation.
+import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { useFormatter, useTranslations } from "next-intl";
+import { useEffect, useRef, useState } from "react";
+import { Button, buttonClass } from "@/components/ui/button";
+import { Card } from "@/components/ui/card";
+import { Field } from "@/components/ui/field";
+import type { UploadDto } from "@/db/queries/uploads";
+import { uploadCategories, type UploadCategory } from "@/lib/validations/upload";
+import { ACCEPTED_UPLOAD_TYPES, precheck, uploadFile, type UploadFailure } from "./upload-file";
+
+export const uploadKeys = {
+  all: ["uploads"] as const,
+  list: (patientId: string) => ["uploads", patientId] as const,
+};
+
+async function fetchUploads(patientId: string): Promise<UploadDto[]> {
+  const res = await fetch(`/api/patients/${patientId}/uploads`);
+  if (!res.ok) throw new Error(`uploads ${res.status}`);
+  return (await res.json()).uploads;
+}
+
+const failureKey: Record<UploadFailure, "tooLarge" | "badType" | "failed"> = {
+  "too-big": "tooLarge",
+  "wrong-type": "badType",
+  failed: "failed",
+};
+
+export function UploadsPanel({ patientId, initial, canRemove }: { patientId: string; initial: UploadDto[]; canRemove: boolean }) {
+  const t = useTranslations("Uploads");
+  const format = useFormatter();
+  const queryClient = useQueryClient();
+  const list = useQuery({ queryKey: uploadKeys.list(patientId), queryFn: () => fetchUploads(patientId), initialData: initial });
+
+  const [category, setCategory] = useState<UploadCategory>("packaging-label");
+  const [label, setLabel] = useState("");
+  const [file, setFile] = useState<File | null>(null);
+  const [errors, setErrors] = useState<{ label?: string[]; file?: string[] }>({});
+  const [status, setStatus] = useState<string>("");
+  const [confirmId, setConfirmId] = useState<string | null>(null);
+  // A new key clears the file input after an upload.
+  const [fileKey, setFileKey] = useState(0);
+  const confirmRef = useRef<HTMLButtonElement>(null);
+
+  useEffect(() => {
+    if (confirmId) confirmRef.current?.focus();
+  }, [confirmId]);
+
+  const upload = useMutation({
+    mutationFn: (input: { file: File; category: UploadCategory; label: string }) => uploadFile({ patientId, ...input }),
+    onSuccess: (outcome) => {
+      if (outcome.ok) {
+        setStatus(t("uploaded"));
+        setFile(null);
+        setLabel("");
+        setFileKey((k) => k + 1);
+      } else {
+        setErrors({ file: [t(failureKey[outcome.reason])] });
+        setStatus("");
+      }
+      queryClient.invalidateQueries({ queryKey: uploadKeys.list(patientId) });
+    },
+  });
+
+  const remove = useMutation({
+    mutationFn: async (uploadId: string) => {
+      const res = await fetch(`/api/patients/${patientId}/uploads/${uploadId}`, { method: "DELETE" });
+      if (!res.ok && res.status !== 404) throw new Error(`remove ${res.status}`);
+    },
+    onSuccess: () => {
+      setConfirmId(null);
+      setStatus(t("removed"));
+      queryClient.invalidateQueries({ queryKey: uploadKeys.list(patientId) });
+    },
+  });
+
+  function submit(e: React.FormEvent) {
+    e.preventDefault();
+    setStatus("");
+    // Every problem at once, not the first only.
+    const next: typeof errors = {};
+    if (!label.trim()) next.label = [t("labelRequired")];
+    if (!file) next.file = [t("chooseFile")];
+    else {
+      const problem = precheck(file, ACCEPTED_UPLOAD_TYPES);
+      if (problem) next.file = [t(failureKey[problem])];
+    }
+    setErrors(next);
+    if (Object.keys(next).length || !file) return;
+    upload.mutate({ file, category, label: label.trim() });
+  }
+
+  const uploads = list.data ?? [];
+  const fileUrl = (u: UploadDto, inline = false) => `/api/patients/${patientId}/uploads/${u.id}/file${inline ? "?inline=1" : ""}`;
+
+  return (
+    <div className="flex flex-col gap-6">
+      <section aria-labelledby="uploads-heading" className="flex flex-col gap-3">
+        <h2 id="uploads-heading" className="text-2xl font-bold">
+          {t("title")}
+        </h2>
+        <p className="max-w-prose">{t("intro")}</p>
+      </section>
+
+      <Card>
+        <form onSubmit={submit} noValidate className="flex max-w-xl flex-col gap-4" aria-labelledby="uploads-add">
+          <h3 id="uploads-add" className="text-xl font-bold">
+            {t("add")}
+          </h3>
+          <div className="flex flex-col gap-1">
+            <label htmlFor="upload-category" className="font-bold">
+              {t("category")}
+            </label>
+            <select
+              id="upload-category"
+              value={category}
+              onChange={(e) => setCategory(e.target.value as UploadCategory)}
+              className="min-h-12 rounded-lg border-2 border-stone-line bg-paper-raised px-3 text-ink"
+            >
+              {uploadCategories.map((c) => (
+                <option key={c} value={c}>
+                  {t(`categories.${c}`)}
+                </option>
+              ))}
+            </select>
+          </div>
+          <Field
+            label={t("label")}
+            hint={t("labelHint")}
+            value={label}
+            maxLength={120}
+            onChange={(e) => setLabel(e.target.value)}
+            errors={errors.label}
+            name="label"
+          />
+          <Field
+            key={fileKey}
+            type="file"
+            label={t("file")}
+            hint={t("fileHint")}
+            accept={ACCEPTED_UPLOAD_TYPES.join(",")}
+            errors={errors.file}
+            name="file"
+            className="[&_input]:py-2"
+            onChange={(e) => {
+              setErrors((x) => ({ ...x, file: undefined }));
+              setFile(e.target.files?.[0] ?? null);
+            }}
+          />
+          <div>
+            <Button type="submit" disabled={upload.isPending} data-testid="upload-submit">
+              {upload.isPending ? t("uploading") : t("upload")}
+            </Button>
+          </div>
+        </form>
+      </Card>
+
+      <p role="status" className="font-bold" data-testid="upload-status">
+        {status}
+      </p>
+
+      <section aria-labelledby="uploads-list" className="flex flex-col gap-3">
+        <h3 id="uploads-list" className="text-xl font-bold">
+          {t("listTitle")}
+        </h3>
+        {uploads.length === 0 ? <p>{t("empty")}</p> : null}
+        <ul className="grid grid-cols-1 gap-4 sm:grid-cols-2 lg:grid-cols-3" data-testid="upload-list">
+          {uploads.map((u) => (
+            <li key={u.id} className="flex flex-col gap-2 rounded-card border border-stone-faint bg-paper-raised p-4" data-testid="upload-item">
+              {u.isImage ? (
+                // eslint-disable-next-line @next/next/no-img-element -- served by our own route, checked from its bytes
+                <img
+                  src={fileUrl(u, true)}
+                  alt={t("photoOf", { label: u.label })}
+                  className="h-40 w-full rounded-lg bg-paper-sunk object-contain"
+                  loading="lazy"
+                />
+              ) : (
+                <div aria-hidden="true" className="flex h-40 items-center justify-center rounded-lg bg-paper-sunk text-3xl font-bold text-stone">
+                  {u.contentType === "application/pdf" ? "PDF" : "—"}
+                </div>
+              )}
+              <p className="font-bold">{u.label}</p>
+              <p className="text-sm">
+                {t(`categories.${u.category}`)}
+                {u.sizeBytes ? (
+                  <>
+                    {" · "}
+                    <span className="tabular">{t("sizeKb", { size: format.number(Math.max(1, Math.round(u.sizeBytes / 1024))) })}</span>
+                  </>
+                ) : null}
+              </p>
+              <p className="text-sm text-ink-soft">
+                <span className="tabular">{t("added", { date: format.dateTime(new Date(u.createdAt), { dateStyle: "medium", timeStyle: "short" }) })}</span>
+                {u.uploadedByName ? <> {t("addedBy", { name: u.uploadedByName })}</> : null}
+              </p>
+              {u.status !== "ready" ? (
+                <p className="text-sm font-bold text-level-urgent-ink">{u.status === "rejected" ? t("rejected") : t("pending")}</p>
+              ) : null}
+              <div className="mt-auto flex flex-wrap gap-2">
+                {u.status === "ready" ? (
+                  <a href={fileUrl(u)} className={buttonClass("secondary")} download>
+                    {t("download")}
+                  </a>
+                ) : null}
+                {canRemove ? (
+                  <Button variant="quiet" onClick={() => setConfirmId(u.id)} disabled={remove.isPending} data-testid="upload-remove">
+                    {t("remove")}
+                  </Button>
+                ) : null}
+              </div>
+              {confirmId === u.id ? (
+                <div role="alertdialog" aria-labelledby={`rm-${u.id}`} className="flex flex-col gap-2 rounded-lg border-2 border-level-urgent bg-level-urgent-soft p-3">
+                  <p id={`rm-${u.id}`} className="font-bold text-level-urgent-ink">
+                    {t("removeConfirm", { label: u.label })}
+                  </p>
+                  <div className="flex flex-wrap gap-2">
+                    <button
+                      type="button"
+                      ref={confirmRef}
+                      className={buttonClass("danger")}
+                      onClick={() => remove.mutate(u.id)}
+                      disabled={remove.isPending}
+                      data-testid="upload-remove-confirm"
+                    >
+                      {t("removeYes")}
+                    </button>
+                    <Button variant="secondary" onClick={() => setConfirmId(null)}>
+                      {t("cancel")}
+                    </Button>
+                  </div>
+                </div>
+              ) : null}
+            </li>
+          ))}
+        </ul>
+        {remove.isError ? (
+          <p role="alert" className="font-bold text-level-emergency-ink">
+            {t("removeFailed")}
+          </p>
+        ) : null}
+      </section>
+    </div>
+  );
+}
