@@ -18,6 +18,8 @@ function createPool() {
     max: env.DATABASE_POOL_MAX,
     connectionTimeoutMillis: 5_000,
     idleTimeoutMillis: 30_000,
+    // Finds a connection the network or a database restart dropped, instead of waiting on it.
+    keepAlive: true,
   });
   // A dropped connection (e.g. a database restart) must not crash the process; the pool
   // replaces the client on the next query.
