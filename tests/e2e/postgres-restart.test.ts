@@ -52,6 +52,9 @@ beforeAll(async () => {
     if (r.status !== 0) throw new Error(`${script} failed: ${r.stderr}`);
   }
   const port = await freePort();
+  // Mail goes nowhere (a port nobody listens on): the seeded outbox stays queued instead of
+  // reaching the shared fake inbox other tests read; the background worker still runs.
+  env.SMTP_URL = `smtp://127.0.0.1:${await freePort()}`;
   appUrl = `http://localhost:${port}`;
   server = spawn(path.join(root, "node_modules/.bin/next"), ["start", "-p", String(port), "-H", "127.0.0.1"], {
     cwd: root,
