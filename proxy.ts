@@ -32,15 +32,18 @@ export default function proxy(request: NextRequest) {
   const { pathname } = request.nextUrl;
   const hasSession =
     request.cookies.has("better-auth.session_token") || request.cookies.has("__Secure-better-auth.session_token");
+  const nonce = Buffer.from(crypto.getRandomValues(new Uint8Array(16))).toString("base64");
+  const csp = contentSecurityPolicy(nonce);
   if (signedInAreas.test(pathname) && !hasSession) {
     const locale = pathname.split("/")[1];
     const url = request.nextUrl.clone();
     url.pathname = `/${locale}/sign-in`;
     url.search = "";
-    return NextResponse.redirect(url);
+    // The redirect is an answer too: it carries the same policy as a page (security-headers test).
+    const redirect = NextResponse.redirect(url);
+    redirect.headers.set("Content-Security-Policy", csp);
+    return redirect;
   }
-  const nonce = Buffer.from(crypto.getRandomValues(new Uint8Array(16))).toString("base64");
-  const csp = contentSecurityPolicy(nonce);
   // next-intl forwards the request headers, so the nonce reaches the page renderer.
   request.headers.set("x-nonce", nonce);
   request.headers.set("Content-Security-Policy", csp);

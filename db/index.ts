@@ -18,10 +18,18 @@ function createPool() {
     max: env.DATABASE_POOL_MAX,
     connectionTimeoutMillis: 5_000,
     idleTimeoutMillis: 30_000,
+    // Finds a connection the network or a database restart dropped, instead of waiting on it.
+    keepAlive: true,
   });
   // A dropped connection (e.g. a database restart) must not crash the process; the pool
   // replaces the client on the next query.
   pool.on("error", (err) => console.error("[db] idle client error:", err.message));
+  // A client checked out (inside a transaction, between two queries) when the server goes away
+  // emits "error" with no listener of the pool's: without this it is an uncaught exception. The
+  // pending query still fails (answered 503) and the pool drops the broken client on release.
+  pool.on("connect", (client) => {
+    client.on("error", (err) => console.error("[db] client error:", err.message));
+  });
   return pool;
 }
 

@@ -82,8 +82,8 @@ export function toAppError(error: unknown): AppError {
   if (pgCode === "23514" || pgCode === "22P02" || pgCode === "22007" || pgCode === "22008" || pgCode === "22003") {
     return new AppError("validation_failed", undefined, { cause: error });
   }
-  if (pgCode === "57P01" || pgCode === "08006" || pgCode === "08003" || isConnectionError(error)) {
-    return new AppError("unavailable", undefined, { cause: error });
+  if (isConnectionError(error)) {
+    return new AppError("unavailable", undefined, { cause: error, headers: { "Retry-After": "2" } });
   }
   return new AppError("internal", undefined, { cause: error });
 }
@@ -108,13 +108,24 @@ export function pgConstraint(error: unknown): string | undefined {
   return undefined;
 }
 
-function isConnectionError(error: unknown): boolean {
+// The database is away (restart, fail-over, network): the request can be tried again, so it is
+// answered 503 "unavailable", never a 500. Class 08 is connection exceptions; 57P01–57P03 are
+// admin shutdown, crash shutdown and "cannot connect now"; 53300 is too many connections.
+const unavailablePgCodes = /^(08...|57P0[123]|53300)$/;
+const unavailableErrnos = new Set(["ECONNREFUSED", "ECONNRESET", "EPIPE", "ETIMEDOUT", "EHOSTUNREACH", "ENETUNREACH"]);
+const unavailableMessages =
+  /Connection terminated|connection timeout|timeout exceeded when trying to connect|terminating connection|not queryable|Connection ended|database system is (shutting down|starting up|not yet accepting)|Client was closed/i;
+
+function isConnectionError(error: unknown, depth = 0): boolean {
   let e: unknown = error;
-  for (let i = 0; i < 4 && e && typeof e === "object"; i++) {
+  for (let i = 0; i < 6 && e && typeof e === "object"; i++) {
     const code = (e as { code?: unknown }).code;
-    if (code === "ECONNREFUSED" || code === "ECONNRESET" || code === "EPIPE") return true;
+    if (typeof code === "string" && (unavailableErrnos.has(code) || unavailablePgCodes.test(code))) return true;
     const msg = (e as { message?: unknown }).message;
-    if (typeof msg === "string" && /Connection terminated|connection timeout|terminating connection/i.test(msg)) return true;
+    if (typeof msg === "string" && unavailableMessages.test(msg)) return true;
+    // net.connect to a host with several addresses fails with an AggregateError.
+    const inner = (e as { errors?: unknown }).errors;
+    if (depth < 2 && Array.isArray(inner) && inner.some((x) => isConnectionError(x, depth + 1))) return true;
     e = (e as { cause?: unknown }).cause;
   }
   return false;

@@ -19,8 +19,7 @@ export async function parseJsonBody<S extends z.ZodType>(
   if (!type.toLowerCase().startsWith("application/json")) {
     throw new AppError("unsupported_media_type", "Send the request body as application/json.");
   }
-  const text = await request.text();
-  if (Buffer.byteLength(text) > maxBytes) throw new AppError("payload_too_large");
+  const text = await readCapped(request, maxBytes);
   let data: unknown;
   try {
     data = JSON.parse(text);
@@ -28,6 +27,27 @@ export async function parseJsonBody<S extends z.ZodType>(
     throw new AppError("bad_request", "The request body is not valid JSON.");
   }
   return parseInput(schema, data);
+}
+
+/** The body as text, refused as soon as it passes maxBytes (never read whole into memory first). */
+async function readCapped(request: Request, maxBytes: number): Promise<string> {
+  const declared = Number(request.headers.get("content-length"));
+  if (Number.isFinite(declared) && declared > maxBytes) throw new AppError("payload_too_large");
+  if (!request.body) return "";
+  const reader = request.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let size = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    size += value.byteLength;
+    if (size > maxBytes) {
+      await reader.cancel().catch(() => {});
+      throw new AppError("payload_too_large");
+    }
+    chunks.push(value);
+  }
+  return new TextDecoder().decode(Buffer.concat(chunks));
 }
 
 export function searchParamsObject(url: string | URL): Record<string, string> {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { z } from "zod";
-import { AppError } from "@/lib/errors";
+import { AppError, toAppError } from "@/lib/errors";
 import { handle, json } from "@/lib/http";
 import { parseJsonBody } from "@/lib/validate";
 import { request } from "../support/http";
@@ -53,5 +53,31 @@ describe("one shape for API errors", () => {
     const res = new AppError("rate_limited").toResponse();
     expect(res.status).toBe(429);
     expect(res.headers.get("cache-control")).toBe("no-store");
+  });
+
+  // Seen in tests/e2e/postgres-restart.test.ts while PostgreSQL restarted: each must be a 503 the
+  // phone can retry, not a 500.
+  it("answers a database that is away with 503 unavailable and Retry-After", () => {
+    const pgError = (code: string, message: string) => Object.assign(new Error(message), { code, severity: "FATAL" });
+    const wrapped = (cause: unknown, message = "Failed query: begin") => Object.assign(new Error(message), { cause });
+    const cases: unknown[] = [
+      pgError("57P01", "terminating connection due to administrator command"),
+      wrapped(pgError("57P03", "the database system is shutting down")),
+      wrapped(new Error("Client has encountered a connection error and is not queryable")),
+      wrapped(new Error("Connection terminated unexpectedly"), "Failed query: rollback"),
+      wrapped(new Error("timeout exceeded when trying to connect")),
+      wrapped(wrapped(wrapped(Object.assign(new Error("connect ECONNREFUSED 127.0.0.1:5433"), { code: "ECONNREFUSED" })))),
+      Object.assign(new AggregateError([Object.assign(new Error("connect ECONNREFUSED ::1:5433"), { code: "ECONNREFUSED" })]), { message: "" }),
+      // better-auth wraps the failed session query in its own 500.
+      Object.assign(new Error("Failed to get session"), { statusCode: 500, cause: wrapped(pgError("57P01", "terminating connection due to administrator command")) }),
+    ];
+    for (const c of cases) {
+      const e = toAppError(c);
+      expect(e.code, String((c as Error).message)).toBe("unavailable");
+      expect(e.toResponse().status).toBe(503);
+      expect(e.toResponse().headers.get("retry-after")).toBe("2");
+    }
+    expect(toAppError(new Error("disk on fire")).code).toBe("internal");
+    expect(toAppError(pgError("23505", "duplicate key")).code).toBe("conflict");
   });
 });
