@@ -1,0 +1,53 @@
+import { z } from "zod";
+import type { StaffRole } from "@/db/schema/app";
+import { PASSWORD_MIN_LENGTH, passwordProblem } from "@/lib/auth/password-rules";
+import { locales } from "@/lib/i18n/routing";
+
+export const staffRoles = ["admin", "clinician"] as const satisfies readonly StaffRole[];
+
+// Messages are codes the staff forms translate (AdminStaff.errors.<code>, AcceptInvite.errors.<code>).
+const organisationIds = z
+  .array(z.uuid({ message: "organisations_required" }))
+  .min(1, { message: "organisations_required" })
+  .max(50)
+  .refine((ids) => new Set(ids).size === ids.length, { message: "organisations_required" });
+
+export const inviteStaffSchema = z.object({
+  email: z.email({ message: "email_invalid" }).max(254).transform((e) => e.toLowerCase()),
+  name: z.preprocess(
+    (v) => (typeof v === "string" && v.trim() === "" ? null : v),
+    z.string().trim().max(120, { message: "name_length" }).nullable().optional(),
+  ),
+  role: z.enum(staffRoles, { message: "role_required" }),
+  organisationIds,
+  locale: z.enum(locales).default("en"),
+});
+export type InviteStaffInput = z.infer<typeof inviteStaffSchema>;
+export type InviteStaffFormValues = z.input<typeof inviteStaffSchema>;
+
+export const updateStaffSchema = z
+  .object({
+    role: z.enum(staffRoles, { message: "role_required" }),
+    /** The member's organisations among those the admin manages (others are left alone). */
+    organisationIds: z.array(z.uuid()).max(50),
+  })
+  .partial()
+  .strict();
+export type UpdateStaffInput = z.infer<typeof updateStaffSchema>;
+
+export const newPasswordSchema = z
+  .string()
+  .max(256, { message: "password_too_long" })
+  .superRefine((p, ctx) => {
+    const problem = passwordProblem(p);
+    if (problem) ctx.addIssue({ code: "custom", message: `password_${problem}` });
+  });
+
+export const acceptInviteSchema = z.object({
+  token: z.string().min(20).max(200),
+  name: z.string().trim().min(2, { message: "name_length" }).max(120, { message: "name_length" }),
+  password: newPasswordSchema,
+});
+export type AcceptInviteInput = z.infer<typeof acceptInviteSchema>;
+
+export { PASSWORD_MIN_LENGTH };
