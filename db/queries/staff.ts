@@ -266,6 +266,14 @@ export async function lockAdminRoster(tx: Executor) {
   await tx.execute(sql`select pg_advisory_xact_lock(hashtext('caddis:admin-roster'))`);
 }
 
+/** The organisations of an active admin, read now (null when they are no longer an active admin). */
+export async function currentAdminOrganisationIds({ userId }: { userId: string }, tx: Executor) {
+  const [u] = await tx.select({ role: user.role, deactivatedAt: user.deactivatedAt }).from(user).where(eq(user.id, userId));
+  if (!u || u.role !== "admin" || u.deactivatedAt) return null;
+  const rows = await tx.select({ id: memberships.organisationId }).from(memberships).where(eq(memberships.userId, userId));
+  return rows.map((r) => r.id);
+}
+
 export async function adminRoster(tx: Executor) {
   const admins = await tx
     .select({ id: user.id })

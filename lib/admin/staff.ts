@@ -10,6 +10,7 @@ import {
   adminRoster,
   countMemberships,
   createStaffAccount,
+  currentAdminOrganisationIds,
   deactivateUser,
   findInvitationByTokenHash,
   findOpenInvitations,
@@ -42,11 +43,17 @@ function assertManages(viewer: Viewer, organisationIds: string[]) {
   if (organisationIds.some((id) => !viewer.organisationIds.includes(id))) throw new AppError("not_found");
 }
 
-/** Runs a change to the admin roster and refuses it if it leaves an admin-less deployment or organisation. */
-async function guardAdmins<T>(tx: Executor, change: () => Promise<T>): Promise<T> {
+/**
+ * Runs a change to the admin roster under the roster lock and refuses it if it leaves an
+ * admin-less deployment or organisation. The acting admin's own organisations are read again
+ * under the lock: a change committed a moment ago may have taken one away.
+ */
+async function guardAdmins<T>(tx: Executor, viewer: Viewer, change: (actor: Viewer) => Promise<T>): Promise<T> {
   await lockAdminRoster(tx);
+  const organisationIds = await currentAdminOrganisationIds({ userId: viewer.userId }, tx);
+  if (!organisationIds) throw new AppError("forbidden");
   const before = await adminRoster(tx);
-  const result = await change();
+  const result = await change({ ...viewer, organisationIds });
   const after = await adminRoster(tx);
   if (after.total === 0) throw new AppError("last_admin", "This is the last active administrator of Caddis.");
   const orphaned = [...before.organisationsWithAdmins].filter((id) => !after.organisationsWithAdmins.has(id));
@@ -167,10 +174,10 @@ async function loadMember(viewer: Viewer, userId: string, tx: Executor) {
 }
 
 export async function updateStaff({ viewer, userId, input, request }: { viewer: Viewer; userId: string; input: UpdateStaffInput; request: RequestLike }) {
-  if (input.organisationIds) assertManages(viewer, input.organisationIds);
   return db.transaction(async (tx) =>
-    guardAdmins(tx, async () => {
-      const before = await loadMember(viewer, userId, tx);
+    guardAdmins(tx, viewer, async (actor) => {
+      if (input.organisationIds) assertManages(actor, input.organisationIds);
+      const before = await loadMember(actor, userId, tx);
       const details: Record<string, unknown> = {};
       if (input.role && input.role !== before.role) {
         await setRole({ userId, role: input.role }, tx);
@@ -203,8 +210,8 @@ export async function deactivateStaff({ viewer, userId, request }: { viewer: Vie
     throw new AppError("conflict", "You cannot deactivate your own account. Ask another administrator.");
   }
   return db.transaction(async (tx) =>
-    guardAdmins(tx, async () => {
-      const member = await loadMember(viewer, userId, tx);
+    guardAdmins(tx, viewer, async (actor) => {
+      const member = await loadMember(actor, userId, tx);
       if (!member.active) return { userId, sessionsEnded: 0 };
       const { sessionsEnded } = await deactivateUser({ userId }, tx);
       await audit({ action: "admin.staff.deactivate", actor: viewer, via: "admin", request, details: { userId, sessionsEnded } }, tx);

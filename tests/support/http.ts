@@ -23,11 +23,13 @@ export function request(pathname: string, init: Init = {}): Request {
 }
 
 type RouteContext = { params: Promise<Record<string, string | string[]>> };
-type Handler = (req: Request, ctx: RouteContext) => Promise<Response>;
+// Any handler, whatever its params' type (a handler of `{ params: Promise<{ id: string }> }` fits).
+type Handler = (req: Request, ctx: { params: Promise<never> }) => Promise<Response>;
 
 /** Calls a route handler; params are the dynamic segments of its folder. */
 export function call(handler: Handler, pathname: string, init: Init & { params?: Record<string, string | string[]> } = {}) {
-  return handler(request(pathname, init), { params: Promise.resolve(init.params ?? {}) });
+  const ctx: RouteContext = { params: Promise.resolve(init.params ?? {}) };
+  return handler(request(pathname, init), ctx as unknown as { params: Promise<never> });
 }
 
 /** The current TOTP code for a base32 secret, as an authenticator app would show it. */
