@@ -1,10 +1,15 @@
 import "server-only";
-import { inArray } from "drizzle-orm";
+import { inArray, sql } from "drizzle-orm";
 import { db, type Executor } from "@/db";
 import { settings } from "@/db/schema";
 
+/**
+ * Read as JSON text and parsed here: drizzle re-parses a jsonb string that looks like a number
+ * ("999" would come back as 999).
+ */
 export async function readSettingRows(tx: Executor = db) {
-  return tx.select({ key: settings.key, value: settings.value, updatedAt: settings.updatedAt }).from(settings);
+  const rows = await tx.select({ key: settings.key, json: sql<string>`${settings.value}::text`, updatedAt: settings.updatedAt }).from(settings);
+  return rows.map((r) => ({ key: r.key, value: JSON.parse(r.json) as unknown, updatedAt: r.updatedAt }));
 }
 
 /** Sets the given keys; a null value removes the key (the setting is then not configured). */
