@@ -1,7 +1,7 @@
 import { eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db";
-import { patients } from "@/db/schema";
+import { organisations, patients, user } from "@/db/schema";
 import { call, sessionFor } from "../../support/http";
 import { fillPattern, listRouteFiles, methods, type Method } from "../../support/routes";
 import { matrix, personas, type Fixture, type Persona } from "./access-matrix";
@@ -29,7 +29,10 @@ beforeAll(async () => {
   }
   const [arthur] = await db.select({ id: patients.id }).from(patients).where(eq(patients.healthRecordNumber, "EM-100-001"));
   const [yusuf] = await db.select({ id: patients.id }).from(patients).where(eq(patients.healthRecordNumber, "EM-100-003"));
-  fixture = { patientId: arthur.id, otherPatientId: yusuf.id };
+  const [harbourside] = await db.select({ id: organisations.id }).from(organisations).where(eq(organisations.name, "Harbourside Community Nursing Team"));
+  const [grace] = await db.select({ id: user.id }).from(user).where(eq(user.email, "community.nurse@eastmere.example"));
+  const [admin] = await db.select({ id: user.id }).from(user).where(eq(user.email, "admin@eastmere.example"));
+  fixture = { patientId: arthur.id, otherPatientId: yusuf.id, organisationId: harbourside.id, staffUserId: grace.id, adminUserId: admin.id };
 });
 
 describe("security matrix: every route handler × every persona", () => {

@@ -29,6 +29,7 @@ export const PATCH = handle<Ctx>(async (request, { params }) => {
     const organisation = await db.transaction(async (tx) => {
       const before = await getManagedOrganisation({ id: organisationId, organisationIds: viewer.organisationIds }, tx);
       if (!before) throw new AppError("not_found");
+      if (Object.keys(input).length === 0) return before;
       const row = await updateOrganisation({ id: organisationId, values: input }, tx);
       const changed = Object.keys(input).filter(
         (k) => JSON.stringify(before[k as keyof typeof before]) !== JSON.stringify(row![k as keyof typeof row]),
