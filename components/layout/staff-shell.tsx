@@ -2,16 +2,28 @@ import { getTranslations } from "next-intl/server";
 import type { ReactNode } from "react";
 import { LogoMark } from "@/components/ui/logo";
 import type { Role } from "@/lib/auth/session";
-import { Link } from "@/lib/i18n/navigation";
 import { LanguageSwitcher } from "./language-switcher";
+import { NavLink } from "./nav-link";
 
-type Item = { href: string; label: string };
+/** `sub` items show under their section in the side navigation only; the phone bar keeps the top level. */
+type Item = { href: string; label: string; sub?: boolean; exact?: boolean };
 
 /** Staff pages: a left navigation on wide screens, a bottom bar on phones. */
 export async function StaffShell({ role, name, children }: { role: Role; name: string; children: ReactNode }) {
   const t = await getTranslations("Nav");
+  const a = await getTranslations("AdminNav");
   const items: Item[] =
-    role === "admin" ? [{ href: "/admin", label: t("admin") }] : [{ href: "/caseload", label: t("caseload") }];
+    role === "admin"
+      ? [
+          { href: "/admin", label: t("admin"), exact: true },
+          { href: "/admin/organisations", label: a("organisations"), sub: true },
+          { href: "/admin/staff", label: a("staff"), sub: true },
+          { href: "/admin/settings", label: a("settings"), sub: true },
+          { href: "/admin/audit", label: a("audit"), sub: true },
+          { href: "/admin/patients", label: a("patients"), sub: true },
+        ]
+      : [{ href: "/caseload", label: t("caseload") }];
+  items.push({ href: "/account", label: a("account") });
   items.push({ href: "/sign-out", label: t("signOut") });
   return (
     <div className="min-h-dvh text-staff md:flex">
@@ -25,9 +37,15 @@ export async function StaffShell({ role, name, children }: { role: Role; name: s
         </div>
         <nav aria-label={t("label")} className="flex flex-col gap-1">
           {items.map((i) => (
-            <Link key={i.href} href={i.href} className="rounded-lg px-3 py-2 font-bold text-brand hover:bg-brand-soft">
+            <NavLink
+              key={i.href}
+              href={i.href}
+              exact={i.exact}
+              className={`rounded-lg px-3 py-2 text-brand hover:bg-brand-soft ${i.sub ? "ms-4 text-sm" : "font-bold"}`}
+              currentClassName="bg-brand-soft underline underline-offset-4"
+            >
               {i.label}
-            </Link>
+            </NavLink>
           ))}
         </nav>
         <div className="mt-auto flex flex-col gap-3 text-sm">
@@ -51,11 +69,18 @@ export async function StaffShell({ role, name, children }: { role: Role; name: s
         aria-label={t("label")}
         className="fixed inset-x-0 bottom-0 flex border-t border-stone-faint bg-paper-raised md:hidden"
       >
-        {items.map((i) => (
-          <Link key={i.href} href={i.href} className="flex min-h-14 flex-1 items-center justify-center font-bold text-brand">
-            {i.label}
-          </Link>
-        ))}
+        {items
+          .filter((i) => !i.sub)
+          .map((i) => (
+            <NavLink
+              key={i.href}
+              href={i.href}
+              className="flex min-h-14 flex-1 items-center justify-center px-1 text-center font-bold text-brand"
+              currentClassName="bg-brand-soft"
+            >
+              {i.label}
+            </NavLink>
+          ))}
       </nav>
     </div>
   );

@@ -35,3 +35,12 @@ export const settingsPatchSchema = z
   .partial()
   .strict();
 export type SettingsPatch = z.infer<typeof settingsPatchSchema>;
+
+/** The settings form: every key sent; an empty box clears its setting; empty material boxes are left out. */
+export const settingsFormSchema = settingsPatchSchema.extend({
+  defaultMaxDwellDays: z
+    .partialRecord(z.enum(MATERIALS), days(1, 365).nullable())
+    .transform((r) => Object.fromEntries(Object.entries(r).filter(([, v]) => v !== null && v !== undefined)) as Partial<Record<(typeof MATERIALS)[number], number>>),
+});
+export type SettingsFormValues = z.input<typeof settingsFormSchema>;
+export type SettingsFormOutput = z.output<typeof settingsFormSchema>;

@@ -51,3 +51,27 @@ export const acceptInviteSchema = z.object({
 export type AcceptInviteInput = z.infer<typeof acceptInviteSchema>;
 
 export { PASSWORD_MIN_LENGTH };
+
+/** Client forms that set a password ask for it twice. */
+const matches = (v: { newPassword: string; confirmPassword: string }) => v.newPassword === v.confirmPassword;
+const mismatch = { message: "password_mismatch", path: ["confirmPassword"] };
+
+export const changePasswordSchema = z
+  .object({ currentPassword: z.string().min(1, { message: "current_required" }).max(256), newPassword: newPasswordSchema, confirmPassword: z.string() })
+  .refine(matches, mismatch);
+export type ChangePasswordInput = z.infer<typeof changePasswordSchema>;
+
+export const resetPasswordSchema = z.object({ newPassword: newPasswordSchema, confirmPassword: z.string() }).refine(matches, mismatch);
+export type ResetPasswordInput = z.infer<typeof resetPasswordSchema>;
+
+export const acceptInviteFormSchema = z
+  .object({
+    name: acceptInviteSchema.shape.name,
+    password: newPasswordSchema,
+    confirmPassword: z.string(),
+  })
+  .refine((v) => v.password === v.confirmPassword, { message: "password_mismatch", path: ["confirmPassword"] });
+export type AcceptInviteFormInput = z.infer<typeof acceptInviteFormSchema>;
+
+export const totpCodeSchema = z.object({ code: z.string().trim().regex(/^\d{6}$/, { message: "code_format" }) });
+export const backupCodeSchema = z.object({ code: z.string().trim().min(6, { message: "backup_format" }).max(32, { message: "backup_format" }) });
