@@ -26,9 +26,11 @@ export function CloseRecordForm({ patientId, name }: { patientId: string; name: 
 
   if (!open) {
     return (
-      <Button variant="secondary" onClick={() => setOpen(true)} aria-label={t("closeFor", { name })}>
-        {t("close")}
-      </Button>
+      <div className="self-end">
+        <Button variant="secondary" onClick={() => setOpen(true)} aria-label={t("closeFor", { name })}>
+          {t("close")}
+        </Button>
+      </div>
     );
   }
   return (

@@ -41,7 +41,7 @@ export async function StaffShell({ role, name, children }: { role: Role; name: s
               key={i.href}
               href={i.href}
               exact={i.exact}
-              className={`rounded-lg px-3 py-2 text-brand hover:bg-brand-soft ${i.sub ? "ms-4 text-sm" : "font-bold"}`}
+              className={`rounded-lg px-3 py-2 text-brand hover:bg-brand-soft ${i.sub ? "ms-4" : "font-bold"}`}
               currentClassName="bg-brand-soft underline underline-offset-4"
             >
               {i.label}

@@ -24,48 +24,6 @@ const pages = [
   { path: "/account", name: "account" },
 ];
 
-describe("administration pages", () => {
-  it("the admin signs in with the TOTP code and sees each admin page, in English and Arabic", async () => {
-    const page = await newPage(browser, { viewport: { width: 1280, height: 900 } });
-    await signInAs(page, demo.admin.email, demo.admin.password);
-    expect(new URL(page.url()).pathname).toBe("/en/admin");
-    for (const locale of ["en", "ar"]) {
-      for (const p of pages) {
-        const res = await page.goto(`/${locale}${p.path}`);
-        expect(res?.status(), p.path).toBe(200);
-        await expect.poll(() => page.locator("h1").count()).toBeGreaterThan(0);
-        expect(await page.locator("html").getAttribute("dir")).toBe(locale === "ar" ? "rtl" : "ltr");
-        await screenshot(page, `${p.name}-${locale}`);
-      }
-    }
-    // The organisation editor and a staff member's page.
-    await page.goto("/en/admin/organisations");
-    await page.getByRole("link", { name: "Larch Ward" }).click();
-    await page.waitForURL(/\/en\/admin\/organisations\/[0-9a-f-]{36}$/);
-    await screenshot(page, "admin-organisation-edit-en");
-    await page.goto("/en/admin/staff");
-    await page.getByRole("link", { name: "Tomasz Reid" }).click();
-    await page.waitForURL(/\/en\/admin\/staff\/[^/]+$/);
-    await screenshot(page, "admin-staff-member-en");
-    await page.context().close();
-  });
-
-  it("the sign-in's second step refuses a wrong code and says so", async () => {
-    const page = await newPage(browser);
-    await page.context().setExtraHTTPHeaders({ "x-forwarded-for": "10.78.0.1" });
-    await page.goto("/en/sign-in");
-    await page.getByLabel("E-mail address").fill(demo.admin.email);
-    await page.locator('input[type="password"]').fill(demo.admin.password);
-    await page.locator('button[type="submit"]').click();
-    await page.waitForURL(/\/en\/two-factor$/);
-    await page.locator('input[autocomplete="one-time-code"]').fill("12345");
-    await page.locator('button[type="submit"]').click();
-    await expect.poll(() => page.getByRole("alert").first().textContent()).toContain("6 digits");
-    await screenshot(page, "two-factor-en");
-    await page.context().close();
-  });
-});
-
 describe("inviting a nurse", () => {
   it("an admin invites a nurse, the nurse accepts from the link and signs in to their caseload", async () => {
     const admin = await newPage(browser, { viewport: { width: 1280, height: 900 } });
@@ -110,5 +68,48 @@ describe("inviting a nurse", () => {
     await signInAs(again, email, "Larch-ward-nurse-pass-26");
     expect(new URL(again.url()).pathname).toBe("/en/caseload");
     await again.context().close();
+  });
+});
+
+describe("administration pages", () => {
+  // Runs after the invitation above, so the access log has events to show.
+  it("the admin signs in with the TOTP code and sees each admin page, in English and Arabic", { timeout: 300_000 }, async () => {
+    const page = await newPage(browser, { viewport: { width: 1280, height: 900 } });
+    await signInAs(page, demo.admin.email, demo.admin.password);
+    expect(new URL(page.url()).pathname).toBe("/en/admin");
+    for (const locale of ["en", "ar"]) {
+      for (const p of pages) {
+        const res = await page.goto(`/${locale}${p.path}`);
+        expect(res?.status(), p.path).toBe(200);
+        await expect.poll(() => page.locator("h1").count()).toBeGreaterThan(0);
+        expect(await page.locator("html").getAttribute("dir")).toBe(locale === "ar" ? "rtl" : "ltr");
+        await screenshot(page, `${p.name}-${locale}`);
+      }
+    }
+    // The organisation editor and a staff member's page.
+    await page.goto("/en/admin/organisations");
+    await page.getByRole("link", { name: "Larch Ward" }).click();
+    await page.waitForURL(/\/en\/admin\/organisations\/[0-9a-f-]{36}$/);
+    await screenshot(page, "admin-organisation-edit-en");
+    await page.goto("/en/admin/staff");
+    await page.getByRole("link", { name: "Tomasz Reid" }).click();
+    await page.waitForURL(/\/en\/admin\/staff\/[^/]+$/);
+    await screenshot(page, "admin-staff-member-en");
+    await page.context().close();
+  });
+
+  it("the sign-in's second step refuses a wrong code and says so", async () => {
+    const page = await newPage(browser);
+    await page.context().setExtraHTTPHeaders({ "x-forwarded-for": "10.78.0.1" });
+    await page.goto("/en/sign-in");
+    await page.getByLabel("E-mail address").fill(demo.admin.email);
+    await page.locator('input[type="password"]').fill(demo.admin.password);
+    await page.locator('button[type="submit"]').click();
+    await page.waitForURL(/\/en\/two-factor$/);
+    await page.locator('input[autocomplete="one-time-code"]').fill("12345");
+    await page.locator('button[type="submit"]').click();
+    await expect.poll(() => page.getByRole("alert").first().textContent()).toContain("6 digits");
+    await screenshot(page, "two-factor-en");
+    await page.context().close();
   });
 });

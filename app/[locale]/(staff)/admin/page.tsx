@@ -4,6 +4,9 @@ import { Notice } from "@/components/ui/notice";
 import { listOrganisationsManagedBy } from "@/db/queries/organisations";
 import { requirePageRole } from "@/lib/auth/permissions";
 import { Link } from "@/lib/i18n/navigation";
+
+// A phone number keeps its digit groups in order inside right-to-left text.
+const isolate = (s: string) => `\u2066${s}\u2069`;
 import { getSettings } from "@/lib/settings";
 
 export async function generateMetadata() {
@@ -66,7 +69,7 @@ export default async function AdminPage({ params }: { params: Promise<{ locale: 
                   {o.parentName ? ` · ${o.parentName}` : ""}
                 </p>
                 <p className="tabular mt-2">{t("staffCount", { count: o.staffCount })}</p>
-                {o.phone ? <p className="tabular">{t("phone", { phone: o.phone })}</p> : null}
+                {o.phone ? <p className="tabular">{t("phone", { phone: isolate(o.phone) })}</p> : null}
               </Card>
             </li>
           ))}

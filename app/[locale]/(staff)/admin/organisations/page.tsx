@@ -5,6 +5,9 @@ import { listOrganisationsManagedBy } from "@/db/queries/organisations";
 import { requirePageRole } from "@/lib/auth/permissions";
 import { Link } from "@/lib/i18n/navigation";
 
+// A phone number keeps its digit groups in order inside right-to-left text.
+const isolate = (s: string) => `\u2066${s}\u2069`;
+
 export async function generateMetadata() {
   const t = await getTranslations("AdminOrganisations");
   return { title: t("title") };
@@ -41,7 +44,7 @@ export default async function OrganisationsPage({ params }: { params: Promise<{ 
                 {o.parentName ? ` · ${o.parentName}` : ""}
               </p>
               <p className="tabular">{a("staffCount", { count: o.staffCount })}</p>
-              {o.phone ? <p className="tabular">{a("phone", { phone: o.phone })}</p> : <p className="text-ink-soft">{t("noPhone")}</p>}
+              {o.phone ? <p className="tabular">{a("phone", { phone: isolate(o.phone) })}</p> : <p className="text-ink-soft">{t("noPhone")}</p>}
               {o.inboxEmail ? <p className="break-all text-sm">{t("inboxShort", { email: o.inboxEmail })}</p> : null}
             </Card>
           </li>
