@@ -1,18 +1,14 @@
-// CSV for spreadsheets, safe against formula injection (OWASP "CSV injection"): a cell that a
-// spreadsheet would read as a formula (= + - @, tab, carriage return) is prefixed with a quote.
-const formulaStart = /^[=+\-@\t\r]/;
+// CSV for spreadsheets: RFC 4180 quoting, and cells a spreadsheet would run as a formula
+// (starting with = + - @, or a tab or carriage return) prefixed with ' (OWASP CSV injection).
+const FORMULA_START = /^[=+\-@\t\r]/;
 
 export function csvCell(value: unknown): string {
-  let s = value === null || value === undefined ? "" : value instanceof Date ? value.toISOString() : typeof value === "object" ? JSON.stringify(value) : String(value);
-  if (formulaStart.test(s)) s = `'${s}`;
-  return /[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
+  if (value === null || value === undefined) return "";
+  let text = typeof value === "string" ? value : String(value);
+  if (FORMULA_START.test(text)) text = `'${text}`;
+  return /[",\r\n]/.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
 }
 
-export function csvLine(cells: unknown[]): string {
-  return cells.map(csvCell).join(",");
-}
-
-/** A whole CSV document: UTF-8 with a byte-order mark (so names in every script open correctly), CRLF lines. */
-export function toCsv(header: string[], rows: unknown[][]): string {
-  return `\uFEFF${[csvLine(header), ...rows.map(csvLine)].join("\r\n")}\r\n`;
+export function toCsv(rows: readonly (readonly unknown[])[]): string {
+  return rows.map((r) => r.map(csvCell).join(",")).join("\r\n") + "\r\n";
 }

@@ -55,16 +55,22 @@ async function waitForPort(port: number, what: string, seconds = 30) {
 
 // ---------------------------------------------------------------- PostgreSQL
 
-function findPgBin(): string | null {
-  const fromPath = spawnSync("sh", ["-c", "command -v pg_ctl"], { encoding: "utf8" });
-  if (fromPath.status === 0 && fromPath.stdout.trim()) return path.dirname(fromPath.stdout.trim());
+export function findPgBin(): string | null {
+  // Debian keeps the server and its client tools together here; prefer it to whatever is on PATH.
   const base = "/usr/lib/postgresql";
-  if (!fs.existsSync(base)) return null;
-  const versions = fs
-    .readdirSync(base)
-    .filter((v) => fs.existsSync(path.join(base, v, "bin", "pg_ctl")))
-    .sort((a, b) => Number(b) - Number(a));
-  return versions.length ? path.join(base, versions[0], "bin") : null;
+  if (fs.existsSync(base)) {
+    const versions = fs
+      .readdirSync(base)
+      .filter((v) => fs.existsSync(path.join(base, v, "bin", "pg_ctl")))
+      .sort((a, b) => Number(b) - Number(a));
+    if (versions.length) return path.join(base, versions[0], "bin");
+  }
+  const fromPath = spawnSync("sh", ["-c", "command -v pg_ctl"], { encoding: "utf8" });
+  if (fromPath.status === 0 && fromPath.stdout.trim()) {
+    const dir = path.dirname(fs.realpathSync(fromPath.stdout.trim()));
+    if (fs.existsSync(path.join(dir, "initdb"))) return dir;
+  }
+  return null;
 }
 
 function installPostgres() {

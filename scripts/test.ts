@@ -88,7 +88,14 @@ async function main() {
       });
       try {
         await waitForHttp(`${appUrl}/en/sign-in`, 60);
-        ok = run(bin("vitest"), ["run", "--project", "e2e"], { ...env, NODE_ENV: "test", E2E_BASE_URL: appUrl }, "end-to-end tests") && ok;
+        ok =
+          run(
+            bin("vitest"),
+            ["run", "--project", "e2e"],
+            // The second-instance test starts another server with the same settings.
+            { ...env, NODE_ENV: "test", E2E_BASE_URL: appUrl, E2E_APP_SECRET: appEnv.BETTER_AUTH_SECRET },
+            "end-to-end tests",
+          ) && ok;
       } finally {
         server.kill("SIGTERM");
       }

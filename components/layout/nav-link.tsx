@@ -2,18 +2,24 @@
 import type { ReactNode } from "react";
 import { Link, usePathname } from "@/lib/i18n/navigation";
 
-/** A navigation link that marks the page you are on (aria-current), for sighted and screen-reader users alike. */
-export function NavLink({ href, className, currentClassName = "", exact = false, children }: {
+/** A navigation link that marks itself as the current page (or, unless `exact`, the section of it). */
+export function NavLink({
+  href,
+  className,
+  activeClassName,
+  exact = false,
+  children,
+}: {
   href: string;
   className: string;
-  currentClassName?: string;
+  activeClassName: string;
   exact?: boolean;
   children: ReactNode;
 }) {
   const pathname = usePathname();
-  const current = exact ? pathname === href : pathname === href || pathname.startsWith(`${href}/`);
+  const active = exact ? pathname === href : pathname === href || pathname.startsWith(`${href}/`);
   return (
-    <Link href={href} aria-current={current ? "page" : undefined} className={`${className} ${current ? currentClassName : ""}`}>
+    <Link href={href} aria-current={active ? "page" : undefined} className={`${className} ${active ? activeClassName : ""}`}>
       {children}
     </Link>
   );

@@ -12,6 +12,7 @@ type Item = { href: string; label: string; sub?: boolean; exact?: boolean };
 export async function StaffShell({ role, name, children }: { role: Role; name: string; children: ReactNode }) {
   const t = await getTranslations("Nav");
   const a = await getTranslations("AdminNav");
+  // Clinicians: the caseload and registering a patient (a "Scan" item joins them here).
   const items: Item[] =
     role === "admin"
       ? [
@@ -22,7 +23,10 @@ export async function StaffShell({ role, name, children }: { role: Role; name: s
           { href: "/admin/audit", label: a("audit"), sub: true },
           { href: "/admin/patients", label: a("patients"), sub: true },
         ]
-      : [{ href: "/caseload", label: t("caseload") }];
+      : [
+          { href: "/caseload", label: t("caseload") },
+          { href: "/patients/new", label: t("registerPatient") },
+        ];
   items.push({ href: "/account", label: a("account") });
   items.push({ href: "/sign-out", label: t("signOut") });
   return (
@@ -42,7 +46,7 @@ export async function StaffShell({ role, name, children }: { role: Role; name: s
               href={i.href}
               exact={i.exact}
               className={`rounded-lg px-3 py-2 text-brand hover:bg-brand-soft ${i.sub ? "ms-4" : "font-bold"}`}
-              currentClassName="bg-brand-soft underline underline-offset-4"
+              activeClassName="bg-brand-soft underline underline-offset-4"
             >
               {i.label}
             </NavLink>
@@ -69,18 +73,17 @@ export async function StaffShell({ role, name, children }: { role: Role; name: s
         aria-label={t("label")}
         className="fixed inset-x-0 bottom-0 flex border-t border-stone-faint bg-paper-raised md:hidden"
       >
-        {items
-          .filter((i) => !i.sub)
-          .map((i) => (
-            <NavLink
-              key={i.href}
-              href={i.href}
-              className="flex min-h-14 flex-1 items-center justify-center px-1 text-center font-bold text-brand"
-              currentClassName="bg-brand-soft"
-            >
-              {i.label}
-            </NavLink>
-          ))}
+        {items.filter((i) => !i.sub).map((i) => (
+          <NavLink
+            key={i.href}
+            href={i.href}
+            exact={i.exact}
+            className="flex min-h-14 flex-1 items-center justify-center px-1 text-center text-sm font-bold leading-tight text-brand"
+            activeClassName="bg-brand-soft"
+          >
+            {i.label}
+          </NavLink>
+        ))}
       </nav>
     </div>
   );

@@ -22,14 +22,16 @@ export function request(pathname: string, init: Init = {}): Request {
   return new Request(new URL(pathname, origin), { method, headers, body });
 }
 
-type RouteContext = { params: Promise<Record<string, string | string[]>> };
-// Any handler, whatever its params' type (a handler of `{ params: Promise<{ id: string }> }` fits).
-type Handler = (req: Request, ctx: { params: Promise<never> }) => Promise<Response>;
+// Generic over the handler's params, so a handler typed `{ params: Promise<{ patientId: string }> }` fits.
+type Handler<P> = (req: Request, ctx: { params: Promise<P> }) => Promise<Response>;
 
 /** Calls a route handler; params are the dynamic segments of its folder. */
-export function call(handler: Handler, pathname: string, init: Init & { params?: Record<string, string | string[]> } = {}) {
-  const ctx: RouteContext = { params: Promise.resolve(init.params ?? {}) };
-  return handler(request(pathname, init), ctx as unknown as { params: Promise<never> });
+export function call<P = Record<string, string | string[]>>(
+  handler: Handler<P>,
+  pathname: string,
+  init: Init & { params?: Partial<P> } = {},
+) {
+  return handler(request(pathname, init), { params: Promise.resolve((init.params ?? {}) as P) });
 }
 
 /** The current TOTP code for a base32 secret, as an authenticator app would show it. */

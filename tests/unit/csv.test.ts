@@ -1,25 +1,29 @@
-// CSV cells that a spreadsheet would run as formulas are defused (OWASP CSV injection).
+// CSV cells: RFC 4180 quoting and OWASP's CSV-injection advice (prefix cells a spreadsheet would
+// read as a formula).
 import { describe, expect, it } from "vitest";
 import { csvCell, toCsv } from "@/lib/csv";
 
 describe("csvCell", () => {
-  it.each([
-    ["=1+1", "'=1+1"],
-    ["+SUM(A1)", "'+SUM(A1)"],
-    ["-2+3", "'-2+3"],
-    ["@cmd", "'@cmd"],
-    ["\tx", "'\tx"],
-    ["\r=x", "\"'\r=x\""],
-    ["plain", "plain"],
-    ['say "hi", then', '"say ""hi"", then"'],
-    ["", ""],
-  ])("%j → %j", (input, out) => {
-    expect(csvCell(input)).toBe(out);
+  it("prefixes = + - @ tab and carriage return with a quote mark", () => {
+    expect(csvCell("=1+1")).toBe("'=1+1");
+    expect(csvCell("+44 1632")).toBe("'+44 1632");
+    expect(csvCell("-3")).toBe("'-3");
+    expect(csvCell("@SUM(A1)")).toBe("'@SUM(A1)");
+    expect(csvCell("\tx")).toBe("'\tx");
   });
-
-  it("writes dates as ISO, objects as JSON, and starts with a byte-order mark", () => {
-    expect(csvCell(new Date("2026-03-01T10:00:00Z"))).toBe("2026-03-01T10:00:00.000Z");
-    expect(csvCell({ a: 1 })).toBe('"{""a"":1}"');
-    expect(toCsv(["a"], [["=x"]])).toBe("\uFEFFa\r\n'=x\r\n");
+  it("leaves ordinary text and numbers alone, and empty for null", () => {
+    expect(csvCell("Arthur Pell")).toBe("Arthur Pell");
+    expect(csvCell("EM-100-001")).toBe("EM-100-001");
+    expect(csvCell(14)).toBe("14");
+    expect(csvCell(null)).toBe("");
+    expect(csvCell(undefined)).toBe("");
+  });
+  it("quotes commas, quotes and line breaks", () => {
+    expect(csvCell('a,"b"')).toBe('"a,""b"""');
+    expect(csvCell("line\nbreak")).toBe('"line\nbreak"');
+    expect(csvCell('=HYPERLINK("x")')).toBe(`"'=HYPERLINK(""x"")"`);
+  });
+  it("joins rows with CRLF", () => {
+    expect(toCsv([["a", 1], ["b", null]])).toBe("a,1\r\nb,\r\n");
   });
 });

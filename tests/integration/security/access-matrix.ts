@@ -66,6 +66,22 @@ export const matrix: Row[] = [
   { route: "GET /api/caseload", expect: clinicianOnly },
   { route: "GET /api/admin/organisations", expect: adminOnly },
   { route: "GET /api/portal/today", expect: portalOnly },
+  { route: "POST /api/patients/[patientId]/episodes", params: patient, expect: staffOnPatient },
+  { route: "POST /api/patients/[patientId]/episodes/change", params: patient, expect: staffOnPatient },
+  { route: "POST /api/patients/[patientId]/episodes/removal", params: patient, expect: staffOnPatient },
+  { route: "POST /api/patients/[patientId]/episodes/twoc", params: patient, expect: staffOnPatient },
+  { route: "POST /api/patients/[patientId]/episodes/check", params: patient, expect: staffOnPatient },
+  // Clinician workspace: caseload export, registration, the record's details, history, access log.
+  { route: "GET /api/caseload/export", expect: clinicianOnly },
+  {
+    route: "GET /api/gp-practices",
+    expect: { anonymous: 401, admin: "allowed", careTeamClinician: "allowed", otherClinician: "allowed", patient: 403, otherPatient: 403, carer: 403 },
+  },
+  { route: "POST /api/patients", expect: clinicianOnly },
+  { route: "GET /api/patients/[patientId]", params: patient, expect: staffOnPatient },
+  { route: "PATCH /api/patients/[patientId]", params: patient, expect: staffOnPatient },
+  { route: "GET /api/patients/[patientId]/history", params: patient, expect: staffOnPatient },
+  { route: "GET /api/patients/[patientId]/access-log", params: patient, expect: staffOnPatient },
   // Organisation administration (issue 9).
   { route: "POST /api/admin/organisations", expect: adminOnly },
   { route: "GET /api/admin/organisations/[organisationId]", params: (f) => ({ organisationId: f.organisationId }), expect: adminOnly },

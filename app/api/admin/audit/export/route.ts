@@ -15,10 +15,11 @@ export const GET = handle(async (request) => {
   const { page: _page, pageSize: _size, ...query } = parseInput(auditQuerySchema, searchParamsObject(request.url));
   const { rows, total } = await searchAudit({ organisationIds: viewer.organisationIds, query, limit: EXPORT_LIMIT, offset: 0 });
   await audit({ action: "admin.audit.export", actor: viewer, via: "admin", request, details: { filters: query, rows: rows.length, total } }, db);
-  const csv = toCsv(
+  // A byte-order mark so names in every script open correctly in a spreadsheet.
+  const csv = `\uFEFF${toCsv([
     ["time_utc", "action", "via", "reason", "actor_name", "actor_email", "actor_role", "patient_name", "health_record_number", "organisation", "details"],
-    rows.map((r) => [
-      r.at,
+    ...rows.map((r) => [
+      r.at.toISOString(),
       r.action,
       r.via,
       r.reason,
@@ -28,9 +29,9 @@ export const GET = handle(async (request) => {
       r.patient?.name,
       r.patient?.healthRecordNumber,
       r.organisation?.name,
-      r.details,
+      JSON.stringify(r.details),
     ]),
-  );
+  ])}`;
   const day = new Date().toISOString().slice(0, 10);
   return new Response(csv, {
     status: 200,

@@ -1,0 +1,162 @@
+import { getFormatter, getTranslations } from "next-intl/server";
+import { headers } from "next/headers";
+import { notFound } from "next/navigation";
+import { DeviceEpisodeForm, type BlockageHint, type PreviousDevice } from "@/components/episode-form/device-episode-form";
+import { RemovalForm } from "@/components/episode-form/removal-form";
+import { TwocForm } from "@/components/episode-form/twoc-form";
+import { buttonClass } from "@/components/ui/button";
+import { getRecordingContext, type EpisodeDto } from "@/db/queries/episodes";
+import { requirePageRole } from "@/lib/auth/permissions";
+import { blockagePattern, type EndReason } from "@/lib/clinical";
+import { AppError } from "@/lib/errors";
+import { Link } from "@/lib/i18n/navigation";
+import { openPatientRecord } from "@/lib/patient-record";
+import { RECORD_KINDS, type RecordKind } from "@/lib/validations/episode";
+import { calendarDate, deploymentTimeZone } from "@/lib/zoned-date";
+
+type Params = { locale: string; patientId: string; kind: string };
+
+const isKind = (k: string): k is RecordKind => (RECORD_KINDS as readonly string[]).includes(k);
+
+export async function generateMetadata({ params }: { params: Promise<Params> }) {
+  const { kind } = await params;
+  const t = await getTranslations("EpisodeForm");
+  return { title: isKind(kind) ? t(`title.${kind}`) : t("title.insertion") };
+}
+
+function previousDevice(e: EpisodeDto | null): PreviousDevice | null {
+  if (!e) return null;
+  return {
+    route: e.route,
+    catheterType: e.catheterType,
+    material: e.material,
+    lengthCategory: e.lengthCategory,
+    sizeCh: e.sizeCh,
+    balloonMl: e.balloonMl,
+    makerBalloonMl: e.makerBalloonMl,
+    maker: e.maker,
+    productName: e.productName,
+    gelKind: e.gelKind,
+    gelVolumeMl: e.gelVolumeMl,
+    maxDwellDays: e.maxDwellDays,
+    reviewIntervalDays: e.reviewIntervalDays,
+    indication: e.indication,
+    insertedAt: e.insertedAt,
+  };
+}
+
+const endReason = (r: string | null): EndReason | undefined =>
+  r === null ? undefined : r === "planned change" ? "planned" : r === "blockage" || r === "bypassing" || r === "expelled" ? r : "other";
+
+export default async function RecordEpisodePage({ params }: { params: Promise<Params> }) {
+  const { locale, patientId, kind } = await params;
+  const viewer = await requirePageRole(locale, "clinician");
+  if (!isKind(kind)) notFound();
+  try {
+    await openPatientRecord({ viewer, patientId, action: `episode.form.${kind}`, request: { headers: await headers() } });
+  } catch (e) {
+    if (e instanceof AppError && e.status === 404) notFound();
+    throw e;
+  }
+  const context = await getRecordingContext({ patientId });
+  if (!context.patient) notFound();
+  const { patient, active, latest } = context;
+  const t = await getTranslations("EpisodeForm");
+  const format = await getFormatter();
+  const timeZone = deploymentTimeZone();
+  const facts = { sex: patient.sex, dateOfBirth: patient.dateOfBirth, allergies: { latex: patient.allergies.latex, chlorhexidine: patient.allergies.chlorhexidine, lidocaine: patient.allergies.lidocaine } };
+  const allergies = [
+    patient.allergies.latex ? t("allergy.latex") : null,
+    patient.allergies.chlorhexidine ? t("allergy.chlorhexidine") : null,
+    patient.allergies.lidocaine ? t("allergy.lidocaine") : null,
+    patient.allergies.other,
+  ].filter((a): a is string => Boolean(a));
+  const trial = latest && latest.removedAt && latest.awaitingTwoc && !active ? latest : null;
+
+  let blockage: BlockageHint = null;
+  if (kind === "change") {
+    try {
+      const pattern = blockagePattern(
+        context.endings.map((e) => ({
+          insertedOn: calendarDate(e.insertedAt, timeZone),
+          removedOn: e.removedAt ? calendarDate(e.removedAt, timeZone) : undefined,
+          endReason: endReason(e.removalReason),
+        })),
+        { maxDwellDays: active?.maxDwellDays ?? undefined },
+      );
+      if (pattern.status === "pattern") {
+        blockage = { typicalDwellDays: pattern.typicalDwellDays, suggestedIntervalDays: pattern.suggestedIntervalDays, blockageEpisodes: pattern.blockageEpisodes };
+      }
+    } catch {
+      blockage = null;
+    }
+  }
+
+  const record = `/patients/${patientId}`;
+  const blocked = (message: string, action?: { href: string; label: string }) => (
+    <div className="flex max-w-2xl flex-col gap-4 rounded-card border-2 border-finding-info bg-finding-info-soft p-5" data-testid="record-blocked">
+      <p className="font-bold">{message}</p>
+      <div className="flex flex-wrap gap-3">
+        {action ? (
+          <Link href={action.href} className={buttonClass("primary")}>
+            {action.label}
+          </Link>
+        ) : null}
+        <Link href={record} className={buttonClass("secondary")}>
+          {t("backToRecord")}
+        </Link>
+      </div>
+    </div>
+  );
+
+  let body;
+  if (patient.closed) body = blocked(t("blocked.closed"));
+  else if (kind === "insertion") {
+    body = active
+      ? blocked(t("blocked.inPlace"), { href: `${record}/record/change`, label: t("title.change") })
+      : <DeviceEpisodeForm mode="insertion" patientId={patientId} patient={facts} clinicianName={viewer.name} previous={previousDevice(latest)} timeZone={timeZone} blockage={null} />;
+  } else if (kind === "change") {
+    body = active
+      ? <DeviceEpisodeForm mode="change" patientId={patientId} patient={facts} clinicianName={viewer.name} previous={previousDevice(active)} timeZone={timeZone} blockage={blockage} />
+      : blocked(t("blocked.noneInPlace"), { href: `${record}/record/insertion`, label: t("title.insertion") });
+  } else if (kind === "removal") {
+    body = active
+      ? <RemovalForm patientId={patientId} current={{ sizeCh: active.sizeCh, balloonMl: active.balloonMl, material: active.material, insertedAt: active.insertedAt, awaitingTwoc: active.awaitingTwoc }} />
+      : blocked(t("blocked.noneInPlace"), { href: `${record}/record/insertion`, label: t("title.insertion") });
+  } else {
+    body = trial
+      ? <TwocForm patientId={patientId} removedAt={trial.removedAt!} />
+      : active
+        ? blocked(t("blocked.twocInPlace"), { href: `${record}/record/removal`, label: t("title.removal") })
+        : blocked(t("blocked.noTrial"));
+  }
+
+  return (
+    <div className="flex flex-col gap-6">
+      <div className="flex flex-col gap-2">
+        <Link href={record} className="self-start font-bold text-brand underline underline-offset-4">
+          {t("backToRecord")}
+        </Link>
+        <h1 className="text-3xl font-bold">{t(`title.${kind}`)}</h1>
+        <p className="text-lg">
+          <span className="font-bold">{patient.name}</span>
+          {" · "}
+          <span className="tabular">{t("born", { date: format.dateTime(new Date(`${patient.dateOfBirth}T12:00:00Z`), { dateStyle: "medium", timeZone: "UTC" }) })}</span>
+          {" · "}
+          {t(`sex.${patient.sex}`)}
+        </p>
+      </div>
+      {allergies.length ? (
+        <div className="max-w-3xl rounded-lg border-4 border-finding-stop bg-finding-stop-soft p-3" role="note" data-testid="allergies">
+          <p className="font-bold text-level-emergency-ink">{t("allergy.title")}</p>
+          <p>{allergies.join(", ")}</p>
+        </div>
+      ) : (
+        <p className="text-ink-soft" data-testid="allergies-none">
+          {t("allergy.none")}
+        </p>
+      )}
+      {body}
+    </div>
+  );
+}

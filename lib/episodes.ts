@@ -1,0 +1,321 @@
+import "server-only";
+// Recording an insertion, a change, a removal and a TWOC outcome. Each runs in one transaction:
+// access check + audit (openPatientRecord), the device checks recomputed here whatever the
+// browser showed, the episode and its event. Any error rolls everything back.
+import { db, type Transaction } from "@/db";
+import {
+  closeTrialWithoutCatheter,
+  endEpisode,
+  getActiveEpisode,
+  getLatestEpisode,
+  getPatientForRecording,
+  insertEpisode,
+  insertEpisodeEvent,
+  organisationForRecord,
+  toEpisodeDto,
+  type EpisodeDto,
+  type PatientForRecording,
+} from "@/db/queries/episodes";
+import type { CatheterEpisode, NewCatheterEpisode } from "@/db/schema";
+import type { Viewer } from "@/lib/auth/session";
+import { planDates, type Finding } from "@/lib/clinical";
+import { reconcileOverrides, runDeviceCheck } from "@/lib/episode-checks";
+import { AppError } from "@/lib/errors";
+import { openPatientRecord } from "@/lib/patient-record";
+import type { ChangeInput, DeviceCheckInput, InsertionInput, RemovalInput, TwocInput } from "@/lib/validations/episode";
+import { calendarDate, deploymentTimeZone } from "@/lib/zoned-date";
+
+type Ctx = { viewer: Viewer; patientId: string; request: Request };
+
+export type RecordedEpisode = {
+  episode: EpisodeDto;
+  eventId: string;
+  findings: Finding[];
+};
+
+async function openForWrite(ctx: Ctx, action: string, tx: Transaction): Promise<PatientForRecording> {
+  await openPatientRecord({ viewer: ctx.viewer, patientId: ctx.patientId, action, request: ctx.request }, tx);
+  const patient = await getPatientForRecording({ patientId: ctx.patientId, lock: true }, tx);
+  if (!patient) throw new AppError("not_found");
+  if (patient.closed) throw new AppError("conflict", "This record is closed.");
+  return patient;
+}
+
+/** Device checks on the server; a stop without an override reason refuses the whole request. */
+function assess(input: InsertionInput, patient: PatientForRecording, insertedAt: Date, timeZone: string) {
+  const outcome = runDeviceCheck(input, patient, insertedAt, timeZone);
+  if (!outcome.ok) {
+    // The schema already bounds every field, so this only happens if the rules and the schema drift apart.
+    throw new AppError("validation_failed", undefined, { fields: { [outcome.field]: ["out_of_range"] } });
+  }
+  const { missing, kept } = reconcileOverrides(outcome.findings, input.overrides);
+  if (missing.length) {
+    const fields: Record<string, string[]> = {};
+    for (const code of missing) fields[`overrides.${code}`] = ["override_required"];
+    throw new AppError("validation_failed", "A stop finding needs an override reason before saving.", { fields });
+  }
+  return { findings: outcome.findings, overrides: kept };
+}
+
+function episodeValues(
+  input: InsertionInput,
+  ctx: Ctx,
+  extra: { organisationId: string | null; previousEpisodeId: string | null; findings: Finding[]; overrides: { code: string; reason: string }[]; timeZone: string },
+): NewCatheterEpisode {
+  const insertedAt = new Date(input.insertedAt);
+  const plan = planDates({
+    insertedOn: calendarDate(insertedAt, extra.timeZone),
+    material: input.material,
+    route: input.route,
+    maxDwellDays: input.maxDwellDays,
+    reviewIntervalDays: input.reviewIntervalDays,
+  });
+  return {
+    patientId: ctx.patientId,
+    organisationId: extra.organisationId,
+    previousEpisodeId: extra.previousEpisodeId,
+    route: input.route,
+    catheterType: input.catheterType,
+    material: input.material,
+    lengthCategory: input.lengthCategory,
+    sizeCh: input.sizeCh,
+    balloonMl: input.balloonMl,
+    makerBalloonMl: input.makerBalloonMl ?? null,
+    maker: input.maker ?? null,
+    productName: input.productName ?? null,
+    lot: input.lot ?? null,
+    expiry: input.expiry ?? null,
+    gtin: input.gtin ?? null,
+    serial: input.serial ?? null,
+    udi: input.udi ?? null,
+    indication: input.indication,
+    insertedAt,
+    insertedByUserId: ctx.viewer.userId,
+    insertedByName: ctx.viewer.name,
+    gelKind: input.gelKind,
+    gelVolumeMl: input.gelKind === "none" ? null : (input.gelVolumeMl ?? null),
+    residualUrineMl: input.residualUrineMl ?? null,
+    urineDescription: input.urineDescription ?? null,
+    specimenTaken: input.specimenTaken,
+    attempts: input.attempts,
+    difficulties: input.difficulties ?? null,
+    patientReaction: input.patientReaction ?? null,
+    largerSizeReason: input.largerSizeReason ?? null,
+    maxDwellDays: input.maxDwellDays ?? null,
+    reviewIntervalDays: input.reviewIntervalDays ?? null,
+    plannedChangeOn: plan.change.date,
+    reviewDueOn: plan.review.date,
+    findings: extra.findings,
+    overrides: extra.overrides,
+  };
+}
+
+/** What the history shows about the checks at the time of saving. */
+function checkDetails(findings: Finding[], overrides: { code: string; reason: string }[], viewer: Viewer) {
+  return {
+    findings: findings.map((f) => ({ severity: f.severity, code: f.code, source: f.source })),
+    overrides: overrides.map((o) => ({ ...o, byName: viewer.name })),
+  };
+}
+
+export async function recordInsertion(ctx: Ctx, input: InsertionInput): Promise<RecordedEpisode> {
+  const timeZone = deploymentTimeZone();
+  return db.transaction(async (tx) => {
+    const patient = await openForWrite(ctx, "episode.insert", tx);
+    if (await getActiveEpisode({ patientId: ctx.patientId }, tx)) {
+      throw new AppError("conflict", "A catheter is already in place: record a change or a removal.");
+    }
+    const insertedAt = new Date(input.insertedAt);
+    const latest = await getLatestEpisode({ patientId: ctx.patientId }, tx);
+    if (latest?.removedAt && insertedAt < latest.removedAt) {
+      throw new AppError("validation_failed", undefined, { fields: { insertedAt: ["before_removal"] } });
+    }
+    const { findings, overrides } = assess(input, patient, insertedAt, timeZone);
+    const organisationId = await organisationForRecord({ patientId: ctx.patientId, organisationIds: ctx.viewer.organisationIds }, tx);
+    const episode = await insertEpisode(
+      { values: episodeValues(input, ctx, { organisationId, previousEpisodeId: latest?.id ?? null, findings, overrides, timeZone }) },
+      tx,
+    );
+    // A catheter that went back in after a trial without catheter ends that trial.
+    if (latest?.awaitingTwoc) await closeTrialWithoutCatheter({ episodeId: latest.id }, tx);
+    const eventId = await insertEpisodeEvent(
+      {
+        values: {
+          episodeId: episode.id,
+          patientId: ctx.patientId,
+          kind: "insertion",
+          occurredAt: insertedAt,
+          recordedByUserId: ctx.viewer.userId,
+          recordedByName: ctx.viewer.name,
+          organisationId,
+          details: checkDetails(findings, overrides, ctx.viewer),
+        },
+      },
+      tx,
+    );
+    // GP summary is queued here by lib/email (issue 7)
+    return { episode: toEpisodeDto(episode), eventId, findings };
+  });
+}
+
+export async function recordChange(ctx: Ctx, input: ChangeInput): Promise<RecordedEpisode & { previousEpisodeId: string }> {
+  const timeZone = deploymentTimeZone();
+  return db.transaction(async (tx) => {
+    const patient = await openForWrite(ctx, "episode.change", tx);
+    const current = await getActiveEpisode({ patientId: ctx.patientId }, tx);
+    if (!current) throw new AppError("conflict", "No catheter is in place: record an insertion.");
+    const insertedAt = new Date(input.insertedAt);
+    if (insertedAt < current.insertedAt) {
+      throw new AppError("validation_failed", undefined, { fields: { insertedAt: ["before_insertion"] } });
+    }
+    const { findings, overrides } = assess(input, patient, insertedAt, timeZone);
+    const unplanned = input.changeKind === "unplanned";
+    // The old catheter came out when the new one went in; the partial unique index allows the
+    // new row only once the old one is closed, in this same transaction.
+    const ended = await endEpisode(
+      { episodeId: current.id, removedAt: insertedAt, removalReason: unplanned ? input.unplannedReason! : "planned change", awaitingTwoc: false },
+      tx,
+    );
+    if (!ended) throw new AppError("conflict", "The catheter was changed by someone else meanwhile.");
+    const organisationId = await organisationForRecord({ patientId: ctx.patientId, organisationIds: ctx.viewer.organisationIds }, tx);
+    const episode = await insertEpisode(
+      { values: episodeValues(input, ctx, { organisationId, previousEpisodeId: current.id, findings, overrides, timeZone }) },
+      tx,
+    );
+    const eventId = await insertEpisodeEvent(
+      {
+        values: {
+          episodeId: episode.id,
+          patientId: ctx.patientId,
+          kind: unplanned ? "unplanned_change" : "planned_change",
+          reason: unplanned ? input.unplannedReason! : null,
+          notes: input.reasonNotes ?? null,
+          occurredAt: insertedAt,
+          recordedByUserId: ctx.viewer.userId,
+          recordedByName: ctx.viewer.name,
+          organisationId,
+          details: { previousEpisodeId: current.id, needReviewed: input.needReviewed, ...checkDetails(findings, overrides, ctx.viewer) },
+        },
+      },
+      tx,
+    );
+    // GP summary is queued here by lib/email (issue 7)
+    return { episode: toEpisodeDto(episode), eventId, findings, previousEpisodeId: current.id };
+  });
+}
+
+export type RecordedRemoval = { episode: EpisodeDto; eventId: string };
+
+export async function recordRemoval(ctx: Ctx, input: RemovalInput): Promise<RecordedRemoval> {
+  return db.transaction(async (tx) => {
+    await openForWrite(ctx, "episode.removal", tx);
+    const current = await getActiveEpisode({ patientId: ctx.patientId }, tx);
+    if (!current) throw new AppError("conflict", "No catheter is in place.");
+    const removedAt = new Date(input.removedAt);
+    if (removedAt < current.insertedAt) {
+      throw new AppError("validation_failed", undefined, { fields: { removedAt: ["before_insertion"] } });
+    }
+    const startTwoc = input.startTwoc || input.reason === "trial-without-catheter";
+    const ended = await endEpisode({ episodeId: current.id, removedAt, removalReason: input.reason, awaitingTwoc: startTwoc }, tx);
+    if (!ended) throw new AppError("conflict", "The catheter was removed by someone else meanwhile.");
+    const organisationId = await organisationForRecord({ patientId: ctx.patientId, organisationIds: ctx.viewer.organisationIds }, tx);
+    const eventId = await insertEpisodeEvent(
+      {
+        values: {
+          episodeId: current.id,
+          patientId: ctx.patientId,
+          kind: "removal",
+          notes: input.notes ?? null,
+          occurredAt: removedAt,
+          recordedByUserId: ctx.viewer.userId,
+          recordedByName: ctx.viewer.name,
+          organisationId,
+          details: {
+            reason: input.reason,
+            startTwoc,
+            balloonDeflatedMl: input.balloonDeflatedMl ?? null,
+            catheterIntact: input.catheterIntact,
+          },
+        },
+      },
+      tx,
+    );
+    // GP summary is queued here by lib/email (issue 7)
+    return { episode: toEpisodeDto(ended), eventId };
+  });
+}
+
+export type RecordedTwoc = {
+  episodeId: string;
+  eventId: string;
+  outcome: TwocInput["outcome"];
+  totalVoidedMl: number;
+  /** Where the form goes next: the insertion form after a failed trial and a new catheter. */
+  next: "insertion" | null;
+};
+
+/** The removed catheter whose trial without catheter is under way, or null. */
+export function trialInProgress(latest: CatheterEpisode | null): CatheterEpisode | null {
+  return latest && latest.removedAt && latest.awaitingTwoc ? latest : null;
+}
+
+export async function recordTwoc(ctx: Ctx, input: TwocInput): Promise<RecordedTwoc> {
+  return db.transaction(async (tx) => {
+    await openForWrite(ctx, "episode.twoc", tx);
+    if (await getActiveEpisode({ patientId: ctx.patientId }, tx)) {
+      throw new AppError("conflict", "A catheter is in place: remove it for the trial first.");
+    }
+    const trial = trialInProgress(await getLatestEpisode({ patientId: ctx.patientId }, tx));
+    if (!trial) throw new AppError("conflict", "No trial without catheter is under way: record the removal first.");
+    const occurredAt = new Date(input.occurredAt);
+    if (occurredAt < trial.removedAt!) {
+      throw new AppError("validation_failed", undefined, { fields: { occurredAt: ["before_removal"] } });
+    }
+    await closeTrialWithoutCatheter({ episodeId: trial.id }, tx);
+    const totalVoidedMl = input.voids.reduce((sum, v) => sum + v.volumeMl, 0);
+    const organisationId = await organisationForRecord({ patientId: ctx.patientId, organisationIds: ctx.viewer.organisationIds }, tx);
+    const eventId = await insertEpisodeEvent(
+      {
+        values: {
+          episodeId: trial.id,
+          patientId: ctx.patientId,
+          kind: "twoc_outcome",
+          twocOutcome: input.outcome,
+          notes: input.notes ?? null,
+          occurredAt,
+          recordedByUserId: ctx.viewer.userId,
+          recordedByName: ctx.viewer.name,
+          organisationId,
+          details: {
+            voidsMl: input.voids.map((v) => v.volumeMl),
+            totalVoidedMl,
+            postVoidResidualMl: input.postVoidResidualMl ?? null,
+            failedAction: input.failedAction ?? null,
+          },
+        },
+      },
+      tx,
+    );
+    // GP summary is queued here by lib/email (issue 7)
+    return {
+      episodeId: trial.id,
+      eventId,
+      outcome: input.outcome,
+      totalVoidedMl,
+      next: input.outcome === "failed" && input.failedAction === "re-catheterised" ? "insertion" : null,
+    };
+  });
+}
+
+/** The live check for a draft, for clients that cannot run lib/clinical themselves. */
+export async function checkDraft(ctx: Ctx, input: DeviceCheckInput) {
+  const timeZone = deploymentTimeZone();
+  return db.transaction(async (tx) => {
+    await openPatientRecord({ viewer: ctx.viewer, patientId: ctx.patientId, action: "episode.check", request: ctx.request }, tx);
+    const patient = await getPatientForRecording({ patientId: ctx.patientId }, tx);
+    if (!patient) throw new AppError("not_found");
+    const outcome = runDeviceCheck(input, patient, input.insertedAt ? new Date(input.insertedAt) : new Date(), timeZone);
+    if (!outcome.ok) throw new AppError("validation_failed", undefined, { fields: { [outcome.field]: ["out_of_range"] } });
+    return outcome.findings;
+  });
+}

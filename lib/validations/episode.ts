@@ -1,0 +1,254 @@
+// Recording a catheter: insertion, change, removal and trial without catheter (TWOC). One set
+// of schemas for the react-hook-form forms and the route handlers. Error messages are keys
+// (EpisodeForm.errors.<key>) so the form can show them in the nurse's language.
+import { z } from "zod";
+import {
+  CATHETER_TYPES,
+  FINDING_CODES,
+  GEL_KINDS,
+  LENGTH_CATEGORIES,
+  MATERIALS,
+  ROUTES,
+} from "@/lib/clinical";
+
+export const UNPLANNED_REASONS = ["blockage", "bypassing", "expelled", "infection", "other"] as const;
+export type UnplannedReason = (typeof UNPLANNED_REASONS)[number];
+
+export const REMOVAL_REASONS = ["no-longer-needed", "trial-without-catheter", "problem", "patient-choice", "other"] as const;
+export type RemovalReason = (typeof REMOVAL_REASONS)[number];
+
+export const TWOC_OUTCOMES = ["passed", "failed"] as const;
+export const TWOC_FAILED_ACTIONS = ["re-catheterised", "intermittent-self-catheterisation", "referred", "other"] as const;
+export type TwocFailedAction = (typeof TWOC_FAILED_ACTIONS)[number];
+
+export const RECORD_KINDS = ["insertion", "change", "removal", "twoc"] as const;
+export type RecordKind = (typeof RECORD_KINDS)[number];
+
+/** Clock difference allowed between a nurse's device and the server. */
+export const FUTURE_TOLERANCE_MS = 5 * 60_000;
+export const OVERRIDE_MIN_CHARS = 10;
+
+/** Empty form values ("" from a text box, NaN from an empty number box, null) mean "not given". */
+const blankToUndefined = (v: unknown) =>
+  v === "" || v === null || (typeof v === "number" && Number.isNaN(v)) || (typeof v === "string" && v.trim() === "")
+    ? undefined
+    : typeof v === "string"
+      ? v.trim()
+      : v;
+
+const numberFromInput = (v: unknown) => {
+  const b = blankToUndefined(v);
+  return typeof b === "string" && /^-?\d+(\.\d+)?$/.test(b) ? Number(b) : b;
+};
+
+function int(min: number, max: number) {
+  return z
+    .number({ error: "number" })
+    .int({ error: "whole_number" })
+    .min(min, { error: "out_of_range" })
+    .max(max, { error: "out_of_range" });
+}
+
+const requiredInt = (min: number, max: number) => z.preprocess(numberFromInput, int(min, max));
+const optionalInt = (min: number, max: number) => z.preprocess(numberFromInput, int(min, max).optional());
+const optionalDecimal = (min: number, max: number) =>
+  z.preprocess(
+    numberFromInput,
+    z.number({ error: "number" }).min(min, { error: "out_of_range" }).max(max, { error: "out_of_range" }).optional(),
+  );
+const optionalText = (max: number) => z.preprocess(blankToUndefined, z.string({ error: "text" }).max(max, { error: "too_long" }).optional());
+const requiredText = (min: number, max: number) =>
+  z.preprocess(
+    blankToUndefined,
+    z.string({ error: "required" }).min(min, { error: "too_short" }).max(max, { error: "too_long" }),
+  );
+const choice = <T extends readonly [string, ...string[]]>(values: T) =>
+  z.preprocess(blankToUndefined, z.enum(values, { error: "choose_one" }));
+const optionalChoice = <T extends readonly [string, ...string[]]>(values: T) =>
+  z.preprocess(blankToUndefined, z.enum(values, { error: "choose_one" }).optional());
+
+const isoDate = z.preprocess(
+  blankToUndefined,
+  z
+    .string()
+    .regex(/^\d{4}-\d{2}-\d{2}$/, { error: "date" })
+    .refine((s) => !Number.isNaN(Date.parse(`${s}T00:00:00Z`)) && new Date(`${s}T00:00:00Z`).toISOString().startsWith(s), {
+      error: "date",
+    })
+    .optional(),
+);
+
+/** An instant with its offset (the form converts the nurse's local time), not in the future. */
+export const pastInstant = z.preprocess(
+  blankToUndefined,
+  z
+    .string({ error: "required" })
+    .refine((s) => z.iso.datetime({ offset: true }).safeParse(s).success, { error: "date_time" })
+    .refine((s) => Date.parse(s) <= Date.now() + FUTURE_TOLERANCE_MS, { error: "in_future" })
+    .refine((s) => Date.parse(s) >= Date.parse("2000-01-01T00:00:00Z"), { error: "too_early" }),
+);
+
+export const overrideSchema = z.object({
+  code: z.enum(FINDING_CODES, { error: "choose_one" }),
+  reason: requiredText(OVERRIDE_MIN_CHARS, 500),
+});
+export type OverrideInput = z.infer<typeof overrideSchema>;
+
+/** The device itself: what checkDevice reads. Also the body of POST …/episodes/check. */
+export const deviceShape = {
+  route: choice(ROUTES),
+  catheterType: choice(CATHETER_TYPES),
+  material: choice(MATERIALS),
+  lengthCategory: choice(LENGTH_CATEGORIES),
+  sizeCh: requiredInt(6, 30),
+  balloonMl: requiredInt(1, 30),
+  makerBalloonMl: optionalInt(1, 30),
+  maker: optionalText(120),
+  productName: optionalText(120),
+  lot: optionalText(40),
+  expiry: isoDate,
+  gtin: z.preprocess(blankToUndefined, z.string().regex(/^\d{8,14}$/, { error: "gtin" }).optional()),
+  serial: optionalText(40),
+  udi: optionalText(200),
+  gelKind: choice(GEL_KINDS),
+  gelVolumeMl: optionalDecimal(0, 30),
+  largerSizeReason: optionalText(500),
+  maxDwellDays: optionalInt(1, 366),
+};
+
+export const deviceCheckSchema = z.object({
+  ...deviceShape,
+  /** The day the check is for (the insertion's calendar day); default today. */
+  insertedAt: pastInstant.optional(),
+});
+export type DeviceCheckInput = z.infer<typeof deviceCheckSchema>;
+
+/** Every documentation field of an insertion (EAUN 2012 chapter 12, plus lot, maker, expiry). */
+export const insertionObject = z.object({
+  ...deviceShape,
+  indication: requiredText(3, 500),
+  insertedAt: pastInstant,
+  residualUrineMl: optionalInt(0, 5000),
+  urineDescription: optionalText(300),
+  specimenTaken: z.boolean({ error: "choose_one" }).default(false),
+  attempts: requiredInt(1, 10),
+  difficulties: optionalText(1000),
+  patientReaction: optionalText(500),
+  reviewIntervalDays: optionalInt(1, 366),
+  overrides: z.array(overrideSchema).max(FINDING_CODES.length).default([]),
+});
+
+type InsertionShape = z.infer<typeof insertionObject>;
+
+/**
+ * Cross-field rules run even when other fields already failed, so the nurse sees every
+ * problem at once; they read the values defensively for that reason.
+ */
+const always = { when: (p: { value: unknown }) => typeof p.value === "object" && p.value !== null };
+
+/** Rules across fields, shared by the insertion and change schemas. */
+function insertionRules(v: InsertionShape, ctx: z.RefinementCtx) {
+  if ((GEL_KINDS as readonly unknown[]).includes(v.gelKind) && v.gelKind !== "none" && typeof v.gelVolumeMl !== "number") {
+    ctx.addIssue({ code: "custom", path: ["gelVolumeMl"], message: "gel_volume_required" });
+  }
+  if (!Array.isArray(v.overrides)) return;
+  const seen = new Set<unknown>();
+  v.overrides.forEach((o, i) => {
+    if (o && seen.has(o.code)) ctx.addIssue({ code: "custom", path: ["overrides", i, "code"], message: "duplicate" });
+    seen.add(o?.code);
+  });
+}
+
+export const insertionSchema = insertionObject.superRefine(insertionRules, always);
+export type InsertionInput = z.infer<typeof insertionSchema>;
+
+export const changeSchema = insertionObject
+  .extend({
+    changeKind: choice(["planned", "unplanned"] as const),
+    unplannedReason: optionalChoice(UNPLANNED_REASONS),
+    reasonNotes: optionalText(1000),
+    /** The need for a catheter was reviewed at this change (SIGN 160). */
+    needReviewed: z.boolean({ error: "choose_one" }).default(false),
+  })
+  .superRefine((v, ctx) => {
+    insertionRules(v, ctx);
+    if (v.changeKind === "unplanned" && !v.unplannedReason) {
+      ctx.addIssue({ code: "custom", path: ["unplannedReason"], message: "unplanned_reason_required" });
+    }
+    if (v.changeKind === "planned" && v.unplannedReason) {
+      ctx.addIssue({ code: "custom", path: ["unplannedReason"], message: "planned_no_reason" });
+    }
+    if (v.unplannedReason === "other" && !v.reasonNotes) {
+      ctx.addIssue({ code: "custom", path: ["reasonNotes"], message: "notes_required" });
+    }
+  }, always);
+export type ChangeInput = z.infer<typeof changeSchema>;
+
+export const removalSchema = z
+  .object({
+    removedAt: pastInstant,
+    reason: choice(REMOVAL_REASONS),
+    notes: optionalText(1000),
+    /** The catheter comes out for a trial without catheter: the outcome is recorded next. */
+    startTwoc: z.boolean({ error: "choose_one" }).default(false),
+    balloonDeflatedMl: optionalInt(0, 60),
+    catheterIntact: z.boolean({ error: "choose_one" }).default(true),
+  })
+  .superRefine((v, ctx) => {
+    if (v.reason === "other" && !v.notes) ctx.addIssue({ code: "custom", path: ["notes"], message: "notes_required" });
+    if (v.catheterIntact === false && !v.notes) ctx.addIssue({ code: "custom", path: ["notes"], message: "notes_required" });
+  }, always);
+export type RemovalInput = z.infer<typeof removalSchema>;
+
+export const voidSchema = z.object({
+  volumeMl: requiredInt(1, 2000),
+});
+
+export const twocSchema = z
+  .object({
+    occurredAt: pastInstant,
+    outcome: choice(TWOC_OUTCOMES),
+    voids: z.array(voidSchema).max(20, { error: "too_many" }).default([]),
+    postVoidResidualMl: optionalInt(0, 5000),
+    failedAction: optionalChoice(TWOC_FAILED_ACTIONS),
+    notes: optionalText(1000),
+  })
+  .superRefine((v, ctx) => {
+    if (v.outcome === "failed" && !v.failedAction) {
+      ctx.addIssue({ code: "custom", path: ["failedAction"], message: "failed_action_required" });
+    }
+    if (v.outcome === "passed" && v.failedAction) {
+      ctx.addIssue({ code: "custom", path: ["failedAction"], message: "passed_no_action" });
+    }
+    if (v.failedAction === "other" && !v.notes) ctx.addIssue({ code: "custom", path: ["notes"], message: "notes_required" });
+  }, always);
+export type TwocInput = z.infer<typeof twocSchema>;
+
+/** Every message key the schemas above can produce (the form translates each). */
+export const EPISODE_ERROR_KEYS = [
+  "number",
+  "whole_number",
+  "out_of_range",
+  "text",
+  "too_long",
+  "too_short",
+  "required",
+  "choose_one",
+  "date",
+  "date_time",
+  "in_future",
+  "too_early",
+  "gtin",
+  "gel_volume_required",
+  "duplicate",
+  "unplanned_reason_required",
+  "planned_no_reason",
+  "notes_required",
+  "failed_action_required",
+  "passed_no_action",
+  "too_many",
+  "override_required",
+  "before_insertion",
+  "before_removal",
+] as const;
+export type EpisodeErrorKey = (typeof EPISODE_ERROR_KEYS)[number];

@@ -1,0 +1,237 @@
+/**
+ * `npm run bench`: builds the production app, loads a large invented data set into its own
+ * database, and prints one table of figures (also written to docs/performance.md).
+ * A script, not a test: figures are reported, never asserted, so nothing flakes.
+ */
+import { spawn, spawnSync, type ChildProcess } from "node:child_process";
+import { createHash, randomBytes } from "node:crypto";
+import fs from "node:fs";
+import os from "node:os";
+import path from "node:path";
+import { fileURLToPath } from "node:url";
+import { gzipSync } from "node:zlib";
+import autocannon from "autocannon";
+import pg from "pg";
+import { ensureTools } from "../ensure-tools";
+import { defaults, dropDatabase, ensureDatabase, portOpen, servicesUp } from "../services";
+import { seedLarge } from "./large-data";
+
+const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "../..");
+const bin = (n: string) => path.join(root, "node_modules/.bin", n);
+const port = Number(process.env.BENCH_PORT ?? 3500);
+const base = `http://localhost:${port}`;
+const seconds = Number(process.env.BENCH_SECONDS ?? 20);
+const connections = Number(process.env.BENCH_CONNECTIONS ?? 50);
+
+type Row = { what: string; figure: string; target?: string; met?: boolean };
+const rows: Row[] = [];
+const add = (what: string, figure: string, target?: string, met?: boolean) => {
+  rows.push({ what, figure, target, met });
+  console.log(`[bench] ${what}: ${figure}${target ? ` (target ${target}: ${met ? "met" : "MISSED"})` : ""}`);
+};
+
+function pct(values: number[], p: number) {
+  const s = [...values].sort((a, b) => a - b);
+  return s[Math.min(s.length - 1, Math.floor((p / 100) * s.length))];
+}
+
+async function load(url: string, headers: Record<string, string> = {}, varyIp = false) {
+  let n = 0;
+  const result = await autocannon({
+    url,
+    connections,
+    duration: seconds,
+    headers,
+    // Each request from its own address, as a crowd of phones would be (per-address limits).
+    requests: varyIp
+      ? [{ setupRequest: (req: Record<string, unknown>) => ({ ...req, headers: { ...headers, "x-forwarded-for": `10.${(n >> 16) & 255}.${(n >> 8) & 255}.${n++ & 255}` } }) }]
+      : undefined,
+  });
+  return { rps: result.requests.average, p50: result.latency.p50, p99: result.latency.p99, non2xx: result.non2xx, total: result.requests.total };
+}
+
+async function timed(times: number, fn: () => Promise<unknown>) {
+  const out: number[] = [];
+  for (let i = 0; i < times; i++) {
+    const t = performance.now();
+    await fn();
+    out.push(performance.now() - t);
+  }
+  return out;
+}
+
+async function xacts(client: pg.Client, db: string) {
+  const r = await client.query("select xact_commit + xact_rollback as n from pg_stat_database where datname = $1", [db]);
+  return Number(r.rows[0].n);
+}
+
+async function firstLoadJs(pathname: string, cookie?: string) {
+  const html = await (await fetch(`${base}${pathname}`, { headers: cookie ? { cookie } : {} })).text();
+  const srcs = [...new Set([...html.matchAll(/<script[^>]+src="([^"]+\.js)"/g)].map((m) => m[1]))];
+  let total = 0;
+  for (const src of srcs) {
+    const body = Buffer.from(await (await fetch(new URL(src, base))).arrayBuffer());
+    total += gzipSync(body).length;
+  }
+  return total;
+}
+
+async function lighthouseScores(pathname: string, cookie?: string) {
+  const { default: lighthouse } = await import("lighthouse");
+  const chromeLauncher = await import("chrome-launcher");
+  const chrome = await chromeLauncher.launch({
+    chromePath: "/usr/bin/chromium",
+    chromeFlags: ["--headless", "--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync"],
+  });
+  try {
+    const result = await lighthouse(`${base}${pathname}`, {
+      port: chrome.port,
+      output: "json",
+      logLevel: "error",
+      onlyCategories: ["performance", "accessibility", "best-practices"],
+      extraHeaders: cookie ? { cookie } : undefined,
+      formFactor: "mobile",
+    });
+    const c = result!.lhr.categories;
+    return { performance: c.performance.score ?? 0, accessibility: c.accessibility.score ?? 0, bestPractices: c["best-practices"].score ?? 0 };
+  } finally {
+    await chrome.kill();
+  }
+}
+
+async function signInCookie(email: string, password: string) {
+  const res = await fetch(`${base}/api/auth/sign-in/email`, {
+    method: "POST",
+    headers: { "content-type": "application/json", origin: base, "x-forwarded-for": "10.250.0.1" },
+    body: JSON.stringify({ email, password }),
+  });
+  if (!res.ok) throw new Error(`sign-in failed: ${res.status}`);
+  return res.headers.getSetCookie().map((c) => c.split(";")[0]).join("; ");
+}
+
+async function main() {
+  ensureTools();
+  await servicesUp();
+  const url = new URL(defaults.databaseUrl);
+  url.pathname = "/caddis_bench";
+  const databaseUrl = url.toString();
+  await dropDatabase(databaseUrl);
+  await ensureDatabase(databaseUrl);
+  const env = { ...process.env, DATABASE_URL: databaseUrl, APP_URL: base, NEXT_TELEMETRY_DISABLED: "1", BETTER_AUTH_SECRET: randomBytes(32).toString("base64url") };
+  for (const s of ["db/migrate.ts", "db/seed.ts"]) {
+    if (spawnSync(bin("tsx"), [s], { cwd: root, env, stdio: "ignore" }).status !== 0) throw new Error(`${s} failed`);
+  }
+  const t0 = Date.now();
+  const counts = await seedLarge(databaseUrl);
+  add("data set", `${counts.patients} patients, ${counts.episodes} episodes, ${counts.events} events, ${counts.diary} diary entries (loaded in ${((Date.now() - t0) / 1000).toFixed(1)} s)`);
+
+  // A passport with a known token for the device card.
+  const client = new pg.Client({ connectionString: databaseUrl });
+  await client.connect();
+  const token = randomBytes(32).toString("base64url");
+  const sha = (v: string) => createHash("sha256").update(v).digest("hex");
+  const [{ id: patientId }] = (await client.query("select id from patients where health_record_number = 'EM-100-002'")).rows;
+  await client.query(
+    "insert into passports (patient_id, token_hash, short_code_hash, languages) values ($1, $2, $3, '{pl,en}')",
+    [patientId, sha(token), sha(randomBytes(8).toString("hex"))],
+  );
+
+  if (spawnSync(bin("next"), ["build"], { cwd: root, env, stdio: "ignore" }).status !== 0) throw new Error("next build failed");
+  if (await portOpen(port)) throw new Error(`port ${port} is busy (BENCH_PORT)`);
+  const server: ChildProcess = spawn(bin("next"), ["start", "-p", String(port), "-H", "127.0.0.1"], { cwd: root, env: { ...env, NODE_ENV: "production" }, stdio: "ignore" });
+  try {
+    for (let i = 0; i < 240 && !(await fetch(`${base}/en/sign-in`).then((r) => r.ok).catch(() => false)); i++) await new Promise((r) => setTimeout(r, 250));
+
+    // 1. Device card against a static file of the same server.
+    const staticPath = fs.existsSync(path.join(root, "public/offline.html")) ? "/offline.html" : "/icon.svg";
+    const card = await load(`${base}/en/p/${token}`, {}, true);
+    const stat = await load(`${base}${staticPath}`);
+    const ratio = card.rps / stat.rps;
+    add("device card", `${card.rps.toFixed(0)} req/s, p50 ${card.p50} ms, p99 ${card.p99} ms (${card.non2xx} non-2xx of ${card.total})`);
+    add(`static ${staticPath}`, `${stat.rps.toFixed(0)} req/s, p50 ${stat.p50} ms, p99 ${stat.p99} ms`);
+    add("card / static throughput", ratio.toFixed(2), "≥ 0.5", ratio >= 0.5);
+
+    // 2. Caseload API: latency, and SQL transactions per request whatever the page size.
+    const nurse = await signInCookie("community.nurse@eastmere.example", "Eastmere-community-2026");
+    const caseloadPath = (size: number) => `/api/caseload?page=3&pageSize=${size}&filter=due-soon&sort=nextChange`;
+    for (let i = 0; i < 5; i++) await fetch(`${base}${caseloadPath(50)}`, { headers: { cookie: nurse } });
+    const lat = await timed(200, () => fetch(`${base}${caseloadPath(50)}`, { headers: { cookie: nurse } }).then((r) => r.text()));
+    add("caseload API, page of 50, filtered", `p50 ${pct(lat, 50).toFixed(1)} ms, p99 ${pct(lat, 99).toFixed(1)} ms`, "p99 ≤ 100 ms", pct(lat, 99) <= 100);
+    const perRequest: string[] = [];
+    for (const size of [10, 50, 100]) {
+      const before = await xacts(client, "caddis_bench");
+      for (let i = 0; i < 20; i++) await fetch(`${base}${caseloadPath(size)}`, { headers: { cookie: nurse } }).then((r) => r.text());
+      perRequest.push(`${size}: ${((await xacts(client, "caddis_bench")) - before) / 20}`);
+    }
+    add("SQL statements per caseload request (page size: count; session and audit included)", perRequest.join(", "));
+
+    // 3. Passport PDF for a patient with 3 and with 30 history entries.
+    for (const n of [3, 30]) {
+      const [{ id }] = (
+        await client.query(
+          `select p.id from patients p join episode_events e on e.patient_id = p.id where p.health_record_number like 'BENCH-%'
+           group by p.id having count(*) >= 1 limit 1`,
+        )
+      ).rows;
+      await client.query(
+        `insert into episode_events (episode_id, patient_id, kind, notes, occurred_at, recorded_by_name)
+         select (select id from catheter_episodes where patient_id = $1 limit 1), $1, 'visit', 'bench', now() - g * interval '1 day', 'Bench Nurse'
+         from generate_series(1, greatest(0, $2 - (select count(*) from episode_events where patient_id = $1))) g`,
+        [id, n],
+      );
+      const pdfPath = `/api/patients/${id}/passport`;
+      const times = await timed(20, () =>
+        fetch(`${base}${pdfPath}`, { method: "POST", headers: { cookie: nurse, origin: base, "content-type": "application/json" }, body: "{}" }).then((r) => r.text()),
+      );
+      add(`passport issue with PDF, ${n} history entries`, `p50 ${pct(times, 50).toFixed(0)} ms, p95 ${pct(times, 95).toFixed(0)} ms`, "p95 ≤ 500 ms", pct(times, 95) <= 500);
+    }
+
+    // 4. First-load JavaScript (gzip).
+    const patient = await signInCookie("arthur.pell@eastmere.example", "Eastmere-patient-2026");
+    const bare = await firstLoadJs("/en/no-such-page");
+    const cardJs = await firstLoadJs(`/en/p/${token}`);
+    add("first-load JS, bare page (not found)", `${(bare / 1024).toFixed(1)} KiB`);
+    add("first-load JS, device card", `${(cardJs / 1024).toFixed(1)} KiB`, "≤ 1.3 × bare", cardJs <= 1.3 * bare);
+    add("first-load JS, check-in", `${((await firstLoadJs("/en/check-in", patient)) / 1024).toFixed(1)} KiB`);
+    add("first-load JS, caseload", `${((await firstLoadJs("/en/caseload", nurse)) / 1024).toFixed(1)} KiB`);
+
+    // 5. Lighthouse mobile.
+    const bareLh = await lighthouseScores("/en/no-such-page");
+    add("Lighthouse bare page", fmt(bareLh));
+    for (const [name, p, cookie] of [["device card", `/en/p/${token}`, undefined], ["portal Today", "/en/today", patient], ["check-in", "/en/check-in", patient]] as const) {
+      const s = await lighthouseScores(p, cookie);
+      add(`Lighthouse ${name}`, fmt(s), "perf ≥ bare, a11y 100", s.performance >= bareLh.performance && s.accessibility === 1);
+    }
+  } finally {
+    server.kill("SIGTERM");
+    await client.end();
+  }
+  writeReport();
+}
+
+function fmt(s: { performance: number; accessibility: number; bestPractices: number }) {
+  return `performance ${Math.round(s.performance * 100)}, accessibility ${Math.round(s.accessibility * 100)}, best practices ${Math.round(s.bestPractices * 100)}`;
+}
+
+function writeReport() {
+  const machine = `${os.cpus().length} × ${os.cpus()[0]?.model ?? "cpu"}, ${(os.totalmem() / 2 ** 30).toFixed(0)} GiB, Node.js ${process.version}`;
+  const lines = [
+    "# Performance",
+    "",
+    `Measured by \`npm run bench\` on ${new Date().toISOString().slice(0, 10)}, ${machine}; autocannon ${connections} connections × ${seconds} s on loopback.`,
+    "",
+    "| measure | figure | target | met |",
+    "|---|---|---|---|",
+    ...rows.map((r) => `| ${r.what} | ${r.figure} | ${r.target ?? ""} | ${r.target ? (r.met ? "yes" : "**no**") : ""} |`),
+    "",
+  ];
+  fs.mkdirSync(path.join(root, "docs"), { recursive: true });
+  fs.writeFileSync(path.join(root, "docs/performance.md"), lines.join("\n"));
+  console.log(`\n${lines.join("\n")}`);
+}
+
+main().catch((e) => {
+  console.error("[bench]", e);
+  writeReport();
+  process.exit(1);
+});

@@ -1,0 +1,265 @@
+// Recording a catheter in Chromium as a nurse would: the packaging barcode typed by a scanner
+// into the scan field, the latex stop for a latex-allergic patient, its override, the save and
+// the record; the camera reading a GS1 DataMatrix; and screenshots of every form.
+import { randomUUID } from "node:crypto";
+import { and, eq, isNull } from "drizzle-orm";
+import type { Browser, Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { db, pool } from "@/db";
+import { careTeam, catheterEpisodes, episodeEvents, organisations, patients } from "@/db/schema";
+import { demo } from "../support/http";
+import { launch, newPage, screenshot, signInAs } from "./support/browser";
+import { writeLabelVideo } from "./support/fake-camera";
+
+// Source: clinical-checks.md §7 (GS1 General Specifications): 0109506000134352 17281100 10AB12
+// GS 21XYZ → GTIN 09506000134352, expiry 2028-11-30, lot AB12, serial XYZ; the check digit is valid.
+const LABEL_BEFORE_GS = "0109506000134352" + "17281100" + "10AB12";
+const LABEL_AFTER_GS = "21XYZ";
+const BRACKETED = "(01)09506000134352(17)281100(10)AB12(21)XYZ";
+
+let browser: Browser;
+let harbourside: string;
+
+async function makePatient(opts: { latex?: boolean; familyName?: string } = {}) {
+  const [p] = await db
+    .insert(patients)
+    .values({
+      givenName: "Edwin",
+      familyName: opts.familyName ?? `Marsh-${randomUUID().slice(0, 6)}`,
+      healthRecordNumber: `E2E-${randomUUID()}`,
+      dateOfBirth: "1948-02-14",
+      sex: "male",
+      allergyLatex: opts.latex ?? false,
+    })
+    .returning({ id: patients.id });
+  await db.insert(careTeam).values({ patientId: p.id, organisationId: harbourside });
+  return p.id;
+}
+
+/** A patient with a catheter in place, or (trial) one removed for a trial without catheter. */
+async function makePatientWithCatheter(opts: { latex?: boolean; trial?: boolean } = {}) {
+  const patientId = await makePatient(opts);
+  const insertedAt = new Date(Date.now() - 30 * 86_400_000);
+  await db.insert(catheterEpisodes).values({
+    patientId,
+    organisationId: harbourside,
+    route: "urethral",
+    catheterType: "two-way",
+    material: "all-silicone",
+    lengthCategory: "standard",
+    sizeCh: 14,
+    balloonMl: 10,
+    makerBalloonMl: 10,
+    maker: "Northfen Medical (demo)",
+    indication: "Chronic urinary retention",
+    insertedAt,
+    insertedByName: "Grace Mensah",
+    gelKind: "plain",
+    gelVolumeMl: 11,
+    maxDwellDays: 84,
+    plannedChangeOn: new Date(insertedAt.getTime() + 84 * 86_400_000).toISOString().slice(0, 10),
+    reviewDueOn: new Date(insertedAt.getTime() + 28 * 86_400_000).toISOString().slice(0, 10),
+    removedAt: opts.trial ? new Date(Date.now() - 4 * 3600_000) : null,
+    removalReason: opts.trial ? "trial-without-catheter" : null,
+    awaitingTwoc: Boolean(opts.trial),
+  });
+  return patientId;
+}
+
+async function nurse(options: Parameters<typeof newPage>[1] = {}, b = browser) {
+  const page = await newPage(b, options);
+  await signInAs(page, demo.communityNurse.email, demo.communityNurse.password);
+  return page;
+}
+
+async function fillInsertion(page: Page) {
+  await page.getByRole("radio", { name: "Urethral" }).check();
+  await page.getByRole("radio", { name: "Two-way" }).check();
+  await page.getByLabel("Length", { exact: true }).selectOption("standard");
+  await page.getByLabel("Size", { exact: true }).fill("14");
+  await page.getByLabel("Balloon: sterile water put in").fill("10");
+  await page.getByLabel("Balloon volume stated by the maker").fill("10");
+  await page.getByLabel("Maker", { exact: true }).fill("Northfen Medical (demo)");
+  await page.getByLabel("Reason for the catheter (indication)").fill("Chronic urinary retention");
+  await page.getByLabel("Lubricant or anaesthetic gel").selectOption("plain");
+  await page.getByLabel("Gel volume").fill("11");
+  await page.getByLabel("Residual urine drained").fill("420");
+  await page.getByLabel("Urine description").fill("Clear, straw-coloured");
+  await page.getByLabel("Patient's reaction").fill("Comfortable");
+}
+
+beforeAll(async () => {
+  browser = await launch();
+  const [org] = await db.select({ id: organisations.id }).from(organisations).where(eq(organisations.name, "Harbourside Community Nursing Team"));
+  harbourside = org.id;
+});
+afterAll(async () => {
+  await browser?.close();
+  await pool.end();
+});
+
+describe("recording an insertion in Chromium", () => {
+  it("fills the device from a scanned GS1 string, stops on latex for a latex allergy, saves with an override, and the record shows it", async () => {
+    const patientId = await makePatient({ latex: true });
+    const page = await nurse();
+    await page.goto(`/en/patients/${patientId}/record/insertion`);
+    await expect.poll(() => page.locator("h1").first().textContent()).toBe("Record an insertion");
+    await expect.poll(() => page.getByTestId("allergies").textContent()).toContain("Latex");
+
+    // A USB scanner types the element string; the group separator arrives as Ctrl+] and the scan ends with Enter.
+    const scan = page.getByTestId("scan-input");
+    await scan.click();
+    await page.keyboard.type(LABEL_BEFORE_GS);
+    await page.keyboard.press("Control+BracketRight");
+    await page.keyboard.type(LABEL_AFTER_GS);
+    await page.keyboard.press("Enter");
+    await expect.poll(() => page.getByTestId("field-gtin").inputValue()).toBe("09506000134352");
+    expect(await page.getByTestId("field-lot").inputValue()).toBe("AB12");
+    expect(await page.getByTestId("field-expiry").inputValue()).toBe("2028-11-30");
+    expect(await page.getByTestId("field-serial").inputValue()).toBe("XYZ");
+    expect(await page.getByTestId("scan-filled").textContent()).toContain("product number, lot, expiry, serial number");
+    expect(await page.getByTestId("scan-errors").count()).toBe(0);
+    // Still on the form: Enter from the scanner did not submit it.
+    expect(new URL(page.url()).pathname).toBe(`/en/patients/${patientId}/record/insertion`);
+
+    await fillInsertion(page);
+    await page.getByLabel("Material").selectOption("hydrogel-coated-latex");
+    const stop = page.getByTestId("finding-latex-allergy");
+    await expect.poll(() => stop.getAttribute("data-severity")).toBe("stop");
+    expect(await stop.textContent()).toContain("Latex allergy: this catheter contains latex");
+    expect(await stop.textContent()).toContain("Stop");
+    expect(await page.getByTestId("findings-panel").textContent()).toContain(
+      "Local policy, the maker's instructions and clinical judgement come first.",
+    );
+    await screenshot(page, "episode-insertion-latex-stop-en");
+
+    // Saving without an override reason is refused in the browser, and nothing reaches the database.
+    await page.getByTestId("save").click();
+    await expect.poll(() => page.getByTestId("form-error").textContent()).toContain("A stop finding needs the reason");
+    expect(new URL(page.url()).pathname).toBe(`/en/patients/${patientId}/record/insertion`);
+    expect(await db.select().from(catheterEpisodes).where(eq(catheterEpisodes.patientId, patientId))).toHaveLength(0);
+
+    const reason = "Latex allergy doubtful: confirmed with the patient and his GP letter";
+    await page.getByTestId("override-latex-allergy").fill(reason);
+    await page.getByTestId("save").click();
+    await page.waitForURL((u) => u.pathname === `/en/patients/${patientId}`, { timeout: 30_000 });
+
+    const [episode] = await db
+      .select()
+      .from(catheterEpisodes)
+      .where(and(eq(catheterEpisodes.patientId, patientId), isNull(catheterEpisodes.removedAt)));
+    expect(episode).toMatchObject({
+      material: "hydrogel-coated-latex",
+      sizeCh: 14,
+      balloonMl: 10,
+      gtin: "09506000134352",
+      lot: "AB12",
+      expiry: "2028-11-30",
+      serial: "XYZ",
+      residualUrineMl: 420,
+      insertedByName: "Grace Mensah",
+    });
+    expect(episode.udi).toBe(`${LABEL_BEFORE_GS}\u001d${LABEL_AFTER_GS}`);
+    expect(episode.overrides).toEqual([{ code: "latex-allergy", reason }]);
+    const [event] = await db.select().from(episodeEvents).where(eq(episodeEvents.episodeId, episode.id));
+    expect(event.kind).toBe("insertion");
+
+    // The patient record shows the new catheter and the override reason.
+    const body = await page.locator("main").textContent();
+    expect(body).toContain("AB12");
+    expect(body).toContain(reason);
+    await screenshot(page, "episode-insertion-saved-record-en");
+    await page.context().close();
+  });
+
+  it("shows a wrong check digit as a clear error and fills no product number", async () => {
+    const patientId = await makePatient();
+    const page = await nurse();
+    await page.goto(`/en/patients/${patientId}/record/insertion`);
+    // Source: clinical-checks.md §7: 09506000134353 has a wrong check digit.
+    await page.getByTestId("scan-input").fill("(01)09506000134353(17)281100(10)AB12");
+    await page.getByTestId("scan-read").click();
+    await expect.poll(() => page.getByTestId("scan-errors").textContent()).toContain("check digit is wrong");
+    expect(await page.getByTestId("field-gtin").inputValue()).toBe("");
+    expect(await page.getByTestId("field-lot").inputValue()).toBe("AB12");
+    await page.context().close();
+  });
+});
+
+describe("the camera reads the packaging", () => {
+  let cameraBrowser: Browser;
+  beforeAll(async () => {
+    const video = await writeLabelVideo(BRACKETED);
+    cameraBrowser = await launch([
+      "--use-fake-ui-for-media-stream",
+      "--use-fake-device-for-media-stream",
+      `--use-file-for-fake-video-capture=${video}`,
+    ]);
+  });
+  afterAll(async () => {
+    await cameraBrowser?.close();
+  });
+
+  it("reads a GS1 DataMatrix from the camera into the device fields", async () => {
+    const patientId = await makePatient();
+    const page = await nurse({}, cameraBrowser);
+    await page.goto(`/en/patients/${patientId}/record/insertion`);
+    await page.getByTestId("camera-open").click();
+    await expect.poll(() => page.getByTestId("field-gtin").inputValue(), { timeout: 30_000, interval: 500 }).toBe("09506000134352");
+    expect(await page.getByTestId("field-lot").inputValue()).toBe("AB12");
+    expect(await page.getByTestId("field-expiry").inputValue()).toBe("2028-11-30");
+    expect(await page.getByTestId("field-serial").inputValue()).toBe("XYZ");
+    // The reader stops and closes once it has read the label.
+    await expect.poll(() => page.getByTestId("camera-reader").count()).toBe(0);
+    await page.context().close();
+  });
+});
+
+describe("screenshots of every form, en and ar, wide and phone", () => {
+  const viewports = [
+    { name: "wide", viewport: { width: 1280, height: 900 } },
+    { name: "phone", viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true },
+  ] as const;
+
+  it("insertion, change, removal and TWOC, with findings showing", async () => {
+    const latexPatient = await makePatientWithCatheter({ latex: true });
+    const emptyPatient = await makePatient({ latex: true });
+    const trialPatient = await makePatientWithCatheter({ trial: true });
+    for (const v of viewports) {
+      const page = await nurse({ viewport: v.viewport, isMobile: "isMobile" in v ? v.isMobile : false, hasTouch: "hasTouch" in v ? v.hasTouch : false });
+      for (const locale of ["en", "ar"] as const) {
+        const forms = [
+          { kind: "insertion", patientId: emptyPatient, latex: true },
+          { kind: "change", patientId: latexPatient, latex: true },
+          { kind: "removal", patientId: latexPatient, latex: false },
+          { kind: "twoc", patientId: trialPatient, latex: false },
+        ];
+        for (const f of forms) {
+          const res = await page.goto(`/${locale}/patients/${f.patientId}/record/${f.kind}`);
+          expect(res?.status()).toBe(200);
+          expect(await page.locator("html").getAttribute("dir")).toBe(locale === "ar" ? "rtl" : "ltr");
+          await page.getByTestId(`${f.kind}-form`).waitFor();
+          if (f.latex) {
+            if (f.kind === "insertion") {
+              await page.getByTestId("scan-input").fill(BRACKETED);
+              await page.getByTestId("scan-read").click();
+              await page.locator('input[name="sizeCh"]').fill("18");
+              await page.locator('input[name="balloonMl"]').fill("10");
+              await page.locator('input[value="urethral"]').check();
+              await page.locator('input[value="two-way"]').check();
+              await page.locator('select[name="lengthCategory"]').selectOption("standard");
+              await page.locator('select[name="gelKind"]').selectOption("plain");
+            }
+            await page.locator('select[name="material"]').selectOption("silicone-coated-latex");
+            await expect.poll(() => page.getByTestId("finding-latex-allergy").getAttribute("data-severity")).toBe("stop");
+          }
+          // No horizontal scrolling on a phone (WCAG 1.4.10 reflow).
+          const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+          expect(overflow, `${f.kind} ${locale} ${v.name} scrolls sideways`).toBeLessThanOrEqual(0);
+          await screenshot(page, `episode-${f.kind}-${locale}-${v.name}`);
+        }
+      }
+      await page.context().close();
+    }
+  });
+});

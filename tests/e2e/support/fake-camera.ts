@@ -1,0 +1,40 @@
+// A packaging label as a fake camera: a GS1 DataMatrix drawn with bwip-js (which also refuses
+// a wrong GS1 check digit), written as a few frames of a YUV4MPEG2 (.y4m) file that Chromium
+// plays as its camera with --use-file-for-fake-video-capture.
+import fs from "node:fs";
+import os from "node:os";
+import path from "node:path";
+import bwipjs from "bwip-js/node";
+import { PNG } from "pngjs";
+
+const WIDTH = 640;
+const HEIGHT = 480;
+
+export async function gs1DataMatrixPng(bracketed: string): Promise<Buffer> {
+  return bwipjs.toBuffer({ bcid: "gs1datamatrix", text: bracketed, scale: 10, paddingwidth: 4, paddingheight: 4, backgroundcolor: "FFFFFF" });
+}
+
+/** Writes the label, centred on a white 640×480 frame, as `frames` frames of 4:2:0 video. */
+export async function writeLabelVideo(bracketed: string, frames = 10): Promise<string> {
+  const png = PNG.sync.read(await gs1DataMatrixPng(bracketed));
+  const y = Buffer.alloc(WIDTH * HEIGHT, 235);
+  const scale = Math.max(1, Math.floor(Math.min((WIDTH * 0.6) / png.width, (HEIGHT * 0.6) / png.height)));
+  const w = png.width * scale;
+  const h = png.height * scale;
+  const x0 = Math.floor((WIDTH - w) / 2);
+  const y0 = Math.floor((HEIGHT - h) / 2);
+  for (let py = 0; py < h; py++) {
+    for (let px = 0; px < w; px++) {
+      const i = (Math.floor(py / scale) * png.width + Math.floor(px / scale)) * 4;
+      // BT.601 luma from RGB; the label is black on white, so chroma stays neutral.
+      const luma = 0.299 * png.data[i] + 0.587 * png.data[i + 1] + 0.114 * png.data[i + 2];
+      y[(y0 + py) * WIDTH + (x0 + px)] = Math.round(16 + (luma * 219) / 255);
+    }
+  }
+  const chroma = Buffer.alloc((WIDTH / 2) * (HEIGHT / 2), 128);
+  const header = Buffer.from(`YUV4MPEG2 W${WIDTH} H${HEIGHT} F10:1 Ip A1:1 C420jpeg\n`);
+  const frame = Buffer.concat([Buffer.from("FRAME\n"), y, chroma, chroma]);
+  const file = path.join(fs.mkdtempSync(path.join(os.tmpdir(), "caddis-camera-")), "label.y4m");
+  fs.writeFileSync(file, Buffer.concat([header, ...Array.from({ length: frames }, () => frame)]));
+  return file;
+}
