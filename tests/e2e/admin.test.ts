@@ -2,7 +2,8 @@
 // and an admin inviting a nurse who accepts from the link and signs in.
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { demo } from "../support/http";
+import { demo, totpCode } from "../support/http";
+import { createOrganisation, createStaff } from "../support/staff";
 import { launch, newPage, screenshot, signInAs } from "./support/browser";
 
 let browser: Browser;
@@ -11,6 +12,8 @@ beforeAll(async () => {
 });
 afterAll(async () => {
   await browser?.close();
+  const { pool } = await import("@/db");
+  await pool.end().catch(() => {});
 });
 
 const pages = [
@@ -111,5 +114,40 @@ describe("administration pages", () => {
     await expect.poll(() => page.getByRole("alert").first().textContent()).toContain("6 digits");
     await screenshot(page, "two-factor-en");
     await page.context().close();
+  });
+});
+
+describe("an organisation that requires two-step sign-in", () => {
+  it("sends its nurse to set it up after signing in, and lets them in once it is done", { timeout: 180_000 }, async () => {
+    const org = await createOrganisation({ name: `Strict Ward ${Date.now().toString(36)}`, requireTwoFactor: true });
+    const nurse = await createStaff({ role: "clinician", organisationIds: [org.id] });
+    const page = await newPage(browser);
+    await signInAs(page, nurse.email, nurse.password);
+    expect(new URL(page.url()).pathname).toBe("/en/two-factor/setup");
+    // Staff pages send them back here until it is done.
+    await page.goto("/en/caseload");
+    await page.waitForURL(/\/en\/two-factor\/setup$/);
+    await screenshot(page, "two-factor-setup-en");
+    await page.getByLabel("Password").fill(nurse.password);
+    await page.getByRole("button", { name: "Continue" }).click();
+    const secretBox = page.getByTestId("totp-secret");
+    await secretBox.waitFor();
+    const secret = (await secretBox.textContent())!.replace(/\s/g, "");
+    await screenshot(page, "two-factor-setup-scan-en");
+    await page.locator('input[autocomplete="one-time-code"]').fill(totpCode(secret));
+    await page.getByRole("button", { name: "Turn on two-step sign-in" }).click();
+    await page.getByTestId("backup-codes").waitFor();
+    expect(await page.getByTestId("backup-codes").locator("li").count()).toBe(10);
+    await page.getByRole("button", { name: "Continue" }).click();
+    await page.waitForURL(/\/en\/caseload$/);
+    await page.goto("/ar/two-factor/setup");
+    // Done: the set-up page now sends them home.
+    await page.waitForURL(/\/ar\/caseload$/);
+    await page.context().close();
+    // The next sign-in asks for the code.
+    const again = await newPage(browser);
+    await signInAs(again, nurse.email, nurse.password, "ar", secret);
+    expect(new URL(again.url()).pathname).toBe("/ar/caseload");
+    await again.context().close();
   });
 });
