@@ -115,6 +115,20 @@ describe("administration pages", () => {
     await screenshot(page, "two-factor-en");
     await page.context().close();
   });
+
+  it("the public account pages read in English and Arabic", async () => {
+    const page = await newPage(browser);
+    for (const locale of ["en", "ar"]) {
+      await page.goto(`/${locale}/forgot-password`);
+      await expect.poll(() => page.locator("h1").count()).toBe(1);
+      await screenshot(page, `forgot-password-${locale}`);
+      await page.goto(`/${locale}/accept-invite/not-a-real-invitation-token-000000`);
+      await expect.poll(() => page.locator("h1").count()).toBe(1);
+      expect(await page.locator('meta[name="referrer"]').getAttribute("content")).toBe("no-referrer");
+      await screenshot(page, `accept-invite-invalid-${locale}`);
+    }
+    await page.context().close();
+  });
 });
 
 describe("an organisation that requires two-step sign-in", () => {
