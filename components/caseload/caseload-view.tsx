@@ -299,7 +299,16 @@ function CaseloadTable({ rows, query, onSort }: { rows: CaseloadRow[]; query: Ca
                 <div className="tabular whitespace-nowrap text-sm text-ink-soft">{r.healthRecordNumber}</div>
                 {r.awaitingTwoc ? <div className="text-sm font-bold text-level-soon-ink">{t("awaitingTwoc")}</div> : null}
               </td>
-              <td className="tabular whitespace-nowrap px-2.5 py-3">{device(r)}</td>
+              <td className="tabular whitespace-nowrap px-2.5 py-3">
+                {r.route ? (
+                  <>
+                    <span className="block">{t(`routes.${r.route}`)}</span>
+                    <span className="block">{t("sizeCh", { size: r.sizeCh ?? 0 })}</span>
+                  </>
+                ) : (
+                  t("noDevice")
+                )}
+              </td>
               <td className="tabular whitespace-nowrap px-2.5 py-3">{days(r)}</td>
               <td className="tabular whitespace-nowrap px-2.5 py-3">
                 <DateWithState date={date(r.plannedChangeOn)} state={r.changeState} />

@@ -143,8 +143,7 @@ describe("clinician workspace", () => {
 
   it("opens Halina Nowak's history and sees the blockage pattern with its safety words", async () => {
     const page = await nurse();
-    await page.goto("/en/caseload");
-    await page.getByLabel("Search by name or health record number").fill("Halina");
+    await page.goto("/en/caseload?q=Halina");
     await expect.poll(() => tableRows(page).count()).toBe(1);
     await page.getByRole("link", { name: "Halina Nowak" }).click();
     await page.waitForURL(/\/en\/patients\/[0-9a-f-]{36}$/);

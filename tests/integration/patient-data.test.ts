@@ -27,7 +27,7 @@ async function addRowsFor(patientId: string, tag: string) {
   await db.insert(checkIns).values({ patientId, answers: { tag }, level: "self-care", ruleIds: [], idempotencyKey: `${tag}-${randomUUID()}` });
   await db.insert(passports).values({ patientId, tokenHash: hashToken(randomBytes(32).toString("base64url")), shortCodeHash: hashToken(randomUUID()), languages: ["en"] });
   await db.insert(uploads).values({ patientId, category: "other", objectKey: `test/${randomUUID()}`, label: `${tag}.pdf` });
-  await db.insert(outboundMessages).values({ idempotencyKey: `${tag}-${randomUUID()}`, kind: "test", toAddress: "gp@eastmere.example", subject: tag, html: tag, text: tag, patientId });
+  await db.insert(outboundMessages).values({ idempotencyKey: `${tag}-${randomUUID()}`, messageId: `<${randomUUID()}@caddis.invalid>`, kind: "test", toAddress: "gp@eastmere.example", subject: tag, html: tag, text: tag, patientId });
   await db.insert(visitAccess).values({ patientId, userId: nurse, reason: tag, expiresAt: new Date(Date.now() + 3600_000) });
 }
 

@@ -1,0 +1,41 @@
+import "server-only";
+// Fixed-window counters in PostgreSQL (table attempt_counters) for Caddis's own endpoints that
+// take a guessable secret: activation codes and carer-invitation sign-ins. better-auth's own
+// rate_limit table covers only its endpoints, and calls through auth.api.* are not limited
+// (security-accessibility.md). Keys are per client address (hashed), so nobody can lock a
+// patient out of their account by guessing from elsewhere (ASVS 6.1.1, 2.4.1).
+import { sql } from "drizzle-orm";
+import { db, type Executor } from "@/db";
+import { clientIp, hashIp } from "./client-ip";
+import { AppError } from "./errors";
+
+export type LimitRule = { name: string; max: number; windowSeconds: number };
+
+export const LIMITS = {
+  activate: { name: "activate", max: 10, windowSeconds: 15 * 60 },
+  carerInvite: { name: "carer-invite", max: 10, windowSeconds: 15 * 60 },
+} as const satisfies Record<string, LimitRule>;
+
+/** Counts one attempt; returns how many were made in the current window. */
+export async function countAttempt({ key, windowSeconds }: { key: string; windowSeconds: number }, tx: Executor = db) {
+  const result = await tx.execute<{ count: number; window_started_at: Date | string }>(sql`
+    insert into attempt_counters (key, count, window_started_at) values (${key}, 1, now())
+    on conflict (key) do update set
+      count = case when attempt_counters.window_started_at <= now() - make_interval(secs => ${windowSeconds})
+                   then 1 else attempt_counters.count + 1 end,
+      window_started_at = case when attempt_counters.window_started_at <= now() - make_interval(secs => ${windowSeconds})
+                   then now() else attempt_counters.window_started_at end
+    returning count, window_started_at`);
+  const row = result.rows[0];
+  return { count: Number(row.count), windowStartedAt: new Date(row.window_started_at) };
+}
+
+/** Counts an attempt from this request's address; over the limit → 429 with Retry-After. */
+export async function limitByAddress(request: Request | { headers: Headers }, rule: LimitRule) {
+  const key = `${rule.name}:${hashIp(clientIp(request.headers))}`;
+  const { count, windowStartedAt } = await countAttempt({ key, windowSeconds: rule.windowSeconds });
+  if (count > rule.max) {
+    const retry = Math.max(1, Math.ceil((windowStartedAt.getTime() + rule.windowSeconds * 1000 - Date.now()) / 1000));
+    throw new AppError("rate_limited", undefined, { headers: { "Retry-After": String(retry) } });
+  }
+}
