@@ -15,6 +15,7 @@ import { authSecret, env } from "./env";
 const trustedProxies = (process.env.TRUSTED_PROXIES ?? "").split(",").map((s) => s.trim()).filter(Boolean);
 
 export const SIGN_IN_WINDOW_SECONDS = 60;
+export const RESET_LINK_SECONDS = 60 * 60;
 export const SIGN_IN_MAX_ATTEMPTS = Number(process.env.SIGN_IN_MAX_ATTEMPTS ?? 10);
 
 export const auth = betterAuth({
@@ -35,11 +36,12 @@ export const auth = betterAuth({
     minPasswordLength: PASSWORD_MIN_LENGTH,
     maxPasswordLength: 256,
     password: { hash: hashPassword, verify: verifyPassword },
-    resetPasswordTokenExpiresIn: 60 * 60,
+    resetPasswordTokenExpiresIn: RESET_LINK_SECONDS,
     // A reset ends every session, so whoever knew the old password is signed out.
     revokeSessionsOnPasswordReset: true,
+    // Through the outbox, in the account's language (lib/admin/mail.ts).
     sendResetPassword: async ({ user: u, url }) => {
-      await sendPasswordReset({ email: u.email, name: u.name, locale: (u as { locale?: string }).locale ?? "en", url });
+      await sendPasswordReset({ userId: u.id, email: u.email, name: u.name, url, expiresInSeconds: RESET_LINK_SECONDS });
     },
     onPasswordReset: async ({ user: u }, request) => {
       await audit({ action: "account.password_reset", actor: { userId: u.id, role: roleOf(u) }, request: request ?? null });

@@ -10,20 +10,18 @@ import { Notice } from "@/components/ui/notice";
 import { SelectField } from "@/components/ui/select-field";
 import { ApiError, apiFetch } from "@/lib/api-client";
 import { useRouter } from "@/lib/i18n/navigation";
-import { localeNames, locales } from "@/lib/i18n/routing";
 import { inviteStaffSchema, staffRoles, type InviteStaffFormValues, type InviteStaffInput } from "@/lib/validations/staff";
 import { useErrorText } from "./use-field-errors";
 
 type Org = { id: string; name: string };
-type Result = { invitation: { email: string; expiresAt: string }; emailed: boolean; link: string | null };
+type Result = { invitation: { email: string; expiresAt: string }; emailed: boolean };
 
-export function InviteStaffForm({ organisations, locale }: { organisations: Org[]; locale: string }) {
+export function InviteStaffForm({ organisations }: { organisations: Org[] }) {
   const t = useTranslations("AdminStaff");
   const errorText = useErrorText("AdminStaff");
   const router = useRouter();
   const [formError, setFormError] = useState<string | null>(null);
   const [result, setResult] = useState<Result | null>(null);
-  const [copied, setCopied] = useState(false);
   const {
     register,
     handleSubmit,
@@ -32,13 +30,12 @@ export function InviteStaffForm({ organisations, locale }: { organisations: Org[
     formState: { errors, isSubmitting },
   } = useForm<InviteStaffFormValues, unknown, InviteStaffInput>({
     resolver: zodResolver(inviteStaffSchema),
-    defaultValues: { email: "", name: "", role: "clinician", organisationIds: organisations.length === 1 ? [organisations[0].id] : [], locale: locale as InviteStaffInput["locale"] },
+    defaultValues: { email: "", name: "", role: "clinician", organisationIds: organisations.length === 1 ? [organisations[0].id] : [] },
   });
 
   const onSubmit = handleSubmit(async (values) => {
     setFormError(null);
     setResult(null);
-    setCopied(false);
     try {
       const r = await apiFetch<Result>("/api/admin/staff/invitations", { method: "POST", body: values });
       setResult(r);
@@ -57,28 +54,7 @@ export function InviteStaffForm({ organisations, locale }: { organisations: Org[
       {formError ? <Notice tone="stop" role="alert" title={formError} /> : null}
       {result ? (
         <Notice tone="ok" role="status" title={t("invited", { email: result.invitation.email })}>
-          {result.link ? (
-            <div className="mt-2 flex flex-col gap-2">
-              <p>{t("linkToShare")}</p>
-              <p className="break-all rounded border border-stone-faint bg-paper-raised p-2 font-mono text-sm" data-testid="invite-link">
-                {result.link}
-              </p>
-              <div>
-                <Button
-                  variant="secondary"
-                  onClick={async () => {
-                    await navigator.clipboard?.writeText(result.link!).catch(() => {});
-                    setCopied(true);
-                  }}
-                >
-                  {copied ? t("copied") : t("copy")}
-                </Button>
-              </div>
-              <p className="text-sm">{t("linkNote")}</p>
-            </div>
-          ) : (
-            <p>{t("emailed")}</p>
-          )}
+          <p>{t("emailed")}</p>
         </Notice>
       ) : null}
       <div className="grid gap-4 md:grid-cols-2">
@@ -88,13 +64,6 @@ export function InviteStaffForm({ organisations, locale }: { organisations: Org[
           {staffRoles.map((r) => (
             <option key={r} value={r}>
               {t(`roles.${r}`)}
-            </option>
-          ))}
-        </SelectField>
-        <SelectField label={t("inviteLanguage")} {...register("locale")}>
-          {locales.map((l) => (
-            <option key={l} value={l} lang={l}>
-              {localeNames[l]}
             </option>
           ))}
         </SelectField>

@@ -1,6 +1,7 @@
 import "server-only";
 import { and, asc, eq, gt, inArray, isNull, sql } from "drizzle-orm";
 import { db, type Executor } from "@/db";
+import { invitationMailStates, type InvitationMailState } from "@/db/queries/admin-mail";
 import {
   account,
   memberships,
@@ -36,6 +37,8 @@ export type PendingInvitation = {
   expiresAt: Date;
   expired: boolean;
   organisations: StaffOrganisation[];
+  /** The invitation e-mail in the outbox (null for an invitation made before e-mail was wired). */
+  mail: InvitationMailState | null;
 };
 
 const staffRolesList: StaffRole[] = ["admin", "clinician"];
@@ -136,11 +139,13 @@ export async function listPendingInvitations({ organisationIds }: { organisation
   for (const r of rows) {
     let i = byId.get(r.id);
     if (!i) {
-      i = { id: r.id, email: r.email, name: r.name, role: r.role, expiresAt: r.expiresAt, expired: r.expiresAt.getTime() <= now, organisations: [] };
+      i = { id: r.id, email: r.email, name: r.name, role: r.role, expiresAt: r.expiresAt, expired: r.expiresAt.getTime() <= now, organisations: [], mail: null };
       byId.set(r.id, i);
     }
     if (organisationIds.includes(r.orgId)) i.organisations.push({ id: r.orgId, name: r.orgName, kind: r.orgKind });
   }
+  const mail = await invitationMailStates({ invitationIds: [...byId.keys()] }, tx);
+  for (const i of byId.values()) i.mail = mail.get(i.id) ?? null;
   return [...byId.values()];
 }
 

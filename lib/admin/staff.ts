@@ -4,6 +4,7 @@ import "server-only";
 // the deployment — or an organisation that has admins — without an active admin.
 import { randomUUID } from "node:crypto";
 import { db, type Executor } from "@/db";
+import { organisationLocales } from "@/db/queries/admin-mail";
 import { organisationNames } from "@/db/queries/organisations";
 import {
   addMemberships,
@@ -31,7 +32,7 @@ import type { Viewer } from "@/lib/auth/session";
 import { env } from "@/lib/env";
 import { AppError } from "@/lib/errors";
 import type { AcceptInviteInput, InviteStaffInput, UpdateStaffInput } from "@/lib/validations/staff";
-import { invitationsByEmail, sendStaffInvitation } from "./mail";
+import { sendStaffInvitation } from "./mail";
 import { hashToken, newToken } from "./tokens";
 
 export const INVITATION_LIFETIME_HOURS = 72;
@@ -68,7 +69,6 @@ export async function inviteStaff({ viewer, input, request }: { viewer: Viewer; 
   assertManages(viewer, input.organisationIds);
   const token = newToken();
   const expiresAt = new Date(Date.now() + INVITATION_LIFETIME_HOURS * 3600_000);
-  const link = `${env.APP_URL}/${input.locale}/accept-invite/${token}`;
   const result = await db.transaction(async (tx) => {
     if (await findUserByEmail({ email: input.email }, tx)) {
       throw new AppError("conflict", "There is already an account with this e-mail address.", { fields: { email: ["account_exists"] } });
@@ -81,6 +81,9 @@ export async function inviteStaff({ viewer, input, request }: { viewer: Viewer; 
       }
       await revokeInvitation({ id: open.id }, tx);
     }
+    const orgs = await organisationLocales({ ids: input.organisationIds }, tx);
+    // Staff e-mails are in the organisation's language: the first one chosen.
+    const locale = orgs[0]?.locale ?? "en";
     const row = await insertInvitation(
       {
         values: { email: input.email, name: input.name ?? null, role: input.role, tokenHash: hashToken(token), expiresAt, invitedByUserId: viewer.userId },
@@ -88,16 +91,18 @@ export async function inviteStaff({ viewer, input, request }: { viewer: Viewer; 
       },
       tx,
     );
-    const orgs = await organisationNames({ ids: input.organisationIds }, tx);
+    // The link is e-mailed in this transaction and never returned: only the invitee sees it.
     const mail = await sendStaffInvitation(tx, {
       invitationId: row.id,
       email: input.email,
       name: input.name ?? null,
-      locale: input.locale,
-      link,
+      locale,
+      link: `${env.APP_URL}/${locale}/accept-invite/${token}`,
       expiresAt,
       invitedByName: viewer.name,
+      invitedByUserId: viewer.userId,
       organisationNames: orgs.map((o) => o.name),
+      role: input.role,
     });
     for (const organisationId of input.organisationIds) {
       await audit(
@@ -107,18 +112,17 @@ export async function inviteStaff({ viewer, input, request }: { viewer: Viewer; 
           organisationId,
           via: "admin",
           request,
-          details: { invitationId: row.id, role: input.role, emailed: mail.queued },
+          details: { invitationId: row.id, role: input.role, messageId: mail.id, locale },
         },
         tx,
       );
     }
-    return { id: row.id, emailed: mail.queued };
+    return { id: row.id, messageStatus: mail.status, locale };
   });
   return {
-    invitation: { id: result.id, email: input.email, role: input.role, expiresAt },
-    emailed: result.emailed,
-    // Shown to the admin only while invitations are not e-mailed.
-    link: result.emailed && invitationsByEmail ? null : link,
+    invitation: { id: result.id, email: input.email, role: input.role, expiresAt, locale: result.locale },
+    emailed: true,
+    messageStatus: result.messageStatus,
   };
 }
 

@@ -1,7 +1,6 @@
 import { z } from "zod";
 import type { StaffRole } from "@/db/schema/app";
 import { PASSWORD_MIN_LENGTH, passwordProblem } from "@/lib/auth/password-rules";
-import { locales } from "@/lib/i18n/routing";
 
 export const staffRoles = ["admin", "clinician"] as const satisfies readonly StaffRole[];
 
@@ -19,8 +18,8 @@ export const inviteStaffSchema = z.object({
     z.string().trim().max(120, { message: "name_length" }).nullable().optional(),
   ),
   role: z.enum(staffRoles, { message: "role_required" }),
+  // The e-mail goes out in the language of the first organisation chosen.
   organisationIds,
-  locale: z.enum(locales).default("en"),
 });
 export type InviteStaffInput = z.infer<typeof inviteStaffSchema>;
 export type InviteStaffFormValues = z.input<typeof inviteStaffSchema>;

@@ -17,7 +17,7 @@ import { db } from "@/db";
 import { auditEvents, memberships, session, staffInvitations, user } from "@/db/schema";
 import { hashToken } from "@/lib/admin/tokens";
 import { call, demo, sessionFor, signIn } from "../support/http";
-import { createOrganisation, createStaff, orgIdsByName, suffix, testPassword, userIdByEmail } from "../support/staff";
+import { createOrganisation, createStaff, invitationLink, invitationMessage, orgIdsByName, suffix, testPassword, tokenOf, userIdByEmail } from "../support/staff";
 
 let adminCookie: string;
 let orgs: Record<string, string>;
@@ -31,10 +31,10 @@ beforeAll(async () => {
 
 async function inviteAndAccept({ role, organisationIds, cookie = adminCookie }: { role: "admin" | "clinician"; organisationIds: string[]; cookie?: string }) {
   const email = `invitee.${suffix()}@testwick.example`;
-  const res = await call(invite, "/api/admin/staff/invitations", { cookie, body: { email, role, organisationIds, locale: "en" } });
+  const res = await call(invite, "/api/admin/staff/invitations", { cookie, body: { email, role, organisationIds } });
   expect(res.status).toBe(201);
   const body = await res.json();
-  const token = body.link.split("/accept-invite/")[1];
+  const token = tokenOf(await invitationLink(body.invitation.id));
   const ok = await call(accept, "/api/staff-invitations/accept", { body: { token, name: "Testwick Invitee", password: testPassword } });
   expect(ok.status).toBe(201);
   return { email, id: await userIdByEmail(email), cookie: await signIn(email, testPassword) };
@@ -45,12 +45,20 @@ describe("invitations", () => {
     const email = `new.nurse.${suffix()}@testwick.example`;
     const res = await call(invite, "/api/admin/staff/invitations", {
       cookie: adminCookie,
-      body: { email, name: "Ines Varga", role: "clinician", organisationIds: [orgs["Larch Ward"]], locale: "en" },
+      body: { email, name: "Ines Varga", role: "clinician", organisationIds: [orgs["Larch Ward"]] },
     });
     expect(res.status).toBe(201);
     const body = await res.json();
-    expect(body.link).toMatch(/\/en\/accept-invite\/[A-Za-z0-9_-]{43}$/);
-    const token = body.link.split("/accept-invite/")[1];
+    // The link is e-mailed, never shown to the admin.
+    expect(body.emailed).toBe(true);
+    expect(JSON.stringify(body)).not.toMatch(/accept-invite/);
+    const message = await invitationMessage(body.invitation.id);
+    expect(message).toMatchObject({ toAddress: email, status: "queued", redactAfterSend: true, locale: "en", patientId: null });
+    expect(message.subject).toBe("You are invited to Caddis");
+    const link = await invitationLink(body.invitation.id);
+    expect(link).toMatch(/\/en\/accept-invite\/[A-Za-z0-9_-]{43}$/);
+    expect(message.html).toContain(link);
+    const token = tokenOf(link);
     // 256 bits of randomness (43 base64url characters), kept only as its SHA-256.
     expect(Buffer.from(token, "base64url").length).toBe(32);
     const [row] = await db.select().from(staffInvitations).where(eq(staffInvitations.id, body.invitation.id));
@@ -91,7 +99,7 @@ describe("invitations", () => {
     const body = await (
       await call(invite, "/api/admin/staff/invitations", { cookie: adminCookie, body: { email, role: "clinician", organisationIds: [orgs["Rowan Ward"]] } })
     ).json();
-    const token = body.link.split("/accept-invite/")[1];
+    const token = tokenOf(await invitationLink(body.invitation.id));
     await db
       .update(staffInvitations)
       .set({ createdAt: new Date(Date.now() - 80 * 3600_000), expiresAt: new Date(Date.now() - 8 * 3600_000) })
@@ -104,7 +112,7 @@ describe("invitations", () => {
     expect((await call(invite, "/api/admin/staff/invitations", { cookie: adminCookie, body: { email, role: "clinician", organisationIds: [orgs["Rowan Ward"]] } })).status).toBe(409);
     const w = await call(withdraw, `/api/admin/staff/invitations/${s.invitation.id}`, { method: "DELETE", cookie: adminCookie, params: { invitationId: s.invitation.id } });
     expect(w.status).toBe(200);
-    const t2 = s.link.split("/accept-invite/")[1];
+    const t2 = tokenOf(await invitationLink(s.invitation.id));
     expect((await call(accept, "/api/staff-invitations/accept", { body: { token: t2, name: "Late Comer", password: testPassword } })).status).toBe(404);
     expect((await call(accept, "/api/staff-invitations/accept", { body: { token: "x".repeat(43), name: "Nobody Here", password: testPassword } })).status).toBe(404);
 

@@ -1,22 +1,19 @@
 // Password rules and changes: reset by a one-hour link (single use, sessions ended, common
 // passwords refused) and change with re-authentication (ASVS 6.2.1, 6.2.4, 7.5.1).
-import { eq } from "drizzle-orm";
-import { describe, expect, it, vi } from "vitest";
+import { and, eq } from "drizzle-orm";
+import { describe, expect, it } from "vitest";
 import { POST as authPost } from "@/app/api/auth/[...all]/route";
 import { GET as me } from "@/app/api/me/route";
 import { db } from "@/db";
-import { auditEvents, verification } from "@/db/schema";
+import { auditEvents, outboundMessages, patients, user, verification } from "@/db/schema";
 import { call, request, signIn } from "../support/http";
 import { createOrganisation, createStaff } from "../support/staff";
 
-// The reset e-mail goes through the outbox once it is merged; here the link is caught instead.
-const sent: { email: string; url: string }[] = [];
-vi.mock("@/lib/admin/mail", async (original) => ({
-  ...(await original<typeof import("@/lib/admin/mail")>()),
-  sendPasswordReset: async (m: { email: string; url: string }) => {
-    sent.push({ email: m.email, url: m.url });
-  },
-}));
+/** Reset e-mails queued in the outbox for an address (no worker runs in integration tests). */
+async function resetMails(email: string) {
+  return db.select().from(outboundMessages).where(and(eq(outboundMessages.kind, "password-reset"), eq(outboundMessages.toAddress, email)));
+}
+const linkIn = (text: string) => text.match(/https?:\/\/\S+\/api\/auth\/reset-password\/\S+/)![0];
 
 let ip = 1;
 const headers = () => ({ "x-forwarded-for": `10.95.0.${ip++}` });
@@ -32,8 +29,14 @@ describe("password reset by e-mail link", () => {
     expect(unknown.status).toBe(200);
     expect(known.status).toBe(200);
     expect(await unknown.json()).toEqual(await known.json());
-    expect(sent.map((s) => s.email)).toEqual([nurse.email]);
-    const token = new URL(sent[0].url).pathname.split("/").pop()!;
+    // Through the outbox: one message, to the known address only, its link blanked once sent.
+    expect(await resetMails("nobody@testwick.example")).toHaveLength(0);
+    const [mail] = await resetMails(nurse.email);
+    expect(mail).toMatchObject({ status: "queued", redactAfterSend: true, locale: "en", patientId: null, subject: "Reset your Caddis password" });
+    const url = new URL(linkIn(mail.text));
+    expect(url.searchParams.get("callbackURL")).toBe("/en/reset-password");
+    expect(mail.html).toContain(url.pathname);
+    const token = url.pathname.split("/").pop()!;
     // Only a hash of the token is stored.
     const rows = await db.select({ identifier: verification.identifier }).from(verification);
     expect(rows.some((r) => r.identifier.includes(token))).toBe(false);
@@ -53,6 +56,28 @@ describe("password reset by e-mail link", () => {
     expect(again.status).toBe(400);
     const [event] = await db.select().from(auditEvents).where(eq(auditEvents.action, "account.password_reset"));
     expect(event.actorUserId).toBe(nurse.id);
+  });
+});
+
+describe("reset e-mail language", () => {
+  it("staff get it in their organisation's language, patients in their own preferred language", async () => {
+    const org = await createOrganisation({ locale: "ro" });
+    const nurse = await createStaff({ role: "clinician", organisationIds: [org.id] });
+    await authPost(request("/api/auth/request-password-reset", { body: { email: nurse.email, redirectTo: "/en/reset-password" }, headers: headers() }));
+    const [staffMail] = await resetMails(nurse.email);
+    expect(staffMail).toMatchObject({ locale: "ro", subject: "Resetați parola Caddis", patientId: null });
+    expect(new URL(linkIn(staffMail.text)).searchParams.get("callbackURL")).toBe("/ro/reset-password");
+
+    // Yusuf Haddad reads Arabic: his e-mail is in Arabic, right to left, and part of his record.
+    const yusuf = "yusuf.haddad@eastmere.example";
+    await authPost(request("/api/auth/request-password-reset", { body: { email: yusuf, redirectTo: "/en/reset-password" }, headers: headers() }));
+    const [patientMail] = await resetMails(yusuf);
+    const [{ patientId }] = await db.select({ patientId: patients.id }).from(patients).innerJoin(user, eq(user.id, patients.userId)).where(eq(user.email, yusuf));
+    expect(patientMail).toMatchObject({ locale: "ar", subject: "إعادة تعيين كلمة مرور Caddis", patientId });
+    expect(patientMail.html).toContain('dir="rtl"');
+    // Patient-facing e-mails carry the general-information words.
+    expect(patientMail.text).toContain("يقدّم Caddis معلومات عامة وليس تشخيصًا");
+    expect(new URL(linkIn(patientMail.text)).searchParams.get("callbackURL")).toBe("/ar/reset-password");
   });
 });
 

@@ -84,6 +84,15 @@ export default async function StaffPage({ params }: { params: Promise<{ locale: 
                     {t(`roles.${i.role}`)} · {i.organisations.map((o) => o.name).join(", ")}
                   </p>
                   <p className="text-sm text-ink-soft tabular">{i.expired ? t("expired") : t("expires", { when: when(i.expiresAt) })}</p>
+                  {i.mail ? (
+                    <p className={i.mail.status === "failed" ? "text-sm font-bold text-level-emergency-ink" : "text-sm text-ink-soft"} data-testid="invite-mail-state">
+                      {i.mail.status === "sent" && i.mail.sentAt
+                        ? t("mailSent", { when: when(i.mail.sentAt) })
+                        : i.mail.status === "failed"
+                          ? t("mailFailed")
+                          : t("mailQueued")}
+                    </p>
+                  ) : null}
                 </div>
                 <WithdrawInvitationButton invitationId={i.id} email={i.email} />
               </Card>
@@ -98,7 +107,7 @@ export default async function StaffPage({ params }: { params: Promise<{ locale: 
         </h2>
         <p className="text-ink-soft">{t("inviteIntro")}</p>
         <Card>
-          <InviteStaffForm organisations={orgs.map((o) => ({ id: o.id, name: o.name }))} locale={locale} />
+          <InviteStaffForm organisations={orgs.map((o) => ({ id: o.id, name: o.name }))} />
         </Card>
       </section>
     </div>
