@@ -25,6 +25,8 @@ const schema = z.object({
   // When the care teams' weekly digest is queued (cron, in CADDIS_TIME_ZONE).
   DIGEST_CRON: z.string().min(9).default("0 7 * * 1"),
   CADDIS_TIME_ZONE: z.string().min(1).default("Europe/London"),
+  // When closed records past their retention period are removed (cron, in CADDIS_TIME_ZONE).
+  RETENTION_CRON: z.string().min(9).default("30 2 * * *"),
   S3_ENDPOINT: z.url().default("http://127.0.0.1:4569"),
   S3_REGION: z.string().default("us-east-1"),
   S3_BUCKET: z.string().default("caddis-uploads"),

@@ -1,5 +1,6 @@
 // Runs the retention job once: removes closed records whose retention period has ended.
-//   npx tsx --conditions=react-server scripts/retention.ts
+//   npx tsx scripts/retention.ts   (also scheduled daily by pg-boss: lib/jobs/boss.ts)
+import "./server-only-shim.cjs";
 import { pool } from "@/db";
 import { removeExpiredRecords } from "@/lib/jobs/retention";
 

@@ -1,6 +1,7 @@
 import "server-only";
 import { and, asc, eq, ilike, inArray, isNotNull, isNull, lt, or, sql } from "drizzle-orm";
 import { db, type Executor } from "@/db";
+import { tablesWithPatientId } from "@/db/queries/patient-export";
 import { careTeam, passports, patients, uploads, user } from "@/db/schema";
 
 const like = (s: string) => `%${s.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
@@ -58,10 +59,32 @@ export async function listRecordsPastRetention({ closedBefore }: { closedBefore:
     .orderBy(asc(patients.closedAt));
 }
 
-/** Removes a patient's record (every row with its patient_id goes by cascade) and their own account. */
+/**
+ * Removes a patient's record: the rows of EVERY table with a patient_id (found from the schema, so
+ * a new table is covered; audit events too — the record's access log goes with the record, and
+ * the removal itself is logged by the caller), the patient row, and the patient's own account
+ * (its sessions, credentials and second factor go with it). Returns the rows removed per table.
+ * Nothing of the patient may be left: that is checked before the transaction commits.
+ */
 export async function removePatientRecord({ patientId, userId }: { patientId: string; userId: string | null }, tx: Executor) {
   const objects = await tx.select({ key: uploads.objectKey }).from(uploads).where(eq(uploads.patientId, patientId));
+  const tables = tablesWithPatientId();
+  const rows: Record<string, number> = {};
+  // Counted first: deleting one table may cascade into another.
+  for (const { name, table, column } of tables) {
+    const [{ n }] = await tx.select({ n: sql<number>`count(*)::int` }).from(table).where(eq(column, patientId));
+    rows[name] = n;
+  }
+  for (const { table, column } of tables) await tx.delete(table).where(eq(column, patientId));
   await tx.delete(patients).where(eq(patients.id, patientId));
-  if (userId) await tx.delete(user).where(and(eq(user.id, userId), eq(user.role, "patient")));
-  return { objectKeys: objects.map((o) => o.key) };
+  rows.patients = 1;
+  if (userId) {
+    const gone = await tx.delete(user).where(and(eq(user.id, userId), eq(user.role, "patient"))).returning({ id: user.id });
+    rows.user = gone.length;
+  }
+  for (const { name, table, column } of tables) {
+    const [{ n }] = await tx.select({ n: sql<number>`count(*)::int` }).from(table).where(eq(column, patientId));
+    if (n !== 0) throw new Error(`retention: ${n} row(s) of ${name} left for a removed record`);
+  }
+  return { objectKeys: objects.map((o) => o.key), rows };
 }

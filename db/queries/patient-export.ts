@@ -31,6 +31,11 @@ function withoutSecrets(table: PgTable, rows: Record<string, unknown>[]) {
   return rows.map((r) => Object.fromEntries(Object.entries(r).filter(([k]) => !hidden.includes(k))));
 }
 
+/** An e-mail that holds a one-time code or link (not yet sent, so not yet blanked) leaves it out. */
+function withoutOneTimeBodies(row: Record<string, unknown>) {
+  return row.redactAfterSend === true ? { ...row, html: "", text: "" } : row;
+}
+
 export type PatientExport = {
   format: "caddis-patient-export/1";
   exportedAt: string;
@@ -46,7 +51,7 @@ export async function exportPatientData({ patientId }: { patientId: string }, tx
   const tables: PatientExport["tables"] = { patients: withoutSecrets(schema.patients, [patient]) };
   for (const { name, table, column } of tablesWithPatientId()) {
     const rows = (await tx.select().from(table).where(eq(column, patientId))) as Record<string, unknown>[];
-    tables[name] = withoutSecrets(table, rows);
+    tables[name] = withoutSecrets(table, rows).map(withoutOneTimeBodies);
   }
   if (patient.userId) {
     const users = await tx.select().from(schema.user).where(eq(schema.user.id, patient.userId));

@@ -2,7 +2,7 @@ import "server-only";
 // Retention of closed records: a closed record stays read-only for the deployment's retention
 // period (Settings), then this job removes it and leaves an audit event that says so — with a
 // keyed hash of the health record number, never the number or the patient's id.
-// TODO(jobs): schedule with pg-boss once lib/jobs/boss.ts is on main (daily); until then run
+// Scheduled daily by pg-boss (lib/jobs/boss.ts, RETENTION_CRON); run once by hand with
 // `npx tsx --conditions=react-server scripts/retention.ts`.
 import { db } from "@/db";
 import { listRecordsPastRetention, lockPatient, removePatientRecord } from "@/db/queries/admin-patients";
@@ -32,10 +32,15 @@ export async function removeExpiredRecords({ now = new Date(), log = (m: string)
         {
           action: "retention.remove",
           via: "system",
-          details: { hrnHash: hashIdentifier("hrn", row.hrn), closedAt: row.closedAt.toISOString(), retentionDays, uploads: result.objectKeys.length },
+          details: { hrnHash: hashIdentifier("hrn", row.hrn), closedAt: row.closedAt.toISOString(), retentionDays, uploads: result.objectKeys.length, rows: result.rows },
         },
         tx,
       );
+      const counts = Object.entries(result.rows)
+        .filter(([, n]) => n > 0)
+        .map(([t, n]) => `${t} ${n}`)
+        .join(", ");
+      log(`removed the record ${hashIdentifier("hrn", row.hrn).slice(0, 12)}… closed ${row.closedAt.toISOString().slice(0, 10)}: ${counts}`);
       objectKeys.push(...result.objectKeys);
       removed++;
     });

@@ -2,16 +2,34 @@
 // from the schema, so a new table is covered) and nothing of any other patient, no secrets;
 // closing a record makes it read-only; the retention job removes it after the period and logs it.
 import { randomBytes, randomUUID } from "node:crypto";
-import { eq, sql } from "drizzle-orm";
+import { eq, inArray, sql } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { GET as exportData } from "@/app/api/patients/[patientId]/export/route";
 import { POST as closeRecord } from "@/app/api/admin/patients/[patientId]/close/route";
 import { GET as adminPatients } from "@/app/api/admin/patients/route";
 import { db } from "@/db";
 import { tablesWithPatientId } from "@/db/queries/patient-export";
-import { auditEvents, careTeam, checkIns, diaryEntries, outboundMessages, passports, patients, settings, uploads, user, visitAccess } from "@/db/schema";
+import {
+  auditEvents,
+  bagChanges,
+  careTeam,
+  checkIns,
+  diaryEntries,
+  outboundMessages,
+  passports,
+  patientInvites,
+  patients,
+  settings,
+  supplyRequests,
+  uploads,
+  user,
+  visitAccess,
+} from "@/db/schema";
+import { audit } from "@/lib/audit";
 import { hashIdentifier, hashToken } from "@/lib/admin/tokens";
+import { QUEUES } from "@/lib/jobs/boss";
 import { removeExpiredRecords } from "@/lib/jobs/retention";
+import { startBackground } from "@/lib/jobs/runtime";
 import { assertRecordOpen } from "@/lib/record-state";
 import { call, sessionFor, signIn } from "../support/http";
 import { createOrganisation, createStaff, orgIdsByName, suffix, userIdByEmail } from "../support/staff";
@@ -28,7 +46,23 @@ async function addRowsFor(patientId: string, tag: string) {
   await db.insert(passports).values({ patientId, tokenHash: hashToken(randomBytes(32).toString("base64url")), shortCodeHash: hashToken(randomUUID()), languages: ["en"] });
   await db.insert(uploads).values({ patientId, category: "other", objectKey: `test/${randomUUID()}`, label: `${tag}.pdf` });
   await db.insert(outboundMessages).values({ idempotencyKey: `${tag}-${randomUUID()}`, messageId: `<${randomUUID()}@caddis.invalid>`, kind: "test", toAddress: "gp@eastmere.example", subject: tag, html: tag, text: tag, patientId });
+  // A one-time secret in a body not yet sent: the export must not carry it.
+  await db.insert(outboundMessages).values({
+    idempotencyKey: `${tag}-secret-${randomUUID()}`,
+    messageId: `<${randomUUID()}@caddis.invalid>`,
+    kind: "carer-invite",
+    toAddress: "carer@mail-test.example",
+    subject: `${tag} invite`,
+    html: `one-time-${tag}`,
+    text: `one-time-${tag}`,
+    redactAfterSend: true,
+    patientId,
+  });
   await db.insert(visitAccess).values({ patientId, userId: nurse, reason: tag, expiresAt: new Date(Date.now() + 3600_000) });
+  await db.insert(bagChanges).values({ patientId, kind: "leg-bag", changedOn: "2026-11-30", recordedByUserId: nurse });
+  await db.insert(patientInvites).values({ patientId, codeHash: hashToken(randomUUID()), expiresAt: new Date(Date.now() + 86_400_000), usedAt: new Date() });
+  await db.insert(supplyRequests).values({ patientId, periodDays: 28, items: [{ item: "leg-bag", computed: 4, quantity: 4, intervalDays: 7 }], requestedByName: tag });
+  await audit({ action: "patient.view", actor: { userId: nurse, role: "clinician" }, patientId, via: "care_team", details: { tag } });
 }
 
 beforeAll(async () => {
@@ -41,9 +75,32 @@ beforeAll(async () => {
 });
 
 describe("patient data export (JSON)", () => {
-  it("finds every table with a patient_id column in the schema", () => {
+  it("finds every table with a patient_id column in the schema, and the database has no other table that holds a patient's rows", async () => {
     const names = tablesWithPatientId().map((t) => t.name);
-    expect(names).toEqual(expect.arrayContaining(["care_team", "carer_links", "catheter_episodes", "episode_events", "passports", "check_ins", "diary_entries", "uploads", "outbound_messages", "audit_events", "visit_access"]));
+    expect(names).toEqual(
+      expect.arrayContaining([
+        "audit_events", "bag_changes", "care_team", "carer_links", "catheter_episodes", "check_ins", "diary_entries", "episode_events",
+        "outbound_messages", "passports", "patient_invites", "supply_requests", "uploads", "visit_access",
+      ]),
+    );
+    // Read from the database itself, not the schema module: every table with a patient_id column…
+    const withColumn = await db.execute<{ table_name: string }>(
+      sql`select table_name from information_schema.columns where table_schema = 'public' and column_name = 'patient_id' order by table_name`,
+    );
+    expect(withColumn.rows.map((r) => r.table_name).sort()).toEqual([...names].sort());
+    // …every foreign key to patients is a patient_id column, and every table that points at a
+    // patient-linked table carries a patient_id of its own, so no row of a patient hides one step away.
+    const fks = await db.execute<{ child: string; column: string; parent: string }>(sql`
+      select tc.table_name as child, kcu.column_name as column, ccu.table_name as parent
+        from information_schema.table_constraints tc
+        join information_schema.key_column_usage kcu on kcu.constraint_name = tc.constraint_name and kcu.table_schema = tc.table_schema
+        join information_schema.constraint_column_usage ccu on ccu.constraint_name = tc.constraint_name and ccu.table_schema = tc.table_schema
+       where tc.constraint_type = 'FOREIGN KEY' and tc.table_schema = 'public'`);
+    const linked = new Set(["patients", ...names]);
+    for (const fk of fks.rows) {
+      if (fk.parent === "patients") expect(fk.column, `${fk.child}.${fk.column}`).toBe("patient_id");
+      if (linked.has(fk.parent) && fk.child !== fk.parent) expect(names, `${fk.child} → ${fk.parent}`).toContain(fk.child);
+    }
   });
 
   it("gives the patient every row of every table for them, no other patient's, and no secrets", async () => {
@@ -65,10 +122,12 @@ describe("patient data export (JSON)", () => {
       expect(data.tables[name], name).toHaveLength(counts.get(name)!);
       for (const row of data.tables[name]) expect(row.patientId, name).toBe(arthurId);
     }
-    // Every table the seed or this test filled is there with rows.
-    for (const name of ["care_team", "carer_links", "catheter_episodes", "episode_events", "passports", "check_ins", "diary_entries", "uploads", "outbound_messages", "visit_access"]) {
-      expect(data.tables[name].length, name).toBeGreaterThan(0);
-    }
+    // Every patient-linked table has rows for Arthur (from the seed or addRowsFor), so each one is
+    // proved to be exported: a new table fails here until it is given a row above.
+    for (const { name } of tablesWithPatientId()) expect(data.tables[name].length, name).toBeGreaterThan(0);
+    // A one-time secret in an unsent body stays out; the message itself is listed.
+    expect(JSON.stringify(data)).not.toContain("one-time-arthur-row");
+    expect(data.tables.outbound_messages.some((m: { subject: string; html: string }) => m.subject === "arthur-row invite" && m.html === "")).toBe(true);
     expect(data.tables.user[0].email).toBe("arthur.pell@eastmere.example");
     expect(data.tables.account.length).toBeGreaterThan(0);
     const text = JSON.stringify(data);
@@ -159,8 +218,13 @@ describe("closing a record and retention", () => {
       await db.update(patients).set({ userId: patientUser.id, closedAt: new Date(Date.now() - 31 * 86_400_000) }).where(eq(patients.id, old));
       await db.update(patients).set({ closedAt: new Date(Date.now() - 10 * 86_400_000) }).where(eq(patients.id, recent));
 
-      const result = await removeExpiredRecords({ log: () => {} });
+      const accessLog = await db.select({ id: auditEvents.id }).from(auditEvents).where(eq(auditEvents.patientId, old));
+      expect(accessLog.length).toBeGreaterThan(0);
+      const lines: string[] = [];
+      const result = await removeExpiredRecords({ log: (m) => lines.push(m) });
       expect(result.removed).toBe(1);
+      // The record's access log goes with the record (not merely unlinked from it).
+      expect(await db.select().from(auditEvents).where(inArray(auditEvents.id, accessLog.map((a) => a.id)))).toHaveLength(0);
       expect(result.objectKeys).toHaveLength(1);
       expect(await db.select().from(patients).where(eq(patients.id, old))).toHaveLength(0);
       expect(await db.select().from(user).where(eq(user.id, patientUser.id))).toHaveLength(0);
@@ -173,6 +237,13 @@ describe("closing a record and retention", () => {
       expect(event.patientId).toBeNull();
       expect(event.via).toBe("system");
       expect(event.details).toMatchObject({ hrnHash: hashIdentifier("hrn", oldHrn), retentionDays: 30 });
+      // It says what it removed, table by table, in the audit log and in the job's log.
+      const rows = (event.details as { rows: Record<string, number> }).rows;
+      for (const name of ["patients", "user", "check_ins", "diary_entries", "bag_changes", "patient_invites", "supply_requests", "outbound_messages", "uploads", "passports", "visit_access", "audit_events", "care_team"]) {
+        expect(rows[name], name).toBeGreaterThan(0);
+      }
+      expect(lines.join("\n")).toMatch(/removed the record [0-9a-f]{12}… closed \d{4}-\d{2}-\d{2}: .*check_ins 1/);
+      expect(lines.join("\n")).toMatch(/removed 1 closed record\(s\) past 30 days/);
       expect(JSON.stringify(event)).not.toContain(oldHrn);
       expect(JSON.stringify(event)).not.toContain(old);
       // Without a retention period nothing is removed.
@@ -180,6 +251,31 @@ describe("closing a record and retention", () => {
       await db.update(patients).set({ closedAt: new Date(Date.now() - 3650 * 86_400_000) }).where(eq(patients.id, recent));
       expect((await removeExpiredRecords({ log: () => {} })).removed).toBe(0);
     } finally {
+      await db.insert(settings).values({ key: "retentionDays", value: 2920 }).onConflictDoUpdate({ target: settings.key, set: { value: 2920 } });
+    }
+  });
+
+  it("is scheduled daily with pg-boss in the deployment's time zone, and the scheduled job removes what is due", { timeout: 60_000 }, async () => {
+    await db.update(settings).set({ value: 30 }).where(eq(settings.key, "retentionDays"));
+    const bg = await startBackground({ outbox: false, schedules: true, worker: { log: () => {} } });
+    try {
+      expect(bg.boss).toBeTruthy();
+      const schedules = await bg.boss!.getSchedules(QUEUES.retention);
+      expect(schedules).toHaveLength(1);
+      expect(schedules[0]).toMatchObject({ cron: "30 2 * * *", timezone: "Europe/London" });
+      const due = await newPatient(`DUE-${suffix()}`);
+      await db.update(patients).set({ closedAt: new Date(Date.now() - 40 * 86_400_000) }).where(eq(patients.id, due));
+      // Run the job now rather than wait for the night.
+      await bg.boss!.send(QUEUES.retention, {});
+      let gone = false;
+      for (let i = 0; i < 150 && !gone; i++) {
+        await new Promise((r) => setTimeout(r, 200));
+        gone = (await db.select().from(patients).where(eq(patients.id, due))).length === 0;
+      }
+      expect(gone).toBe(true);
+      expect((await db.select().from(auditEvents).where(eq(auditEvents.action, "retention.remove"))).length).toBeGreaterThan(0);
+    } finally {
+      await bg.stop();
       await db.insert(settings).values({ key: "retentionDays", value: 2920 }).onConflictDoUpdate({ target: settings.key, set: { value: 2920 } });
     }
   });
