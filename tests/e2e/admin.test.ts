@@ -1,8 +1,9 @@
 // Administration in Chromium: every admin page in English and Arabic (screenshots looked at),
-// and an admin inviting a nurse who accepts from the link and signs in.
+// and an admin inviting a nurse who accepts from the e-mail in the fake inbox and signs in.
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { demo, totpCode } from "../support/http";
+import { waitForEmails } from "../support/mail";
 import { createOrganisation, createStaff } from "../support/staff";
 import { launch, newPage, screenshot, signInAs } from "./support/browser";
 
@@ -28,7 +29,7 @@ const pages = [
 ];
 
 describe("inviting a nurse", () => {
-  it("an admin invites a nurse, the nurse accepts from the link and signs in to their caseload", async () => {
+  it("an admin (signed in with a TOTP code from the demo secret) invites a nurse, who accepts from the fake inbox and signs in to their caseload", async () => {
     const admin = await newPage(browser, { viewport: { width: 1280, height: 900 } });
     await signInAs(admin, demo.admin.email, demo.admin.password);
     await admin.goto("/en/admin/staff");
@@ -38,14 +39,31 @@ describe("inviting a nurse", () => {
     await form.getByLabel("Name (optional)").fill("Ines Varga");
     await form.getByLabel("Larch Ward").check();
     await form.getByRole("button", { name: "Send invitation" }).click();
-    const linkBox = admin.getByTestId("invite-link");
-    await linkBox.waitFor();
-    const link = (await linkBox.textContent())!.trim();
-    expect(link).toMatch(/\/en\/accept-invite\/[A-Za-z0-9_-]{43}$/);
+    // The link is e-mailed, not shown.
+    await admin.getByText("We have e-mailed them the link.", { exact: false }).waitFor();
+    expect(await admin.getByTestId("invite-link").count()).toBe(0);
+    expect(await admin.content()).not.toMatch(/accept-invite\/[A-Za-z0-9_-]{20,}/);
     await screenshot(admin, "admin-staff-invited-en");
+
+    // The app's own worker delivers it to the fake inbox.
+    const [mail] = await waitForEmails(email, 1, { timeoutMs: 30_000 });
+    expect(mail, "invitation e-mail in the fake inbox").toBeTruthy();
+    expect(mail.subject).toBe("You are invited to Caddis");
+    expect(mail.text).toContain("Larch Ward");
+    const link = mail.text!.match(/https?:\/\/\S+\/accept-invite\/[A-Za-z0-9_-]+/)![0];
+    expect(link).toMatch(/\/en\/accept-invite\/[A-Za-z0-9_-]{43}$/);
+    // The staff page now says it went.
+    const pending = admin.locator("li").filter({ hasText: email });
+    await expect
+      .poll(async () => {
+        await admin.reload();
+        return pending.getByTestId("invite-mail-state").textContent();
+      }, { timeout: 20_000 })
+      .toMatch(/^Invitation e-mailed/);
+    await screenshot(admin, "admin-staff-pending-en");
     await admin.context().close();
 
-    // The nurse, in their own browser. Until the outbox is merged the link is read from the screen.
+    // The nurse, in their own browser, opens the link from the e-mail.
     const nurse = await newPage(browser);
     await nurse.context().setExtraHTTPHeaders({ "x-forwarded-for": "10.78.0.2" });
     await nurse.goto(new URL(link).pathname);
