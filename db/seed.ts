@@ -21,11 +21,14 @@ import {
   checkIns,
   diaryEntries,
   settings,
+  twoFactor,
   user,
   type NewCatheterEpisode,
   type OrganisationKind,
 } from "./schema";
+import { symmetricDecrypt, symmetricEncrypt } from "better-auth/crypto";
 import { hashPassword } from "@/lib/auth/password";
+import { authSecret } from "@/lib/env";
 import { planDates, triageCheckIn, type CheckInAnswers } from "@/lib/clinical";
 
 type Role = "admin" | "clinician" | "patient" | "carer";
@@ -39,6 +42,37 @@ export const demoAccounts: { email: string; password: string; name: string; role
   { email: "yusuf.haddad@eastmere.example", password: "Eastmere-patient-ar-2026", name: "Yusuf Haddad", role: "patient", orgs: [], locale: "ar", note: "patient, suprapubic, Arabic" },
   { email: "joan.pell@eastmere.example", password: "Eastmere-carer-2026", name: "Joan Pell", role: "carer", orgs: [], locale: "en", note: "carer of Arthur Pell" },
 ];
+
+/**
+ * Two-step sign-in for the demo admin, so tests and demos can compute its codes. An invented
+ * secret for this demo only: the raw key (better-auth keeps it as text) and its base32 form,
+ * which is what an authenticator app is given. Other demo accounts have no second step.
+ */
+export const DEMO_ADMIN_TOTP = {
+  email: "admin@eastmere.example",
+  key: "eastmere-demo-admin-totp-key-026",
+  base32: "MVQXG5DNMVZGKLLEMVWW6LLBMRWWS3RNORXXI4BNNNSXSLJQGI3A",
+  backupCodes: ["DEMOA-00001", "DEMOA-00002", "DEMOA-00003", "DEMOA-00004", "DEMOA-00005", "DEMOA-00006", "DEMOA-00007", "DEMOA-00008", "DEMOA-00009", "DEMOA-00010"],
+} as const;
+
+/** Gives the demo admin its fixed TOTP secret, re-encrypted if the auth secret has changed. */
+async function ensureDemoTotp(tx: Database, userId: string) {
+  const key = authSecret();
+  const [row] = await tx.select().from(twoFactor).where(eq(twoFactor.userId, userId));
+  const readable = row ? await symmetricDecrypt({ key, data: row.secret }).catch(() => null) : null;
+  const codes = row ? await symmetricDecrypt({ key, data: row.backupCodes }).catch(() => null) : null;
+  if (row && row.verified && readable === DEMO_ADMIN_TOTP.key && codes === JSON.stringify(DEMO_ADMIN_TOTP.backupCodes)) return;
+  const values = {
+    secret: await symmetricEncrypt({ key, data: DEMO_ADMIN_TOTP.key }),
+    backupCodes: await symmetricEncrypt({ key, data: JSON.stringify(DEMO_ADMIN_TOTP.backupCodes) }),
+    verified: true,
+    failedVerificationCount: 0,
+    lockedUntil: null,
+  };
+  if (row) await tx.update(twoFactor).set(values).where(eq(twoFactor.id, row.id));
+  else await tx.insert(twoFactor).values({ id: randomUUID(), userId, ...values });
+  await tx.update(user).set({ twoFactorEnabled: true }).where(eq(user.id, userId));
+}
 
 const orgs: { name: string; kind: OrganisationKind; parentName?: string; phone: string; outOfHoursPhone?: string; inboxEmail: string; locale: string; languages: string[] }[] = [
   { name: "Larch Ward", kind: "hospital_ward", parentName: "Eastmere General Hospital", phone: "01632 960 101", inboxEmail: "larch.ward@eastmere.example", locale: "en", languages: ["en", "pl", "ro", "ar", "ur", "es"] },
@@ -290,6 +324,7 @@ export async function seed({ quiet = false }: { quiet?: boolean } = {}) {
     for (const a of demoAccounts) {
       const id = await upsertUser(t, a);
       userIds.set(a.email, id);
+      if (a.email === DEMO_ADMIN_TOTP.email) await ensureDemoTotp(t, id);
       for (const org of a.orgs) {
         await tx.insert(memberships).values({ userId: id, organisationId: orgIds.get(org)! }).onConflictDoNothing();
       }
@@ -299,6 +334,8 @@ export async function seed({ quiet = false }: { quiet?: boolean } = {}) {
       .values([
         { key: "emergencyNumber", value: "999" },
         { key: "outOfHoursServiceName", value: "Eastmere out-of-hours nursing line" },
+        // Adult records: 8 years after the end of care (from memory of the NHS England records code of practice).
+        { key: "retentionDays", value: 8 * 365 },
       ])
       .onConflictDoNothing();
 
@@ -399,6 +436,10 @@ export function printAccounts() {
   for (const a of demoAccounts) {
     console.log(`  ${a.role.padEnd(9)} ${a.email.padEnd(w)}  ${a.password.padEnd(26)} ${a.note}`);
   }
+  console.log(`\n  Two-step sign-in (TOTP) for ${DEMO_ADMIN_TOTP.email}:`);
+  console.log(`    secret (base32, for an authenticator app): ${DEMO_ADMIN_TOTP.base32}`);
+  console.log(`    otpauth://totp/Caddis:${encodeURIComponent(DEMO_ADMIN_TOTP.email)}?secret=${DEMO_ADMIN_TOTP.base32}&issuer=Caddis`);
+  console.log(`    a backup code: ${DEMO_ADMIN_TOTP.backupCodes[0]} (each works once; the seed restores them)`);
   console.log("");
 }
 

@@ -34,6 +34,16 @@ CREATE TABLE "session" (
 	CONSTRAINT "session_token_unique" UNIQUE("token")
 );
 --> statement-breakpoint
+CREATE TABLE "two_factor" (
+	"id" text PRIMARY KEY NOT NULL,
+	"secret" text NOT NULL,
+	"backup_codes" text NOT NULL,
+	"user_id" text NOT NULL,
+	"verified" boolean DEFAULT true NOT NULL,
+	"failed_verification_count" integer DEFAULT 0 NOT NULL,
+	"locked_until" timestamp with time zone
+);
+--> statement-breakpoint
 CREATE TABLE "user" (
 	"id" text PRIMARY KEY NOT NULL,
 	"name" text NOT NULL,
@@ -43,6 +53,7 @@ CREATE TABLE "user" (
 	"role" text DEFAULT 'patient' NOT NULL,
 	"locale" text DEFAULT 'en' NOT NULL,
 	"deactivated_at" timestamp with time zone,
+	"two_factor_enabled" boolean DEFAULT false NOT NULL,
 	"created_at" timestamp with time zone DEFAULT now() NOT NULL,
 	"updated_at" timestamp with time zone DEFAULT now() NOT NULL,
 	CONSTRAINT "user_email_unique" UNIQUE("email")
@@ -333,6 +344,29 @@ CREATE TABLE "settings" (
 	"updated_at" timestamp with time zone DEFAULT now() NOT NULL
 );
 --> statement-breakpoint
+CREATE TABLE "staff_invitation_organisations" (
+	"invitation_id" uuid NOT NULL,
+	"organisation_id" uuid NOT NULL,
+	CONSTRAINT "staff_invitation_organisations_invitation_id_organisation_id_pk" PRIMARY KEY("invitation_id","organisation_id")
+);
+--> statement-breakpoint
+CREATE TABLE "staff_invitations" (
+	"id" uuid PRIMARY KEY DEFAULT gen_random_uuid() NOT NULL,
+	"email" text NOT NULL,
+	"name" text,
+	"role" text NOT NULL,
+	"token_hash" text NOT NULL,
+	"expires_at" timestamp with time zone NOT NULL,
+	"invited_by_user_id" text,
+	"accepted_at" timestamp with time zone,
+	"accepted_user_id" text,
+	"revoked_at" timestamp with time zone,
+	"created_at" timestamp with time zone DEFAULT now() NOT NULL,
+	"updated_at" timestamp with time zone DEFAULT now() NOT NULL,
+	CONSTRAINT "staff_invitations_token_hash_unique" UNIQUE("token_hash"),
+	CONSTRAINT "staff_invitations_expiry_ck" CHECK ("staff_invitations"."expires_at" > "staff_invitations"."created_at")
+);
+--> statement-breakpoint
 CREATE TABLE "supply_requests" (
 	"id" uuid PRIMARY KEY DEFAULT gen_random_uuid() NOT NULL,
 	"patient_id" uuid NOT NULL,
@@ -377,6 +411,7 @@ CREATE TABLE "visit_access" (
 --> statement-breakpoint
 ALTER TABLE "account" ADD CONSTRAINT "account_user_id_user_id_fk" FOREIGN KEY ("user_id") REFERENCES "public"."user"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "session" ADD CONSTRAINT "session_user_id_user_id_fk" FOREIGN KEY ("user_id") REFERENCES "public"."user"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "two_factor" ADD CONSTRAINT "two_factor_user_id_user_id_fk" FOREIGN KEY ("user_id") REFERENCES "public"."user"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "audit_events" ADD CONSTRAINT "audit_events_actor_user_id_user_id_fk" FOREIGN KEY ("actor_user_id") REFERENCES "public"."user"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "audit_events" ADD CONSTRAINT "audit_events_patient_id_patients_id_fk" FOREIGN KEY ("patient_id") REFERENCES "public"."patients"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "audit_events" ADD CONSTRAINT "audit_events_organisation_id_organisations_id_fk" FOREIGN KEY ("organisation_id") REFERENCES "public"."organisations"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
@@ -410,6 +445,10 @@ ALTER TABLE "patient_invites" ADD CONSTRAINT "patient_invites_patient_id_patient
 ALTER TABLE "patient_invites" ADD CONSTRAINT "patient_invites_created_by_user_id_user_id_fk" FOREIGN KEY ("created_by_user_id") REFERENCES "public"."user"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "patients" ADD CONSTRAINT "patients_user_id_user_id_fk" FOREIGN KEY ("user_id") REFERENCES "public"."user"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "patients" ADD CONSTRAINT "patients_gp_practice_id_organisations_id_fk" FOREIGN KEY ("gp_practice_id") REFERENCES "public"."organisations"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "staff_invitation_organisations" ADD CONSTRAINT "staff_invitation_organisations_invitation_id_staff_invitations_id_fk" FOREIGN KEY ("invitation_id") REFERENCES "public"."staff_invitations"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "staff_invitation_organisations" ADD CONSTRAINT "staff_invitation_organisations_organisation_id_organisations_id_fk" FOREIGN KEY ("organisation_id") REFERENCES "public"."organisations"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "staff_invitations" ADD CONSTRAINT "staff_invitations_invited_by_user_id_user_id_fk" FOREIGN KEY ("invited_by_user_id") REFERENCES "public"."user"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "staff_invitations" ADD CONSTRAINT "staff_invitations_accepted_user_id_user_id_fk" FOREIGN KEY ("accepted_user_id") REFERENCES "public"."user"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "supply_requests" ADD CONSTRAINT "supply_requests_patient_id_patients_id_fk" FOREIGN KEY ("patient_id") REFERENCES "public"."patients"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "supply_requests" ADD CONSTRAINT "supply_requests_episode_id_catheter_episodes_id_fk" FOREIGN KEY ("episode_id") REFERENCES "public"."catheter_episodes"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "supply_requests" ADD CONSTRAINT "supply_requests_gp_practice_id_organisations_id_fk" FOREIGN KEY ("gp_practice_id") REFERENCES "public"."organisations"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
@@ -421,6 +460,7 @@ ALTER TABLE "visit_access" ADD CONSTRAINT "visit_access_patient_id_patients_id_f
 ALTER TABLE "visit_access" ADD CONSTRAINT "visit_access_user_id_user_id_fk" FOREIGN KEY ("user_id") REFERENCES "public"."user"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 CREATE INDEX "account_user_id_idx" ON "account" USING btree ("user_id");--> statement-breakpoint
 CREATE INDEX "session_user_id_idx" ON "session" USING btree ("user_id");--> statement-breakpoint
+CREATE INDEX "two_factor_user_id_idx" ON "two_factor" USING btree ("user_id");--> statement-breakpoint
 CREATE INDEX "verification_identifier_idx" ON "verification" USING btree ("identifier");--> statement-breakpoint
 CREATE INDEX "attempt_counters_window_idx" ON "attempt_counters" USING btree ("window_started_at");--> statement-breakpoint
 CREATE INDEX "audit_patient_idx" ON "audit_events" USING btree ("patient_id","at");--> statement-breakpoint
@@ -453,6 +493,9 @@ CREATE UNIQUE INDEX "patient_invites_one_live_uq" ON "patient_invites" USING btr
 CREATE UNIQUE INDEX "patients_hrn_uq" ON "patients" USING btree ("health_record_number");--> statement-breakpoint
 CREATE INDEX "patients_family_name_idx" ON "patients" USING btree (lower("family_name"));--> statement-breakpoint
 CREATE INDEX "patients_gp_idx" ON "patients" USING btree ("gp_practice_id");--> statement-breakpoint
+CREATE INDEX "staff_invitation_orgs_org_idx" ON "staff_invitation_organisations" USING btree ("organisation_id");--> statement-breakpoint
+CREATE INDEX "staff_invitations_email_idx" ON "staff_invitations" USING btree (lower("email"));--> statement-breakpoint
+CREATE UNIQUE INDEX "staff_invitations_one_open_uq" ON "staff_invitations" USING btree (lower("email")) WHERE "staff_invitations"."accepted_at" is null and "staff_invitations"."revoked_at" is null;--> statement-breakpoint
 CREATE INDEX "supply_requests_patient_idx" ON "supply_requests" USING btree ("patient_id","created_at");--> statement-breakpoint
 CREATE INDEX "uploads_patient_idx" ON "uploads" USING btree ("patient_id","created_at");--> statement-breakpoint
 CREATE INDEX "visit_access_user_patient_idx" ON "visit_access" USING btree ("user_id","patient_id","expires_at");

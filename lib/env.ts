@@ -27,6 +27,8 @@ const schema = z.object({
   // When patients' catheter-change reminders are queued (cron, in CADDIS_TIME_ZONE).
   REMINDER_CRON: z.string().min(9).default("0 9 * * *"),
   CADDIS_TIME_ZONE: z.string().min(1).default("Europe/London"),
+  // When closed records past their retention period are removed (cron, in CADDIS_TIME_ZONE).
+  RETENTION_CRON: z.string().min(9).default("30 2 * * *"),
   S3_ENDPOINT: z.url().default("http://127.0.0.1:4569"),
   // Address browsers use for presigned uploads, when it differs from S3_ENDPOINT.
   S3_PUBLIC_ENDPOINT: z.preprocess((v) => (v === "" ? undefined : v), z.url().optional()),

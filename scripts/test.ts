@@ -55,7 +55,14 @@ async function main() {
   dbUrl.pathname = `/${dbName}`;
   const databaseUrl = dbUrl.toString();
   await ensureDatabase(databaseUrl);
-  const env: NodeJS.ProcessEnv = { ...base, DATABASE_URL: databaseUrl, CADDIS_TEST_DATABASE: "1" };
+  // One auth secret for the seed, the integration tests and the app: the demo admin's TOTP secret
+  // is encrypted with it.
+  const env: NodeJS.ProcessEnv = {
+    ...base,
+    DATABASE_URL: databaseUrl,
+    CADDIS_TEST_DATABASE: "1",
+    BETTER_AUTH_SECRET: process.env.BETTER_AUTH_SECRET ?? "e2e-secret-0123456789abcdefghijklmnopqrstuvwxyz",
+  };
   try {
     if (!run(bin("tsx"), ["db/migrate.ts"], env, "migrations on a fresh database")) return false;
     if (!run(bin("tsx"), ["db/seed.ts"], env, "demo seed")) return false;
@@ -71,7 +78,6 @@ async function main() {
       const appEnv: NodeJS.ProcessEnv = {
         ...env,
         APP_URL: appUrl,
-        BETTER_AUTH_SECRET: "e2e-secret-0123456789abcdefghijklmnopqrstuvwxyz",
         NODE_ENV: "production",
       };
       if (!run(bin("next"), ["build"], appEnv, "production build")) return false;

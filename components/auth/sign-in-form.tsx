@@ -20,9 +20,14 @@ export function SignInForm() {
 
   const onSubmit = handleSubmit(async (values) => {
     setFormError(null);
-    const { error } = await authClient.signIn.email({ email: values.email, password: values.password });
+    const { data, error } = await authClient.signIn.email({ email: values.email, password: values.password });
     if (error) {
       setFormError(error.status === 429 ? t("tooMany") : error.status === 403 ? t("inactive") : t("wrong"));
+      return;
+    }
+    // Two-step sign-in: the password was right; the code page finishes signing in.
+    if (data && "twoFactorRedirect" in data && data.twoFactorRedirect) {
+      window.location.assign(`/${locale}/two-factor`);
       return;
     }
     // The server sends each role on to its own home.

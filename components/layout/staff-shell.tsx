@@ -5,19 +5,29 @@ import type { Role } from "@/lib/auth/session";
 import { LanguageSwitcher } from "./language-switcher";
 import { NavLink } from "./nav-link";
 
-type Item = { href: string; label: string };
+/** `sub` items show under their section in the side navigation only; the phone bar keeps the top level. */
+type Item = { href: string; label: string; sub?: boolean; exact?: boolean };
 
 /** Staff pages: a left navigation on wide screens, a bottom bar on phones. */
 export async function StaffShell({ role, name, children }: { role: Role; name: string; children: ReactNode }) {
   const t = await getTranslations("Nav");
+  const a = await getTranslations("AdminNav");
   // Clinicians: the caseload and registering a patient (a "Scan" item joins them here).
   const items: Item[] =
     role === "admin"
-      ? [{ href: "/admin", label: t("admin") }]
+      ? [
+          { href: "/admin", label: t("admin"), exact: true },
+          { href: "/admin/organisations", label: a("organisations"), sub: true },
+          { href: "/admin/staff", label: a("staff"), sub: true },
+          { href: "/admin/settings", label: a("settings"), sub: true },
+          { href: "/admin/audit", label: a("audit"), sub: true },
+          { href: "/admin/patients", label: a("patients"), sub: true },
+        ]
       : [
           { href: "/caseload", label: t("caseload") },
           { href: "/patients/new", label: t("registerPatient") },
         ];
+  items.push({ href: "/account", label: a("account") });
   items.push({ href: "/sign-out", label: t("signOut") });
   return (
     <div className="min-h-dvh text-staff md:flex">
@@ -34,7 +44,8 @@ export async function StaffShell({ role, name, children }: { role: Role; name: s
             <NavLink
               key={i.href}
               href={i.href}
-              className="rounded-lg px-3 py-2 font-bold text-brand hover:bg-brand-soft"
+              exact={i.exact}
+              className={`rounded-lg px-3 py-2 text-brand hover:bg-brand-soft ${i.sub ? "ms-4" : "font-bold"}`}
               activeClassName="bg-brand-soft underline underline-offset-4"
             >
               {i.label}
@@ -62,10 +73,11 @@ export async function StaffShell({ role, name, children }: { role: Role; name: s
         aria-label={t("label")}
         className="fixed inset-x-0 bottom-0 flex border-t border-stone-faint bg-paper-raised md:hidden"
       >
-        {items.map((i) => (
+        {items.filter((i) => !i.sub).map((i) => (
           <NavLink
             key={i.href}
             href={i.href}
+            exact={i.exact}
             className="flex min-h-14 flex-1 items-center justify-center px-1 text-center text-sm font-bold leading-tight text-brand"
             activeClassName="bg-brand-soft"
           >

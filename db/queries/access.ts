@@ -14,6 +14,21 @@ export async function getMembershipOrganisationIds({ userId }: { userId: string 
   return rows.map((r) => r.id);
 }
 
+/** A staff user's organisations, with whether each requires two-step sign-in. */
+export async function getMemberships({ userId }: { userId: string }, tx: Executor = db) {
+  return tx
+    .select({ organisationId: memberships.organisationId, requireTwoFactor: organisations.requireTwoFactor })
+    .from(memberships)
+    .innerJoin(organisations, eq(organisations.id, memberships.organisationId))
+    .where(eq(memberships.userId, userId));
+}
+
+/** True when one of the user's organisations requires two-step sign-in for its staff. */
+export async function twoFactorRequiredFor({ userId }: { userId: string }, tx: Executor = db) {
+  const rows = await getMemberships({ userId }, tx);
+  return rows.some((r) => r.requireTwoFactor);
+}
+
 /** The patients a patient (themselves) or a carer (active links only) may see. */
 export async function getOwnPatientIds({ userId, role }: { userId: string; role: Role }, tx: Executor = db) {
   if (role === "patient") {

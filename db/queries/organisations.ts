@@ -1,7 +1,7 @@
 import "server-only";
 import { count, eq, inArray } from "drizzle-orm";
-import { db } from "@/db";
-import { memberships, organisations } from "@/db/schema";
+import { db, type Executor } from "@/db";
+import { memberships, organisations, type NewOrganisation } from "@/db/schema";
 
 export type OrganisationSummary = {
   id: string;
@@ -39,5 +39,65 @@ export async function listGpPractices() {
     .select({ id: organisations.id, name: organisations.name, phone: organisations.phone })
     .from(organisations)
     .where(eq(organisations.kind, "gp_practice"))
+    .orderBy(organisations.name);
+}
+
+export type OrganisationDetail = {
+  id: string;
+  name: string;
+  kind: "hospital_ward" | "community_team" | "gp_practice";
+  parentName: string | null;
+  phone: string | null;
+  outOfHoursPhone: string | null;
+  inboxEmail: string | null;
+  locale: string;
+  languages: string[];
+  requireTwoFactor: boolean;
+  updatedAt: Date;
+};
+
+const detailColumns = {
+  id: organisations.id,
+  name: organisations.name,
+  kind: organisations.kind,
+  parentName: organisations.parentName,
+  phone: organisations.phone,
+  outOfHoursPhone: organisations.outOfHoursPhone,
+  inboxEmail: organisations.inboxEmail,
+  locale: organisations.locale,
+  languages: organisations.languages,
+  requireTwoFactor: organisations.requireTwoFactor,
+  updatedAt: organisations.updatedAt,
+};
+
+/** One organisation, only if it is among `organisationIds` (the admin's own). */
+export async function getManagedOrganisation(
+  { id, organisationIds }: { id: string; organisationIds: string[] },
+  tx: Executor = db,
+): Promise<OrganisationDetail | null> {
+  if (!organisationIds.includes(id)) return null;
+  const [row] = await tx.select(detailColumns).from(organisations).where(eq(organisations.id, id));
+  return row ?? null;
+}
+
+export async function insertOrganisation({ values, creatorUserId }: { values: NewOrganisation; creatorUserId: string }, tx: Executor) {
+  const [row] = await tx.insert(organisations).values(values).returning(detailColumns);
+  // The admin who creates an organisation becomes its member, so they manage it.
+  await tx.insert(memberships).values({ userId: creatorUserId, organisationId: row.id });
+  return row;
+}
+
+export async function updateOrganisation({ id, values }: { id: string; values: Partial<NewOrganisation> }, tx: Executor) {
+  const [row] = await tx.update(organisations).set(values).where(eq(organisations.id, id)).returning(detailColumns);
+  return row ?? null;
+}
+
+/** Names of organisations, by id (for invitations and audit rows). */
+export async function organisationNames({ ids }: { ids: string[] }, tx: Executor = db) {
+  if (ids.length === 0) return [];
+  return tx
+    .select({ id: organisations.id, name: organisations.name, kind: organisations.kind })
+    .from(organisations)
+    .where(inArray(organisations.id, ids))
     .orderBy(organisations.name);
 }

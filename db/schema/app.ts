@@ -68,6 +68,52 @@ export const memberships = pgTable(
   ],
 );
 
+export const staffRoles = ["admin", "clinician"] as const;
+export type StaffRole = (typeof staffRoles)[number];
+
+// An admin's invitation to a new member of staff: a time-limited link whose token is kept only as
+// its SHA-256. The account is made when the invitee accepts and sets a password.
+export const staffInvitations = pgTable(
+  "staff_invitations",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    email: text("email").notNull(),
+    name: text("name"),
+    role: text("role", { enum: staffRoles }).notNull(),
+    tokenHash: text("token_hash").notNull().unique(),
+    expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
+    invitedByUserId: text("invited_by_user_id").references(() => user.id, { onDelete: "set null" }),
+    acceptedAt: timestamp("accepted_at", { withTimezone: true }),
+    acceptedUserId: text("accepted_user_id").references(() => user.id, { onDelete: "set null" }),
+    revokedAt: timestamp("revoked_at", { withTimezone: true }),
+    ...timestamps,
+  },
+  (t) => [
+    index("staff_invitations_email_idx").on(sql`lower(${t.email})`),
+    // One open invitation per address.
+    uniqueIndex("staff_invitations_one_open_uq")
+      .on(sql`lower(${t.email})`)
+      .where(sql`${t.acceptedAt} is null and ${t.revokedAt} is null`),
+    check("staff_invitations_expiry_ck", sql`${t.expiresAt} > ${t.createdAt}`),
+  ],
+);
+
+export const staffInvitationOrganisations = pgTable(
+  "staff_invitation_organisations",
+  {
+    invitationId: uuid("invitation_id")
+      .notNull()
+      .references(() => staffInvitations.id, { onDelete: "cascade" }),
+    organisationId: uuid("organisation_id")
+      .notNull()
+      .references(() => organisations.id, { onDelete: "cascade" }),
+  },
+  (t) => [
+    primaryKey({ columns: [t.invitationId, t.organisationId] }),
+    index("staff_invitation_orgs_org_idx").on(t.organisationId),
+  ],
+);
+
 export const sexes = ["female", "male", "other", "unknown"] as const;
 
 export const patients = pgTable(
@@ -548,6 +594,7 @@ export const attemptCounters = pgTable(
 export type Organisation = typeof organisations.$inferSelect;
 export type NewOrganisation = typeof organisations.$inferInsert;
 export type Membership = typeof memberships.$inferSelect;
+export type StaffInvitation = typeof staffInvitations.$inferSelect;
 export type Patient = typeof patients.$inferSelect;
 export type NewPatient = typeof patients.$inferInsert;
 export type CarerLink = typeof carerLinks.$inferSelect;

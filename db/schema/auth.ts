@@ -1,4 +1,4 @@
-// better-auth's tables (user, session, account, verification, rateLimit), kept apart from ours.
+// better-auth's tables (user, session, account, verification, rateLimit, twoFactor), kept apart from ours.
 // Field names follow better-auth 1.7's core schema for the options in lib/auth.ts.
 import { bigint, boolean, index, integer, pgTable, text, timestamp } from "drizzle-orm/pg-core";
 
@@ -12,6 +12,8 @@ export const user = pgTable("user", {
   role: text("role", { enum: ["admin", "clinician", "patient", "carer"] }).notNull().default("patient"),
   locale: text("locale").notNull().default("en"),
   deactivatedAt: timestamp("deactivated_at", { withTimezone: true }),
+  // better-auth twoFactor plugin.
+  twoFactorEnabled: boolean("two_factor_enabled").notNull().default(false),
   createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
 });
@@ -66,6 +68,24 @@ export const verification = pgTable(
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [index("verification_identifier_idx").on(t.identifier)],
+);
+
+// better-auth twoFactor plugin (1.7): the TOTP secret and backup codes, both encrypted with the
+// auth secret; `verified` is false between "enable" and the first correct code.
+export const twoFactor = pgTable(
+  "two_factor",
+  {
+    id: text("id").primaryKey(),
+    secret: text("secret").notNull(),
+    backupCodes: text("backup_codes").notNull(),
+    userId: text("user_id")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
+    verified: boolean("verified").notNull().default(true),
+    failedVerificationCount: integer("failed_verification_count").notNull().default(0),
+    lockedUntil: timestamp("locked_until", { withTimezone: true }),
+  },
+  (t) => [index("two_factor_user_id_idx").on(t.userId)],
 );
 
 // Rate-limit counters in PostgreSQL so limits hold across app instances.

@@ -29,17 +29,5 @@ export async function verifyPassword({ hash, password }: { hash: string; passwor
   return got.length === want.length && timingSafeEqual(got, want);
 }
 
-// A short list of the passwords most often tried (ASVS 6.2.4); checked case-insensitively.
-const COMMON = new Set([
-  "password", "password1", "password123", "123456789012", "qwertyuiop12", "iloveyou1234",
-  "letmein12345", "welcome12345", "changeme1234", "administrator", "passwordpassword",
-  "123456123456", "abc123abc123", "qwerty123456", "111111111111", "000000000000",
-]);
-
-export const PASSWORD_MIN_LENGTH = 12;
-
-export function passwordProblem(password: string): "too_short" | "too_common" | null {
-  if (password.length < PASSWORD_MIN_LENGTH) return "too_short";
-  if (COMMON.has(password.toLowerCase())) return "too_common";
-  return null;
-}
+// The rules live apart so client forms can check them without loading node:crypto.
+export { PASSWORD_MIN_LENGTH, passwordProblem } from "./password-rules";

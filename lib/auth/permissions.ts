@@ -4,7 +4,7 @@ import "server-only";
 import { forbidden, redirect } from "next/navigation";
 import { findPatientAccess, isAdminOfPatient, type PatientAccessVia } from "@/db/queries/access";
 import { AppError } from "@/lib/errors";
-import { getViewer, getViewerFromHeaders, type Role, type Viewer } from "./session";
+import { getViewer, getViewerFromHeaders, needsSecondFactorSetup, type Role, type Viewer } from "./session";
 
 /** Route handlers: the viewer, or 401. */
 export async function requireUser(request: Request): Promise<Viewer> {
@@ -22,6 +22,15 @@ export async function requireRole(request: Request, ...allowed: Role[]): Promise
 
 export function assertRole(viewer: Viewer, ...allowed: Role[]) {
   if (!allowed.includes(viewer.role)) throw new AppError("forbidden");
+  assertSecondFactor(viewer);
+}
+
+/**
+ * Staff of an organisation that requires two-step sign-in reach nothing until they have set it
+ * up (the set-up itself goes through better-auth's own endpoints).
+ */
+export function assertSecondFactor(viewer: Viewer) {
+  if (needsSecondFactorSetup(viewer)) throw new AppError("two_factor_required");
 }
 
 /**
@@ -29,6 +38,7 @@ export function assertRole(viewer: Viewer, ...allowed: Role[]) {
  * the same as one that does not exist, so identifiers reveal nothing (ASVS 8.2.2).
  */
 export async function requirePatientAccess(viewer: Viewer, patientId: string): Promise<PatientAccessVia> {
+  assertSecondFactor(viewer);
   if (!isUuid(patientId)) throw new AppError("not_found");
   const via = await findPatientAccess({ userId: viewer.userId, role: viewer.role, patientId });
   if (!via) throw new AppError("not_found");
@@ -85,6 +95,7 @@ export async function requirePageRole(locale: string, ...allowed: Role[]): Promi
   const viewer = await getViewer();
   if (!viewer) redirect(`/${locale}/sign-in`);
   if (!allowed.includes(viewer.role)) forbidden();
+  if (needsSecondFactorSetup(viewer)) redirect(`/${locale}/two-factor/setup`);
   return viewer;
 }
 

@@ -1,7 +1,7 @@
 import "server-only";
 import { headers } from "next/headers";
 import { cache } from "react";
-import { getMembershipOrganisationIds, getOwnPatientIds, type Role } from "@/db/queries/access";
+import { getMemberships, getOwnPatientIds, type Role } from "@/db/queries/access";
 import { auth } from "@/lib/auth";
 
 export type { Role };
@@ -17,6 +17,11 @@ export type Viewer = {
   organisationIds: string[];
   /** Patients: themselves. Carers: the patients whose link is active. */
   patientIds: string[];
+  /**
+   * Staff: whether they have two-step sign-in, and whether one of their organisations requires
+   * it. Missing means not known (treated as not required).
+   */
+  secondFactor?: { enabled: boolean; required: boolean };
 };
 
 function isRole(value: unknown): value is Role {
@@ -27,11 +32,16 @@ function isRole(value: unknown): value is Role {
 export async function getViewerFromHeaders(h: Headers): Promise<Viewer | null> {
   const result = await auth.api.getSession({ headers: h });
   if (!result) return null;
-  const u = result.user as typeof result.user & { role?: unknown; locale?: unknown; deactivatedAt?: unknown };
+  const u = result.user as typeof result.user & {
+    role?: unknown;
+    locale?: unknown;
+    deactivatedAt?: unknown;
+    twoFactorEnabled?: unknown;
+  };
   if (u.deactivatedAt || !isRole(u.role)) return null;
   const staff = u.role === "admin" || u.role === "clinician";
-  const [organisationIds, patientIds] = await Promise.all([
-    staff ? getMembershipOrganisationIds({ userId: u.id }) : Promise.resolve([]),
+  const [memberships, patientIds] = await Promise.all([
+    staff ? getMemberships({ userId: u.id }) : Promise.resolve([]),
     staff ? Promise.resolve([]) : getOwnPatientIds({ userId: u.id, role: u.role }),
   ]);
   return {
@@ -40,13 +50,21 @@ export async function getViewerFromHeaders(h: Headers): Promise<Viewer | null> {
     email: u.email,
     role: u.role,
     locale: typeof u.locale === "string" ? u.locale : "en",
-    organisationIds,
+    organisationIds: memberships.map((m) => m.organisationId),
     patientIds,
+    ...(staff
+      ? { secondFactor: { enabled: u.twoFactorEnabled === true, required: memberships.some((m) => m.requireTwoFactor) } }
+      : {}),
   };
 }
 
 /** Cached per request for server components, layouts and actions. */
 export const getViewer = cache(async (): Promise<Viewer | null> => getViewerFromHeaders(await headers()));
+
+/** A member of staff whose organisation requires two-step sign-in and who has not set it up. */
+export function needsSecondFactorSetup(viewer: Viewer): boolean {
+  return Boolean(viewer.secondFactor?.required && !viewer.secondFactor.enabled);
+}
 
 export function homePathFor(role: Role): string {
   switch (role) {

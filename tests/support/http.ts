@@ -1,5 +1,7 @@
 // Calling route handlers directly, as the server would, with real sessions from better-auth.
+import * as OTPAuth from "otpauth";
 import { POST as authPost } from "@/app/api/auth/[...all]/route";
+import { DEMO_ADMIN_TOTP } from "@/db/seed";
 import { env } from "@/lib/env";
 
 export const origin = new URL(env.APP_URL).origin;
@@ -32,19 +34,37 @@ export function call<P = Record<string, string | string[]>>(
   return handler(request(pathname, init), { params: Promise.resolve((init.params ?? {}) as P) });
 }
 
+/** The current TOTP code for a base32 secret, as an authenticator app would show it. */
+export function totpCode(base32: string, timestamp = Date.now()): string {
+  return new OTPAuth.TOTP({ secret: OTPAuth.Secret.fromBase32(base32), digits: 6, period: 30, algorithm: "SHA1" }).generate({ timestamp });
+}
+
+const totpSecrets: Record<string, string> = { [DEMO_ADMIN_TOTP.email]: DEMO_ADMIN_TOTP.base32 };
+
 let ipCounter = 10;
-/** Signs in through better-auth's own handler and returns the session cookie. */
-export async function signIn(email: string, password: string, ip?: string): Promise<string> {
-  const res = await authPost(
-    request("/api/auth/sign-in/email", {
-      body: { email, password },
-      // Each sign-in from its own test address, so the sign-in rate limit does not trip here.
-      headers: { "x-forwarded-for": ip ?? `10.99.0.${ipCounter++ % 250}` },
-    }),
-  );
+/**
+ * Signs in through better-auth's own handler and returns the session cookie. An account with
+ * two-step sign-in gets its code from `totp` (a base32 secret; the demo admin's by default).
+ */
+export async function signIn(email: string, password: string, ip?: string, totp?: string): Promise<string> {
+  // Each sign-in from its own test address, so the sign-in rate limit does not trip here.
+  const headers = { "x-forwarded-for": ip ?? `10.99.0.${ipCounter++ % 250}` };
+  const res = await authPost(request("/api/auth/sign-in/email", { body: { email, password }, headers }));
   if (res.status !== 200) throw new Error(`sign-in as ${email} failed: ${res.status} ${await res.text()}`);
   const cookies = res.headers.getSetCookie().map((c) => c.split(";")[0]);
-  return cookies.join("; ");
+  const body = (await res.json()) as { twoFactorRedirect?: boolean };
+  if (!body.twoFactorRedirect) return cookies.join("; ");
+  const secret = totp ?? totpSecrets[email];
+  if (!secret) throw new Error(`sign-in as ${email} needs a TOTP code and no secret is known`);
+  const second = await authPost(
+    request("/api/auth/two-factor/verify-totp", { body: { code: totpCode(secret) }, cookie: cookies.join("; "), headers }),
+  );
+  if (second.status !== 200) throw new Error(`second step for ${email} failed: ${second.status} ${await second.text()}`);
+  return second.headers
+    .getSetCookie()
+    .map((c) => c.split(";")[0])
+    .filter((c) => c.includes("session_token"))
+    .join("; ");
 }
 
 export const demo = {

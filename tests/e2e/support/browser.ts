@@ -2,6 +2,8 @@
 import fs from "node:fs";
 import path from "node:path";
 import { chromium, type Browser, type BrowserContextOptions, type Page } from "playwright-core";
+import { DEMO_ADMIN_TOTP } from "@/db/seed";
+import { totpCode } from "../../support/http";
 
 export const baseUrl = process.env.E2E_BASE_URL ?? "http://localhost:3100";
 export const screenshotDir = path.resolve(__dirname, "../../../test-results/screenshots");
@@ -36,11 +38,19 @@ let ip = 1;
  * Signs in through the real form. Each sign-in is sent as from its own address so the
  * per-address sign-in limit is not what a test of something else runs into.
  */
-export async function signInAs(page: Page, email: string, password: string, locale = "en") {
+export async function signInAs(page: Page, email: string, password: string, locale = "en", totpSecret?: string) {
   await page.context().setExtraHTTPHeaders({ "x-forwarded-for": `10.77.0.${ip++ % 250}` });
   await page.goto(`/${locale}/sign-in`);
   await page.getByLabel(/e-mail|correo|adres|adresă|البريد|ای میل/i).first().fill(email);
   await page.locator('input[type="password"]').fill(password);
   await page.locator('button[type="submit"]').click();
   await page.waitForURL((url) => !url.pathname.endsWith("/sign-in") && !url.pathname.endsWith("/home"), { timeout: 30_000 });
+  // Two-step sign-in: the code from the account's TOTP secret (the demo admin's by default).
+  if (new URL(page.url()).pathname.endsWith("/two-factor")) {
+    const secret = totpSecret ?? (email === DEMO_ADMIN_TOTP.email ? DEMO_ADMIN_TOTP.base32 : undefined);
+    if (!secret) throw new Error(`${email} asks for a TOTP code and no secret is known`);
+    await page.locator('input[autocomplete="one-time-code"]').fill(totpCode(secret));
+    await page.locator('button[type="submit"]').click();
+    await page.waitForURL((url) => !url.pathname.endsWith("/two-factor") && !url.pathname.endsWith("/home"), { timeout: 30_000 });
+  }
 }

@@ -1,13 +1,8 @@
-import { randomUUID } from "node:crypto";
-import { eq } from "drizzle-orm";
-import { PNG } from "pngjs";
 import { beforeAll, describe, expect, it } from "vitest";
-import { db } from "@/db";
-import { patients, uploads, user } from "@/db/schema";
-import { putObject } from "@/lib/storage";
 import { call, sessionFor } from "../../support/http";
 import { fillPattern, listRouteFiles, methods, type Method } from "../../support/routes";
 import { matrix, personas, type Fixture, type Persona } from "./access-matrix";
+import { securityFixture } from "./fixture";
 
 const personaAccount: Record<Exclude<Persona, "anonymous">, Parameters<typeof sessionFor>[0]> = {
   admin: "admin",
@@ -30,17 +25,7 @@ beforeAll(async () => {
       if (typeof mod[m] === "function") discovered.push({ key: `${m} ${pattern}`, pattern, method: m, handler: mod[m] as Handler });
     }
   }
-  const [arthur] = await db.select({ id: patients.id }).from(patients).where(eq(patients.healthRecordNumber, "EM-100-001"));
-  const [yusuf] = await db.select({ id: patients.id }).from(patients).where(eq(patients.healthRecordNumber, "EM-100-003"));
-  // A finished upload on Arthur's record (a small PNG in the store), for the upload rows.
-  const [grace] = await db.select({ id: user.id }).from(user).where(eq(user.email, "community.nurse@eastmere.example"));
-  const objectKey = `patients/${arthur.id}/${randomUUID()}`;
-  await putObject({ key: objectKey, body: PNG.sync.write(new PNG({ width: 2, height: 2 })), contentType: "image/png" });
-  const [upload] = await db
-    .insert(uploads)
-    .values({ patientId: arthur.id, uploadedByUserId: grace.id, category: "packaging-label", objectKey, label: "Matrix fixture", contentType: "image/png", sizeBytes: 70, status: "ready" })
-    .returning({ id: uploads.id });
-  fixture = { patientId: arthur.id, otherPatientId: yusuf.id, uploadId: upload.id };
+  fixture = await securityFixture();
 });
 
 describe("security matrix: every route handler × every persona", () => {

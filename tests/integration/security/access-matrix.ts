@@ -17,7 +17,18 @@ export type Persona = (typeof personas)[number];
 export type Cell = 401 | 403 | 404 | 200 | "allowed";
 export type Expectations = Record<Persona, Cell>;
 
-export type Fixture = { patientId: string; otherPatientId: string; uploadId: string };
+export type Fixture = {
+  patientId: string;
+  otherPatientId: string;
+  /** A finished upload on Arthur's record. */
+  uploadId: string;
+  /** Harbourside (Arthur's care team; the demo admin belongs to it). */
+  organisationId: string;
+  /** Grace Mensah, a clinician of Harbourside. */
+  staffUserId: string;
+  /** The demo admin themselves (deactivating oneself is refused, so the matrix changes nothing). */
+  adminUserId: string;
+};
 
 export type Row =
   | {
@@ -124,6 +135,37 @@ export const matrix: Row[] = [
   { route: "POST /api/patients/[patientId]/messages/[messageId]/resend", exempt: "needs a message of the patient: its full matrix is in letters-supplies.test.ts" },
   { route: "GET /api/patients/[patientId]/supply-requests", params: patient, expect: staffOnPatient },
   { route: "POST /api/patients/[patientId]/supply-requests", params: patient, expect: staffOnPatient },
+  // Organisation administration (issue 9).
+  { route: "POST /api/admin/organisations", expect: adminOnly },
+  { route: "GET /api/admin/organisations/[organisationId]", params: (f) => ({ organisationId: f.organisationId }), expect: adminOnly },
+  { route: "PATCH /api/admin/organisations/[organisationId]", params: (f) => ({ organisationId: f.organisationId }), expect: adminOnly },
+  { route: "GET /api/admin/settings", expect: adminOnly },
+  { route: "PATCH /api/admin/settings", expect: adminOnly },
+  { route: "GET /api/admin/staff", expect: adminOnly },
+  { route: "POST /api/admin/staff/invitations", expect: adminOnly },
+  {
+    route: "DELETE /api/admin/staff/invitations/[invitationId]",
+    params: () => ({ invitationId: "00000000-0000-4000-8000-000000000000" }),
+    expect: { ...adminOnly, admin: 404 },
+  },
+  { route: "GET /api/admin/staff/[userId]", params: (f) => ({ userId: f.staffUserId }), expect: adminOnly },
+  { route: "PATCH /api/admin/staff/[userId]", params: (f) => ({ userId: f.staffUserId }), expect: adminOnly },
+  { route: "POST /api/admin/staff/[userId]/deactivate", params: (f) => ({ userId: f.adminUserId }), expect: adminOnly },
+  { route: "POST /api/admin/staff/[userId]/reactivate", params: (f) => ({ userId: f.adminUserId }), expect: adminOnly },
+  {
+    route: "POST /api/staff-invitations/accept",
+    // Public: the token in the body is the authority; an empty body is a 400 for everyone.
+    expect: { anonymous: "allowed", admin: "allowed", careTeamClinician: "allowed", otherClinician: "allowed", patient: "allowed", otherPatient: "allowed", carer: "allowed" },
+  },
+  { route: "GET /api/admin/audit", expect: adminOnly },
+  { route: "GET /api/admin/audit/export", expect: adminOnly },
+  { route: "GET /api/admin/patients", expect: adminOnly },
+  { route: "POST /api/admin/patients/[patientId]/close", params: patient, expect: adminOnly },
+  {
+    route: "GET /api/patients/[patientId]/export",
+    params: patient,
+    expect: { anonymous: 401, admin: "allowed", careTeamClinician: 403, otherClinician: 403, patient: "allowed", otherPatient: 404, carer: 403 },
+  },
 ];
 
 export { patient as patientParams };

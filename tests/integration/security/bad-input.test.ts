@@ -10,8 +10,8 @@ import { changedTables, databaseTables, schemaTables, snapshot } from "../../sup
 import { call, sessionFor } from "../../support/http";
 import { fillPattern, listRouteFiles, type Method } from "../../support/routes";
 import { matrix, type Fixture, type Persona } from "./access-matrix";
+import { securityFixture } from "./fixture";
 import { badBodies, overrides, schemaFieldNames, type BadBody, type BadInputOverride } from "./bad-input";
-import { patientIdByHrn } from "../../support/fixtures";
 
 // Watch the project's one body parser: whether a route reached it, and whether the route's own
 // schema accepted the body (then it was not bad input after all, and may be written).
@@ -88,7 +88,7 @@ function shortReport(details: fc.RunDetails<[BadBody, string]>) {
 }
 
 beforeAll(async () => {
-  fixture = { patientId: await patientIdByHrn("EM-100-001"), otherPatientId: await patientIdByHrn("EM-100-003") };
+  fixture = await securityFixture();
   ids = [fixture.patientId, fixture.otherPatientId];
 });
 

@@ -3,6 +3,7 @@ import { redirect } from "next/navigation";
 import { SignInForm } from "@/components/auth/sign-in-form";
 import { Card } from "@/components/ui/card";
 import { getViewer, homePathFor } from "@/lib/auth/session";
+import { Link } from "@/lib/i18n/navigation";
 
 export async function generateMetadata({ params }: { params: Promise<{ locale: "en" }> }) {
   const { locale } = await params;
@@ -16,6 +17,7 @@ export default async function SignInPage({ params }: { params: Promise<{ locale:
   const viewer = await getViewer();
   if (viewer) redirect(`/${locale}${homePathFor(viewer.role)}`);
   const t = await getTranslations("SignIn");
+  const reset = await getTranslations("PasswordReset");
   return (
     <Card className="flex flex-col gap-5">
       <div>
@@ -23,6 +25,9 @@ export default async function SignInPage({ params }: { params: Promise<{ locale:
         <p className="mt-1 text-ink-soft">{t("intro")}</p>
       </div>
       <SignInForm />
+      <Link href="/forgot-password" className="text-brand underline underline-offset-4">
+        {reset("forgotLink")}
+      </Link>
     </Card>
   );
 }

@@ -1,8 +1,35 @@
-import { listOrganisationsManagedBy } from "@/db/queries/organisations";
+import { insertOrganisation, listOrganisationsManagedBy } from "@/db/queries/organisations";
+import { db } from "@/db";
+import { audit } from "@/lib/audit";
 import { requireRole } from "@/lib/auth/permissions";
+import { AppError, pgConstraint } from "@/lib/errors";
 import { handle, json } from "@/lib/http";
+import { parseJsonBody } from "@/lib/validate";
+import { organisationSchema } from "@/lib/validations/organisation";
 
 export const GET = handle(async (request) => {
   const viewer = await requireRole(request, "admin");
   return json({ organisations: await listOrganisationsManagedBy({ organisationIds: viewer.organisationIds }) });
+});
+
+/** A new ward, team or GP practice; the admin who creates it becomes its member. */
+export const POST = handle(async (request) => {
+  const viewer = await requireRole(request, "admin");
+  const input = await parseJsonBody(request, organisationSchema);
+  try {
+    const organisation = await db.transaction(async (tx) => {
+      const row = await insertOrganisation({ values: input, creatorUserId: viewer.userId }, tx);
+      await audit(
+        { action: "admin.organisation.create", actor: viewer, organisationId: row.id, via: "admin", request, details: { kind: row.kind } },
+        tx,
+      );
+      return row;
+    });
+    return json({ organisation }, { status: 201 });
+  } catch (error) {
+    if (pgConstraint(error) === "organisations_name_kind_uq") {
+      throw new AppError("conflict", "An organisation of this kind with this name exists already.", { fields: { name: ["name_taken"] } });
+    }
+    throw error;
+  }
 });

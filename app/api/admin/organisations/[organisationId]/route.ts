@@ -1,0 +1,50 @@
+import { db } from "@/db";
+import { getManagedOrganisation, updateOrganisation } from "@/db/queries/organisations";
+import { audit } from "@/lib/audit";
+import { isUuid, requireRole } from "@/lib/auth/permissions";
+import { AppError, pgConstraint } from "@/lib/errors";
+import { handle, json } from "@/lib/http";
+import { parseJsonBody } from "@/lib/validate";
+import { organisationPatchSchema } from "@/lib/validations/organisation";
+
+type Ctx = { params: Promise<{ organisationId: string }> };
+
+/** An organisation the admin belongs to; any other answers 404. */
+export const GET = handle<Ctx>(async (request, { params }) => {
+  const viewer = await requireRole(request, "admin");
+  const { organisationId } = await params;
+  const organisation = isUuid(organisationId)
+    ? await getManagedOrganisation({ id: organisationId, organisationIds: viewer.organisationIds })
+    : null;
+  if (!organisation) throw new AppError("not_found");
+  return json({ organisation });
+});
+
+export const PATCH = handle<Ctx>(async (request, { params }) => {
+  const viewer = await requireRole(request, "admin");
+  const { organisationId } = await params;
+  if (!isUuid(organisationId) || !viewer.organisationIds.includes(organisationId)) throw new AppError("not_found");
+  const input = await parseJsonBody(request, organisationPatchSchema);
+  try {
+    const organisation = await db.transaction(async (tx) => {
+      const before = await getManagedOrganisation({ id: organisationId, organisationIds: viewer.organisationIds }, tx);
+      if (!before) throw new AppError("not_found");
+      if (Object.keys(input).length === 0) return before;
+      const row = await updateOrganisation({ id: organisationId, values: input }, tx);
+      const changed = Object.keys(input).filter(
+        (k) => JSON.stringify(before[k as keyof typeof before]) !== JSON.stringify(row![k as keyof typeof row]),
+      );
+      await audit(
+        { action: "admin.organisation.update", actor: viewer, organisationId, via: "admin", request, details: { changed } },
+        tx,
+      );
+      return row;
+    });
+    return json({ organisation });
+  } catch (error) {
+    if (pgConstraint(error) === "organisations_name_kind_uq") {
+      throw new AppError("conflict", "An organisation of this kind with this name exists already.", { fields: { name: ["name_taken"] } });
+    }
+    throw error;
+  }
+});

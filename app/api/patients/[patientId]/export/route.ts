@@ -1,0 +1,34 @@
+import { exportPatientData } from "@/db/queries/patient-export";
+import { audit } from "@/lib/audit";
+import { assertRole, isUuid, requireAdminOfPatient, requirePatientAccess, requireUser } from "@/lib/auth/permissions";
+import { AppError } from "@/lib/errors";
+import { handle, json } from "@/lib/http";
+import { parseInput, searchParamsObject } from "@/lib/validate";
+import { exportRequestSchema } from "@/lib/validations/admin-patient";
+
+/**
+ * Everything Caddis holds about one patient, as JSON (every table's rows for them, secrets left
+ * out): for the patient themselves, or for an admin of one of the patient's organisations on the
+ * patient's request. The FHIR Bundle is a separate export (another issue).
+ */
+export const GET = handle<{ params: Promise<{ patientId: string }> }>(async (request, { params }) => {
+  const viewer = await requireUser(request);
+  assertRole(viewer, "patient", "admin");
+  const { patientId } = await params;
+  if (!isUuid(patientId)) throw new AppError("not_found");
+  const { reason } = parseInput(exportRequestSchema, searchParamsObject(request.url));
+  let via: "self" | "admin";
+  if (viewer.role === "admin") {
+    await requireAdminOfPatient(viewer, patientId);
+    via = "admin";
+  } else {
+    if ((await requirePatientAccess(viewer, patientId)) !== "self") throw new AppError("not_found");
+    via = "self";
+  }
+  const data = await exportPatientData({ patientId });
+  if (!data) throw new AppError("not_found");
+  await audit({ action: "patient.export", actor: viewer, patientId, via, request, reason: reason ?? null, details: { format: data.format } });
+  return json(data, {
+    headers: { "Content-Disposition": `attachment; filename="caddis-patient-data-${data.exportedAt.slice(0, 10)}.json"` },
+  });
+});

@@ -1,0 +1,154 @@
+"use client";
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useTranslations } from "next-intl";
+import { useState } from "react";
+import { useForm } from "react-hook-form";
+import { Button } from "@/components/ui/button";
+import { Field } from "@/components/ui/field";
+import { Notice } from "@/components/ui/notice";
+import { ApiError, apiFetch } from "@/lib/api-client";
+import { MATERIALS, MATERIAL_SPECS, PLAN_DEFAULTS, type Material } from "@/lib/clinical";
+import { useRouter } from "@/lib/i18n/navigation";
+import { settingsFormSchema, type SettingsFormOutput, type SettingsFormValues } from "@/lib/validations/settings";
+import { useErrorText } from "./use-field-errors";
+
+export type SettingsInitial = {
+  emergencyNumber: string | null;
+  outOfHoursServiceName: string | null;
+  reviewIntervalDays: number | null;
+  dueSoonDays: number | null;
+  defaultMaxDwellDays: Partial<Record<Material, number>>;
+  retentionDays: number | null;
+};
+
+const text = { setValueAs: (v: unknown) => (typeof v === "string" && v.trim() === "" ? null : v) };
+const num = { setValueAs: (v: unknown) => (v === "" || v === null || v === undefined ? null : Number(v)) };
+
+export function SettingsForm({ initial }: { initial: SettingsInitial }) {
+  const t = useTranslations("AdminSettings");
+  const errorText = useErrorText("AdminSettings");
+  const router = useRouter();
+  const [status, setStatus] = useState<{ tone: "ok" | "stop"; text: string } | null>(null);
+  const {
+    register,
+    handleSubmit,
+    setError,
+    formState: { errors, isSubmitting },
+  } = useForm<SettingsFormValues, unknown, SettingsFormOutput>({
+    resolver: zodResolver(settingsFormSchema),
+    defaultValues: { ...initial, defaultMaxDwellDays: initial.defaultMaxDwellDays },
+  });
+
+  const onSubmit = handleSubmit(async (values) => {
+    setStatus(null);
+    try {
+      await apiFetch("/api/admin/settings", { method: "PATCH", body: values });
+      setStatus({ tone: "ok", text: t("saved") });
+      router.refresh();
+    } catch (error) {
+      if (error instanceof ApiError) {
+        for (const [field, codes] of Object.entries(error.fields)) setError(field as keyof SettingsFormValues, { message: codes[0] });
+      }
+      setStatus({ tone: "stop", text: errorText.ofError(error) });
+    }
+  });
+
+  const dwellErrors = errors.defaultMaxDwellDays as Partial<Record<Material, { message?: string }>> | undefined;
+
+  return (
+    <form onSubmit={onSubmit} noValidate className="flex max-w-3xl flex-col gap-8">
+      {status ? <Notice tone={status.tone} role={status.tone === "stop" ? "alert" : "status"} title={status.text} /> : null}
+
+      <fieldset className="flex flex-col gap-4">
+        <legend className="mb-2 text-xl font-bold">{t("patientsHeading")}</legend>
+        <Notice tone="warn" title={t("emergencyWarningTitle")}>
+          <p>{t("emergencyWarning")}</p>
+        </Notice>
+        {!initial.emergencyNumber ? <Notice tone="stop" role="alert" title={t("emergencyUnset")} /> : null}
+        <Field
+          label={t("emergencyNumber")}
+          hint={t("emergencyNumberHint")}
+          inputMode="numeric"
+          autoComplete="off"
+          className="max-w-xs"
+          errors={errorText.list(errors.emergencyNumber)}
+          {...register("emergencyNumber", text)}
+        />
+        <Field
+          label={t("outOfHoursServiceName")}
+          hint={t("outOfHoursServiceNameHint")}
+          autoComplete="off"
+          errors={errorText.list(errors.outOfHoursServiceName)}
+          {...register("outOfHoursServiceName", text)}
+        />
+      </fieldset>
+
+      <fieldset className="flex flex-col gap-4">
+        <legend className="mb-2 text-xl font-bold">{t("intervalsHeading")}</legend>
+        <p className="text-ink-soft">{t("intervalsIntro")}</p>
+        <p className="text-sm font-bold">{t("clinicalJudgement")}</p>
+        <div className="grid gap-4 md:grid-cols-2">
+          <Field
+            label={t("reviewIntervalDays")}
+            hint={t("ruleDefault", { days: PLAN_DEFAULTS.reviewIntervalDays.value })}
+            type="number"
+            inputMode="numeric"
+            min={1}
+            max={365}
+            errors={errorText.list(errors.reviewIntervalDays)}
+            {...register("reviewIntervalDays", num)}
+          />
+          <Field
+            label={t("dueSoonDays")}
+            hint={t("ruleDefault", { days: PLAN_DEFAULTS.dueSoonDays.value })}
+            type="number"
+            inputMode="numeric"
+            min={0}
+            max={60}
+            errors={errorText.list(errors.dueSoonDays)}
+            {...register("dueSoonDays", num)}
+          />
+        </div>
+        <fieldset className="flex flex-col gap-2">
+          <legend className="font-bold">{t("dwellHeading")}</legend>
+          <p className="text-sm text-ink-soft">{t("dwellIntro")}</p>
+          <div className="grid gap-4 md:grid-cols-2">
+            {MATERIALS.map((m) => (
+              <Field
+                key={m}
+                label={t(`materials.${m}`)}
+                hint={t("ruleDefault", { days: MATERIAL_SPECS[m].defaultMaxDwellDays })}
+                type="number"
+                inputMode="numeric"
+                min={1}
+                max={365}
+                errors={errorText.list(dwellErrors?.[m])}
+                {...register(`defaultMaxDwellDays.${m}`, num)}
+              />
+            ))}
+          </div>
+        </fieldset>
+      </fieldset>
+
+      <fieldset className="flex flex-col gap-4">
+        <legend className="mb-2 text-xl font-bold">{t("recordsHeading")}</legend>
+        <Field
+          label={t("retentionDays")}
+          hint={t("retentionHint")}
+          type="number"
+          inputMode="numeric"
+          min={30}
+          className="max-w-xs"
+          errors={errorText.list(errors.retentionDays)}
+          {...register("retentionDays", num)}
+        />
+      </fieldset>
+
+      <div>
+        <Button type="submit" disabled={isSubmitting}>
+          {isSubmitting ? t("saving") : t("save")}
+        </Button>
+      </div>
+    </form>
+  );
+}

@@ -1,0 +1,123 @@
+"use client";
+import { useTranslations } from "next-intl";
+import { useState } from "react";
+import { Button } from "@/components/ui/button";
+import { Checkbox } from "@/components/ui/checkbox";
+import { Notice } from "@/components/ui/notice";
+import { SelectField } from "@/components/ui/select-field";
+import { apiFetch } from "@/lib/api-client";
+import { useRouter } from "@/lib/i18n/navigation";
+import { staffRoles } from "@/lib/validations/staff";
+import { useErrorText } from "./use-field-errors";
+
+type Org = { id: string; name: string };
+
+/** Role and memberships of one member of staff, and deactivation (which signs them out everywhere at once). */
+export function StaffEditor({
+  member,
+  organisations,
+  isSelf,
+}: {
+  member: { id: string; name: string; role: "admin" | "clinician"; active: boolean; organisationIds: string[] };
+  organisations: Org[];
+  isSelf: boolean;
+}) {
+  const t = useTranslations("AdminStaff");
+  const errorText = useErrorText("AdminStaff");
+  const router = useRouter();
+  const [role, setRole] = useState(member.role);
+  const [orgIds, setOrgIds] = useState<string[]>(member.organisationIds);
+  const [message, setMessage] = useState<{ tone: "ok" | "stop"; text: string } | null>(null);
+  const [busy, setBusy] = useState(false);
+
+  async function run(fn: () => Promise<unknown>, ok: string) {
+    setBusy(true);
+    setMessage(null);
+    try {
+      await fn();
+      setMessage({ tone: "ok", text: ok });
+      router.refresh();
+    } catch (error) {
+      setMessage({ tone: "stop", text: errorText.ofError(error) });
+    } finally {
+      setBusy(false);
+    }
+  }
+
+  return (
+    <div className="flex flex-col gap-6">
+      {message ? <Notice tone={message.tone} role={message.tone === "stop" ? "alert" : "status"} title={message.text} /> : null}
+      <form
+        className="flex max-w-xl flex-col gap-4"
+        onSubmit={(e) => {
+          e.preventDefault();
+          void run(() => apiFetch(`/api/admin/staff/${member.id}`, { method: "PATCH", body: { role, organisationIds: orgIds } }), t("saved"));
+        }}
+      >
+        <SelectField label={t("role")} value={role} onChange={(e) => setRole(e.target.value as typeof role)}>
+          {staffRoles.map((r) => (
+            <option key={r} value={r}>
+              {t(`roles.${r}`)}
+            </option>
+          ))}
+        </SelectField>
+        <fieldset className="flex flex-col gap-1">
+          <legend className="font-bold">{t("organisations")}</legend>
+          <p className="text-sm text-ink-soft">{t("membershipsHint")}</p>
+          {organisations.map((o) => (
+            <Checkbox
+              key={o.id}
+              label={o.name}
+              checked={orgIds.includes(o.id)}
+              onChange={(e) => setOrgIds(e.target.checked ? [...orgIds, o.id] : orgIds.filter((id) => id !== o.id))}
+            />
+          ))}
+        </fieldset>
+        <div>
+          <Button type="submit" disabled={busy}>
+            {t("save")}
+          </Button>
+        </div>
+      </form>
+      <section aria-labelledby="access-heading" className="flex max-w-xl flex-col gap-3 border-t border-stone-faint pt-4">
+        <h2 id="access-heading" className="text-xl font-bold">
+          {t("accessHeading")}
+        </h2>
+        {member.active ? (
+          <>
+            <p>{t("deactivateExplain")}</p>
+            {isSelf ? (
+              <p className="text-ink-soft">{t("cannotDeactivateSelf")}</p>
+            ) : (
+              <div>
+                <Button
+                  variant="danger"
+                  disabled={busy}
+                  onClick={() => {
+                    if (!window.confirm(t("deactivateConfirm", { name: member.name }))) return;
+                    void run(() => apiFetch(`/api/admin/staff/${member.id}/deactivate`, { method: "POST", body: {} }), t("deactivated"));
+                  }}
+                >
+                  {t("deactivate")}
+                </Button>
+              </div>
+            )}
+          </>
+        ) : (
+          <>
+            <p>{t("inactiveExplain")}</p>
+            <div>
+              <Button
+                variant="secondary"
+                disabled={busy}
+                onClick={() => void run(() => apiFetch(`/api/admin/staff/${member.id}/reactivate`, { method: "POST", body: {} }), t("reactivated"))}
+              >
+                {t("reactivate")}
+              </Button>
+            </div>
+          </>
+        )}
+      </section>
+    </div>
+  );
+}

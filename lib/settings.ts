@@ -1,0 +1,68 @@
+import "server-only";
+// Typed getters for the deployment settings an admin keeps on the Settings page. Nothing has a
+// default hidden here: a setting that is not configured is null, and the screen that needs it
+// says so (e.g. the portal says the emergency number is not configured).
+import type { Executor } from "@/db";
+import { readSettingRows, writeSettings } from "@/db/queries/settings";
+import type { Material, PlanDatesOptions } from "@/lib/clinical";
+import { settingKeys, settingSchemas, type SettingsPatch } from "@/lib/validations/settings";
+
+export type DeploymentSettings = {
+  /** Digits the portal shows and dials in an emergency; null when not configured. */
+  emergencyNumber: string | null;
+  /** The name of the out-of-hours service, e.g. shown beside a team's out-of-hours number. */
+  outOfHoursServiceName: string | null;
+  /** Starting values for lib/clinical `planDates`; null or missing means the rule's own default. */
+  reviewIntervalDays: number | null;
+  dueSoonDays: number | null;
+  defaultMaxDwellDays: Partial<Record<Material, number>>;
+  /** Days a closed record is kept, read-only, before the retention job removes it; null keeps it. */
+  retentionDays: number | null;
+};
+
+function parse<K extends keyof typeof settingSchemas>(key: K, value: unknown) {
+  const r = settingSchemas[key].safeParse(value);
+  if (!r.success) {
+    // A bad stored value counts as not configured, loudly, rather than as a guess.
+    console.error(`[settings] stored value of ${key} is not valid; treated as not configured`);
+    return null;
+  }
+  return r.data;
+}
+
+export async function getSettings(tx?: Executor): Promise<DeploymentSettings> {
+  const rows = await readSettingRows(tx);
+  const raw = new Map(rows.map((r) => [r.key, r.value]));
+  const get = <K extends keyof typeof settingSchemas>(key: K) => (raw.has(key) ? parse(key, raw.get(key)) : null);
+  return {
+    emergencyNumber: get("emergencyNumber") as string | null,
+    outOfHoursServiceName: get("outOfHoursServiceName") as string | null,
+    reviewIntervalDays: get("reviewIntervalDays") as number | null,
+    dueSoonDays: get("dueSoonDays") as number | null,
+    defaultMaxDwellDays: (get("defaultMaxDwellDays") as Partial<Record<Material, number>> | null) ?? {},
+    retentionDays: get("retentionDays") as number | null,
+  };
+}
+
+/** The emergency number to show patients, or null when not configured. */
+export async function getEmergencyNumber(tx?: Executor): Promise<string | null> {
+  return (await getSettings(tx)).emergencyNumber;
+}
+
+/** Options for lib/clinical `planDates` from the deployment settings. */
+export function planDatesOptions(s: DeploymentSettings, extra: PlanDatesOptions = {}): PlanDatesOptions {
+  return {
+    ...(s.reviewIntervalDays !== null ? { reviewIntervalDays: s.reviewIntervalDays } : {}),
+    ...(s.dueSoonDays !== null ? { dueSoonDays: s.dueSoonDays } : {}),
+    ...(Object.keys(s.defaultMaxDwellDays).length ? { defaultMaxDwellDays: s.defaultMaxDwellDays } : {}),
+    ...extra,
+  };
+}
+
+/** Applies a validated change; returns the keys that changed (for the audit event). */
+export async function updateSettings(tx: Executor, patch: SettingsPatch): Promise<(keyof DeploymentSettings)[]> {
+  const values: Record<string, unknown> = {};
+  for (const key of settingKeys) if (key in patch) values[key] = patch[key] ?? null;
+  await writeSettings({ values }, tx);
+  return Object.keys(values) as (keyof DeploymentSettings)[];
+}

@@ -1,0 +1,11 @@
+import { z } from "zod";
+
+export const closeRecordSchema = z.object({
+  reason: z.string().trim().min(3, { message: "reason_required" }).max(500, { message: "reason_required" }),
+});
+export type CloseRecordInput = z.infer<typeof closeRecordSchema>;
+
+export const exportRequestSchema = z.object({
+  // An admin downloads a patient's data on the patient's request: the request is recorded.
+  reason: z.preprocess((v) => (typeof v === "string" && v.trim() === "" ? undefined : v), z.string().trim().min(3).max(500).optional()),
+});

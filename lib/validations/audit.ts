@@ -1,0 +1,19 @@
+import { z } from "zod";
+
+const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, { message: "date_invalid" });
+const blank = (v: unknown) => (typeof v === "string" && v.trim() === "" ? undefined : v);
+
+/** Audit search filters (query string of GET /api/admin/audit and its CSV export). */
+export const auditQuerySchema = z
+  .object({
+    person: z.preprocess(blank, z.string().trim().max(120).optional()),
+    patient: z.preprocess(blank, z.string().trim().max(120).optional()),
+    action: z.preprocess(blank, z.string().trim().max(80).regex(/^[a-z0-9_.]+$/, { message: "action_invalid" }).optional()),
+    via: z.preprocess(blank, z.enum(["care_team", "visit_access", "qr", "self", "carer", "admin", "system"]).optional()),
+    from: z.preprocess(blank, isoDate.optional()),
+    to: z.preprocess(blank, isoDate.optional()),
+    page: z.preprocess(blank, z.coerce.number().int().min(1).max(10_000).default(1)),
+    pageSize: z.preprocess(blank, z.coerce.number().int().min(1).max(100).default(50)),
+  })
+  .refine((q) => !q.from || !q.to || q.from <= q.to, { message: "range_invalid", path: ["to"] });
+export type AuditQuery = z.infer<typeof auditQuerySchema>;

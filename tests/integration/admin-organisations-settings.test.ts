@@ -1,0 +1,164 @@
+// Organisations (create, read, edit; 404 across organisations) and deployment settings (the
+// emergency number with no default hidden in code; intervals passed to lib/clinical planDates).
+import { eq } from "drizzle-orm";
+import { beforeAll, describe, expect, it } from "vitest";
+import { GET as orgList, POST as orgCreate } from "@/app/api/admin/organisations/route";
+import { GET as orgGet, PATCH as orgPatch } from "@/app/api/admin/organisations/[organisationId]/route";
+import { GET as settingsGet, PATCH as settingsPatch } from "@/app/api/admin/settings/route";
+import { db } from "@/db";
+import { auditEvents, memberships, organisations, settings, user } from "@/db/schema";
+import { planDates } from "@/lib/clinical";
+import { getEmergencyNumber, getSettings, planDatesOptions } from "@/lib/settings";
+import { call, demo, sessionFor, signIn } from "../support/http";
+import { createOrganisation, createStaff, orgIdsByName, suffix } from "../support/staff";
+
+let admin: string;
+let orgs: Record<string, string>;
+beforeAll(async () => {
+  admin = await sessionFor("admin");
+  orgs = await orgIdsByName(["Larch Ward", "Millbrook Surgery", "Harbourside Community Nursing Team"]);
+});
+
+const newOrg = () => ({
+  name: `Fernhill Surgery ${suffix()}`,
+  kind: "gp_practice",
+  phone: "01632 960 450",
+  outOfHoursPhone: "",
+  inboxEmail: "fernhill.surgery@eastmere.example",
+  locale: "en",
+  languages: ["en", "pl"],
+  requireTwoFactor: false,
+});
+
+describe("organisations", () => {
+  it("an admin creates a GP practice, becomes its member, and edits it; each change is audited", async () => {
+    const body = newOrg();
+    const res = await call(orgCreate, "/api/admin/organisations", { cookie: admin, body });
+    expect(res.status).toBe(201);
+    const { organisation } = await res.json();
+    expect(organisation).toMatchObject({ name: body.name, kind: "gp_practice", outOfHoursPhone: null, languages: ["en", "pl"] });
+    const adminId = (await db.select({ id: user.id }).from(user).where(eq(user.email, demo.admin.email)))[0].id;
+    const member = await db.select().from(memberships).where(eq(memberships.organisationId, organisation.id));
+    expect(member.map((m) => m.userId)).toEqual([adminId]);
+    // The admin's next request sees it among their organisations.
+    const list = await (await call(orgList, "/api/admin/organisations", { cookie: admin })).json();
+    expect(list.organisations.map((o: { id: string }) => o.id)).toContain(organisation.id);
+
+    const edit = await call(orgPatch, `/api/admin/organisations/${organisation.id}`, {
+      method: "PATCH",
+      cookie: admin,
+      params: { organisationId: organisation.id },
+      body: { phone: "01632 960 451", languages: ["en", "pl", "ar"] },
+    });
+    expect(edit.status).toBe(200);
+    expect((await edit.json()).organisation).toMatchObject({ phone: "01632 960 451", languages: ["en", "pl", "ar"] });
+    const events = await db.select().from(auditEvents).where(eq(auditEvents.organisationId, organisation.id));
+    expect(events.map((e) => e.action).sort()).toEqual(["admin.organisation.create", "admin.organisation.update"]);
+    expect(events.find((e) => e.action === "admin.organisation.update")!.details).toEqual({ changed: ["phone", "languages"] });
+  });
+
+  it("refuses bad input with every field error and writes nothing; a duplicate name of the same kind is a conflict", async () => {
+    const before = await db.select({ id: organisations.id }).from(organisations);
+    const res = await call(orgCreate, "/api/admin/organisations", {
+      cookie: admin,
+      body: { name: "X", kind: "pharmacy", phone: "call us", inboxEmail: "nope", locale: "fr", languages: [], requireTwoFactor: "yes" },
+    });
+    expect(res.status).toBe(400);
+    const { error } = await res.json();
+    expect(Object.keys(error.fields).sort()).toEqual(["inboxEmail", "kind", "languages", "locale", "name", "phone", "requireTwoFactor"]);
+    expect(await db.select({ id: organisations.id }).from(organisations)).toHaveLength(before.length);
+    const dup = await call(orgCreate, "/api/admin/organisations", { cookie: admin, body: { ...newOrg(), name: "Millbrook Surgery" } });
+    expect(dup.status).toBe(409);
+    expect((await dup.json()).error.fields.name).toEqual(["name_taken"]);
+  });
+
+  it("an admin of another organisation gets 404 for this one; an admin gets 404 for an organisation they are not a member of", async () => {
+    const elsewhere = await createOrganisation({ name: `Elsewhere Ward ${suffix()}` });
+    const other = await createStaff({ role: "admin", organisationIds: [elsewhere.id] });
+    const cookie = await signIn(other.email, other.password);
+    const larch = orgs["Larch Ward"];
+    expect((await call(orgGet, `/api/admin/organisations/${larch}`, { cookie, params: { organisationId: larch } })).status).toBe(404);
+    const patch = await call(orgPatch, `/api/admin/organisations/${larch}`, { method: "PATCH", cookie, params: { organisationId: larch }, body: { phone: "01632 960 000" } });
+    expect(patch.status).toBe(404);
+    const [row] = await db.select({ phone: organisations.phone }).from(organisations).where(eq(organisations.id, larch));
+    expect(row.phone).toBe("01632 960 101");
+    // Morgan manages Larch but not Millbrook Surgery.
+    const mill = orgs["Millbrook Surgery"];
+    expect((await call(orgGet, `/api/admin/organisations/${mill}`, { cookie: admin, params: { organisationId: mill } })).status).toBe(404);
+    expect((await call(orgGet, "/api/admin/organisations/not-a-uuid", { cookie: admin, params: { organisationId: "not-a-uuid" } })).status).toBe(404);
+  });
+
+  it("a clinician or patient gets 403 on every organisation route", async () => {
+    const larch = orgs["Larch Ward"];
+    for (const who of ["wardNurse", "patient"] as const) {
+      const cookie = await sessionFor(who);
+      expect((await call(orgList, "/api/admin/organisations", { cookie })).status).toBe(403);
+      expect((await call(orgCreate, "/api/admin/organisations", { cookie, body: newOrg() })).status).toBe(403);
+      expect((await call(orgGet, `/api/admin/organisations/${larch}`, { cookie, params: { organisationId: larch } })).status).toBe(403);
+      expect((await call(orgPatch, `/api/admin/organisations/${larch}`, { method: "PATCH", cookie, params: { organisationId: larch }, body: { phone: "01632 960 000" } })).status).toBe(403);
+    }
+  });
+});
+
+describe("deployment settings", () => {
+  it("the seed sets 999 for the demo; an admin changes it; digits only", async () => {
+    const res = await call(settingsGet, "/api/admin/settings", { cookie: admin });
+    expect((await res.json()).settings.emergencyNumber).toBe("999");
+    for (const bad of ["99 9", "999a", "9", "1234567", "+44999"]) {
+      const r = await call(settingsPatch, "/api/admin/settings", { method: "PATCH", cookie: admin, body: { emergencyNumber: bad } });
+      expect(r.status, bad).toBe(400);
+      expect((await r.json()).error.fields.emergencyNumber).toEqual(["emergency_digits"]);
+    }
+    expect(await getEmergencyNumber()).toBe("999");
+    const ok = await call(settingsPatch, "/api/admin/settings", { method: "PATCH", cookie: admin, body: { emergencyNumber: "112" } });
+    expect(ok.status).toBe(200);
+    expect(await getEmergencyNumber()).toBe("112");
+    const [event] = await db.select().from(auditEvents).where(eq(auditEvents.action, "admin.settings.update"));
+    expect(event.details).toEqual({ changes: { emergencyNumber: { from: "999", to: "112" } } });
+    await call(settingsPatch, "/api/admin/settings", { method: "PATCH", cookie: admin, body: { emergencyNumber: "999" } });
+  });
+
+  it("an emergency number that is not configured reads as null, never as a default from code", async () => {
+    expect(await getEmergencyNumber()).toBe("999");
+    await db.delete(settings).where(eq(settings.key, "emergencyNumber"));
+    try {
+      expect(await getEmergencyNumber()).toBeNull();
+      // A stored value that is not digits (say, edited by hand) is not shown either.
+      await db.insert(settings).values({ key: "emergencyNumber", value: "nine-nine-nine" });
+      expect(await getEmergencyNumber()).toBeNull();
+    } finally {
+      await db.delete(settings).where(eq(settings.key, "emergencyNumber"));
+      await db.insert(settings).values({ key: "emergencyNumber", value: "999" });
+    }
+  });
+
+  it("the default intervals reach lib/clinical planDates as options", async () => {
+    const r = await call(settingsPatch, "/api/admin/settings", {
+      method: "PATCH",
+      cookie: admin,
+      body: { reviewIntervalDays: 14, dueSoonDays: 3, defaultMaxDwellDays: { "all-silicone": 56 } },
+    });
+    expect(r.status).toBe(200);
+    const options = planDatesOptions(await getSettings(), { today: "2026-03-01" });
+    const plan = planDates({ insertedOn: "2026-03-01", material: "all-silicone", route: "urethral" }, options);
+    expect(plan.change.intervalDays).toBe(56);
+    expect(plan.change.date).toBe("2026-04-26");
+    expect(plan.review.intervalDays).toBe(14);
+    // Cleared, the rules' own defaults apply again.
+    await call(settingsPatch, "/api/admin/settings", { method: "PATCH", cookie: admin, body: { reviewIntervalDays: null, dueSoonDays: null, defaultMaxDwellDays: null } });
+    expect(planDatesOptions(await getSettings())).toEqual({});
+  });
+
+  it("refuses unknown keys and out-of-range values; clinicians and patients get 403", async () => {
+    const unknown = await call(settingsPatch, "/api/admin/settings", { method: "PATCH", cookie: admin, body: { secretKnob: 1 } });
+    expect(unknown.status).toBe(400);
+    const range = await call(settingsPatch, "/api/admin/settings", { method: "PATCH", cookie: admin, body: { retentionDays: 2, reviewIntervalDays: 1.5 } });
+    expect(Object.keys((await range.json()).error.fields).sort()).toEqual(["retentionDays", "reviewIntervalDays"]);
+    for (const who of ["communityNurse", "carer"] as const) {
+      const cookie = await sessionFor(who);
+      expect((await call(settingsGet, "/api/admin/settings", { cookie })).status).toBe(403);
+      expect((await call(settingsPatch, "/api/admin/settings", { method: "PATCH", cookie, body: { emergencyNumber: "111" } })).status).toBe(403);
+    }
+    expect(await getEmergencyNumber()).toBe("999");
+  });
+});

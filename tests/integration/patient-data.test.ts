@@ -1,0 +1,282 @@
+// A patient's own data: the JSON export holds every table's rows for that patient (tables found
+// from the schema, so a new table is covered) and nothing of any other patient, no secrets;
+// closing a record makes it read-only; the retention job removes it after the period and logs it.
+import { randomBytes, randomUUID } from "node:crypto";
+import { eq, inArray, sql } from "drizzle-orm";
+import { beforeAll, describe, expect, it } from "vitest";
+import { GET as exportData } from "@/app/api/patients/[patientId]/export/route";
+import { POST as closeRecord } from "@/app/api/admin/patients/[patientId]/close/route";
+import { GET as adminPatients } from "@/app/api/admin/patients/route";
+import { db } from "@/db";
+import { tablesWithPatientId } from "@/db/queries/patient-export";
+import {
+  auditEvents,
+  bagChanges,
+  careTeam,
+  checkIns,
+  diaryEntries,
+  outboundMessages,
+  passports,
+  patientInvites,
+  patients,
+  settings,
+  supplyRequests,
+  uploads,
+  user,
+  visitAccess,
+} from "@/db/schema";
+import { audit } from "@/lib/audit";
+import { hashIdentifier, hashToken } from "@/lib/admin/tokens";
+import { QUEUES } from "@/lib/jobs/boss";
+import { removeExpiredRecords } from "@/lib/jobs/retention";
+import { startBackground } from "@/lib/jobs/runtime";
+import { assertRecordOpen } from "@/lib/record-state";
+import { call, sessionFor, signIn } from "../support/http";
+import { createOrganisation, createStaff, orgIdsByName, suffix, userIdByEmail } from "../support/staff";
+
+let arthurId: string;
+let yusufId: string;
+let orgs: Record<string, string>;
+
+/** Rows for a patient in the tables the seed leaves empty, so the export has something in each. */
+async function addRowsFor(patientId: string, tag: string) {
+  const nurse = await userIdByEmail("community.nurse@eastmere.example");
+  await db.insert(diaryEntries).values({ patientId, kind: "in", volumeMl: 250, at: new Date() });
+  await db.insert(checkIns).values({ patientId, answers: { tag }, level: "self-care", ruleIds: [], idempotencyKey: `${tag}-${randomUUID()}` });
+  await db.insert(passports).values({ patientId, tokenHash: hashToken(randomBytes(32).toString("base64url")), shortCodeHash: hashToken(randomUUID()), languages: ["en"] });
+  await db.insert(uploads).values({ patientId, category: "other", objectKey: `test/${randomUUID()}`, label: `${tag}.pdf` });
+  await db.insert(outboundMessages).values({ idempotencyKey: `${tag}-${randomUUID()}`, messageId: `<${randomUUID()}@caddis.invalid>`, kind: "test", toAddress: "gp@eastmere.example", subject: tag, html: tag, text: tag, patientId });
+  // A one-time secret in a body not yet sent: the export must not carry it.
+  await db.insert(outboundMessages).values({
+    idempotencyKey: `${tag}-secret-${randomUUID()}`,
+    messageId: `<${randomUUID()}@caddis.invalid>`,
+    kind: "carer-invite",
+    toAddress: "carer@mail-test.example",
+    subject: `${tag} invite`,
+    html: `one-time-${tag}`,
+    text: `one-time-${tag}`,
+    redactAfterSend: true,
+    patientId,
+  });
+  await db.insert(visitAccess).values({ patientId, userId: nurse, reason: tag, expiresAt: new Date(Date.now() + 3600_000) });
+  await db.insert(bagChanges).values({ patientId, kind: "leg-bag", changedOn: "2026-11-30", recordedByUserId: nurse });
+  await db.insert(patientInvites).values({ patientId, codeHash: hashToken(randomUUID()), expiresAt: new Date(Date.now() + 86_400_000), usedAt: new Date() });
+  await db.insert(supplyRequests).values({ patientId, periodDays: 28, items: [{ item: "leg-bag", computed: 4, quantity: 4, intervalDays: 7 }], requestedByName: tag });
+  await audit({ action: "patient.view", actor: { userId: nurse, role: "clinician" }, patientId, via: "care_team", details: { tag } });
+}
+
+beforeAll(async () => {
+  const rows = await db.select({ id: patients.id, hrn: patients.healthRecordNumber }).from(patients);
+  arthurId = rows.find((r) => r.hrn === "EM-100-001")!.id;
+  yusufId = rows.find((r) => r.hrn === "EM-100-003")!.id;
+  orgs = await orgIdsByName(["Harbourside Community Nursing Team"]);
+  await addRowsFor(arthurId, "arthur-row");
+  await addRowsFor(yusufId, "yusuf-row");
+});
+
+describe("patient data export (JSON)", () => {
+  it("finds every table with a patient_id column in the schema, and the database has no other table that holds a patient's rows", async () => {
+    const names = tablesWithPatientId().map((t) => t.name);
+    expect(names).toEqual(
+      expect.arrayContaining([
+        "audit_events", "bag_changes", "care_team", "carer_links", "catheter_episodes", "check_ins", "diary_entries", "episode_events",
+        "outbound_messages", "passports", "patient_invites", "supply_requests", "uploads", "visit_access",
+      ]),
+    );
+    // Read from the database itself, not the schema module: every table with a patient_id column…
+    const withColumn = await db.execute<{ table_name: string }>(
+      sql`select table_name from information_schema.columns where table_schema = 'public' and column_name = 'patient_id' order by table_name`,
+    );
+    expect(withColumn.rows.map((r) => r.table_name).sort()).toEqual([...names].sort());
+    // …every foreign key to patients is a patient_id column, and every table that points at a
+    // patient-linked table carries a patient_id of its own, so no row of a patient hides one step away.
+    const fks = await db.execute<{ child: string; column: string; parent: string }>(sql`
+      select tc.table_name as child, kcu.column_name as column, ccu.table_name as parent
+        from information_schema.table_constraints tc
+        join information_schema.key_column_usage kcu on kcu.constraint_name = tc.constraint_name and kcu.table_schema = tc.table_schema
+        join information_schema.constraint_column_usage ccu on ccu.constraint_name = tc.constraint_name and ccu.table_schema = tc.table_schema
+       where tc.constraint_type = 'FOREIGN KEY' and tc.table_schema = 'public'`);
+    const linked = new Set(["patients", ...names]);
+    for (const fk of fks.rows) {
+      if (fk.parent === "patients") expect(fk.column, `${fk.child}.${fk.column}`).toBe("patient_id");
+      if (linked.has(fk.parent) && fk.child !== fk.parent) expect(names, `${fk.child} → ${fk.parent}`).toContain(fk.child);
+    }
+  });
+
+  it("gives the patient every row of every table for them, no other patient's, and no secrets", async () => {
+    const cookie = await sessionFor("patient");
+    // Counted before the export (which adds its own audit event after reading).
+    const counts = new Map<string, number>();
+    for (const { name, table, column } of tablesWithPatientId()) {
+      const [{ n }] = await db.select({ n: sql<number>`count(*)::int` }).from(table).where(eq(column, arthurId));
+      counts.set(name, n);
+    }
+    const res = await call(exportData, `/api/patients/${arthurId}/export`, { cookie, params: { patientId: arthurId } });
+    expect(res.status).toBe(200);
+    expect(res.headers.get("content-disposition")).toMatch(/attachment; filename="caddis-patient-data-/);
+    const data = await res.json();
+    expect(data.format).toBe("caddis-patient-export/1");
+    expect(data.tables.patients).toHaveLength(1);
+    expect(data.tables.patients[0].healthRecordNumber).toBe("EM-100-001");
+    for (const { name } of tablesWithPatientId()) {
+      expect(data.tables[name], name).toHaveLength(counts.get(name)!);
+      for (const row of data.tables[name]) expect(row.patientId, name).toBe(arthurId);
+    }
+    // Every patient-linked table has rows for Arthur (from the seed or addRowsFor), so each one is
+    // proved to be exported: a new table fails here until it is given a row above.
+    for (const { name } of tablesWithPatientId()) expect(data.tables[name].length, name).toBeGreaterThan(0);
+    // A one-time secret in an unsent body stays out; the message itself is listed.
+    expect(JSON.stringify(data)).not.toContain("one-time-arthur-row");
+    expect(data.tables.outbound_messages.some((m: { subject: string; html: string }) => m.subject === "arthur-row invite" && m.html === "")).toBe(true);
+    expect(data.tables.user[0].email).toBe("arthur.pell@eastmere.example");
+    expect(data.tables.account.length).toBeGreaterThan(0);
+    const text = JSON.stringify(data);
+    expect(text).not.toContain(yusufId);
+    expect(text).not.toContain("yusuf-row");
+    expect(text).not.toContain("Haddad");
+    expect(text).not.toMatch(/scrypt\$/);
+    const [passport] = await db.select({ h: passports.tokenHash }).from(passports).where(eq(passports.patientId, arthurId));
+    expect(text).not.toContain(passport.h);
+    for (const key of ["password", "tokenHash", "shortCodeHash", "inviteTokenHash", "token", "ipHash", "secret", "backupCodes"]) {
+      expect(text).not.toContain(`"${key}"`);
+    }
+    expect(data.omittedColumns).toEqual(expect.arrayContaining(["account.password", "passports.token_hash", "session.token", "audit_events.ip_hash"]));
+    const [event] = await db.select().from(auditEvents).where(eq(auditEvents.action, "patient.export"));
+    expect(event).toMatchObject({ patientId: arthurId, via: "self" });
+  });
+
+  it("another patient gets 404; a carer, a clinician 403; anonymous 401", async () => {
+    const path = `/api/patients/${arthurId}/export`;
+    expect((await call(exportData, path, { cookie: await sessionFor("patientAr"), params: { patientId: arthurId } })).status).toBe(404);
+    expect((await call(exportData, path, { cookie: await sessionFor("carer"), params: { patientId: arthurId } })).status).toBe(403);
+    expect((await call(exportData, path, { cookie: await sessionFor("communityNurse"), params: { patientId: arthurId } })).status).toBe(403);
+    expect((await call(exportData, path, { params: { patientId: arthurId } })).status).toBe(401);
+  });
+
+  it("an admin of the patient's organisation downloads it on the patient's request; an admin elsewhere gets 404", async () => {
+    const res = await call(exportData, `/api/patients/${arthurId}/export?reason=Asked%20by%20the%20patient%20in%20writing`, {
+      cookie: await sessionFor("admin"),
+      params: { patientId: arthurId },
+    });
+    expect(res.status).toBe(200);
+    const events = await db.select().from(auditEvents).where(eq(auditEvents.action, "patient.export"));
+    expect(events.some((e) => e.via === "admin" && e.reason === "Asked by the patient in writing")).toBe(true);
+    const elsewhere = await createOrganisation({ name: `Far Ward ${suffix()}` });
+    const other = await createStaff({ role: "admin", organisationIds: [elsewhere.id] });
+    const cookie = await signIn(other.email, other.password);
+    expect((await call(exportData, `/api/patients/${arthurId}/export`, { cookie, params: { patientId: arthurId } })).status).toBe(404);
+    expect((await call(closeRecord, `/api/admin/patients/${arthurId}/close`, { cookie, params: { patientId: arthurId }, body: { reason: "Moved away" } })).status).toBe(404);
+    const list = await (await call(adminPatients, "/api/admin/patients", { cookie })).json();
+    expect(list.patients).toEqual([]);
+  });
+});
+
+async function newPatient(hrn: string) {
+  const [p] = await db
+    .insert(patients)
+    .values({ givenName: "Testa", familyName: `Closewell ${suffix()}`, healthRecordNumber: hrn, dateOfBirth: "1950-01-01", sex: "female" })
+    .returning({ id: patients.id });
+  await db.insert(careTeam).values({ patientId: p.id, organisationId: orgs["Harbourside Community Nursing Team"] });
+  await addRowsFor(p.id, hrn);
+  return p.id;
+}
+
+describe("closing a record and retention", () => {
+  it("closing makes the record read-only (409 record_closed), revokes its QR card and is audited", async () => {
+    const admin = await sessionFor("admin");
+    const id = await newPatient(`TT-${suffix()}`);
+    const bad = await call(closeRecord, `/api/admin/patients/${id}/close`, { cookie: admin, params: { patientId: id }, body: { reason: "" } });
+    expect(bad.status).toBe(400);
+    expect((await db.select({ c: patients.closedAt }).from(patients).where(eq(patients.id, id)))[0].c).toBeNull();
+    await db.transaction((tx) => assertRecordOpen(tx, id));
+
+    const res = await call(closeRecord, `/api/admin/patients/${id}/close`, { cookie: admin, params: { patientId: id }, body: { reason: "Care ended: moved out of the area" } });
+    expect(res.status).toBe(200);
+    const body = await res.json();
+    expect(new Date(body.removeAfter).getTime() - new Date(body.closedAt).getTime()).toBe(2920 * 86_400_000);
+    await expect(db.transaction((tx) => assertRecordOpen(tx, id))).rejects.toMatchObject({ code: "record_closed", status: 409 });
+    const again = await call(closeRecord, `/api/admin/patients/${id}/close`, { cookie: admin, params: { patientId: id }, body: { reason: "Twice" } });
+    expect(again.status).toBe(409);
+    expect((await again.json()).error.code).toBe("record_closed");
+    const open = await db.select().from(passports).where(eq(passports.patientId, id));
+    expect(open.every((p) => p.revokedAt !== null)).toBe(true);
+    const [event] = await db.select().from(auditEvents).where(eq(auditEvents.action, "patient.close"));
+    expect(event).toMatchObject({ patientId: id, via: "admin", reason: "Care ended: moved out of the area" });
+    // Clinicians and patients may not close records.
+    for (const who of ["communityNurse", "patient"] as const) {
+      expect((await call(closeRecord, `/api/admin/patients/${arthurId}/close`, { cookie: await sessionFor(who), params: { patientId: arthurId }, body: { reason: "No" } })).status).toBe(403);
+    }
+  });
+
+  it("removes closed records past the retention period, keeps the rest, and logs each removal by HRN hash only", async () => {
+    await db.update(settings).set({ value: 30 }).where(eq(settings.key, "retentionDays"));
+    try {
+      const oldHrn = `OLD-${suffix()}`;
+      const old = await newPatient(oldHrn);
+      const recent = await newPatient(`NEW-${suffix()}`);
+      const [patientUser] = await db.insert(user).values({ id: randomUUID(), name: "Testa Closewell", email: `testa.${suffix()}@testwick.example`, role: "patient" }).returning({ id: user.id });
+      await db.update(patients).set({ userId: patientUser.id, closedAt: new Date(Date.now() - 31 * 86_400_000) }).where(eq(patients.id, old));
+      await db.update(patients).set({ closedAt: new Date(Date.now() - 10 * 86_400_000) }).where(eq(patients.id, recent));
+
+      const accessLog = await db.select({ id: auditEvents.id }).from(auditEvents).where(eq(auditEvents.patientId, old));
+      expect(accessLog.length).toBeGreaterThan(0);
+      const lines: string[] = [];
+      const result = await removeExpiredRecords({ log: (m) => lines.push(m) });
+      expect(result.removed).toBe(1);
+      // The record's access log goes with the record (not merely unlinked from it).
+      expect(await db.select().from(auditEvents).where(inArray(auditEvents.id, accessLog.map((a) => a.id)))).toHaveLength(0);
+      expect(result.objectKeys).toHaveLength(1);
+      expect(await db.select().from(patients).where(eq(patients.id, old))).toHaveLength(0);
+      expect(await db.select().from(user).where(eq(user.id, patientUser.id))).toHaveLength(0);
+      for (const { name, table, column } of tablesWithPatientId()) {
+        const [{ n }] = await db.select({ n: sql<number>`count(*)::int` }).from(table).where(eq(column, old));
+        expect(n, name).toBe(0);
+      }
+      expect(await db.select().from(patients).where(eq(patients.id, recent))).toHaveLength(1);
+      const [event] = await db.select().from(auditEvents).where(eq(auditEvents.action, "retention.remove"));
+      expect(event.patientId).toBeNull();
+      expect(event.via).toBe("system");
+      expect(event.details).toMatchObject({ hrnHash: hashIdentifier("hrn", oldHrn), retentionDays: 30 });
+      // It says what it removed, table by table, in the audit log and in the job's log.
+      const rows = (event.details as { rows: Record<string, number> }).rows;
+      for (const name of ["patients", "user", "check_ins", "diary_entries", "bag_changes", "patient_invites", "supply_requests", "outbound_messages", "uploads", "passports", "visit_access", "audit_events", "care_team"]) {
+        expect(rows[name], name).toBeGreaterThan(0);
+      }
+      expect(lines.join("\n")).toMatch(/removed the record [0-9a-f]{12}… closed \d{4}-\d{2}-\d{2}: .*check_ins 1/);
+      expect(lines.join("\n")).toMatch(/removed 1 closed record\(s\) past 30 days/);
+      expect(JSON.stringify(event)).not.toContain(oldHrn);
+      expect(JSON.stringify(event)).not.toContain(old);
+      // Without a retention period nothing is removed.
+      await db.delete(settings).where(eq(settings.key, "retentionDays"));
+      await db.update(patients).set({ closedAt: new Date(Date.now() - 3650 * 86_400_000) }).where(eq(patients.id, recent));
+      expect((await removeExpiredRecords({ log: () => {} })).removed).toBe(0);
+    } finally {
+      await db.insert(settings).values({ key: "retentionDays", value: 2920 }).onConflictDoUpdate({ target: settings.key, set: { value: 2920 } });
+    }
+  });
+
+  it("is scheduled daily with pg-boss in the deployment's time zone, and the scheduled job removes what is due", { timeout: 60_000 }, async () => {
+    await db.update(settings).set({ value: 30 }).where(eq(settings.key, "retentionDays"));
+    const bg = await startBackground({ outbox: false, schedules: true, worker: { log: () => {} } });
+    try {
+      expect(bg.boss).toBeTruthy();
+      const schedules = await bg.boss!.getSchedules(QUEUES.retention);
+      expect(schedules).toHaveLength(1);
+      expect(schedules[0]).toMatchObject({ cron: "30 2 * * *", timezone: "Europe/London" });
+      const due = await newPatient(`DUE-${suffix()}`);
+      await db.update(patients).set({ closedAt: new Date(Date.now() - 40 * 86_400_000) }).where(eq(patients.id, due));
+      // Run the job now rather than wait for the night.
+      await bg.boss!.send(QUEUES.retention, {});
+      let gone = false;
+      for (let i = 0; i < 150 && !gone; i++) {
+        await new Promise((r) => setTimeout(r, 200));
+        gone = (await db.select().from(patients).where(eq(patients.id, due))).length === 0;
+      }
+      expect(gone).toBe(true);
+      expect((await db.select().from(auditEvents).where(eq(auditEvents.action, "retention.remove"))).length).toBeGreaterThan(0);
+    } finally {
+      await bg.stop();
+      await db.insert(settings).values({ key: "retentionDays", value: 2920 }).onConflictDoUpdate({ target: settings.key, set: { value: 2920 } });
+    }
+  });
+});
