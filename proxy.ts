@@ -28,6 +28,16 @@ function contentSecurityPolicy(nonce: string) {
   ].join("; ");
 }
 
+// The passport card (/p/… and /<locale>/p/…): never cached, never indexed, never sent on as a referrer.
+const passportPaths = /^\/((en|es|pl|ro|ar|ur)\/)?p(\/|$)/;
+function passportHeaders(pathname: string, response: NextResponse) {
+  if (!passportPaths.test(pathname)) return response;
+  response.headers.set("Referrer-Policy", "no-referrer");
+  response.headers.set("Cache-Control", "no-store");
+  response.headers.set("X-Robots-Tag", "noindex");
+  return response;
+}
+
 export default function proxy(request: NextRequest) {
   const { pathname } = request.nextUrl;
   const hasSession =
@@ -46,7 +56,7 @@ export default function proxy(request: NextRequest) {
   request.headers.set("Content-Security-Policy", csp);
   const response = intl(request);
   response.headers.set("Content-Security-Policy", csp);
-  return response;
+  return passportHeaders(pathname, response);
 }
 
 export const config = {

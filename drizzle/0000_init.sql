@@ -281,6 +281,13 @@ CREATE TABLE "patients" (
 	CONSTRAINT "patients_fluid_limit_ck" CHECK ("patients"."fluid_limit_ml" is null or "patients"."fluid_limit_ml" > 0)
 );
 --> statement-breakpoint
+CREATE TABLE "request_limits" (
+	"key" text PRIMARY KEY NOT NULL,
+	"window_start" timestamp with time zone NOT NULL,
+	"count" integer NOT NULL,
+	CONSTRAINT "request_limits_count_ck" CHECK ("request_limits"."count" >= 0)
+);
+--> statement-breakpoint
 CREATE TABLE "settings" (
 	"key" text PRIMARY KEY NOT NULL,
 	"value" jsonb NOT NULL,

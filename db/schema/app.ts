@@ -418,6 +418,17 @@ export const visitAccess = pgTable(
   (t) => [index("visit_access_user_patient_idx").on(t.userId, t.patientId, t.expiresAt)],
 );
 
+// Fixed-window request counters shared by every app instance (the passport card limiter).
+export const requestLimits = pgTable(
+  "request_limits",
+  {
+    key: text("key").primaryKey(),
+    windowStart: timestamp("window_start", { withTimezone: true }).notNull(),
+    count: integer("count").notNull(),
+  },
+  (t) => [check("request_limits_count_ck", sql`${t.count} >= 0`)],
+);
+
 // Deployment-wide settings (emergency number, default intervals…), one row per key.
 export const settings = pgTable("settings", {
   key: text("key").primaryKey(),

@@ -62,6 +62,8 @@ export const matrix: Row[] = [
   { route: "POST /api/patients/[patientId]/episodes/removal", params: patient, expect: staffOnPatient },
   { route: "POST /api/patients/[patientId]/episodes/twoc", params: patient, expect: staffOnPatient },
   { route: "POST /api/patients/[patientId]/episodes/check", params: patient, expect: staffOnPatient },
+  // Any clinician may ask, holding the passport's token; the grant itself is tested in passport-card.test.ts.
+  { route: "POST /api/visit-access", expect: clinicianOnly },
 ];
 
 export { patient as patientParams };
