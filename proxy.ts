@@ -3,6 +3,7 @@
 import createMiddleware from "next-intl/middleware";
 import { NextResponse, type NextRequest } from "next/server";
 import { routing } from "@/lib/i18n/routing";
+import { withPassportHeaders } from "@/lib/passport-headers";
 
 const intl = createMiddleware(routing);
 
@@ -28,16 +29,6 @@ function contentSecurityPolicy(nonce: string) {
   ].join("; ");
 }
 
-// The passport card (/p/… and /<locale>/p/…): never cached, never indexed, never sent on as a referrer.
-const passportPaths = /^\/((en|es|pl|ro|ar|ur)\/)?p(\/|$)/;
-function passportHeaders(pathname: string, response: NextResponse) {
-  if (!passportPaths.test(pathname)) return response;
-  response.headers.set("Referrer-Policy", "no-referrer");
-  response.headers.set("Cache-Control", "no-store");
-  response.headers.set("X-Robots-Tag", "noindex");
-  return response;
-}
-
 export default function proxy(request: NextRequest) {
   const { pathname } = request.nextUrl;
   const hasSession =
@@ -56,7 +47,7 @@ export default function proxy(request: NextRequest) {
   request.headers.set("Content-Security-Policy", csp);
   const response = intl(request);
   response.headers.set("Content-Security-Policy", csp);
-  return passportHeaders(pathname, response);
+  return withPassportHeaders(pathname, response);
 }
 
 export const config = {
