@@ -26,6 +26,10 @@ const nextConfig: NextConfig = {
           { key: "Cross-Origin-Opener-Policy", value: "same-origin" },
         ],
       },
+      // The portal's service worker: always revalidated, so a fix reaches phones at once.
+      { source: "/sw.js", headers: [{ key: "Cache-Control", value: "no-cache" }, { key: "Service-Worker-Allowed", value: "/" }] },
+      // Invitation links carry their token in the path: never in a Referer.
+      { source: "/:locale/carer-invite/:token", headers: [{ key: "Referrer-Policy", value: "no-referrer" }] },
     ];
   },
 };

@@ -7,7 +7,7 @@ import { withPassportHeaders } from "@/lib/passport-headers";
 
 const intl = createMiddleware(routing);
 
-const signedInAreas = /^\/(en|es|pl|ro|ar|ur)\/(caseload|patients|admin|scan|today|my-catheter|check-in|diary|help|people|learn|account|home)(\/|$)/;
+const signedInAreas = /^\/(en|es|pl|ro|ar|ur)\/(caseload|patients|admin|scan|today|my-catheter|check-in|diary|help|people|learn|more|account|home)(\/|$)/;
 
 function contentSecurityPolicy(nonce: string) {
   const dev = process.env.NODE_ENV !== "production";

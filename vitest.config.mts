@@ -21,7 +21,8 @@ export default defineConfig({
     projects: [
       {
         extends: true,
-        test: { name: "unit", include: ["tests/unit/**/*.test.ts"], environment: "node" },
+        // Property tests run hundreds of cases; a loaded machine must not make them time out.
+        test: { name: "unit", include: ["tests/unit/**/*.test.ts"], environment: "node", testTimeout: 60_000 },
       },
       {
         extends: true,
@@ -29,9 +30,10 @@ export default defineConfig({
           name: "integration",
           include: ["tests/integration/**/*.test.ts"],
           environment: "node",
-          // One database per run (made by scripts/test.ts or the global setup); files share it.
+          // One database per run (made by scripts/test.ts or the global setup), copied per file.
           fileParallelism: false,
           globalSetup: ["tests/integration/global-setup.ts"],
+          setupFiles: ["tests/integration/per-file-database.ts"],
           testTimeout: 30_000,
           hookTimeout: 60_000,
         },

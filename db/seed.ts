@@ -18,13 +18,15 @@ import {
   memberships,
   organisations,
   patients,
+  checkIns,
+  diaryEntries,
   settings,
   user,
   type NewCatheterEpisode,
   type OrganisationKind,
 } from "./schema";
 import { hashPassword } from "@/lib/auth/password";
-import { planDates } from "@/lib/clinical";
+import { planDates, triageCheckIn, type CheckInAnswers } from "@/lib/clinical";
 
 type Role = "admin" | "clinician" | "patient" | "carer";
 
@@ -226,6 +228,59 @@ export const demoPatients: DemoPatient[] = [
   },
 ];
 
+// Reports from home for patients without a portal account of their own (the team took them by
+// phone): Imran's urgent one puts him on the caseload's urgent filter; Halina keeps a diary.
+// Levels come from lib/clinical's triage, never typed in by hand.
+const demoReports: { hrn: string; key: string; hoursAgo: number; answers: CheckInAnswers }[] = [
+  { hrn: "EM-100-006", key: "seed-check-in-imran-1", hoursAgo: 3, answers: { draining: "less", pain: "severe" } },
+  { hrn: "EM-100-002", key: "seed-check-in-halina-1", hoursAgo: 5 * 24, answers: { draining: "less", pain: "mild" } },
+  { hrn: "EM-100-002", key: "seed-check-in-halina-2", hoursAgo: 26, answers: { draining: "yes", pain: "none", sediment: true } },
+];
+
+async function seedReports(tx: Database) {
+  const latest = new Map<string, { level: string; at: Date }>();
+  for (const r of demoReports) {
+    const [p] = await tx.select({ id: patients.id }).from(patients).where(eq(patients.healthRecordNumber, r.hrn));
+    if (!p) continue;
+    const result = triageCheckIn(r.answers);
+    const at = new Date(Date.now() - r.hoursAgo * 3_600_000);
+    const [row] = await tx
+      .insert(checkIns)
+      .values({ patientId: p.id, answers: { ...r.answers }, level: result.level, ruleIds: result.ruleIds, idempotencyKey: r.key, createdAt: at, updatedAt: at })
+      .onConflictDoNothing({ target: checkIns.idempotencyKey })
+      .returning({ id: checkIns.id });
+    if (!row) continue; // already seeded
+    const prev = latest.get(p.id);
+    if (!prev || prev.at < at) latest.set(p.id, { level: result.level, at });
+    if (r.key === "seed-check-in-halina-1") {
+      // Three days of drinks and bag emptying, at fixed hours of each day.
+      const entries: { kind: "in" | "out"; volumeMl: number; hour: number }[] = [
+        { kind: "in", volumeMl: 250, hour: 8 },
+        { kind: "in", volumeMl: 200, hour: 11 },
+        { kind: "out", volumeMl: 400, hour: 12 },
+        { kind: "in", volumeMl: 300, hour: 14 },
+        { kind: "in", volumeMl: 250, hour: 18 },
+        { kind: "out", volumeMl: 350, hour: 19 },
+      ];
+      for (const daysAgo of [1, 2, 3]) {
+        await tx.insert(diaryEntries).values(
+          entries.map((e, i) => {
+            const when = daysFromToday(-daysAgo);
+            when.setUTCHours(e.hour, 0, 0, 0);
+            return { patientId: p.id, kind: e.kind, volumeMl: e.volumeMl + (daysAgo === 2 && i === 2 ? -100 : 0), at: when };
+          }),
+        );
+      }
+    }
+  }
+  for (const [id, { level, at }] of latest) {
+    await tx
+      .update(patients)
+      .set({ latestCheckInLevel: level as "urgent", latestCheckInAt: at })
+      .where(eq(patients.id, id));
+  }
+}
+
 export async function seed({ quiet = false }: { quiet?: boolean } = {}) {
   const orgIds = new Map<string, string>();
   const userIds = new Map<string, string>();
@@ -315,6 +370,7 @@ export async function seed({ quiet = false }: { quiet?: boolean } = {}) {
         previousUnplanned = unplannedReason;
       }
     }
+    await seedReports(t);
     const arthur = await tx.select({ id: patients.id }).from(patients).where(eq(patients.healthRecordNumber, "EM-100-001"));
     const joan = userIds.get("joan.pell@eastmere.example")!;
     const [link] = await tx

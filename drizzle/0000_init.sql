@@ -57,6 +57,13 @@ CREATE TABLE "verification" (
 	"updated_at" timestamp with time zone DEFAULT now() NOT NULL
 );
 --> statement-breakpoint
+CREATE TABLE "attempt_counters" (
+	"key" text PRIMARY KEY NOT NULL,
+	"count" integer NOT NULL,
+	"window_started_at" timestamp with time zone NOT NULL,
+	CONSTRAINT "attempt_counters_count_ck" CHECK ("attempt_counters"."count" >= 0)
+);
+--> statement-breakpoint
 CREATE TABLE "audit_events" (
 	"id" bigserial PRIMARY KEY NOT NULL,
 	"at" timestamp with time zone DEFAULT now() NOT NULL,
@@ -69,6 +76,16 @@ CREATE TABLE "audit_events" (
 	"reason" text,
 	"ip_hash" text,
 	"details" jsonb DEFAULT '{}'::jsonb NOT NULL,
+	"created_at" timestamp with time zone DEFAULT now() NOT NULL,
+	"updated_at" timestamp with time zone DEFAULT now() NOT NULL
+);
+--> statement-breakpoint
+CREATE TABLE "bag_changes" (
+	"id" uuid PRIMARY KEY DEFAULT gen_random_uuid() NOT NULL,
+	"patient_id" uuid NOT NULL,
+	"kind" text NOT NULL,
+	"changed_on" date NOT NULL,
+	"recorded_by_user_id" text,
 	"created_at" timestamp with time zone DEFAULT now() NOT NULL,
 	"updated_at" timestamp with time zone DEFAULT now() NOT NULL
 );
@@ -88,6 +105,7 @@ CREATE TABLE "carer_links" (
 	"invited_email" text NOT NULL,
 	"invited_by_user_id" text,
 	"invite_token_hash" text,
+	"invite_expires_at" timestamp with time zone,
 	"status" text DEFAULT 'pending' NOT NULL,
 	"accepted_at" timestamp with time zone,
 	"revoked_at" timestamp with time zone,
@@ -157,6 +175,7 @@ CREATE TABLE "check_ins" (
 	"level" text NOT NULL,
 	"rule_ids" text[] NOT NULL,
 	"idempotency_key" text NOT NULL,
+	"answered_at" timestamp with time zone,
 	"reviewed_at" timestamp with time zone,
 	"reviewed_by_user_id" text,
 	"created_at" timestamp with time zone DEFAULT now() NOT NULL,
@@ -221,22 +240,34 @@ CREATE TABLE "organisations" (
 CREATE TABLE "outbound_messages" (
 	"id" uuid PRIMARY KEY DEFAULT gen_random_uuid() NOT NULL,
 	"idempotency_key" text NOT NULL,
+	"message_id" text NOT NULL,
 	"kind" text NOT NULL,
 	"to_address" text NOT NULL,
 	"subject" text NOT NULL,
 	"html" text NOT NULL,
 	"text" text NOT NULL,
 	"attachments" jsonb DEFAULT '[]'::jsonb NOT NULL,
+	"locale" text DEFAULT 'en' NOT NULL,
 	"patient_id" uuid,
 	"organisation_id" uuid,
+	"source_id" text,
+	"resend_of_id" uuid,
+	"created_by_user_id" text,
+	"redact_after_send" boolean DEFAULT false NOT NULL,
 	"status" text DEFAULT 'queued' NOT NULL,
 	"attempts" integer DEFAULT 0 NOT NULL,
 	"last_error" text,
 	"next_attempt_at" timestamp with time zone DEFAULT now() NOT NULL,
+	"claim_token" uuid,
+	"lease_until" timestamp with time zone,
 	"sent_at" timestamp with time zone,
 	"created_at" timestamp with time zone DEFAULT now() NOT NULL,
 	"updated_at" timestamp with time zone DEFAULT now() NOT NULL,
-	CONSTRAINT "outbound_messages_idempotency_key_unique" UNIQUE("idempotency_key")
+	CONSTRAINT "outbound_messages_idempotency_key_unique" UNIQUE("idempotency_key"),
+	CONSTRAINT "outbox_attempts_ck" CHECK ("outbound_messages"."attempts" >= 0),
+	CONSTRAINT "outbox_sent_ck" CHECK ("outbound_messages"."status" <> 'sent' or "outbound_messages"."sent_at" is not null),
+	CONSTRAINT "outbox_sending_ck" CHECK ("outbound_messages"."status" <> 'sending' or ("outbound_messages"."lease_until" is not null and "outbound_messages"."claim_token" is not null)),
+	CONSTRAINT "outbox_to_ck" CHECK ("outbound_messages"."to_address" <> '' or "outbound_messages"."status" = 'failed')
 );
 --> statement-breakpoint
 CREATE TABLE "passports" (
@@ -252,6 +283,20 @@ CREATE TABLE "passports" (
 	"updated_at" timestamp with time zone DEFAULT now() NOT NULL,
 	CONSTRAINT "passports_token_hash_unique" UNIQUE("token_hash"),
 	CONSTRAINT "passports_short_code_hash_unique" UNIQUE("short_code_hash")
+);
+--> statement-breakpoint
+CREATE TABLE "patient_invites" (
+	"id" uuid PRIMARY KEY DEFAULT gen_random_uuid() NOT NULL,
+	"patient_id" uuid NOT NULL,
+	"code_hash" text NOT NULL,
+	"email" text,
+	"created_by_user_id" text,
+	"expires_at" timestamp with time zone NOT NULL,
+	"used_at" timestamp with time zone,
+	"revoked_at" timestamp with time zone,
+	"created_at" timestamp with time zone DEFAULT now() NOT NULL,
+	"updated_at" timestamp with time zone DEFAULT now() NOT NULL,
+	CONSTRAINT "patient_invites_code_hash_unique" UNIQUE("code_hash")
 );
 --> statement-breakpoint
 CREATE TABLE "patients" (
@@ -281,18 +326,27 @@ CREATE TABLE "patients" (
 	CONSTRAINT "patients_fluid_limit_ck" CHECK ("patients"."fluid_limit_ml" is null or "patients"."fluid_limit_ml" > 0)
 );
 --> statement-breakpoint
-CREATE TABLE "request_limits" (
-	"key" text PRIMARY KEY NOT NULL,
-	"window_start" timestamp with time zone NOT NULL,
-	"count" integer NOT NULL,
-	CONSTRAINT "request_limits_count_ck" CHECK ("request_limits"."count" >= 0)
-);
---> statement-breakpoint
 CREATE TABLE "settings" (
 	"key" text PRIMARY KEY NOT NULL,
 	"value" jsonb NOT NULL,
 	"created_at" timestamp with time zone DEFAULT now() NOT NULL,
 	"updated_at" timestamp with time zone DEFAULT now() NOT NULL
+);
+--> statement-breakpoint
+CREATE TABLE "supply_requests" (
+	"id" uuid PRIMARY KEY DEFAULT gen_random_uuid() NOT NULL,
+	"patient_id" uuid NOT NULL,
+	"episode_id" uuid,
+	"gp_practice_id" uuid,
+	"period_days" integer NOT NULL,
+	"items" jsonb NOT NULL,
+	"note" text,
+	"requested_by_user_id" text,
+	"requested_by_name" text NOT NULL,
+	"message_id" uuid,
+	"created_at" timestamp with time zone DEFAULT now() NOT NULL,
+	"updated_at" timestamp with time zone DEFAULT now() NOT NULL,
+	CONSTRAINT "supply_requests_period_ck" CHECK ("supply_requests"."period_days" between 1 and 366)
 );
 --> statement-breakpoint
 CREATE TABLE "uploads" (
@@ -326,6 +380,8 @@ ALTER TABLE "session" ADD CONSTRAINT "session_user_id_user_id_fk" FOREIGN KEY ("
 ALTER TABLE "audit_events" ADD CONSTRAINT "audit_events_actor_user_id_user_id_fk" FOREIGN KEY ("actor_user_id") REFERENCES "public"."user"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "audit_events" ADD CONSTRAINT "audit_events_patient_id_patients_id_fk" FOREIGN KEY ("patient_id") REFERENCES "public"."patients"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "audit_events" ADD CONSTRAINT "audit_events_organisation_id_organisations_id_fk" FOREIGN KEY ("organisation_id") REFERENCES "public"."organisations"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "bag_changes" ADD CONSTRAINT "bag_changes_patient_id_patients_id_fk" FOREIGN KEY ("patient_id") REFERENCES "public"."patients"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "bag_changes" ADD CONSTRAINT "bag_changes_recorded_by_user_id_user_id_fk" FOREIGN KEY ("recorded_by_user_id") REFERENCES "public"."user"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "care_team" ADD CONSTRAINT "care_team_patient_id_patients_id_fk" FOREIGN KEY ("patient_id") REFERENCES "public"."patients"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "care_team" ADD CONSTRAINT "care_team_organisation_id_organisations_id_fk" FOREIGN KEY ("organisation_id") REFERENCES "public"."organisations"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "carer_links" ADD CONSTRAINT "carer_links_patient_id_patients_id_fk" FOREIGN KEY ("patient_id") REFERENCES "public"."patients"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
@@ -347,10 +403,18 @@ ALTER TABLE "memberships" ADD CONSTRAINT "memberships_user_id_user_id_fk" FOREIG
 ALTER TABLE "memberships" ADD CONSTRAINT "memberships_organisation_id_organisations_id_fk" FOREIGN KEY ("organisation_id") REFERENCES "public"."organisations"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "outbound_messages" ADD CONSTRAINT "outbound_messages_patient_id_patients_id_fk" FOREIGN KEY ("patient_id") REFERENCES "public"."patients"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "outbound_messages" ADD CONSTRAINT "outbound_messages_organisation_id_organisations_id_fk" FOREIGN KEY ("organisation_id") REFERENCES "public"."organisations"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "outbound_messages" ADD CONSTRAINT "outbound_messages_created_by_user_id_user_id_fk" FOREIGN KEY ("created_by_user_id") REFERENCES "public"."user"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "passports" ADD CONSTRAINT "passports_patient_id_patients_id_fk" FOREIGN KEY ("patient_id") REFERENCES "public"."patients"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "passports" ADD CONSTRAINT "passports_issued_by_user_id_user_id_fk" FOREIGN KEY ("issued_by_user_id") REFERENCES "public"."user"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "patient_invites" ADD CONSTRAINT "patient_invites_patient_id_patients_id_fk" FOREIGN KEY ("patient_id") REFERENCES "public"."patients"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "patient_invites" ADD CONSTRAINT "patient_invites_created_by_user_id_user_id_fk" FOREIGN KEY ("created_by_user_id") REFERENCES "public"."user"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "patients" ADD CONSTRAINT "patients_user_id_user_id_fk" FOREIGN KEY ("user_id") REFERENCES "public"."user"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "patients" ADD CONSTRAINT "patients_gp_practice_id_organisations_id_fk" FOREIGN KEY ("gp_practice_id") REFERENCES "public"."organisations"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "supply_requests" ADD CONSTRAINT "supply_requests_patient_id_patients_id_fk" FOREIGN KEY ("patient_id") REFERENCES "public"."patients"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "supply_requests" ADD CONSTRAINT "supply_requests_episode_id_catheter_episodes_id_fk" FOREIGN KEY ("episode_id") REFERENCES "public"."catheter_episodes"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "supply_requests" ADD CONSTRAINT "supply_requests_gp_practice_id_organisations_id_fk" FOREIGN KEY ("gp_practice_id") REFERENCES "public"."organisations"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "supply_requests" ADD CONSTRAINT "supply_requests_requested_by_user_id_user_id_fk" FOREIGN KEY ("requested_by_user_id") REFERENCES "public"."user"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "supply_requests" ADD CONSTRAINT "supply_requests_message_id_outbound_messages_id_fk" FOREIGN KEY ("message_id") REFERENCES "public"."outbound_messages"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "uploads" ADD CONSTRAINT "uploads_patient_id_patients_id_fk" FOREIGN KEY ("patient_id") REFERENCES "public"."patients"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "uploads" ADD CONSTRAINT "uploads_uploaded_by_user_id_user_id_fk" FOREIGN KEY ("uploaded_by_user_id") REFERENCES "public"."user"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "visit_access" ADD CONSTRAINT "visit_access_patient_id_patients_id_fk" FOREIGN KEY ("patient_id") REFERENCES "public"."patients"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
@@ -358,9 +422,11 @@ ALTER TABLE "visit_access" ADD CONSTRAINT "visit_access_user_id_user_id_fk" FORE
 CREATE INDEX "account_user_id_idx" ON "account" USING btree ("user_id");--> statement-breakpoint
 CREATE INDEX "session_user_id_idx" ON "session" USING btree ("user_id");--> statement-breakpoint
 CREATE INDEX "verification_identifier_idx" ON "verification" USING btree ("identifier");--> statement-breakpoint
+CREATE INDEX "attempt_counters_window_idx" ON "attempt_counters" USING btree ("window_started_at");--> statement-breakpoint
 CREATE INDEX "audit_patient_idx" ON "audit_events" USING btree ("patient_id","at");--> statement-breakpoint
 CREATE INDEX "audit_actor_idx" ON "audit_events" USING btree ("actor_user_id","at");--> statement-breakpoint
 CREATE INDEX "audit_at_idx" ON "audit_events" USING btree ("at");--> statement-breakpoint
+CREATE INDEX "bag_changes_patient_idx" ON "bag_changes" USING btree ("patient_id","kind","changed_on");--> statement-breakpoint
 CREATE INDEX "care_team_org_idx" ON "care_team" USING btree ("organisation_id","patient_id");--> statement-breakpoint
 CREATE INDEX "carer_links_patient_idx" ON "carer_links" USING btree ("patient_id");--> statement-breakpoint
 CREATE INDEX "carer_links_carer_idx" ON "carer_links" USING btree ("carer_user_id","status");--> statement-breakpoint
@@ -377,11 +443,16 @@ CREATE INDEX "memberships_org_idx" ON "memberships" USING btree ("organisation_i
 CREATE UNIQUE INDEX "organisations_name_kind_uq" ON "organisations" USING btree ("name","kind");--> statement-breakpoint
 CREATE INDEX "organisations_kind_idx" ON "organisations" USING btree ("kind");--> statement-breakpoint
 CREATE INDEX "outbox_status_idx" ON "outbound_messages" USING btree ("status","next_attempt_at");--> statement-breakpoint
+CREATE INDEX "outbox_lease_idx" ON "outbound_messages" USING btree ("lease_until") WHERE "outbound_messages"."status" = 'sending';--> statement-breakpoint
 CREATE INDEX "outbox_patient_idx" ON "outbound_messages" USING btree ("patient_id","created_at");--> statement-breakpoint
+CREATE INDEX "outbox_resend_of_idx" ON "outbound_messages" USING btree ("resend_of_id");--> statement-breakpoint
 CREATE INDEX "passports_patient_idx" ON "passports" USING btree ("patient_id");--> statement-breakpoint
 CREATE UNIQUE INDEX "passports_one_current_uq" ON "passports" USING btree ("patient_id") WHERE "passports"."revoked_at" is null;--> statement-breakpoint
+CREATE INDEX "patient_invites_patient_idx" ON "patient_invites" USING btree ("patient_id");--> statement-breakpoint
+CREATE UNIQUE INDEX "patient_invites_one_live_uq" ON "patient_invites" USING btree ("patient_id") WHERE "patient_invites"."used_at" is null and "patient_invites"."revoked_at" is null;--> statement-breakpoint
 CREATE UNIQUE INDEX "patients_hrn_uq" ON "patients" USING btree ("health_record_number");--> statement-breakpoint
 CREATE INDEX "patients_family_name_idx" ON "patients" USING btree (lower("family_name"));--> statement-breakpoint
 CREATE INDEX "patients_gp_idx" ON "patients" USING btree ("gp_practice_id");--> statement-breakpoint
+CREATE INDEX "supply_requests_patient_idx" ON "supply_requests" USING btree ("patient_id","created_at");--> statement-breakpoint
 CREATE INDEX "uploads_patient_idx" ON "uploads" USING btree ("patient_id","created_at");--> statement-breakpoint
 CREATE INDEX "visit_access_user_patient_idx" ON "visit_access" USING btree ("user_id","patient_id","expires_at");

@@ -11,6 +11,20 @@ const schema = z.object({
   SMTP_URL: z.string().min(1).default("smtp://127.0.0.1:1025"),
   MAIL_FROM: z.string().min(3).default("Caddis <no-reply@caddis.invalid>"),
   MAIL_INBOX_URL: z.url().default("http://127.0.0.1:1080"),
+  // Outbox delivery (lib/jobs/outbox-worker.ts): tries before a message is marked failed, the
+  // first back-off (doubled after each failure, capped), the claim lease, the poll interval.
+  MAIL_MAX_ATTEMPTS: z.coerce.number().int().min(1).max(50).default(8),
+  MAIL_RETRY_BASE_SECONDS: z.coerce.number().min(0.01).max(86_400).default(60),
+  MAIL_RETRY_MAX_SECONDS: z.coerce.number().min(0.01).max(86_400).default(3_600),
+  MAIL_LEASE_SECONDS: z.coerce.number().min(1).max(3_600).default(300),
+  MAIL_POLL_SECONDS: z.coerce.number().min(0.05).max(600).default(5),
+  // A worker that delivers only keys with this prefix (e.g. "care-team-alert:" for an alert lane).
+  MAIL_WORKER_KEY_PREFIX: z.string().default(""),
+  // "off" keeps the outbox worker and schedules out of the Next.js process (run scripts/worker.ts).
+  CADDIS_BACKGROUND: z.enum(["on", "off"]).default("on"),
+  // When the care teams' weekly digest is queued (cron, in CADDIS_TIME_ZONE).
+  DIGEST_CRON: z.string().min(9).default("0 7 * * 1"),
+  CADDIS_TIME_ZONE: z.string().min(1).default("Europe/London"),
   S3_ENDPOINT: z.url().default("http://127.0.0.1:4569"),
   S3_REGION: z.string().default("us-east-1"),
   S3_BUCKET: z.string().default("caddis-uploads"),

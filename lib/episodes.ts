@@ -3,6 +3,7 @@ import "server-only";
 // access check + audit (openPatientRecord), the device checks recomputed here whatever the
 // browser showed, the episode and its event. Any error rolls everything back.
 import { db, type Transaction } from "@/db";
+import { queueGpSummary } from "@/lib/email/gp-summary";
 import {
   closeTrialWithoutCatheter,
   endEpisode,
@@ -153,7 +154,8 @@ export async function recordInsertion(ctx: Ctx, input: InsertionInput): Promise<
       },
       tx,
     );
-    // GP summary is queued here by lib/email (issue 7)
+    // The GP practice hears of it in this same transaction (docs/email.md).
+    await queueGpSummary(tx, { patientId: ctx.patientId, eventId, cause: "insertion", actorName: ctx.viewer.name });
     return { episode: toEpisodeDto(episode), eventId, findings };
   });
 }
@@ -199,7 +201,8 @@ export async function recordChange(ctx: Ctx, input: ChangeInput): Promise<Record
       },
       tx,
     );
-    // GP summary is queued here by lib/email (issue 7)
+    // The GP practice hears of it in this same transaction (docs/email.md).
+    await queueGpSummary(tx, { patientId: ctx.patientId, eventId, cause: "change", actorName: ctx.viewer.name });
     return { episode: toEpisodeDto(episode), eventId, findings, previousEpisodeId: current.id };
   });
 }
@@ -240,7 +243,8 @@ export async function recordRemoval(ctx: Ctx, input: RemovalInput): Promise<Reco
       },
       tx,
     );
-    // GP summary is queued here by lib/email (issue 7)
+    // The GP practice hears of it in this same transaction (docs/email.md).
+    await queueGpSummary(tx, { patientId: ctx.patientId, eventId, cause: "removal", actorName: ctx.viewer.name });
     return { episode: toEpisodeDto(ended), eventId };
   });
 }
@@ -296,7 +300,8 @@ export async function recordTwoc(ctx: Ctx, input: TwocInput): Promise<RecordedTw
       },
       tx,
     );
-    // GP summary is queued here by lib/email (issue 7)
+    // The GP practice hears of it in this same transaction (docs/email.md).
+    await queueGpSummary(tx, { patientId: ctx.patientId, eventId, cause: "twoc", actorName: ctx.viewer.name });
     return {
       episodeId: trial.id,
       eventId,

@@ -1,16 +1,50 @@
 import "server-only";
-// A fixed-window limiter in PostgreSQL, so the limit holds across app instances: one atomic
-// upsert per request (a new window resets the count).
+// Fixed-window counters in PostgreSQL (table attempt_counters) for Caddis's own endpoints that
+// take a guessable secret: activation codes, carer-invitation sign-ins and the passport device
+// card. better-auth's own rate_limit table covers only its endpoints, and calls through
+// auth.api.* are not limited (security-accessibility.md). Keys are per client address (hashed),
+// so nobody can lock a patient out of their account by guessing from elsewhere (ASVS 6.1.1, 2.4.1).
 import { sql } from "drizzle-orm";
-import { db } from "@/db";
+import { db, type Executor } from "@/db";
+import { clientIp, hashIp } from "./client-ip";
+import { AppError } from "./errors";
 
-export async function hitRateLimit({ key, limit, windowSeconds }: { key: string; limit: number; windowSeconds: number }) {
-  const result = await db.execute<{ count: number }>(sql`
-    insert into request_limits (key, window_start, count) values (${key}, now(), 1)
+export type LimitRule = { name: string; max: number; windowSeconds: number };
+
+export const LIMITS = {
+  activate: { name: "activate", max: 10, windowSeconds: 15 * 60 },
+  carerInvite: { name: "carer-invite", max: 10, windowSeconds: 15 * 60 },
+  // A clinician at the door scans once or twice; 30 a minute leaves room for a shared NAT
+  // (a care home, a hospital) while making token guessing pointless (256-bit tokens anyway).
+  passportCard: { name: "card", max: 30, windowSeconds: 60 },
+} as const satisfies Record<string, LimitRule>;
+
+/** Counts one attempt; returns how many were made in the current window. */
+export async function countAttempt({ key, windowSeconds }: { key: string; windowSeconds: number }, tx: Executor = db) {
+  const result = await tx.execute<{ count: number; window_started_at: Date | string }>(sql`
+    insert into attempt_counters (key, count, window_started_at) values (${key}, 1, now())
     on conflict (key) do update set
-      count = case when request_limits.window_start < now() - make_interval(secs => ${windowSeconds}) then 1 else request_limits.count + 1 end,
-      window_start = case when request_limits.window_start < now() - make_interval(secs => ${windowSeconds}) then now() else request_limits.window_start end
-    returning count`);
-  const count = Number(result.rows[0]?.count ?? 0);
-  return { allowed: count <= limit, count };
+      count = case when attempt_counters.window_started_at <= now() - make_interval(secs => ${windowSeconds})
+                   then 1 else attempt_counters.count + 1 end,
+      window_started_at = case when attempt_counters.window_started_at <= now() - make_interval(secs => ${windowSeconds})
+                   then now() else attempt_counters.window_started_at end
+    returning count, window_started_at`);
+  const row = result.rows[0];
+  return { count: Number(row.count), windowStartedAt: new Date(row.window_started_at) };
+}
+
+export type LimitResult = { allowed: boolean; count: number; retryAfterSeconds: number };
+
+/** Counts an attempt from this request's address and says whether it is within the rule. */
+export async function checkAddress(request: Request | { headers: Headers }, rule: LimitRule): Promise<LimitResult> {
+  const key = `${rule.name}:${hashIp(clientIp(request.headers))}`;
+  const { count, windowStartedAt } = await countAttempt({ key, windowSeconds: rule.windowSeconds });
+  const retryAfterSeconds = Math.max(1, Math.ceil((windowStartedAt.getTime() + rule.windowSeconds * 1000 - Date.now()) / 1000));
+  return { allowed: count <= rule.max, count, retryAfterSeconds };
+}
+
+/** As checkAddress, for route handlers: over the limit → 429 with Retry-After. */
+export async function limitByAddress(request: Request | { headers: Headers }, rule: LimitRule) {
+  const { allowed, retryAfterSeconds } = await checkAddress(request, rule);
+  if (!allowed) throw new AppError("rate_limited", undefined, { headers: { "Retry-After": String(retryAfterSeconds) } });
 }

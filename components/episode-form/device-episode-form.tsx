@@ -178,13 +178,23 @@ export function DeviceEpisodeForm({
     setValue("udi", fill.udi, opts);
   };
 
-  const onSubmit = handleSubmit(async (values) => {
-    setFormError(null);
-    const check = runDeviceCheck(values, patient, new Date(values.insertedAt as string), timeZone);
-    const { missing, kept } = reconcileOverrides(
+  const overrideCheck = (values: Values, at: Date) => {
+    const check = runDeviceCheck(values, patient, at, timeZone);
+    return reconcileOverrides(
       check.ok ? check.findings : [],
       Object.entries(overrides).map(([code, reason]) => ({ code, reason })),
     );
+  };
+
+  // Invalid fields and missing override reasons are shown together, not one after the other.
+  const onInvalid = () => {
+    setOverrideErrors(overrideCheck(draft, checkAt).missing);
+    setFormError(tErrors("validation_failed"));
+  };
+
+  const onSubmit = handleSubmit(async (values) => {
+    setFormError(null);
+    const { missing, kept } = overrideCheck(values, new Date(values.insertedAt as string));
     setOverrideErrors(missing);
     if (missing.length) {
       document.querySelector<HTMLTextAreaElement>(`[data-testid="override-${missing[0]}"]`)?.focus();
@@ -210,7 +220,7 @@ export function DeviceEpisodeForm({
         e.code === "conflict" ? t(mode === "change" ? "conflict.change" : "conflict.insertion") : tErrors(e.code as "internal"),
       );
     }
-  });
+  }, onInvalid);
 
   const sizeCh = Number(draft.sizeCh);
   const routineMax = draft.route === "suprapubic" ? DEVICE_RULES.routineMaxChSuprapubic.value : DEVICE_RULES.routineMaxChUrethral.value;
@@ -222,7 +232,9 @@ export function DeviceEpisodeForm({
   }
   const options = <T extends string>(values: readonly T[], group: "route" | "catheterType" | "material" | "lengthCategory" | "gelKind" | "unplannedReason") =>
     values.map((v) => ({ value: v, label: t(`option.${group}.${v}` as "option.route.urethral") }));
-  const planBasis = plan ? t(`plan.basis.${plan.change.basis}`) : "";
+  // A prefilled default the nurse has not changed is not the maker's figure, whatever the field holds.
+  const dwellIsDefault = Boolean(material) && !dwellEdited.current && Number(draft.maxDwellDays) === MATERIAL_SPECS[material as Material].defaultMaxDwellDays;
+  const planBasis = plan ? t(`plan.basis.${dwellIsDefault && plan.change.basis === "maker" ? "material-default" : plan.change.basis}`) : "";
 
   return (
     <form onSubmit={onSubmit} noValidate className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_22rem]" data-testid={`${mode}-form`}>

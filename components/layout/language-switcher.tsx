@@ -11,10 +11,10 @@ export function LanguageSwitcher() {
   const pathname = usePathname();
   const [pending, startTransition] = useTransition();
   return (
-    <label className="flex items-center gap-2 text-sm">
+    <label className="flex flex-wrap items-center gap-2 text-sm">
       <span>{t("language")}</span>
       <select
-        className="min-h-11 rounded-lg border-2 border-stone-line bg-paper-raised px-2"
+        className="min-h-11 max-w-full rounded-lg border-2 border-stone-line bg-paper-raised px-2"
         value={locale}
         disabled={pending}
         onChange={(e) => {

@@ -1,35 +1,42 @@
 import { getTranslations } from "next-intl/server";
 import type { ReactNode } from "react";
+import { CheckInOutboxSync } from "@/components/check-in/outbox-sync";
+import { LifebuoyIcon } from "@/components/portal/nav-icons";
+import { ServiceWorkerRegister } from "@/components/portal/service-worker-register";
 import { LogoMark } from "@/components/ui/logo";
 import { Link } from "@/lib/i18n/navigation";
-import { LanguageSwitcher } from "./language-switcher";
+import { PortalNav } from "./portal-nav";
 
-/** Patient and carer pages: phone first, one column, large type, help always one tap away. */
+/** Patient and carer pages: phone first, one column, large type, "Get help" always one tap away. */
 export async function PortalShell({ children }: { children: ReactNode }) {
-  const t = await getTranslations("Nav");
+  const t = await getTranslations("Portal");
   return (
-    <div className="flex min-h-dvh flex-col text-body">
-      <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:start-2 focus:top-2 focus:bg-paper-raised focus:p-2">
+    <div className="flex min-h-dvh flex-col text-body hyphens-auto [overflow-wrap:anywhere] max-[22em]:[&_.rounded-card]:p-3">
+      <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:start-2 focus:top-2 focus:z-20 focus:bg-paper-raised focus:p-3">
         {t("skip")}
       </a>
-      <header className="flex items-center justify-between gap-3 border-b border-stone-faint bg-paper-raised px-4 py-3">
-        <Link href="/today" className="flex min-h-12 items-center gap-2 text-xl font-bold text-brand">
-          <LogoMark />
-          <span>Caddis</span>
-        </Link>
-        <LanguageSwitcher />
+      <header className="sticky top-0 z-20 border-b border-stone-faint bg-paper-raised">
+        <div className="mx-auto flex max-w-xl flex-wrap items-center justify-between gap-2 px-4 py-2 max-[22em]:justify-center max-[22em]:py-1">
+          <Link href="/today" className="flex min-h-12 items-center gap-2 text-xl font-bold text-brand max-[22em]:hidden">
+            <LogoMark />
+            <span>Caddis</span>
+          </Link>
+          <Link
+            href="/help"
+            className="flex min-h-12 items-center gap-2 rounded-lg border-2 border-level-emergency bg-level-emergency-soft px-4 font-bold text-level-emergency-ink"
+            data-testid="get-help"
+          >
+            <LifebuoyIcon />
+            <span>{t("getHelp")}</span>
+          </Link>
+        </div>
       </header>
-      <main id="main" className="mx-auto w-full max-w-xl flex-1 px-4 pb-28 pt-5">
+      <main id="main" className="mx-auto w-full max-w-xl flex-1 px-4 pb-36 pt-5 max-[22em]:px-2 max-[22em]:pb-8">
         {children}
       </main>
-      <nav aria-label={t("label")} className="fixed inset-x-0 bottom-0 flex border-t border-stone-faint bg-paper-raised">
-        <Link href="/today" className="flex min-h-16 flex-1 items-center justify-center font-bold text-brand">
-          {t("today")}
-        </Link>
-        <Link href="/sign-out" className="flex min-h-16 flex-1 items-center justify-center font-bold text-brand">
-          {t("signOut")}
-        </Link>
-      </nav>
+      <PortalNav />
+      <CheckInOutboxSync />
+      <ServiceWorkerRegister />
     </div>
   );
 }

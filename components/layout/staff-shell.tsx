@@ -2,16 +2,22 @@ import { getTranslations } from "next-intl/server";
 import type { ReactNode } from "react";
 import { LogoMark } from "@/components/ui/logo";
 import type { Role } from "@/lib/auth/session";
-import { Link } from "@/lib/i18n/navigation";
 import { LanguageSwitcher } from "./language-switcher";
+import { NavLink } from "./nav-link";
 
 type Item = { href: string; label: string };
 
 /** Staff pages: a left navigation on wide screens, a bottom bar on phones. */
 export async function StaffShell({ role, name, children }: { role: Role; name: string; children: ReactNode }) {
   const t = await getTranslations("Nav");
+  // Clinicians: the caseload and registering a patient (a "Scan" item joins them here).
   const items: Item[] =
-    role === "admin" ? [{ href: "/admin", label: t("admin") }] : [{ href: "/caseload", label: t("caseload") }];
+    role === "admin"
+      ? [{ href: "/admin", label: t("admin") }]
+      : [
+          { href: "/caseload", label: t("caseload") },
+          { href: "/patients/new", label: t("registerPatient") },
+        ];
   items.push({ href: "/sign-out", label: t("signOut") });
   return (
     <div className="min-h-dvh text-staff md:flex">
@@ -25,9 +31,14 @@ export async function StaffShell({ role, name, children }: { role: Role; name: s
         </div>
         <nav aria-label={t("label")} className="flex flex-col gap-1">
           {items.map((i) => (
-            <Link key={i.href} href={i.href} className="rounded-lg px-3 py-2 font-bold text-brand hover:bg-brand-soft">
+            <NavLink
+              key={i.href}
+              href={i.href}
+              className="rounded-lg px-3 py-2 font-bold text-brand hover:bg-brand-soft"
+              activeClassName="bg-brand-soft underline underline-offset-4"
+            >
               {i.label}
-            </Link>
+            </NavLink>
           ))}
         </nav>
         <div className="mt-auto flex flex-col gap-3 text-sm">
@@ -52,9 +63,14 @@ export async function StaffShell({ role, name, children }: { role: Role; name: s
         className="fixed inset-x-0 bottom-0 flex border-t border-stone-faint bg-paper-raised md:hidden"
       >
         {items.map((i) => (
-          <Link key={i.href} href={i.href} className="flex min-h-14 flex-1 items-center justify-center font-bold text-brand">
+          <NavLink
+            key={i.href}
+            href={i.href}
+            className="flex min-h-14 flex-1 items-center justify-center px-1 text-center text-sm font-bold leading-tight text-brand"
+            activeClassName="bg-brand-soft"
+          >
             {i.label}
-          </Link>
+          </NavLink>
         ))}
       </nav>
     </div>

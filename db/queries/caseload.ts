@@ -1,40 +1,218 @@
 import "server-only";
-import { and, asc, eq, inArray, isNull, sql } from "drizzle-orm";
-import { db } from "@/db";
-import { careTeam, catheterEpisodes, patients } from "@/db/schema";
+// The caseload: patients whose care team includes one of the viewer's organisations, with the
+// catheter in place. One SQL statement per page — the filtered set, its total and the page —
+// whatever the page size (tests/integration/caseload-scale.test.ts counts the queries).
+import { sql, type SQL } from "drizzle-orm";
+import { db, type Executor } from "@/db";
+import { PLAN_DEFAULTS, parseIsoDate, stateFor, worseState, type CaseloadState } from "@/lib/clinical";
+import { deploymentTimeZone, todayIso } from "@/lib/time-zone";
+import type { CaseloadFilter, CaseloadQuery, CaseloadSort, CaseloadView } from "@/lib/validations/caseload";
+
+export type CheckInLevel = "emergency" | "urgent" | "soon" | "self-care";
 
 export type CaseloadRow = {
   patientId: string;
   name: string;
-  route: string | null;
+  givenName: string;
+  familyName: string;
+  healthRecordNumber: string;
+  route: "urethral" | "suprapubic" | null;
   sizeCh: number | null;
-  insertedAt: Date | null;
+  /** Calendar day of insertion in the deployment's time zone. */
+  insertedOn: string | null;
+  daysSinceInsertion: number | null;
   plannedChangeOn: string | null;
   reviewDueOn: string | null;
-  latestCheckInLevel: string | null;
+  changeState: CaseloadState | null;
+  reviewState: CaseloadState | null;
+  /** Worst of change and review (lib/clinical planDates' rule); null with no catheter in place. */
+  state: CaseloadState | null;
+  latestCheckInLevel: CheckInLevel | null;
+  latestCheckInAt: string | null;
+  awaitingTwoc: boolean;
 };
 
-/** Patients whose care team includes one of the organisations, with the catheter in place. One query. */
-export async function listCaseload({ organisationIds, limit = 50 }: { organisationIds: string[]; limit?: number }) {
-  if (organisationIds.length === 0) return [] as CaseloadRow[];
-  const inTeam = db
-    .selectDistinct({ patientId: careTeam.patientId })
-    .from(careTeam)
-    .where(inArray(careTeam.organisationId, organisationIds));
-  return db
-    .select({
-      patientId: patients.id,
-      name: sql<string>`${patients.givenName} || ' ' || ${patients.familyName}`,
-      route: catheterEpisodes.route,
-      sizeCh: catheterEpisodes.sizeCh,
-      insertedAt: catheterEpisodes.insertedAt,
-      plannedChangeOn: catheterEpisodes.plannedChangeOn,
-      reviewDueOn: catheterEpisodes.reviewDueOn,
-      latestCheckInLevel: patients.latestCheckInLevel,
-    })
-    .from(patients)
-    .leftJoin(catheterEpisodes, and(eq(catheterEpisodes.patientId, patients.id), isNull(catheterEpisodes.removedAt)))
-    .where(and(inArray(patients.id, inTeam), isNull(patients.closedAt)))
-    .orderBy(asc(catheterEpisodes.plannedChangeOn), asc(patients.familyName))
-    .limit(limit);
+export type CaseloadPage = { rows: CaseloadRow[]; total: number; page: number; pageSize: number; today: string };
+
+/** Due soon = from today to this many days ahead (today counts), as in lib/clinical planDates. */
+export const DUE_SOON_DAYS = PLAN_DEFAULTS.dueSoonDays.value;
+
+type RawRow = {
+  total: number;
+  patient_id: string | null;
+  given_name: string;
+  family_name: string;
+  health_record_number: string;
+  latest_check_in_level: CheckInLevel | null;
+  latest_check_in_at: string | null;
+  route: "urethral" | "suprapubic" | null;
+  size_ch: number | null;
+  inserted_on: string | null;
+  planned_change_on: string | null;
+  review_due_on: string | null;
+  awaiting_twoc: boolean | null;
+};
+
+// Escapes LIKE wildcards so a search for "50%" or "A_B" means those characters.
+function likePattern(q: string): string {
+  return `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+}
+
+function filterCondition(filter: CaseloadFilter | undefined, today: string): SQL {
+  // The states compare the stored planDates dates with today, as stateFor does: overdue once a
+  // date has passed; due within 7 days from today to today + 7 (either date).
+  switch (filter) {
+    case "overdue":
+      return sql`and (f.planned_change_on < ${today}::date or f.review_due_on < ${today}::date)`;
+    case "due-soon":
+      return sql`and (f.planned_change_on between ${today}::date and ${today}::date + ${DUE_SOON_DAYS}::int
+        or f.review_due_on between ${today}::date and ${today}::date + ${DUE_SOON_DAYS}::int)`;
+    case "urgent":
+      return sql`and f.latest_check_in_level in ('urgent', 'emergency')`;
+    case "twoc":
+      return sql`and f.awaiting_twoc`;
+    default:
+      return sql``;
+  }
+}
+
+function orderBy(sort: CaseloadSort, dir: "asc" | "desc"): SQL {
+  const d = dir === "desc" ? sql`desc` : sql`asc`;
+  // Name as the tie-break, then the id, so pages never overlap or skip a row.
+  const names = sql`lower(f.family_name) ${d}, lower(f.given_name) ${d}, f.patient_id`;
+  switch (sort) {
+    case "name":
+      return sql`order by ${names}`;
+    case "review":
+      return sql`order by f.review_due_on ${d} nulls last, ${names}`;
+    case "days-inserted":
+      // More days since insertion = an earlier insertion.
+      return sql`order by f.inserted_at ${dir === "desc" ? sql`asc` : sql`desc`} nulls last, ${names}`;
+    case "next-change":
+    default:
+      return sql`order by f.planned_change_on ${d} nulls last, ${names}`;
+  }
+}
+
+function caseloadStatement({
+  organisationIds,
+  view,
+  today,
+  timeZone,
+  limit,
+  offset,
+}: {
+  organisationIds: string[];
+  view: CaseloadView;
+  today: string;
+  timeZone: string;
+  limit: number | null;
+  offset: number;
+}): SQL {
+  const orgs = sql`array[${sql.join(
+    organisationIds.map((id) => sql`${id}`),
+    sql`, `,
+  )}]::uuid[]`;
+  const search = view.q
+    ? sql`and (lower(f.given_name || ' ' || f.family_name) like lower(${likePattern(view.q)})
+        or lower(f.family_name || ' ' || f.given_name) like lower(${likePattern(view.q)})
+        or f.health_record_number like upper(${likePattern(view.q)}))`
+    : sql``;
+  return sql`
+    with f as (
+      select p.id as patient_id, p.given_name, p.family_name, p.health_record_number,
+             p.latest_check_in_level, p.latest_check_in_at,
+             e.route, e.size_ch, e.inserted_at, e.planned_change_on, e.review_due_on, e.awaiting_twoc
+      from patients p
+      left join catheter_episodes e on e.patient_id = p.id and e.removed_at is null
+      where p.closed_at is null
+        and exists (select 1 from care_team ct where ct.patient_id = p.id and ct.organisation_id = any(${orgs}))
+    ),
+    filtered as (
+      select f.* from f where true ${search} ${filterCondition(view.filter, today)}
+    ),
+    counted as (select count(*)::int as total from filtered)
+    select counted.total, pg.* from counted
+    left join lateral (
+      select f.patient_id, f.given_name, f.family_name, f.health_record_number,
+             f.latest_check_in_level,
+             to_char(f.latest_check_in_at at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS"Z"') as latest_check_in_at,
+             f.route, f.size_ch,
+             ((f.inserted_at at time zone ${timeZone})::date)::text as inserted_on,
+             f.planned_change_on::text as planned_change_on,
+             f.review_due_on::text as review_due_on,
+             f.awaiting_twoc
+      from filtered f
+      ${orderBy(view.sort, view.dir)}
+      ${limit === null ? sql`` : sql`limit ${limit}`} offset ${offset}
+    ) pg on true`;
+}
+
+function toRow(r: RawRow, today: string): CaseloadRow {
+  const todayDay = parseIsoDate("today", today);
+  const dateState = (d: string | null) => (d ? stateFor(parseIsoDate("date", d) - todayDay, DUE_SOON_DAYS) : null);
+  const changeState = dateState(r.planned_change_on);
+  const reviewState = dateState(r.review_due_on);
+  return {
+    patientId: r.patient_id!,
+    name: `${r.given_name} ${r.family_name}`,
+    givenName: r.given_name,
+    familyName: r.family_name,
+    healthRecordNumber: r.health_record_number,
+    route: r.route,
+    sizeCh: r.size_ch,
+    insertedOn: r.inserted_on,
+    daysSinceInsertion: r.inserted_on ? todayDay - parseIsoDate("insertedOn", r.inserted_on) : null,
+    plannedChangeOn: r.planned_change_on,
+    reviewDueOn: r.review_due_on,
+    changeState,
+    reviewState,
+    state: changeState && reviewState ? worseState(changeState, reviewState) : (changeState ?? reviewState),
+    latestCheckInLevel: r.latest_check_in_level,
+    latestCheckInAt: r.latest_check_in_at,
+    awaitingTwoc: Boolean(r.awaiting_twoc),
+  };
+}
+
+async function run(statement: SQL, today: string, tx: Executor) {
+  const result = await tx.execute<RawRow>(statement);
+  const total = result.rows[0]?.total ?? 0;
+  const rows = result.rows.filter((r) => r.patient_id !== null).map((r) => toRow(r, today));
+  return { rows, total };
+}
+
+/** One page of the caseload, with the total of the filtered set. One query. */
+export async function listCaseload(
+  { organisationIds, query, today = todayIso() }: { organisationIds: string[]; query: CaseloadQuery; today?: string },
+  tx: Executor = db,
+): Promise<CaseloadPage> {
+  const base = { page: query.page, pageSize: query.pageSize, today };
+  if (organisationIds.length === 0) return { rows: [], total: 0, ...base };
+  const { rows, total } = await run(
+    caseloadStatement({
+      organisationIds,
+      view: query,
+      today,
+      timeZone: deploymentTimeZone(),
+      limit: query.pageSize,
+      offset: (query.page - 1) * query.pageSize,
+    }),
+    today,
+    tx,
+  );
+  return { rows, total, ...base };
+}
+
+/** Every row of the filtered view, in the same order (for the CSV export). One query. */
+export async function listCaseloadAll(
+  { organisationIds, view, today = todayIso(), max = 50_000 }: { organisationIds: string[]; view: CaseloadView; today?: string; max?: number },
+  tx: Executor = db,
+): Promise<{ rows: CaseloadRow[]; total: number; today: string }> {
+  if (organisationIds.length === 0) return { rows: [], total: 0, today };
+  const { rows, total } = await run(
+    caseloadStatement({ organisationIds, view, today, timeZone: deploymentTimeZone(), limit: max, offset: 0 }),
+    today,
+    tx,
+  );
+  return { rows, total, today };
 }

@@ -37,3 +37,29 @@ export async function getTodaySummary({ patientId }: { patientId: string }) {
     );
   return { patient, episode: episode ?? null, lastCheckIn: lastCheckIn ?? null, team };
 }
+
+/** My catheter: the device in place, in the words the patient page needs (no staff notes). */
+export async function getMyCatheter({ patientId }: { patientId: string }) {
+  const [episode] = await db
+    .select({
+      route: catheterEpisodes.route,
+      catheterType: catheterEpisodes.catheterType,
+      material: catheterEpisodes.material,
+      lengthCategory: catheterEpisodes.lengthCategory,
+      sizeCh: catheterEpisodes.sizeCh,
+      balloonMl: catheterEpisodes.balloonMl,
+      maker: catheterEpisodes.maker,
+      insertedAt: catheterEpisodes.insertedAt,
+      insertedByName: catheterEpisodes.insertedByName,
+      plannedChangeOn: catheterEpisodes.plannedChangeOn,
+      reviewDueOn: catheterEpisodes.reviewDueOn,
+      awaitingTwoc: catheterEpisodes.awaitingTwoc,
+    })
+    .from(catheterEpisodes)
+    .where(and(eq(catheterEpisodes.patientId, patientId), isNull(catheterEpisodes.removedAt)));
+  const [allergies] = await db
+    .select({ latex: patients.allergyLatex, chlorhexidine: patients.allergyChlorhexidine, lidocaine: patients.allergyLidocaine, other: patients.allergyOther })
+    .from(patients)
+    .where(eq(patients.id, patientId));
+  return { episode: episode ?? null, allergies: allergies ?? null };
+}

@@ -133,6 +133,7 @@ export const carerLinks = pgTable(
     invitedEmail: text("invited_email").notNull(),
     invitedByUserId: text("invited_by_user_id").references(() => user.id, { onDelete: "set null" }),
     inviteTokenHash: text("invite_token_hash").unique(),
+    inviteExpiresAt: timestamp("invite_expires_at", { withTimezone: true }),
     status: text("status", { enum: ["pending", "active", "revoked"] }).notNull().default("pending"),
     acceptedAt: timestamp("accepted_at", { withTimezone: true }),
     revokedAt: timestamp("revoked_at", { withTimezone: true }),
@@ -296,6 +297,8 @@ export const checkIns = pgTable(
     level: text("level", { enum: checkInLevels }).notNull(),
     ruleIds: text("rule_ids").array().notNull(),
     idempotencyKey: text("idempotency_key").notNull().unique(),
+    // When the person answered, as the phone tells it (an offline check-in arrives later).
+    answeredAt: timestamp("answered_at", { withTimezone: true }),
     reviewedAt: timestamp("reviewed_at", { withTimezone: true }),
     reviewedByUserId: text("reviewed_by_user_id").references(() => user.id, { onDelete: "set null" }),
     ...timestamps,
@@ -345,32 +348,93 @@ export const uploads = pgTable(
   ],
 );
 
+export const outboundStatuses = ["queued", "sending", "sent", "failed"] as const;
+export type OutboundStatus = (typeof outboundStatuses)[number];
+/** Rendered at send time from its descriptor, so the outbox row stays small. */
+export type AttachmentDescriptor = { kind: string; filename: string; params: Record<string, string> };
+
 export const outboundMessages = pgTable(
   "outbound_messages",
   {
     id: uuid("id").primaryKey().defaultRandom(),
     // One message per causing event: a retry of the same event cannot queue a second copy.
     idempotencyKey: text("idempotency_key").notNull().unique(),
+    // The RFC 5322 Message-ID, derived from the idempotency key: a copy sent twice (a worker
+    // killed after the server accepted it) carries the same id and is recognisable.
+    messageId: text("message_id").notNull(),
     kind: text("kind").notNull(),
     toAddress: text("to_address").notNull(),
     subject: text("subject").notNull(),
     html: text("html").notNull(),
     text: text("text").notNull(),
-    attachments: jsonb("attachments").$type<{ kind: string; filename: string; params: Record<string, string> }[]>()
+    attachments: jsonb("attachments").$type<AttachmentDescriptor[]>()
       .notNull()
       .default(sql`'[]'::jsonb`),
+    locale: text("locale").notNull().default("en"),
     patientId: uuid("patient_id").references(() => patients.id, { onDelete: "cascade" }),
+    // The receiving organisation (GP practice, care team), so a resend goes to its current inbox.
     organisationId: uuid("organisation_id").references(() => organisations.id, { onDelete: "set null" }),
-    status: text("status", { enum: ["queued", "sending", "sent", "failed"] }).notNull().default("queued"),
+    // What caused it (an episode event, passport, check-in, supply request…), for the record.
+    sourceId: text("source_id"),
+    resendOfId: uuid("resend_of_id"),
+    createdByUserId: text("created_by_user_id").references(() => user.id, { onDelete: "set null" }),
+    // Bodies holding a one-time secret (an activation code, an invitation link) are blanked once
+    // sent, so the secret does not stay readable in the record; such a message is never resent.
+    redactAfterSend: boolean("redact_after_send").notNull().default(false),
+    status: text("status", { enum: outboundStatuses }).notNull().default("queued"),
     attempts: integer("attempts").notNull().default(0),
     lastError: text("last_error"),
     nextAttemptAt: timestamp("next_attempt_at", { withTimezone: true }).notNull().defaultNow(),
+    // While 'sending': the claim of one worker. A worker that dies leaves the lease to run out,
+    // and the message is claimed again (at-least-once; see docs/email.md).
+    claimToken: uuid("claim_token"),
+    leaseUntil: timestamp("lease_until", { withTimezone: true }),
     sentAt: timestamp("sent_at", { withTimezone: true }),
     ...timestamps,
   },
   (t) => [
     index("outbox_status_idx").on(t.status, t.nextAttemptAt),
+    index("outbox_lease_idx").on(t.leaseUntil).where(sql`${t.status} = 'sending'`),
     index("outbox_patient_idx").on(t.patientId, t.createdAt),
+    index("outbox_resend_of_idx").on(t.resendOfId),
+    check("outbox_attempts_ck", sql`${t.attempts} >= 0`),
+    check("outbox_sent_ck", sql`${t.status} <> 'sent' or ${t.sentAt} is not null`),
+    check("outbox_sending_ck", sql`${t.status} <> 'sending' or (${t.leaseUntil} is not null and ${t.claimToken} is not null)`),
+    check("outbox_to_ck", sql`${t.toAddress} <> '' or ${t.status} = 'failed'`),
+  ],
+);
+
+export const supplyItemKinds = ["catheter", "leg-bag", "night-bag", "valve", "gel"] as const;
+export type SupplyRequestItem = {
+  item: (typeof supplyItemKinds)[number];
+  /** From lib/clinical suppliesFor for the period. */
+  computed: number;
+  /** What the nurse asked for after review. */
+  quantity: number;
+  intervalDays: number;
+};
+
+// A request to the GP practice to prescribe supplies for a period, kept in the record.
+export const supplyRequests = pgTable(
+  "supply_requests",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    patientId: uuid("patient_id")
+      .notNull()
+      .references(() => patients.id, { onDelete: "cascade" }),
+    episodeId: uuid("episode_id").references(() => catheterEpisodes.id, { onDelete: "set null" }),
+    gpPracticeId: uuid("gp_practice_id").references(() => organisations.id, { onDelete: "set null" }),
+    periodDays: integer("period_days").notNull(),
+    items: jsonb("items").$type<SupplyRequestItem[]>().notNull(),
+    note: text("note"),
+    requestedByUserId: text("requested_by_user_id").references(() => user.id, { onDelete: "set null" }),
+    requestedByName: text("requested_by_name").notNull(),
+    messageId: uuid("message_id").references(() => outboundMessages.id, { onDelete: "set null" }),
+    ...timestamps,
+  },
+  (t) => [
+    index("supply_requests_patient_idx").on(t.patientId, t.createdAt),
+    check("supply_requests_period_ck", sql`${t.periodDays} between 1 and 366`),
   ],
 );
 
@@ -418,23 +482,67 @@ export const visitAccess = pgTable(
   (t) => [index("visit_access_user_patient_idx").on(t.userId, t.patientId, t.expiresAt)],
 );
 
-// Fixed-window request counters shared by every app instance (the passport card limiter).
-export const requestLimits = pgTable(
-  "request_limits",
-  {
-    key: text("key").primaryKey(),
-    windowStart: timestamp("window_start", { withTimezone: true }).notNull(),
-    count: integer("count").notNull(),
-  },
-  (t) => [check("request_limits_count_ck", sql`${t.count} >= 0`)],
-);
-
 // Deployment-wide settings (emergency number, default intervals…), one row per key.
 export const settings = pgTable("settings", {
   key: text("key").primaryKey(),
   value: jsonb("value").notNull(),
   ...timestamps,
 });
+
+// One-time codes a clinician gives a patient to open their portal account. Only an HMAC of the
+// code is kept; a code is used once, expires, and a newer code for the same patient revokes it.
+export const patientInvites = pgTable(
+  "patient_invites",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    patientId: uuid("patient_id")
+      .notNull()
+      .references(() => patients.id, { onDelete: "cascade" }),
+    codeHash: text("code_hash").notNull().unique(),
+    // When given, the patient must activate with this address.
+    email: text("email"),
+    createdByUserId: text("created_by_user_id").references(() => user.id, { onDelete: "set null" }),
+    expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
+    usedAt: timestamp("used_at", { withTimezone: true }),
+    revokedAt: timestamp("revoked_at", { withTimezone: true }),
+    ...timestamps,
+  },
+  (t) => [
+    index("patient_invites_patient_idx").on(t.patientId),
+    uniqueIndex("patient_invites_one_live_uq").on(t.patientId).where(sql`${t.usedAt} is null and ${t.revokedAt} is null`),
+  ],
+);
+
+export const bagKinds = ["leg-bag", "valve"] as const;
+
+// "I changed my leg bag / valve today", logged by the patient or carer; the next change is
+// worked out by lib/clinical nextBagChange from the latest row of each kind.
+export const bagChanges = pgTable(
+  "bag_changes",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    patientId: uuid("patient_id")
+      .notNull()
+      .references(() => patients.id, { onDelete: "cascade" }),
+    kind: text("kind", { enum: bagKinds }).notNull(),
+    changedOn: date("changed_on").notNull(),
+    recordedByUserId: text("recorded_by_user_id").references(() => user.id, { onDelete: "set null" }),
+    ...timestamps,
+  },
+  (t) => [index("bag_changes_patient_idx").on(t.patientId, t.kind, t.changedOn)],
+);
+
+// Fixed-window attempt counters for our own endpoints (activation codes, carer invitations,
+// the passport device card), in PostgreSQL so limits hold across app instances. better-auth's rate_limit is its own.
+export const attemptCounters = pgTable(
+  "attempt_counters",
+  {
+    key: text("key").primaryKey(),
+    count: integer("count").notNull(),
+    windowStartedAt: timestamp("window_started_at", { withTimezone: true }).notNull(),
+  },
+  (t) => [index("attempt_counters_window_idx").on(t.windowStartedAt), check("attempt_counters_count_ck", sql`${t.count} >= 0`)],
+);
 
 export type Organisation = typeof organisations.$inferSelect;
 export type NewOrganisation = typeof organisations.$inferInsert;
@@ -452,6 +560,10 @@ export type DiaryEntry = typeof diaryEntries.$inferSelect;
 export type Upload = typeof uploads.$inferSelect;
 export type OutboundMessage = typeof outboundMessages.$inferSelect;
 export type NewOutboundMessage = typeof outboundMessages.$inferInsert;
+export type SupplyRequest = typeof supplyRequests.$inferSelect;
+export type NewSupplyRequest = typeof supplyRequests.$inferInsert;
 export type AuditEvent = typeof auditEvents.$inferSelect;
 export type NewAuditEvent = typeof auditEvents.$inferInsert;
 export type VisitAccess = typeof visitAccess.$inferSelect;
+export type PatientInvite = typeof patientInvites.$inferSelect;
+export type BagChange = typeof bagChanges.$inferSelect;

@@ -41,6 +41,37 @@ export async function requireStaffPatientAccess(viewer: Viewer, patientId: strin
   return requirePatientAccess(viewer, patientId);
 }
 
+/** Portal route handlers: a patient or carer (staff are refused with 403). */
+export async function requirePortalViewer(request: Request): Promise<Viewer> {
+  return requireRole(request, "patient", "carer");
+}
+
+/**
+ * The patient themselves or an actively linked carer, else 404. Staff reach the same data
+ * through their own record pages, with their own audit.
+ */
+export async function requirePortalPatient(viewer: Viewer, patientId: string): Promise<"self" | "carer"> {
+  assertRole(viewer, "patient", "carer");
+  const via = await requirePatientAccess(viewer, patientId);
+  if (via !== "self" && via !== "carer") throw new AppError("not_found");
+  return via;
+}
+
+/** Inviting and removing carers: the patient themselves, or a clinician of the care team; carers and admins may not. */
+export async function requireCarerManager(viewer: Viewer, patientId: string): Promise<"self" | "care_team"> {
+  if (viewer.role === "patient") {
+    const via = await requirePortalPatient(viewer, patientId);
+    if (via !== "self") throw new AppError("not_found");
+    return "self";
+  }
+  if (viewer.role === "clinician") {
+    const via = await requireStaffPatientAccess(viewer, patientId);
+    if (via !== "care_team") throw new AppError("forbidden");
+    return "care_team";
+  }
+  throw new AppError("forbidden");
+}
+
 /** An admin of one of the patient's organisations (data export, audit search). */
 export async function requireAdminOfPatient(viewer: Viewer, patientId: string) {
   assertRole(viewer, "admin");

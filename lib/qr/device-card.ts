@@ -4,10 +4,9 @@ import "server-only";
 import { findCurrentPassportByToken, getDeviceCard, type DeviceCard } from "@/db/queries/passport-card";
 import { audit } from "@/lib/audit";
 import type { Viewer } from "@/lib/auth/session";
-import { clientIp, hashIp } from "@/lib/client-ip";
-import { hitRateLimit } from "@/lib/rate-limit";
+import { checkAddress, LIMITS } from "@/lib/rate-limit";
 
-export const CARD_LIMIT = { limit: 30, windowSeconds: 60 } as const;
+export const CARD_LIMIT = LIMITS.passportCard;
 
 export type CardResult = { kind: "ok"; card: DeviceCard } | { kind: "invalid" } | { kind: "limited" };
 
@@ -20,8 +19,7 @@ export async function openDeviceCard({
   request: { headers: Headers };
   viewer: Viewer | null;
 }): Promise<CardResult> {
-  const key = `card:${hashIp(clientIp(request.headers))}`;
-  const { allowed } = await hitRateLimit({ key, ...CARD_LIMIT });
+  const { allowed } = await checkAddress(request, CARD_LIMIT);
   if (!allowed) return { kind: "limited" };
   const passport = await findCurrentPassportByToken({ token });
   if (!passport) {

@@ -2,7 +2,8 @@
 // into the scan field, the latex stop for a latex-allergic patient, its override, the save and
 // the record; the camera reading a GS1 DataMatrix; and screenshots of every form.
 import { randomUUID } from "node:crypto";
-import { and, eq, isNull } from "drizzle-orm";
+import { and, eq, inArray, isNull } from "drizzle-orm";
+import AxeBuilder from "@axe-core/playwright";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db, pool } from "@/db";
@@ -19,6 +20,7 @@ const BRACKETED = "(01)09506000134352(17)281100(10)AB12(21)XYZ";
 
 let browser: Browser;
 let harbourside: string;
+const created: string[] = [];
 
 async function makePatient(opts: { latex?: boolean; familyName?: string } = {}) {
   const [p] = await db
@@ -32,6 +34,7 @@ async function makePatient(opts: { latex?: boolean; familyName?: string } = {}) 
       allergyLatex: opts.latex ?? false,
     })
     .returning({ id: patients.id });
+  created.push(p.id);
   await db.insert(careTeam).values({ patientId: p.id, organisationId: harbourside });
   return p.id;
 }
@@ -95,6 +98,8 @@ beforeAll(async () => {
 });
 afterAll(async () => {
   await browser?.close();
+  // Other tests read the demo caseloads: leave no test patient behind.
+  if (created.length) await db.delete(patients).where(inArray(patients.id, created));
   await pool.end();
 });
 
@@ -103,8 +108,8 @@ describe("recording an insertion in Chromium", () => {
     const patientId = await makePatient({ latex: true });
     const page = await nurse();
     await page.goto(`/en/patients/${patientId}/record/insertion`);
-    await expect.poll(() => page.locator("h1").first().textContent()).toBe("Record an insertion");
-    await expect.poll(() => page.getByTestId("allergies").textContent()).toContain("Latex");
+    await expect.poll(() => page.getByTestId("record-title").textContent()).toBe("Record an insertion");
+    await expect.poll(() => page.getByTestId("allergy-box").textContent()).toContain("Latex");
 
     // A USB scanner types the element string; the group separator arrives as Ctrl+] and the scan ends with Enter.
     const scan = page.getByTestId("scan-input");
@@ -182,6 +187,46 @@ describe("recording an insertion in Chromium", () => {
     await expect.poll(() => page.getByTestId("scan-errors").textContent()).toContain("check digit is wrong");
     expect(await page.getByTestId("field-gtin").inputValue()).toBe("");
     expect(await page.getByTestId("field-lot").inputValue()).toBe("AB12");
+    await page.context().close();
+  });
+});
+
+describe("scanner input variants and accessibility", () => {
+  it("accepts the group separator typed as ASCII 29 itself, and shows it as a visible mark", async () => {
+    const patientId = await makePatient();
+    const page = await nurse();
+    await page.goto(`/en/patients/${patientId}/record/insertion`);
+    await page.getByTestId("scan-input").click();
+    await page.keyboard.insertText(`${LABEL_BEFORE_GS}\u001d${LABEL_AFTER_GS}`);
+    expect(await page.getByTestId("scan-input").inputValue()).toBe(`${LABEL_BEFORE_GS}\u241d${LABEL_AFTER_GS}`);
+    await page.keyboard.press("Enter");
+    await expect.poll(() => page.getByTestId("field-serial").inputValue()).toBe("XYZ");
+    expect(await page.getByTestId("field-lot").inputValue()).toBe("AB12");
+    await page.context().close();
+  });
+
+  it("the insertion form with a stop finding passes axe (WCAG 2.2 AA rules), in en and ar", async () => {
+    const patientId = await makePatient({ latex: true });
+    const page = await nurse();
+    for (const locale of ["en", "ar"]) {
+      await page.goto(`/${locale}/patients/${patientId}/record/insertion`);
+      await page.locator('input[value="urethral"]').check();
+      await page.locator('input[value="two-way"]').check();
+      await page.locator('select[name="lengthCategory"]').selectOption("standard");
+      await page.locator('input[name="sizeCh"]').fill("14");
+      await page.locator('input[name="balloonMl"]').fill("10");
+      await page.locator('select[name="material"]').selectOption("latex");
+      await page.locator('select[name="gelKind"]').selectOption("none");
+      await expect.poll(() => page.getByTestId("finding-latex-allergy").count()).toBe(1);
+      await page.getByTestId("save").click();
+      await page.getByTestId("form-error").waitFor();
+      // Field errors and the missing override reason are shown at once.
+      expect(await page.getByTestId("finding-latex-allergy").textContent()).toMatch(/10/);
+      await screenshot(page, `episode-insertion-invalid-${locale}`);
+      const result = await new AxeBuilder({ page }).withTags(["wcag2a", "wcag2aa", "wcag21aa", "wcag22aa"]).analyze();
+      const problems = result.violations.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`);
+      expect(problems, locale).toEqual([]);
+    }
     await page.context().close();
   });
 });

@@ -68,6 +68,7 @@ describe("episode writes are all or nothing", () => {
       expect(await snapshot(p.id)).toEqual(before);
     } finally {
       failing.on = false;
+      await db.delete(patients).where(eq(patients.id, p.id));
     }
   });
 });

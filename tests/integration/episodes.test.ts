@@ -2,8 +2,8 @@
 // on the real database: happy paths, refusals with field errors and nothing written, the
 // server-side device checks with their overrides, and who may write (ASVS 8.2.1, 8.2.2, 8.4.1).
 import { randomUUID } from "node:crypto";
-import { and, count, eq, isNull } from "drizzle-orm";
-import { beforeAll, describe, expect, it } from "vitest";
+import { and, count, eq, inArray, isNull } from "drizzle-orm";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { POST as postInsertion } from "@/app/api/patients/[patientId]/episodes/route";
 import { POST as postChange } from "@/app/api/patients/[patientId]/episodes/change/route";
 import { POST as postCheck } from "@/app/api/patients/[patientId]/episodes/check/route";
@@ -64,6 +64,7 @@ function insertionBody(over: Record<string, unknown> = {}) {
 let harbourside: string;
 let larch: string;
 let arthurId: string;
+const created: string[] = [];
 
 /** A patient of our own, so the demo patients other tests read stay as seeded. */
 async function makePatient(opts: { sex?: "male" | "female"; latex?: boolean; teams?: string[] } = {}) {
@@ -78,6 +79,7 @@ async function makePatient(opts: { sex?: "male" | "female"; latex?: boolean; tea
       allergyLatex: opts.latex ?? false,
     })
     .returning({ id: patients.id });
+  created.push(p.id);
   for (const org of opts.teams ?? [harbourside]) await db.insert(careTeam).values({ patientId: p.id, organisationId: org });
   return p.id;
 }
@@ -116,6 +118,11 @@ beforeAll(async () => {
   larch = orgs.find((o) => o.name === "Larch Ward")!.id;
   const [arthur] = await db.select({ id: patients.id }).from(patients).where(eq(patients.healthRecordNumber, "EM-100-001"));
   arthurId = arthur.id;
+});
+
+// Other files read the demo caseloads: leave no test patient behind (episodes and events cascade).
+afterAll(async () => {
+  if (created.length) await db.delete(patients).where(inArray(patients.id, created));
 });
 
 describe("POST /api/patients/[patientId]/episodes (insertion)", () => {

@@ -49,8 +49,8 @@ describe("device card", () => {
 
   it("limits requests per address and reports it", async () => {
     const results = [];
-    for (let i = 0; i <= CARD_LIMIT.limit; i++) results.push((await openDeviceCard({ token: generateToken(), request: from("10.50.0.3"), viewer: null })).kind);
-    expect(results.slice(0, CARD_LIMIT.limit).every((k) => k === "invalid")).toBe(true);
+    for (let i = 0; i <= CARD_LIMIT.max; i++) results.push((await openDeviceCard({ token: generateToken(), request: from("10.50.0.3"), viewer: null })).kind);
+    expect(results.slice(0, CARD_LIMIT.max).every((k) => k === "invalid")).toBe(true);
     expect(results.at(-1)).toBe("limited");
     // Another address is not affected.
     expect((await openDeviceCard({ token: current, request: from("10.50.0.4"), viewer: null })).kind).toBe("ok");

@@ -20,12 +20,16 @@ export function request(pathname: string, init: Init = {}): Request {
   return new Request(new URL(pathname, origin), { method, headers, body });
 }
 
-type RouteContext = { params: Promise<Record<string, string | string[]>> };
-type Handler = (req: Request, ctx: RouteContext) => Promise<Response>;
+// Generic over the handler's params, so a handler typed `{ params: Promise<{ patientId: string }> }` fits.
+type Handler<P> = (req: Request, ctx: { params: Promise<P> }) => Promise<Response>;
 
 /** Calls a route handler; params are the dynamic segments of its folder. */
-export function call(handler: Handler, pathname: string, init: Init & { params?: Record<string, string | string[]> } = {}) {
-  return handler(request(pathname, init), { params: Promise.resolve(init.params ?? {}) });
+export function call<P = Record<string, string | string[]>>(
+  handler: Handler<P>,
+  pathname: string,
+  init: Init & { params?: Partial<P> } = {},
+) {
+  return handler(request(pathname, init), { params: Promise.resolve((init.params ?? {}) as P) });
 }
 
 let ipCounter = 10;

@@ -6,8 +6,8 @@ import { LogoMark } from "@/components/ui/logo";
 export default async function AuthLayout({ children }: { children: ReactNode }) {
   const t = await getTranslations("Common");
   return (
-    <div className="flex min-h-dvh flex-col">
-      <header className="flex items-center justify-between gap-4 px-5 py-4">
+    <div className="flex min-h-dvh flex-col [overflow-wrap:anywhere]">
+      <header className="flex flex-wrap items-center justify-between gap-4 px-5 py-4">
         <div className="flex items-center gap-2 text-2xl font-bold text-brand">
           <LogoMark className="h-9 w-9" />
           <span>Caddis</span>

@@ -57,11 +57,51 @@ export const matrix: Row[] = [
   { route: "GET /api/caseload", expect: clinicianOnly },
   { route: "GET /api/admin/organisations", expect: adminOnly },
   { route: "GET /api/portal/today", expect: portalOnly },
+  // Portal (patients and carers); the data-level cases (other patient 404, revoked carer 404)
+  // are in tests/integration/portal-api.test.ts, which sends real bodies.
+  { route: "POST /api/check-ins", expect: portalOnly },
+  { route: "GET /api/diary", expect: portalOnly },
+  { route: "POST /api/diary", expect: portalOnly },
+  {
+    route: "DELETE /api/diary/[id]",
+    params: () => ({ id: "00000000-0000-4000-8000-000000000000" }),
+    expect: { anonymous: 401, admin: 403, careTeamClinician: 403, otherClinician: 403, patient: 404, otherPatient: 404, carer: 404 },
+  },
+  { route: "POST /api/bag-changes", expect: portalOnly },
+  // Public by design: a code or token is the proof; limited per address (lib/rate-limit.ts).
+  { route: "POST /api/activate", expect: { anonymous: "allowed", admin: "allowed", careTeamClinician: "allowed", otherClinician: "allowed", patient: "allowed", otherPatient: "allowed", carer: "allowed" } },
+  { route: "POST /api/carer-invites/accept", expect: { anonymous: "allowed", admin: "allowed", careTeamClinician: "allowed", otherClinician: "allowed", patient: "allowed", otherPatient: "allowed", carer: "allowed" } },
+  { route: "POST /api/patients/[patientId]/invite", params: patient, expect: staffOnPatient },
+  {
+    route: "POST /api/patients/[patientId]/carers",
+    params: patient,
+    expect: { anonymous: 401, admin: 403, careTeamClinician: "allowed", otherClinician: 404, patient: "allowed", otherPatient: 404, carer: 403 },
+  },
+  {
+    route: "DELETE /api/patients/[patientId]/carers/[linkId]",
+    params: (f) => ({ patientId: f.patientId, linkId: "not-a-link" }),
+    expect: { anonymous: 401, admin: 403, careTeamClinician: "allowed", otherClinician: 404, patient: "allowed", otherPatient: 404, carer: 403 },
+  },
   { route: "POST /api/patients/[patientId]/episodes", params: patient, expect: staffOnPatient },
   { route: "POST /api/patients/[patientId]/episodes/change", params: patient, expect: staffOnPatient },
   { route: "POST /api/patients/[patientId]/episodes/removal", params: patient, expect: staffOnPatient },
   { route: "POST /api/patients/[patientId]/episodes/twoc", params: patient, expect: staffOnPatient },
   { route: "POST /api/patients/[patientId]/episodes/check", params: patient, expect: staffOnPatient },
+  // Clinician workspace: caseload export, registration, the record's details, history, access log.
+  { route: "GET /api/caseload/export", expect: clinicianOnly },
+  {
+    route: "GET /api/gp-practices",
+    expect: { anonymous: 401, admin: "allowed", careTeamClinician: "allowed", otherClinician: "allowed", patient: 403, otherPatient: 403, carer: 403 },
+  },
+  { route: "POST /api/patients", expect: clinicianOnly },
+  { route: "GET /api/patients/[patientId]", params: patient, expect: staffOnPatient },
+  { route: "PATCH /api/patients/[patientId]", params: patient, expect: staffOnPatient },
+  { route: "GET /api/patients/[patientId]/history", params: patient, expect: staffOnPatient },
+  { route: "GET /api/patients/[patientId]/access-log", params: patient, expect: staffOnPatient },
+  { route: "GET /api/patients/[patientId]/messages", params: patient, expect: staffOnPatient },
+  { route: "POST /api/patients/[patientId]/messages/[messageId]/resend", exempt: "needs a message of the patient: its full matrix is in letters-supplies.test.ts" },
+  { route: "GET /api/patients/[patientId]/supply-requests", params: patient, expect: staffOnPatient },
+  { route: "POST /api/patients/[patientId]/supply-requests", params: patient, expect: staffOnPatient },
   // Any clinician may ask, holding the passport's token; the grant itself is tested in passport-card.test.ts.
   { route: "POST /api/visit-access", expect: clinicianOnly },
 ];

@@ -1,60 +1,112 @@
 import { getFormatter, getTranslations } from "next-intl/server";
+import { LevelBadge } from "@/components/portal/level-badge";
+import { PatientSwitcher } from "@/components/portal/patient-switcher";
+import { BagChangeButtons } from "@/components/today/bag-change-buttons";
 import { Card } from "@/components/ui/card";
+import { getLastBagChanges } from "@/db/queries/bag-changes";
 import { getTodaySummary } from "@/db/queries/portal";
 import { requirePageRole } from "@/lib/auth/permissions";
+import { LEVEL_STEP_KEY } from "@/lib/check-in-flow";
+import { BAG_INTERVALS, bagSchedule, parseIsoDate } from "@/lib/clinical";
+import { Link } from "@/lib/i18n/navigation";
+import { todayIn } from "@/lib/local-date";
+import { portalPatient, portalPatients, subjectName } from "@/lib/portal";
 
 export async function generateMetadata() {
   const t = await getTranslations("Today");
   return { title: t("title") };
 }
 
-export default async function TodayPage({ params }: { params: Promise<{ locale: string }> }) {
+export default async function TodayPage({ params, searchParams }: { params: Promise<{ locale: string }>; searchParams: Promise<{ patient?: string }> }) {
   const { locale } = await params;
   const viewer = await requirePageRole(locale, "patient", "carer");
   const t = await getTranslations("Today");
+  const tc = await getTranslations("CheckIn");
   const format = await getFormatter();
-  const summaries = (await Promise.all(viewer.patientIds.map((id) => getTodaySummary({ patientId: id })))).filter(
-    (s) => s !== null,
-  );
-  const day = (d: string) =>
-    format.dateTime(new Date(`${d}T12:00:00Z`), { weekday: "long", day: "numeric", month: "long", year: "numeric" });
+  const all = await portalPatients(viewer);
+  const patient = await portalPatient(viewer, (await searchParams).patient);
+  if (!patient) {
+    return (
+      <div className="flex flex-col gap-5">
+        <h1 className="text-3xl font-bold">{t("title")}</h1>
+        <p>{t("noPatient")}</p>
+      </div>
+    );
+  }
+  const [summary, bags] = await Promise.all([getTodaySummary({ patientId: patient.id }), getLastBagChanges({ patientId: patient.id })]);
+  const today = todayIn();
+  const day = (d: string) => format.dateTime(new Date(`${d}T12:00:00Z`), { weekday: "long", day: "numeric", month: "long", timeZone: "UTC" });
+  const daysUntil = (d: string) => parseIsoDate("date", d) - parseIsoDate("today", today);
+  const schedule = bagSchedule(bags, today);
+  const carerOf = subjectName(viewer, patient);
+  const change = summary?.episode ? daysUntil(summary.episode.plannedChangeOn) : null;
+
   return (
     <div className="flex flex-col gap-5">
       <h1 className="text-3xl font-bold">{t("title")}</h1>
-      {summaries.length === 0 ? <p>{t("noPatient")}</p> : null}
-      {summaries.map((s) => (
-        <Card key={s.patient.id} className="flex flex-col gap-3">
-          {viewer.role === "carer" ? (
-            <p className="text-ink-soft">{t("caringFor", { name: `${s.patient.givenName} ${s.patient.familyName}` })}</p>
-          ) : null}
-          {s.episode ? (
-            <>
-              <p className="text-sm font-bold uppercase tracking-wide text-ink-soft">{t("nextChange")}</p>
-              <p className="text-2xl font-bold">{day(s.episode.plannedChangeOn)}</p>
-            </>
-          ) : (
-            <p>{t("noCatheter")}</p>
-          )}
-          {s.lastCheckIn ? (
-            <p>
-              {t("lastCheckIn", {
-                when: format.dateTime(s.lastCheckIn.createdAt, { weekday: "long", hour: "numeric", minute: "2-digit" }),
-              })}
+      <PatientSwitcher patients={all} currentId={patient.id} path="/today" />
+      {carerOf ? <p className="text-lg">{t("caringFor", { name: carerOf })}</p> : null}
+
+      <Link
+        href={{ pathname: "/check-in", query: all.length > 1 ? { patient: patient.id } : {} }}
+        className="flex min-h-16 items-center justify-center rounded-lg bg-brand px-4 py-3 text-center text-xl font-bold text-white"
+        data-testid="start-check-in"
+      >
+        {t("startCheckIn")}
+      </Link>
+
+      <Card className="flex flex-col gap-2">
+        <h2 className="text-xl font-bold">{t("nextChange")}</h2>
+        {summary?.episode ? (
+          <>
+            <p className="text-2xl font-bold" data-testid="next-change">
+              {day(summary.episode.plannedChangeOn)}
             </p>
-          ) : null}
-          {s.team.map((o) =>
-            o.phone ? (
-              <a
-                key={o.name}
-                href={`tel:${o.phone.replace(/[^+0-9]/g, "")}`}
-                className="flex min-h-12 items-center justify-center rounded-lg border-2 border-brand px-4 font-bold text-brand"
-              >
-                {t("callTeam", { team: o.name, phone: o.phone })}
-              </a>
-            ) : null,
-          )}
-        </Card>
-      ))}
+            <p>{change! < 0 ? t("changeOverdue") : change === 0 ? t("changeToday") : t("changeInDays", { days: change! })}</p>
+          </>
+        ) : (
+          <p>{t("noCatheter")}</p>
+        )}
+      </Card>
+
+      <Card className="flex flex-col gap-3">
+        <h2 className="text-xl font-bold">{t("bags.title")}</h2>
+        {schedule.length ? (
+          <ul className="flex flex-col gap-2">
+            {schedule.map((b) => (
+              <li key={b.kind} data-testid={`next-${b.kind}`}>
+                <span className="font-bold">{t(b.kind === "leg-bag" ? "bags.nextLegBag" : "bags.nextValve")}</span>{" "}
+                <span className="font-bold">{day(b.nextOn)}</span>
+                <br />
+                <span className={b.state === "ok" ? "" : "font-bold text-level-urgent-ink"}>
+                  {b.state === "overdue" ? t("bags.overdue") : b.state === "due-today" ? t("bags.dueToday") : t("bags.inDays", { days: b.daysUntil })}
+                </span>
+              </li>
+            ))}
+          </ul>
+        ) : (
+          <p>{t("bags.none", { days: BAG_INTERVALS.legBagDays.value })}</p>
+        )}
+        <BagChangeButtons patientId={patient.id} />
+        <p className="text-ink-soft">{t("bags.nightBag")}</p>
+      </Card>
+
+      <Card className="flex flex-col gap-3">
+        <h2 className="text-xl font-bold">{t("lastCheckInTitle")}</h2>
+        {summary?.lastCheckIn ? (
+          <>
+            <LevelBadge level={summary.lastCheckIn.level} size="small" />
+            <p>{t("lastCheckIn", { when: format.dateTime(summary.lastCheckIn.createdAt, { weekday: "long", day: "numeric", month: "long", hour: "numeric", minute: "2-digit" }) })}</p>
+            <p className="font-bold">{tc(`advice.${LEVEL_STEP_KEY[summary.lastCheckIn.level]}`)}</p>
+          </>
+        ) : (
+          <p>{t("noCheckIn")}</p>
+        )}
+      </Card>
+
+      <Link href="/help" className="flex min-h-14 items-center justify-center rounded-lg border-2 border-level-emergency bg-level-emergency-soft px-4 text-lg font-bold text-level-emergency-ink">
+        {t("getHelp")}
+      </Link>
     </div>
   );
 }

@@ -1,55 +1,51 @@
-import { getFormatter, getTranslations } from "next-intl/server";
+import { headers } from "next/headers";
+import { getTranslations } from "next-intl/server";
+import { CaseloadView } from "@/components/caseload/caseload-view";
 import { listCaseload } from "@/db/queries/caseload";
+import { audit } from "@/lib/audit";
 import { requirePageRole } from "@/lib/auth/permissions";
+import { Link } from "@/lib/i18n/navigation";
+import { caseloadQuerySchema } from "@/lib/validations/caseload";
 
 export async function generateMetadata() {
   const t = await getTranslations("Caseload");
   return { title: t("title") };
 }
 
-export default async function CaseloadPage({ params }: { params: Promise<{ locale: string }> }) {
+export default async function CaseloadPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ locale: string }>;
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
   const { locale } = await params;
   const viewer = await requirePageRole(locale, "clinician");
   const t = await getTranslations("Caseload");
-  const format = await getFormatter();
-  const rows = await listCaseload({ organisationIds: viewer.organisationIds });
-  const date = (d: string | null) => (d ? format.dateTime(new Date(`${d}T12:00:00Z`), { dateStyle: "medium" }) : "—");
+  const raw = Object.fromEntries(Object.entries(await searchParams).map(([k, v]) => [k, Array.isArray(v) ? v[0] : v]));
+  // A hand-edited address with a bad value falls back to the default view rather than an error.
+  const parsed = caseloadQuerySchema.safeParse(raw);
+  const query = parsed.success ? parsed.data : caseloadQuerySchema.parse({});
+  const data = await listCaseload({ organisationIds: viewer.organisationIds, query });
+  await audit({
+    action: "caseload.view",
+    actor: viewer,
+    via: "care_team",
+    request: { headers: await headers() },
+    details: { filter: query.filter ?? null, sort: query.sort, dir: query.dir, page: query.page, searched: Boolean(query.q), count: data.rows.length, source: "page" },
+  });
   return (
     <div className="flex flex-col gap-6">
-      <div>
-        <h1 className="text-3xl font-bold">{t("title")}</h1>
-        <p className="text-ink-soft">{t("intro", { count: rows.length })}</p>
-      </div>
-      {rows.length === 0 ? (
-        <p>{t("empty")}</p>
-      ) : (
-        <div className="overflow-x-auto rounded-card border border-stone-faint bg-paper-raised">
-          <table className="w-full text-start">
-            <thead className="bg-paper-sunk text-start">
-              <tr>
-                <th scope="col" className="p-3 text-start">{t("patient")}</th>
-                <th scope="col" className="p-3 text-start">{t("device")}</th>
-                <th scope="col" className="p-3 text-start">{t("nextChange")}</th>
-                <th scope="col" className="p-3 text-start">{t("review")}</th>
-                <th scope="col" className="p-3 text-start">{t("checkIn")}</th>
-              </tr>
-            </thead>
-            <tbody>
-              {rows.map((r) => (
-                <tr key={r.patientId} className="border-t border-stone-faint">
-                  <td className="p-3 font-bold">{r.name}</td>
-                  <td className="tabular p-3">
-                    {r.route ? t("deviceSummary", { route: r.route, size: r.sizeCh ?? 0 }) : t("noDevice")}
-                  </td>
-                  <td className="tabular p-3">{date(r.plannedChangeOn)}</td>
-                  <td className="tabular p-3">{date(r.reviewDueOn)}</td>
-                  <td className="p-3">{r.latestCheckInLevel ? t(`level.${r.latestCheckInLevel as "soon"}`) : "—"}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
+      <div className="flex flex-wrap items-end justify-between gap-3">
+        <div>
+          <h1 className="text-3xl font-bold">{t("title")}</h1>
+          <p className="text-ink-soft">{t("intro")}</p>
         </div>
-      )}
+        <Link href="/patients/new" className="inline-flex min-h-12 items-center rounded-lg bg-brand px-5 font-bold text-white hover:bg-brand-strong">
+          {t("register")}
+        </Link>
+      </div>
+      <CaseloadView initialQuery={query} initialData={data} />
     </div>
   );
 }

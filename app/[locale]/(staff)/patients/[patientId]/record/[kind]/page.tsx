@@ -1,16 +1,13 @@
-import { getFormatter, getTranslations } from "next-intl/server";
-import { headers } from "next/headers";
+import { getTranslations } from "next-intl/server";
 import { notFound } from "next/navigation";
 import { DeviceEpisodeForm, type BlockageHint, type PreviousDevice } from "@/components/episode-form/device-episode-form";
 import { RemovalForm } from "@/components/episode-form/removal-form";
 import { TwocForm } from "@/components/episode-form/twoc-form";
 import { buttonClass } from "@/components/ui/button";
 import { getRecordingContext, type EpisodeDto } from "@/db/queries/episodes";
-import { requirePageRole } from "@/lib/auth/permissions";
 import { blockagePattern, type EndReason } from "@/lib/clinical";
-import { AppError } from "@/lib/errors";
 import { Link } from "@/lib/i18n/navigation";
-import { openPatientRecord } from "@/lib/patient-record";
+import { openRecordPage } from "@/lib/patient-record-page";
 import { RECORD_KINDS, type RecordKind } from "@/lib/validations/episode";
 import { calendarDate, deploymentTimeZone } from "@/lib/zoned-date";
 
@@ -50,27 +47,16 @@ const endReason = (r: string | null): EndReason | undefined =>
 
 export default async function RecordEpisodePage({ params }: { params: Promise<Params> }) {
   const { locale, patientId, kind } = await params;
-  const viewer = await requirePageRole(locale, "clinician");
   if (!isKind(kind)) notFound();
-  try {
-    await openPatientRecord({ viewer, patientId, action: `episode.form.${kind}`, request: { headers: await headers() } });
-  } catch (e) {
-    if (e instanceof AppError && e.status === 404) notFound();
-    throw e;
-  }
+  // Clinician role, access check and audit event before anything is read (the record layout
+  // around this page shows the patient, their allergies and the tabs).
+  const { viewer } = await openRecordPage({ locale, patientId, action: `episode.form.${kind}` });
   const context = await getRecordingContext({ patientId });
   if (!context.patient) notFound();
   const { patient, active, latest } = context;
   const t = await getTranslations("EpisodeForm");
-  const format = await getFormatter();
   const timeZone = deploymentTimeZone();
   const facts = { sex: patient.sex, dateOfBirth: patient.dateOfBirth, allergies: { latex: patient.allergies.latex, chlorhexidine: patient.allergies.chlorhexidine, lidocaine: patient.allergies.lidocaine } };
-  const allergies = [
-    patient.allergies.latex ? t("allergy.latex") : null,
-    patient.allergies.chlorhexidine ? t("allergy.chlorhexidine") : null,
-    patient.allergies.lidocaine ? t("allergy.lidocaine") : null,
-    patient.allergies.other,
-  ].filter((a): a is string => Boolean(a));
   const trial = latest && latest.removedAt && latest.awaitingTwoc && !active ? latest : null;
 
   let blockage: BlockageHint = null;
@@ -132,30 +118,15 @@ export default async function RecordEpisodePage({ params }: { params: Promise<Pa
   }
 
   return (
-    <div className="flex flex-col gap-6">
-      <div className="flex flex-col gap-2">
+    <div className="flex flex-col gap-5">
+      <div className="flex flex-col gap-1">
         <Link href={record} className="self-start font-bold text-brand underline underline-offset-4">
           {t("backToRecord")}
         </Link>
-        <h1 className="text-3xl font-bold">{t(`title.${kind}`)}</h1>
-        <p className="text-lg">
-          <span className="font-bold">{patient.name}</span>
-          {" · "}
-          <span className="tabular">{t("born", { date: format.dateTime(new Date(`${patient.dateOfBirth}T12:00:00Z`), { dateStyle: "medium", timeZone: "UTC" }) })}</span>
-          {" · "}
-          {t(`sex.${patient.sex}`)}
-        </p>
+        <h2 className="text-2xl font-bold" data-testid="record-title">
+          {t(`title.${kind}`)}
+        </h2>
       </div>
-      {allergies.length ? (
-        <div className="max-w-3xl rounded-lg border-4 border-finding-stop bg-finding-stop-soft p-3" role="note" data-testid="allergies">
-          <p className="font-bold text-level-emergency-ink">{t("allergy.title")}</p>
-          <p>{allergies.join(", ")}</p>
-        </div>
-      ) : (
-        <p className="text-ink-soft" data-testid="allergies-none">
-          {t("allergy.none")}
-        </p>
-      )}
       {body}
     </div>
   );

@@ -1,0 +1,54 @@
+import { getTranslations } from "next-intl/server";
+import { notFound } from "next/navigation";
+import { SafetyNotice } from "@/components/portal/call-buttons";
+import { getHelpContacts } from "@/db/queries/contacts";
+import { requirePageRole } from "@/lib/auth/permissions";
+import { Link } from "@/lib/i18n/navigation";
+import { LEARN_PAGES, learnPage, type LearnSection } from "@/lib/learn";
+import { portalPatient } from "@/lib/portal";
+
+export function generateStaticParams() {
+  return LEARN_PAGES.map((p) => ({ slug: p.slug }));
+}
+
+export async function generateMetadata({ params }: { params: Promise<{ slug: string }> }) {
+  const page = learnPage((await params).slug);
+  const t = await getTranslations("Learn");
+  return { title: page ? t(`pages.${page.key}.title`) : t("title") };
+}
+
+export default async function LearnPage({ params }: { params: Promise<{ locale: string; slug: string }> }) {
+  const { locale, slug } = await params;
+  const viewer = await requirePageRole(locale, "patient", "carer");
+  const page = learnPage(slug);
+  if (!page) notFound();
+  const t = await getTranslations("Learn");
+  const sections = t.raw(`pages.${page.key}.sections`) as LearnSection[];
+  const patient = await portalPatient(viewer);
+  const contacts = await getHelpContacts({ patientId: patient?.id ?? null });
+  return (
+    <article className="flex flex-col gap-5" data-testid="learn-page">
+      <Link href="/learn" className="flex min-h-12 items-center self-start font-bold text-brand underline underline-offset-4">
+        {t("back")}
+      </Link>
+      <h1 className="text-3xl font-bold">{t(`pages.${page.key}.title`)}</h1>
+      {locale !== "en" ? (
+        <p className="rounded-lg border-2 border-level-soon bg-level-soon-soft p-3 font-bold text-level-soon-ink" data-testid="translation-note">
+          {t("translationNote")}
+        </p>
+      ) : null}
+      <p className="text-xl">{t(`pages.${page.key}.summary`)}</p>
+      {sections.map((s) => (
+        <section key={s.heading} className="flex flex-col gap-2">
+          <h2 className="text-2xl font-bold">{s.heading}</h2>
+          <ul className="flex list-disc flex-col gap-2 ps-6">
+            {s.points.map((p) => (
+              <li key={p}>{p}</li>
+            ))}
+          </ul>
+        </section>
+      ))}
+      <SafetyNotice contacts={contacts} />
+    </article>
+  );
+}

@@ -1,0 +1,47 @@
+import { getTranslations } from "next-intl/server";
+import type { ReactNode } from "react";
+import { PendingCheckInWarning } from "@/components/check-in/pending-warning";
+import { LanguageSwitcher } from "@/components/layout/language-switcher";
+import { BookIcon, ExitIcon, GlobeIcon, LifebuoyIcon, PeopleIcon, TubeIcon } from "@/components/portal/nav-icons";
+import { requirePageRole } from "@/lib/auth/permissions";
+import { Link } from "@/lib/i18n/navigation";
+
+export async function generateMetadata() {
+  const t = await getTranslations("More");
+  return { title: t("title") };
+}
+
+export default async function MorePage({ params }: { params: Promise<{ locale: string }> }) {
+  const { locale } = await params;
+  const viewer = await requirePageRole(locale, "patient", "carer");
+  const t = await getTranslations("More");
+  const item = (href: string, icon: ReactNode, label: string) => (
+    <li>
+      <Link href={href} className="flex min-h-16 items-center gap-4 rounded-lg border-2 border-brand bg-paper-raised px-4 py-2 text-xl font-bold text-brand hover:bg-brand-soft">
+        {icon}
+        <span>{label}</span>
+      </Link>
+    </li>
+  );
+  return (
+    <div className="flex flex-col gap-5">
+      <h1 className="text-3xl font-bold">{t("title")}</h1>
+      <p>{t("signedInAs", { name: viewer.name })}</p>
+      <ul className="flex flex-col gap-3">
+        {item("/my-catheter", <TubeIcon className="h-8 w-8 shrink-0" />, t("myCatheter"))}
+        {item("/learn", <BookIcon className="h-8 w-8 shrink-0" />, t("learn"))}
+        {item("/people", <PeopleIcon className="h-8 w-8 shrink-0" />, t("people"))}
+        {item("/help", <LifebuoyIcon className="h-8 w-8 shrink-0" />, t("help"))}
+      </ul>
+      <div className="flex items-center gap-3 rounded-lg border border-stone-faint bg-paper-raised p-4">
+        <GlobeIcon className="h-8 w-8 shrink-0 text-brand" />
+        <LanguageSwitcher />
+      </div>
+      <PendingCheckInWarning />
+      <Link href="/sign-out" className="flex min-h-14 items-center justify-center gap-3 rounded-lg border-2 border-stone-line px-4 font-bold text-ink">
+        <ExitIcon />
+        <span>{t("signOut")}</span>
+      </Link>
+    </div>
+  );
+}

@@ -1,0 +1,73 @@
+import { getFormatter, getTranslations } from "next-intl/server";
+import { SitePhotoUpload } from "@/components/my-catheter/site-photo-upload";
+import { PatientSwitcher } from "@/components/portal/patient-switcher";
+import { Card } from "@/components/ui/card";
+import { getMyCatheter } from "@/db/queries/portal";
+import { requirePageRole } from "@/lib/auth/permissions";
+import { portalPatient, portalPatients, subjectName } from "@/lib/portal";
+
+export async function generateMetadata() {
+  const t = await getTranslations("MyCatheter");
+  return { title: t("title") };
+}
+
+export default async function MyCatheterPage({ params, searchParams }: { params: Promise<{ locale: string }>; searchParams: Promise<{ patient?: string }> }) {
+  const { locale } = await params;
+  const viewer = await requirePageRole(locale, "patient", "carer");
+  const t = await getTranslations("MyCatheter");
+  const format = await getFormatter();
+  const patient = await portalPatient(viewer, (await searchParams).patient);
+  if (!patient) return <p>{(await getTranslations("Today"))("noPatient")}</p>;
+  const { episode, allergies } = await getMyCatheter({ patientId: patient.id });
+  const day = (d: string) => format.dateTime(new Date(`${d}T12:00:00Z`), { weekday: "long", day: "numeric", month: "long", year: "numeric", timeZone: "UTC" });
+  const carerOf = subjectName(viewer, patient);
+  const allergyList = allergies
+    ? [allergies.latex && t("allergy.latex"), allergies.chlorhexidine && t("allergy.chlorhexidine"), allergies.lidocaine && t("allergy.lidocaine"), allergies.other].filter(Boolean)
+    : [];
+  const row = (label: string, value: string, testId?: string) => (
+    <div className="flex flex-col border-b border-stone-faint py-2 last:border-b-0">
+      <dt className="text-ink-soft">{label}</dt>
+      <dd className="text-xl font-bold tabular" data-testid={testId}>
+        {value}
+      </dd>
+    </div>
+  );
+  return (
+    <div className="flex flex-col gap-5">
+      <h1 className="text-3xl font-bold">{t("title")}</h1>
+      <PatientSwitcher patients={await portalPatients(viewer)} currentId={patient.id} path="/my-catheter" />
+      {carerOf ? <p className="text-lg">{(await getTranslations("Today"))("caringFor", { name: carerOf })}</p> : null}
+      {episode ? (
+        <Card>
+          <dl>
+            {row(t("route"), t(`routes.${episode.route}`))}
+            {row(t("size"), t("sizeValue", { ch: episode.sizeCh }), "size")}
+            {row(t("balloon"), t("balloonValue", { ml: episode.balloonMl }))}
+            {row(t("type"), t(`types.${episode.catheterType}`))}
+            {row(t("material"), t(`materials.${episode.material}`))}
+            {row(t("insertedOn"), t("insertedValue", { date: format.dateTime(episode.insertedAt, { weekday: "long", day: "numeric", month: "long", year: "numeric" }), name: episode.insertedByName }))}
+            {row(t("nextChange"), day(episode.plannedChangeOn))}
+            {row(t("review"), day(episode.reviewDueOn))}
+          </dl>
+          {episode.awaitingTwoc ? <p className="mt-3 rounded-lg bg-level-soon-soft p-3 text-level-soon-ink">{t("twoc")}</p> : null}
+        </Card>
+      ) : (
+        <p>{t("none")}</p>
+      )}
+      <Card className="flex flex-col gap-2">
+        <h2 className="text-xl font-bold">{t("allergiesTitle")}</h2>
+        {allergyList.length ? (
+          <ul className="flex list-disc flex-col gap-1 ps-6 font-bold">
+            {allergyList.map((a) => (
+              <li key={String(a)}>{a}</li>
+            ))}
+          </ul>
+        ) : (
+          <p>{t("noAllergies")}</p>
+        )}
+        <p className="text-ink-soft">{t("wrong")}</p>
+      </Card>
+      <SitePhotoUpload patientId={patient.id} />
+    </div>
+  );
+}

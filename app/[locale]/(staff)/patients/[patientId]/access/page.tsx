@@ -1,0 +1,95 @@
+import { forbidden } from "next/navigation";
+import { getFormatter, getTranslations } from "next-intl/server";
+import { listAccessLog } from "@/db/queries/audit-log";
+import { Link } from "@/lib/i18n/navigation";
+import { openRecordPage } from "@/lib/patient-record-page";
+import { pageQuerySchema } from "@/lib/validations/caseload";
+
+export async function generateMetadata() {
+  const t = await getTranslations("PatientRecord.tabs");
+  return { title: t("access") };
+}
+
+const PAGE_SIZE = 25;
+const knownVia = ["care_team", "visit_access", "qr", "self", "carer", "admin", "system"] as const;
+const knownRoles = ["admin", "clinician", "patient", "carer"] as const;
+
+export default async function AccessTab({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ locale: string; patientId: string }>;
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
+  const { locale, patientId } = await params;
+  const sp = await searchParams;
+  const parsed = pageQuerySchema.safeParse({ page: Array.isArray(sp.page) ? sp.page[0] : sp.page, pageSize: PAGE_SIZE });
+  const page = parsed.success ? parsed.data.page : 1;
+  const { via } = await openRecordPage({ locale, patientId, action: "patient.view.access-log" });
+  // The log is for the care team; a visiting clinician's attempt is itself logged above.
+  if (via !== "care_team") forbidden();
+  const log = await listAccessLog({ patientId, page, pageSize: PAGE_SIZE });
+  const t = await getTranslations("PatientAccessLog");
+  const format = await getFormatter();
+  const pages = Math.max(1, Math.ceil(log.total / PAGE_SIZE));
+  // Action codes use dots, which next-intl reads as nesting: look them up with underscores.
+  const action = (a: string) => {
+    const key = `actions.${a.replace(/[^a-zA-Z0-9]/g, "_")}`;
+    return t.has(key as "actions.patient_create") ? t(key as "actions.patient_create") : a;
+  };
+  const href = (p: number) => `/patients/${patientId}/access${p > 1 ? `?page=${p}` : ""}`;
+
+  return (
+    <div className="flex flex-col gap-4">
+      <div>
+        <h2 className="text-2xl font-bold">{t("title")}</h2>
+        <p className="text-ink-soft">{t("intro", { count: log.total })}</p>
+      </div>
+      <div className="overflow-x-auto rounded-card border border-stone-faint bg-paper-raised">
+        <table className="w-full" data-testid="access-log">
+          <caption className="sr-only">{t("title")}</caption>
+          <thead className="bg-paper-sunk">
+            <tr>
+              <th scope="col" className="p-3 text-start">{t("when")}</th>
+              <th scope="col" className="p-3 text-start">{t("who")}</th>
+              <th scope="col" className="p-3 text-start">{t("what")}</th>
+              <th scope="col" className="p-3 text-start">{t("via")}</th>
+              <th scope="col" className="p-3 text-start">{t("reason")}</th>
+            </tr>
+          </thead>
+          <tbody>
+            {log.entries.map((e) => (
+              <tr key={e.id} className="border-t border-stone-faint align-top">
+                <td className="tabular whitespace-nowrap p-3">{format.dateTime(new Date(e.at), { dateStyle: "medium", timeStyle: "medium" })}</td>
+                <td className="p-3">
+                  <span className="font-bold">{e.actorName ?? t("unknownPerson")}</span>
+                  {e.actorRole ? (
+                    <span className="block text-sm text-ink-soft">
+                      {(knownRoles as readonly string[]).includes(e.actorRole) ? t(`roles.${e.actorRole as "admin"}`) : e.actorRole}
+                    </span>
+                  ) : null}
+                </td>
+                <td className="p-3">{action(e.action)}</td>
+                <td className="p-3">{e.via && (knownVia as readonly string[]).includes(e.via) ? t(`vias.${e.via}`) : "—"}</td>
+                <td className="p-3">{e.reason ?? "—"}</td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+      <nav aria-label={t("pagesLabel")} className="flex flex-wrap items-center gap-3">
+        {page > 1 ? (
+          <Link href={href(page - 1)} className="inline-flex min-h-11 items-center rounded-lg border-2 border-brand px-4 font-bold text-brand">
+            {t("newer")}
+          </Link>
+        ) : null}
+        <span className="tabular">{t("pageOf", { page, pages })}</span>
+        {page < pages ? (
+          <Link href={href(page + 1)} className="inline-flex min-h-11 items-center rounded-lg border-2 border-brand px-4 font-bold text-brand">
+            {t("older")}
+          </Link>
+        ) : null}
+      </nav>
+    </div>
+  );
+}

@@ -1,0 +1,157 @@
+import { getFormatter, getTranslations } from "next-intl/server";
+import { Card } from "@/components/ui/card";
+import { getPatientHistory, type HistoryEpisode, type HistoryEvent } from "@/db/queries/history";
+import { openRecordPage } from "@/lib/patient-record-page";
+
+export async function generateMetadata() {
+  const t = await getTranslations("PatientRecord.tabs");
+  return { title: t("history") };
+}
+
+export default async function HistoryTab({ params }: { params: Promise<{ locale: string; patientId: string }> }) {
+  const { locale, patientId } = await params;
+  await openRecordPage({ locale, patientId, action: "patient.view.history" });
+  const history = await getPatientHistory({ patientId });
+  const t = await getTranslations("PatientHistory");
+  const format = await getFormatter();
+  const dateTime = (iso: string) => format.dateTime(new Date(iso), { dateStyle: "medium", timeStyle: "short" });
+  const date = (iso: string) => format.dateTime(new Date(`${iso}T12:00:00Z`), { dateStyle: "medium" });
+  const b = history.blockage;
+
+  const eventLine = (v: HistoryEvent) => {
+    const parts = [t(`kinds.${v.kind}`)];
+    if (v.reason) parts.push(t(`reasons.${v.reason}`));
+    if (v.twocOutcome) parts.push(t(`twoc.${v.twocOutcome}`));
+    return parts.join(" — ");
+  };
+
+  const total = history.episodes.length;
+  return (
+    <div className="flex flex-col gap-6">
+      <Card className="flex flex-col gap-2" data-testid="blockage-pattern">
+        <h2 className="text-xl font-bold">{t("blockageTitle")}</h2>
+        {b.status === "pattern" ? (
+          <>
+            <p className="text-lg">
+              {t("blockageFound", { count: b.blockageEpisodes, typical: format.number(b.typicalDwellDays), shortest: b.shortestDwellDays, longest: b.longestDwellDays })}
+            </p>
+            <p className="text-xl font-bold text-brand" data-testid="blockage-suggestion">
+              {t("blockageSuggestion", { days: b.suggestedIntervalDays })}
+            </p>
+            {b.atFloor ? <p className="font-bold text-level-urgent-ink">{t("blockageAtFloor", { days: b.suggestedIntervalDays })}</p> : null}
+            <p className="text-sm text-ink-soft">{t("blockageBasis")}</p>
+          </>
+        ) : (
+          <p>{t("blockageInsufficient", { count: b.blockageEpisodes, needed: b.needed })}</p>
+        )}
+        <p className="text-sm font-bold text-ink-soft">{t("safety")}</p>
+      </Card>
+
+      <section aria-labelledby="timeline-heading" className="flex flex-col gap-3">
+        <h2 id="timeline-heading" className="text-2xl font-bold">
+          {t("timelineTitle")}
+        </h2>
+        {total === 0 ? (
+          <p>{t("empty")}</p>
+        ) : (
+          <ol className="flex flex-col gap-4 border-s-4 border-brand-soft ps-4" data-testid="history-timeline">
+            {history.episodes.map((e, i) => (
+              <EpisodeItem
+                key={e.id}
+                e={e}
+                number={total - i}
+                labels={{
+                  heading: t("episodeHeading", { number: total - i, route: t(`routes.${e.route}`), size: e.sizeCh }),
+                  device: t("episodeDevice", { material: t(`materials.${e.material}`), balloon: e.balloonMl }),
+                  inserted: t("inserted", { when: dateTime(e.insertedAt), who: e.insertedByName }),
+                  organisation: e.organisationName ? t("atOrganisation", { organisation: e.organisationName }) : null,
+                  dwell: e.inPlace ? t("dwellInPlace", { count: e.dwellDays }) : t("dwellRemoved", { count: e.dwellDays }),
+                  status: e.inPlace
+                    ? t("inPlace", { change: date(e.plannedChangeOn), review: date(e.reviewDueOn) })
+                    : t("removed", { when: dateTime(e.removedAt!), reason: t(`endReasons.${e.endReason ?? "other"}`) }),
+                  lotMaker: [e.maker, e.lot ? t("lot", { lot: e.lot }) : null].filter(Boolean).join(" · "),
+                  indication: t("indication", { indication: e.indication }),
+                  awaitingTwoc: e.awaitingTwoc ? t("awaitingTwoc") : null,
+                  eventsTitle: t("eventsTitle"),
+                  overridesTitle: t("overridesTitle"),
+                  overrideLine: (code: string, reason: string) => t("overrideLine", { code, reason }),
+                  event: (v: HistoryEvent) => ({
+                    what: eventLine(v),
+                    who: t("byWhen", { who: v.recordedByName, when: dateTime(v.occurredAt) }),
+                    where: v.organisationName,
+                  }),
+                }}
+              />
+            ))}
+          </ol>
+        )}
+      </section>
+    </div>
+  );
+}
+
+type Labels = {
+  heading: string;
+  device: string;
+  inserted: string;
+  organisation: string | null;
+  dwell: string;
+  status: string;
+  lotMaker: string;
+  indication: string;
+  awaitingTwoc: string | null;
+  eventsTitle: string;
+  overridesTitle: string;
+  overrideLine: (code: string, reason: string) => string;
+  event: (v: HistoryEvent) => { what: string; who: string; where: string | null };
+};
+
+function EpisodeItem({ e, labels }: { e: HistoryEpisode; number: number; labels: Labels }) {
+  return (
+    <li className="relative">
+      <span aria-hidden="true" className={`absolute -start-[1.65rem] top-2 h-4 w-4 rounded-full border-4 ${e.inPlace ? "border-brand bg-paper-raised" : "border-stone bg-stone"}`} />
+      <Card className="flex flex-col gap-2">
+        <div className="flex flex-wrap items-baseline justify-between gap-2">
+          <h3 className="text-lg font-bold">{labels.heading}</h3>
+          <span className={`tabular rounded-full px-3 py-0.5 font-bold ${e.inPlace ? "bg-brand text-white" : "bg-paper-sunk"}`}>{labels.dwell}</span>
+        </div>
+        <p className="tabular">{labels.device}</p>
+        <p className="tabular">
+          {labels.inserted}
+          {labels.organisation ? ` · ${labels.organisation}` : ""}
+        </p>
+        <p className={`tabular ${!e.inPlace && e.endReason && e.endReason !== "planned" ? "font-bold" : ""}`}>{labels.status}</p>
+        {labels.lotMaker ? <p className="text-sm text-ink-soft">{labels.lotMaker}</p> : null}
+        <p className="text-sm text-ink-soft">{labels.indication}</p>
+        {labels.awaitingTwoc ? <p className="font-bold text-level-soon-ink">{labels.awaitingTwoc}</p> : null}
+        {e.events.length ? (
+          <div>
+            <h4 className="font-bold">{labels.eventsTitle}</h4>
+            <ul className="flex flex-col gap-1">
+              {e.events.map((v) => {
+                const line = labels.event(v);
+                return (
+                  <li key={v.id} className="tabular">
+                    <span className="font-bold">{line.what}</span> · {line.who}
+                    {line.where ? ` · ${line.where}` : ""}
+                    {v.notes ? <p className="text-sm text-ink-soft">{v.notes}</p> : null}
+                  </li>
+                );
+              })}
+            </ul>
+          </div>
+        ) : null}
+        {e.overrides.length ? (
+          <div className="rounded-lg border-2 border-finding-stop bg-finding-stop-soft p-3">
+            <h4 className="font-bold">{labels.overridesTitle}</h4>
+            <ul>
+              {e.overrides.map((o, i) => (
+                <li key={`${o.code}-${i}`}>{labels.overrideLine(o.code, o.reason)}</li>
+              ))}
+            </ul>
+          </div>
+        ) : null}
+      </Card>
+    </li>
+  );
+}

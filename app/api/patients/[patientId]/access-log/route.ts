@@ -1,0 +1,19 @@
+import { listAccessLog } from "@/db/queries/audit-log";
+import { requireRole } from "@/lib/auth/permissions";
+import { AppError } from "@/lib/errors";
+import { handle, json } from "@/lib/http";
+import { openPatientRecord } from "@/lib/patient-record";
+import { parseInput, searchParamsObject } from "@/lib/validate";
+import { pageQuerySchema } from "@/lib/validations/caseload";
+
+type Ctx = { params: Promise<{ patientId: string }> };
+
+/** Who opened or changed this record, newest first; for the care team only. */
+export const GET = handle<Ctx>(async (request, { params }) => {
+  const { patientId } = await params;
+  const viewer = await requireRole(request, "clinician");
+  const { page, pageSize } = parseInput(pageQuerySchema, searchParamsObject(request.url));
+  const via = await openPatientRecord({ viewer, patientId, action: "patient.view.access-log", request, details: { source: "api", page } });
+  if (via !== "care_team") throw new AppError("forbidden");
+  return json(await listAccessLog({ patientId, page, pageSize }));
+});

@@ -1,0 +1,18 @@
+import { requireRole, requireStaffPatientAccess } from "@/lib/auth/permissions";
+import { AppError } from "@/lib/errors";
+import { handle, json } from "@/lib/http";
+import { createPatientInvite } from "@/lib/invitations";
+import { parseJsonBody } from "@/lib/validate";
+import { patientInviteSchema } from "@/lib/validations/invitations";
+
+// A care-team clinician makes a one-time activation code for the patient's portal account.
+// The code is in this answer only (it is stored as an HMAC): show it, print it, give it.
+export const POST = handle<{ params: Promise<{ patientId: string }> }>(async (request, { params }) => {
+  const viewer = await requireRole(request, "clinician");
+  const { patientId } = await params;
+  const via = await requireStaffPatientAccess(viewer, patientId);
+  if (via !== "care_team") throw new AppError("forbidden", "Only the patient's care team can invite them.");
+  const input = await parseJsonBody(request, patientInviteSchema);
+  const invite = await createPatientInvite({ viewer, patientId, email: input.email, request });
+  return json(invite, { status: 201 });
+});

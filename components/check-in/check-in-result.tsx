@@ -1,0 +1,100 @@
+"use client";
+import { useTranslations } from "next-intl";
+import { useEffect, useMemo, useRef, useState } from "react";
+import { CallButtons, SafetyNotice, type Contacts } from "@/components/portal/call-buttons";
+import { LevelBadge } from "@/components/portal/level-badge";
+import { scoreAnswers, type SubmittedAnswers } from "@/lib/check-in-flow";
+import { compareTriageLevels, TRIAGE_LEVELS, type Route, type TriageLevel } from "@/lib/clinical";
+import { Link } from "@/lib/i18n/navigation";
+import { enqueueCheckIn, flushCheckIns, SENT_EVENT, type SentDetail } from "./outbox";
+
+type Delivery = "sending" | "sent" | "waiting" | "refused";
+
+/**
+ * The result: the level (word, mark and colour), what to do now, who to call, and why. It is
+ * worked out on the phone with lib/clinical so it shows at once, online or not; the check-in is
+ * put in the phone's outbox first and sent from there, so it is never lost.
+ */
+export function CheckInResult({ patientId, route, answers, idempotencyKey, contacts }: { patientId: string; route: Route | null; answers: SubmittedAnswers; idempotencyKey: string; contacts: Contacts }) {
+  const t = useTranslations("CheckIn");
+  const local = useMemo(() => scoreAnswers(answers, route), [answers, route]);
+  const [delivery, setDelivery] = useState<Delivery>("sending");
+  const [serverLevel, setServerLevel] = useState<TriageLevel | null>(null);
+  const headingRef = useRef<HTMLHeadingElement>(null);
+
+  useEffect(() => {
+    headingRef.current?.focus();
+    const onSent = (e: Event) => {
+      const d = (e as CustomEvent<SentDetail>).detail;
+      if (d.idempotencyKey !== idempotencyKey) return;
+      setDelivery(d.ok ? "sent" : "refused");
+      if (d.level && (TRIAGE_LEVELS as readonly string[]).includes(d.level)) setServerLevel(d.level as TriageLevel);
+    };
+    window.addEventListener(SENT_EVENT, onSent);
+    enqueueCheckIn({ patientId, idempotencyKey, answers });
+    void flushCheckIns().then(() => setDelivery((d) => (d === "sending" ? "waiting" : d)));
+    return () => window.removeEventListener(SENT_EVENT, onSent);
+  }, [patientId, idempotencyKey, answers]);
+
+  if (!local) return null;
+  const { result } = local;
+  // Should the server's rules ever answer higher than the phone's, the higher level is shown.
+  const level = serverLevel && compareTriageLevels(serverLevel, result.level) > 0 ? serverLevel : result.level;
+  const callFirstEmergency = level === "emergency";
+
+  return (
+    <section aria-labelledby="result-title" className="flex flex-col gap-5" data-testid="check-in-result" data-level={level} data-delivery={delivery}>
+      <h1 id="result-title" ref={headingRef} tabIndex={-1} className="text-3xl font-bold outline-none">
+        {t("result.title")}
+      </h1>
+      <LevelBadge level={level} />
+      <DeliveryNote delivery={delivery} />
+
+      <div className="flex flex-col gap-3">
+        <h2 className="text-2xl font-bold">{t("result.whatToDo")}</h2>
+        <ul className="flex list-disc flex-col gap-2 ps-6 text-lg">
+          {result.advice.map((a) => (
+            <li key={a.key}>{t.has(`advice.${a.key}` as never) ? t(`advice.${a.key}` as never) : a.text}</li>
+          ))}
+        </ul>
+      </div>
+
+      <div className="flex flex-col gap-3">
+        <h2 className="text-2xl font-bold">{t("result.whoToCall")}</h2>
+        <CallButtons contacts={contacts} emergencyFirst={callFirstEmergency} />
+      </div>
+
+      {result.reasons.length ? (
+        <div className="flex flex-col gap-3">
+          <h2 className="text-2xl font-bold">{t("result.why")}</h2>
+          <ul className="flex list-disc flex-col gap-2 ps-6 text-lg">
+            {result.reasons.map((r) => (
+              <li key={r.ruleId}>{t.has(`reason.${r.key}` as never) ? t(`reason.${r.key}` as never) : r.text}</li>
+            ))}
+          </ul>
+        </div>
+      ) : (
+        <p>{t("result.noProblems")}</p>
+      )}
+
+      <Link href="/today" className="flex min-h-14 items-center justify-center rounded-lg bg-brand px-4 text-xl font-bold text-white">
+        {t("result.done")}
+      </Link>
+      {/* The numbers are under "Who to call" above. */}
+      <SafetyNotice contacts={contacts} withNumbers={false} />
+    </section>
+  );
+}
+
+function DeliveryNote({ delivery }: { delivery: Delivery }) {
+  const t = useTranslations("CheckIn.delivery");
+  const style =
+    delivery === "waiting" || delivery === "refused"
+      ? "border-level-urgent bg-level-urgent-soft text-level-urgent-ink"
+      : "border-stone-line bg-paper-raised text-ink";
+  return (
+    <p role="status" className={`rounded-lg border-2 p-3 font-bold ${style}`} data-testid="delivery">
+      {t(delivery)}
+    </p>
+  );
+}

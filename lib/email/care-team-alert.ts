@@ -1,0 +1,125 @@
+import "server-only";
+// Urgent and emergency check-ins, and medium or high NEWS2, e-mail every care-team organisation
+// of the patient at once (in each organisation's language). Called inside the transaction that
+// stores the check-in or the observations, so the alert exists exactly when they do.
+import type { Executor } from "@/db";
+import { getActiveEpisode, getCareTeamOrganisations, getPatientForMail } from "@/db/queries/mail-context";
+import { env } from "@/lib/env";
+import { emailDates, emailLocale, emailTranslator } from "./i18n";
+import { queueMessage, type QueuedMessage } from "./outbox";
+import { renderEmail, type Block, type EmailContent } from "./render";
+
+export type CareTeamAlertKind = "check-in" | "news2";
+export type CareTeamAlertInput = {
+  patientId: string;
+  kind: CareTeamAlertKind;
+  /** check-in: "emergency" | "urgent" (lower levels send nothing); NEWS2: "high" | "medium". */
+  level: string;
+  /** What was reported, in plain words (may hold patient-entered text: it is escaped). */
+  summary: string;
+  /** The check-in or observation id: one alert per source and organisation. */
+  sourceId: string;
+  /** For NEWS2: the total score, shown in the alert. */
+  score?: number;
+};
+
+export const ALERT_LEVELS: Record<CareTeamAlertKind, readonly string[]> = {
+  "check-in": ["emergency", "urgent"],
+  news2: ["high", "medium"],
+};
+
+export function isAlertLevel(kind: CareTeamAlertKind, level: string) {
+  return ALERT_LEVELS[kind].includes(level);
+}
+
+type AlertLevel = "emergency" | "urgent" | "high" | "medium";
+
+function alertContent(
+  input: CareTeamAlertInput & { level: AlertLevel },
+  ctx: { patientName: string; hrn: string; dateOfBirth: string; phone: string | null; device: string | null; plannedChangeOn: string | null; teamName: string },
+  locale: string,
+): EmailContent {
+  const t = emailTranslator(locale);
+  const d = emailDates(locale);
+  const levelWord = t(`enum.alertLevel.${input.level}`);
+  const severe = input.level === "emergency" || input.level === "high";
+  const rows = [
+    { label: t("gp.name"), value: ctx.patientName },
+    { label: t("gp.healthRecordNumber"), value: ctx.hrn },
+    { label: t("gp.dateOfBirth"), value: d.short(ctx.dateOfBirth) },
+  ];
+  if (ctx.phone) rows.push({ label: t("alert.phone"), value: ctx.phone });
+  if (ctx.device) rows.push({ label: t("alert.device"), value: ctx.device });
+  if (ctx.plannedChangeOn) rows.push({ label: t("device.plannedChange"), value: d.day(ctx.plannedChangeOn) });
+  if (input.kind === "news2" && typeof input.score === "number") rows.push({ label: t("alert.score"), value: String(input.score) });
+  const blocks: Block[] = [
+    { type: "notice", tone: severe ? "stop" : "warn", label: levelWord, text: t(`alert.action.${input.level}`) },
+    { type: "heading", text: t("alert.reported") },
+    { type: "paragraph", text: input.summary },
+    { type: "heading", text: t("gp.patient") },
+    { type: "facts", rows },
+    { type: "action", href: `${new URL(env.APP_URL).origin}/${locale}/patients/${input.patientId}`, label: t("alert.open") },
+  ];
+  return {
+    locale,
+    subject: t(`alert.subject.${input.kind}`, { level: levelWord, hrn: ctx.hrn }),
+    title: t(`alert.title.${input.kind}`, { level: levelWord }),
+    intro: t(`alert.intro.${input.kind}`, { patient: ctx.patientName, date: d.at(new Date()) }),
+    blocks,
+    footer: [t("alert.footerWhy", { team: ctx.teamName }), t("common.footerNoReply"), t("common.footerSafety")],
+  };
+}
+
+/**
+ * Queues one alert per care-team organisation (key `care-team-alert:<kind>:<sourceId>:<orgId>`).
+ * Returns nothing for levels that do not alert, so callers may call it for every check-in.
+ * A team with no inbox recorded gets a row kept as failed ("no_recipient"), visible on the
+ * Letters tab.
+ */
+export async function queueCareTeamAlert(tx: Executor, input: CareTeamAlertInput): Promise<QueuedMessage[]> {
+  if (!isAlertLevel(input.kind, input.level)) return [];
+  const patient = await getPatientForMail({ patientId: input.patientId }, tx);
+  if (!patient) throw new Error(`care-team alert: patient ${input.patientId} not found`);
+  const [teams, episode] = await Promise.all([
+    getCareTeamOrganisations({ patientId: input.patientId }, tx),
+    getActiveEpisode({ patientId: input.patientId }, tx),
+  ]);
+  const out: QueuedMessage[] = [];
+  // No care team at all: keep a failed row so the gap is visible rather than silent.
+  const targets = teams.length
+    ? teams
+    : [{ id: "none", name: "", kind: "community_team", inboxEmail: null, locale: "en", phone: null, outOfHoursPhone: null }];
+  for (const team of targets) {
+    const locale = emailLocale(team.locale);
+    const t = emailTranslator(locale);
+    const device = episode
+      ? t("alert.deviceValue", { route: t(`enum.route.${episode.route}`), ch: episode.sizeCh, ml: episode.balloonMl })
+      : null;
+    const content = alertContent(
+      { ...input, level: input.level as AlertLevel },
+      {
+        patientName: `${patient.givenName} ${patient.familyName}`,
+        hrn: patient.healthRecordNumber,
+        dateOfBirth: patient.dateOfBirth,
+        phone: patient.phone,
+        device,
+        plannedChangeOn: episode?.plannedChangeOn ?? null,
+        teamName: team.name,
+      },
+      locale,
+    );
+    out.push(
+      await queueMessage(tx, {
+        idempotencyKey: `care-team-alert:${input.kind}:${input.sourceId}:${team.id}`,
+        kind: "care-team-alert",
+        to: team.inboxEmail,
+        ...renderEmail(content),
+        patientId: input.patientId,
+        organisationId: team.id === "none" ? null : team.id,
+        locale,
+        sourceId: input.sourceId,
+      }),
+    );
+  }
+  return out;
+}

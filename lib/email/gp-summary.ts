@@ -1,0 +1,258 @@
+import "server-only";
+// The summary a GP practice receives on passport issue, on each insertion or change, on removal
+// and on each trial-without-catheter outcome: HTML and text in the practice's language, with a
+// PDF of the same content attached (rendered at send time from the same rows).
+import type { Executor } from "@/db";
+import { db } from "@/db";
+import { loadGpSummaryFacts, type DeviceFacts, type GpSummaryCause, type GpSummaryFacts } from "@/db/queries/gp-summary";
+import { emailDates, emailLocale, emailTranslator, type EmailT } from "./i18n";
+import { queueMessage, type QueuedMessage } from "./outbox";
+import { renderEmail, type Block, type EmailContent } from "./render";
+
+export type { GpSummaryCause, GpSummaryFacts };
+
+export type QueueGpSummaryInput = {
+  patientId: string;
+  /** The episode event (insertion, change, removal, TWOC outcome) that caused the summary. */
+  eventId?: string;
+  /** For cause "passport": the passport just issued. */
+  passportId?: string;
+  cause: GpSummaryCause;
+  /** Who did it, as it should read to the GP (e.g. "Grace Mensah"). */
+  actorName: string;
+  /** Findings the form refused and the clinician did not override (e.g. an expired device not used). */
+  refused?: { code: string; detail?: string | null }[];
+};
+
+export function gpSummaryKey(input: Pick<QueueGpSummaryInput, "cause" | "eventId" | "passportId">) {
+  return `gp-summary:${input.cause}:${input.cause === "passport" ? input.passportId : input.eventId}`;
+}
+
+const knownFindings = new Set([
+  "device-expired",
+  "device-expiring-soon",
+  "latex-allergy",
+  "chlorhexidine-allergy",
+  "lidocaine-allergy",
+  "female-length-male",
+  "balloon-differs-from-maker",
+  "size-larger-than-routine",
+  "dwell-over-12-weeks",
+]);
+
+function findingName(t: EmailT, code: string, message: string): string {
+  return knownFindings.has(code) ? t(`enum.finding.${code as "device-expired"}`) : message || code;
+}
+
+export function allergyText(t: EmailT, a: GpSummaryFacts["patient"]["allergies"]): string {
+  const list = [
+    a.latex ? t("enum.allergy.latex") : null,
+    a.chlorhexidine ? t("enum.allergy.chlorhexidine") : null,
+    a.lidocaine ? t("enum.allergy.lidocaine") : null,
+    a.other?.trim() || null,
+  ].filter((x): x is string => !!x);
+  return list.length ? list.join(", ") : t("common.noneRecorded");
+}
+
+export function deviceRows(t: EmailT, d: ReturnType<typeof emailDates>, dev: DeviceFacts, { dates }: { dates: boolean }) {
+  const rows: { label: string; value: string }[] = [
+    { label: t("device.route"), value: t(`enum.route.${dev.route}`) },
+    { label: t("device.type"), value: t(`enum.catheterType.${dev.catheterType}`) },
+    { label: t("device.material"), value: t(`enum.material.${dev.material}`) },
+    { label: t("device.length"), value: t(`enum.length.${dev.lengthCategory}`) },
+    {
+      label: t("device.size"),
+      value: dev.sizeMm !== null ? t("device.sizeValue", { ch: dev.sizeCh, mm: d.number(dev.sizeMm) }) : t("device.sizeChOnly", { ch: dev.sizeCh }),
+    },
+    { label: t("device.balloon"), value: t("device.balloonValue", { ml: dev.balloonMl }) },
+  ];
+  const maker = [dev.maker, dev.productName].filter(Boolean).join(", ");
+  if (maker) rows.push({ label: t("device.maker"), value: maker });
+  rows.push({ label: t("device.lot"), value: dev.lot || t("common.noneRecorded") });
+  rows.push({ label: t("device.expiry"), value: dev.expiry ? d.short(dev.expiry) : t("common.noneRecorded") });
+  rows.push({ label: t("device.inserted"), value: t("device.insertedValue", { date: d.at(new Date(dev.insertedAt)), name: dev.insertedByName }) });
+  rows.push({ label: t("device.indication"), value: dev.indication });
+  rows.push({
+    label: t("device.gel"),
+    value: dev.gelVolumeMl ? t("device.gelValue", { gel: t(`enum.gel.${dev.gelKind}`), ml: dev.gelVolumeMl }) : t(`enum.gel.${dev.gelKind}`),
+  });
+  if (dev.difficulties) rows.push({ label: t("device.difficulties"), value: dev.difficulties });
+  if (dates) {
+    rows.push({ label: t("device.plannedChange"), value: d.day(dev.plannedChangeOn) });
+    rows.push({ label: t("device.reviewDue"), value: d.day(dev.reviewDueOn) });
+  }
+  return rows;
+}
+
+export function careTeamLines(t: EmailT, team: GpSummaryFacts["careTeam"]): string[] {
+  return team.map((o) => {
+    const base = o.phone ? t("common.teamLine", { name: o.name, phone: o.phone }) : o.name;
+    return o.outOfHoursPhone ? `${base} ${t("common.outOfHours", { phone: o.outOfHoursPhone })}` : base;
+  });
+}
+
+/** The summary as one content model, for the e-mail (HTML and text) and the PDF alike. */
+export function gpSummaryContent(facts: GpSummaryFacts, locale: string): EmailContent {
+  const t = emailTranslator(locale);
+  const d = emailDates(locale);
+  const c = facts.cause;
+  const actor = facts.actorOrganisation ? t("common.actorAt", { name: facts.actorName, organisation: facts.actorOrganisation }) : facts.actorName;
+  const blocks: Block[] = [];
+
+  blocks.push({ type: "heading", text: t("gp.patient") });
+  blocks.push({
+    type: "facts",
+    rows: [
+      { label: t("gp.name"), value: facts.patient.name },
+      { label: t("gp.dateOfBirth"), value: d.short(facts.patient.dateOfBirth) },
+      { label: t("gp.healthRecordNumber"), value: facts.patient.healthRecordNumber },
+      { label: t("gp.allergies"), value: allergyText(t, facts.patient.allergies) },
+    ],
+  });
+
+  if (c === "removal" || c === "twoc") {
+    blocks.push({ type: "heading", text: c === "twoc" ? t("gp.twocHeading") : t("gp.removalHeading") });
+    const rows: { label: string; value: string }[] = [{ label: t("gp.when"), value: d.at(new Date(facts.occurredAt)) }];
+    if (c === "twoc" && facts.event?.twocOutcome) rows.push({ label: t("gp.twocOutcome"), value: t(`enum.twoc.${facts.event.twocOutcome}`) });
+    const reason = facts.previous?.removalReason;
+    if (c === "removal" && reason) {
+      const known = ["no-longer-needed", "trial-without-catheter", "problem", "patient-choice", "other"].includes(reason);
+      rows.push({ label: t("gp.removalReason"), value: known ? t(`enum.removalReason.${reason as "other"}`) : reason });
+    }
+    if (facts.event?.notes) rows.push({ label: t("gp.notes"), value: facts.event.notes });
+    blocks.push({ type: "facts", rows });
+  }
+
+  if (facts.passport) {
+    blocks.push({ type: "heading", text: t("gp.passportHeading") });
+    blocks.push({
+      type: "facts",
+      rows: [
+        { label: t("gp.issuedAt"), value: d.at(new Date(facts.passport.issuedAt)) },
+        { label: t("gp.languages"), value: facts.passport.languages.join(", ") },
+      ],
+    });
+  }
+
+  if (facts.device) {
+    blocks.push({ type: "heading", text: t("gp.deviceHeading") });
+    blocks.push({ type: "facts", rows: deviceRows(t, d, facts.device, { dates: false }) });
+    blocks.push({ type: "heading", text: t("gp.datesHeading") });
+    blocks.push({
+      type: "facts",
+      rows: [
+        { label: t("device.plannedChange"), value: d.day(facts.device.plannedChangeOn) },
+        { label: t("device.reviewDue"), value: d.day(facts.device.reviewDueOn) },
+      ],
+    });
+  } else {
+    blocks.push({ type: "notice", tone: "info", label: t("common.noticeInfo"), text: t("gp.noDevice") });
+  }
+
+  if (facts.previous && (c === "change" || c === "removal" || c === "twoc")) {
+    blocks.push({ type: "heading", text: t("gp.previousHeading") });
+    const prev = facts.previous;
+    const rows: { label: string; value: string }[] = [
+      { label: t("device.size"), value: t("device.sizeChOnly", { ch: prev.sizeCh }) },
+      { label: t("device.balloon"), value: t("device.balloonValue", { ml: prev.balloonMl }) },
+      { label: t("device.material"), value: t(`enum.material.${prev.material}`) },
+      { label: t("device.inserted"), value: t("device.insertedValue", { date: d.at(new Date(prev.insertedAt)), name: prev.insertedByName }) },
+    ];
+    if (c === "change" && facts.event?.reason) rows.push({ label: t("gp.changeReason"), value: t(`enum.reason.${facts.event.reason as "blockage"}`) });
+    if (c === "change" && facts.event?.kind === "planned_change") rows.push({ label: t("gp.changeReason"), value: t("gp.plannedChange") });
+    blocks.push({ type: "facts", rows });
+  }
+
+  blocks.push({ type: "heading", text: t("gp.findingsHeading") });
+  if (!facts.findings.length && !facts.refused.length) {
+    blocks.push({ type: "paragraph", text: t("gp.noFindings") });
+  }
+  for (const f of facts.findings) {
+    const name = findingName(t, f.code, f.message);
+    blocks.push({
+      type: "notice",
+      tone: f.severity === "stop" ? "stop" : "warn",
+      label: f.severity === "stop" ? t("common.noticeStop") : t("common.noticeWarn"),
+      text: f.override ? `${name}. ${t("gp.overridden", { reason: f.override })}` : name,
+    });
+  }
+  for (const r of facts.refused) {
+    const name = findingName(t, r.code, r.code);
+    blocks.push({
+      type: "notice",
+      tone: "info",
+      label: t("common.noticeInfo"),
+      text: r.detail ? t("gp.refusedDetail", { finding: name, detail: r.detail }) : t("gp.refused", { finding: name }),
+    });
+  }
+
+  if (facts.careTeam.length) {
+    blocks.push({ type: "heading", text: t("gp.careTeamHeading") });
+    blocks.push({ type: "list", items: careTeamLines(t, facts.careTeam) });
+  }
+
+  return {
+    locale,
+    subject: t(`gp.subject.${c}`, { hrn: facts.patient.healthRecordNumber }),
+    title: t(`gp.title.${c}`),
+    intro: t(`gp.intro.${c}`, { patient: facts.patient.name, actor, date: d.at(new Date(facts.occurredAt)) }),
+    blocks,
+    footer: [t("gp.footerWhy", { practice: facts.gp?.name ?? "" }), t("common.footerNoReply"), t("common.footerSafety")],
+  };
+}
+
+export function gpSummaryFilename(facts: GpSummaryFacts) {
+  const safe = facts.patient.healthRecordNumber.replace(/[^A-Za-z0-9-]+/g, "-");
+  return `caddis-gp-summary-${safe}-${facts.occurredAt.slice(0, 10)}.pdf`;
+}
+
+/**
+ * Queues the GP summary in the caller's transaction; one per event (a second call for the same
+ * event or passport queues nothing). With no GP practice or no inbox recorded, the row is kept
+ * as failed ("no_recipient") so the Letters tab and the care team's digest show it.
+ */
+export async function queueGpSummary(tx: Executor, input: QueueGpSummaryInput): Promise<QueuedMessage> {
+  const facts = await loadGpSummaryFacts(input, tx);
+  const locale = emailLocale(facts.gp?.locale);
+  const content = gpSummaryContent(facts, locale);
+  const rendered = renderEmail(content);
+  const params: Record<string, string> = {
+    patientId: input.patientId,
+    cause: input.cause,
+    actorName: input.actorName,
+    locale,
+    ...(input.eventId ? { eventId: input.eventId } : {}),
+    ...(input.passportId ? { passportId: input.passportId } : {}),
+    ...(input.refused?.length ? { refused: JSON.stringify(input.refused) } : {}),
+  };
+  return queueMessage(tx, {
+    idempotencyKey: gpSummaryKey(input),
+    kind: "gp-summary",
+    to: facts.gp?.inboxEmail ?? null,
+    ...rendered,
+    attachments: [{ kind: "gp-summary-pdf", filename: gpSummaryFilename(facts), params }],
+    patientId: input.patientId,
+    organisationId: facts.gp?.id ?? null,
+    locale,
+    sourceId: input.eventId ?? input.passportId ?? null,
+  });
+}
+
+/** Attachment renderer (lib/email/attachments.ts): the PDF, from the same rows as the e-mail. */
+export async function renderGpSummaryAttachment(params: Record<string, string>) {
+  const facts = await loadGpSummaryFacts(
+    {
+      patientId: params.patientId,
+      eventId: params.eventId,
+      passportId: params.passportId,
+      cause: params.cause as GpSummaryCause,
+      actorName: params.actorName,
+      refused: params.refused ? JSON.parse(params.refused) : [],
+    },
+    db,
+  );
+  const { renderContentPdf } = await import("@/lib/pdf/gp-summary");
+  const locale = emailLocale(params.locale);
+  const content = await renderContentPdf(gpSummaryContent(facts, locale), { generatedAt: new Date() });
+  return { content, contentType: "application/pdf" };
+}

@@ -1,0 +1,103 @@
+import "server-only";
+// The request to the GP practice to prescribe a period's catheter supplies, in the practice's
+// language, with the catheter's specification so the right product is prescribed.
+import type { Executor } from "@/db";
+import { getCareTeamOrganisations } from "@/db/queries/mail-context";
+import type { CatheterEpisode, Organisation, Patient, SupplyRequest } from "@/db/schema";
+import { allergyText, careTeamLines } from "./gp-summary";
+import { emailDates, emailLocale, emailTranslator } from "./i18n";
+import { queueMessage } from "./outbox";
+import { renderEmail, type Block } from "./render";
+
+export async function queueSupplyRequestEmail(
+  tx: Executor,
+  {
+    request,
+    patient,
+    episode,
+    gp,
+    actorName,
+    createdByUserId,
+  }: {
+    request: SupplyRequest;
+    patient: Patient;
+    episode: CatheterEpisode;
+    gp: Organisation | null;
+    actorName: string;
+    createdByUserId: string;
+  },
+) {
+  const locale = emailLocale(gp?.locale);
+  const t = emailTranslator(locale);
+  const d = emailDates(locale);
+  const team = await getCareTeamOrganisations({ patientId: patient.id }, tx);
+  const basis = (item: string, interval: number) => {
+    if (item === "catheter") return t("supply.basisCatheter", { days: interval });
+    if (item === "gel") return t("supply.basisGel");
+    if (item === "night-bag") return t("supply.basisNight");
+    return t("supply.basisEvery", { days: interval });
+  };
+  const spec = t("supply.specValue", {
+    route: t(`enum.route.${episode.route}`),
+    type: t(`enum.catheterType.${episode.catheterType}`),
+    material: t(`enum.material.${episode.material}`),
+    length: t(`enum.length.${episode.lengthCategory}`),
+    ch: episode.sizeCh,
+    ml: episode.balloonMl,
+  });
+  const blocks: Block[] = [
+    { type: "heading", text: t("gp.patient") },
+    {
+      type: "facts",
+      rows: [
+        { label: t("gp.name"), value: `${patient.givenName} ${patient.familyName}` },
+        { label: t("gp.dateOfBirth"), value: d.short(patient.dateOfBirth) },
+        { label: t("gp.healthRecordNumber"), value: patient.healthRecordNumber },
+        {
+          label: t("gp.allergies"),
+          value: allergyText(t, { latex: patient.allergyLatex, chlorhexidine: patient.allergyChlorhexidine, lidocaine: patient.allergyLidocaine, other: patient.allergyOther }),
+        },
+      ],
+    },
+    { type: "heading", text: t("supply.itemsHeading", { days: request.periodDays }) },
+    {
+      type: "table",
+      head: [t("supply.colItem"), t("supply.colQuantity"), t("supply.colBasis")],
+      rows: request.items
+        .filter((i) => i.quantity > 0)
+        .map((i) => [t(`enum.item.${i.item}`), String(i.quantity), basis(i.item, i.intervalDays)]),
+    },
+    { type: "heading", text: t("supply.specHeading") },
+    {
+      type: "facts",
+      rows: [
+        { label: t("supply.spec"), value: spec },
+        ...(episode.maker || episode.productName
+          ? [{ label: t("device.maker"), value: [episode.maker, episode.productName].filter(Boolean).join(", ") }]
+          : []),
+        { label: t("device.plannedChange"), value: d.day(episode.plannedChangeOn) },
+      ],
+    },
+  ];
+  if (request.note) blocks.push({ type: "heading", text: t("supply.noteHeading") }, { type: "paragraph", text: request.note });
+  if (team.length) blocks.push({ type: "heading", text: t("gp.careTeamHeading") }, { type: "list", items: careTeamLines(t, team) });
+  const content = {
+    locale,
+    subject: t("supply.subject", { hrn: patient.healthRecordNumber }),
+    title: t("supply.title"),
+    intro: t("supply.intro", { actor: actorName, patient: `${patient.givenName} ${patient.familyName}`, days: request.periodDays }),
+    blocks,
+    footer: [t("supply.footerWhy"), t("common.footerNoReply"), t("common.footerSafety")],
+  };
+  return queueMessage(tx, {
+    idempotencyKey: `supply-request:${request.id}`,
+    kind: "supply-request",
+    to: gp?.inboxEmail ?? null,
+    ...renderEmail(content),
+    patientId: patient.id,
+    organisationId: gp?.id ?? null,
+    locale,
+    sourceId: request.id,
+    createdByUserId,
+  });
+}

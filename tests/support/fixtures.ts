@@ -1,0 +1,67 @@
+// Test-only organisations, clinicians and patients of their own, so a test that adds data does
+// not change what other tests see in the demo organisations. Each fixture removes itself.
+import { randomBytes, randomUUID } from "node:crypto";
+import { eq, inArray } from "drizzle-orm";
+import { db } from "@/db";
+import { account, careTeam, memberships, organisations, patients, user, visitAccess } from "@/db/schema";
+import { hashPassword } from "@/lib/auth/password";
+import { signIn } from "./http";
+
+export type ClinicianFixture = {
+  organisationId: string;
+  userId: string;
+  email: string;
+  cookie: string;
+  cleanup: () => Promise<void>;
+};
+
+/** A new community team with one clinician, signed in. */
+export async function clinicianInNewTeam(label = "Fixture"): Promise<ClinicianFixture> {
+  const tag = randomBytes(4).toString("hex");
+  const password = `Fixture-${tag}-password`;
+  const email = `fixture.${tag}@eastmere.example`;
+  const [org] = await db
+    .insert(organisations)
+    .values({ name: `${label} Team ${tag}`, kind: "community_team", phone: "01632 960 999" })
+    .returning({ id: organisations.id });
+  const userId = randomUUID();
+  await db.insert(user).values({ id: userId, email, name: `${label} Nurse ${tag}`, role: "clinician", locale: "en", emailVerified: true });
+  await db.insert(account).values({ id: randomUUID(), userId, accountId: userId, providerId: "credential", password: await hashPassword(password) });
+  await db.insert(memberships).values({ userId, organisationId: org.id });
+  const cookie = await signIn(email, password);
+  return {
+    organisationId: org.id,
+    userId,
+    email,
+    cookie,
+    cleanup: async () => {
+      const ids = (await db.select({ id: careTeam.patientId }).from(careTeam).where(eq(careTeam.organisationId, org.id))).map((r) => r.id);
+      if (ids.length) await db.delete(patients).where(inArray(patients.id, ids));
+      await db.delete(user).where(eq(user.id, userId));
+      await db.delete(organisations).where(eq(organisations.id, org.id));
+    },
+  };
+}
+
+/** Time-limited visit access for a clinician outside the care team (as the QR flow grants it). */
+export async function grantVisitAccess({ patientId, userId, minutes = 60 }: { patientId: string; userId: string; minutes?: number }) {
+  const [row] = await db
+    .insert(visitAccess)
+    .values({ patientId, userId, reason: "Out-of-hours visit (test)", expiresAt: new Date(Date.now() + minutes * 60_000) })
+    .returning({ id: visitAccess.id });
+  // Ends the access again, so later tests see the clinician as an outsider.
+  return async () => {
+    await db.delete(visitAccess).where(eq(visitAccess.id, row.id));
+  };
+}
+
+export async function patientIdByHrn(hrn: string): Promise<string> {
+  const [p] = await db.select({ id: patients.id }).from(patients).where(eq(patients.healthRecordNumber, hrn));
+  if (!p) throw new Error(`no patient ${hrn}`);
+  return p.id;
+}
+
+export async function userIdByEmail(email: string): Promise<string> {
+  const [u] = await db.select({ id: user.id }).from(user).where(eq(user.email, email));
+  return u.id;
+}

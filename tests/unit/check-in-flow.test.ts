@@ -1,0 +1,154 @@
+// The check-in screens around lib/clinical's triageCheckIn: red flags first, an emergency answer
+// ends the check-in at once, an unfinished check-in scores only when it is an emergency, and
+// every reason and piece of advice the rules can give has words in every locale.
+import fs from "node:fs";
+import path from "node:path";
+import fc from "fast-check";
+import { describe, expect, it } from "vitest";
+import { isAsked, isComplete, LEVEL_STEP_KEY, questionsFor, reachesEmergency, scoreAnswers, type SubmittedAnswers } from "@/lib/check-in-flow";
+import { TRIAGE_LEVELS, TRIAGE_RULES, triageCheckIn, type CheckInAnswers } from "@/lib/clinical";
+import { locales } from "@/lib/i18n/routing";
+import { palette } from "@/tailwind.config";
+
+// WCAG 2.x relative luminance contrast.
+function contrast(a: string, b: string) {
+  const lum = (hex: string) => {
+    const [r, g, bl] = [1, 3, 5].map((i) => parseInt(hex.slice(i, i + 2), 16) / 255).map((c) => (c <= 0.04045 ? c / 12.92 : ((c + 0.055) / 1.055) ** 2.4));
+    return 0.2126 * r + 0.7152 * g + 0.0722 * bl;
+  };
+  const [hi, lo] = [lum(a), lum(b)].sort((x, y) => y - x);
+  return (hi + 0.05) / (lo + 0.05);
+}
+
+const load = (l: string) => JSON.parse(fs.readFileSync(path.resolve(__dirname, `../../messages/${l}.json`), "utf8"));
+
+describe("question order", () => {
+  it("asks the NICE NG51 red flags before anything else", () => {
+    const ids = questionsFor("urethral").map((q) => q.id);
+    expect(ids.slice(0, 4)).toEqual(["newConfusion", "breathless", "feelsVeryUnwell", "shivering"]);
+    expect(ids.indexOf("temperatureC")).toBeLessThan(ids.indexOf("pain"));
+  });
+
+  it("asks about the skin round a tummy catheter only for a suprapubic catheter", () => {
+    const other = (r: "urethral" | "suprapubic") => questionsFor(r).find((q) => q.id === "other")!;
+    expect(other("suprapubic").kind === "many" && other("suprapubic").options).toContain("suprapubicSiteRed");
+    expect(other("urethral").kind === "many" && other("urethral").options).not.toContain("suprapubicSiteRed");
+  });
+
+  it("asks how long without urine only when less or none drains", () => {
+    const q = questionsFor(null).find((x) => x.id === "hoursWithoutUrine")!;
+    expect(isAsked(q, { draining: "yes" })).toBe(false);
+    expect(isAsked(q, { draining: "less" })).toBe(true);
+    expect(isAsked(q, { draining: "none" })).toBe(true);
+  });
+
+  it("reaches a result in at most 11 taps (10 when urine drains)", () => {
+    const all = questionsFor("suprapubic");
+    expect(all.filter((q) => isAsked(q, { draining: "yes" }))).toHaveLength(10);
+    expect(all.filter((q) => isAsked(q, { draining: "none" }))).toHaveLength(11);
+  });
+});
+
+describe("scoring", () => {
+  it.each([
+    [{ newConfusion: true }],
+    [{ newConfusion: false, breathless: true }],
+    [{ newConfusion: false, breathless: false, feelsVeryUnwell: true }],
+    [{ shivering: true, temperatureC: 38.6 }],
+    [{ draining: "none", hoursWithoutUrine: 18 }],
+  ] as SubmittedAnswers[][])("an emergency answer ends the check-in: %j", (answers) => {
+    expect(reachesEmergency(answers, null)).toBe(true);
+    expect(scoreAnswers(answers, null)?.result.level).toBe("emergency");
+    expect(scoreAnswers(answers, null)?.complete).toBe(isComplete(answers));
+  });
+
+  it("an unfinished check-in that is not an emergency is not a result", () => {
+    expect(scoreAnswers({ newConfusion: false, shivering: true }, null)).toBeNull();
+    expect(reachesEmergency({ shivering: true }, null)).toBe(false);
+  });
+
+  it("scores a finished check-in exactly as triageCheckIn does (no rule of its own)", () => {
+    const answer = fc.record(
+      {
+        draining: fc.constantFrom("yes", "less", "none"),
+        pain: fc.constantFrom("none", "mild", "severe"),
+        hoursWithoutUrine: fc.option(fc.constantFrom(12, 18), { nil: undefined }),
+        temperatureC: fc.option(fc.double({ min: 30, max: 44, noNaN: true }), { nil: undefined }),
+        shivering: fc.boolean(),
+        newConfusion: fc.boolean(),
+        feelsVeryUnwell: fc.boolean(),
+        breathless: fc.boolean(),
+        blood: fc.constantFrom("none", "pink", "red", "clots"),
+        leaking: fc.boolean(),
+        catheterOut: fc.boolean(),
+        cloudyOrSmelly: fc.boolean(),
+        sediment: fc.boolean(),
+        constipated: fc.boolean(),
+        suprapubicSiteRed: fc.boolean(),
+      },
+      { requiredKeys: ["draining", "pain"] },
+    );
+    fc.assert(
+      fc.property(answer, fc.constantFrom("urethral", "suprapubic") as fc.Arbitrary<"urethral" | "suprapubic">, (a, route) => {
+        const clean = Object.fromEntries(Object.entries(a).filter(([, v]) => v !== undefined)) as SubmittedAnswers;
+        const ours = scoreAnswers(clean, route)!;
+        const theirs = triageCheckIn({ ...(clean as CheckInAnswers), route });
+        expect(ours.complete).toBe(true);
+        expect(ours.result.level).toBe(theirs.level);
+        expect(ours.result.ruleIds).toEqual(theirs.ruleIds);
+      }),
+      { numRuns: 300 },
+    );
+  });
+
+  it("LEVEL_STEP_KEY names the first step triageCheckIn gives for each level", () => {
+    const samples: Record<string, CheckInAnswers> = {
+      emergency: { draining: "yes", pain: "none", newConfusion: true },
+      urgent: { draining: "none", pain: "none" },
+      soon: { draining: "yes", pain: "mild" },
+      "self-care": { draining: "yes", pain: "none" },
+    };
+    for (const level of TRIAGE_LEVELS) {
+      const r = triageCheckIn(samples[level]);
+      expect(r.level).toBe(level);
+      expect(r.advice[0].key).toBe(LEVEL_STEP_KEY[level]);
+    }
+  });
+});
+
+describe("words for every rule", () => {
+  const reasonKeys = [...new Set(TRIAGE_RULES.map((r) => r.reason.key))];
+  const adviceKeys = [...new Set([...TRIAGE_RULES.flatMap((r) => r.advice.map((a) => a.key)), ...Object.values(LEVEL_STEP_KEY), "if-worse", "drink"])];
+
+  it.each([...locales])("%s has a reason and advice text for every triage rule, and a word for every level", (locale) => {
+    const m = load(locale).CheckIn;
+    expect(reasonKeys.filter((k) => !m.reason[k])).toEqual([]);
+    expect(adviceKeys.filter((k) => !m.advice[k])).toEqual([]);
+    for (const l of TRIAGE_LEVELS) expect(m.level[l]).toBeTruthy();
+  });
+
+  it("the English words are the rules' own plain English", () => {
+    const m = load("en").CheckIn;
+    for (const r of TRIAGE_RULES) expect(m.reason[r.reason.key]).toBe(r.reason.text);
+  });
+});
+
+describe("level marks are not colour alone and stand out (WCAG 1.4.11)", () => {
+  it.each([
+    ["emergency", palette.level.emergency],
+    ["urgent", palette.level.urgent],
+    ["soon", palette.level.soon],
+    ["self-care", palette.level.selfcare],
+  ] as const)("%s mark ≥ 3:1 on its soft fill, text ≥ 4.5:1", (_l, c) => {
+    expect(contrast(c.DEFAULT, c.soft)).toBeGreaterThanOrEqual(3);
+    expect(contrast(c.ink, c.soft)).toBeGreaterThanOrEqual(4.5);
+  });
+});
+
+describe("shared schemas", () => {
+  it("the browser's password minimum equals the server's", async () => {
+    const { NEW_PASSWORD_MIN } = await import("@/lib/validations/invitations");
+    const { PASSWORD_MIN_LENGTH } = await import("@/lib/auth/password");
+    expect(NEW_PASSWORD_MIN).toBe(PASSWORD_MIN_LENGTH);
+  });
+});

@@ -1,0 +1,58 @@
+// Every English guidance page reads at Flesch–Kincaid grade 6 or below (clinical-checks.md §9:
+// target grade ≤ 6 for patient pages), and every page of every locale is complete.
+import fs from "node:fs";
+import path from "node:path";
+import { describe, expect, it } from "vitest";
+import { locales } from "@/lib/i18n/routing";
+import { LEARN_PAGES, type LearnSection } from "@/lib/learn";
+import { counts, grade, numberWords, splitSentences, wordSyllables } from "../support/readability";
+
+const load = (l: string) => JSON.parse(fs.readFileSync(path.resolve(__dirname, `../../messages/${l}.json`), "utf8"));
+type Page = { title: string; summary: string; sections: LearnSection[] };
+const pageBlocks = (p: Page) => [p.title, p.summary, ...p.sections.flatMap((s) => [s.heading, ...s.points])];
+
+describe("readability measure", () => {
+  // Source: security-accessibility.md, "Plain language — measuring grade": a known-easy sample
+  // of 38 words, 5 sentences and 44 syllables must score 1.04. (Our own sample text with those counts.)
+  const sample =
+    "Wash your hands with water. Keep the bag lower on your leg. Drink a glass of water now and then. Tell the nurses if it itches. Call us when the tube is blocked or the bag stays empty.";
+
+  it("counts the known-easy sample as 5 sentences, 38 words, 44 syllables and scores it 1.04", () => {
+    expect(counts([sample])).toEqual({ sentence: 5, word: 38, syllable: 44 });
+    expect(grade([sample]).toFixed(2)).toBe("1.04");
+  });
+
+  it("splits sentences itself (the packages do not) and counts numbers as spoken", () => {
+    expect(splitSentences("Drink 1.5 to 2 litres. Then rest! Done")).toEqual(["Drink 1.5 to 2 litres.", "Then rest!", "Done"]);
+    expect(numberWords(18)).toBe("eighteen");
+    expect(wordSyllables("1.5")).toBe(3); // one point five
+    expect(wordSyllables("18")).toBe(2);
+    expect(wordSyllables("catheter")).toBe(3);
+    expect(wordSyllables("ml")).toBe(4); // millilitres
+  });
+});
+
+describe("Learn pages", () => {
+  const en = load("en").Learn;
+
+  it("has all ten topics", () => {
+    expect(LEARN_PAGES).toHaveLength(10);
+    for (const p of LEARN_PAGES) expect(en.pages[p.key], p.key).toBeDefined();
+  });
+
+  it.each(LEARN_PAGES.map((p) => [p.key]))("English page %s scores Flesch–Kincaid grade ≤ 6", (key) => {
+    const g = grade(pageBlocks(en.pages[key]));
+    expect(g, `${key}: grade ${g.toFixed(2)}`).toBeLessThanOrEqual(6);
+  });
+
+  it.each([...locales])("%s: every page has a title, summary and the same sections as English", (locale) => {
+    const pages = load(locale).Learn.pages;
+    for (const p of LEARN_PAGES) {
+      const page: Page = pages[p.key];
+      expect(page.title.length, `${locale} ${p.key}`).toBeGreaterThan(0);
+      expect(page.sections.map((s) => s.points.length)).toEqual(en.pages[p.key].sections.map((s: LearnSection) => s.points.length));
+    }
+    // The translation mark is shown on every non-English page (the page component renders it).
+    expect(load(locale).Learn.translationNote.length).toBeGreaterThan(20);
+  });
+});
