@@ -26,6 +26,8 @@ const schema = z.object({
   DIGEST_CRON: z.string().min(9).default("0 7 * * 1"),
   CADDIS_TIME_ZONE: z.string().min(1).default("Europe/London"),
   S3_ENDPOINT: z.url().default("http://127.0.0.1:4569"),
+  // Address browsers use for presigned uploads, when it differs from S3_ENDPOINT.
+  S3_PUBLIC_ENDPOINT: z.preprocess((v) => (v === "" ? undefined : v), z.url().optional()),
   S3_REGION: z.string().default("us-east-1"),
   S3_BUCKET: z.string().default("caddis-uploads"),
   S3_ACCESS_KEY_ID: z.string().default("S3RVER"),

@@ -1,7 +1,10 @@
+import { randomUUID } from "node:crypto";
 import { eq } from "drizzle-orm";
+import { PNG } from "pngjs";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db";
-import { patients } from "@/db/schema";
+import { patients, uploads, user } from "@/db/schema";
+import { putObject } from "@/lib/storage";
 import { call, sessionFor } from "../../support/http";
 import { fillPattern, listRouteFiles, methods, type Method } from "../../support/routes";
 import { matrix, personas, type Fixture, type Persona } from "./access-matrix";
@@ -29,7 +32,15 @@ beforeAll(async () => {
   }
   const [arthur] = await db.select({ id: patients.id }).from(patients).where(eq(patients.healthRecordNumber, "EM-100-001"));
   const [yusuf] = await db.select({ id: patients.id }).from(patients).where(eq(patients.healthRecordNumber, "EM-100-003"));
-  fixture = { patientId: arthur.id, otherPatientId: yusuf.id };
+  // A finished upload on Arthur's record (a small PNG in the store), for the upload rows.
+  const [grace] = await db.select({ id: user.id }).from(user).where(eq(user.email, "community.nurse@eastmere.example"));
+  const objectKey = `patients/${arthur.id}/${randomUUID()}`;
+  await putObject({ key: objectKey, body: PNG.sync.write(new PNG({ width: 2, height: 2 })), contentType: "image/png" });
+  const [upload] = await db
+    .insert(uploads)
+    .values({ patientId: arthur.id, uploadedByUserId: grace.id, category: "packaging-label", objectKey, label: "Matrix fixture", contentType: "image/png", sizeBytes: 70, status: "ready" })
+    .returning({ id: uploads.id });
+  fixture = { patientId: arthur.id, otherPatientId: yusuf.id, uploadId: upload.id };
 });
 
 describe("security matrix: every route handler × every persona", () => {

@@ -17,7 +17,7 @@ export type Persona = (typeof personas)[number];
 export type Cell = 401 | 403 | 404 | 200 | "allowed";
 export type Expectations = Record<Persona, Cell>;
 
-export type Fixture = { patientId: string; otherPatientId: string };
+export type Fixture = { patientId: string; otherPatientId: string; uploadId: string };
 
 export type Row =
   | {
@@ -49,6 +49,7 @@ const anyoneSignedIn: Expectations = {
 export const shapes = { staffOnPatient, clinicianOnly, adminOnly, portalOnly, anyoneSignedIn };
 
 const patient = (f: Fixture) => ({ patientId: f.patientId });
+const upload = (f: Fixture) => ({ patientId: f.patientId, uploadId: f.uploadId });
 
 export const matrix: Row[] = [
   { route: "GET /api/auth/[...all]", exempt: "better-auth's own handler; sign-in, sessions and limits are tested in auth.test.ts" },
@@ -98,6 +99,25 @@ export const matrix: Row[] = [
   { route: "PATCH /api/patients/[patientId]", params: patient, expect: staffOnPatient },
   { route: "GET /api/patients/[patientId]/history", params: patient, expect: staffOnPatient },
   { route: "GET /api/patients/[patientId]/access-log", params: patient, expect: staffOnPatient },
+  // Passport: issue/reissue, metadata, the stored booklet. The POST row comes first, so the
+  // booklet row finds a passport to download (rows run in order).
+  { route: "POST /api/patients/[patientId]/passport", params: patient, expect: staffOnPatient },
+  { route: "GET /api/patients/[patientId]/passport", params: patient, expect: staffOnPatient },
+  { route: "GET /api/patients/[patientId]/passport/pdf", params: patient, expect: staffOnPatient },
+  // Uploads: staff list and download; the patient and a linked carer may add site photos.
+  { route: "GET /api/patients/[patientId]/uploads", params: patient, expect: staffOnPatient },
+  {
+    route: "POST /api/patients/[patientId]/uploads",
+    params: patient,
+    expect: { anonymous: 401, admin: 403, careTeamClinician: "allowed", otherClinician: 404, patient: "allowed", otherPatient: 404, carer: "allowed" },
+  },
+  {
+    // The fixture upload was started by the care team: the patient and carer finish only their own.
+    route: "POST /api/patients/[patientId]/uploads/[uploadId]/complete",
+    params: upload,
+    expect: { anonymous: 401, admin: 403, careTeamClinician: "allowed", otherClinician: 404, patient: 404, otherPatient: 404, carer: 404 },
+  },
+  { route: "GET /api/patients/[patientId]/uploads/[uploadId]/file", params: upload, expect: staffOnPatient },
   { route: "GET /api/patients/[patientId]/messages", params: patient, expect: staffOnPatient },
   { route: "POST /api/patients/[patientId]/messages/[messageId]/resend", exempt: "needs a message of the patient: its full matrix is in letters-supplies.test.ts" },
   { route: "GET /api/patients/[patientId]/supply-requests", params: patient, expect: staffOnPatient },

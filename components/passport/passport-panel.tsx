@@ -1,0 +1,220 @@
+"use client";
+// Issuing the passport. The QR and the passport code come back once, in the answer to the
+// issue request; this component holds them only in memory and never stores them.
+import { useMutation } from "@tanstack/react-query";
+import { useFormatter, useTranslations } from "next-intl";
+import { useState } from "react";
+import { Button, buttonClass } from "@/components/ui/button";
+import { Card } from "@/components/ui/card";
+import type { PassportOverview } from "@/db/queries/passports";
+import { useRouter } from "@/lib/i18n/navigation";
+import { localeNames, type Locale } from "@/lib/i18n/routing";
+
+type Issued = {
+  passport: { id: string; issuedAt: string; issuedByName: string | null; languages: string[] };
+  url: string;
+  shortCode: string;
+  qrSvg: string;
+  pdfUrl: string;
+};
+
+async function issue(patientId: string, reissue: boolean): Promise<Issued> {
+  const res = await fetch(`/api/patients/${patientId}/passport`, {
+    method: "POST",
+    headers: { "content-type": "application/json" },
+    body: JSON.stringify(reissue ? { reissue: true } : {}),
+  });
+  if (!res.ok) throw new Error(`passport issue failed: ${res.status}`);
+  return res.json();
+}
+
+function svgDataUrl(svg: string) {
+  // The SVG comes from our own server (lib/qr) and holds only ASCII path data.
+  return `data:image/svg+xml;base64,${btoa(svg)}`;
+}
+
+export function PassportPanel({
+  patientId,
+  overview,
+  languages,
+  hasDevice,
+}: {
+  patientId: string;
+  overview: PassportOverview;
+  languages: string[];
+  hasDevice: boolean;
+}) {
+  const t = useTranslations("Passport");
+  const format = useFormatter();
+  const router = useRouter();
+  const [issued, setIssued] = useState<Issued | null>(null);
+  const [confirming, setConfirming] = useState(false);
+  const mutation = useMutation({
+    mutationFn: (reissue: boolean) => issue(patientId, reissue),
+    onSuccess: (result) => {
+      setIssued(result);
+      setConfirming(false);
+      router.refresh();
+    },
+  });
+  const current = overview.current;
+  const when = (iso: string) => format.dateTime(new Date(iso), { dateStyle: "medium", timeStyle: "short" });
+  const languageNames = (codes: string[]) => codes.map((c) => localeNames[c as Locale] ?? c).join(" + ");
+  const pdfUrl = `/api/patients/${patientId}/passport/pdf`;
+
+  return (
+    <div className="flex flex-col gap-6">
+      <section aria-labelledby="passport-heading" className="flex flex-col gap-3">
+        <h2 id="passport-heading" className="text-2xl font-bold">
+          {t("title")}
+        </h2>
+        <p className="max-w-prose">{t("intro")}</p>
+        <p>
+          <span className="font-bold">{t("languages")}:</span> {languageNames(languages)}
+        </p>
+        {!hasDevice ? <p className="rounded-lg border-2 border-stone-line bg-paper-sunk p-3">{t("noDevice")}</p> : null}
+      </section>
+
+      {issued ? (
+        <Card className="flex flex-col gap-4 border-2 border-brand" data-testid="passport-issued">
+          <h3 className="text-xl font-bold">{t("issuedTitle")}</h3>
+          <p role="status" className="rounded-lg border-2 border-level-urgent bg-level-urgent-soft p-3 font-bold text-level-urgent-ink">
+            {t("showOnce")}
+          </p>
+          <div className="flex flex-col items-start gap-6 sm:flex-row">
+            {/* eslint-disable-next-line @next/next/no-img-element */}
+            <img
+              src={svgDataUrl(issued.qrSvg)}
+              alt={t("qrAlt")}
+              width={240}
+              height={240}
+              className="h-60 w-60 rounded-lg border border-stone-faint bg-white p-2"
+              data-testid="passport-qr"
+            />
+            <div className="flex flex-col gap-3">
+              <div>
+                <p className="font-bold">{t("code")}</p>
+                <p className="tabular text-3xl font-bold tracking-wider" dir="ltr" data-testid="passport-code">
+                  {issued.shortCode}
+                </p>
+                <p className="text-sm text-ink-soft">{t("codeHint")}</p>
+              </div>
+              <div>
+                <p className="font-bold">{t("link")}</p>
+                <p className="break-all font-mono text-sm" dir="ltr" data-testid="passport-url">
+                  {issued.url}
+                </p>
+              </div>
+              <a href={pdfUrl} download className={buttonClass("primary")} data-testid="passport-download">
+                {t("download")}
+              </a>
+            </div>
+          </div>
+        </Card>
+      ) : null}
+
+      <Card className="flex flex-col gap-4" data-testid="passport-current">
+        <h3 className="text-xl font-bold">{t("current")}</h3>
+        {current ? (
+          <>
+            <dl className="grid grid-cols-1 gap-x-6 gap-y-2 sm:grid-cols-[max-content_1fr]">
+              <dt className="font-bold">{t("issuedOn")}</dt>
+              <dd className="tabular">{when(current.issuedAt)}</dd>
+              <dt className="font-bold">{t("issuedBy")}</dt>
+              <dd>{current.issuedByName ?? "—"}</dd>
+              <dt className="font-bold">{t("languages")}</dt>
+              <dd>{languageNames(current.languages)}</dd>
+            </dl>
+            {current.outOfDate && !issued ? (
+              <p role="note" className="rounded-lg border-2 border-level-urgent bg-level-urgent-soft p-3 font-bold text-level-urgent-ink" data-testid="passport-out-of-date">
+                {t("outOfDate")}
+              </p>
+            ) : null}
+            {!issued ? <p className="text-ink-soft">{t("qrHidden")}</p> : null}
+            <div className="flex flex-wrap gap-3">
+              {!issued ? (
+                <a href={pdfUrl} download className={buttonClass("secondary")}>
+                  {t("download")}
+                </a>
+              ) : null}
+              <Button variant={issued ? "secondary" : "primary"} onClick={() => setConfirming(true)} disabled={mutation.isPending || confirming}>
+                {t("reissue")}
+              </Button>
+            </div>
+            <p className="text-sm text-ink-soft">{t("reissueHint")}</p>
+          </>
+        ) : (
+          <>
+            <p>{t("none")}</p>
+            <div>
+              <Button onClick={() => mutation.mutate(false)} disabled={mutation.isPending}>
+                {mutation.isPending ? t("issuing") : t("issue")}
+              </Button>
+            </div>
+          </>
+        )}
+        {confirming ? (
+          <div role="alertdialog" aria-labelledby="reissue-title" aria-describedby="reissue-body" className="flex flex-col gap-3 rounded-lg border-2 border-level-urgent bg-level-urgent-soft p-4">
+            <p id="reissue-title" className="text-lg font-bold text-level-urgent-ink">
+              {t("confirmTitle")}
+            </p>
+            <p id="reissue-body">{t("confirmBody")}</p>
+            <div className="flex flex-wrap gap-3">
+              <Button variant="danger" onClick={() => mutation.mutate(true)} disabled={mutation.isPending}>
+                {mutation.isPending ? t("issuing") : t("confirm")}
+              </Button>
+              <Button variant="secondary" onClick={() => setConfirming(false)} disabled={mutation.isPending}>
+                {t("cancel")}
+              </Button>
+            </div>
+          </div>
+        ) : null}
+        {mutation.isError ? (
+          <p role="alert" className="font-bold text-level-emergency-ink">
+            {t("error")}
+          </p>
+        ) : null}
+      </Card>
+
+      {overview.history.length > 0 ? (
+        <section aria-labelledby="passport-history" className="flex flex-col gap-3">
+          <h3 id="passport-history" className="text-xl font-bold">
+            {t("history")}
+          </h3>
+          <div className="overflow-x-auto rounded-card border border-stone-faint bg-paper-raised">
+            <table className="w-full text-start">
+              <thead className="bg-paper-sunk">
+                <tr>
+                  <th scope="col" className="p-3 text-start">{t("issuedOn")}</th>
+                  <th scope="col" className="p-3 text-start">{t("issuedBy")}</th>
+                  <th scope="col" className="p-3 text-start">{t("languages")}</th>
+                  <th scope="col" className="p-3 text-start">{t("status")}</th>
+                </tr>
+              </thead>
+              <tbody>
+                {overview.history.map((p) => (
+                  <tr key={p.id} className="border-t border-stone-faint">
+                    <td className="tabular p-3">{when(p.issuedAt)}</td>
+                    <td className="p-3">{p.issuedByName ?? "—"}</td>
+                    <td className="p-3">{languageNames(p.languages)}</td>
+                    <td className="p-3">
+                      {p.revokedAt ? (
+                        <span>
+                          {t("statusRevoked")} · <span className="tabular">{when(p.revokedAt)}</span>
+                        </span>
+                      ) : (
+                        <span className="font-bold text-level-selfcare-ink">{t("statusCurrent")}</span>
+                      )}
+                    </td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
+        </section>
+      ) : null}
+
+      <p className="text-sm text-ink-soft">{t("translationNote")}</p>
+    </div>
+  );
+}

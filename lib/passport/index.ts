@@ -1,0 +1,249 @@
+import "server-only";
+// The passport: issue (or reissue) with a fresh token and short code, the old ones revoked in
+// the same transaction; the booklet PDF made at issue time and kept in object storage, because
+// the plain token exists only in the issuing response and in that PDF.
+import { randomUUID } from "node:crypto";
+import { db } from "@/db";
+import {
+  findPassportRowByShortCodeHash,
+  findPassportRowByTokenHash,
+  getBookletRecord,
+  replacePassport,
+  type BookletRecord,
+  type PassportSummary,
+} from "@/db/queries/passports";
+import { audit } from "@/lib/audit";
+import type { Viewer } from "@/lib/auth/session";
+import { charriereToMm } from "@/lib/clinical";
+import { env } from "@/lib/env";
+import { AppError } from "@/lib/errors";
+import { isLocale } from "@/lib/i18n/routing";
+import { renderPassportPdf, type PassportBookletData } from "@/lib/pdf";
+import { qrPngDataUrl, qrSvg } from "@/lib/qr";
+import { deleteObject, putObject } from "@/lib/storage";
+import {
+  formatShortCode,
+  generateShortCode,
+  generateToken,
+  hashesEqual,
+  hashShortCode,
+  hashToken,
+  isWellFormedShortCode,
+  isWellFormedToken,
+} from "./tokens";
+
+export * from "./tokens";
+
+/** The address the QR encodes: the public device card (a later issue serves it). */
+export function passportUrl(token: string): string {
+  return `${new URL(env.APP_URL).origin}/p/${token}`;
+}
+
+/** Object key of a passport's booklet: chosen by the server, one per passport. */
+export function passportPdfKey({ patientId, passportId }: { patientId: string; passportId: string }): string {
+  return `passports/${patientId}/${passportId}.pdf`;
+}
+
+/** The patient's language, then English; English alone when that is their language. */
+export function passportLanguages(preferredLocale: string): string[] {
+  const first = isLocale(preferredLocale) ? preferredLocale : "en";
+  return first === "en" ? ["en"] : [first, "en"];
+}
+
+export type FoundPassport = { passportId: string; patientId: string; issuedAt: Date };
+
+/**
+ * The current passport a QR token opens, or null (malformed, unknown or revoked). The lookup
+ * goes by the SHA-256 of the token; the stored and computed hashes are then compared in
+ * constant time, so response timing says nothing about how much of a guess matched.
+ */
+export async function findPassportByToken(token: string): Promise<FoundPassport | null> {
+  if (typeof token !== "string" || !isWellFormedToken(token)) return null;
+  const hash = hashToken(token);
+  const row = await findPassportRowByTokenHash({ tokenHash: hash });
+  if (!row || !hashesEqual(row.tokenHash, hash) || row.revokedAt) return null;
+  return { passportId: row.id, patientId: row.patientId, issuedAt: row.issuedAt };
+}
+
+/** The same for the short code a visiting clinician types (callers must rate-limit it). */
+export async function findPassportByShortCode(code: string): Promise<FoundPassport | null> {
+  if (typeof code !== "string" || !isWellFormedShortCode(code)) return null;
+  const hash = hashShortCode(code);
+  const row = await findPassportRowByShortCodeHash({ shortCodeHash: hash });
+  if (!row || !hashesEqual(row.shortCodeHash, hash) || row.revokedAt) return null;
+  return { passportId: row.id, patientId: row.patientId, issuedAt: row.issuedAt };
+}
+
+/** What the booklet prints, from the record as it is now. */
+export function bookletData({
+  record,
+  url,
+  shortCode,
+  qrPngDataUrl: qr,
+  issuedAt,
+  issuedByName,
+}: {
+  record: BookletRecord;
+  url: string;
+  shortCode: string;
+  qrPngDataUrl: string;
+  issuedAt: Date;
+  issuedByName: string;
+}): PassportBookletData {
+  const e = record.currentEpisode;
+  const byEpisode = new Map(record.episodes.map((x) => [x.id, x]));
+  if (!record.settings.emergencyNumber) {
+    throw new AppError("conflict", "Set the emergency number in Administration before issuing a passport.", {
+      fields: { emergencyNumber: ["emergency_number_missing"] },
+    });
+  }
+  return {
+    locales: passportLanguages(record.patient.preferredLocale),
+    url,
+    shortCode,
+    qrPngDataUrl: qr,
+    issuedAt,
+    issuedByName,
+    patient: {
+      givenName: record.patient.givenName,
+      familyName: record.patient.familyName,
+      dateOfBirth: record.patient.dateOfBirth,
+      healthRecordNumber: record.patient.healthRecordNumber,
+      allergies: record.patient.allergies,
+    },
+    device: e
+      ? {
+          route: e.route,
+          catheterType: e.catheterType,
+          material: e.material,
+          lengthCategory: e.lengthCategory,
+          sizeCh: e.sizeCh,
+          sizeMm: charriereToMm(e.sizeCh),
+          balloonMl: e.balloonMl,
+          maker: e.maker,
+          productName: e.productName,
+          lot: e.lot,
+          expiry: e.expiry,
+          insertedAt: e.insertedAt,
+          insertedByName: e.insertedByName,
+          organisationName: e.organisationName,
+          indication: e.indication,
+          // Stored when the episode was saved, from lib/clinical planDates.
+          plannedChangeOn: e.plannedChangeOn,
+          reviewDueOn: e.reviewDueOn,
+        }
+      : null,
+    history: record.events.map((ev) => {
+      const putIn = ev.kind === "insertion" || ev.kind === "planned_change" || ev.kind === "unplanned_change";
+      const episode = putIn ? byEpisode.get(ev.episodeId) : undefined;
+      return {
+        at: ev.occurredAt,
+        kind: ev.kind,
+        reason: ev.reason,
+        twocOutcome: ev.twocOutcome,
+        byName: ev.recordedByName,
+        organisationName: ev.organisationName,
+        sizeCh: episode?.sizeCh ?? null,
+        material: episode?.material ?? null,
+        lot: episode?.lot ?? null,
+      };
+    }),
+    contacts: {
+      emergencyNumber: record.settings.emergencyNumber,
+      outOfHoursServiceName: record.settings.outOfHoursServiceName,
+      careTeams: record.careTeams,
+      gp: record.gp,
+    },
+  };
+}
+
+export type IssuedPassport = {
+  passport: PassportSummary;
+  /** Shown once: the device card address inside the QR. */
+  url: string;
+  /** Shown once, grouped: ABCD-EFGH-JKMN. */
+  shortCode: string;
+  qrSvg: string;
+  revokedIds: string[];
+};
+
+/**
+ * Issues a passport, or reissues it: new token and code, booklet rendered and stored, then the
+ * old passport revoked and the new one recorded with its audit event in one transaction. If
+ * the transaction fails the stored booklet is deleted again, so nothing is left half-made.
+ * The caller has checked that the viewer may act on the patient.
+ */
+export async function issuePassport({
+  viewer,
+  patientId,
+  via,
+  request,
+}: {
+  viewer: Viewer;
+  patientId: string;
+  via?: "care_team" | "visit_access";
+  request?: Request | { headers: Headers } | null;
+}): Promise<IssuedPassport> {
+  const record = await getBookletRecord({ patientId });
+  if (!record) throw new AppError("not_found");
+  const passportId = randomUUID();
+  const token = generateToken();
+  const code = generateShortCode();
+  const url = passportUrl(token);
+  const issuedAt = new Date();
+  const data = bookletData({
+    record,
+    url,
+    shortCode: formatShortCode(code),
+    qrPngDataUrl: await qrPngDataUrl(url),
+    issuedAt,
+    issuedByName: viewer.name,
+  });
+  const pdf = await renderPassportPdf(data);
+  const key = passportPdfKey({ patientId, passportId });
+  await putObject({ key, body: pdf, contentType: "application/pdf" });
+  try {
+    const result = await db.transaction(async (tx) => {
+      const replaced = await replacePassport(
+        {
+          id: passportId,
+          patientId,
+          tokenHash: hashToken(token),
+          shortCodeHash: hashShortCode(code),
+          languages: data.locales,
+          issuedByUserId: viewer.userId,
+          issuedAt,
+        },
+        tx,
+      );
+      await audit(
+        {
+          action: "passport.issue",
+          actor: viewer,
+          patientId,
+          via: via ?? "care_team",
+          request,
+          details: { passportId, revoked: replaced.revokedIds, languages: data.locales, pdfBytes: pdf.byteLength },
+        },
+        tx,
+      );
+      return replaced;
+    });
+    return {
+      passport: {
+        id: result.passport.id,
+        issuedAt: result.passport.issuedAt.toISOString(),
+        issuedByName: viewer.name,
+        languages: result.passport.languages,
+        revokedAt: null,
+      },
+      url,
+      shortCode: formatShortCode(code),
+      qrSvg: await qrSvg(url),
+      revokedIds: result.revokedIds,
+    };
+  } catch (error) {
+    await deleteObject({ key }).catch(() => {});
+    throw error;
+  }
+}

@@ -1,0 +1,16 @@
+import "server-only";
+// PDFs made on the server with @react-pdf/renderer (kept out of the bundle by
+// serverExternalPackages in next.config.ts).
+import { renderToBuffer } from "@react-pdf/renderer";
+import { registerPdfFonts } from "./fonts";
+import { PassportBooklet, type PassportBookletData } from "./passport-booklet";
+
+export type { BookletContact, BookletDevice, BookletEvent, PassportBookletData } from "./passport-booklet";
+export { PDF_FONT_FAMILY, registerPdfFonts } from "./fonts";
+export { pdfStrings } from "./messages";
+
+/** The passport booklet as PDF bytes. */
+export async function renderPassportPdf(data: PassportBookletData): Promise<Buffer> {
+  registerPdfFonts();
+  return renderToBuffer(<PassportBooklet data={data} />);
+}

@@ -1,0 +1,11 @@
+// Issuing a passport. A reissue must say so, so a double click or a stale page cannot revoke
+// the passport a patient has just been given.
+import { z } from "zod";
+
+export const passportIssueSchema = z
+  .object({
+    reissue: z.boolean({ error: "invalid" }).optional(),
+  })
+  .strict();
+
+export type PassportIssueValues = z.infer<typeof passportIssueSchema>;
