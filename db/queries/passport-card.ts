@@ -1,64 +1,31 @@
 import "server-only";
 // The passport's device card: what a stranger holding the QR may see, and nothing that names the
-// patient (no name, date of birth, address or record number).
-import { and, desc, eq, isNull } from "drizzle-orm";
+// patient (no name, date of birth, address or record number). One round trip, so the public card
+// stays quick under load.
+import { and, desc, eq, isNull, sql } from "drizzle-orm";
 import { db, type Executor } from "@/db";
-import { careTeam, catheterEpisodes, organisations, passports, patients, visitAccess } from "@/db/schema";
-import { hashesEqual, hashShortCode, hashToken, isWellFormedShortCode, isWellFormedToken } from "@/lib/qr/passport-token";
+import { careTeam, catheterEpisodes, organisations, patients, visitAccess } from "@/db/schema";
 
 export type DeviceCard = {
   patientLocale: string;
   device: {
-    route: string;
-    catheterType: string;
-    material: string;
-    lengthCategory: string;
+    route: (typeof catheterEpisodes.$inferSelect)["route"];
+    catheterType: (typeof catheterEpisodes.$inferSelect)["catheterType"];
+    material: (typeof catheterEpisodes.$inferSelect)["material"];
+    lengthCategory: (typeof catheterEpisodes.$inferSelect)["lengthCategory"];
     sizeCh: number;
     balloonMl: number;
+    gelKind: (typeof catheterEpisodes.$inferSelect)["gelKind"];
     insertedAt: string;
     plannedChangeOn: string;
   } | null;
+  /** Only the allergies that matter for a catheter and its gel. */
   allergies: { latex: boolean; chlorhexidine: boolean; lidocaine: boolean };
-  careTeamPhone: string | null;
+  careTeam: { phone: string | null; outOfHoursPhone: string | null } | null;
 };
 
-/** The current (unrevoked) passport for a token, or null for unknown and revoked alike. */
-export async function findCurrentPassportByToken({ token }: { token: string }, tx: Executor = db) {
-  if (!isWellFormedToken(token)) return null;
-  const hash = hashToken(token);
-  const [row] = await tx
-    .select({ id: passports.id, patientId: passports.patientId, tokenHash: passports.tokenHash })
-    .from(passports)
-    .where(and(eq(passports.tokenHash, hash), isNull(passports.revokedAt)))
-    .limit(1);
-  if (!row || !hashesEqual(row.tokenHash, hash)) return null;
-  return { id: row.id, patientId: row.patientId };
-}
-
-/** The current passport for a typed short code, or null. */
-export async function findCurrentPassportByShortCode({ code }: { code: string }, tx: Executor = db) {
-  if (!isWellFormedShortCode(code)) return null;
-  const hash = hashShortCode(code);
-  const [row] = await tx
-    .select({ id: passports.id, patientId: passports.patientId, shortCodeHash: passports.shortCodeHash })
-    .from(passports)
-    .where(and(eq(passports.shortCodeHash, hash), isNull(passports.revokedAt)))
-    .limit(1);
-  if (!row || !hashesEqual(row.shortCodeHash, hash)) return null;
-  return { id: row.id, patientId: row.patientId };
-}
-
-export async function getDeviceCard({ patientId }: { patientId: string }, tx: Executor = db): Promise<DeviceCard> {
-  const [p] = await tx
-    .select({
-      locale: patients.preferredLocale,
-      latex: patients.allergyLatex,
-      chlorhexidine: patients.allergyChlorhexidine,
-      lidocaine: patients.allergyLidocaine,
-    })
-    .from(patients)
-    .where(eq(patients.id, patientId));
-  const [e] = await tx
+export async function getDeviceCard({ patientId }: { patientId: string }, tx: Executor = db): Promise<DeviceCard | null> {
+  const episode = tx
     .select({
       route: catheterEpisodes.route,
       catheterType: catheterEpisodes.catheterType,
@@ -66,25 +33,66 @@ export async function getDeviceCard({ patientId }: { patientId: string }, tx: Ex
       lengthCategory: catheterEpisodes.lengthCategory,
       sizeCh: catheterEpisodes.sizeCh,
       balloonMl: catheterEpisodes.balloonMl,
+      gelKind: catheterEpisodes.gelKind,
       insertedAt: catheterEpisodes.insertedAt,
       plannedChangeOn: catheterEpisodes.plannedChangeOn,
     })
     .from(catheterEpisodes)
     .where(and(eq(catheterEpisodes.patientId, patientId), isNull(catheterEpisodes.removedAt)))
     .orderBy(desc(catheterEpisodes.insertedAt))
-    .limit(1);
-  const [team] = await tx
-    .select({ phone: organisations.phone })
+    .limit(1)
+    .as("e");
+  // The care team with a phone first (a community team before a ward), by name.
+  const team = tx
+    .select({ phone: organisations.phone, outOfHoursPhone: organisations.outOfHoursPhone })
     .from(careTeam)
     .innerJoin(organisations, eq(organisations.id, careTeam.organisationId))
     .where(eq(careTeam.patientId, patientId))
-    .orderBy(organisations.name)
-    .limit(1);
+    .orderBy(sql`${organisations.phone} is null`, sql`${organisations.kind} <> 'community_team'`, organisations.name)
+    .limit(1)
+    .as("t");
+  const [row] = await tx
+    .select({
+      locale: patients.preferredLocale,
+      latex: patients.allergyLatex,
+      chlorhexidine: patients.allergyChlorhexidine,
+      lidocaine: patients.allergyLidocaine,
+      e: {
+        route: episode.route,
+        catheterType: episode.catheterType,
+        material: episode.material,
+        lengthCategory: episode.lengthCategory,
+        sizeCh: episode.sizeCh,
+        balloonMl: episode.balloonMl,
+        gelKind: episode.gelKind,
+        insertedAt: episode.insertedAt,
+        plannedChangeOn: episode.plannedChangeOn,
+      },
+      t: { phone: team.phone, outOfHoursPhone: team.outOfHoursPhone },
+    })
+    .from(patients)
+    .leftJoinLateral(episode, sql`true`)
+    .leftJoinLateral(team, sql`true`)
+    .where(eq(patients.id, patientId));
+  if (!row) return null;
+  const e = row.e && row.e.sizeCh !== null ? row.e : null;
   return {
-    patientLocale: p?.locale ?? "en",
-    device: e ? { ...e, insertedAt: e.insertedAt.toISOString() } : null,
-    allergies: { latex: !!p?.latex, chlorhexidine: !!p?.chlorhexidine, lidocaine: !!p?.lidocaine },
-    careTeamPhone: team?.phone ?? null,
+    patientLocale: row.locale,
+    device: e
+      ? {
+          route: e.route!,
+          catheterType: e.catheterType!,
+          material: e.material!,
+          lengthCategory: e.lengthCategory!,
+          sizeCh: e.sizeCh!,
+          balloonMl: e.balloonMl!,
+          gelKind: e.gelKind!,
+          insertedAt: new Date(e.insertedAt!).toISOString(),
+          plannedChangeOn: e.plannedChangeOn!,
+        }
+      : null,
+    allergies: { latex: row.latex, chlorhexidine: row.chlorhexidine, lidocaine: row.lidocaine },
+    careTeam: row.t && (row.t.phone || row.t.outOfHoursPhone) ? { phone: row.t.phone, outOfHoursPhone: row.t.outOfHoursPhone } : null,
   };
 }
 

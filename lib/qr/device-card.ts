@@ -1,32 +1,43 @@
 import "server-only";
-// Opening a passport's device card: rate limit per hashed client address, token lookup, audit.
-// Unknown and revoked tokens give one and the same answer.
-import { findCurrentPassportByToken, getDeviceCard, type DeviceCard } from "@/db/queries/passport-card";
+// Opening a passport's device card by QR token or typed short code: lookup (hash, then a
+// constant-time compare, in lib/passport), the card, and an audit event for every view.
+// Unknown and revoked passports give one and the same answer. The per-address limit is applied
+// before this, in proxy.ts (lib/qr/card-limit.ts), so a limited request costs one statement.
+import { getDeviceCard, type DeviceCard } from "@/db/queries/passport-card";
 import { audit } from "@/lib/audit";
 import type { Viewer } from "@/lib/auth/session";
-import { checkAddress, LIMITS } from "@/lib/rate-limit";
+import { findPassportByShortCode, findPassportByToken, type FoundPassport } from "@/lib/passport";
 
-export const CARD_LIMIT = LIMITS.passportCard;
+export type CardResult = { kind: "ok"; card: DeviceCard; passport: FoundPassport } | { kind: "invalid" };
 
-export type CardResult = { kind: "ok"; card: DeviceCard } | { kind: "invalid" } | { kind: "limited" };
+/** A QR token (43 characters) or a short code (12 symbols, dashes and spaces allowed). */
+export async function findPassport(credential: string): Promise<FoundPassport | null> {
+  if (typeof credential !== "string") return null;
+  return credential.length === 43 ? findPassportByToken(credential) : findPassportByShortCode(credential);
+}
 
 export async function openDeviceCard({
-  token,
+  credential,
   request,
   viewer,
 }: {
-  token: string;
+  credential: string;
   request: { headers: Headers };
   viewer: Viewer | null;
 }): Promise<CardResult> {
-  const { allowed } = await checkAddress(request, CARD_LIMIT);
-  if (!allowed) return { kind: "limited" };
-  const passport = await findCurrentPassportByToken({ token });
-  if (!passport) {
+  const passport = await findPassport(credential);
+  const card = passport ? await getDeviceCard({ patientId: passport.patientId }) : null;
+  if (!passport || !card) {
     await audit({ action: "passport.card.invalid", actor: viewer, via: "qr", request });
     return { kind: "invalid" };
   }
-  const card = await getDeviceCard({ patientId: passport.patientId });
-  await audit({ action: "passport.card.view", actor: viewer, patientId: passport.patientId, via: "qr", request, details: { passportId: passport.id } });
-  return { kind: "ok", card };
+  await audit({
+    action: "passport.card.view",
+    actor: viewer,
+    patientId: passport.patientId,
+    via: "qr",
+    request,
+    details: { passportId: passport.passportId, by: credential.length === 43 ? "token" : "short-code" },
+  });
+  return { kind: "ok", card, passport };
 }
