@@ -1,12 +1,15 @@
 // Passport secrets. The QR token is 32 bytes from the operating system's CSPRNG (256 bits,
-// ASVS 11.5.1 asks for ≥ 128); the short code is for a visiting clinician to type. Only
-// SHA-256 hashes of either are ever stored.
-import { createHash, randomBytes, randomInt, timingSafeEqual } from "node:crypto";
+// ASVS 11.5.1 asks for ≥ 128); the short code is for a visiting clinician to type, drawn like
+// the portal's activation codes (lib/secret-codes). Only hashes of either are ever stored:
+// SHA-256 for the token, an HMAC for the short code (59 bits could be searched offline).
+import { createHash, createHmac, randomBytes, randomInt, timingSafeEqual } from "node:crypto";
+import { authSecret } from "@/lib/env";
+import { CODE_ALPHABET, CODE_LENGTH, normaliseActivationCode } from "@/lib/secret-codes";
 
-/** No 0/O, 1/I/L or U: easy to read aloud and to type. 30 symbols. */
-export const SHORT_CODE_ALPHABET = "23456789ABCDEFGHJKMNPQRSTVWXYZ";
+/** No 0/O, 1/I/L or U: easy to read aloud and to type. 30 symbols (the activation codes' own). */
+export const SHORT_CODE_ALPHABET = CODE_ALPHABET;
 /** 12 symbols of 30 → 58.9 bits (10 would give only 49.1). */
-export const SHORT_CODE_LENGTH = 12;
+export const SHORT_CODE_LENGTH = CODE_LENGTH;
 export const TOKEN_BYTES = 32;
 
 /** 32 random bytes, base64url without padding: 43 characters. */
@@ -32,7 +35,7 @@ export function formatShortCode(code: string): string {
 
 /** What a person typed → the canonical code: case, spaces and dashes ignored. */
 export function normaliseShortCode(typed: string): string {
-  return typed.toUpperCase().replace(/[\s\-‐‑–—_.]/g, "");
+  return normaliseActivationCode(typed);
 }
 
 export function isWellFormedShortCode(code: string): boolean {
@@ -48,8 +51,9 @@ export function hashToken(token: string): string {
   return sha256Hex(token);
 }
 
+/** Keyed like the activation codes, with its own prefix so the two can never be confused. */
 export function hashShortCode(code: string): string {
-  return sha256Hex(normaliseShortCode(code));
+  return createHmac("sha256", authSecret()).update(`passport:${normaliseShortCode(code)}`).digest("hex");
 }
 
 /** Constant-time comparison of two hex digests of equal length. */

@@ -55,7 +55,7 @@ describe("POST /api/patients/[patientId]/passport", () => {
     });
   });
 
-  it("stores only SHA-256 hashes: no column and no audit detail holds the plain token or code", async () => {
+  it("stores only hashes (SHA-256 of the token, keyed HMAC of the code): no column and no audit detail holds the plain token or code", async () => {
     const token = first.url.split("/p/")[1];
     const code = first.shortCode.replaceAll("-", "");
     const [row] = await db.select().from(passports).where(eq(passports.id, first.passport.id));

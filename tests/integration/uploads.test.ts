@@ -33,7 +33,7 @@ async function start(patientId: string, body: Record<string, unknown>, cookie = 
 }
 
 async function putTo(d: Declared, bytes: Buffer, contentType: string) {
-  return fetch(d.uploadUrl, { method: "PUT", body: bytes, headers: { ...d.uploadHeaders, "Content-Type": contentType } });
+  return fetch(d.uploadUrl, { method: "PUT", body: new Uint8Array(bytes), headers: { ...d.uploadHeaders, "Content-Type": contentType } });
 }
 
 async function finish(patientId: string, uploadId: string, cookie = nurse) {

@@ -82,7 +82,10 @@ describe("short code", () => {
     expect(formatShortCode("ABCDEFGHJKMN")).toBe("ABCD-EFGH-JKMN");
     expect(normaliseShortCode(" abcd-efgh jkmn ")).toBe("ABCDEFGHJKMN");
     expect(hashShortCode("abcd efgh-jkmn")).toBe(hashShortCode("ABCD-EFGH-JKMN"));
-    expect(hashShortCode("ABCD-EFGH-JKMN")).toBe(sha256Hex("ABCDEFGHJKMN"));
+    // Keyed, so a leaked table cannot be searched offline; never the plain SHA-256.
+    expect(hashShortCode("ABCD-EFGH-JKMN")).toMatch(/^[0-9a-f]{64}$/);
+    expect(hashShortCode("ABCD-EFGH-JKMN")).not.toBe(sha256Hex("ABCDEFGHJKMN"));
+    expect(hashShortCode("ABCD-EFGH-JKMN")).not.toBe(hashShortCode("ABCD-EFGH-JKMP"));
     expect(isWellFormedShortCode("abcd-efgh-jkmn")).toBe(true);
     expect(isWellFormedShortCode("ABCD-EFGH-JKM0")).toBe(false);
     expect(isWellFormedShortCode("ABCD-EFGH-JK")).toBe(false);
