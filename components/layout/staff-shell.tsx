@@ -10,6 +10,7 @@ type Item = { href: string; label: string };
 /** Staff pages: a left navigation on wide screens, a bottom bar on phones. */
 export async function StaffShell({ role, name, children }: { role: Role; name: string; children: ReactNode }) {
   const t = await getTranslations("Nav");
+  const tScan = await getTranslations("Scan");
   // Clinicians: the caseload and registering a patient (a "Scan" item joins them here).
   const items: Item[] =
     role === "admin"
@@ -17,6 +18,7 @@ export async function StaffShell({ role, name, children }: { role: Role; name: s
       : [
           { href: "/caseload", label: t("caseload") },
           { href: "/patients/new", label: t("registerPatient") },
+          { href: "/scan", label: tScan("nav") },
         ];
   items.push({ href: "/sign-out", label: t("signOut") });
   return (
