@@ -1,6 +1,7 @@
 // The public device card: server-rendered only (no client JavaScript of its own). Device facts in
 // the patient's language and in English, the allergies that matter for a catheter and its gel in
 // a bordered warning box, and the care team's phone as a big tel: button. Nothing names the patient.
+// Phone numbers and Latin units are isolated left-to-right so Arabic and Urdu do not reorder them.
 import { getFormatter, getTranslations } from "next-intl/server";
 import { buttonClass } from "@/components/ui/button";
 import type { DeviceCard } from "@/db/queries/passport-card";
@@ -9,6 +10,9 @@ import { directionOf, isLocale, type Locale } from "@/lib/i18n/routing";
 import { deploymentTimeZone } from "@/lib/zoned-date";
 
 /** The patient's language first, then English (once, when that is the patient's). */
+/** A left-to-right isolate (U+2066 … U+2069) keeps a phone number in its own order inside RTL text. */
+const isolate = (s: string) => `\u2066${s}\u2069`;
+
 export function cardLocales(patientLocale: string): Locale[] {
   const first = isLocale(patientLocale) ? patientLocale : "en";
   return first === "en" ? ["en"] : [first, "en"];
@@ -54,7 +58,7 @@ async function CardInLanguage({ card, locale, first }: { card: DeviceCard; local
             <div className="rounded-lg bg-brand-soft p-3">
               <p className="text-ink-soft">{p("size")}</p>
               <p className="tabular text-3xl font-bold" data-testid="card-size">
-                {t("sizeValue", { ch: d.sizeCh })}
+                <bdi dir="ltr">{t("sizeValue", { ch: d.sizeCh })}</bdi>
               </p>
               <p className="tabular">{t("mm", { mm: charriereToMm(d.sizeCh) })}</p>
             </div>
@@ -111,14 +115,14 @@ export async function DeviceCardView({ card, locale, visitHref }: { card: Device
         <h2 className="text-xl font-bold">{t("careTeam")}</h2>
         {phone ? (
           <a href={`tel:${phone.replace(/[^\d+]/g, "")}`} className={buttonClass("primary", "min-h-14 text-xl")} data-testid="card-phone">
-            {t("call", { phone })}
+            {t("call", { phone: isolate(phone) })}
           </a>
         ) : (
           <p>{t("noPhone")}</p>
         )}
         {ooh ? (
           <a href={`tel:${ooh.replace(/[^\d+]/g, "")}`} className={buttonClass("secondary", "min-h-14 text-lg")}>
-            {t("callOutOfHours", { phone: ooh })}
+            {t("callOutOfHours", { phone: isolate(ooh) })}
           </a>
         ) : null}
       </div>

@@ -120,6 +120,7 @@ export function PassportScanner() {
           autoCapitalize="characters"
           spellCheck={false}
           maxLength={40}
+          dir="ltr"
           aria-invalid={codeError || undefined}
           aria-describedby={`scan-code-hint${codeError ? " scan-code-error" : ""}`}
           className={`tabular min-h-12 rounded-lg border-2 bg-paper-raised px-3 text-xl tracking-wider text-ink ${codeError ? "border-level-emergency" : "border-stone-line"}`}

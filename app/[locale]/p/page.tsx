@@ -50,6 +50,7 @@ export default async function ShortCodePage({ params, searchParams }: { params: 
             autoCapitalize="characters"
             spellCheck={false}
             maxLength={40}
+            dir="ltr"
             aria-describedby="code-hint"
             className="tabular min-h-14 rounded-lg border-2 border-stone-line bg-paper-raised px-3 text-2xl tracking-wider text-ink"
             data-testid="code-input"
