@@ -2,7 +2,7 @@
 // Record a visit, with NEWS2 observations when taken. The score is shown as the clinician types
 // (lib/clinical, the same rule the server applies again when saving).
 import { useTranslations } from "next-intl";
-import { useMemo, useState } from "react";
+import { useState } from "react";
 import { get, useForm, type FieldPath } from "react-hook-form";
 import { isApiError, useRecord } from "@/components/episode-form/use-record";
 import { Checkbox, RadioGroup, Section, TextArea, TextInput } from "@/components/episode-form/controls";
@@ -67,7 +67,8 @@ export function VisitForm({ patientId }: { patientId: string }) {
   });
   const withObs = watch("withObservations");
   const obs = watch("observations");
-  const score = useMemo(() => (withObs ? liveScore(obs) : null), [withObs, obs]);
+  // Recomputed on every render: watch() may hand back the same object as values change.
+  const score = withObs ? liveScore(obs) : null;
   const err = (name: FieldPath<Values>) => {
     const e = get(formState.errors, name) as { message?: string } | undefined;
     if (!e) return undefined;

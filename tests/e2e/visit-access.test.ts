@@ -21,7 +21,7 @@ let yusufPassport: Issued;
 const tokenOf = (p: Issued) => p.url.split("/p/")[1]!;
 
 async function issue(patientId: string): Promise<Issued> {
-  const res = await nursePage.request.post(`/api/patients/${patientId}/passport`, { data: {}, headers: { origin: new URL(baseUrl).origin } });
+  const res = await nursePage.request.post(`/api/patients/${patientId}/passport`, { data: { reissue: true }, headers: { origin: new URL(baseUrl).origin } });
   expect(res.status()).toBe(201);
   return res.json();
 }
