@@ -10,8 +10,11 @@ import { directionOf, isLocale, type Locale } from "@/lib/i18n/routing";
 import { deploymentTimeZone } from "@/lib/zoned-date";
 
 /** The patient's language first, then English (once, when that is the patient's). */
-/** A left-to-right isolate (U+2066 … U+2069) keeps a phone number in its own order inside RTL text. */
-const isolate = (s: string) => `\u2066${s}\u2069`;
+/**
+ * A left-to-right isolate (U+2066 … U+2069) keeps a phone number in its own order inside RTL
+ * text, and no-break spaces keep it on one line (a wrapped number reads out of order).
+ */
+const isolate = (s: string) => `\u2066${s.replace(/ /g, "\u00a0")}\u2069`;
 
 export function cardLocales(patientLocale: string): Locale[] {
   const first = isLocale(patientLocale) ? patientLocale : "en";
