@@ -1,8 +1,12 @@
-// Kept cheap on purpose: locale routing, a per-request CSP nonce, and a redirect to sign-in when
-// no session cookie is present. It never decides authorisation: pages and handlers do.
+// Kept cheap on purpose: locale routing, a per-request CSP nonce, a redirect to sign-in when
+// no session cookie is present, and the per-address limit of the public device card (one
+// statement, and only on those paths, so its 429 is a real status). It never decides
+// authorisation: pages and handlers do.
 import createMiddleware from "next-intl/middleware";
 import { NextResponse, type NextRequest } from "next/server";
 import { routing } from "@/lib/i18n/routing";
+import { withPassportHeaders } from "@/lib/passport-headers";
+import { isCardPath, limitCardRequest } from "@/lib/qr/card-limit";
 
 const intl = createMiddleware(routing);
 
@@ -28,8 +32,12 @@ function contentSecurityPolicy(nonce: string) {
   ].join("; ");
 }
 
-export default function proxy(request: NextRequest) {
+export default async function proxy(request: NextRequest) {
   const { pathname } = request.nextUrl;
+  if ((request.method === "GET" || request.method === "HEAD") && isCardPath(pathname)) {
+    const limited = await limitCardRequest(request, pathname.split("/")[1]!);
+    if (limited) return withPassportHeaders(pathname, limited);
+  }
   const hasSession =
     request.cookies.has("better-auth.session_token") || request.cookies.has("__Secure-better-auth.session_token");
   const nonce = Buffer.from(crypto.getRandomValues(new Uint8Array(16))).toString("base64");
@@ -49,7 +57,7 @@ export default function proxy(request: NextRequest) {
   request.headers.set("Content-Security-Policy", csp);
   const response = intl(request);
   response.headers.set("Content-Security-Policy", csp);
-  return response;
+  return withPassportHeaders(pathname, response);
 }
 
 export const config = {

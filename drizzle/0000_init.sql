@@ -233,6 +233,37 @@ CREATE TABLE "memberships" (
 	"updated_at" timestamp with time zone DEFAULT now() NOT NULL
 );
 --> statement-breakpoint
+CREATE TABLE "observations" (
+	"id" uuid PRIMARY KEY DEFAULT gen_random_uuid() NOT NULL,
+	"patient_id" uuid NOT NULL,
+	"event_id" uuid,
+	"taken_at" timestamp with time zone NOT NULL,
+	"respiration_rate" integer NOT NULL,
+	"spo2" integer NOT NULL,
+	"spo2_scale" integer NOT NULL,
+	"on_oxygen" boolean NOT NULL,
+	"systolic_bp" integer NOT NULL,
+	"pulse" integer NOT NULL,
+	"consciousness" text NOT NULL,
+	"temperature_c" numeric(3, 1) NOT NULL,
+	"news2_total" integer NOT NULL,
+	"news2_subscores" jsonb NOT NULL,
+	"news2_risk" text NOT NULL,
+	"news2_response" text NOT NULL,
+	"recorded_by_user_id" text,
+	"recorded_by_name" text NOT NULL,
+	"organisation_id" uuid,
+	"created_at" timestamp with time zone DEFAULT now() NOT NULL,
+	"updated_at" timestamp with time zone DEFAULT now() NOT NULL,
+	CONSTRAINT "observations_scale_ck" CHECK ("observations"."spo2_scale" in (1, 2)),
+	CONSTRAINT "observations_total_ck" CHECK ("observations"."news2_total" between 0 and 20),
+	CONSTRAINT "observations_rr_ck" CHECK ("observations"."respiration_rate" between 0 and 80),
+	CONSTRAINT "observations_spo2_ck" CHECK ("observations"."spo2" between 20 and 100),
+	CONSTRAINT "observations_sbp_ck" CHECK ("observations"."systolic_bp" between 40 and 300),
+	CONSTRAINT "observations_pulse_ck" CHECK ("observations"."pulse" between 20 and 300),
+	CONSTRAINT "observations_temp_ck" CHECK ("observations"."temperature_c" between 25 and 45)
+);
+--> statement-breakpoint
 CREATE TABLE "organisations" (
 	"id" uuid PRIMARY KEY DEFAULT gen_random_uuid() NOT NULL,
 	"name" text NOT NULL,
@@ -436,6 +467,10 @@ ALTER TABLE "episode_events" ADD CONSTRAINT "episode_events_recorded_by_user_id_
 ALTER TABLE "episode_events" ADD CONSTRAINT "episode_events_organisation_id_organisations_id_fk" FOREIGN KEY ("organisation_id") REFERENCES "public"."organisations"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "memberships" ADD CONSTRAINT "memberships_user_id_user_id_fk" FOREIGN KEY ("user_id") REFERENCES "public"."user"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "memberships" ADD CONSTRAINT "memberships_organisation_id_organisations_id_fk" FOREIGN KEY ("organisation_id") REFERENCES "public"."organisations"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "observations" ADD CONSTRAINT "observations_patient_id_patients_id_fk" FOREIGN KEY ("patient_id") REFERENCES "public"."patients"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "observations" ADD CONSTRAINT "observations_event_id_episode_events_id_fk" FOREIGN KEY ("event_id") REFERENCES "public"."episode_events"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "observations" ADD CONSTRAINT "observations_recorded_by_user_id_user_id_fk" FOREIGN KEY ("recorded_by_user_id") REFERENCES "public"."user"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
+ALTER TABLE "observations" ADD CONSTRAINT "observations_organisation_id_organisations_id_fk" FOREIGN KEY ("organisation_id") REFERENCES "public"."organisations"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "outbound_messages" ADD CONSTRAINT "outbound_messages_patient_id_patients_id_fk" FOREIGN KEY ("patient_id") REFERENCES "public"."patients"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "outbound_messages" ADD CONSTRAINT "outbound_messages_organisation_id_organisations_id_fk" FOREIGN KEY ("organisation_id") REFERENCES "public"."organisations"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "outbound_messages" ADD CONSTRAINT "outbound_messages_created_by_user_id_user_id_fk" FOREIGN KEY ("created_by_user_id") REFERENCES "public"."user"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
@@ -480,6 +515,8 @@ CREATE INDEX "events_patient_idx" ON "episode_events" USING btree ("patient_id",
 CREATE INDEX "events_episode_idx" ON "episode_events" USING btree ("episode_id");--> statement-breakpoint
 CREATE UNIQUE INDEX "memberships_user_org_uq" ON "memberships" USING btree ("user_id","organisation_id");--> statement-breakpoint
 CREATE INDEX "memberships_org_idx" ON "memberships" USING btree ("organisation_id");--> statement-breakpoint
+CREATE INDEX "observations_patient_idx" ON "observations" USING btree ("patient_id","taken_at");--> statement-breakpoint
+CREATE INDEX "observations_event_idx" ON "observations" USING btree ("event_id");--> statement-breakpoint
 CREATE UNIQUE INDEX "organisations_name_kind_uq" ON "organisations" USING btree ("name","kind");--> statement-breakpoint
 CREATE INDEX "organisations_kind_idx" ON "organisations" USING btree ("kind");--> statement-breakpoint
 CREATE INDEX "outbox_status_idx" ON "outbound_messages" USING btree ("status","next_attempt_at");--> statement-breakpoint

@@ -1,9 +1,9 @@
 import "server-only";
 // Fixed-window counters in PostgreSQL (table attempt_counters) for Caddis's own endpoints that
-// take a guessable secret: activation codes and carer-invitation sign-ins. better-auth's own
-// rate_limit table covers only its endpoints, and calls through auth.api.* are not limited
-// (security-accessibility.md). Keys are per client address (hashed), so nobody can lock a
-// patient out of their account by guessing from elsewhere (ASVS 6.1.1, 2.4.1).
+// take a guessable secret: activation codes, carer-invitation sign-ins and the passport device
+// card. better-auth's own rate_limit table covers only its endpoints, and calls through
+// auth.api.* are not limited (security-accessibility.md). Keys are per client address (hashed),
+// so nobody can lock a patient out of their account by guessing from elsewhere (ASVS 6.1.1, 2.4.1).
 import { sql } from "drizzle-orm";
 import { db, type Executor } from "@/db";
 import { clientIp, hashIp } from "./client-ip";
@@ -14,6 +14,9 @@ export type LimitRule = { name: string; max: number; windowSeconds: number };
 export const LIMITS = {
   activate: { name: "activate", max: 10, windowSeconds: 15 * 60 },
   carerInvite: { name: "carer-invite", max: 10, windowSeconds: 15 * 60 },
+  // A clinician at the door scans once or twice; 30 a minute leaves room for a shared NAT
+  // (a care home, a hospital) while making token guessing pointless (256-bit tokens anyway).
+  passportCard: { name: "card", max: 30, windowSeconds: 60 },
 } as const satisfies Record<string, LimitRule>;
 
 /** Counts one attempt; returns how many were made in the current window. */
@@ -30,12 +33,18 @@ export async function countAttempt({ key, windowSeconds }: { key: string; window
   return { count: Number(row.count), windowStartedAt: new Date(row.window_started_at) };
 }
 
-/** Counts an attempt from this request's address; over the limit → 429 with Retry-After. */
-export async function limitByAddress(request: Request | { headers: Headers }, rule: LimitRule) {
+export type LimitResult = { allowed: boolean; count: number; retryAfterSeconds: number };
+
+/** Counts an attempt from this request's address and says whether it is within the rule. */
+export async function checkAddress(request: Request | { headers: Headers }, rule: LimitRule): Promise<LimitResult> {
   const key = `${rule.name}:${hashIp(clientIp(request.headers))}`;
   const { count, windowStartedAt } = await countAttempt({ key, windowSeconds: rule.windowSeconds });
-  if (count > rule.max) {
-    const retry = Math.max(1, Math.ceil((windowStartedAt.getTime() + rule.windowSeconds * 1000 - Date.now()) / 1000));
-    throw new AppError("rate_limited", undefined, { headers: { "Retry-After": String(retry) } });
-  }
+  const retryAfterSeconds = Math.max(1, Math.ceil((windowStartedAt.getTime() + rule.windowSeconds * 1000 - Date.now()) / 1000));
+  return { allowed: count <= rule.max, count, retryAfterSeconds };
+}
+
+/** As checkAddress, for route handlers: over the limit → 429 with Retry-After. */
+export async function limitByAddress(request: Request | { headers: Headers }, rule: LimitRule) {
+  const { allowed, retryAfterSeconds } = await checkAddress(request, rule);
+  if (!allowed) throw new AppError("rate_limited", undefined, { headers: { "Retry-After": String(retryAfterSeconds) } });
 }

@@ -8,7 +8,8 @@ import { Field } from "@/components/ui/field";
 import { authClient } from "@/lib/auth-client";
 import { signInSchema, type SignInInput } from "@/lib/validations/auth";
 
-export function SignInForm() {
+/** `returnTo`: a same-site path to go back to after signing in (the passport's visit-access page). */
+export function SignInForm({ returnTo }: { returnTo?: string } = {}) {
   const t = useTranslations("SignIn");
   const locale = useLocale();
   const [formError, setFormError] = useState<string | null>(null);
@@ -30,8 +31,8 @@ export function SignInForm() {
       window.location.assign(`/${locale}/two-factor`);
       return;
     }
-    // The server sends each role on to its own home.
-    window.location.assign(`/${locale}/home`);
+    // The server sends each role on to its own home, unless a page asked to come back.
+    window.location.assign(returnTo && returnTo.startsWith("/") && !returnTo.startsWith("//") ? returnTo : `/${locale}/home`);
   });
 
   return (

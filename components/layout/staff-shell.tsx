@@ -12,6 +12,7 @@ type Item = { href: string; label: string; sub?: boolean; exact?: boolean };
 export async function StaffShell({ role, name, children }: { role: Role; name: string; children: ReactNode }) {
   const t = await getTranslations("Nav");
   const a = await getTranslations("AdminNav");
+  const tScan = await getTranslations("Scan");
   // Clinicians: the caseload and registering a patient (a "Scan" item joins them here).
   const items: Item[] =
     role === "admin"
@@ -26,6 +27,7 @@ export async function StaffShell({ role, name, children }: { role: Role; name: s
       : [
           { href: "/caseload", label: t("caseload") },
           { href: "/patients/new", label: t("registerPatient") },
+          { href: "/scan", label: tScan("nav") },
         ];
   items.push({ href: "/account", label: a("account") });
   items.push({ href: "/sign-out", label: t("signOut") });

@@ -166,6 +166,12 @@ export const matrix: Row[] = [
     params: patient,
     expect: { anonymous: 401, admin: "allowed", careTeamClinician: 403, otherClinician: 403, patient: "allowed", otherPatient: 404, carer: 403 },
   },
+  // Any clinician may ask, holding the passport's token; the grant itself is tested in passport-card.test.ts.
+  { route: "POST /api/visit-access", expect: clinicianOnly },
+  // Visits with NEWS2 and the FHIR export: the care team or visit access (issue 5's own matrix,
+  // before and after a reason, is in visit-access-matrix.test.ts).
+  { route: "POST /api/patients/[patientId]/visits", params: patient, expect: staffOnPatient },
+  { route: "GET /api/patients/[patientId]/fhir", params: patient, expect: staffOnPatient },
 ];
 
 export { patient as patientParams };

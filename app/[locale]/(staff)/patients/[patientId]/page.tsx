@@ -24,6 +24,7 @@ export default async function DeviceTab({ params }: { params: Promise<{ locale: 
   const [record, gpPractices] = await Promise.all([getPatientRecord({ patientId }), listGpPracticeDirectory()]);
   if (!record) notFound();
   const t = await getTranslations("PatientDevice");
+  const tVisit = await getTranslations("VisitForm");
   const format = await getFormatter();
   const e = record.currentEpisode;
   const today = todayIso();
@@ -51,6 +52,9 @@ export default async function DeviceTab({ params }: { params: Promise<{ locale: 
                 </ActionLink>
                 <ActionLink href={recordHref("twoc")} secondary>
                   {t("actions.twoc")}
+                </ActionLink>
+                <ActionLink href={recordHref("visit")} secondary>
+                  {tVisit("action")}
                 </ActionLink>
               </>
             ) : (

@@ -62,7 +62,7 @@ export default async function AccessTab({
               <tr key={e.id} className="border-t border-stone-faint align-top">
                 <td className="tabular whitespace-nowrap p-3">{format.dateTime(new Date(e.at), { dateStyle: "medium", timeStyle: "medium" })}</td>
                 <td className="p-3">
-                  <span className="font-bold">{e.actorName ?? t("unknownPerson")}</span>
+                  <span className="font-bold">{e.actorName ?? (e.actorRole ? t("unknownPerson") : t("notSignedIn"))}</span>
                   {e.actorRole ? (
                     <span className="block text-sm text-ink-soft">
                       {(knownRoles as readonly string[]).includes(e.actorRole) ? t(`roles.${e.actorRole as "admin"}`) : e.actorRole}

@@ -1,0 +1,44 @@
+import { db } from "@/db";
+import { findPatientAccess } from "@/db/queries/access";
+import { grantVisitAccess } from "@/db/queries/passport-card";
+import { audit } from "@/lib/audit";
+import { requireRole } from "@/lib/auth/permissions";
+import { AppError } from "@/lib/errors";
+import { handle, json } from "@/lib/http";
+import { findPassport } from "@/lib/qr/device-card";
+import { LIMITS, limitByAddress } from "@/lib/rate-limit";
+import { parseJsonBody } from "@/lib/validate";
+import { visitAccessSchema } from "@/lib/validations/visit-access";
+
+export const VISIT_ACCESS_HOURS = 24;
+
+// A clinician of any organisation, holding the passport's token or short code, states why they
+// need the record: 24 hours of visit access (checked in lib/auth/permissions → db/queries/access,
+// which ignores expired grants), audited with the reason. The care team needs no grant.
+export const POST = handle(async (request) => {
+  const viewer = await requireRole(request, "clinician");
+  const body = await parseJsonBody(request, visitAccessSchema);
+  // The short code is guessable in principle: the same per-address limit as the card.
+  await limitByAddress(request, LIMITS.passportCard);
+  const passport = await findPassport(body.token);
+  if (!passport) throw new AppError("not_found");
+  const current = await findPatientAccess({ userId: viewer.userId, role: viewer.role, patientId: passport.patientId });
+  if (current === "care_team") return json({ patientId: passport.patientId, via: "care_team", expiresAt: null });
+  const grant = await db.transaction(async (tx) => {
+    const g = await grantVisitAccess({ patientId: passport.patientId, userId: viewer.userId, reason: body.reason, hours: VISIT_ACCESS_HOURS }, tx);
+    await audit(
+      {
+        action: "visit-access.grant",
+        actor: viewer,
+        patientId: passport.patientId,
+        via: "visit_access",
+        reason: body.reason,
+        request,
+        details: { expiresAt: g.expiresAt.toISOString(), passportId: passport.passportId },
+      },
+      tx,
+    );
+    return g;
+  });
+  return json({ patientId: passport.patientId, via: "visit_access", expiresAt: grant.expiresAt.toISOString() }, { status: 201 });
+});

@@ -1,0 +1,162 @@
+// The public device card: server-rendered only (no client JavaScript of its own). Device facts in
+// the patient's language and in English, the allergies that matter for a catheter and its gel in
+// a bordered warning box, and the care team's phone as a big tel: button. Nothing names the patient.
+// Phone numbers and Latin units are isolated left-to-right so Arabic and Urdu do not reorder them.
+import { getFormatter, getTranslations } from "next-intl/server";
+import { buttonClass } from "@/components/ui/button";
+import type { DeviceCard } from "@/db/queries/passport-card";
+import { charriereToMm } from "@/lib/clinical";
+import { directionOf, isLocale, type Locale } from "@/lib/i18n/routing";
+import { deploymentTimeZone } from "@/lib/zoned-date";
+
+/** The patient's language first, then English (once, when that is the patient's). */
+/**
+ * A left-to-right isolate (U+2066 … U+2069) keeps a phone number in its own order inside RTL
+ * text, and no-break spaces keep it on one line (a wrapped number reads out of order).
+ */
+const isolate = (s: string) => `\u2066${s.replace(/ /g, "\u00a0")}\u2069`;
+
+export function cardLocales(patientLocale: string): Locale[] {
+  const first = isLocale(patientLocale) ? patientLocale : "en";
+  return first === "en" ? ["en"] : [first, "en"];
+}
+
+async function CardInLanguage({ card, locale, first }: { card: DeviceCard; locale: Locale; first: boolean }) {
+  const t = await getTranslations({ locale, namespace: "DeviceCard" });
+  const p = await getTranslations({ locale, namespace: "PassportPdf" });
+  const format = await getFormatter({ locale });
+  const timeZone = deploymentTimeZone();
+  const d = card.device;
+  const day = (iso: string) => format.dateTime(new Date(iso), { weekday: "short", day: "numeric", month: "short", year: "numeric", timeZone });
+  const calendarDay = (ymd: string) =>
+    format.dateTime(new Date(`${ymd}T12:00:00Z`), { weekday: "short", day: "numeric", month: "short", year: "numeric", timeZone: "UTC" });
+  const allergies = [
+    card.allergies.latex ? p("allergy.latex") : null,
+    card.allergies.chlorhexidine ? p("allergy.chlorhexidine") : null,
+    card.allergies.lidocaine ? p("allergy.lidocaine") : null,
+  ].filter((x): x is string => Boolean(x));
+  const H = first ? "h2" : "h3";
+  return (
+    <section lang={locale} dir={directionOf(locale)} className="flex flex-col gap-4" data-testid={`card-${locale}`}>
+      <H className="text-xl font-bold">{t("sectionTitle")}</H>
+      {allergies.length ? (
+        <div role="note" className="flex items-start gap-3 rounded-lg border-4 border-level-emergency bg-level-emergency-soft p-3 text-level-emergency-ink" data-testid="card-allergies">
+          <svg viewBox="0 0 16 16" className="mt-1 h-6 w-6 shrink-0" aria-hidden="true">
+            <path d="M8 1.5 15 14.5H1z" fill="currentColor" />
+            <path d="M8 6v4" stroke="white" strokeWidth="1.8" strokeLinecap="round" />
+            <circle cx="8" cy="12.3" r="1" fill="white" />
+          </svg>
+          <div>
+            <p className="font-bold">{t("allergiesTitle")}</p>
+            <p className="text-xl font-bold">{allergies.join(" · ")}</p>
+            <p>{p("allergyCheck")}</p>
+          </div>
+        </div>
+      ) : (
+        <p className="rounded-lg border-2 border-stone-faint p-3">{t("noDeviceAllergies")}</p>
+      )}
+      {d ? (
+        <>
+          <div className="grid grid-cols-2 gap-3">
+            <div className="rounded-lg bg-brand-soft p-3">
+              <p className="text-ink-soft">{p("size")}</p>
+              <p className="tabular text-3xl font-bold" data-testid="card-size">
+                <bdi dir="ltr">{t("sizeValue", { ch: d.sizeCh })}</bdi>
+              </p>
+              <p className="tabular">{t("mm", { mm: charriereToMm(d.sizeCh) })}</p>
+            </div>
+            <div className="rounded-lg bg-brand-soft p-3">
+              <p className="text-ink-soft">{p("balloon")}</p>
+              <p className="tabular text-3xl font-bold" data-testid="card-balloon">
+                {t("mlValue", { ml: d.balloonMl })}
+              </p>
+              <p>{t("sterileWater")}</p>
+            </div>
+          </div>
+          <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-2">
+            <dt className="text-ink-soft">{p("insertedOn")}</dt>
+            <dd className="tabular font-bold">{day(d.insertedAt)}</dd>
+            <dt className="text-ink-soft">{p("nextChange")}</dt>
+            <dd className="tabular font-bold" data-testid="card-next-change">{calendarDay(d.plannedChangeOn)}</dd>
+            <dt className="text-ink-soft">{p("route")}</dt>
+            <dd>{p(`routes.${d.route}`)}</dd>
+            <dt className="text-ink-soft">{p("catheterType")}</dt>
+            <dd>{p(`catheterTypes.${d.catheterType}`)}</dd>
+            <dt className="text-ink-soft">{p("material")}</dt>
+            <dd>{p(`materials.${d.material}`)}</dd>
+            <dt className="text-ink-soft">{p("length")}</dt>
+            <dd>{p(`lengths.${d.lengthCategory}`)}</dd>
+            <dt className="text-ink-soft">{t("gel")}</dt>
+            <dd>{t(`gels.${d.gelKind}`)}</dd>
+          </dl>
+        </>
+      ) : (
+        <p className="font-bold">{t("noDevice")}</p>
+      )}
+      <p className="text-base text-ink-soft">{t("safety")}</p>
+    </section>
+  );
+}
+
+export async function DeviceCardView({ card, locale, visitHref }: { card: DeviceCard; locale: string; visitHref: string }) {
+  const t = await getTranslations({ locale: isLocale(locale) ? locale : "en", namespace: "DeviceCard" });
+  const locales = cardLocales(card.patientLocale);
+  const phone = card.careTeam?.phone ?? null;
+  const ooh = card.careTeam?.outOfHoursPhone ?? null;
+  return (
+    <div className="flex flex-col gap-6">
+      <div>
+        <h1 className="text-3xl font-bold">{t("title")}</h1>
+        <p className="text-ink-soft">{t("intro")}</p>
+      </div>
+      {locales.map((l, i) => (
+        <div key={l} className={i ? "border-t-2 border-stone-faint pt-6" : ""}>
+          <CardInLanguage card={card} locale={l} first={i === 0} />
+        </div>
+      ))}
+      <div className="flex flex-col gap-3">
+        <h2 className="text-xl font-bold">{t("careTeam")}</h2>
+        {phone ? (
+          <a href={`tel:${phone.replace(/[^\d+]/g, "")}`} className={buttonClass("primary", "min-h-14 text-xl")} data-testid="card-phone">
+            {t("call", { phone: isolate(phone) })}
+          </a>
+        ) : (
+          <p>{t("noPhone")}</p>
+        )}
+        {ooh ? (
+          <a href={`tel:${ooh.replace(/[^\d+]/g, "")}`} className={buttonClass("secondary", "min-h-14 text-lg")}>
+            {t("callOutOfHours", { phone: isolate(ooh) })}
+          </a>
+        ) : null}
+      </div>
+      <div className="flex flex-col gap-2 rounded-card border-2 border-brand p-4">
+        <h2 className="text-lg font-bold">{t("clinicianTitle")}</h2>
+        <p>{t("clinicianBody")}</p>
+        <a href={visitHref} className={buttonClass("secondary")} data-testid="card-sign-in">
+          {t("clinicianButton")}
+        </a>
+      </div>
+    </div>
+  );
+}
+
+/** The one page for a revoked, unknown or mistyped passport: it never says which. */
+export async function InvalidPassport({ locale }: { locale: string }) {
+  const locales: Locale[] = isLocale(locale) && locale !== "en" ? [locale, "en"] : ["en"];
+  return (
+    <div className="flex flex-col gap-4" data-testid="card-invalid">
+      {await Promise.all(
+        locales.map(async (l, i) => {
+          const t = await getTranslations({ locale: l, namespace: "DeviceCard" });
+          const H = i === 0 ? "h1" : "h2";
+          return (
+            <section key={l} lang={l} dir={directionOf(l)} className={i ? "border-t-2 border-stone-faint pt-4" : ""}>
+              <H className="text-2xl font-bold">{t("invalidTitle")}</H>
+              <p>{t("invalidBody")}</p>
+            </section>
+          );
+        }),
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,183 @@
+"use client";
+// Record a visit, with NEWS2 observations when taken. The score is shown as the clinician types
+// (lib/clinical, the same rule the server applies again when saving).
+import { useTranslations } from "next-intl";
+import { useState } from "react";
+import { get, useForm, type FieldPath } from "react-hook-form";
+import { isApiError, useRecord } from "@/components/episode-form/use-record";
+import { Checkbox, RadioGroup, Section, TextArea, TextInput } from "@/components/episode-form/controls";
+import { Button } from "@/components/ui/button";
+import { scoreNews2 } from "@/lib/clinical";
+import { Link } from "@/lib/i18n/navigation";
+import { CONSCIOUSNESS, observationsSchema, visitSchema } from "@/lib/validations/visit";
+import { fromLocalInputValue, toLocalInputValue } from "@/lib/zoned-date";
+import { News2Panel, type News2View } from "./news2-panel";
+
+type Values = {
+  occurredAt: string;
+  notes: string;
+  withObservations: boolean;
+  observations: {
+    respirationRate: string;
+    spo2: string;
+    spo2Scale: string;
+    onOxygen: string;
+    systolicBp: string;
+    pulse: string;
+    consciousness: string;
+    temperatureC: string;
+  };
+};
+
+type Saved = { eventId: string; observation: { news2: News2View } | null; alerted: number };
+
+const ERROR_KEYS = ["number", "whole_number", "out_of_range", "required", "choose_one", "too_long", "date_time", "in_future"] as const;
+
+function payload(v: Values) {
+  return {
+    occurredAt: fromLocalInputValue(v.occurredAt),
+    notes: v.notes,
+    ...(v.withObservations ? { observations: v.observations } : {}),
+  };
+}
+
+function liveScore(o: Values["observations"]): News2View | null {
+  const parsed = observationsSchema.safeParse(o);
+  if (!parsed.success) return null;
+  try {
+    const r = scoreNews2(parsed.data);
+    return { total: r.total, subscores: r.subscores, risk: r.risk, response: r.response.key };
+  } catch {
+    return null;
+  }
+}
+
+export function VisitForm({ patientId }: { patientId: string }) {
+  const t = useTranslations("VisitForm");
+  const [formError, setFormError] = useState<string | null>(null);
+  const [saved, setSaved] = useState<Saved | null>(null);
+  const mutation = useRecord<Saved>(`/api/patients/${patientId}/visits`);
+  const { register, handleSubmit, setError, clearErrors, watch, formState } = useForm<Values>({
+    defaultValues: {
+      occurredAt: toLocalInputValue(new Date().toISOString()),
+      notes: "",
+      withObservations: true,
+      observations: { respirationRate: "", spo2: "", spo2Scale: "1", onOxygen: "false", systolicBp: "", pulse: "", consciousness: "A", temperatureC: "" },
+    },
+  });
+  const withObs = watch("withObservations");
+  const obs = watch("observations");
+  // Recomputed on every render: watch() may hand back the same object as values change.
+  const score = withObs ? liveScore(obs) : null;
+  const err = (name: FieldPath<Values>) => {
+    const e = get(formState.errors, name) as { message?: string } | undefined;
+    if (!e) return undefined;
+    const key = e.message as (typeof ERROR_KEYS)[number];
+    return [(ERROR_KEYS as readonly string[]).includes(key) ? t(`errors.${key}`) : t("errors.out_of_range")];
+  };
+
+  const onSubmit = handleSubmit(async (values) => {
+    setFormError(null);
+    clearErrors();
+    const body = payload(values);
+    const check = visitSchema.safeParse(body);
+    if (!check.success) {
+      for (const issue of check.error.issues) setError(issue.path.join(".") as FieldPath<Values>, { type: "client", message: issue.message });
+      return;
+    }
+    try {
+      setSaved(await mutation.mutateAsync(body));
+    } catch (e) {
+      if (!isApiError(e)) return setFormError(t("failed"));
+      for (const [field, messages] of Object.entries(e.fields)) setError(field as FieldPath<Values>, { type: "server", message: messages[0] });
+      setFormError(e.code === "conflict" ? t("noEpisode") : t("failed"));
+    }
+  });
+
+  if (saved) {
+    return (
+      <div className="flex max-w-3xl flex-col gap-4" data-testid="visit-saved">
+        <p role="status" className="text-xl font-bold">
+          {t("saved")}
+        </p>
+        {saved.observation ? <News2Panel score={saved.observation.news2} testId="news2-saved" /> : null}
+        {saved.alerted > 0 ? (
+          <p className="font-bold" data-testid="visit-alerted">
+            {t("alerted")}
+          </p>
+        ) : null}
+        <Link href={`/patients/${patientId}/history`} className="self-start font-bold text-brand underline underline-offset-4">
+          {t("backToRecord")}
+        </Link>
+      </div>
+    );
+  }
+
+  const num = (name: keyof Values["observations"], label: string, unit: string, decimal = false) => (
+    <TextInput
+      label={label}
+      unit={unit}
+      inputMode={decimal ? "decimal" : "numeric"}
+      {...register(`observations.${name}`)}
+      errors={err(`observations.${name}`)}
+      data-testid={`obs-${name}`}
+    />
+  );
+
+  return (
+    <form onSubmit={onSubmit} noValidate className="flex max-w-3xl flex-col gap-6" data-testid="visit-form">
+      <Section title={t("title")}>
+        <p className="sm:col-span-2">{t("intro")}</p>
+        <TextInput label={t("occurredAt")} type="datetime-local" max={toLocalInputValue(new Date().toISOString())} {...register("occurredAt")} errors={err("occurredAt")} />
+        <TextArea className="sm:col-span-2" label={t("notes")} hint={t("notesHint")} {...register("notes")} errors={err("notes")} data-testid="visit-notes" />
+        <Checkbox className="sm:col-span-2" label={t("withObservations")} {...register("withObservations")} data-testid="with-observations" />
+      </Section>
+      {withObs ? (
+        <Section title={t("scoreTitle")}>
+          {num("respirationRate", t("respirationRate"), t("perMinute"))}
+          {num("spo2", t("spo2"), t("percent"))}
+          <RadioGroup
+            className="sm:col-span-2"
+            legend={t("spo2Scale")}
+            options={[
+              { value: "1", label: t("scale1") },
+              { value: "2", label: t("scale2") },
+            ]}
+            inputProps={register("observations.spo2Scale")}
+            errors={err("observations.spo2Scale")}
+          />
+          <RadioGroup
+            legend={t("airOrOxygen")}
+            options={[
+              { value: "false", label: t("air") },
+              { value: "true", label: t("oxygen") },
+            ]}
+            inputProps={register("observations.onOxygen")}
+            errors={err("observations.onOxygen")}
+          />
+          {num("systolicBp", t("systolicBp"), t("mmHg"))}
+          {num("pulse", t("pulse"), t("perMinute"))}
+          {num("temperatureC", t("temperature"), t("celsius"), true)}
+          <RadioGroup
+            className="sm:col-span-2"
+            legend={t("consciousness")}
+            options={CONSCIOUSNESS.map((c) => ({ value: c, label: `${c} · ${t(`acvpu.${c}`)}` }))}
+            inputProps={register("observations.consciousness")}
+            errors={err("observations.consciousness")}
+          />
+          <div className="sm:col-span-2" aria-live="polite">
+            {score ? <News2Panel score={score} /> : <p className="text-ink-soft">{t("scoreIncomplete")}</p>}
+          </div>
+        </Section>
+      ) : null}
+      {formError ? (
+        <p role="alert" className="rounded-lg border-2 border-level-emergency bg-level-emergency-soft p-3 font-bold text-level-emergency-ink">
+          {formError}
+        </p>
+      ) : null}
+      <Button type="submit" disabled={mutation.isPending} className="w-full text-lg sm:w-auto sm:self-start" data-testid="visit-save">
+        {mutation.isPending ? t("saving") : t("save")}
+      </Button>
+    </form>
+  );
+}

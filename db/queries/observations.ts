@@ -1,0 +1,58 @@
+import "server-only";
+// NEWS2 observations: the rows and what the record shows of them.
+import { desc, eq } from "drizzle-orm";
+import { db, type Executor } from "@/db";
+import { observations, type NewObservation, type Observation } from "@/db/schema";
+
+export type ObservationDto = {
+  id: string;
+  eventId: string | null;
+  takenAt: string;
+  values: {
+    respirationRate: number;
+    spo2: number;
+    spo2Scale: 1 | 2;
+    onOxygen: boolean;
+    systolicBp: number;
+    pulse: number;
+    consciousness: Observation["consciousness"];
+    temperatureC: number;
+  };
+  news2: { total: number; subscores: Record<string, number>; risk: Observation["news2Risk"]; response: Observation["news2Response"] };
+  recordedByName: string;
+};
+
+export function toObservationDto(o: Observation): ObservationDto {
+  return {
+    id: o.id,
+    eventId: o.eventId,
+    takenAt: o.takenAt.toISOString(),
+    values: {
+      respirationRate: o.respirationRate,
+      spo2: o.spo2,
+      spo2Scale: o.spo2Scale === 2 ? 2 : 1,
+      onOxygen: o.onOxygen,
+      systolicBp: o.systolicBp,
+      pulse: o.pulse,
+      consciousness: o.consciousness,
+      temperatureC: Number(o.temperatureC),
+    },
+    news2: { total: o.news2Total, subscores: o.news2Subscores, risk: o.news2Risk, response: o.news2Response },
+    recordedByName: o.recordedByName,
+  };
+}
+
+export async function insertObservation({ values }: { values: NewObservation }, tx: Executor) {
+  const [row] = await tx.insert(observations).values(values).returning();
+  return row;
+}
+
+export async function listObservations({ patientId, limit = 20 }: { patientId: string; limit?: number }, tx: Executor = db) {
+  const rows = await tx
+    .select()
+    .from(observations)
+    .where(eq(observations.patientId, patientId))
+    .orderBy(desc(observations.takenAt), desc(observations.createdAt))
+    .limit(limit);
+  return rows.map(toObservationDto);
+}
