@@ -15,6 +15,7 @@ import {
   careTeam,
   checkIns,
   diaryEntries,
+  observations,
   outboundMessages,
   passports,
   patientInvites,
@@ -62,6 +63,24 @@ async function addRowsFor(patientId: string, tag: string) {
   await db.insert(bagChanges).values({ patientId, kind: "leg-bag", changedOn: "2026-11-30", recordedByUserId: nurse });
   await db.insert(patientInvites).values({ patientId, codeHash: hashToken(randomUUID()), expiresAt: new Date(Date.now() + 86_400_000), usedAt: new Date() });
   await db.insert(supplyRequests).values({ patientId, periodDays: 28, items: [{ item: "leg-bag", computed: 4, quantity: 4, intervalDays: 7 }], requestedByName: tag });
+  await db.insert(observations).values({
+    patientId,
+    takenAt: new Date(),
+    respirationRate: 16,
+    spo2: 97,
+    spo2Scale: 1,
+    onOxygen: false,
+    systolicBp: 128,
+    pulse: 72,
+    consciousness: "A",
+    temperatureC: 36.8,
+    news2Total: 0,
+    news2Subscores: {},
+    news2Risk: "low",
+    news2Response: "routine",
+    recordedByUserId: nurse,
+    recordedByName: tag,
+  });
   await audit({ action: "patient.view", actor: { userId: nurse, role: "clinician" }, patientId, via: "care_team", details: { tag } });
 }
 
@@ -80,7 +99,7 @@ describe("patient data export (JSON)", () => {
     expect(names).toEqual(
       expect.arrayContaining([
         "audit_events", "bag_changes", "care_team", "carer_links", "catheter_episodes", "check_ins", "diary_entries", "episode_events",
-        "outbound_messages", "passports", "patient_invites", "supply_requests", "uploads", "visit_access",
+        "observations", "outbound_messages", "passports", "patient_invites", "supply_requests", "uploads", "visit_access",
       ]),
     );
     // Read from the database itself, not the schema module: every table with a patient_id column…

@@ -105,4 +105,19 @@ export const overrides: Record<string, BadInputOverride> = {
     params: ({ patientId }) => ({ patientId, messageId: "00000000-0000-4000-8000-000000000000" }),
     noBody: "takes no body: the message is named in the path; a junk body must change nothing",
   },
+  "POST /api/admin/staff/[userId]/deactivate": {
+    persona: "admin",
+    params: () => ({ userId: "no-such-user" }),
+    noBody: "takes no body: the account is named in the path; a junk body must change nothing",
+  },
+  "POST /api/admin/staff/[userId]/reactivate": {
+    persona: "admin",
+    params: () => ({ userId: "no-such-user" }),
+    noBody: "takes no body: the account is named in the path; a junk body must change nothing",
+  },
+  "POST /api/patients/[patientId]/uploads/[uploadId]/complete": {
+    persona: "careTeamClinician",
+    params: ({ patientId }) => ({ patientId, uploadId: "00000000-0000-4000-8000-000000000000" }),
+    noBody: "takes no body: the upload is named in the path; a junk body must change nothing",
+  },
 };
