@@ -9,6 +9,7 @@ import type { PatientAccessVia } from "@/db/queries/access";
 import { TRIAGE_RULES, type TriageLevel } from "@/lib/clinical";
 import { scoreAnswers, type SubmittedAnswers } from "./check-in-flow";
 import { audit } from "./audit";
+import { queueCareTeamAlert } from "./email/care-team-alert";
 import type { Viewer } from "./auth/session";
 import { AppError } from "./errors";
 
@@ -97,12 +98,9 @@ function reasonsOf(ruleIds: string[]) {
 }
 
 /**
- * ─── CARE-TEAM ALERT: TO BE WIRED TO THE OUTBOX ───────────────────────────────────────────
- * An urgent or emergency check-in must reach the care team's inbox. Until lib/email (branch
- * helper/mail) is on main, this records the audit event `check-in.alert` only; the lead replaces
- * the marked line with
- *   await queueCareTeamAlert(tx, { patientId, kind: "check-in", level, summary, sourceId });
- * The caseload already shows the level (patients.latest_check_in_level), set in the same transaction.
+ * An urgent or emergency check-in e-mails every care-team organisation's inbox through the outbox,
+ * in the same transaction as the check-in, so the alert exists exactly when the check-in does.
+ * The caseload shows the level too (patients.latest_check_in_level), set in the same transaction.
  */
 export async function alertCareTeam(
   tx: Executor,
@@ -115,6 +113,9 @@ export async function alertCareTeam(
     request,
   }: { patientId: string; level: Extract<TriageLevel, "urgent" | "emergency">; summary: string; sourceId: string; actor: Viewer; request: Request },
 ) {
-  // TODO(lead): queueCareTeamAlert(tx, { patientId, kind: "check-in", level, summary, sourceId }) here.
-  await audit({ action: "check-in.alert", actor, patientId, via: "system", request, details: { level, sourceId, summary, outbox: "pending-wiring" } }, tx);
+  const queued = await queueCareTeamAlert(tx, { patientId, kind: "check-in", level, summary, sourceId });
+  await audit(
+    { action: "check-in.alert", actor, patientId, via: "system", request, details: { level, sourceId, messages: queued.map((m) => m.id) } },
+    tx,
+  );
 }

@@ -24,6 +24,8 @@ const schema = z.object({
   CADDIS_BACKGROUND: z.enum(["on", "off"]).default("on"),
   // When the care teams' weekly digest is queued (cron, in CADDIS_TIME_ZONE).
   DIGEST_CRON: z.string().min(9).default("0 7 * * 1"),
+  // When patients' catheter-change reminders are queued (cron, in CADDIS_TIME_ZONE).
+  REMINDER_CRON: z.string().min(9).default("0 9 * * *"),
   CADDIS_TIME_ZONE: z.string().min(1).default("Europe/London"),
   S3_ENDPOINT: z.url().default("http://127.0.0.1:4569"),
   // Address browsers use for presigned uploads, when it differs from S3_ENDPOINT.

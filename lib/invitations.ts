@@ -18,6 +18,7 @@ import {
   revokeLivePatientInvites,
 } from "@/db/queries/invitations";
 import { audit } from "./audit";
+import { queueCarerInvitation, queuePatientInvitation } from "./email/patient-mail";
 import { auth } from "./auth";
 import { hashPassword, passwordProblem } from "./auth/password";
 import type { Viewer } from "./auth/session";
@@ -64,7 +65,7 @@ export async function createPatientInvite({
   const { code, activateUrl } = activation;
   const delivery = await db.transaction(async (tx) => {
     const invite = await recordPatientInvite(tx, { viewer, patientId, activation, email, request });
-    return email ? sendPatientInvitation(tx, { patientId, email, code, activateUrl, inviteId: invite.id }) : { emailed: false };
+    return email ? sendPatientInvitation(tx, { patientId, email, code, activateUrl, inviteId: invite.id, expiresAt: activation.expiresAt }) : { emailed: false };
   });
   return { code, expiresAt: activation.expiresAt.toISOString(), activateUrl, emailed: delivery.emailed };
 }
@@ -109,18 +110,13 @@ export async function recordPatientInvite(
   return invite;
 }
 
-/**
- * ─── PATIENT INVITATION E-MAIL: TO BE WIRED TO THE OUTBOX ─────────────────────────────────
- * Until lib/email (branch helper/mail) is on main nothing is e-mailed: the clinician sees the
- * code and the link on screen and gives them to the patient (or prints them). The lead replaces
- * the body with queueMessage(tx, { kind: "portal-invite", to: email, … , idempotencyKey: inviteId })
- * and returns { emailed: true }.
- */
+/** The code and link go by e-mail through the outbox, queued in the invitation's transaction. */
 async function sendPatientInvitation(
-  _tx: Executor,
-  _message: { patientId: string; email: string; code: string; activateUrl: string; inviteId: string },
+  tx: Executor,
+  message: { patientId: string; email: string; code: string; activateUrl: string; inviteId: string; expiresAt: Date },
 ): Promise<{ emailed: boolean }> {
-  return { emailed: false };
+  await queuePatientInvitation(tx, message);
+  return { emailed: true };
 }
 
 /** Copies better-auth's session cookie from a server-side sign-in onto our response. */
@@ -189,23 +185,18 @@ export async function inviteCarer({
     for (const l of open) await revokeCarerLink({ id: l.id, patientId }, tx);
     const link = await insertCarerLink({ patientId, invitedEmail: email, invitedByUserId: viewer.userId, inviteTokenHash: hashInviteToken(token), inviteExpiresAt: expiresAt }, tx);
     await audit({ action: "carer.invite", actor: viewer, patientId, via, request, details: { linkId: link.id } }, tx);
-    const delivery = await sendCarerInvitation(tx, { patientId, email, inviteUrl, linkId: link.id, invitedBy: viewer.name });
-    // The link leaves the server only while e-mail is not wired (see sendCarerInvitation).
-    return { linkId: link.id, expiresAt: expiresAt.toISOString(), emailed: delivery.emailed, inviteUrl: delivery.emailed ? null : inviteUrl };
+    const delivery = await sendCarerInvitation(tx, { patientId, email, inviteUrl, linkId: link.id, invitedBy: viewer.name, expiresAt });
+    return { linkId: link.id, expiresAt: expiresAt.toISOString(), emailed: delivery.emailed };
   });
 }
 
-/**
- * ─── CARER INVITATION E-MAIL: TO BE WIRED TO THE OUTBOX ───────────────────────────────────
- * Until lib/email is on main the inviting patient or clinician is shown the link to pass on.
- * The lead replaces the body with queueMessage(tx, { kind: "carer-invite", to: email, … ,
- * idempotencyKey: linkId }) and returns { emailed: true } (the link then never reaches a screen).
- */
+/** The link goes only by e-mail (through the outbox), never to the inviter's screen. */
 async function sendCarerInvitation(
-  _tx: Executor,
-  _message: { patientId: string; email: string; inviteUrl: string; linkId: string; invitedBy: string },
+  tx: Executor,
+  message: { patientId: string; email: string; inviteUrl: string; linkId: string; invitedBy: string; expiresAt: Date },
 ): Promise<{ emailed: boolean }> {
-  return { emailed: false };
+  await queueCarerInvitation(tx, message);
+  return { emailed: true };
 }
 
 export async function removeCarer({ viewer, via, patientId, linkId, request }: { viewer: Viewer; via: "self" | "care_team"; patientId: string; linkId: string; request: Request }) {

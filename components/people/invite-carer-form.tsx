@@ -9,15 +9,14 @@ import { Field } from "@/components/ui/field";
 import { useRouter } from "@/lib/i18n/navigation";
 import { carerInviteSchema } from "@/lib/validations/invitations";
 
-type Result = { email: string; inviteUrl: string | null; emailed: boolean };
+type Result = { email: string };
 
-/** Invite a carer by e-mail. Until the mail outbox is wired the link is shown here to pass on. */
+/** Invite a carer by e-mail; the link goes only to their inbox, never to this screen. */
 export function InviteCarerForm({ patientId }: { patientId: string }) {
   const t = useTranslations("People.invite");
   const router = useRouter();
   const [result, setResult] = useState<Result | null>(null);
   const [formError, setFormError] = useState<string | null>(null);
-  const [copied, setCopied] = useState(false);
   const {
     register,
     handleSubmit,
@@ -34,8 +33,7 @@ export function InviteCarerForm({ patientId }: { patientId: string }) {
       setFormError(code === "own_address" ? t("ownAddress") : code === "already_linked" ? t("alreadyLinked") : t("error"));
       return;
     }
-    setResult({ email: values.email, inviteUrl: body.inviteUrl, emailed: body.emailed });
-    setCopied(false);
+    setResult({ email: values.email });
     reset();
     router.refresh();
   });
@@ -55,31 +53,7 @@ export function InviteCarerForm({ patientId }: { patientId: string }) {
       </form>
       {result ? (
         <div role="status" className="flex flex-col gap-3 rounded-lg border-2 border-level-selfcare bg-level-selfcare-soft p-4 text-level-selfcare-ink" data-testid="invite-result">
-          {result.emailed || !result.inviteUrl ? (
-            <p className="font-bold">{t("emailed", { email: result.email })}</p>
-          ) : (
-            <>
-              <p className="font-bold">{t("passOn", { email: result.email })}</p>
-              <label className="flex flex-col gap-1">
-                <span>{t("link")}</span>
-                <input readOnly value={result.inviteUrl} className="min-h-12 rounded-lg border-2 border-stone-line bg-paper-raised px-3 text-base text-ink" data-testid="invite-link" onFocus={(e) => e.currentTarget.select()} />
-              </label>
-              <Button
-                variant="secondary"
-                onClick={async () => {
-                  try {
-                    await navigator.clipboard.writeText(result.inviteUrl!);
-                    setCopied(true);
-                  } catch {
-                    setCopied(false);
-                  }
-                }}
-              >
-                {copied ? t("copied") : t("copy")}
-              </Button>
-              <p>{t("linkNote")}</p>
-            </>
-          )}
+          <p className="font-bold">{t("emailed", { email: result.email })}</p>
         </div>
       ) : null}
     </div>

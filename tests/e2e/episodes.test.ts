@@ -266,7 +266,7 @@ describe("screenshots of every form, en and ar, wide and phone", () => {
     { name: "phone", viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true },
   ] as const;
 
-  it("insertion, change, removal and TWOC, with findings showing", async () => {
+  it("insertion, change, removal and TWOC, with findings showing", { timeout: 240_000 }, async () => {
     const latexPatient = await makePatientWithCatheter({ latex: true });
     const emptyPatient = await makePatient({ latex: true });
     const trialPatient = await makePatientWithCatheter({ trial: true });

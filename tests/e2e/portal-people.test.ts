@@ -4,6 +4,7 @@
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { demo } from "../support/http";
+import { waitForEmails } from "../support/mail";
 import { launch, screenshot, signInAs } from "./support/browser";
 import { closeDatabase, patientIdByHrn, phonePage } from "./support/portal";
 
@@ -63,20 +64,24 @@ describe("carers", () => {
     const yusuf = await patientIdByHrn("EM-100-003");
     const email = `e2e.carer.${Date.now()}@eastmere.example`;
 
-    // The patient invites by e-mail on My people; until the outbox is wired the link is shown.
+    // The patient invites by e-mail on My people; the link reaches the carer's inbox only.
     const patient = await phonePage(browser);
     await signInAs(patient, demo.patient.email, demo.patient.password);
     await patient.goto("/en/people");
     await patient.getByLabel("Their e-mail address").fill(email);
     await patient.getByRole("button", { name: "Make an invitation" }).click();
-    const link = await patient.getByTestId("invite-link").inputValue();
-    expect(link).toMatch(/\/en\/carer-invite\/[A-Za-z0-9_-]{43}$/);
+    await patient.getByTestId("invite-result").waitFor();
+    expect(await patient.getByTestId("invite-result").textContent()).toContain(email);
     await screenshot(patient, "portal-people-invited-en");
+    const [mail] = await waitForEmails(email, 1, { timeoutMs: 60_000 });
+    expect(mail, "the invitation e-mail reached the fake inbox").toBeTruthy();
+    const link = /https?:\/\/[^\s"<]+\/en\/carer-invite\/[A-Za-z0-9_-]{43}/.exec(mail.text ?? "")?.[0];
+    expect(link).toBeTruthy();
 
     // The carer opens the link and makes an account.
     const carer = await phonePage(browser);
     await carer.context().setExtraHTTPHeaders({ "x-forwarded-for": "10.78.0.3" });
-    const inviteRes = await carer.goto(new URL(link).pathname);
+    const inviteRes = await carer.goto(new URL(link!).pathname);
     expect(inviteRes?.headers()["referrer-policy"]).toBe("no-referrer");
     await screenshot(carer, "portal-carer-invite-en");
     await carer.getByLabel("Your name").fill("Sam Pell");

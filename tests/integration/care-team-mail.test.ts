@@ -147,6 +147,8 @@ describe("weekly digest", () => {
       expect(schedules).toHaveLength(1);
       expect(schedules[0]).toMatchObject({ cron: "0 7 * * 1", timezone: "Europe/London" });
       expect(await bg.boss!.getSchedules(QUEUES.sweep)).toHaveLength(1);
+      // The patients' change reminders (lib/email/patient-reminders.ts): daily at 09:00.
+      expect(await bg.boss!.getSchedules(QUEUES.reminders)).toMatchObject([{ cron: "0 9 * * *", timezone: "Europe/London" }]);
       // Run the job now rather than wait for Monday.
       await db.delete(outboundMessages).where(eq(outboundMessages.idempotencyKey, `digest:${fx.teamId}:${localToday()}`));
       await bg.boss!.send(QUEUES.digest, {});

@@ -16,7 +16,7 @@ import { DELETE as carerDeleteRaw } from "@/app/api/patients/[patientId]/carers/
 import { POST as carersPostRaw } from "@/app/api/patients/[patientId]/carers/route";
 import { POST as invitePostRaw } from "@/app/api/patients/[patientId]/invite/route";
 import { db } from "@/db";
-import { auditEvents, bagChanges, carerLinks, checkIns, diaryEntries, patientInvites, patients, user } from "@/db/schema";
+import { auditEvents, bagChanges, carerLinks, checkIns, diaryEntries, outboundMessages, patientInvites, patients, user } from "@/db/schema";
 import { LIMITS } from "@/lib/rate-limit";
 import { CODE_BITS } from "@/lib/secret-codes";
 import { call, sessionFor } from "../support/http";
@@ -52,6 +52,14 @@ async function post(handler: typeof checkInsPost, path: string, body: unknown, c
   return call(handler, path, { body, cookie, headers: { "x-forwarded-for": freshIp() } });
 }
 
+/** The invitation token, read from the queued e-mail (it is never returned to the inviter). */
+async function carerInviteToken(linkId: string) {
+  const [mail] = await db.select({ text: outboundMessages.text }).from(outboundMessages).where(eq(outboundMessages.sourceId, linkId));
+  const token = /\/carer-invite\/([A-Za-z0-9_-]{43})/.exec(mail?.text ?? "")?.[1];
+  if (!token) throw new Error(`no queued carer invitation for link ${linkId}`);
+  return token;
+}
+
 /** A new carer for Arthur through the real invitation flow; returns their cookie and link id. */
 async function newCarerForArthur() {
   const email = `carer.${randomUUID().slice(0, 8)}@eastmere.example`;
@@ -61,8 +69,8 @@ async function newCarerForArthur() {
     params: { patientId: ids.arthur },
   });
   expect(inv.status).toBe(201);
-  const { linkId, inviteUrl } = await inv.json();
-  const token = String(inviteUrl).split("/carer-invite/")[1];
+  const { linkId } = await inv.json();
+  const token = await carerInviteToken(linkId);
   const acc = await call(acceptCarer, "/api/carer-invites/accept", {
     body: { token, name: "Sam Carer", password: "a-long-carer-password" },
     headers: { "x-forwarded-for": freshIp() },
@@ -181,6 +189,12 @@ describe("POST /api/check-ins", () => {
       (await db.select().from(auditEvents).where(and(eq(auditEvents.action, "check-in.alert"), sql`${auditEvents.details}->>'sourceId' = ${id}`))).length;
     expect(await alertFor(urgent.checkIn.id)).toBe(1);
     expect(await alertFor(calm.checkIn.id)).toBe(0);
+    // The e-mail to each care-team inbox is queued with the check-in (Arthur: Harbourside team).
+    const mailFor = async (id: string) => db.select().from(outboundMessages).where(eq(outboundMessages.sourceId, id));
+    const queued = await mailFor(urgent.checkIn.id);
+    expect(queued.length).toBeGreaterThanOrEqual(1);
+    expect(queued.every((m) => m.kind === "care-team-alert")).toBe(true);
+    expect(await mailFor(calm.checkIn.id)).toHaveLength(0);
   });
 
   it("takes the catheter route from the record, not the phone (suprapubic catheter out)", async () => {
@@ -310,7 +324,13 @@ describe("patient activation", () => {
 
   it("the patient activates with the code, e-mail and a good password, is signed in, and the code is spent", async () => {
     const email = "halina.nowak@eastmere.example";
-    const { code } = await (await invite(ids.halina, await sessionFor("communityNurse"), { email })).json();
+    const sent = await (await invite(ids.halina, await sessionFor("communityNurse"), { email })).json();
+    const { code } = sent;
+    // With an address the code also goes by e-mail, in Halina's language (Polish), via the outbox.
+    expect(sent.emailed).toBe(true);
+    const [mail] = await db.select().from(outboundMessages).where(and(eq(outboundMessages.kind, "portal-invite"), eq(outboundMessages.toAddress, email)));
+    expect(mail).toMatchObject({ locale: "pl", redactAfterSend: true });
+    expect(mail.text).toContain(code);
     const act = (body: unknown) => call(activate, "/api/activate", { body, headers: { "x-forwarded-for": freshIp() } });
     const before = (await db.select({ n: count() }).from(user))[0].n;
     const weak = await act({ code, email, password: "short" });
@@ -366,10 +386,14 @@ describe("carers", () => {
     const res = await inv(await sessionFor("communityNurse"));
     expect(res.status).toBe(201);
     const out = await res.json();
-    // Until the outbox is wired the link is shown to the inviter; only its hash is stored.
-    expect(out.inviteUrl).toMatch(/\/carer-invite\/[A-Za-z0-9_-]{43}$/);
+    // The link goes only by e-mail (queued in the same transaction); only its hash is stored.
+    expect(out.emailed).toBe(true);
+    expect(out).not.toHaveProperty("inviteUrl");
+    const token = await carerInviteToken(out.linkId);
     const [link] = await db.select().from(carerLinks).where(eq(carerLinks.id, out.linkId));
-    expect(link.inviteTokenHash).not.toContain(out.inviteUrl.split("/").at(-1));
+    expect(link.inviteTokenHash).not.toContain(token);
+    const [mail] = await db.select().from(outboundMessages).where(eq(outboundMessages.sourceId, out.linkId));
+    expect(mail).toMatchObject({ kind: "carer-invite", toAddress: body.email, redactAfterSend: true, status: "queued" });
   });
 
   it("a new carer accepts, sees only that patient, and loses access at once when removed", async () => {
@@ -392,8 +416,7 @@ describe("carers", () => {
     const email = "joan.pell@eastmere.example";
     // Joan already helps Arthur; Yusuf invites her too.
     const inv = await call(carersPost, `/api/patients/${ids.yusuf}/carers`, { body: { email }, cookie: await sessionFor("patientAr"), params: { patientId: ids.yusuf } });
-    const { inviteUrl } = await inv.json();
-    const token = inviteUrl.split("/carer-invite/")[1];
+    const token = await carerInviteToken((await inv.json()).linkId);
     const accept = (body: unknown) => call(acceptCarer, "/api/carer-invites/accept", { body, headers: { "x-forwarded-for": freshIp() } });
     const wrong = await accept({ token, password: "not-her-password" });
     expect(wrong.status).toBe(400);
