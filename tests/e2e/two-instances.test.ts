@@ -4,12 +4,12 @@ import { spawn, type ChildProcess } from "node:child_process";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { demo } from "../support/http";
+import { freePort } from "../support/mail";
 import { baseUrl } from "./support/browser";
 
 const root = path.resolve(__dirname, "../..");
 const second = new URL(baseUrl);
-second.port = String(Number(second.port) + 1);
-const secondUrl = second.origin;
+let secondUrl = "";
 let server: ChildProcess;
 
 async function up(url: string) {
@@ -25,6 +25,9 @@ async function up(url: string) {
 }
 
 beforeAll(async () => {
+  // A free port, not E2E_PORT + 1: on a shared machine that may be another engineer's server.
+  second.port = String(await freePort());
+  secondUrl = second.origin;
   server = spawn(path.join(root, "node_modules/.bin/next"), ["start", "-p", second.port, "-H", "127.0.0.1"], {
     cwd: root,
     // Same public address and secret as the first instance, as behind one load balancer.

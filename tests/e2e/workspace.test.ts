@@ -132,12 +132,12 @@ describe("clinician workspace", () => {
     await page.getByRole("button", { name: "Edit details" }).click();
     await page.getByLabel("Weight (kg)").fill("75");
     await page.getByRole("button", { name: "Save changes" }).click();
-    await expect.poll(() => page.getByText("75 kg").count()).toBe(1);
+    await expect.poll(() => page.getByText("75 kg").count(), { timeout: 15_000 }).toBe(1);
     // Put the demo value back for whoever runs next.
     await page.getByRole("button", { name: "Edit details" }).click();
     await page.getByLabel("Weight (kg)").fill("74");
     await page.getByRole("button", { name: "Save changes" }).click();
-    await expect.poll(() => page.getByText("74 kg").count()).toBe(1);
+    await expect.poll(() => page.getByText("74 kg").count(), { timeout: 15_000 }).toBe(1);
     await page.context().close();
   });
 
