@@ -1,14 +1,60 @@
-// Issue 5 in Chromium: a clinician of another organisation (Rowan Ward) meets Arthur Pell at home
+// Issue 5 in Chromium: a clinician of another organisation (Rowan Ward) meets a patient at home
 // with his passport. They type the short code, see the device card (no name, headers checked),
 // sign in from the card, state a reason, record a visit with NEWS2 and a change through the care
 // team's own forms, and the care team sees all of it in the access log. Also: the old token after
 // a reissue, the card in Arabic, the 429 page, and the Scan page reading the QR from the camera.
+import { randomUUID } from "node:crypto";
+import { eq, inArray } from "drizzle-orm";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { db, pool } from "@/db";
+import { careTeam, catheterEpisodes, organisations, patients } from "@/db/schema";
 import { demo } from "../support/http";
 import { baseUrl, launch, newPage, screenshot, signInAs } from "./support/browser";
-import { closeDatabase, patientIdByHrn } from "./support/portal";
 import { writeQrVideo } from "./support/qr-camera";
+
+// Patients of this test's own (Harbourside's care), so the demo records other tests read stay as seeded.
+const created: string[] = [];
+async function makePatient(opts: { familyName: string; locale: string; sex: "male" | "female"; latex?: boolean; chlorhexidine?: boolean; route: "urethral" | "suprapubic" }) {
+  const [team] = await db.select({ id: organisations.id }).from(organisations).where(eq(organisations.name, "Harbourside Community Nursing Team"));
+  const [p] = await db
+    .insert(patients)
+    .values({
+      givenName: "Edmund",
+      familyName: opts.familyName,
+      healthRecordNumber: `E2E-QR-${randomUUID()}`,
+      dateOfBirth: "1946-05-20",
+      sex: opts.sex,
+      preferredLocale: opts.locale,
+      allergyLatex: opts.latex ?? false,
+      allergyChlorhexidine: opts.chlorhexidine ?? false,
+    })
+    .returning({ id: patients.id });
+  created.push(p.id);
+  await db.insert(careTeam).values({ patientId: p.id, organisationId: team.id });
+  const insertedAt = new Date(Date.now() - 20 * 86_400_000);
+  await db.insert(catheterEpisodes).values({
+    patientId: p.id,
+    organisationId: team.id,
+    route: opts.route,
+    catheterType: "two-way",
+    material: "all-silicone",
+    lengthCategory: "standard",
+    sizeCh: opts.route === "suprapubic" ? 16 : 14,
+    balloonMl: 10,
+    makerBalloonMl: 10,
+    maker: "Northfen Medical (demo)",
+    indication: "Chronic urinary retention",
+    insertedAt,
+    insertedByName: "Grace Mensah",
+    gelKind: "plain",
+    gelVolumeMl: 11,
+    maxDwellDays: 84,
+    plannedChangeOn: new Date(insertedAt.getTime() + 84 * 86_400_000).toISOString().slice(0, 10),
+    reviewDueOn: new Date(insertedAt.getTime() + 28 * 86_400_000).toISOString().slice(0, 10),
+  });
+  return p.id;
+}
 
 let browser: Browser;
 let arthur: string;
@@ -28,8 +74,8 @@ async function issue(patientId: string): Promise<Issued> {
 
 beforeAll(async () => {
   browser = await launch();
-  arthur = await patientIdByHrn("EM-100-001");
-  yusuf = await patientIdByHrn("EM-100-003");
+  arthur = await makePatient({ familyName: `Quill-${randomUUID().slice(0, 6)}`, locale: "en", sex: "male", latex: true, route: "urethral" });
+  yusuf = await makePatient({ familyName: `Rahal-${randomUUID().slice(0, 6)}`, locale: "ar", sex: "male", chlorhexidine: true, route: "suprapubic" });
   nursePage = await newPage(browser, { viewport: { width: 1280, height: 900 } });
   await signInAs(nursePage, demo.communityNurse.email, demo.communityNurse.password);
   oldPassport = await issue(arthur);
@@ -38,7 +84,8 @@ beforeAll(async () => {
 });
 afterAll(async () => {
   await browser?.close();
-  await closeDatabase();
+  if (created.length) await db.delete(patients).where(inArray(patients.id, created));
+  await pool.end();
 });
 
 describe("visiting clinician from the passport", () => {
@@ -56,7 +103,7 @@ describe("visiting clinician from the passport", () => {
     await expect.poll(() => page.getByTestId("card-size").textContent()).toMatch(/\d+ Ch/);
     const text = (await page.locator("main").textContent()) ?? "";
     expect(text).toContain("Latex");
-    expect(text).not.toMatch(/Arthur|Pell|EM-100-001/);
+    expect(text).not.toMatch(/Edmund|Quill|E2E-QR|1946/);
     expect(await page.getByTestId("card-phone").getAttribute("href")).toMatch(/^tel:\+?\d+$/);
     await screenshot(page, "device-card-code-en-390");
 
