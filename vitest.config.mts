@@ -34,8 +34,9 @@ export default defineConfig({
           fileParallelism: false,
           globalSetup: ["tests/integration/global-setup.ts"],
           setupFiles: ["tests/integration/per-file-database.ts"],
-          testTimeout: 30_000,
-          hookTimeout: 60_000,
+          // Generous: sign-ins hash passwords (scrypt), slow on a loaded two-core machine.
+          testTimeout: 60_000,
+          hookTimeout: 120_000,
         },
       },
       {
