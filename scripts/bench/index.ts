@@ -51,7 +51,7 @@ async function load(url: string, headers: Record<string, string> = {}, varyIp = 
       ? [{ setupRequest: (req: Record<string, unknown>) => ({ ...req, headers: { ...headers, "x-forwarded-for": `10.${(n >> 16) & 255}.${(n >> 8) & 255}.${n++ & 255}` } }) }]
       : undefined,
   });
-  return { rps: result.requests.average, p50: result.latency.p50, p99: result.latency.p99, non2xx: result.non2xx, total: result.requests.total };
+  return { rps: result.requests.average, p50: result.latency.p50, p99: result.latency.p99, non2xx: result.non2xx, total: result.requests.total, timeouts: result.timeouts, errors: result.errors };
 }
 
 async function timed(times: number, fn: () => Promise<unknown>) {
@@ -164,8 +164,8 @@ async function main() {
     const card = await load(`${base}/en/p/${token}`, {}, true);
     const stat = await load(`${base}${staticPath}`);
     const ratio = card.rps / stat.rps;
-    add("device card", `${card.rps.toFixed(0)} req/s, p50 ${card.p50} ms, p99 ${card.p99} ms (${card.non2xx} non-2xx of ${card.total})`);
-    add(`static ${staticPath}`, `${stat.rps.toFixed(0)} req/s, p50 ${stat.p50} ms, p99 ${stat.p99} ms`);
+    add("device card", `${card.rps.toFixed(0)} req/s, p50 ${card.p50} ms, p99 ${card.p99} ms (${card.total} answered, ${card.non2xx} non-2xx, ${card.timeouts} timed out after 10 s)`);
+    add(`static ${staticPath}`, `${stat.rps.toFixed(0)} req/s, p50 ${stat.p50} ms, p99 ${stat.p99} ms (${stat.total} answered, ${stat.timeouts} timed out)`);
     add("card / static throughput", ratio.toFixed(2), "≥ 0.5", ratio >= 0.5);
 
     // 2. Caseload API: latency, and SQL transactions per request whatever the page size.
