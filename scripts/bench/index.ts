@@ -187,7 +187,7 @@ async function main() {
       perRequest.push(`${size}: ${((after - before - 1) / 20).toFixed(1)}`);
       before = after;
     }
-    add("SQL statements per caseload request (page size: count; session and audit included)", perRequest.join(", "));
+    add("SQL transactions per caseload request (page size: count; session and audit included)", perRequest.join(", "));
 
     // 3. Passport issue (booklet PDF made and stored) for a patient with 3 and with 30 history
     // entries: two different large-set patients, their event history cut or padded to n.
