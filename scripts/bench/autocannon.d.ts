@@ -11,6 +11,8 @@ declare module "autocannon" {
     requests: { average: number; total: number };
     latency: { p50: number; p99: number };
     non2xx: number;
+    timeouts: number;
+    errors: number;
   };
   function autocannon(options: Options): Promise<Result>;
   export default autocannon;

@@ -4,7 +4,7 @@
  * A script, not a test: figures are reported, never asserted, so nothing flakes.
  */
 import { spawn, spawnSync, type ChildProcess } from "node:child_process";
-import { createHash, randomBytes } from "node:crypto";
+import { randomBytes } from "node:crypto";
 import fs from "node:fs";
 import os from "node:os";
 import path from "node:path";
@@ -18,10 +18,14 @@ import { seedLarge } from "./large-data";
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "../..");
 const bin = (n: string) => path.join(root, "node_modules/.bin", n);
-const port = Number(process.env.BENCH_PORT ?? 3500);
+const port = Number(process.env.BENCH_PORT ?? 3016);
 const base = `http://localhost:${port}`;
 const seconds = Number(process.env.BENCH_SECONDS ?? 20);
 const connections = Number(process.env.BENCH_CONNECTIONS ?? 50);
+
+// BENCH_SKIP_BUILD=1 reuses the .next build already in the worktree (built from the same tree).
+const skipBuild = process.env.BENCH_SKIP_BUILD === "1" && fs.existsSync(path.join(root, ".next/BUILD_ID"));
+const loadAverage = () => os.loadavg().map((v) => v.toFixed(2)).join(", ");
 
 type Row = { what: string; figure: string; target?: string; met?: boolean };
 const rows: Row[] = [];
@@ -47,7 +51,7 @@ async function load(url: string, headers: Record<string, string> = {}, varyIp = 
       ? [{ setupRequest: (req: Record<string, unknown>) => ({ ...req, headers: { ...headers, "x-forwarded-for": `10.${(n >> 16) & 255}.${(n >> 8) & 255}.${n++ & 255}` } }) }]
       : undefined,
   });
-  return { rps: result.requests.average, p50: result.latency.p50, p99: result.latency.p99, non2xx: result.non2xx, total: result.requests.total };
+  return { rps: result.requests.average, p50: result.latency.p50, p99: result.latency.p99, non2xx: result.non2xx, total: result.requests.total, timeouts: result.timeouts, errors: result.errors };
 }
 
 async function timed(times: number, fn: () => Promise<unknown>) {
@@ -81,7 +85,7 @@ async function lighthouseScores(pathname: string, cookie?: string) {
   const chromeLauncher = await import("chrome-launcher");
   const chrome = await chromeLauncher.launch({
     chromePath: "/usr/bin/chromium",
-    chromeFlags: ["--headless", "--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync"],
+    chromeFlags: ["--headless", "--no-sandbox", "--disable-gpu", "--disable-background-networking"],
   });
   try {
     const result = await lighthouse(`${base}${pathname}`, {
@@ -92,6 +96,7 @@ async function lighthouseScores(pathname: string, cookie?: string) {
       extraHeaders: cookie ? { cookie } : undefined,
       formFactor: "mobile",
     });
+    if (result!.lhr.runtimeError) console.log(`[bench] Lighthouse ${pathname}: ${result!.lhr.runtimeError.code} ${result!.lhr.runtimeError.message}`);
     const c = result!.lhr.categories;
     return { performance: c.performance.score ?? 0, accessibility: c.accessibility.score ?? 0, bestPractices: c["best-practices"].score ?? 0 };
   } finally {
@@ -107,6 +112,18 @@ async function signInCookie(email: string, password: string) {
   });
   if (!res.ok) throw new Error(`sign-in failed: ${res.status}`);
   return res.headers.getSetCookie().map((c) => c.split(";")[0]).join("; ");
+}
+
+/** POST /api/patients/[id]/passport (reissue when asked); the token from the answer's card address. */
+async function issue(cookie: string, patientId: string, reissue: boolean) {
+  const res = await fetch(`${base}/api/patients/${patientId}/passport`, {
+    method: "POST",
+    headers: { cookie, origin: base, "content-type": "application/json" },
+    body: JSON.stringify(reissue ? { reissue: true } : {}),
+  });
+  if (res.status !== 201) throw new Error(`passport issue failed: ${res.status} ${await res.text()}`);
+  const { url } = (await res.json()) as { url: string };
+  return decodeURIComponent(new URL(url).pathname.split("/").pop()!);
 }
 
 async function main() {
@@ -125,83 +142,96 @@ async function main() {
   const counts = await seedLarge(databaseUrl);
   add("data set", `${counts.patients} patients, ${counts.episodes} episodes, ${counts.events} events, ${counts.diary} diary entries (loaded in ${((Date.now() - t0) / 1000).toFixed(1)} s)`);
 
-  // A passport with a known token for the device card.
   const client = new pg.Client({ connectionString: databaseUrl });
   await client.connect();
-  const token = randomBytes(32).toString("base64url");
-  const sha = (v: string) => createHash("sha256").update(v).digest("hex");
-  const [{ id: patientId }] = (await client.query("select id from patients where health_record_number = 'EM-100-002'")).rows;
-  await client.query(
-    "insert into passports (patient_id, token_hash, short_code_hash, languages) values ($1, $2, $3, '{pl,en}')",
-    [patientId, sha(token), sha(randomBytes(8).toString("hex"))],
-  );
+  add("load average before the build (1, 5, 15 min)", loadAverage());
 
-  if (spawnSync(bin("next"), ["build"], { cwd: root, env, stdio: "ignore" }).status !== 0) throw new Error("next build failed");
+  if (!skipBuild && spawnSync(bin("next"), ["build"], { cwd: root, env, stdio: "ignore" }).status !== 0) throw new Error("next build failed");
   if (await portOpen(port)) throw new Error(`port ${port} is busy (BENCH_PORT)`);
-  const server: ChildProcess = spawn(bin("next"), ["start", "-p", String(port), "-H", "127.0.0.1"], { cwd: root, env: { ...env, NODE_ENV: "production" }, stdio: "ignore" });
+  const server: ChildProcess = spawn(bin("next"), ["start", "-p", String(port), "-H", "127.0.0.1"], { cwd: root, env: { ...env, NODE_ENV: "production", CLIENT_IP_HEADER: "x-forwarded-for" }, stdio: "ignore" });
   try {
     for (let i = 0; i < 240 && !(await fetch(`${base}/en/sign-in`).then((r) => r.ok).catch(() => false)); i++) await new Promise((r) => setTimeout(r, 250));
 
-    // 1. Device card against a static file of the same server.
-    const staticPath = fs.existsSync(path.join(root, "public/offline.html")) ? "/offline.html" : "/icon.svg";
+    const nurse = await signInCookie("community.nurse@eastmere.example", "Eastmere-community-2026");
+    // A passport issued through the real route (token, booklet, audit), as a nurse would.
+    const token = await issue(nurse, (await client.query("select id from patients where health_record_number = 'EM-100-002'")).rows[0].id, false);
+    add("load average at the start of the load tests", loadAverage());
+
+    // 1. Device card against a static file of the same server (same proxy, no database). No
+    // page of the build is prerendered (every page carries a per-request CSP nonce), so the
+    // static reference is a file from public/.
+    const staticPath = "/icon.svg";
     const card = await load(`${base}/en/p/${token}`, {}, true);
     const stat = await load(`${base}${staticPath}`);
     const ratio = card.rps / stat.rps;
-    add("device card", `${card.rps.toFixed(0)} req/s, p50 ${card.p50} ms, p99 ${card.p99} ms (${card.non2xx} non-2xx of ${card.total})`);
-    add(`static ${staticPath}`, `${stat.rps.toFixed(0)} req/s, p50 ${stat.p50} ms, p99 ${stat.p99} ms`);
+    add("device card", `${card.rps.toFixed(0)} req/s, p50 ${card.p50} ms, p99 ${card.p99} ms (${card.total} answered, ${card.non2xx} non-2xx, ${card.timeouts} timed out after 10 s)`);
+    add(`static ${staticPath}`, `${stat.rps.toFixed(0)} req/s, p50 ${stat.p50} ms, p99 ${stat.p99} ms (${stat.total} answered, ${stat.timeouts} timed out)`);
     add("card / static throughput", ratio.toFixed(2), "≥ 0.5", ratio >= 0.5);
 
     // 2. Caseload API: latency, and SQL transactions per request whatever the page size.
-    const nurse = await signInCookie("community.nurse@eastmere.example", "Eastmere-community-2026");
-    const caseloadPath = (size: number) => `/api/caseload?page=3&pageSize=${size}&filter=due-soon&sort=nextChange`;
+    const caseloadPath = (size: number) => `/api/caseload?page=3&pageSize=${size}&filter=due-soon&sort=next-change`;
     for (let i = 0; i < 5; i++) await fetch(`${base}${caseloadPath(50)}`, { headers: { cookie: nurse } });
     const lat = await timed(200, () => fetch(`${base}${caseloadPath(50)}`, { headers: { cookie: nurse } }).then((r) => r.text()));
     add("caseload API, page of 50, filtered", `p50 ${pct(lat, 50).toFixed(1)} ms, p99 ${pct(lat, 99).toFixed(1)} ms`, "p99 ≤ 100 ms", pct(lat, 99) <= 100);
+    // pg_stat_database is fed by each backend when it has been idle for 10 s (PostgreSQL 15+),
+    // so wait that long before each reading; the bench's own reading is one transaction.
+    const settled = async () => {
+      await new Promise((r) => setTimeout(r, 11_000));
+      return xacts(client, "caddis_bench");
+    };
     const perRequest: string[] = [];
+    let before = await settled();
     for (const size of [10, 50, 100]) {
-      const before = await xacts(client, "caddis_bench");
       for (let i = 0; i < 20; i++) await fetch(`${base}${caseloadPath(size)}`, { headers: { cookie: nurse } }).then((r) => r.text());
-      perRequest.push(`${size}: ${((await xacts(client, "caddis_bench")) - before) / 20}`);
+      const after = await settled();
+      perRequest.push(`${size}: ${((after - before - 1) / 20).toFixed(1)}`);
+      before = after;
     }
-    add("SQL statements per caseload request (page size: count; session and audit included)", perRequest.join(", "));
+    add("SQL transactions per caseload request (page size: count; session and audit included)", perRequest.join(", "));
 
-    // 3. Passport PDF for a patient with 3 and with 30 history entries.
-    for (const n of [3, 30]) {
-      const [{ id }] = (
-        await client.query(
-          `select p.id from patients p join episode_events e on e.patient_id = p.id where p.health_record_number like 'BENCH-%'
-           group by p.id having count(*) >= 1 limit 1`,
-        )
-      ).rows;
+    // 3. Passport issue (booklet PDF made and stored) for a patient with 3 and with 30 history
+    // entries: two different large-set patients, their event history cut or padded to n.
+    const benchPatients = (await client.query("select id from patients where health_record_number like 'BENCH-%' order by health_record_number limit 2")).rows;
+    for (const [i, n] of [3, 30].entries()) {
+      const id: string = benchPatients[i].id;
+      await client.query(
+        `delete from episode_events where patient_id = $1 and id not in
+           (select id from episode_events where patient_id = $1 order by occurred_at desc limit $2)`,
+        [id, n],
+      );
       await client.query(
         `insert into episode_events (episode_id, patient_id, kind, notes, occurred_at, recorded_by_name)
-         select (select id from catheter_episodes where patient_id = $1 limit 1), $1, 'visit', 'bench', now() - g * interval '1 day', 'Bench Nurse'
+         select (select id from catheter_episodes where patient_id = $1 and removed_at is null limit 1), $1, 'visit', 'bench', now() - g * interval '1 day', 'Bench Nurse'
          from generate_series(1, greatest(0, $2 - (select count(*) from episode_events where patient_id = $1))) g`,
         [id, n],
       );
-      const pdfPath = `/api/patients/${id}/passport`;
-      const times = await timed(20, () =>
-        fetch(`${base}${pdfPath}`, { method: "POST", headers: { cookie: nurse, origin: base, "content-type": "application/json" }, body: "{}" }).then((r) => r.text()),
-      );
-      add(`passport issue with PDF, ${n} history entries`, `p50 ${pct(times, 50).toFixed(0)} ms, p95 ${pct(times, 95).toFixed(0)} ms`, "p95 ≤ 500 ms", pct(times, 95) <= 500);
+      const history = Number((await client.query("select count(*) from episode_events where patient_id = $1", [id])).rows[0].count);
+      await issue(nurse, id, false);
+      const times = await timed(20, () => issue(nurse, id, true));
+      add(`passport issue with PDF, ${history} history entries`, `p50 ${pct(times, 50).toFixed(0)} ms, p95 ${pct(times, 95).toFixed(0)} ms`, "p95 ≤ 500 ms", pct(times, 95) <= 500);
     }
 
     // 4. First-load JavaScript (gzip).
     const patient = await signInCookie("arthur.pell@eastmere.example", "Eastmere-patient-2026");
-    const bare = await firstLoadJs("/en/no-such-page");
+    add("load average before first-load JS and Lighthouse", loadAverage());
+    // The bare page: /en/offline (root layout, a heading and two phone numbers, no client
+    // component of its own). A not-found page answers 404, which Lighthouse refuses to score.
+    const barePath = "/en/offline";
+    const bare = await firstLoadJs(barePath);
     const cardJs = await firstLoadJs(`/en/p/${token}`);
-    add("first-load JS, bare page (not found)", `${(bare / 1024).toFixed(1)} KiB`);
+    add("first-load JS, bare page (/en/offline)", `${(bare / 1024).toFixed(1)} KiB`);
     add("first-load JS, device card", `${(cardJs / 1024).toFixed(1)} KiB`, "≤ 1.3 × bare", cardJs <= 1.3 * bare);
     add("first-load JS, check-in", `${((await firstLoadJs("/en/check-in", patient)) / 1024).toFixed(1)} KiB`);
     add("first-load JS, caseload", `${((await firstLoadJs("/en/caseload", nurse)) / 1024).toFixed(1)} KiB`);
 
     // 5. Lighthouse mobile.
-    const bareLh = await lighthouseScores("/en/no-such-page");
+    const bareLh = await lighthouseScores(barePath);
     add("Lighthouse bare page", fmt(bareLh));
     for (const [name, p, cookie] of [["device card", `/en/p/${token}`, undefined], ["portal Today", "/en/today", patient], ["check-in", "/en/check-in", patient]] as const) {
       const s = await lighthouseScores(p, cookie);
       add(`Lighthouse ${name}`, fmt(s), "perf ≥ bare, a11y 100", s.performance >= bareLh.performance && s.accessibility === 1);
     }
+    add("load average at the end", loadAverage());
   } finally {
     server.kill("SIGTERM");
     await client.end();
@@ -218,15 +248,20 @@ function writeReport() {
   const lines = [
     "# Performance",
     "",
-    `Measured by \`npm run bench\` on ${new Date().toISOString().slice(0, 10)}, ${machine}; autocannon ${connections} connections × ${seconds} s on loopback.`,
+    `Measured by \`npm run bench\` on ${new Date().toISOString().slice(0, 16).replace("T", " ")} UTC, ${machine}; autocannon ${connections} connections × ${seconds} s on loopback; load average now ${loadAverage()}.`,
     "",
     "| measure | figure | target | met |",
     "|---|---|---|---|",
     ...rows.map((r) => `| ${r.what} | ${r.figure} | ${r.target ?? ""} | ${r.target ? (r.met ? "yes" : "**no**") : ""} |`),
     "",
   ];
-  fs.mkdirSync(path.join(root, "docs"), { recursive: true });
-  fs.writeFileSync(path.join(root, "docs/performance.md"), lines.join("\n"));
+  // Hand-written notes below the marker (why a target was missed) survive a new run.
+  const file = path.join(root, "docs/performance.md");
+  const marker = "<!-- notes: kept by npm run bench -->";
+  const old = fs.existsSync(file) ? fs.readFileSync(file, "utf8") : "";
+  const notes = old.includes(marker) ? old.slice(old.indexOf(marker)) : `${marker}\n`;
+  fs.mkdirSync(path.dirname(file), { recursive: true });
+  fs.writeFileSync(file, `${lines.join("\n")}\n${notes}`);
   console.log(`\n${lines.join("\n")}`);
 }
 
