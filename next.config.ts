@@ -30,6 +30,9 @@ const nextConfig: NextConfig = {
       { source: "/sw.js", headers: [{ key: "Cache-Control", value: "no-cache" }, { key: "Service-Worker-Allowed", value: "/" }] },
       // Invitation links carry their token in the path: never in a Referer.
       { source: "/:locale/carer-invite/:token", headers: [{ key: "Referrer-Policy", value: "no-referrer" }] },
+      { source: "/:locale/accept-invite/:token", headers: [{ key: "Referrer-Policy", value: "no-referrer" }] },
+      // The reset link carries its token in the query string.
+      { source: "/:locale/reset-password", headers: [{ key: "Referrer-Policy", value: "no-referrer" }] },
     ];
   },
 };

@@ -7,7 +7,8 @@ import pg from "pg";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { LEARN_PAGES } from "@/lib/learn";
 import { RECORD_KINDS } from "@/lib/validations/episode";
-import { demo } from "../support/http";
+import { DEMO_ADMIN_TOTP } from "@/db/seed";
+import { demo, totpCode } from "../support/http";
 import { expandPattern, listPages } from "../support/pages";
 import { baseUrl } from "./support/browser";
 
@@ -27,7 +28,18 @@ async function signIn(who: keyof typeof demo) {
     body: JSON.stringify(demo[who]),
   });
   expect(res.status, `sign in as ${who}`).toBe(200);
-  const cookie = res.headers.getSetCookie().map((c) => c.split(";")[0]).join("; ");
+  let cookie = res.headers.getSetCookie().map((c) => c.split(";")[0]).join("; ");
+  if (((await res.json()) as { twoFactorRedirect?: boolean }).twoFactorRedirect) {
+    // The demo admin signs in in two steps: the code from its printed TOTP secret.
+    expect(demo[who].email).toBe(DEMO_ADMIN_TOTP.email);
+    const second = await fetch(`${baseUrl}/api/auth/two-factor/verify-totp`, {
+      method: "POST",
+      headers: { "content-type": "application/json", origin: baseUrl, cookie, "x-forwarded-for": `10.88.1.${ipN++}` },
+      body: JSON.stringify({ code: totpCode(DEMO_ADMIN_TOTP.base32) }),
+    });
+    expect(second.status, `second step as ${who}`).toBe(200);
+    cookie = second.headers.getSetCookie().map((c) => c.split(";")[0]).filter((c) => c.includes("session_token")).join("; ");
+  }
   cookies.set(who, cookie);
   return cookie;
 }
@@ -36,10 +48,14 @@ beforeAll(async () => {
   const client = new pg.Client({ connectionString: process.env.DATABASE_URL });
   await client.connect();
   const { rows } = await client.query<{ id: string }>("select id from patients where health_record_number = 'EM-100-001'");
+  const org = await client.query<{ id: string }>("select id from organisations where name = 'Harbourside Community Nursing Team'");
+  const staff = await client.query<{ id: string }>(`select id from "user" where email = 'community.nurse@eastmere.example'`);
   await client.end();
   values = {
     locale: ["en", "ar"],
     patientId: [rows[0].id],
+    organisationId: [org.rows[0].id],
+    userId: [staff.rows[0].id],
     kind: [...RECORD_KINDS],
     slug: [LEARN_PAGES[0].slug],
     // An invitation that does not exist: the page must answer (with its own message), headers and all.
