@@ -47,7 +47,8 @@ export function AcceptInviteForm({ token, email, suggestedName }: { token: strin
     >
       {failure ? <Notice tone="stop" role="alert" title={failure} /> : null}
       <Field label={t("email")} value={email} readOnly autoComplete="username" />
-      <Field label={t("name")} autoComplete="name" errors={errorText.list(errors.name)} {...register("name")} />
+      {/* defaultValue: the suggested name is in the server's HTML, not only after hydration. */}
+      <Field label={t("name")} autoComplete="name" defaultValue={suggestedName} errors={errorText.list(errors.name)} {...register("name")} />
       <Field
         label={t("password")}
         hint={t("passwordRules", { min: PASSWORD_MIN_LENGTH })}

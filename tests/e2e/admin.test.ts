@@ -68,7 +68,7 @@ describe("inviting a nurse", () => {
     await nurse.context().setExtraHTTPHeaders({ "x-forwarded-for": "10.78.0.2" });
     await nurse.goto(new URL(link).pathname);
     await expect.poll(() => nurse.locator("h1").textContent()).toBe("Set up your Caddis account");
-    expect(await nurse.getByLabel("Your name").inputValue()).toBe("Ines Varga");
+    await expect.poll(() => nurse.getByLabel("Your name").inputValue()).toBe("Ines Varga");
     await nurse.getByLabel("Password", { exact: true }).fill("short");
     await nurse.getByLabel("Password again").fill("short");
     await nurse.getByRole("button", { name: "Create account and sign in" }).click();
