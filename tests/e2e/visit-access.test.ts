@@ -11,7 +11,7 @@ import { db, pool } from "@/db";
 import { careTeam, catheterEpisodes, organisations, patients } from "@/db/schema";
 import { demo } from "../support/http";
 import { baseUrl, launch, newPage, screenshot, signInAs } from "./support/browser";
-import { writeQrVideo } from "./support/qr-camera";
+import { writeQrVideo } from "./support/fake-camera";
 
 // Patients of this test's own (Harbourside's care), so the demo records other tests read stay as seeded.
 const created: string[] = [];
