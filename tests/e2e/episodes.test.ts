@@ -8,6 +8,7 @@ import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db, pool } from "@/db";
 import { careTeam, catheterEpisodes, episodeEvents, organisations, patients } from "@/db/schema";
+import { demoCatheterRow } from "../support/fixtures";
 import { demo } from "../support/http";
 import { launch, newPage, screenshot, signInAs } from "./support/browser";
 import { writeLabelVideo } from "./support/fake-camera";
@@ -43,29 +44,16 @@ async function makePatient(opts: { latex?: boolean; familyName?: string } = {}) 
 async function makePatientWithCatheter(opts: { latex?: boolean; trial?: boolean } = {}) {
   const patientId = await makePatient(opts);
   const insertedAt = new Date(Date.now() - 30 * 86_400_000);
-  await db.insert(catheterEpisodes).values({
-    patientId,
-    organisationId: harbourside,
-    route: "urethral",
-    catheterType: "two-way",
-    material: "all-silicone",
-    lengthCategory: "standard",
-    sizeCh: 14,
-    balloonMl: 10,
-    makerBalloonMl: 10,
-    maker: "Northfen Medical (demo)",
-    indication: "Chronic urinary retention",
-    insertedAt,
-    insertedByName: "Grace Mensah",
-    gelKind: "plain",
-    gelVolumeMl: 11,
-    maxDwellDays: 84,
-    plannedChangeOn: new Date(insertedAt.getTime() + 84 * 86_400_000).toISOString().slice(0, 10),
-    reviewDueOn: new Date(insertedAt.getTime() + 28 * 86_400_000).toISOString().slice(0, 10),
-    removedAt: opts.trial ? new Date(Date.now() - 4 * 3600_000) : null,
-    removalReason: opts.trial ? "trial-without-catheter" : null,
-    awaitingTwoc: Boolean(opts.trial),
-  });
+  await db.insert(catheterEpisodes).values(
+    demoCatheterRow({
+      patientId,
+      organisationId: harbourside,
+      insertedAt,
+      removedAt: opts.trial ? new Date(Date.now() - 4 * 3600_000) : null,
+      removalReason: opts.trial ? "trial-without-catheter" : null,
+      awaitingTwoc: Boolean(opts.trial),
+    }),
+  );
   return patientId;
 }
 

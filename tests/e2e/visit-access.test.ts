@@ -9,6 +9,7 @@ import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db, pool } from "@/db";
 import { careTeam, catheterEpisodes, organisations, patients } from "@/db/schema";
+import { demoCatheterRow } from "../support/fixtures";
 import { demo } from "../support/http";
 import { baseUrl, launch, newPage, screenshot, signInAs } from "./support/browser";
 import { writeQrVideo } from "./support/fake-camera";
@@ -33,26 +34,9 @@ async function makePatient(opts: { familyName: string; locale: string; sex: "mal
   created.push(p.id);
   await db.insert(careTeam).values({ patientId: p.id, organisationId: team.id });
   const insertedAt = new Date(Date.now() - 20 * 86_400_000);
-  await db.insert(catheterEpisodes).values({
-    patientId: p.id,
-    organisationId: team.id,
-    route: opts.route,
-    catheterType: "two-way",
-    material: "all-silicone",
-    lengthCategory: "standard",
-    sizeCh: opts.route === "suprapubic" ? 16 : 14,
-    balloonMl: 10,
-    makerBalloonMl: 10,
-    maker: "Northfen Medical (demo)",
-    indication: "Chronic urinary retention",
-    insertedAt,
-    insertedByName: "Grace Mensah",
-    gelKind: "plain",
-    gelVolumeMl: 11,
-    maxDwellDays: 84,
-    plannedChangeOn: new Date(insertedAt.getTime() + 84 * 86_400_000).toISOString().slice(0, 10),
-    reviewDueOn: new Date(insertedAt.getTime() + 28 * 86_400_000).toISOString().slice(0, 10),
-  });
+  await db.insert(catheterEpisodes).values(
+    demoCatheterRow({ patientId: p.id, organisationId: team.id, insertedAt, route: opts.route, sizeCh: opts.route === "suprapubic" ? 16 : 14 }),
+  );
   return p.id;
 }
 

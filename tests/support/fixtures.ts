@@ -3,7 +3,7 @@
 import { randomBytes, randomUUID } from "node:crypto";
 import { eq, inArray } from "drizzle-orm";
 import { db } from "@/db";
-import { account, careTeam, memberships, organisations, patients, user, visitAccess } from "@/db/schema";
+import { account, careTeam, memberships, organisations, patients, user, visitAccess, type NewCatheterEpisode } from "@/db/schema";
 import { hashPassword } from "@/lib/auth/password";
 import { signIn } from "./http";
 
@@ -64,4 +64,39 @@ export async function patientIdByHrn(hrn: string): Promise<string> {
 export async function userIdByEmail(email: string): Promise<string> {
   const [u] = await db.select({ id: user.id }).from(user).where(eq(user.email, email));
   return u.id;
+}
+
+const isoDay = (d: Date) => d.toISOString().slice(0, 10);
+
+/**
+ * The demo catheter as the episode forms would store it (all-silicone 14 Ch two-way, 10 ml,
+ * 84-day change, 28-day review), for tests that need a catheter in place without the forms.
+ */
+export function demoCatheterRow({
+  patientId,
+  organisationId,
+  insertedAt = new Date(),
+  ...over
+}: Partial<NewCatheterEpisode> & Pick<NewCatheterEpisode, "patientId" | "organisationId"> & { insertedAt?: Date }): NewCatheterEpisode {
+  return {
+    patientId,
+    organisationId,
+    route: "urethral",
+    catheterType: "two-way",
+    material: "all-silicone",
+    lengthCategory: "standard",
+    sizeCh: 14,
+    balloonMl: 10,
+    makerBalloonMl: 10,
+    maker: "Northfen Medical (demo)",
+    indication: "Chronic urinary retention",
+    insertedAt,
+    insertedByName: "Grace Mensah",
+    gelKind: "plain",
+    gelVolumeMl: 11,
+    maxDwellDays: 84,
+    plannedChangeOn: isoDay(new Date(insertedAt.getTime() + 84 * 86_400_000)),
+    reviewDueOn: isoDay(new Date(insertedAt.getTime() + 28 * 86_400_000)),
+    ...over,
+  };
 }

@@ -16,6 +16,7 @@ import {
   type NewCatheterEpisode,
 } from "@/db/schema";
 import { env } from "@/lib/env";
+import { demoCatheterRow } from "./fixtures";
 
 export type InboxEmail = {
   id: string;
@@ -148,8 +149,6 @@ export async function mailPatient(
   };
 }
 
-const isoDay = (d: Date) => d.toISOString().slice(0, 10);
-
 /** A catheter and its insertion (or change) event, as the episode forms would write them. */
 export async function insertEpisode(
   patientId: string,
@@ -165,29 +164,20 @@ export async function insertEpisode(
   const [harbourside] = await db.select({ id: organisations.id }).from(organisations).where(eq(organisations.name, "Harbourside Community Nursing Team"));
   const [episode] = await db
     .insert(catheterEpisodes)
-    .values({
-      patientId,
-      organisationId: harbourside.id,
-      previousEpisodeId,
-      route: "urethral",
-      catheterType: "two-way",
-      material: "all-silicone",
-      lengthCategory: "standard",
-      sizeCh: 14,
-      balloonMl: 10,
-      maker: "Northfen Medical (demo)",
-      lot: "LOT4471",
-      expiry: "2029-03-31",
-      indication: "Chronic urinary retention",
-      insertedAt,
-      insertedByName: "Grace Mensah",
-      gelKind: "plain",
-      gelVolumeMl: 11,
-      plannedChangeOn: isoDay(new Date(insertedAt.getTime() + 84 * 86_400_000)),
-      reviewDueOn: isoDay(new Date(insertedAt.getTime() + 28 * 86_400_000)),
-      difficulties,
-      ...device,
-    })
+    .values(
+      demoCatheterRow({
+        patientId,
+        organisationId: harbourside.id,
+        insertedAt,
+        previousEpisodeId,
+        makerBalloonMl: null,
+        maxDwellDays: null,
+        lot: "LOT4471",
+        expiry: "2029-03-31",
+        difficulties,
+        ...device,
+      }),
+    )
     .returning();
   const [event] = await db
     .insert(episodeEvents)
