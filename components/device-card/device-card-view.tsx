@@ -4,7 +4,7 @@
 // Phone numbers and Latin units are isolated left-to-right so Arabic and Urdu do not reorder them.
 import { getFormatter, getTranslations } from "next-intl/server";
 import { buttonClass } from "@/components/ui/button";
-import type { DeviceCard } from "@/db/queries/passport-card";
+import type { DeviceCard } from "@/lib/dto";
 import { charriereToMm } from "@/lib/clinical";
 import { directionOf, isLocale, type Locale } from "@/lib/i18n/routing";
 import { deploymentTimeZone } from "@/lib/zoned-date";

@@ -1,5 +1,5 @@
 import type { ReactNode } from "react";
-import type { OutboundMessageDto } from "@/db/queries/outbox";
+import type { OutboundMessageDto } from "@/lib/dto";
 
 type Status = OutboundMessageDto["status"];
 
