@@ -6,6 +6,7 @@ import { db, type Executor } from "@/db";
 import { listDigestOrganisations, listDueEpisodes, listFailedMessages } from "@/db/queries/digest";
 import { addDays, parseIsoDate, PLAN_DEFAULTS, stateFor } from "@/lib/clinical";
 import { env } from "@/lib/env";
+import { dayIn } from "@/lib/time-zone";
 import { emailDates, emailLocale, emailTranslator } from "./i18n";
 import { NO_RECIPIENT, queueMessage, type QueuedMessage } from "./outbox";
 import { renderEmail, type Block, type EmailContent } from "./render";
@@ -14,7 +15,7 @@ const DUE_SOON_DAYS = PLAN_DEFAULTS.dueSoonDays.value;
 
 /** Today's calendar date in the deployment's time zone. */
 export function localToday(now = new Date(), timeZone = env.CADDIS_TIME_ZONE): string {
-  return new Intl.DateTimeFormat("en-CA", { timeZone, year: "numeric", month: "2-digit", day: "2-digit" }).format(now);
+  return dayIn(now, timeZone);
 }
 
 export type DigestLine = { patientId: string; name: string; healthRecordNumber: string; what: "change" | "review"; date: string; daysUntil: number };

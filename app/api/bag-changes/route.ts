@@ -4,7 +4,7 @@ import { audit } from "@/lib/audit";
 import { requirePortalPatient, requirePortalViewer } from "@/lib/auth/permissions";
 import { nextBagChange } from "@/lib/clinical";
 import { handle, json } from "@/lib/http";
-import { todayIn } from "@/lib/local-date";
+import { todayIso } from "@/lib/time-zone";
 import { parseJsonBody } from "@/lib/validate";
 import { bagChangeSchema } from "@/lib/validations/diary";
 
@@ -13,7 +13,7 @@ export const POST = handle(async (request) => {
   const viewer = await requirePortalViewer(request);
   const input = await parseJsonBody(request, bagChangeSchema);
   const via = await requirePortalPatient(viewer, input.patientId);
-  const today = todayIn();
+  const today = todayIso();
   const row = await db.transaction(async (tx) => {
     const change = await addBagChange({ patientId: input.patientId, kind: input.kind, changedOn: today, recordedByUserId: viewer.userId }, tx);
     await audit({ action: "bag-change.add", actor: viewer, patientId: input.patientId, via, request, details: { kind: input.kind, changedOn: today } }, tx);

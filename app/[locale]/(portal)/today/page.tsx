@@ -9,7 +9,7 @@ import { requirePageRole } from "@/lib/auth/permissions";
 import { LEVEL_STEP_KEY } from "@/lib/check-in-flow";
 import { BAG_INTERVALS, bagSchedule, parseIsoDate } from "@/lib/clinical";
 import { Link } from "@/lib/i18n/navigation";
-import { todayIn } from "@/lib/local-date";
+import { todayIso } from "@/lib/time-zone";
 import { portalPatient, portalPatients, subjectName } from "@/lib/portal";
 
 export async function generateMetadata() {
@@ -34,7 +34,7 @@ export default async function TodayPage({ params, searchParams }: { params: Prom
     );
   }
   const [summary, bags] = await Promise.all([getTodaySummary({ patientId: patient.id }), getLastBagChanges({ patientId: patient.id })]);
-  const today = todayIn();
+  const today = todayIso();
   const day = (d: string) => format.dateTime(new Date(`${d}T12:00:00Z`), { weekday: "long", day: "numeric", month: "long", timeZone: "UTC" });
   const daysUntil = (d: string) => parseIsoDate("date", d) - parseIsoDate("today", today);
   const schedule = bagSchedule(bags, today);
