@@ -49,15 +49,18 @@ async function lastRecordChange({ patientId }: { patientId: string }, tx: Execut
   return times.length ? new Date(Math.max(...times.map((d) => d.getTime()))) : null;
 }
 
+/** What a passport summary reads (its issuer's name joined from user). */
+const summaryColumns = {
+  id: passports.id,
+  issuedAt: passports.issuedAt,
+  issuedByName: user.name,
+  languages: passports.languages,
+  revokedAt: passports.revokedAt,
+};
+
 export async function getPassportOverview({ patientId }: { patientId: string }, tx: Executor = db): Promise<PassportOverview> {
   const rows = await tx
-    .select({
-      id: passports.id,
-      issuedAt: passports.issuedAt,
-      issuedByName: user.name,
-      languages: passports.languages,
-      revokedAt: passports.revokedAt,
-    })
+    .select(summaryColumns)
     .from(passports)
     .leftJoin(user, eq(user.id, passports.issuedByUserId))
     .where(eq(passports.patientId, patientId))
@@ -75,13 +78,7 @@ export async function getPassportOverview({ patientId }: { patientId: string }, 
 /** The unrevoked passport of a patient, or null. */
 export async function getCurrentPassport({ patientId }: { patientId: string }, tx: Executor = db): Promise<PassportSummary | null> {
   const [row] = await tx
-    .select({
-      id: passports.id,
-      issuedAt: passports.issuedAt,
-      issuedByName: user.name,
-      languages: passports.languages,
-      revokedAt: passports.revokedAt,
-    })
+    .select(summaryColumns)
     .from(passports)
     .leftJoin(user, eq(user.id, passports.issuedByUserId))
     .where(and(eq(passports.patientId, patientId), isNull(passports.revokedAt)));
