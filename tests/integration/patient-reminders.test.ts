@@ -27,6 +27,8 @@ async function giveAccount(fx: MailFixture, locale: string) {
   return id;
 }
 
+// The reminder window (3 days before, up to 7 days overdue) is our own choice: common practice,
+// no source. The planned dates themselves come from lib/clinical planDates, tested with sources.
 beforeAll(async () => {
   soon = await mailPatient({ givenName: "Lucía", familyName: "Reminder-Test" });
   later = await mailPatient({ givenName: "Tomasz", familyName: "Reminder-Later" });
