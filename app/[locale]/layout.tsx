@@ -1,8 +1,9 @@
 import type { Metadata, Viewport } from "next";
-import { hasLocale, NextIntlClientProvider } from "next-intl";
+import { hasLocale } from "next-intl";
 import { getTranslations, setRequestLocale } from "next-intl/server";
 import { notFound } from "next/navigation";
 import type { ReactNode } from "react";
+import { ClientMessages } from "@/components/i18n/client-messages";
 import { Providers } from "@/components/providers";
 import { fontVariables } from "@/lib/fonts";
 import { directionOf, routing } from "@/lib/i18n/routing";
@@ -38,9 +39,9 @@ export default async function LocaleLayout({
   return (
     <html lang={locale} dir={directionOf(locale)} className={fontVariables}>
       <body className="bg-paper font-sans text-ink antialiased">
-        <NextIntlClientProvider>
+        <ClientMessages scope="root">
           <Providers>{children}</Providers>
-        </NextIntlClientProvider>
+        </ClientMessages>
       </body>
     </html>
   );

@@ -20,6 +20,9 @@ export const routing = defineRouting({
   locales,
   defaultLocale: "en",
   localePrefix: "always",
+  // No `Link: rel=alternate` header: on the device card it would repeat the secret URL, and
+  // nothing here is indexed.
+  alternateLinks: false,
 });
 
 export function isLocale(value: string): value is Locale {

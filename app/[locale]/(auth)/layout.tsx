@@ -1,21 +1,24 @@
 import { getTranslations } from "next-intl/server";
 import type { ReactNode } from "react";
+import { ClientMessages } from "@/components/i18n/client-messages";
 import { LanguageSwitcher } from "@/components/layout/language-switcher";
 import { LogoMark } from "@/components/ui/logo";
 
 export default async function AuthLayout({ children }: { children: ReactNode }) {
   const t = await getTranslations("Common");
   return (
-    <div className="flex min-h-dvh flex-col [overflow-wrap:anywhere]">
-      <header className="flex flex-wrap items-center justify-between gap-4 px-5 py-4">
-        <div className="flex items-center gap-2 text-2xl font-bold text-brand">
-          <LogoMark className="h-9 w-9" />
-          <span>Caddis</span>
-        </div>
-        <LanguageSwitcher />
-      </header>
-      <main className="mx-auto flex w-full max-w-md flex-1 flex-col justify-center px-5 pb-16">{children}</main>
-      <footer className="px-5 py-4 text-center text-sm text-ink-soft">{t("tagline")}</footer>
-    </div>
+    <ClientMessages scope="auth">
+      <div className="flex min-h-dvh flex-col [overflow-wrap:anywhere]">
+        <header className="flex flex-wrap items-center justify-between gap-4 px-5 py-4">
+          <div className="flex items-center gap-2 text-2xl font-bold text-brand">
+            <LogoMark className="h-9 w-9" />
+            <span>Caddis</span>
+          </div>
+          <LanguageSwitcher />
+        </header>
+        <main className="mx-auto flex w-full max-w-md flex-1 flex-col justify-center px-5 pb-16">{children}</main>
+        <footer className="px-5 py-4 text-center text-sm text-ink-soft">{t("tagline")}</footer>
+      </div>
+    </ClientMessages>
   );
 }

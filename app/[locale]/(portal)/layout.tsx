@@ -1,5 +1,6 @@
 import { setRequestLocale } from "next-intl/server";
 import type { ReactNode } from "react";
+import { ClientMessages } from "@/components/i18n/client-messages";
 import { PortalShell } from "@/components/layout/portal-shell";
 import { requirePageRole } from "@/lib/auth/permissions";
 
@@ -7,5 +8,9 @@ export default async function PortalLayout({ children, params }: { children: Rea
   const { locale } = await params;
   setRequestLocale(locale as "en");
   await requirePageRole(locale, "patient", "carer");
-  return <PortalShell>{children}</PortalShell>;
+  return (
+    <ClientMessages scope="portal">
+      <PortalShell>{children}</PortalShell>
+    </ClientMessages>
+  );
 }

@@ -1,5 +1,6 @@
 import { setRequestLocale } from "next-intl/server";
 import type { ReactNode } from "react";
+import { ClientMessages } from "@/components/i18n/client-messages";
 import { StaffShell } from "@/components/layout/staff-shell";
 import { requirePageRole } from "@/lib/auth/permissions";
 
@@ -8,8 +9,10 @@ export default async function StaffLayout({ children, params }: { children: Reac
   setRequestLocale(locale as "en");
   const viewer = await requirePageRole(locale, "admin", "clinician");
   return (
-    <StaffShell role={viewer.role} name={viewer.name}>
-      {children}
-    </StaffShell>
+    <ClientMessages scope="staff">
+      <StaffShell role={viewer.role} name={viewer.name}>
+        {children}
+      </StaffShell>
+    </ClientMessages>
   );
 }

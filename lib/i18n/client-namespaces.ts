@@ -1,0 +1,19 @@
+// Which message namespaces each part of the app sends to the browser. Server components read the
+// whole catalogue on the server; only client components need messages in the page, and sending
+// all of them made every page ~125 KB. tests/unit/i18n-client-namespaces.test.ts walks the
+// imports and fails when a client component reads a namespace its scope does not send.
+export const clientNamespaces = {
+  /** Every page: the root error boundary. */
+  root: ["Errors"],
+  auth: ["AcceptInvite", "Activate", "CarerInvite", "Common", "PasswordReset", "SignIn", "SignOut", "TwoFactor"],
+  portal: ["CheckIn", "Common", "Diary", "More", "MyCatheter", "People", "Portal", "Today", "Uploads"],
+  staff: [
+    "Account", "Admin", "AdminOrganisations", "AdminPatients", "AdminSettings", "AdminStaff", "Caseload", "CaseloadState",
+    "Common", "EpisodeForm", "Letters", "LevelBadge", "Passport", "PatientDevice", "PatientForm", "PatientRecord", "Scan",
+    "Supplies", "TwoFactor", "Uploads", "VisitForm",
+  ],
+  /** The public device card and short-code pages, and the clinician's visit sign-in. */
+  card: ["SignIn", "VisitAccess"],
+} as const satisfies Record<string, readonly string[]>;
+
+export type ClientScope = keyof typeof clientNamespaces;

@@ -1,0 +1,106 @@
+import { existsSync, readdirSync, readFileSync, statSync } from "node:fs";
+import { dirname, join, relative, resolve } from "node:path";
+import { describe, expect, it } from "vitest";
+import en from "@/messages/en.json";
+import { clientNamespaces, type ClientScope } from "@/lib/i18n/client-namespaces";
+
+// Each route scope sends only its client namespaces to the browser. This test walks the import
+// graph from every file of a scope and fails when a client component there would read a
+// namespace the scope does not send (the browser would show the raw key).
+
+const root = resolve(__dirname, "../..");
+const localeDir = join(root, "app/[locale]");
+
+function filesUnder(dir: string): string[] {
+  return readdirSync(dir).flatMap((name) => {
+    const path = join(dir, name);
+    if (statSync(path).isDirectory()) return filesUnder(path);
+    return /\.tsx?$/.test(name) ? [path] : [];
+  });
+}
+
+function resolveImport(from: string, spec: string): string | undefined {
+  let base: string;
+  if (spec.startsWith("@/")) base = join(root, spec.slice(2));
+  else if (spec.startsWith(".")) base = resolve(dirname(from), spec);
+  else return undefined;
+  for (const candidate of [base, `${base}.ts`, `${base}.tsx`, join(base, "index.ts"), join(base, "index.tsx")]) {
+    if (existsSync(candidate) && statSync(candidate).isFile()) return candidate;
+  }
+  return undefined;
+}
+
+const sources = new Map<string, string>();
+function source(path: string): string {
+  let text = sources.get(path);
+  if (text === undefined) {
+    text = readFileSync(path, "utf8");
+    sources.set(path, text);
+  }
+  return text;
+}
+
+function imports(path: string): string[] {
+  const found: string[] = [];
+  for (const match of source(path).matchAll(/(?:import|export)\s[^"';]*?from\s*["']([^"']+)["']|import\(\s*["']([^"']+)["']\s*\)/g)) {
+    const spec = match[1] ?? match[2];
+    if (match[0].startsWith("import type") || match[0].startsWith("export type")) continue;
+    const target = spec ? resolveImport(path, spec) : undefined;
+    if (target) found.push(target);
+  }
+  return found;
+}
+
+/** Top-level namespaces read by client code reachable from these entry files. */
+function clientNamespacesFrom(entries: string[]): Map<string, Set<string>> {
+  const used = new Map<string, Set<string>>();
+  const seen = new Set<string>();
+  const visit = (path: string, inClient: boolean) => {
+    const client = inClient || /^\s*["']use client["']/.test(source(path));
+    const key = `${client}:${path}`;
+    if (seen.has(key)) return;
+    seen.add(key);
+    if (client) {
+      const text = source(path);
+      for (const match of text.matchAll(/use(?:Translations|ErrorText)\(\s*["']([A-Za-z]+)/g)) {
+        const namespace = match[1]!;
+        if (!used.has(namespace)) used.set(namespace, new Set());
+        used.get(namespace)!.add(relative(root, path));
+      }
+    }
+    for (const target of imports(path)) visit(target, client);
+  };
+  for (const entry of entries) visit(entry, false);
+  return used;
+}
+
+function scopeOf(path: string): ClientScope {
+  const first = relative(localeDir, path).split("/")[0];
+  if (first === "(auth)") return "auth";
+  if (first === "(portal)") return "portal";
+  if (first === "(staff)") return "staff";
+  if (first === "p") return "card";
+  return "root";
+}
+
+const scopes = Object.keys(clientNamespaces) as ClientScope[];
+
+describe("client message namespaces per route scope", () => {
+  const entries = filesUnder(localeDir);
+
+  it.each(scopes)("the %s scope sends every namespace its client components read", (scope) => {
+    const used = clientNamespacesFrom(entries.filter((path) => scopeOf(path) === scope));
+    const sent = new Set<string>([...clientNamespaces.root, ...clientNamespaces[scope]]);
+    const missing = [...used.keys()].filter((namespace) => !sent.has(namespace)).map((namespace) => `${namespace} (${[...used.get(namespace)!].join(", ")})`);
+
+    expect(missing, `add to clientNamespaces.${scope} in lib/i18n/client-namespaces.ts`).toEqual([]);
+  });
+
+  it("names only namespaces that exist in the catalogue", () => {
+    for (const scope of scopes) for (const namespace of clientNamespaces[scope]) expect(Object.keys(en), `${scope}: ${namespace}`).toContain(namespace);
+  });
+
+  it("keeps the public device card light: it sends no staff, portal or form namespaces", () => {
+    expect([...clientNamespaces.root, ...clientNamespaces.card].length).toBeLessThanOrEqual(6);
+  });
+});
