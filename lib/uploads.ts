@@ -35,6 +35,11 @@ export async function requireUploadAccess(viewer: Viewer, patientId: string, cat
   throw new AppError("forbidden");
 }
 
+/** Where a patient's uploaded files are stored (retention deletes everything under it). */
+export function uploadPrefix(patientId: string): string {
+  return `patients/${patientId}/`;
+}
+
 export type CreatedUpload = { upload: UploadDto; uploadUrl: string; uploadHeaders: Record<string, string>; expiresAt: string };
 
 export async function createUpload({
@@ -56,7 +61,7 @@ export async function createUpload({
   if (!isAcceptedContentType(input.contentType)) {
     throw new AppError("unsupported_media_type", "Use a JPEG, PNG, WebP or HEIC photo, or a PDF.", { fields: { contentType: ["bad_type"] } });
   }
-  const objectKey = `patients/${patientId}/${randomUUID()}`;
+  const objectKey = `${uploadPrefix(patientId)}${randomUUID()}`;
   const upload = await db.transaction(async (tx) => {
     const row = await insertUpload(
       {

@@ -2,7 +2,7 @@ import "server-only";
 import { and, asc, eq, ilike, inArray, isNotNull, isNull, lt, or, sql } from "drizzle-orm";
 import { db, type Executor } from "@/db";
 import { tablesWithPatientId } from "@/db/queries/patient-export";
-import { careTeam, passports, patients, uploads, user } from "@/db/schema";
+import { careTeam, carerLinks, passports, patients, uploads, user } from "@/db/schema";
 
 const like = (s: string) => `%${s.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
 
@@ -68,6 +68,7 @@ export async function listRecordsPastRetention({ closedBefore }: { closedBefore:
  */
 export async function removePatientRecord({ patientId, userId }: { patientId: string; userId: string | null }, tx: Executor) {
   const objects = await tx.select({ key: uploads.objectKey }).from(uploads).where(eq(uploads.patientId, patientId));
+  const carers = await tx.selectDistinct({ id: carerLinks.carerUserId }).from(carerLinks).where(and(eq(carerLinks.patientId, patientId), isNotNull(carerLinks.carerUserId)));
   const tables = tablesWithPatientId();
   const rows: Record<string, number> = {};
   // Counted first: deleting one table may cascade into another.
@@ -81,6 +82,22 @@ export async function removePatientRecord({ patientId, userId }: { patientId: st
   if (userId) {
     const gone = await tx.delete(user).where(and(eq(user.id, userId), eq(user.role, "patient"))).returning({ id: user.id });
     rows.user = gone.length;
+  }
+  // A carer account exists only to look after someone: once it looks after nobody (no link to
+  // another patient, in any state), it goes with the record. Its sessions cascade.
+  const carerIds = carers.map((c) => c.id).filter((id): id is string => id !== null);
+  if (carerIds.length > 0) {
+    const gone = await tx
+      .delete(user)
+      .where(
+        and(
+          inArray(user.id, carerIds),
+          eq(user.role, "carer"),
+          sql`not exists (select 1 from ${carerLinks} where ${carerLinks.carerUserId} = ${user.id})`,
+        ),
+      )
+      .returning({ id: user.id });
+    rows.carer_accounts = gone.length;
   }
   for (const { name, table, column } of tables) {
     const [{ n }] = await tx.select({ n: sql<number>`count(*)::int` }).from(table).where(eq(column, patientId));

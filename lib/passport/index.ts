@@ -44,7 +44,12 @@ export function passportUrl(token: string): string {
 
 /** Object key of a passport's booklet: chosen by the server, one per passport. */
 export function passportPdfKey({ patientId, passportId }: { patientId: string; passportId: string }): string {
-  return `passports/${patientId}/${passportId}.pdf`;
+  return `${passportPdfPrefix(patientId)}${passportId}.pdf`;
+}
+
+/** Where a patient's booklets are stored (retention deletes everything under it). */
+export function passportPdfPrefix(patientId: string): string {
+  return `passports/${patientId}/`;
 }
 
 /** The patient's language, then English; English alone when that is their language. */

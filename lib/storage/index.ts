@@ -5,6 +5,7 @@ import {
   DeleteObjectCommand,
   GetObjectCommand,
   HeadObjectCommand,
+  ListObjectsV2Command,
   PutObjectCommand,
   S3Client,
   type S3ClientConfig,
@@ -101,6 +102,30 @@ export async function getObjectStream({ key }: { key: string }): Promise<{ body:
 
 export async function deleteObject({ key }: { key: string }) {
   await s3().send(new DeleteObjectCommand({ Bucket: bucket(), Key: key }));
+}
+
+/** The keys stored under a prefix (every page of the listing). */
+export async function listObjectKeys({ prefix }: { prefix: string }): Promise<string[]> {
+  const keys: string[] = [];
+  let token: string | undefined;
+  do {
+    const page = await s3().send(new ListObjectsV2Command({ Bucket: bucket(), Prefix: prefix, ContinuationToken: token }));
+    for (const item of page.Contents ?? []) if (item.Key) keys.push(item.Key);
+    token = page.IsTruncated ? page.NextContinuationToken : undefined;
+  } while (token);
+  return keys;
+}
+
+/** Deletes every object under a prefix, and these keys too; returns how many were deleted. */
+export async function deleteObjectsUnder({ prefixes, keys = [] }: { prefixes: string[]; keys?: string[] }): Promise<number> {
+  const all = new Set(keys);
+  for (const prefix of prefixes) {
+    // A prefix must end in "/": "patients/1" would also match "patients/10…".
+    if (!prefix.endsWith("/")) throw new Error(`object prefix without a trailing slash: ${prefix}`);
+    for (const key of await listObjectKeys({ prefix })) all.add(key);
+  }
+  for (const key of all) await deleteObject({ key });
+  return all.size;
 }
 
 /**

@@ -3,6 +3,7 @@
 // closing a record makes it read-only; the retention job removes it after the period and logs it.
 import { randomBytes, randomUUID } from "node:crypto";
 import { eq, inArray, sql } from "drizzle-orm";
+import { Fhir } from "fhir";
 import { beforeAll, describe, expect, it } from "vitest";
 import { GET as exportData } from "@/app/api/patients/[patientId]/export/route";
 import { POST as closeRecord } from "@/app/api/admin/patients/[patientId]/close/route";
@@ -13,6 +14,7 @@ import {
   auditEvents,
   bagChanges,
   careTeam,
+  carerLinks,
   checkIns,
   diaryEntries,
   observations,
@@ -31,6 +33,7 @@ import { hashIdentifier, hashToken } from "@/lib/admin/tokens";
 import { QUEUES } from "@/lib/jobs/boss";
 import { removeExpiredRecords } from "@/lib/jobs/retention";
 import { startBackground } from "@/lib/jobs/runtime";
+import { headObject, putObject } from "@/lib/storage";
 import { assertRecordOpen } from "@/lib/record-state";
 import { call, sessionFor, signIn } from "../support/http";
 import { createOrganisation, createStaff, orgIdsByName, suffix, userIdByEmail } from "../support/staff";
@@ -164,6 +167,37 @@ describe("patient data export (JSON)", () => {
     expect(event).toMatchObject({ patientId: arthurId, via: "self" });
   });
 
+  it("gives the patient their record as a FHIR R4 Bundle too (valid, theirs only), audited as such", async () => {
+    const cookie = await sessionFor("patient");
+    const res = await call(exportData, `/api/patients/${arthurId}/export?format=fhir`, { cookie, params: { patientId: arthurId } });
+    expect(res.status).toBe(200);
+    expect(res.headers.get("content-type")).toMatch(/^application\/fhir\+json/);
+    expect(res.headers.get("content-disposition")).toMatch(/attachment; filename="caddis-patient-record-\d{4}-\d{2}-\d{2}\.fhir\.json"/);
+    expect(res.headers.get("cache-control")).toContain("no-store");
+    const bundle = await res.json();
+    const result = new Fhir().validate(bundle, { errorOnUnexpected: true });
+    expect((result.messages ?? []).filter((m) => m.severity === "error")).toEqual([]);
+    expect(bundle).toMatchObject({ resourceType: "Bundle", type: "collection" });
+    const resources = bundle.entry.map((e: { resource: { resourceType: string } }) => e.resource);
+    const patient = resources.find((r: { resourceType: string }) => r.resourceType === "Patient");
+    expect(patient.identifier).toEqual(expect.arrayContaining([expect.objectContaining({ value: "EM-100-001" })]));
+    expect(resources.some((r: { resourceType: string }) => r.resourceType === "Device")).toBe(true);
+    const text = JSON.stringify(bundle);
+    expect(text).not.toContain(yusufId);
+    expect(text).not.toContain("Haddad");
+    const events = await db.select().from(auditEvents).where(eq(auditEvents.action, "patient.export"));
+    expect(events.some((e) => e.patientId === arthurId && e.via === "self" && (e.details as { format?: string }).format === "fhir-r4")).toBe(true);
+    // An admin on the patient's request gets the same Bundle; an unknown format is refused.
+    const admin = await sessionFor("admin");
+    const byAdmin = await call(exportData, `/api/patients/${arthurId}/export?format=fhir&reason=Asked%20for%20FHIR%20by%20letter`, { cookie: admin, params: { patientId: arthurId } });
+    expect(byAdmin.status).toBe(200);
+    expect((await byAdmin.json()).resourceType).toBe("Bundle");
+    const bad = await call(exportData, `/api/patients/${arthurId}/export?format=xml`, { cookie, params: { patientId: arthurId } });
+    expect(bad.status).toBe(400);
+    // Carers and clinicians cannot use the patient's own download in either format.
+    expect((await call(exportData, `/api/patients/${arthurId}/export?format=fhir`, { cookie: await sessionFor("carer"), params: { patientId: arthurId } })).status).toBe(403);
+  });
+
   it("another patient gets 404; a carer, a clinician 403; anonymous 401", async () => {
     const path = `/api/patients/${arthurId}/export`;
     expect((await call(exportData, path, { cookie: await sessionFor("patientAr"), params: { patientId: arthurId } })).status).toBe(404);
@@ -236,6 +270,20 @@ describe("closing a record and retention", () => {
       const [patientUser] = await db.insert(user).values({ id: randomUUID(), name: "Testa Closewell", email: `testa.${suffix()}@testwick.example`, role: "patient" }).returning({ id: user.id });
       await db.update(patients).set({ userId: patientUser.id, closedAt: new Date(Date.now() - 31 * 86_400_000) }).where(eq(patients.id, old));
       await db.update(patients).set({ closedAt: new Date(Date.now() - 10 * 86_400_000) }).where(eq(patients.id, recent));
+      // Stored files: an upload and a booklet of the old record, one upload of the recent one.
+      const oldFiles = [`patients/${old}/${randomUUID()}`, `passports/${old}/${randomUUID()}.pdf`];
+      const keptFile = `patients/${recent}/${randomUUID()}`;
+      for (const key of [...oldFiles, keptFile]) await putObject({ key, body: new Uint8Array([37, 80, 68, 70]), contentType: "application/pdf" });
+      // Carers: one looks after only the old record, one after both.
+      const carer = async (name: string) =>
+        (await db.insert(user).values({ id: randomUUID(), name, email: `${name.toLowerCase().replace(" ", ".")}.${suffix()}@testwick.example`, role: "carer" }).returning({ id: user.id }))[0].id;
+      const onlyOld = await carer("Carer Onlyold");
+      const both = await carer("Carer Both");
+      await db.insert(carerLinks).values([
+        { patientId: old, carerUserId: onlyOld, invitedEmail: "a@testwick.example", status: "active" },
+        { patientId: old, carerUserId: both, invitedEmail: "b@testwick.example", status: "active" },
+        { patientId: recent, carerUserId: both, invitedEmail: "b@testwick.example", status: "revoked" },
+      ]);
 
       const accessLog = await db.select({ id: auditEvents.id }).from(auditEvents).where(eq(auditEvents.patientId, old));
       expect(accessLog.length).toBeGreaterThan(0);
@@ -252,10 +300,18 @@ describe("closing a record and retention", () => {
         expect(n, name).toBe(0);
       }
       expect(await db.select().from(patients).where(eq(patients.id, recent))).toHaveLength(1);
+      // The files go from the object store; the other record's stay.
+      for (const key of oldFiles) expect(await headObject({ key }), key).toBeNull();
+      expect(await headObject({ key: keptFile })).not.toBeNull();
+      expect(result.objectsDeleted).toBeGreaterThanOrEqual(oldFiles.length);
+      // A carer who looked after nobody else goes; one who is linked to another record stays.
+      expect(await db.select().from(user).where(eq(user.id, onlyOld))).toHaveLength(0);
+      expect(await db.select().from(user).where(eq(user.id, both))).toHaveLength(1);
       const [event] = await db.select().from(auditEvents).where(eq(auditEvents.action, "retention.remove"));
       expect(event.patientId).toBeNull();
       expect(event.via).toBe("system");
-      expect(event.details).toMatchObject({ hrnHash: hashIdentifier("hrn", oldHrn), retentionDays: 30 });
+      expect(event.details).toMatchObject({ hrnHash: hashIdentifier("hrn", oldHrn), retentionDays: 30, rows: { carer_accounts: 1 } });
+      expect((event.details as { storedFiles: number }).storedFiles).toBeGreaterThanOrEqual(oldFiles.length);
       // It says what it removed, table by table, in the audit log and in the job's log.
       const rows = (event.details as { rows: Record<string, number> }).rows;
       for (const name of ["patients", "user", "check_ins", "diary_entries", "bag_changes", "patient_invites", "supply_requests", "outbound_messages", "uploads", "passports", "visit_access", "audit_events", "care_team"]) {
@@ -270,6 +326,39 @@ describe("closing a record and retention", () => {
       await db.update(patients).set({ closedAt: new Date(Date.now() - 3650 * 86_400_000) }).where(eq(patients.id, recent));
       expect((await removeExpiredRecords({ log: () => {} })).removed).toBe(0);
     } finally {
+      await db.insert(settings).values({ key: "retentionDays", value: 2920 }).onConflictDoUpdate({ target: settings.key, set: { value: 2920 } });
+    }
+  });
+
+  it("keeps a due record whole when the object store is away, and removes it on the next run", async () => {
+    await db.update(settings).set({ value: 30 }).where(eq(settings.key, "retentionDays"));
+    const cache = globalThis as unknown as { caddisS3?: unknown };
+    const working = cache.caddisS3;
+    try {
+      const due = await newPatient(`DOWN-${suffix()}`);
+      await db.update(patients).set({ closedAt: new Date(Date.now() - 40 * 86_400_000) }).where(eq(patients.id, due));
+      const file = `patients/${due}/${randomUUID()}`;
+      await putObject({ key: file, body: new Uint8Array([37, 80, 68, 70]), contentType: "application/pdf" });
+      const { S3Client } = await import("@aws-sdk/client-s3");
+      // Nothing listens on port 9 (discard) here: every call to the store fails.
+      cache.caddisS3 = new S3Client({ endpoint: "http://127.0.0.1:9", region: "us-east-1", forcePathStyle: true, credentials: { accessKeyId: "x", secretAccessKey: "x" }, maxAttempts: 1 });
+      const lines: string[] = [];
+      const down = await removeExpiredRecords({ log: (m) => lines.push(m) });
+      // (Other closed records of this file may be due too: they fail alike.)
+      expect(down.removed).toBe(0);
+      expect(down.failed).toBeGreaterThanOrEqual(1);
+      expect(lines.join("\n")).toMatch(/could not remove a record due for removal \(kept whole/);
+      expect(await db.select().from(patients).where(eq(patients.id, due))).toHaveLength(1);
+      expect((await db.select().from(checkIns).where(eq(checkIns.patientId, due))).length).toBeGreaterThan(0);
+      cache.caddisS3 = working;
+      expect(await headObject({ key: file })).not.toBeNull();
+      const up = await removeExpiredRecords({ log: () => {} });
+      expect(up.failed).toBe(0);
+      expect(up.removed).toBeGreaterThanOrEqual(1);
+      expect(await db.select().from(patients).where(eq(patients.id, due))).toHaveLength(0);
+      expect(await headObject({ key: file })).toBeNull();
+    } finally {
+      cache.caddisS3 = working;
       await db.insert(settings).values({ key: "retentionDays", value: 2920 }).onConflictDoUpdate({ target: settings.key, set: { value: 2920 } });
     }
   });

@@ -3,8 +3,10 @@ import type { ReactNode } from "react";
 import { PendingCheckInWarning } from "@/components/check-in/pending-warning";
 import { LanguageSwitcher } from "@/components/layout/language-switcher";
 import { BookIcon, ExitIcon, GlobeIcon, LifebuoyIcon, PeopleIcon, TubeIcon } from "@/components/portal/nav-icons";
+import { buttonClass } from "@/components/ui/button";
 import { requirePageRole } from "@/lib/auth/permissions";
 import { Link } from "@/lib/i18n/navigation";
+import { portalPatient } from "@/lib/portal";
 
 export async function generateMetadata() {
   const t = await getTranslations("More");
@@ -15,6 +17,8 @@ export default async function MorePage({ params }: { params: Promise<{ locale: s
   const { locale } = await params;
   const viewer = await requirePageRole(locale, "patient", "carer");
   const t = await getTranslations("More");
+  // Only the patient downloads their own data (a carer cannot; an admin does it on request).
+  const ownPatient = viewer.role === "patient" ? await portalPatient(viewer, undefined) : null;
   const item = (href: string, icon: ReactNode, label: string) => (
     <li>
       <Link href={href} className="flex min-h-16 items-center gap-4 rounded-lg border-2 border-brand bg-paper-raised px-4 py-2 text-xl font-bold text-brand hover:bg-brand-soft">
@@ -33,6 +37,20 @@ export default async function MorePage({ params }: { params: Promise<{ locale: s
         {item("/people", <PeopleIcon className="h-8 w-8 shrink-0" />, t("people"))}
         {item("/help", <LifebuoyIcon className="h-8 w-8 shrink-0" />, t("help"))}
       </ul>
+      {ownPatient ? (
+        <section aria-labelledby="your-data" className="flex flex-col gap-3 rounded-lg border border-stone-faint bg-paper-raised p-4">
+          <h2 id="your-data" className="text-xl font-bold">
+            {t("data.title")}
+          </h2>
+          <p>{t("data.body")}</p>
+          <a href={`/api/patients/${ownPatient.id}/export`} download className={buttonClass("secondary")}>
+            {t("data.json")}
+          </a>
+          <a href={`/api/patients/${ownPatient.id}/export?format=fhir`} download className={buttonClass("secondary")}>
+            {t("data.fhir")}
+          </a>
+        </section>
+      ) : null}
       <div className="flex items-center gap-3 rounded-lg border border-stone-faint bg-paper-raised p-4">
         <GlobeIcon className="h-8 w-8 shrink-0 text-brand" />
         <LanguageSwitcher />

@@ -61,9 +61,12 @@ export default async function AdminPatientsPage({
                     <span className="font-bold">{t("exportReason")}</span>
                     <input name="reason" required minLength={3} maxLength={500} className={inputClass} placeholder={t("exportReasonPlaceholder")} />
                   </label>
-                  <div>
-                    <button type="submit" className={buttonClass("secondary")} aria-label={t("exportFor", { name: p.name })}>
+                  <div className="flex flex-wrap gap-2">
+                    <button type="submit" name="format" value="json" className={buttonClass("secondary")} aria-label={t("exportFor", { name: p.name })}>
                       {t("export")}
+                    </button>
+                    <button type="submit" name="format" value="fhir" className={buttonClass("secondary")} aria-label={t("exportFhirFor", { name: p.name })}>
+                      {t("exportFhir")}
                     </button>
                   </div>
                 </form>
