@@ -1,41 +1,35 @@
 import "server-only";
-// Fonts for PDFs, registered by absolute path from fonts/. @react-pdf needs the .woff files
-// (woff2 crashes fontkit). Latin, Latin Extended (Polish, Romanian) and Arabic script (ar, ur)
-// are separate subset files, so text uses a family list and each glyph falls back in order.
+// Fonts for every PDF (booklet and GP summary), registered by absolute path from fonts/.
+// Plain TrueType (scripts/fonts/make-pdf-fonts.sh): woff2 crashes fontkit, and WOFF tables are
+// inflated again on every read. Latin and Latin Extended (Polish, Romanian) are one merged font:
+// as two, every run of text that fell back to the second embedded a subset of its own — 150
+// fonts, 225 KiB and a second for a Polish booklet. Arabic script (ar, ur) is the fallback.
+// No static import of @react-pdf here: the worker loads it dynamically (see gp-summary.tsx).
 import path from "node:path";
-import { Font } from "@react-pdf/renderer";
+import type { Font as PdfFont } from "@react-pdf/renderer";
 
-const dir = () => path.join(process.cwd(), "fonts");
+export const PDF_FONT_FAMILY = ["CaddisLatin", "CaddisArabic"];
 
-export const PDF_FONT_FAMILY = ["CaddisLatin", "CaddisLatinExt", "CaddisArabic"];
+const faces: [family: string, folder: string, stem: string][] = [
+  ["CaddisLatin", "atkinson-hyperlegible", "atkinson-hyperlegible-latin-all"],
+  ["CaddisArabic", "noto-sans-arabic", "noto-sans-arabic-arabic"],
+];
 
 let registered = false;
 
-export function registerPdfFonts() {
+export function registerPdfFonts(font: typeof PdfFont) {
   if (registered) return;
-  const face = (folder: string, file: string) => path.join(dir(), folder, file);
-  Font.register({
-    family: "CaddisLatin",
-    fonts: [
-      { src: face("atkinson-hyperlegible", "atkinson-hyperlegible-latin-400-normal.woff"), fontWeight: 400 },
-      { src: face("atkinson-hyperlegible", "atkinson-hyperlegible-latin-700-normal.woff"), fontWeight: 700 },
-    ],
-  });
-  Font.register({
-    family: "CaddisLatinExt",
-    fonts: [
-      { src: face("atkinson-hyperlegible", "atkinson-hyperlegible-latin-ext-400-normal.woff"), fontWeight: 400 },
-      { src: face("atkinson-hyperlegible", "atkinson-hyperlegible-latin-ext-700-normal.woff"), fontWeight: 700 },
-    ],
-  });
-  Font.register({
-    family: "CaddisArabic",
-    fonts: [
-      { src: face("noto-sans-arabic", "noto-sans-arabic-arabic-400-normal.woff"), fontWeight: 400 },
-      { src: face("noto-sans-arabic", "noto-sans-arabic-arabic-700-normal.woff"), fontWeight: 700 },
-    ],
-  });
+  const file = (folder: string, name: string) => path.join(process.cwd(), "fonts", folder, name);
+  for (const [family, folder, stem] of faces) {
+    font.register({
+      family,
+      fonts: [
+        { src: file(folder, `${stem}-400-normal.ttf`), fontWeight: 400 },
+        { src: file(folder, `${stem}-700-normal.ttf`), fontWeight: 700 },
+      ],
+    });
+  }
   // Hyphenating clinical words and names helps no one; break only at spaces.
-  Font.registerHyphenationCallback((word) => [word]);
+  font.registerHyphenationCallback((word) => [word]);
   registered = true;
 }

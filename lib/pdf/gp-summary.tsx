@@ -3,11 +3,11 @@ import "server-only";
 // always agree. Same toolkit and fonts as the passport booklet.
 // @react-pdf/renderer is imported dynamically: scripts/worker.ts runs under tsx as CommonJS,
 // where a static import fails (@react-pdf's packages export their files for `import` only).
-import path from "node:path";
 import type { Styles } from "@react-pdf/renderer";
 import type { Block, EmailContent } from "@/lib/email/render";
 import { emailDates, emailTranslator } from "@/lib/email/i18n";
 import { directionOf } from "@/lib/i18n/routing";
+import { PDF_FONT_FAMILY, registerPdfFonts } from "./fonts";
 
 type Pdf = typeof import("@react-pdf/renderer");
 
@@ -34,32 +34,6 @@ function plainBlock(b: Block, plain: (text: string) => string): Block {
     case "action":
       return b;
   }
-}
-
-// The same families as the passport's lib/pdf/fonts.ts (.woff files: woff2 crashes fontkit);
-// Latin, Latin Extended and Arabic are separate subsets, so text names all three.
-export const PDF_FONT_FAMILY = ["CaddisLatin", "CaddisLatinExt", "CaddisArabic"];
-
-function registerFonts(pdf: Pdf) {
-  const have = new Set(pdf.Font.getRegisteredFontFamilies());
-  const face = (folder: string, file: string) => path.join(process.cwd(), "fonts", folder, file);
-  const families: [string, string, string][] = [
-    ["CaddisLatin", "atkinson-hyperlegible", "atkinson-hyperlegible-latin"],
-    ["CaddisLatinExt", "atkinson-hyperlegible", "atkinson-hyperlegible-latin-ext"],
-    ["CaddisArabic", "noto-sans-arabic", "noto-sans-arabic-arabic"],
-  ];
-  for (const [family, folder, stem] of families) {
-    if (have.has(family)) continue;
-    pdf.Font.register({
-      family,
-      fonts: [
-        { src: face(folder, `${stem}-400-normal.woff`), fontWeight: 400 },
-        { src: face(folder, `${stem}-700-normal.woff`), fontWeight: 700 },
-      ],
-    });
-  }
-  // Hyphenating clinical words and names helps no one; break only at spaces.
-  pdf.Font.registerHyphenationCallback((word) => [word]);
 }
 
 const c = {
@@ -186,7 +160,7 @@ export async function renderContentPdf(raw: EmailContent, meta: { generatedAt: D
   };
   const pdf: Pdf = await import("@react-pdf/renderer");
   const { Document, Page, Text, View } = pdf;
-  registerFonts(pdf);
+  registerPdfFonts(pdf.Font);
   const rtl = directionOf(content.locale) === "rtl";
   const s = styles(rtl);
   const t = emailTranslator(content.locale);

@@ -1,7 +1,7 @@
 import "server-only";
 // PDFs made on the server with @react-pdf/renderer (kept out of the bundle by
 // serverExternalPackages in next.config.ts).
-import { renderToBuffer } from "@react-pdf/renderer";
+import { Font, renderToBuffer } from "@react-pdf/renderer";
 import { registerPdfFonts } from "./fonts";
 import { PassportBooklet, type PassportBookletData } from "./passport-booklet";
 
@@ -11,6 +11,6 @@ export { pdfStrings } from "./messages";
 
 /** The passport booklet as PDF bytes. */
 export async function renderPassportPdf(data: PassportBookletData): Promise<Buffer> {
-  registerPdfFonts();
+  registerPdfFonts(Font);
   return renderToBuffer(<PassportBooklet data={data} />);
 }

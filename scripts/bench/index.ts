@@ -116,10 +116,17 @@ async function signInCookie(email: string, password: string) {
 
 /** POST /api/patients/[id]/passport (reissue when asked); the token from the answer's card address. */
 async function issue(cookie: string, patientId: string, reissue: boolean) {
-  const res = await fetch(`${base}/api/patients/${patientId}/passport`, {
-    method: "POST",
-    headers: { cookie, origin: base, "content-type": "application/json" },
-    body: JSON.stringify(reissue ? { reissue: true } : {}),
+  const send = () =>
+    fetch(`${base}/api/patients/${patientId}/passport`, {
+      method: "POST",
+      headers: { cookie, origin: base, "content-type": "application/json" },
+      body: JSON.stringify(reissue ? { reissue: true } : {}),
+    });
+  // A pooled connection left idle past the server's keep-alive (while the PDF child ran) can be
+  // closed as it is reused: "other side closed" before any answer. Sent again once.
+  const res = await send().catch((error: { cause?: { code?: string } }) => {
+    if (error.cause?.code !== "UND_ERR_SOCKET") throw error;
+    return send();
   });
   if (res.status !== 201) throw new Error(`passport issue failed: ${res.status} ${await res.text()}`);
   const { url } = (await res.json()) as { url: string };
@@ -207,7 +214,7 @@ async function main() {
       );
       const history = Number((await client.query("select count(*) from episode_events where patient_id = $1", [id])).rows[0].count);
       // The PDF alone, in its own process (renderPassportPdf on the patient's booklet data).
-      const child = spawnSync(process.execPath, [path.join(root, "scripts/bench/pdf-child.mjs"), id, "40"], { cwd: root, env, encoding: "utf8" });
+      const child = spawnSync(process.execPath, [path.join(root, "scripts/bench/pdf-child.mjs"), id, "40"], { cwd: root, env: { ...env, NODE_ENV: "production" }, encoding: "utf8" });
       if (child.status !== 0) throw new Error(`PDF timing failed: ${child.stderr}`);
       const pdf = JSON.parse(child.stdout.trim().split("\n").pop()!) as { times: number[]; bytes: number; history: number };
       add(
