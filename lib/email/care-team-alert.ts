@@ -25,14 +25,16 @@ export type CareTeamAlertInput = {
 
 export const ALERT_LEVELS: Record<CareTeamAlertKind, readonly string[]> = {
   "check-in": ["emergency", "urgent"],
-  news2: ["high", "medium"],
+  // Low-medium (a single parameter scoring 3) alerts too: RCP NEWS2 (2017) chart 2 asks for an
+  // urgent review for it, and a visiting clinician may leave before anyone reads the screen.
+  news2: ["high", "medium", "low-medium"],
 };
 
 export function isAlertLevel(kind: CareTeamAlertKind, level: string) {
   return ALERT_LEVELS[kind].includes(level);
 }
 
-type AlertLevel = "emergency" | "urgent" | "high" | "medium";
+type AlertLevel = "emergency" | "urgent" | "high" | "medium" | "low-medium";
 
 function alertContent(
   input: CareTeamAlertInput & { level: AlertLevel },

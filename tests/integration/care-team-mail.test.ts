@@ -55,14 +55,17 @@ describe("care-team alerts", () => {
     expect(b.map((m) => [m.id, m.created])).toEqual(a.map((m) => [m.id, false]));
   });
 
-  it("NEWS2 medium and high alert; low, low-medium and lower check-in levels do not", async () => {
+  it("NEWS2 low-medium, medium and high alert; low and the lower check-in levels do not", async () => {
     const tx = db;
     for (const level of ["soon", "self-care"]) {
       expect(await queueCareTeamAlert(tx, { patientId: fx.patientId, kind: "check-in", level, summary: "x", sourceId: randomUUID() })).toEqual([]);
     }
-    for (const level of ["low", "low-medium"]) {
-      expect(await queueCareTeamAlert(tx, { patientId: fx.patientId, kind: "news2", level, summary: "x", sourceId: randomUUID() })).toEqual([]);
-    }
+    expect(await queueCareTeamAlert(tx, { patientId: fx.patientId, kind: "news2", level: "low", summary: "x", sourceId: randomUUID() })).toEqual([]);
+    // Source: RCP NEWS2 (2017) chart 2: a score of 3 in one parameter asks for an urgent review.
+    const lowMedium = await db.transaction((t) =>
+      queueCareTeamAlert(t, { patientId: fx.patientId, kind: "news2", level: "low-medium", score: 3, summary: "RR 8", sourceId: randomUUID() }),
+    );
+    expect(lowMedium).toHaveLength(2);
     const medium = await db.transaction((t) =>
       queueCareTeamAlert(t, { patientId: fx.patientId, kind: "news2", level: "medium", score: 5, summary: "RR 22, pulse 112", sourceId: randomUUID() }),
     );

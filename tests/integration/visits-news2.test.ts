@@ -71,7 +71,7 @@ describe("POST /api/patients/[patientId]/visits", () => {
     expect(mail[0]!.subject).toContain("NEWS2");
   });
 
-  it("alerts for medium (total 5) but not for low-medium (a single 3)", async () => {
+  it("alerts for medium (total 5) and for low-medium (a single 3), not for low", async () => {
     // Source: RCP NEWS2 (2017) chart 1: RR 22 → 2, SpO2 95 → 1, SBP 105 → 1, pulse 95 → 1 → total 5.
     const medium = await (await post({ occurredAt: minutesAgo(10), observations: { respirationRate: 22, spo2: 95, spo2Scale: 1, onOxygen: false, systolicBp: 105, pulse: 95, consciousness: "A", temperatureC: 37 } })).json();
     expect(medium.observation.news2).toMatchObject({ total: 5, risk: "medium", response: "urgent" });
@@ -79,7 +79,12 @@ describe("POST /api/patients/[patientId]/visits", () => {
     // Source: RCP NEWS2 (2017) chart 1 and 4: RR 8 → 3 alone, total 3 → low-medium, urgent ward review.
     const single = await (await post({ occurredAt: minutesAgo(9), observations: { respirationRate: 8, spo2: 97, spo2Scale: 1, onOxygen: false, systolicBp: 120, pulse: 70, consciousness: "A", temperatureC: 37 } })).json();
     expect(single.observation.news2).toMatchObject({ total: 3, risk: "low-medium", response: "urgent-ward-review" });
-    expect(single.alerted).toBe(0);
+    // Escalated when in doubt: the urgent review the chart asks for needs someone to hear of it.
+    expect(single.alerted).toBeGreaterThan(0);
+    // Source: RCP NEWS2 (2017) chart 1: pulse 95 → 1, everything else 0 → total 1, low.
+    const low = await (await post({ occurredAt: minutesAgo(8.5), observations: { respirationRate: 16, spo2: 97, spo2Scale: 1, onOxygen: false, systolicBp: 120, pulse: 95, consciousness: "A", temperatureC: 37 } })).json();
+    expect(low.observation.news2).toMatchObject({ total: 1, risk: "low" });
+    expect(low.alerted).toBe(0);
   });
 
   it("uses scale 2 only as chosen: 93 % on oxygen scores 1, on air 0", async () => {
