@@ -246,12 +246,24 @@ async function main() {
     add("first-load JS, check-in", `${((await firstLoadJs("/en/check-in", patient)) / 1024).toFixed(1)} KiB`);
     add("first-load JS, caseload", `${((await firstLoadJs("/en/caseload", nurse)) / 1024).toFixed(1)} KiB`);
 
-    // 5. Lighthouse mobile.
-    const bareLh = await lighthouseScores(barePath);
-    add("Lighthouse bare page", fmt(bareLh));
-    for (const [name, p, cookie] of [["device card", `/en/p/${token}`, undefined], ["portal Today", "/en/today", patient], ["check-in", "/en/check-in", patient]] as const) {
-      const s = await lighthouseScores(p, cookie);
-      add(`Lighthouse ${name}`, fmt(s), "perf ≥ bare, a11y 100", s.performance >= bareLh.performance && s.accessibility === 1);
+    // 5. Lighthouse mobile: the median of three runs per page (one run's performance score
+    // moves by ±10 with CPU noise), the pages taken in turn so a slow minute hits them all;
+    // accessibility is the lowest of the three.
+    const pages = [["bare page", barePath, undefined], ["device card", `/en/p/${token}`, undefined], ["portal Today", "/en/today", patient], ["check-in", "/en/check-in", patient]] as const;
+    const runs = new Map<string, Awaited<ReturnType<typeof lighthouseScores>>[]>();
+    for (let round = 0; round < 3; round++) {
+      for (const [name, p, cookie] of pages) runs.set(name, [...(runs.get(name) ?? []), await lighthouseScores(p, cookie)]);
+    }
+    const median = (name: string) => {
+      const all = runs.get(name)!;
+      const mid = (k: keyof (typeof all)[number]) => [...all].sort((x, y) => x[k] - y[k])[1][k];
+      return { performance: mid("performance"), accessibility: Math.min(...all.map((r) => r.accessibility)), bestPractices: mid("bestPractices"), all: all.map((r) => Math.round(r.performance * 100)).join("/") };
+    };
+    const bareLh = median("bare page");
+    add("Lighthouse bare page (median of 3)", `${fmt(bareLh)} (performance runs ${bareLh.all})`);
+    for (const [name] of pages.slice(1)) {
+      const s = median(name);
+      add(`Lighthouse ${name} (median of 3)`, `${fmt(s)} (performance runs ${s.all})`, "perf ≥ bare, a11y 100", s.performance >= bareLh.performance && s.accessibility === 1);
     }
     add("load average at the end", loadAverage());
   } finally {
