@@ -21,6 +21,11 @@ if (process.argv[1] && path.resolve(process.argv[1]) === fileURLToPath(import.me
     .then(() => console.log("[db] migrations applied"))
     .catch((e) => {
       console.error("[db] migration failed:", e);
+      // 42P07 "already exists": a database made from an earlier copy of a migration that has since
+      // been regenerated (nothing is released yet, see drizzle/). Demo data can be made again.
+      if ((e as { cause?: { code?: string } }).cause?.code === "42P07") {
+        console.error("[db] This database was made by an earlier version of the migrations. For demo data, run `npm run db:reset` (it drops and reseeds it).");
+      }
       process.exit(1);
     });
 }
