@@ -11,7 +11,7 @@ import {
   type Patient,
 } from "@/lib/clinical";
 import { OVERRIDE_MIN_CHARS } from "@/lib/validations/episode";
-import { calendarDate } from "@/lib/zoned-date";
+import { dayIn } from "@/lib/time-zone";
 
 export type DeviceDraft = {
   route?: unknown;
@@ -75,7 +75,7 @@ export type CheckOutcome =
  */
 export function runDeviceCheck(draft: DeviceDraft, patient: PatientFacts, at: Date, timeZone: string): CheckOutcome {
   try {
-    return { ok: true, findings: checkDevice(toDevice(draft), toClinicalPatient(patient), calendarDate(at, timeZone)) };
+    return { ok: true, findings: checkDevice(toDevice(draft), toClinicalPatient(patient), dayIn(at, timeZone)) };
   } catch (e) {
     if (e instanceof ClinicalInputError) return { ok: false, field: e.field.replace(/^device\./, ""), code: e.code };
     throw e;

@@ -24,7 +24,7 @@ import { reconcileOverrides, runDeviceCheck } from "@/lib/episode-checks";
 import { AppError } from "@/lib/errors";
 import { openPatientRecord } from "@/lib/patient-record";
 import type { ChangeInput, DeviceCheckInput, InsertionInput, RemovalInput, TwocInput } from "@/lib/validations/episode";
-import { calendarDate, deploymentTimeZone } from "@/lib/zoned-date";
+import { dayIn, deploymentTimeZone } from "@/lib/time-zone";
 
 type Ctx = { viewer: Viewer; patientId: string; request: Request };
 
@@ -65,7 +65,7 @@ function episodeValues(
 ): NewCatheterEpisode {
   const insertedAt = new Date(input.insertedAt);
   const plan = planDates({
-    insertedOn: calendarDate(insertedAt, extra.timeZone),
+    insertedOn: dayIn(insertedAt, extra.timeZone),
     material: input.material,
     route: input.route,
     maxDwellDays: input.maxDwellDays,

@@ -1,5 +1,6 @@
 // Calendar days in the deployment's time zone (the one next-intl formats with), so "today",
 // "days since insertion" and diary days mean the same on the server as on the nurse's screen.
+// (It is also the day a catheter went in, from which its expiry and planned dates count.)
 export function deploymentTimeZone(): string {
   return process.env.CADDIS_TIME_ZONE ?? "Europe/London";
 }

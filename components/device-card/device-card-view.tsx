@@ -7,7 +7,7 @@ import { buttonClass } from "@/components/ui/button";
 import type { DeviceCard } from "@/lib/dto";
 import { charriereToMm } from "@/lib/clinical";
 import { directionOf, isLocale, type Locale } from "@/lib/i18n/routing";
-import { deploymentTimeZone } from "@/lib/zoned-date";
+import { deploymentTimeZone } from "@/lib/time-zone";
 
 /** The patient's language first, then English (once, when that is the patient's). */
 /**

@@ -24,7 +24,8 @@ import {
 import { reconcileOverrides, runDeviceCheck, type PatientFacts } from "@/lib/episode-checks";
 import { useRouter } from "@/lib/i18n/navigation";
 import { changeSchema, EPISODE_ERROR_KEYS, insertionSchema, UNPLANNED_REASONS } from "@/lib/validations/episode";
-import { calendarDate, fromLocalInputValue, toLocalInputValue } from "@/lib/zoned-date";
+import { fromLocalInputValue, toLocalInputValue } from "@/lib/datetime-input";
+import { dayIn } from "@/lib/time-zone";
 import { Checkbox, RadioGroup, Section, Select, TextArea, TextInput } from "./controls";
 import { FindingsPanel } from "./findings-panel";
 import { ScanField, type ScanFill } from "./scan-field";
@@ -138,7 +139,7 @@ export function DeviceEpisodeForm({
   const checkAt = Number.isNaN(insertedAt.getTime()) ? new Date() : insertedAt;
   // Recomputed on every render: watch() re-renders on each keystroke and the check is cheap.
   const outcome = runDeviceCheck(draft, patient, checkAt, timeZone);
-  const today = calendarDate(new Date(), timeZone);
+  const today = dayIn(new Date(), timeZone);
 
   // The maker's maximum dwell starts as the material's common-practice default until the nurse types one.
   const material = draft.material as Material | "";
@@ -149,7 +150,7 @@ export function DeviceEpisodeForm({
   let plan: ReturnType<typeof planDates> | null = null;
   try {
     plan = planDates({
-      insertedOn: calendarDate(checkAt, timeZone),
+      insertedOn: dayIn(checkAt, timeZone),
       material: draft.material as Material,
       route: draft.route as "urethral",
       maxDwellDays: draft.maxDwellDays ? Number(draft.maxDwellDays) : undefined,

@@ -9,7 +9,7 @@ import { blockagePattern, type EndReason } from "@/lib/clinical";
 import { Link } from "@/lib/i18n/navigation";
 import { openRecordPage } from "@/lib/patient-record-page";
 import { RECORD_KINDS, type RecordKind } from "@/lib/validations/episode";
-import { calendarDate, deploymentTimeZone } from "@/lib/zoned-date";
+import { dayIn, deploymentTimeZone } from "@/lib/time-zone";
 
 type Params = { locale: string; patientId: string; kind: string };
 
@@ -64,8 +64,8 @@ export default async function RecordEpisodePage({ params }: { params: Promise<Pa
     try {
       const pattern = blockagePattern(
         context.endings.map((e) => ({
-          insertedOn: calendarDate(e.insertedAt, timeZone),
-          removedOn: e.removedAt ? calendarDate(e.removedAt, timeZone) : undefined,
+          insertedOn: dayIn(e.insertedAt, timeZone),
+          removedOn: e.removedAt ? dayIn(e.removedAt, timeZone) : undefined,
           endReason: endReason(e.removalReason),
         })),
         { maxDwellDays: active?.maxDwellDays ?? undefined },
