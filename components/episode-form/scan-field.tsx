@@ -2,7 +2,7 @@
 // "Scan packaging": a field a USB scanner types into, and a camera reader. Both end in
 // readScan (lib/gs1-input → lib/clinical parseGs1), which fills GTIN, lot, expiry and serial.
 import { useTranslations } from "next-intl";
-import { useEffect, useId, useRef, useState, type KeyboardEvent } from "react";
+import { useEffect, useId, useLayoutEffect, useRef, useState, type KeyboardEvent } from "react";
 import { Button } from "@/components/ui/button";
 import { GS_VISIBLE, isGroupSeparatorKey, readScan, showScan, type ScanReading } from "@/lib/gs1-input";
 
@@ -24,6 +24,15 @@ export function ScanField({ today, onRead }: { today: string; onRead: (fill: Sca
   const [reading, setReading] = useState<ScanReading | null>(null);
   const [cameraOpen, setCameraOpen] = useState(false);
   const inputRef = useRef<HTMLInputElement>(null);
+  // Where the caret goes after a group separator is put in. Applied as soon as React has written
+  // the new value, before the next key is handled: a scanner types faster than an animation
+  // frame on a busy machine, and a caret moved later put the rest of the label in the wrong place.
+  const caretAfter = useRef<number | null>(null);
+  useLayoutEffect(() => {
+    if (caretAfter.current === null || !inputRef.current) return;
+    inputRef.current.setSelectionRange(caretAfter.current, caretAfter.current);
+    caretAfter.current = null;
+  }, [raw]);
 
   const read = (text: string) => {
     if (!text.trim()) return;
@@ -45,8 +54,8 @@ export function ScanField({ today, onRead }: { today: string; onRead: (fill: Sca
       const start = el.selectionStart ?? raw.length;
       const end = el.selectionEnd ?? raw.length;
       const next = raw.slice(0, start) + GS_VISIBLE + raw.slice(end);
+      caretAfter.current = start + 1;
       setRaw(next);
-      requestAnimationFrame(() => el.setSelectionRange(start + 1, start + 1));
     }
   };
 

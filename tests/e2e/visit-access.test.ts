@@ -9,6 +9,7 @@ import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db, pool } from "@/db";
 import { careTeam, catheterEpisodes, organisations, patients } from "@/db/schema";
+import en from "@/messages/en.json";
 import { demoCatheterRow } from "../support/fixtures";
 import { demo } from "../support/http";
 import { baseUrl, launch, newPage, screenshot, signInAs } from "./support/browser";
@@ -135,7 +136,7 @@ describe("visiting clinician from the passport", () => {
     expect(log).toContain("Was given visit access");
     expect(log).toContain("Out-of-hours visit: catheter bypassing, patient feverish");
     expect(log).toContain("Recorded a visit");
-    expect(log).toContain("episode.change");
+    expect(log).toContain(en.PatientAccessLog.actions.episode_change);
     expect(log).toContain("Visit access");
     await screenshot(nursePage, "access-log-visit-en");
   });
