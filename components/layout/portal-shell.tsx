@@ -3,7 +3,7 @@ import type { ReactNode } from "react";
 import { CheckInOutboxSync } from "@/components/check-in/outbox-sync";
 import { LifebuoyIcon } from "@/components/portal/nav-icons";
 import { ServiceWorkerRegister } from "@/components/portal/service-worker-register";
-import { LogoMark } from "@/components/ui/logo";
+import { Wordmark } from "@/components/ui/logo";
 import { Link } from "@/lib/i18n/navigation";
 import { PortalNav } from "./portal-nav";
 
@@ -17,9 +17,8 @@ export async function PortalShell({ children }: { children: ReactNode }) {
       </a>
       <header className="sticky top-0 z-20 border-b border-stone-faint bg-paper-raised">
         <div className="mx-auto flex max-w-xl flex-wrap items-center justify-between gap-2 px-4 py-2 max-[22em]:justify-center max-[22em]:py-1">
-          <Link href="/today" className="flex min-h-12 items-center gap-2 text-xl font-bold text-brand max-[22em]:hidden">
-            <LogoMark />
-            <span>Caddis</span>
+          <Link href="/today" className="flex min-h-12 items-center max-[22em]:hidden">
+            <Wordmark size="md" />
           </Link>
           <Link
             href="/help"

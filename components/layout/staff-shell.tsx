@@ -1,6 +1,6 @@
 import { getTranslations } from "next-intl/server";
 import type { ReactNode } from "react";
-import { LogoMark } from "@/components/ui/logo";
+import { Wordmark } from "@/components/ui/logo";
 import type { Role } from "@/lib/auth/session";
 import { LanguageSwitcher } from "./language-switcher";
 import { NavLink } from "./nav-link";
@@ -37,10 +37,7 @@ export async function StaffShell({ role, name, children }: { role: Role; name: s
         {t("skip")}
       </a>
       <aside className="hidden w-60 shrink-0 flex-col gap-6 border-e border-stone-faint bg-paper-sunk p-5 md:flex">
-        <div className="flex items-center gap-2 text-xl font-bold text-brand">
-          <LogoMark />
-          <span>Caddis</span>
-        </div>
+        <Wordmark size="md" />
         <nav aria-label={t("label")} className="flex flex-col gap-1">
           {items.map((i) => (
             <NavLink
@@ -61,10 +58,7 @@ export async function StaffShell({ role, name, children }: { role: Role; name: s
       </aside>
       <div className="flex min-w-0 flex-1 flex-col pb-20 md:pb-0">
         <header className="flex items-center justify-between gap-3 border-b border-stone-faint px-4 py-3 md:hidden">
-          <div className="flex items-center gap-2 font-bold text-brand">
-            <LogoMark className="h-7 w-7" />
-            <span>Caddis</span>
-          </div>
+          <Wordmark size="sm" />
           <LanguageSwitcher />
         </header>
         <main id="main" className="mx-auto w-full max-w-6xl flex-1 p-4 md:p-8">

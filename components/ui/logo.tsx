@@ -9,3 +9,20 @@ export function LogoMark({ className = "h-8 w-8", title }: { className?: string;
     </svg>
   );
 }
+
+const wordmarkSizes = {
+  sm: { mark: "h-7 w-7", text: "" },
+  md: { mark: "h-8 w-8", text: "text-xl" },
+  lg: { mark: "h-9 w-9", text: "text-2xl" },
+} as const;
+
+/** The mark and the name side by side, as every page header shows them. */
+export function Wordmark({ size = "md", className = "" }: { size?: keyof typeof wordmarkSizes; className?: string }) {
+  const s = wordmarkSizes[size];
+  return (
+    <span className={`flex items-center gap-2 font-bold text-brand ${s.text} ${className}`.trim()}>
+      <LogoMark className={s.mark} />
+      <span>Caddis</span>
+    </span>
+  );
+}

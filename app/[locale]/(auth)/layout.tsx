@@ -2,7 +2,7 @@ import { getTranslations } from "next-intl/server";
 import type { ReactNode } from "react";
 import { ClientMessages } from "@/components/i18n/client-messages";
 import { LanguageSwitcher } from "@/components/layout/language-switcher";
-import { LogoMark } from "@/components/ui/logo";
+import { Wordmark } from "@/components/ui/logo";
 
 export default async function AuthLayout({ children }: { children: ReactNode }) {
   const t = await getTranslations("Common");
@@ -10,10 +10,7 @@ export default async function AuthLayout({ children }: { children: ReactNode }) 
     <ClientMessages scope="auth">
       <div className="flex min-h-dvh flex-col [overflow-wrap:anywhere]">
         <header className="flex flex-wrap items-center justify-between gap-4 px-5 py-4">
-          <div className="flex items-center gap-2 text-2xl font-bold text-brand">
-            <LogoMark className="h-9 w-9" />
-            <span>Caddis</span>
-          </div>
+          <Wordmark size="lg" />
           <LanguageSwitcher />
         </header>
         <main className="mx-auto flex w-full max-w-md flex-1 flex-col justify-center px-5 pb-16">{children}</main>

@@ -1,6 +1,6 @@
 import { getTranslations, setRequestLocale } from "next-intl/server";
 import { LifebuoyIcon, PhoneIcon } from "@/components/portal/nav-icons";
-import { LogoMark } from "@/components/ui/logo";
+import { Wordmark } from "@/components/ui/logo";
 import { readEmergencyNumber, telHref } from "@/db/queries/contacts";
 
 // Kept by the service worker for when the phone has no network. It holds nothing about any
@@ -20,10 +20,7 @@ export default async function OfflinePage({ params }: { params: Promise<{ locale
   const emergency = await readEmergencyNumber();
   return (
     <main className="mx-auto flex min-h-dvh max-w-xl flex-col gap-5 p-5 text-body [overflow-wrap:anywhere]" data-testid="offline-page">
-      <div className="flex items-center gap-2 text-2xl font-bold text-brand">
-        <LogoMark className="h-9 w-9" />
-        <span>Caddis</span>
-      </div>
+      <Wordmark size="lg" />
       <h1 className="text-3xl font-bold">{t("title")}</h1>
       <p>{t("body")}</p>
       <section className="flex flex-col gap-3 rounded-card border-4 border-level-emergency bg-level-emergency-soft p-4 text-level-emergency-ink">

@@ -1,7 +1,7 @@
 import { getTranslations, setRequestLocale } from "next-intl/server";
 import type { ReactNode } from "react";
 import { ClientMessages } from "@/components/i18n/client-messages";
-import { LogoMark } from "@/components/ui/logo";
+import { Wordmark } from "@/components/ui/logo";
 
 // The public passport pages: plain, server-rendered, no navigation (a stranger holds the QR).
 export default async function PassportLayout({ children, params }: { children: ReactNode; params: Promise<{ locale: string }> }) {
@@ -11,9 +11,8 @@ export default async function PassportLayout({ children, params }: { children: R
   return (
     <ClientMessages scope="card">
       <div className="flex min-h-dvh flex-col text-body [overflow-wrap:anywhere]">
-        <header className="flex items-center gap-2 px-5 py-4 text-2xl font-bold text-brand">
-          <LogoMark className="h-9 w-9" />
-          <span>Caddis</span>
+        <header className="px-5 py-4">
+          <Wordmark size="lg" />
         </header>
         <main className="mx-auto flex w-full max-w-xl flex-1 flex-col px-5 pb-12">{children}</main>
         <footer className="px-5 py-4 text-center text-sm text-ink-soft">{t("footer")}</footer>
