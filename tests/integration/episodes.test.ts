@@ -12,6 +12,7 @@ import { POST as postTwoc } from "@/app/api/patients/[patientId]/episodes/twoc/r
 import { db } from "@/db";
 import { auditEvents, careTeam, catheterEpisodes, episodeEvents, organisations, patients, user, visitAccess } from "@/db/schema";
 import { call, demo, sessionFor } from "../support/http";
+import { demoDevice } from "../support/fixtures";
 
 type Handler = Parameters<typeof call>[0];
 // The handlers type their params as { patientId }; `call` passes a plain record.
@@ -30,14 +31,7 @@ const minutesAgo = (m: number) => new Date(Date.now() - m * 60_000).toISOString(
 /** A complete insertion for an adult man, with no finding expected. */
 function insertionBody(over: Record<string, unknown> = {}) {
   return {
-    route: "urethral",
-    catheterType: "two-way",
-    material: "all-silicone",
-    lengthCategory: "standard",
-    sizeCh: 14,
-    balloonMl: 10,
-    makerBalloonMl: 10,
-    maker: "Northfen Medical (demo)",
+    ...demoDevice,
     productName: "Silicone two-way 14 Ch (demo)",
     lot: "AB12",
     // Source: clinical-checks.md §7, worked element string (expiry 2028-11-30, valid check digit).

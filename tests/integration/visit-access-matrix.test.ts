@@ -11,7 +11,7 @@ import { POST as visitAccessPost } from "@/app/api/visit-access/route";
 import { getViewerFromHeaders, type Viewer } from "@/lib/auth/session";
 import { issuePassport } from "@/lib/passport";
 import { openDeviceCard } from "@/lib/qr/device-card";
-import { patientIdByHrn } from "../support/fixtures";
+import { demoDevice, patientIdByHrn } from "../support/fixtures";
 import { call, sessionFor } from "../support/http";
 
 type Persona = "anonymous" | "careTeamClinician" | "otherBefore" | "otherAfter" | "patient" | "carer" | "admin";
@@ -36,14 +36,7 @@ let step = 60;
 function changeBody() {
   step -= 5;
   return {
-    route: "urethral",
-    catheterType: "two-way",
-    material: "all-silicone",
-    lengthCategory: "standard",
-    sizeCh: 14,
-    balloonMl: 10,
-    makerBalloonMl: 10,
-    maker: "Northfen Medical (demo)",
+    ...demoDevice,
     lot: "QR12",
     // Source: clinical-checks.md §7, worked element string (expiry 2028-11-30, valid check digit).
     expiry: "2028-11-30",

@@ -68,6 +68,18 @@ export async function userIdByEmail(email: string): Promise<string> {
 
 const isoDay = (d: Date) => d.toISOString().slice(0, 10);
 
+/** The demo catheter's device facts, shared by stored rows and the forms' request bodies. */
+export const demoDevice = {
+  route: "urethral",
+  catheterType: "two-way",
+  material: "all-silicone",
+  lengthCategory: "standard",
+  sizeCh: 14,
+  balloonMl: 10,
+  makerBalloonMl: 10,
+  maker: "Northfen Medical (demo)",
+} as const;
+
 /**
  * The demo catheter as the episode forms would store it (all-silicone 14 Ch two-way, 10 ml,
  * 84-day change, 28-day review), for tests that need a catheter in place without the forms.
@@ -81,14 +93,7 @@ export function demoCatheterRow({
   return {
     patientId,
     organisationId,
-    route: "urethral",
-    catheterType: "two-way",
-    material: "all-silicone",
-    lengthCategory: "standard",
-    sizeCh: 14,
-    balloonMl: 10,
-    makerBalloonMl: 10,
-    maker: "Northfen Medical (demo)",
+    ...demoDevice,
     indication: "Chronic urinary retention",
     insertedAt,
     insertedByName: "Grace Mensah",
