@@ -1,6 +1,7 @@
-import { readdirSync, readFileSync, statSync } from "node:fs";
+import { readFileSync } from "node:fs";
 import { join, resolve } from "node:path";
 import { describe, expect, it } from "vitest";
+import { sourceFiles } from "../support/source-files";
 import en from "@/messages/en.json";
 import { RECORD_KINDS } from "@/lib/validations/episode";
 
@@ -9,18 +10,10 @@ import { RECORD_KINDS } from "@/lib/validations/episode";
 
 const root = resolve(__dirname, "../..");
 
-function sources(dir: string): string[] {
-  return readdirSync(dir).flatMap((name) => {
-    const path = join(dir, name);
-    if (statSync(path).isDirectory()) return sources(path);
-    return /\.tsx?$/.test(name) ? [path] : [];
-  });
-}
-
 /** Audit actions named in the code: `action: "x"`, `openForWrite(ctx, "x")`, and the form views. */
 function actionsInCode(): Set<string> {
   const found = new Set<string>();
-  for (const file of ["app", "lib", "db"].flatMap((d) => sources(join(root, d)))) {
+  for (const file of ["app", "lib", "db"].flatMap((d) => sourceFiles(join(root, d)))) {
     const text = readFileSync(file, "utf8");
     for (const m of text.matchAll(/\baction: "([a-z][a-z0-9_.-]+)"|openForWrite\(\s*ctx,\s*"([a-z][a-z0-9_.-]+)"/g)) found.add((m[1] ?? m[2])!);
     if (text.includes("action: `episode.form.${kind}`")) for (const kind of RECORD_KINDS) found.add(`episode.form.${kind}`);

@@ -1,6 +1,7 @@
-import { existsSync, readdirSync, readFileSync, statSync } from "node:fs";
+import { existsSync, readFileSync, statSync } from "node:fs";
 import { dirname, join, relative, resolve } from "node:path";
 import { describe, expect, it } from "vitest";
+import { sourceFiles } from "../support/source-files";
 import en from "@/messages/en.json";
 import { clientNamespaces, type ClientScope } from "@/lib/i18n/client-namespaces";
 
@@ -10,14 +11,6 @@ import { clientNamespaces, type ClientScope } from "@/lib/i18n/client-namespaces
 
 const root = resolve(__dirname, "../..");
 const localeDir = join(root, "app/[locale]");
-
-function filesUnder(dir: string): string[] {
-  return readdirSync(dir).flatMap((name) => {
-    const path = join(dir, name);
-    if (statSync(path).isDirectory()) return filesUnder(path);
-    return /\.tsx?$/.test(name) ? [path] : [];
-  });
-}
 
 function resolveImport(from: string, spec: string): string | undefined {
   let base: string;
@@ -86,7 +79,7 @@ function scopeOf(path: string): ClientScope {
 const scopes = Object.keys(clientNamespaces) as ClientScope[];
 
 describe("client message namespaces per route scope", () => {
-  const entries = filesUnder(localeDir);
+  const entries = sourceFiles(localeDir);
 
   it.each(scopes)("the %s scope sends every namespace its client components read", (scope) => {
     const used = clientNamespacesFrom(entries.filter((path) => scopeOf(path) === scope));
