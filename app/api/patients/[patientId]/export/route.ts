@@ -1,10 +1,8 @@
-import { getFhirExportData } from "@/db/queries/fhir-export";
 import { exportPatientData } from "@/db/queries/patient-export";
 import { audit } from "@/lib/audit";
 import { assertRole, isUuid, requireAdminOfPatient, requirePatientAccess, requireUser } from "@/lib/auth/permissions";
-import { env } from "@/lib/env";
 import { AppError } from "@/lib/errors";
-import { buildFhirBundle } from "@/lib/fhir/export";
+import { patientFhirBundle } from "@/lib/fhir/bundle";
 import { handle, json } from "@/lib/http";
 import { parseInput, searchParamsObject } from "@/lib/validate";
 import { exportRequestSchema } from "@/lib/validations/admin-patient";
@@ -30,9 +28,7 @@ export const GET = handle<{ params: Promise<{ patientId: string }> }>(async (req
   }
   const day = new Date().toISOString().slice(0, 10);
   if (format === "fhir") {
-    const data = await getFhirExportData({ patientId });
-    if (!data) throw new AppError("not_found");
-    const bundle = buildFhirBundle({ ...data, base: new URL(env.APP_URL).origin });
+    const bundle = await patientFhirBundle({ patientId });
     await audit({ action: "patient.export", actor: viewer, patientId, via, request, reason: reason ?? null, details: { format: "fhir-r4" } });
     return new Response(JSON.stringify(bundle), {
       status: 200,

@@ -1,8 +1,5 @@
-import { getFhirExportData } from "@/db/queries/fhir-export";
 import { requireRole } from "@/lib/auth/permissions";
-import { env } from "@/lib/env";
-import { AppError } from "@/lib/errors";
-import { buildFhirBundle } from "@/lib/fhir/export";
+import { patientFhirBundle } from "@/lib/fhir/bundle";
 import { handle } from "@/lib/http";
 import { openPatientRecord } from "@/lib/patient-record";
 
@@ -13,9 +10,7 @@ export const GET = handle<Ctx>(async (request, { params }) => {
   const { patientId } = await params;
   const viewer = await requireRole(request, "clinician");
   await openPatientRecord({ viewer, patientId, action: "patient.export.fhir", request });
-  const data = await getFhirExportData({ patientId });
-  if (!data) throw new AppError("not_found");
-  const bundle = buildFhirBundle({ ...data, base: new URL(env.APP_URL).origin });
+  const bundle = await patientFhirBundle({ patientId });
   return new Response(JSON.stringify(bundle), {
     status: 200,
     headers: {

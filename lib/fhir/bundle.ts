@@ -1,0 +1,13 @@
+import "server-only";
+// Loads a patient's rows and builds their FHIR Bundle, addressed from APP_URL. The caller has
+// checked access and writes its own audit event.
+import { getFhirExportData } from "@/db/queries/fhir-export";
+import { env } from "@/lib/env";
+import { AppError } from "@/lib/errors";
+import { buildFhirBundle } from "./export";
+
+export async function patientFhirBundle({ patientId }: { patientId: string }) {
+  const data = await getFhirExportData({ patientId });
+  if (!data) throw new AppError("not_found");
+  return buildFhirBundle({ ...data, base: new URL(env.APP_URL).origin });
+}
