@@ -25,8 +25,9 @@ export type CareTeamAlertInput = {
 
 export const ALERT_LEVELS: Record<CareTeamAlertKind, readonly string[]> = {
   "check-in": ["emergency", "urgent"],
-  // Low-medium (a single parameter scoring 3) alerts too: RCP NEWS2 (2017) chart 2 asks for an
-  // urgent review for it, and a visiting clinician may leave before anyone reads the screen.
+  // Low-medium (a single parameter scoring 3) alerts too: RCP NEWS2 (2017) chart 4 has the
+  // medical team informed and reviewing, and a visiting clinician may leave before anyone reads
+  // the screen.
   news2: ["high", "medium", "low-medium"],
 };
 

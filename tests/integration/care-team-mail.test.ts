@@ -61,7 +61,7 @@ describe("care-team alerts", () => {
       expect(await queueCareTeamAlert(tx, { patientId: fx.patientId, kind: "check-in", level, summary: "x", sourceId: randomUUID() })).toEqual([]);
     }
     expect(await queueCareTeamAlert(tx, { patientId: fx.patientId, kind: "news2", level: "low", summary: "x", sourceId: randomUUID() })).toEqual([]);
-    // Source: RCP NEWS2 (2017) chart 2: a score of 3 in one parameter asks for an urgent review.
+    // Source: RCP NEWS2 (2017) chart 4: a 3 in any single parameter → the medical team is informed and reviews.
     const lowMedium = await db.transaction((t) =>
       queueCareTeamAlert(t, { patientId: fx.patientId, kind: "news2", level: "low-medium", score: 3, summary: "RR 8", sourceId: randomUUID() }),
     );
