@@ -5,7 +5,7 @@
 import createMiddleware from "next-intl/middleware";
 import { NextResponse, type NextRequest } from "next/server";
 import { routing } from "@/lib/i18n/routing";
-import { withPassportHeaders } from "@/lib/passport-headers";
+import { withPassportHeaders } from "@/lib/http/secret-headers";
 import { isCardPath, limitCardRequest } from "@/lib/qr/card-limit";
 
 const intl = createMiddleware(routing);

@@ -2,7 +2,7 @@
 // do not open a new pool each time.
 import { drizzle, type NodePgDatabase } from "drizzle-orm/node-postgres";
 import pg from "pg";
-import { env } from "@/lib/env";
+import { env } from "@/lib/config/env";
 import * as schema from "./schema";
 
 export type Database = NodePgDatabase<typeof schema>;

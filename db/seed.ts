@@ -28,7 +28,7 @@ import {
 } from "./schema";
 import { symmetricDecrypt, symmetricEncrypt } from "better-auth/crypto";
 import { hashPassword } from "@/lib/auth/password";
-import { authSecret } from "@/lib/env";
+import { authSecret } from "@/lib/config/env";
 import { planDates, triageCheckIn, type CheckInAnswers } from "@/lib/clinical";
 
 type Role = "admin" | "clinician" | "patient" | "carer";

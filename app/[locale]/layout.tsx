@@ -5,7 +5,7 @@ import { notFound } from "next/navigation";
 import type { ReactNode } from "react";
 import { ClientMessages } from "@/components/i18n/client-messages";
 import { Providers } from "@/components/providers";
-import { fontVariables } from "@/lib/fonts";
+import { fontVariables } from "@/lib/i18n/fonts";
 import { directionOf, routing } from "@/lib/i18n/routing";
 import "../globals.css";
 

@@ -6,7 +6,7 @@ import { useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
-import { authClient } from "@/lib/auth-client";
+import { authClient } from "@/lib/auth/client";
 import { changePasswordSchema, PASSWORD_MIN_LENGTH, type ChangePasswordInput } from "@/lib/validations/staff";
 import { useErrorText } from "@/components/admin/use-field-errors";
 

@@ -4,7 +4,7 @@ import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
-import { authClient } from "@/lib/auth-client";
+import { authClient } from "@/lib/auth/client";
 import { Link } from "@/lib/i18n/navigation";
 import { backupCodeSchema, totpCodeSchema } from "@/lib/validations/staff";
 import { useErrorText } from "@/components/admin/use-field-errors";

@@ -4,7 +4,7 @@ import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
-import { authClient } from "@/lib/auth-client";
+import { authClient } from "@/lib/auth/client";
 import { useRouter } from "@/lib/i18n/navigation";
 import { BackupCodes } from "./backup-codes";
 import { TwoFactorSetup } from "./two-factor-setup";

@@ -5,7 +5,7 @@ import { useEffect, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
-import { authClient } from "@/lib/auth-client";
+import { authClient } from "@/lib/auth/client";
 import { totpCodeSchema } from "@/lib/validations/staff";
 import { useErrorText } from "@/components/admin/use-field-errors";
 import { BackupCodes } from "./backup-codes";

@@ -6,7 +6,7 @@ import { useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
-import { apiFetch } from "@/lib/api-client";
+import { apiFetch } from "@/lib/browser/api-client";
 import { useRouter } from "@/lib/i18n/navigation";
 import { closeRecordSchema, type CloseRecordInput } from "@/lib/validations/admin-patient";
 import { useErrorText } from "./use-field-errors";

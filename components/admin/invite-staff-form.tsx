@@ -8,7 +8,7 @@ import { Checkbox } from "@/components/ui/checkbox";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { SelectField } from "@/components/ui/select-field";
-import { ApiError, apiFetch } from "@/lib/api-client";
+import { ApiError, apiFetch } from "@/lib/browser/api-client";
 import { useRouter } from "@/lib/i18n/navigation";
 import { inviteStaffSchema, staffRoles, type InviteStaffFormValues, type InviteStaffInput } from "@/lib/validations/staff";
 import { useErrorText } from "./use-field-errors";

@@ -8,7 +8,7 @@ import { Checkbox } from "@/components/ui/checkbox";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { SelectField } from "@/components/ui/select-field";
-import { ApiError, apiFetch } from "@/lib/api-client";
+import { ApiError, apiFetch } from "@/lib/browser/api-client";
 import { useRouter } from "@/lib/i18n/navigation";
 import { localeNames, locales } from "@/lib/i18n/routing";
 import { organisationKinds, organisationSchema, type OrganisationFormValues, type OrganisationInput } from "@/lib/validations/organisation";

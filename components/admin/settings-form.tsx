@@ -6,7 +6,7 @@ import { useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
-import { ApiError, apiFetch } from "@/lib/api-client";
+import { ApiError, apiFetch } from "@/lib/browser/api-client";
 import { MATERIALS, MATERIAL_SPECS, PLAN_DEFAULTS, type Material } from "@/lib/clinical";
 import { useRouter } from "@/lib/i18n/navigation";
 import { settingsFormSchema, type SettingsFormOutput, type SettingsFormValues } from "@/lib/validations/settings";

@@ -5,7 +5,7 @@ import { Button } from "@/components/ui/button";
 import { Checkbox } from "@/components/ui/checkbox";
 import { Notice } from "@/components/ui/notice";
 import { SelectField } from "@/components/ui/select-field";
-import { apiFetch } from "@/lib/api-client";
+import { apiFetch } from "@/lib/browser/api-client";
 import { useRouter } from "@/lib/i18n/navigation";
 import { staffRoles } from "@/lib/validations/staff";
 import { useErrorText } from "./use-field-errors";

@@ -1,6 +1,6 @@
 "use client";
 import { useTranslations } from "next-intl";
-import { ApiError } from "@/lib/api-client";
+import { ApiError } from "@/lib/browser/api-client";
 
 /**
  * Turns error codes (zod messages and server field errors are codes) into this form's words,

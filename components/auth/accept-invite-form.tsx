@@ -7,8 +7,8 @@ import { useErrorText } from "@/components/admin/use-field-errors";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
-import { ApiError, apiFetch } from "@/lib/api-client";
-import { authClient } from "@/lib/auth-client";
+import { ApiError, apiFetch } from "@/lib/browser/api-client";
+import { authClient } from "@/lib/auth/client";
 import { acceptInviteFormSchema, PASSWORD_MIN_LENGTH, type AcceptInviteFormInput } from "@/lib/validations/staff";
 
 /** The invitee chooses their name and password, then is signed in. */

@@ -7,7 +7,7 @@ import { useErrorText } from "@/components/admin/use-field-errors";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
-import { authClient } from "@/lib/auth-client";
+import { authClient } from "@/lib/auth/client";
 import { Link } from "@/lib/i18n/navigation";
 import { PASSWORD_MIN_LENGTH, resetPasswordSchema, type ResetPasswordInput } from "@/lib/validations/staff";
 

@@ -5,7 +5,7 @@ import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
-import { authClient } from "@/lib/auth-client";
+import { authClient } from "@/lib/auth/client";
 import { signInSchema, type SignInInput } from "@/lib/validations/auth";
 
 /** `returnTo`: a same-site path to go back to after signing in (the passport's visit-access page). */

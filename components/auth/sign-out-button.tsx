@@ -2,7 +2,7 @@
 import { useLocale, useTranslations } from "next-intl";
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
-import { authClient } from "@/lib/auth-client";
+import { authClient } from "@/lib/auth/client";
 
 export function SignOutButton({ className = "w-full" }: { className?: string }) {
   const t = useTranslations("SignOut");

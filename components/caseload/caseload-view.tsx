@@ -4,7 +4,7 @@
 import { keepPreviousData, useQuery } from "@tanstack/react-query";
 import { useFormatter, useLocale, useTranslations } from "next-intl";
 import { useEffect, useId, useMemo, useRef, useState } from "react";
-import type { CaseloadPage, CaseloadRow } from "@/lib/dto";
+import type { CaseloadPage, CaseloadRow } from "@/lib/shared/dto";
 import { Link } from "@/lib/i18n/navigation";
 import {
   CASELOAD_DEFAULT_PAGE_SIZE,

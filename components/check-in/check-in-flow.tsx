@@ -11,7 +11,7 @@ import {
   type OtherSymptom,
   type Question,
   type SubmittedAnswers,
-} from "@/lib/check-in-flow";
+} from "@/lib/shared/check-in-flow";
 import type { Route } from "@/lib/clinical";
 import type { Contacts } from "@/components/portal/call-buttons";
 import { CheckInResult } from "./check-in-result";

@@ -3,7 +3,7 @@ import { useTranslations } from "next-intl";
 import { useEffect, useMemo, useRef, useState } from "react";
 import { CallButtons, SafetyNotice, type Contacts } from "@/components/portal/call-buttons";
 import { LevelBadge } from "@/components/portal/level-badge";
-import { scoreAnswers, type SubmittedAnswers } from "@/lib/check-in-flow";
+import { scoreAnswers, type SubmittedAnswers } from "@/lib/shared/check-in-flow";
 import { compareTriageLevels, TRIAGE_LEVELS, type Route, type TriageLevel } from "@/lib/clinical";
 import { Link } from "@/lib/i18n/navigation";
 import { enqueueCheckIn, flushCheckIns, SENT_EVENT, type SentDetail } from "./outbox";

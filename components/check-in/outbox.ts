@@ -2,7 +2,7 @@
 // down. Each item holds only the patient id, the idempotency key and the answers (ASVS 14.3.3);
 // the shared sign-out clears it with the rest of localStorage. The server's idempotency key
 // makes every resend safe: a check-in is stored once however often it is sent.
-import type { SubmittedAnswers } from "@/lib/check-in-flow";
+import type { SubmittedAnswers } from "@/lib/shared/check-in-flow";
 
 export const OUTBOX_KEY = "caddis.checkInOutbox.v1";
 export const SENT_EVENT = "caddis:check-in-sent";

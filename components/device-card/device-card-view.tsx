@@ -4,10 +4,10 @@
 // Phone numbers and Latin units are isolated left-to-right so Arabic and Urdu do not reorder them.
 import { getFormatter, getTranslations } from "next-intl/server";
 import { buttonClass } from "@/components/ui/button";
-import type { DeviceCard } from "@/lib/dto";
+import type { DeviceCard } from "@/lib/shared/dto";
 import { charriereToMm } from "@/lib/clinical";
 import { directionOf, isLocale, type Locale } from "@/lib/i18n/routing";
-import { deploymentTimeZone } from "@/lib/time-zone";
+import { deploymentTimeZone } from "@/lib/shared/time-zone";
 
 /** The patient's language first, then English (once, when that is the patient's). */
 /**

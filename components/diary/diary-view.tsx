@@ -6,7 +6,7 @@ import { useMemo, useState } from "react";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
 import { fluidBalance, formatIsoDate, urineOutputRate, type DiaryEntry as ClinicalEntry } from "@/lib/clinical";
-import { DRINK_GUIDE, OUTPUT_WINDOW_HOURS } from "@/lib/diary-guidance";
+import { DRINK_GUIDE, OUTPUT_WINDOW_HOURS } from "@/lib/shared/diary-guidance";
 import { Link } from "@/lib/i18n/navigation";
 import { BAG_SIZES, customVolumeSchema, DRINK_SIZES } from "@/lib/validations/diary";
 import { WeekChart } from "./week-chart";

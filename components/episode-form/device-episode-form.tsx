@@ -21,11 +21,11 @@ import {
   ROUTES,
   type Material,
 } from "@/lib/clinical";
-import { reconcileOverrides, runDeviceCheck, type PatientFacts } from "@/lib/episode-checks";
+import { reconcileOverrides, runDeviceCheck, type PatientFacts } from "@/lib/shared/episode-checks";
 import { useRouter } from "@/lib/i18n/navigation";
 import { changeSchema, EPISODE_ERROR_KEYS, insertionSchema, UNPLANNED_REASONS } from "@/lib/validations/episode";
-import { fromLocalInputValue, toLocalInputValue } from "@/lib/datetime-input";
-import { dayIn } from "@/lib/time-zone";
+import { fromLocalInputValue, toLocalInputValue } from "@/lib/browser/datetime-input";
+import { dayIn } from "@/lib/shared/time-zone";
 import { Checkbox, RadioGroup, Section, Select, TextArea, TextInput } from "./controls";
 import { FindingsPanel } from "./findings-panel";
 import { ScanField, type ScanFill } from "./scan-field";

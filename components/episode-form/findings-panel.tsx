@@ -3,7 +3,7 @@
 // colour alone), its message and its source. A `stop` asks for the override reason here.
 import { useTranslations } from "next-intl";
 import { DEVICE_RULES, type Finding, type Severity } from "@/lib/clinical";
-import type { CheckOutcome, DeviceDraft } from "@/lib/episode-checks";
+import type { CheckOutcome, DeviceDraft } from "@/lib/shared/episode-checks";
 import { OVERRIDE_MIN_CHARS } from "@/lib/validations/episode";
 import { TextArea } from "./controls";
 

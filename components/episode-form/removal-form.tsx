@@ -8,7 +8,7 @@ import type { z } from "zod";
 import { Button } from "@/components/ui/button";
 import { useRouter } from "@/lib/i18n/navigation";
 import { EPISODE_ERROR_KEYS, REMOVAL_REASONS, removalSchema } from "@/lib/validations/episode";
-import { fromLocalInputValue, toLocalInputValue } from "@/lib/datetime-input";
+import { fromLocalInputValue, toLocalInputValue } from "@/lib/browser/datetime-input";
 import { Checkbox, Section, Select, TextArea, TextInput } from "./controls";
 import { isApiError, useRecord } from "./use-record";
 

@@ -4,7 +4,7 @@
 import { useTranslations } from "next-intl";
 import { useEffect, useId, useLayoutEffect, useRef, useState, type KeyboardEvent } from "react";
 import { Button } from "@/components/ui/button";
-import { GS_VISIBLE, isGroupSeparatorKey, readScan, showScan, type ScanReading } from "@/lib/gs1-input";
+import { GS_VISIBLE, isGroupSeparatorKey, readScan, showScan, type ScanReading } from "@/lib/browser/gs1-input";
 
 export type ScanFill = { gtin?: string; lot?: string; expiry?: string; serial?: string; udi: string };
 

@@ -9,7 +9,7 @@ import type { z } from "zod";
 import { Button } from "@/components/ui/button";
 import { useRouter } from "@/lib/i18n/navigation";
 import { EPISODE_ERROR_KEYS, TWOC_FAILED_ACTIONS, twocSchema } from "@/lib/validations/episode";
-import { fromLocalInputValue, toLocalInputValue } from "@/lib/datetime-input";
+import { fromLocalInputValue, toLocalInputValue } from "@/lib/browser/datetime-input";
 import { RadioGroup, Section, Select, TextArea, TextInput } from "./controls";
 import { isApiError, useRecord } from "./use-record";
 

@@ -1,5 +1,5 @@
 import type { ReactNode } from "react";
-import type { OutboundMessageDto } from "@/lib/dto";
+import type { OutboundMessageDto } from "@/lib/shared/dto";
 
 type Status = OutboundMessageDto["status"];
 

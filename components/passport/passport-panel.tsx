@@ -6,7 +6,7 @@ import { useFormatter, useTranslations } from "next-intl";
 import { useEffect, useRef, useState, useTransition } from "react";
 import { Button, buttonClass } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
-import type { PassportOverview } from "@/lib/dto";
+import type { PassportOverview } from "@/lib/shared/dto";
 import { useRouter } from "@/lib/i18n/navigation";
 import { localeNames, type Locale } from "@/lib/i18n/routing";
 

@@ -1,5 +1,5 @@
 import { useTranslations } from "next-intl";
-import type { PatientDetails } from "@/lib/dto";
+import type { PatientDetails } from "@/lib/shared/dto";
 
 /** Allergies that matter for a catheter, in a bordered warning box (never colour alone). */
 export function AllergyBox({ allergies }: { allergies: PatientDetails["allergies"] }) {

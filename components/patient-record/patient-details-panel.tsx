@@ -4,7 +4,7 @@ import { useFormatter, useTranslations } from "next-intl";
 import { useState } from "react";
 import { PatientForm, type GpPractice } from "@/components/patient-form/patient-form";
 import { Button } from "@/components/ui/button";
-import type { PatientDetails } from "@/lib/dto";
+import type { PatientDetails } from "@/lib/shared/dto";
 import { localeNames, type Locale } from "@/lib/i18n/routing";
 
 export function PatientDetailsPanel({ patient, gpPractices, canEdit }: { patient: PatientDetails; gpPractices: GpPractice[]; canEdit: boolean }) {

@@ -7,7 +7,7 @@ import { useEffect, useRef, useState } from "react";
 import { Button, buttonClass } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
 import { Field } from "@/components/ui/field";
-import type { UploadDto } from "@/lib/dto";
+import type { UploadDto } from "@/lib/shared/dto";
 import { uploadCategories, type UploadCategory } from "@/lib/validations/upload";
 import { ACCEPTED_UPLOAD_TYPES, precheck, uploadFile, type UploadFailure } from "./upload-file";
 

@@ -10,7 +10,7 @@ import { Button } from "@/components/ui/button";
 import { scoreNews2 } from "@/lib/clinical";
 import { Link } from "@/lib/i18n/navigation";
 import { CONSCIOUSNESS, observationsSchema, visitSchema } from "@/lib/validations/visit";
-import { fromLocalInputValue, toLocalInputValue } from "@/lib/datetime-input";
+import { fromLocalInputValue, toLocalInputValue } from "@/lib/browser/datetime-input";
 import { News2Panel, type News2View } from "./news2-panel";
 
 type Values = {

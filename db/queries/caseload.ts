@@ -5,7 +5,7 @@ import "server-only";
 import { sql, type SQL } from "drizzle-orm";
 import { db, type Executor } from "@/db";
 import { PLAN_DEFAULTS, parseIsoDate, stateFor, worseState, type CaseloadState } from "@/lib/clinical";
-import { deploymentTimeZone, todayIso } from "@/lib/time-zone";
+import { deploymentTimeZone, todayIso } from "@/lib/shared/time-zone";
 import type { CaseloadFilter, CaseloadQuery, CaseloadSort, CaseloadView } from "@/lib/validations/caseload";
 
 export type CheckInLevel = "emergency" | "urgent" | "soon" | "self-care";

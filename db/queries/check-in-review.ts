@@ -5,7 +5,7 @@ import { and, desc, eq, gte } from "drizzle-orm";
 import { db, type Executor } from "@/db";
 import { checkIns, diaryEntries, user } from "@/db/schema";
 import { fluidBalance, type FluidBalance } from "@/lib/clinical";
-import { dayIn, lastDays, utcOffsetMinutes } from "@/lib/time-zone";
+import { dayIn, lastDays, utcOffsetMinutes } from "@/lib/shared/time-zone";
 
 export type StaffCheckIn = {
   id: string;

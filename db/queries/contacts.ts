@@ -13,7 +13,7 @@ const PHONE = /^\+?[0-9][0-9 ()-]{1,19}$/;
 /**
  * The deployment's emergency number from the settings table, or null when it is not set or
  * not a phone number: the portal then says it is not configured rather than guess one.
- * TODO(lead): replace with getSettings().emergencyNumber from lib/settings.ts once it lands.
+ * TODO(lead): replace with getSettings().emergencyNumber from lib/config/settings.ts once it lands.
  */
 export async function readEmergencyNumber(tx: Executor = db): Promise<string | null> {
   const [row] = await tx.select({ value: settings.value }).from(settings).where(eq(settings.key, "emergencyNumber"));

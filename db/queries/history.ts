@@ -11,7 +11,7 @@ import {
   type CatheterHistoryEntry,
   type EndReason,
 } from "@/lib/clinical";
-import { dayIn, todayIso } from "@/lib/time-zone";
+import { dayIn, todayIso } from "@/lib/shared/time-zone";
 
 export type HistoryEvent = {
   id: string;

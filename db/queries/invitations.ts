@@ -63,7 +63,7 @@ export async function findUserByEmail({ email }: { email: string }, tx: Executor
   return row ?? null;
 }
 
-/** An e-mail + password account made by invitation (self sign-up is off in lib/auth.ts). */
+/** An e-mail + password account made by invitation (self sign-up is off in lib/auth/index.ts). */
 export async function createCredentialUser(
   { email, name, role, locale, passwordHash }: { email: string; name: string; role: "patient" | "carer"; locale: string; passwordHash: string },
   tx: Executor,

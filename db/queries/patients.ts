@@ -1,10 +1,10 @@
 import "server-only";
 // Registering, reading and editing a patient's details. Access checks happen before these are
-// called (lib/patient-record.ts); these functions return explicit DTOs, never whole rows.
+// called (lib/records/patient-record.ts); these functions return explicit DTOs, never whole rows.
 import { and, asc, desc, eq, inArray, isNull } from "drizzle-orm";
 import { db, type Executor } from "@/db";
 import { careTeam, catheterEpisodes, organisations, patients, type CatheterEpisode, type Patient } from "@/db/schema";
-import { AppError, pgConstraint, toAppError } from "@/lib/errors";
+import { AppError, pgConstraint, toAppError } from "@/lib/http/errors";
 import type { PatientUpdateValues, PatientValues } from "@/lib/validations/patient";
 
 export type PatientDetails = {

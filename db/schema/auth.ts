@@ -1,5 +1,5 @@
 // better-auth's tables (user, session, account, verification, rateLimit, twoFactor), kept apart from ours.
-// Field names follow better-auth 1.7's core schema for the options in lib/auth.ts.
+// Field names follow better-auth 1.7's core schema for the options in lib/auth/index.ts.
 import { bigint, boolean, index, integer, pgTable, text, timestamp } from "drizzle-orm/pg-core";
 
 export const user = pgTable("user", {
@@ -8,7 +8,7 @@ export const user = pgTable("user", {
   email: text("email").notNull().unique(),
   emailVerified: boolean("email_verified").notNull().default(false),
   image: text("image"),
-  // Caddis fields (declared as additionalFields in lib/auth.ts, never settable by sign-up input).
+  // Caddis fields (declared as additionalFields in lib/auth/index.ts, never settable by sign-up input).
   role: text("role", { enum: ["admin", "clinician", "patient", "carer"] }).notNull().default("patient"),
   locale: text("locale").notNull().default("en"),
   deactivatedAt: timestamp("deactivated_at", { withTimezone: true }),

@@ -26,11 +26,11 @@ import {
   revokeInvitation,
   setRole,
 } from "@/db/queries/staff";
-import { audit } from "@/lib/audit";
+import { audit } from "@/lib/records/audit";
 import { hashPassword } from "@/lib/auth/password";
 import type { Viewer } from "@/lib/auth/session";
-import { env } from "@/lib/env";
-import { AppError } from "@/lib/errors";
+import { env } from "@/lib/config/env";
+import { AppError } from "@/lib/http/errors";
 import type { AcceptInviteInput, InviteStaffInput, UpdateStaffInput } from "@/lib/validations/staff";
 import { sendStaffInvitation } from "./mail";
 import { hashToken, newToken } from "./tokens";

@@ -1,6 +1,6 @@
 import "server-only";
 import { createHash, createHmac, randomBytes } from "node:crypto";
-import { env } from "@/lib/env";
+import { env } from "@/lib/config/env";
 
 /** A link token: 256 bits from the CSPRNG (ASVS 11.5.1), base64url. */
 export function newToken(): string {

@@ -3,7 +3,7 @@ import "server-only";
 // these on the server; hiding a link in the menu is never the control.
 import { forbidden, redirect } from "next/navigation";
 import { findPatientAccess, isAdminOfPatient, type PatientAccessVia } from "@/db/queries/access";
-import { AppError } from "@/lib/errors";
+import { AppError } from "@/lib/http/errors";
 import { getViewer, getViewerFromHeaders, needsSecondFactorSetup, type Role, type Viewer } from "./session";
 
 /** Route handlers: the viewer, or 401. */

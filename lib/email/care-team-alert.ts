@@ -4,7 +4,7 @@ import "server-only";
 // stores the check-in or the observations, so the alert exists exactly when they do.
 import type { Executor } from "@/db";
 import { getActiveEpisode, getCareTeamOrganisations, getPatientForMail } from "@/db/queries/mail-context";
-import { env } from "@/lib/env";
+import { env } from "@/lib/config/env";
 import { emailDates, emailLocale, emailTranslator } from "./i18n";
 import { queueMessage, type QueuedMessage } from "./outbox";
 import { renderEmail, type Block, type EmailContent } from "./render";

@@ -2,7 +2,7 @@
 // next-intl's createTranslator. Staff and GP e-mails use the organisation's locale, patient
 // e-mails the patient's preferred locale; anything else falls back to English.
 import { createFormatter, createTranslator } from "next-intl";
-import { env } from "@/lib/env";
+import { env } from "@/lib/config/env";
 import { isLocale, type Locale } from "@/lib/i18n/routing";
 import ar from "@/messages/ar.json";
 import en from "@/messages/en.json";

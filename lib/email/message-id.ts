@@ -1,5 +1,5 @@
 import { createHash } from "node:crypto";
-import { env } from "@/lib/env";
+import { env } from "@/lib/config/env";
 
 /** The sender's domain, from MAIL_FROM ("Caddis <no-reply@caddis.invalid>" → caddis.invalid). */
 export function senderDomain(from = env.MAIL_FROM): string {

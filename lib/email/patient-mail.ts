@@ -7,7 +7,7 @@ import { emailDates, emailLocale, emailTranslator } from "./i18n";
 import { queueMessage, type QueuedMessage } from "./outbox";
 import { renderEmail } from "./render";
 
-/** The portal invitation with the activation code (portal: lib/invitations.ts sendPatientInvitation). */
+/** The portal invitation with the activation code (portal: lib/portal/invitations.ts sendPatientInvitation). */
 export async function queuePatientInvitation(
   tx: Executor,
   { patientId, email, code, activateUrl, inviteId, expiresAt }: { patientId: string; email: string; code: string; activateUrl: string; inviteId: string; expiresAt?: Date },
@@ -42,7 +42,7 @@ export async function queuePatientInvitation(
   });
 }
 
-/** The carer invitation link (portal: lib/invitations.ts sendCarerInvitation). */
+/** The carer invitation link (portal: lib/portal/invitations.ts sendCarerInvitation). */
 export async function queueCarerInvitation(
   tx: Executor,
   { patientId, email, inviteUrl, linkId, invitedBy, expiresAt }: { patientId: string; email: string; inviteUrl: string; linkId: string; invitedBy: string; expiresAt?: Date },

@@ -7,7 +7,7 @@ import { db, type Executor } from "@/db";
 import { getCareTeamOrganisations } from "@/db/queries/mail-context";
 import { listChangeReminders } from "@/db/queries/reminders";
 import { addDays, parseIsoDate } from "@/lib/clinical";
-import { env } from "@/lib/env";
+import { env } from "@/lib/config/env";
 import { localToday } from "./digest";
 import { emailDates, emailLocale, emailTranslator } from "./i18n";
 import { queueMessage, type QueuedMessage } from "./outbox";

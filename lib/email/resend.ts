@@ -5,7 +5,7 @@ import type { Executor } from "@/db";
 import { countResends } from "@/db/queries/outbox";
 import { getOrganisation } from "@/db/queries/mail-context";
 import type { OutboundMessage } from "@/db/schema";
-import { AppError } from "@/lib/errors";
+import { AppError } from "@/lib/http/errors";
 import { queueMessage } from "./outbox";
 
 export async function resendMessage(tx: Executor, { original, createdByUserId }: { original: OutboundMessage; createdByUserId: string }) {

@@ -2,8 +2,8 @@ import "server-only";
 // Loads a patient's rows and builds their FHIR Bundle, addressed from APP_URL. The caller has
 // checked access and writes its own audit event.
 import { getFhirExportData } from "@/db/queries/fhir-export";
-import { env } from "@/lib/env";
-import { AppError } from "@/lib/errors";
+import { env } from "@/lib/config/env";
+import { AppError } from "@/lib/http/errors";
 import { buildFhirBundle } from "./export";
 
 export async function patientFhirBundle({ patientId }: { patientId: string }) {

@@ -4,7 +4,7 @@
 // pg-boss sends each scheduled job once however many instances run, and the digest's
 // idempotency keys make even a repeat harmless.
 import { PgBoss } from "pg-boss";
-import { env } from "@/lib/env";
+import { env } from "@/lib/config/env";
 
 export const QUEUES = { digest: "care-team-digest", reminders: "change-reminders", sweep: "outbox-sweep", retention: "record-retention" } as const;
 

@@ -12,7 +12,7 @@ import {
 } from "@/db/queries/outbox";
 import { renderAttachments } from "@/lib/email/attachments";
 import { createMailTransport, type MailTransport } from "@/lib/email/transport";
-import { env } from "@/lib/env";
+import { env } from "@/lib/config/env";
 
 export type OutboxWorkerOptions = {
   smtpUrl?: string;

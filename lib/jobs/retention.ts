@@ -7,11 +7,11 @@ import "server-only";
 import { db } from "@/db";
 import { listRecordsPastRetention, lockPatient, removePatientRecord } from "@/db/queries/admin-patients";
 import { hashIdentifier } from "@/lib/admin/tokens";
-import { audit } from "@/lib/audit";
+import { audit } from "@/lib/records/audit";
 import { passportPdfPrefix } from "@/lib/passport";
-import { getSettings } from "@/lib/settings";
+import { getSettings } from "@/lib/config/settings";
 import { deleteObjectsUnder } from "@/lib/storage";
-import { uploadPrefix } from "@/lib/uploads";
+import { uploadPrefix } from "@/lib/records/uploads";
 
 export type RetentionResult = { retentionDays: number | null; removed: number; objectKeys: string[]; objectsDeleted: number; failed: number };
 

@@ -2,7 +2,7 @@
 // instrumentation.ts in every Next.js server (CADDIS_BACKGROUND=off to leave it out) and by
 // scripts/worker.ts to scale out; many at once are safe (see docs/email.md).
 import type { PgBoss } from "pg-boss";
-import { env } from "@/lib/env";
+import { env } from "@/lib/config/env";
 import { OutboxWorker, type OutboxWorkerOptions } from "./outbox-worker";
 
 export type Background = { outbox: OutboxWorker | null; boss: PgBoss | null; stop: () => Promise<void> };

@@ -13,14 +13,14 @@ import {
   type PassportSummary,
 } from "@/db/queries/passports";
 import { getPatientForInvite } from "@/db/queries/invitations";
-import { audit } from "@/lib/audit";
+import { audit } from "@/lib/records/audit";
 import type { Viewer } from "@/lib/auth/session";
 import { charriereToMm } from "@/lib/clinical";
 import { queueGpSummary } from "@/lib/email/gp-summary";
-import { env } from "@/lib/env";
-import { AppError } from "@/lib/errors";
+import { env } from "@/lib/config/env";
+import { AppError } from "@/lib/http/errors";
 import { isLocale } from "@/lib/i18n/routing";
-import { newPatientActivation, recordPatientInvite, type PatientActivation } from "@/lib/invitations";
+import { newPatientActivation, recordPatientInvite, type PatientActivation } from "@/lib/portal/invitations";
 import { renderPassportPdf, type PassportBookletData } from "@/lib/pdf";
 import { qrPngDataUrl, qrSvg } from "@/lib/qr";
 import { deleteObject, putObject } from "@/lib/storage";

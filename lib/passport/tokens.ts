@@ -3,8 +3,8 @@
 // the portal's activation codes (lib/secret-codes). Only hashes of either are ever stored:
 // SHA-256 for the token, an HMAC for the short code (59 bits could be searched offline).
 import { createHash, createHmac, randomBytes, randomInt, timingSafeEqual } from "node:crypto";
-import { authSecret } from "@/lib/env";
-import { CODE_ALPHABET, CODE_LENGTH, normaliseActivationCode } from "@/lib/secret-codes";
+import { authSecret } from "@/lib/config/env";
+import { CODE_ALPHABET, CODE_LENGTH, normaliseActivationCode } from "@/lib/auth/secret-codes";
 
 /** No 0/O, 1/I/L or U: easy to read aloud and to type. 30 symbols (the activation codes' own). */
 export const SHORT_CODE_ALPHABET = CODE_ALPHABET;

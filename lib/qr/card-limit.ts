@@ -1,7 +1,7 @@
 import "server-only";
 // The per-address limit on the public device card and the short-code page, applied in proxy.ts
 // so the answer can be a real 429 (a page cannot choose its status). PostgreSQL-backed
-// (lib/rate-limit.ts), so it holds across app instances.
+// (lib/http/rate-limit.ts), so it holds across app instances.
 import ar from "@/messages/ar.json";
 import en from "@/messages/en.json";
 import es from "@/messages/es.json";
@@ -9,7 +9,7 @@ import pl from "@/messages/pl.json";
 import ro from "@/messages/ro.json";
 import ur from "@/messages/ur.json";
 import { directionOf, isLocale } from "@/lib/i18n/routing";
-import { checkAddress, LIMITS } from "@/lib/rate-limit";
+import { checkAddress, LIMITS } from "@/lib/http/rate-limit";
 
 export const CARD_LIMIT = LIMITS.passportCard;
 

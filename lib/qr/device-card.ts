@@ -4,7 +4,7 @@ import "server-only";
 // Unknown and revoked passports give one and the same answer. The per-address limit is applied
 // before this, in proxy.ts (lib/qr/card-limit.ts), so a limited request costs one statement.
 import { getDeviceCard, type DeviceCard } from "@/db/queries/passport-card";
-import { audit } from "@/lib/audit";
+import { audit } from "@/lib/records/audit";
 import type { Viewer } from "@/lib/auth/session";
 import { findPassportByShortCode, findPassportByToken, type FoundPassport } from "@/lib/passport";
 

@@ -11,7 +11,7 @@ import {
   type S3ClientConfig,
 } from "@aws-sdk/client-s3";
 import { getSignedUrl } from "@aws-sdk/s3-request-presigner";
-import { env } from "@/lib/env";
+import { env } from "@/lib/config/env";
 
 const cache = globalThis as unknown as { caddisS3?: S3Client; caddisS3Public?: S3Client };
 

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { TEMPERATURE_RANGE } from "@/lib/check-in-flow";
+import { TEMPERATURE_RANGE } from "@/lib/shared/check-in-flow";
 
 // Exactly triageCheckIn's answers (minus route, which the server takes from the record);
 // unknown fields are refused (allow-list, ASVS 2.2.1).

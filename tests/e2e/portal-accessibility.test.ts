@@ -3,7 +3,7 @@
 // text size nothing scrolls sideways or is cut off; a screenshot of each is saved to look at.
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { LEARN_PAGES } from "@/lib/learn";
+import { LEARN_PAGES } from "@/lib/shared/learn";
 import { demo } from "../support/http";
 import { launch, screenshot, signInAs } from "./support/browser";
 import { closeDatabase, overflowProblems, patientIdByHrn, phonePage, runCheckIn, screenshotAtTextSize, seriousViolations, setTextSize, smallTargets } from "./support/portal";

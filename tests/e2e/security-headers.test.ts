@@ -5,7 +5,7 @@
 import { randomBytes } from "node:crypto";
 import pg from "pg";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { LEARN_PAGES } from "@/lib/learn";
+import { LEARN_PAGES } from "@/lib/shared/learn";
 import { RECORD_KINDS } from "@/lib/validations/episode";
 import { DEMO_ADMIN_TOTP } from "@/db/seed";
 import { demo, totpCode } from "../support/http";

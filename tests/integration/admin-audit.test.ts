@@ -7,9 +7,9 @@ import { GET as auditSearch } from "@/app/api/admin/audit/route";
 import { GET as auditExport } from "@/app/api/admin/audit/export/route";
 import { db } from "@/db";
 import { auditEvents, patients, visitAccess } from "@/db/schema";
-import { audit } from "@/lib/audit";
+import { audit } from "@/lib/records/audit";
 import { getViewerFromHeaders } from "@/lib/auth/session";
-import { openPatientRecord } from "@/lib/patient-record";
+import { openPatientRecord } from "@/lib/records/patient-record";
 import { call, sessionFor, signIn } from "../support/http";
 import { createOrganisation, createStaff, suffix } from "../support/staff";
 

@@ -16,8 +16,8 @@ import { createOrganisation, createStaff, invitationLink, invitationMessage, suf
 
 // A switch to make the invitation's transaction fail after the e-mail was queued in it.
 const failAudit = vi.hoisted(() => ({ on: false }));
-vi.mock("@/lib/audit", async (original) => {
-  const real = await original<typeof import("@/lib/audit")>();
+vi.mock("@/lib/records/audit", async (original) => {
+  const real = await original<typeof import("@/lib/records/audit")>();
   return {
     ...real,
     audit: async (...args: Parameters<typeof real.audit>) => {

@@ -8,7 +8,7 @@ import { GET as settingsGet, PATCH as settingsPatch } from "@/app/api/admin/sett
 import { db } from "@/db";
 import { auditEvents, memberships, organisations, settings, user } from "@/db/schema";
 import { planDates } from "@/lib/clinical";
-import { getEmergencyNumber, getSettings, planDatesOptions } from "@/lib/settings";
+import { getEmergencyNumber, getSettings, planDatesOptions } from "@/lib/config/settings";
 import { call, demo, sessionFor, signIn } from "../support/http";
 import { createOrganisation, createStaff, orgIdsByName, suffix } from "../support/staff";
 

@@ -1,8 +1,8 @@
 import { describe, expect, it } from "vitest";
 import { z } from "zod";
-import { AppError, toAppError } from "@/lib/errors";
-import { handle, json } from "@/lib/http";
-import { parseJsonBody } from "@/lib/validate";
+import { AppError, toAppError } from "@/lib/http/errors";
+import { handle, json } from "@/lib/http/handle";
+import { parseJsonBody } from "@/lib/http/validate";
 import { request } from "../support/http";
 
 const schema = z.object({ name: z.string().min(1), volumeMl: z.number().int().positive() });

@@ -8,7 +8,7 @@ import { POST as createPatient } from "@/app/api/patients/route";
 import { db } from "@/db";
 import { auditEvents, catheterEpisodes, organisations } from "@/db/schema";
 import { planDates } from "@/lib/clinical";
-import { dayIn, todayIso } from "@/lib/time-zone";
+import { dayIn, todayIso } from "@/lib/shared/time-zone";
 import { clinicianInNewTeam, userIdByEmail, type ClinicianFixture } from "../support/fixtures";
 import { call, demo, sessionFor } from "../support/http";
 

@@ -3,8 +3,8 @@ import { eq } from "drizzle-orm";
 import { describe, expect, it } from "vitest";
 import { db } from "@/db";
 import { auditEvents, catheterEpisodes, diaryEntries, patients } from "@/db/schema";
-import { audit } from "@/lib/audit";
-import { toAppError } from "@/lib/errors";
+import { audit } from "@/lib/records/audit";
+import { toAppError } from "@/lib/http/errors";
 
 async function aPatientId() {
   const [p] = await db.select({ id: patients.id }).from(patients).where(eq(patients.healthRecordNumber, "EM-100-001"));

@@ -13,7 +13,7 @@ import { findPatientAccess } from "@/db/queries/access";
 import { auditEvents, visitAccess } from "@/db/schema";
 import { getViewerFromHeaders, type Viewer } from "@/lib/auth/session";
 import { generateToken, issuePassport, type IssuedPassport } from "@/lib/passport";
-import { withPassportHeaders } from "@/lib/passport-headers";
+import { withPassportHeaders } from "@/lib/http/secret-headers";
 import { CARD_LIMIT, isCardPath, limitCardRequest } from "@/lib/qr/card-limit";
 import { openDeviceCard } from "@/lib/qr/device-card";
 import { patientIdByHrn } from "../support/fixtures";

@@ -9,7 +9,7 @@ import { POST as postPassport } from "@/app/api/patients/[patientId]/passport/ro
 import { db } from "@/db";
 import { auditEvents, outboundMessages, passports, patientInvites, patients } from "@/db/schema";
 import { gpSummaryKey, queueGpSummary } from "@/lib/email/gp-summary";
-import { hashActivationCode } from "@/lib/secret-codes";
+import { hashActivationCode } from "@/lib/auth/secret-codes";
 import en from "@/messages/en.json";
 import pl from "@/messages/pl.json";
 import { patientIdByHrn } from "../support/fixtures";

@@ -28,13 +28,13 @@ import {
   user,
   visitAccess,
 } from "@/db/schema";
-import { audit } from "@/lib/audit";
+import { audit } from "@/lib/records/audit";
 import { hashIdentifier, hashToken } from "@/lib/admin/tokens";
 import { QUEUES } from "@/lib/jobs/boss";
 import { removeExpiredRecords } from "@/lib/jobs/retention";
 import { startBackground } from "@/lib/jobs/runtime";
 import { headObject, putObject } from "@/lib/storage";
-import { assertRecordOpen } from "@/lib/record-state";
+import { assertRecordOpen } from "@/lib/records/record-state";
 import { call, sessionFor, signIn } from "../support/http";
 import { createOrganisation, createStaff, orgIdsByName, suffix, userIdByEmail } from "../support/staff";
 

@@ -17,8 +17,8 @@ import { POST as carersPostRaw } from "@/app/api/patients/[patientId]/carers/rou
 import { POST as invitePostRaw } from "@/app/api/patients/[patientId]/invite/route";
 import { db } from "@/db";
 import { auditEvents, bagChanges, carerLinks, checkIns, diaryEntries, outboundMessages, patientInvites, patients, user } from "@/db/schema";
-import { LIMITS } from "@/lib/rate-limit";
-import { CODE_BITS } from "@/lib/secret-codes";
+import { LIMITS } from "@/lib/http/rate-limit";
+import { CODE_BITS } from "@/lib/auth/secret-codes";
 import { call, sessionFor } from "../support/http";
 
 // Handlers with typed params, called through the untyped test helper.

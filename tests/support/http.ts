@@ -2,7 +2,7 @@
 import * as OTPAuth from "otpauth";
 import { POST as authPost } from "@/app/api/auth/[...all]/route";
 import { DEMO_ADMIN_TOTP } from "@/db/seed";
-import { env } from "@/lib/env";
+import { env } from "@/lib/config/env";
 
 export const origin = new URL(env.APP_URL).origin;
 

@@ -15,7 +15,7 @@ import {
   patients,
   type NewCatheterEpisode,
 } from "@/db/schema";
-import { env } from "@/lib/env";
+import { env } from "@/lib/config/env";
 import { demoCatheterRow } from "./fixtures";
 
 export type InboxEmail = {

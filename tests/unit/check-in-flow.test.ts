@@ -5,7 +5,7 @@ import fs from "node:fs";
 import path from "node:path";
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { isAsked, isComplete, LEVEL_STEP_KEY, questionsFor, reachesEmergency, scoreAnswers, type SubmittedAnswers } from "@/lib/check-in-flow";
+import { isAsked, isComplete, LEVEL_STEP_KEY, questionsFor, reachesEmergency, scoreAnswers, type SubmittedAnswers } from "@/lib/shared/check-in-flow";
 import { TRIAGE_LEVELS, TRIAGE_RULES, triageCheckIn, type CheckInAnswers } from "@/lib/clinical";
 import { locales } from "@/lib/i18n/routing";
 import { palette } from "@/tailwind.config";

@@ -1,7 +1,7 @@
 // CSV cells: RFC 4180 quoting and OWASP's CSV-injection advice (prefix cells a spreadsheet would
 // read as a formula).
 import { describe, expect, it } from "vitest";
-import { csvCell, toCsv } from "@/lib/csv";
+import { csvCell, toCsv } from "@/lib/http/csv";
 
 describe("csvCell", () => {
   it("prefixes = + - @ tab and carriage return with a quote mark", () => {

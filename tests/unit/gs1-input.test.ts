@@ -1,7 +1,7 @@
 // The scan field's normaliser: every way a scanner or a person sends a GS1 element string
 // reaches parseGs1 in one form.
 import { describe, expect, it } from "vitest";
-import { GS, isGroupSeparatorKey, normaliseScan, readScan, showScan } from "@/lib/gs1-input";
+import { GS, isGroupSeparatorKey, normaliseScan, readScan, showScan } from "@/lib/browser/gs1-input";
 
 // Source: clinical-checks.md §7 (GS1 General Specifications worked element string):
 // 0109506000134352 17281100 10AB12 GS 21XYZ → GTIN 09506000134352, expiry 2028-11-30, lot AB12, serial XYZ.

@@ -4,7 +4,7 @@ import fs from "node:fs";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
 import { locales } from "@/lib/i18n/routing";
-import { LEARN_PAGES, type LearnSection } from "@/lib/learn";
+import { LEARN_PAGES, type LearnSection } from "@/lib/shared/learn";
 import { counts, grade, numberWords, splitSentences, wordSyllables } from "../support/readability";
 
 const load = (l: string) => JSON.parse(fs.readFileSync(path.resolve(__dirname, `../../messages/${l}.json`), "utf8"));

@@ -1,11 +1,11 @@
 import { db } from "@/db";
 import { addBagChange } from "@/db/queries/bag-changes";
-import { audit } from "@/lib/audit";
+import { audit } from "@/lib/records/audit";
 import { requirePortalPatient, requirePortalViewer } from "@/lib/auth/permissions";
 import { nextBagChange } from "@/lib/clinical";
-import { handle, json } from "@/lib/http";
-import { todayIso } from "@/lib/time-zone";
-import { parseJsonBody } from "@/lib/validate";
+import { handle, json } from "@/lib/http/handle";
+import { todayIso } from "@/lib/shared/time-zone";
+import { parseJsonBody } from "@/lib/http/validate";
 import { bagChangeSchema } from "@/lib/validations/diary";
 
 // "I changed my leg bag / valve today": stores today's date; the next change comes from lib/clinical.

@@ -1,8 +1,8 @@
 import { listCaseload } from "@/db/queries/caseload";
 import { requireRole } from "@/lib/auth/permissions";
-import { audit } from "@/lib/audit";
-import { handle, json } from "@/lib/http";
-import { parseInput, searchParamsObject } from "@/lib/validate";
+import { audit } from "@/lib/records/audit";
+import { handle, json } from "@/lib/http/handle";
+import { parseInput, searchParamsObject } from "@/lib/http/validate";
 import { caseloadQuerySchema } from "@/lib/validations/caseload";
 
 /** One page of the viewer's caseload: GET /api/caseload?page&pageSize&q&filter&sort&dir */

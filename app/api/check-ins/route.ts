@@ -1,7 +1,7 @@
 import { requirePortalPatient, requirePortalViewer } from "@/lib/auth/permissions";
-import { submitCheckIn } from "@/lib/check-ins";
-import { handle, json } from "@/lib/http";
-import { parseJsonBody } from "@/lib/validate";
+import { submitCheckIn } from "@/lib/portal/check-ins";
+import { handle, json } from "@/lib/http/handle";
+import { parseJsonBody } from "@/lib/http/validate";
 import { checkInSchema } from "@/lib/validations/check-in";
 
 // A check-in from the patient or a carer. 201 the first time; the same idempotency key again

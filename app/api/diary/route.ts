@@ -1,10 +1,10 @@
 import { db } from "@/db";
 import { addDiaryEntry, listDiaryEntries, toDiaryDto } from "@/db/queries/diary";
-import { audit } from "@/lib/audit";
+import { audit } from "@/lib/records/audit";
 import { requirePortalPatient, requirePortalViewer } from "@/lib/auth/permissions";
-import { AppError } from "@/lib/errors";
-import { handle, json } from "@/lib/http";
-import { parseInput, parseJsonBody, searchParamsObject } from "@/lib/validate";
+import { AppError } from "@/lib/http/errors";
+import { handle, json } from "@/lib/http/handle";
+import { parseInput, parseJsonBody, searchParamsObject } from "@/lib/http/validate";
 import { DIARY_BACKDATE_DAYS, diaryEntrySchema, diaryRangeSchema } from "@/lib/validations/diary";
 
 export const GET = handle(async (request) => {

@@ -1,9 +1,9 @@
 import { db } from "@/db";
 import { createPatient } from "@/db/queries/patients";
 import { requireRole } from "@/lib/auth/permissions";
-import { audit } from "@/lib/audit";
-import { handle, json } from "@/lib/http";
-import { parseJsonBody } from "@/lib/validate";
+import { audit } from "@/lib/records/audit";
+import { handle, json } from "@/lib/http/handle";
+import { parseJsonBody } from "@/lib/http/validate";
 import { patientSchema } from "@/lib/validations/patient";
 
 /** Registers a patient with one or more of the clinician's own organisations as care team. */

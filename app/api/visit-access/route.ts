@@ -1,13 +1,13 @@
 import { db } from "@/db";
 import { findPatientAccess } from "@/db/queries/access";
 import { grantVisitAccess } from "@/db/queries/passport-card";
-import { audit } from "@/lib/audit";
+import { audit } from "@/lib/records/audit";
 import { requireRole } from "@/lib/auth/permissions";
-import { AppError } from "@/lib/errors";
-import { handle, json } from "@/lib/http";
+import { AppError } from "@/lib/http/errors";
+import { handle, json } from "@/lib/http/handle";
 import { findPassport } from "@/lib/qr/device-card";
-import { LIMITS, limitByAddress } from "@/lib/rate-limit";
-import { parseJsonBody } from "@/lib/validate";
+import { LIMITS, limitByAddress } from "@/lib/http/rate-limit";
+import { parseJsonBody } from "@/lib/http/validate";
 import { visitAccessSchema } from "@/lib/validations/visit-access";
 
 export const VISIT_ACCESS_HOURS = 24;

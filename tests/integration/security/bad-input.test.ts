@@ -5,7 +5,7 @@
 // included: refusals are not audited). ASVS 2.2.1, 2.2.2, 5.2.1, 16.5.1.
 import fc from "fast-check";
 import { beforeAll, describe, expect, it, vi } from "vitest";
-import { errorStatus } from "@/lib/errors";
+import { errorStatus } from "@/lib/http/errors";
 import { changedTables, databaseTables, schemaTables, snapshot } from "../../support/db-snapshot";
 import { call, sessionFor } from "../../support/http";
 import { fillPattern, listRouteFiles, type Method } from "../../support/routes";
@@ -16,8 +16,8 @@ import { badBodies, overrides, schemaFieldNames, type BadBody, type BadInputOver
 // Watch the project's one body parser: whether a route reached it, and whether the route's own
 // schema accepted the body (then it was not bad input after all, and may be written).
 const parser = vi.hoisted(() => ({ calls: 0, accepted: 0 }));
-vi.mock("@/lib/validate", async (importOriginal) => {
-  const actual = await importOriginal<typeof import("@/lib/validate")>();
+vi.mock("@/lib/http/validate", async (importOriginal) => {
+  const actual = await importOriginal<typeof import("@/lib/http/validate")>();
   return {
     ...actual,
     parseJsonBody: async (...args: Parameters<typeof actual.parseJsonBody>) => {

@@ -2,7 +2,7 @@ import { getTranslations } from "next-intl/server";
 import { BookIcon } from "@/components/portal/nav-icons";
 import { requirePageRole } from "@/lib/auth/permissions";
 import { Link } from "@/lib/i18n/navigation";
-import { LEARN_PAGES } from "@/lib/learn";
+import { LEARN_PAGES } from "@/lib/shared/learn";
 
 export async function generateMetadata() {
   const t = await getTranslations("Learn");

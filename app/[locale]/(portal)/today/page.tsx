@@ -6,10 +6,10 @@ import { Card } from "@/components/ui/card";
 import { getLastBagChanges } from "@/db/queries/bag-changes";
 import { getTodaySummary } from "@/db/queries/portal";
 import { requirePageRole } from "@/lib/auth/permissions";
-import { LEVEL_STEP_KEY } from "@/lib/check-in-flow";
+import { LEVEL_STEP_KEY } from "@/lib/shared/check-in-flow";
 import { BAG_INTERVALS, bagSchedule, parseIsoDate } from "@/lib/clinical";
 import { Link } from "@/lib/i18n/navigation";
-import { todayIso } from "@/lib/time-zone";
+import { todayIso } from "@/lib/shared/time-zone";
 import { portalPatient, portalPatients, subjectName } from "@/lib/portal";
 
 export async function generateMetadata() {

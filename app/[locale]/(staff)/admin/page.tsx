@@ -7,7 +7,7 @@ import { Link } from "@/lib/i18n/navigation";
 
 // A phone number keeps its digit groups in order inside right-to-left text.
 const isolate = (s: string) => `\u2066${s}\u2069`;
-import { getSettings } from "@/lib/settings";
+import { getSettings } from "@/lib/config/settings";
 
 export async function generateMetadata() {
   const t = await getTranslations("Admin");

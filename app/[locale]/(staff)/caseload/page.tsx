@@ -2,7 +2,7 @@ import { headers } from "next/headers";
 import { getTranslations } from "next-intl/server";
 import { CaseloadView } from "@/components/caseload/caseload-view";
 import { listCaseload } from "@/db/queries/caseload";
-import { audit } from "@/lib/audit";
+import { audit } from "@/lib/records/audit";
 import { requirePageRole } from "@/lib/auth/permissions";
 import { Link } from "@/lib/i18n/navigation";
 import { caseloadQuerySchema } from "@/lib/validations/caseload";

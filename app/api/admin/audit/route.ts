@@ -1,7 +1,7 @@
 import { searchAudit } from "@/db/queries/audit-search";
 import { requireRole } from "@/lib/auth/permissions";
-import { handle, json } from "@/lib/http";
-import { parseInput, searchParamsObject } from "@/lib/validate";
+import { handle, json } from "@/lib/http/handle";
+import { parseInput, searchParamsObject } from "@/lib/http/validate";
 import { auditQuerySchema } from "@/lib/validations/audit";
 
 /**

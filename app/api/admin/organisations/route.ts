@@ -1,10 +1,10 @@
 import { insertOrganisation, listOrganisationsManagedBy } from "@/db/queries/organisations";
 import { db } from "@/db";
-import { audit } from "@/lib/audit";
+import { audit } from "@/lib/records/audit";
 import { requireRole } from "@/lib/auth/permissions";
-import { AppError, pgConstraint } from "@/lib/errors";
-import { handle, json } from "@/lib/http";
-import { parseJsonBody } from "@/lib/validate";
+import { AppError, pgConstraint } from "@/lib/http/errors";
+import { handle, json } from "@/lib/http/handle";
+import { parseJsonBody } from "@/lib/http/validate";
 import { organisationSchema } from "@/lib/validations/organisation";
 
 export const GET = handle(async (request) => {

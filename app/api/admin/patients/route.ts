@@ -1,7 +1,7 @@
 import { listPatientsForAdmin } from "@/db/queries/admin-patients";
 import { requireRole } from "@/lib/auth/permissions";
-import { handle, json } from "@/lib/http";
-import { parseInput, searchParamsObject } from "@/lib/validate";
+import { handle, json } from "@/lib/http/handle";
+import { parseInput, searchParamsObject } from "@/lib/http/validate";
 import { z } from "zod";
 
 const querySchema = z.object({ q: z.string().trim().max(120).optional() });

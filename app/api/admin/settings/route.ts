@@ -1,9 +1,9 @@
 import { db } from "@/db";
-import { audit } from "@/lib/audit";
+import { audit } from "@/lib/records/audit";
 import { requireRole } from "@/lib/auth/permissions";
-import { handle, json } from "@/lib/http";
-import { getSettings, updateSettings } from "@/lib/settings";
-import { parseJsonBody } from "@/lib/validate";
+import { handle, json } from "@/lib/http/handle";
+import { getSettings, updateSettings } from "@/lib/config/settings";
+import { parseJsonBody } from "@/lib/http/validate";
 import { settingsPatchSchema } from "@/lib/validations/settings";
 
 /** The deployment settings (one set for the whole deployment). */

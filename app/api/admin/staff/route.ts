@@ -1,6 +1,6 @@
 import { listPendingInvitations, listStaff } from "@/db/queries/staff";
 import { requireRole } from "@/lib/auth/permissions";
-import { handle, json } from "@/lib/http";
+import { handle, json } from "@/lib/http/handle";
 
 /** Staff of the admin's organisations, and the invitations still open. */
 export const GET = handle(async (request) => {

@@ -1,7 +1,7 @@
 import { getViewerFromHeaders } from "@/lib/auth/session";
-import { handle, json } from "@/lib/http";
-import { acceptCarerInvite, withCookies } from "@/lib/invitations";
-import { parseJsonBody } from "@/lib/validate";
+import { handle, json } from "@/lib/http/handle";
+import { acceptCarerInvite, withCookies } from "@/lib/portal/invitations";
+import { parseJsonBody } from "@/lib/http/validate";
 import { acceptCarerInviteSchema } from "@/lib/validations/invitations";
 
 // A carer accepts an invitation: signed in already, with the password of their carer account,

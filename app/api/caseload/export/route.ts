@@ -1,11 +1,11 @@
 import { createTranslator } from "next-intl";
 import { listCaseloadAll } from "@/db/queries/caseload";
 import { requireRole } from "@/lib/auth/permissions";
-import { audit } from "@/lib/audit";
-import { toCsv } from "@/lib/csv";
-import { handle } from "@/lib/http";
+import { audit } from "@/lib/records/audit";
+import { toCsv } from "@/lib/http/csv";
+import { handle } from "@/lib/http/handle";
 import { isLocale } from "@/lib/i18n/routing";
-import { parseInput, searchParamsObject } from "@/lib/validate";
+import { parseInput, searchParamsObject } from "@/lib/http/validate";
 import { caseloadViewSchema } from "@/lib/validations/caseload";
 
 /** The filtered caseload (no paging) as CSV: GET /api/caseload/export?q&filter&sort&dir&locale */

@@ -1,9 +1,9 @@
 import { db } from "@/db";
 import { canRemove, deleteDiaryEntry, getDiaryEntry } from "@/db/queries/diary";
-import { audit } from "@/lib/audit";
+import { audit } from "@/lib/records/audit";
 import { isUuid, requirePortalPatient, requirePortalViewer } from "@/lib/auth/permissions";
-import { AppError } from "@/lib/errors";
-import { handle } from "@/lib/http";
+import { AppError } from "@/lib/http/errors";
+import { handle } from "@/lib/http/handle";
 
 // Only the person who added an entry removes it, and only within 24 hours: the diary the care
 // team reads is not rewritten later.

@@ -1,10 +1,10 @@
 import { db } from "@/db";
 import { getPatientRecord, updatePatient } from "@/db/queries/patients";
 import { requireRole, requireStaffPatientAccess } from "@/lib/auth/permissions";
-import { AppError } from "@/lib/errors";
-import { handle, json } from "@/lib/http";
-import { openPatientRecord } from "@/lib/patient-record";
-import { parseJsonBody } from "@/lib/validate";
+import { AppError } from "@/lib/http/errors";
+import { handle, json } from "@/lib/http/handle";
+import { openPatientRecord } from "@/lib/records/patient-record";
+import { parseJsonBody } from "@/lib/http/validate";
 import { patientUpdateSchema } from "@/lib/validations/patient";
 
 type Ctx = { params: Promise<{ patientId: string }> };

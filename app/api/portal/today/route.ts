@@ -1,6 +1,6 @@
 import { getTodaySummary } from "@/db/queries/portal";
 import { requireRole } from "@/lib/auth/permissions";
-import { handle, json } from "@/lib/http";
+import { handle, json } from "@/lib/http/handle";
 
 export const GET = handle(async (request) => {
   const viewer = await requireRole(request, "patient", "carer");

@@ -1,7 +1,7 @@
 import { acceptInvitation } from "@/lib/admin/staff";
-import { handle, json } from "@/lib/http";
+import { handle, json } from "@/lib/http/handle";
 import { isLocale } from "@/lib/i18n/routing";
-import { parseJsonBody } from "@/lib/validate";
+import { parseJsonBody } from "@/lib/http/validate";
 import { acceptInviteSchema } from "@/lib/validations/staff";
 
 /**

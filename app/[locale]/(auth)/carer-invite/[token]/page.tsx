@@ -3,7 +3,7 @@ import { CarerInviteForm } from "@/components/auth/carer-invite-form";
 import { Card } from "@/components/ui/card";
 import { getViewer } from "@/lib/auth/session";
 import { Link } from "@/lib/i18n/navigation";
-import { viewCarerInvite } from "@/lib/invitations";
+import { viewCarerInvite } from "@/lib/portal/invitations";
 
 // The token is the secret in this address: keep it out of Referer headers and caches.
 export async function generateMetadata({ params }: { params: Promise<{ locale: "en" }> }) {

@@ -4,7 +4,7 @@ import { SafetyNotice } from "@/components/portal/call-buttons";
 import { getHelpContacts } from "@/db/queries/contacts";
 import { requirePageRole } from "@/lib/auth/permissions";
 import { Link } from "@/lib/i18n/navigation";
-import { LEARN_PAGES, learnPage, type LearnSection } from "@/lib/learn";
+import { LEARN_PAGES, learnPage, type LearnSection } from "@/lib/shared/learn";
 import { portalPatient } from "@/lib/portal";
 
 export function generateStaticParams() {

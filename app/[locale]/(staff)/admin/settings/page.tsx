@@ -1,7 +1,7 @@
 import { getTranslations } from "next-intl/server";
 import { SettingsForm } from "@/components/admin/settings-form";
 import { requirePageRole } from "@/lib/auth/permissions";
-import { getSettings } from "@/lib/settings";
+import { getSettings } from "@/lib/config/settings";
 
 export async function generateMetadata() {
   const t = await getTranslations("AdminSettings");

@@ -4,8 +4,8 @@ import type { ReactNode } from "react";
 import { AllergyBox } from "@/components/patient-record/allergy-box";
 import { RecordTabs } from "@/components/patient-record/record-tabs";
 import { getPatientRecord } from "@/db/queries/patients";
-import { checkRecordAccess } from "@/lib/patient-record-page";
-import { ageOn } from "@/lib/time-zone";
+import { checkRecordAccess } from "@/lib/records/patient-record-page";
+import { ageOn } from "@/lib/shared/time-zone";
 
 export default async function PatientRecordLayout({ children, params }: { children: ReactNode; params: Promise<{ locale: string; patientId: string }> }) {
   const { locale, patientId } = await params;

@@ -8,8 +8,8 @@ import { Card } from "@/components/ui/card";
 import { getPatientRecord, listGpPracticeDirectory } from "@/db/queries/patients";
 import { PLAN_DEFAULTS, charriereToMm, parseIsoDate, stateFor } from "@/lib/clinical";
 import { Link } from "@/lib/i18n/navigation";
-import { openRecordPage } from "@/lib/patient-record-page";
-import { todayIso } from "@/lib/time-zone";
+import { openRecordPage } from "@/lib/records/patient-record-page";
+import { todayIso } from "@/lib/shared/time-zone";
 
 export async function generateMetadata() {
   const t = await getTranslations("PatientRecord.tabs");

@@ -1,10 +1,10 @@
 import { db } from "@/db";
 import { searchAudit } from "@/db/queries/audit-search";
-import { audit } from "@/lib/audit";
+import { audit } from "@/lib/records/audit";
 import { requireRole } from "@/lib/auth/permissions";
-import { toCsv } from "@/lib/csv";
-import { handle } from "@/lib/http";
-import { parseInput, searchParamsObject } from "@/lib/validate";
+import { toCsv } from "@/lib/http/csv";
+import { handle } from "@/lib/http/handle";
+import { parseInput, searchParamsObject } from "@/lib/http/validate";
 import { auditQuerySchema } from "@/lib/validations/audit";
 
 const EXPORT_LIMIT = 10_000;

@@ -1,10 +1,10 @@
 import { db } from "@/db";
 import { getManagedOrganisation, updateOrganisation } from "@/db/queries/organisations";
-import { audit } from "@/lib/audit";
+import { audit } from "@/lib/records/audit";
 import { isUuid, requireRole } from "@/lib/auth/permissions";
-import { AppError, pgConstraint } from "@/lib/errors";
-import { handle, json } from "@/lib/http";
-import { parseJsonBody } from "@/lib/validate";
+import { AppError, pgConstraint } from "@/lib/http/errors";
+import { handle, json } from "@/lib/http/handle";
+import { parseJsonBody } from "@/lib/http/validate";
 import { organisationPatchSchema } from "@/lib/validations/organisation";
 
 type Ctx = { params: Promise<{ organisationId: string }> };

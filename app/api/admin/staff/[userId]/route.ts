@@ -1,9 +1,9 @@
 import { getStaffMember } from "@/db/queries/staff";
 import { updateStaff } from "@/lib/admin/staff";
 import { requireRole } from "@/lib/auth/permissions";
-import { AppError } from "@/lib/errors";
-import { handle, json } from "@/lib/http";
-import { parseJsonBody } from "@/lib/validate";
+import { AppError } from "@/lib/http/errors";
+import { handle, json } from "@/lib/http/handle";
+import { parseJsonBody } from "@/lib/http/validate";
 import { updateStaffSchema } from "@/lib/validations/staff";
 
 type Ctx = { params: Promise<{ userId: string }> };

@@ -1,7 +1,7 @@
 import { inviteStaff } from "@/lib/admin/staff";
 import { requireRole } from "@/lib/auth/permissions";
-import { handle, json } from "@/lib/http";
-import { parseJsonBody } from "@/lib/validate";
+import { handle, json } from "@/lib/http/handle";
+import { parseJsonBody } from "@/lib/http/validate";
 import { inviteStaffSchema } from "@/lib/validations/staff";
 
 /** Invites a new member of staff: a link valid for 72 hours, to one or more of the admin's organisations. */

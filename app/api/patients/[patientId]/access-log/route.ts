@@ -1,9 +1,9 @@
 import { listAccessLog } from "@/db/queries/audit-log";
 import { requireRole } from "@/lib/auth/permissions";
-import { AppError } from "@/lib/errors";
-import { handle, json } from "@/lib/http";
-import { openPatientRecord } from "@/lib/patient-record";
-import { parseInput, searchParamsObject } from "@/lib/validate";
+import { AppError } from "@/lib/http/errors";
+import { handle, json } from "@/lib/http/handle";
+import { openPatientRecord } from "@/lib/records/patient-record";
+import { parseInput, searchParamsObject } from "@/lib/http/validate";
 import { pageQuerySchema } from "@/lib/validations/caseload";
 
 type Ctx = { params: Promise<{ patientId: string }> };

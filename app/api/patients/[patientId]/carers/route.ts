@@ -1,9 +1,9 @@
 import { getPatientForInvite } from "@/db/queries/invitations";
 import { requireCarerManager, requireUser } from "@/lib/auth/permissions";
-import { AppError } from "@/lib/errors";
-import { handle, json } from "@/lib/http";
-import { inviteCarer } from "@/lib/invitations";
-import { parseJsonBody } from "@/lib/validate";
+import { AppError } from "@/lib/http/errors";
+import { handle, json } from "@/lib/http/handle";
+import { inviteCarer } from "@/lib/portal/invitations";
+import { parseJsonBody } from "@/lib/http/validate";
 import { carerInviteSchema } from "@/lib/validations/invitations";
 
 export const POST = handle<{ params: Promise<{ patientId: string }> }>(async (request, { params }) => {

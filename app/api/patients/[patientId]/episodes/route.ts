@@ -1,6 +1,6 @@
-import { openEpisodeRequest, type PatientRouteContext } from "@/lib/episode-route";
-import { recordInsertion } from "@/lib/episodes";
-import { handle, json } from "@/lib/http";
+import { openEpisodeRequest, type PatientRouteContext } from "@/lib/records/episode-route";
+import { recordInsertion } from "@/lib/records/episodes";
+import { handle, json } from "@/lib/http/handle";
 import { insertionSchema } from "@/lib/validations/episode";
 
 /** Record an insertion when no catheter is in place. */

@@ -1,10 +1,10 @@
 import { exportPatientData } from "@/db/queries/patient-export";
-import { audit } from "@/lib/audit";
+import { audit } from "@/lib/records/audit";
 import { assertRole, isUuid, requireAdminOfPatient, requirePatientAccess, requireUser } from "@/lib/auth/permissions";
-import { AppError } from "@/lib/errors";
+import { AppError } from "@/lib/http/errors";
 import { patientFhirBundle } from "@/lib/fhir/bundle";
-import { handle, json } from "@/lib/http";
-import { parseInput, searchParamsObject } from "@/lib/validate";
+import { handle, json } from "@/lib/http/handle";
+import { parseInput, searchParamsObject } from "@/lib/http/validate";
 import { exportRequestSchema } from "@/lib/validations/admin-patient";
 
 /**

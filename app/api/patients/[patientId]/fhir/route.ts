@@ -1,7 +1,7 @@
 import { requireRole } from "@/lib/auth/permissions";
 import { patientFhirBundle } from "@/lib/fhir/bundle";
-import { handle } from "@/lib/http";
-import { openPatientRecord } from "@/lib/patient-record";
+import { handle } from "@/lib/http/handle";
+import { openPatientRecord } from "@/lib/records/patient-record";
 
 type Ctx = { params: Promise<{ patientId: string }> };
 

@@ -1,7 +1,7 @@
 import { getPatientHistory } from "@/db/queries/history";
 import { requireRole } from "@/lib/auth/permissions";
-import { handle, json } from "@/lib/http";
-import { openPatientRecord } from "@/lib/patient-record";
+import { handle, json } from "@/lib/http/handle";
+import { openPatientRecord } from "@/lib/records/patient-record";
 
 type Ctx = { params: Promise<{ patientId: string }> };
 

@@ -1,8 +1,8 @@
 import { requireRole, requireStaffPatientAccess } from "@/lib/auth/permissions";
-import { AppError } from "@/lib/errors";
-import { handle, json } from "@/lib/http";
-import { createPatientInvite } from "@/lib/invitations";
-import { parseJsonBody } from "@/lib/validate";
+import { AppError } from "@/lib/http/errors";
+import { handle, json } from "@/lib/http/handle";
+import { createPatientInvite } from "@/lib/portal/invitations";
+import { parseJsonBody } from "@/lib/http/validate";
 import { patientInviteSchema } from "@/lib/validations/invitations";
 
 // A care-team clinician makes a one-time activation code for the patient's portal account.

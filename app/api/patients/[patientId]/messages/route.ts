@@ -1,7 +1,7 @@
 import { listPatientMessages } from "@/db/queries/outbox";
 import { requireUser } from "@/lib/auth/permissions";
-import { handle, json } from "@/lib/http";
-import { openPatientRecord } from "@/lib/patient-record";
+import { handle, json } from "@/lib/http/handle";
+import { openPatientRecord } from "@/lib/records/patient-record";
 
 type Ctx = { params: Promise<{ patientId: string }> };
 

@@ -1,10 +1,10 @@
 import { getCurrentPassport, getPassportOverview } from "@/db/queries/passports";
 import { requireRole, requireStaffPatientAccess } from "@/lib/auth/permissions";
-import { AppError } from "@/lib/errors";
-import { handle, json } from "@/lib/http";
+import { AppError } from "@/lib/http/errors";
+import { handle, json } from "@/lib/http/handle";
 import { issuePassport } from "@/lib/passport";
-import { openPatientRecord } from "@/lib/patient-record";
-import { parseJsonBody } from "@/lib/validate";
+import { openPatientRecord } from "@/lib/records/patient-record";
+import { parseJsonBody } from "@/lib/http/validate";
 import { passportIssueSchema } from "@/lib/validations/passport";
 
 type Ctx = { params: Promise<{ patientId: string }> };

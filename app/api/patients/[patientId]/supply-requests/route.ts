@@ -2,13 +2,13 @@ import { db } from "@/db";
 import { getMessageById } from "@/db/queries/outbox";
 import { getSupplyContext, insertSupplyRequest, listSupplyRequests, setSupplyRequestMessage } from "@/db/queries/supply-requests";
 import { requireStaffPatientAccess, requireUser } from "@/lib/auth/permissions";
-import { audit } from "@/lib/audit";
+import { audit } from "@/lib/records/audit";
 import { suppliesFor } from "@/lib/clinical";
 import { queueSupplyRequestEmail } from "@/lib/email/supply-request";
-import { AppError } from "@/lib/errors";
-import { handle, json } from "@/lib/http";
-import { openPatientRecord } from "@/lib/patient-record";
-import { parseJsonBody } from "@/lib/validate";
+import { AppError } from "@/lib/http/errors";
+import { handle, json } from "@/lib/http/handle";
+import { openPatientRecord } from "@/lib/records/patient-record";
+import { parseJsonBody } from "@/lib/http/validate";
 import { supplyRequestSchema } from "@/lib/validations/supply-request";
 
 type Ctx = { params: Promise<{ patientId: string }> };

@@ -1,9 +1,9 @@
 import { listUploads } from "@/db/queries/uploads";
 import { requireRole, requireUser } from "@/lib/auth/permissions";
-import { handle, json } from "@/lib/http";
-import { openPatientRecord } from "@/lib/patient-record";
-import { createUpload, requireUploadAccess } from "@/lib/uploads";
-import { parseJsonBody } from "@/lib/validate";
+import { handle, json } from "@/lib/http/handle";
+import { openPatientRecord } from "@/lib/records/patient-record";
+import { createUpload, requireUploadAccess } from "@/lib/records/uploads";
+import { parseJsonBody } from "@/lib/http/validate";
 import { uploadCreateSchema } from "@/lib/validations/upload";
 
 type Ctx = { params: Promise<{ patientId: string }> };

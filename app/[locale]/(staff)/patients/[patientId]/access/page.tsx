@@ -2,7 +2,7 @@ import { forbidden } from "next/navigation";
 import { getFormatter, getTranslations } from "next-intl/server";
 import { listAccessLog } from "@/db/queries/audit-log";
 import { Link } from "@/lib/i18n/navigation";
-import { openRecordPage } from "@/lib/patient-record-page";
+import { openRecordPage } from "@/lib/records/patient-record-page";
 import { pageQuerySchema } from "@/lib/validations/caseload";
 
 export async function generateMetadata() {

@@ -2,7 +2,7 @@ import { getFormatter, getTranslations } from "next-intl/server";
 import { LevelBadge } from "@/components/caseload/level-badge";
 import { Card } from "@/components/ui/card";
 import { listDiaryDays, listRecentCheckIns } from "@/db/queries/check-in-review";
-import { openRecordPage } from "@/lib/patient-record-page";
+import { openRecordPage } from "@/lib/records/patient-record-page";
 
 export async function generateMetadata() {
   const t = await getTranslations("PatientRecord.tabs");

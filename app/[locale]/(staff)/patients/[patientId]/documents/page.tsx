@@ -1,7 +1,7 @@
 import { getTranslations } from "next-intl/server";
 import { UploadsPanel } from "@/components/uploads/uploads-panel";
 import { listUploads } from "@/db/queries/uploads";
-import { openRecordPage } from "@/lib/patient-record-page";
+import { openRecordPage } from "@/lib/records/patient-record-page";
 
 export async function generateMetadata() {
   const t = await getTranslations("Documents");

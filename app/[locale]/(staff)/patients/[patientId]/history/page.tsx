@@ -1,7 +1,7 @@
 import { getFormatter, getTranslations } from "next-intl/server";
 import { Card } from "@/components/ui/card";
 import { getPatientHistory, type HistoryEpisode, type HistoryEvent } from "@/db/queries/history";
-import { openRecordPage } from "@/lib/patient-record-page";
+import { openRecordPage } from "@/lib/records/patient-record-page";
 
 export async function generateMetadata() {
   const t = await getTranslations("PatientRecord.tabs");

@@ -6,7 +6,7 @@ import { getPatientForMail } from "@/db/queries/mail-context";
 import { listPatientMessages } from "@/db/queries/outbox";
 import { NO_RECIPIENT } from "@/lib/email/outbox";
 import { Link } from "@/lib/i18n/navigation";
-import { openRecordPage } from "@/lib/patient-record-page";
+import { openRecordPage } from "@/lib/records/patient-record-page";
 
 const kinds = ["gp-summary", "supply-request", "care-team-alert", "digest", "portal-invite", "carer-invite"] as const;
 

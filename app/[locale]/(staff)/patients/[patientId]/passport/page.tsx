@@ -5,7 +5,7 @@ import { getPatientForInvite } from "@/db/queries/invitations";
 import { getPassportOverview } from "@/db/queries/passports";
 import { getPatientRecord } from "@/db/queries/patients";
 import { passportLanguages } from "@/lib/passport";
-import { openRecordPage } from "@/lib/patient-record-page";
+import { openRecordPage } from "@/lib/records/patient-record-page";
 
 export async function generateMetadata() {
   const t = await getTranslations("Passport");

@@ -4,7 +4,7 @@ import { StatusBadge } from "@/components/letters/status-badge";
 import { SupplyRequestForm } from "@/components/supplies/supply-request-form";
 import { getSupplyContext, listSupplyRequests } from "@/db/queries/supply-requests";
 import { Link } from "@/lib/i18n/navigation";
-import { openRecordPage } from "@/lib/patient-record-page";
+import { openRecordPage } from "@/lib/records/patient-record-page";
 
 export async function generateMetadata() {
   const t = await getTranslations("Supplies");

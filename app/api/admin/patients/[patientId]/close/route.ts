@@ -1,11 +1,11 @@
 import { db } from "@/db";
 import { closePatient, lockPatient } from "@/db/queries/admin-patients";
-import { audit } from "@/lib/audit";
+import { audit } from "@/lib/records/audit";
 import { requireAdminOfPatient, requireRole } from "@/lib/auth/permissions";
-import { AppError } from "@/lib/errors";
-import { handle, json } from "@/lib/http";
-import { getSettings } from "@/lib/settings";
-import { parseJsonBody } from "@/lib/validate";
+import { AppError } from "@/lib/http/errors";
+import { handle, json } from "@/lib/http/handle";
+import { getSettings } from "@/lib/config/settings";
+import { parseJsonBody } from "@/lib/http/validate";
 import { closeRecordSchema } from "@/lib/validations/admin-patient";
 
 /**

@@ -1,6 +1,6 @@
 import { reactivateStaff } from "@/lib/admin/staff";
 import { requireRole } from "@/lib/auth/permissions";
-import { handle, json } from "@/lib/http";
+import { handle, json } from "@/lib/http/handle";
 
 export const POST = handle<{ params: Promise<{ userId: string }> }>(async (request, { params }) => {
   const viewer = await requireRole(request, "admin");

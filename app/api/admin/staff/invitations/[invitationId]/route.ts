@@ -1,7 +1,7 @@
 import { withdrawInvitation } from "@/lib/admin/staff";
 import { isUuid, requireRole } from "@/lib/auth/permissions";
-import { AppError } from "@/lib/errors";
-import { handle, json } from "@/lib/http";
+import { AppError } from "@/lib/http/errors";
+import { handle, json } from "@/lib/http/handle";
 
 /** Withdraws an open invitation; its link stops working at once. */
 export const DELETE = handle<{ params: Promise<{ invitationId: string }> }>(async (request, { params }) => {

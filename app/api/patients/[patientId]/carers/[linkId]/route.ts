@@ -1,7 +1,7 @@
 import { isUuid, requireCarerManager, requireUser } from "@/lib/auth/permissions";
-import { AppError } from "@/lib/errors";
-import { handle } from "@/lib/http";
-import { removeCarer } from "@/lib/invitations";
+import { AppError } from "@/lib/http/errors";
+import { handle } from "@/lib/http/handle";
+import { removeCarer } from "@/lib/portal/invitations";
 
 // Removing a carer takes effect at once: access is checked against the active link on every request.
 export const DELETE = handle<{ params: Promise<{ patientId: string; linkId: string }> }>(async (request, { params }) => {

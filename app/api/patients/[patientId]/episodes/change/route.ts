@@ -1,6 +1,6 @@
-import { openEpisodeRequest, type PatientRouteContext } from "@/lib/episode-route";
-import { recordChange } from "@/lib/episodes";
-import { handle, json } from "@/lib/http";
+import { openEpisodeRequest, type PatientRouteContext } from "@/lib/records/episode-route";
+import { recordChange } from "@/lib/records/episodes";
+import { handle, json } from "@/lib/http/handle";
 import { changeSchema } from "@/lib/validations/episode";
 
 /** End the catheter in place and start the new one, in one transaction. */

@@ -1,6 +1,6 @@
-import { openEpisodeRequest, type PatientRouteContext } from "@/lib/episode-route";
-import { checkDraft } from "@/lib/episodes";
-import { handle, json } from "@/lib/http";
+import { openEpisodeRequest, type PatientRouteContext } from "@/lib/records/episode-route";
+import { checkDraft } from "@/lib/records/episodes";
+import { handle, json } from "@/lib/http/handle";
 import { deviceCheckSchema } from "@/lib/validations/episode";
 
 /** The device-check findings for a draft; writes nothing but the audit event of the look-up. */

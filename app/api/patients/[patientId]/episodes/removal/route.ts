@@ -1,6 +1,6 @@
-import { openEpisodeRequest, type PatientRouteContext } from "@/lib/episode-route";
-import { recordRemoval } from "@/lib/episodes";
-import { handle, json } from "@/lib/http";
+import { openEpisodeRequest, type PatientRouteContext } from "@/lib/records/episode-route";
+import { recordRemoval } from "@/lib/records/episodes";
+import { handle, json } from "@/lib/http/handle";
 import { removalSchema } from "@/lib/validations/episode";
 
 /** Record the removal of the catheter in place (optionally starting a trial without catheter). */

@@ -1,6 +1,6 @@
-import { openEpisodeRequest, type PatientRouteContext } from "@/lib/episode-route";
-import { recordTwoc } from "@/lib/episodes";
-import { handle, json } from "@/lib/http";
+import { openEpisodeRequest, type PatientRouteContext } from "@/lib/records/episode-route";
+import { recordTwoc } from "@/lib/records/episodes";
+import { handle, json } from "@/lib/http/handle";
 import { twocSchema } from "@/lib/validations/episode";
 
 /** Record the outcome of a trial without catheter. */

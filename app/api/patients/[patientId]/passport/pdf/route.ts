@@ -1,11 +1,11 @@
 import { getCurrentPassport } from "@/db/queries/passports";
-import { audit } from "@/lib/audit";
+import { audit } from "@/lib/records/audit";
 import { requireRole, requireStaffPatientAccess } from "@/lib/auth/permissions";
-import { AppError } from "@/lib/errors";
-import { handle } from "@/lib/http";
+import { AppError } from "@/lib/http/errors";
+import { handle } from "@/lib/http/handle";
 import { passportPdfKey } from "@/lib/passport";
 import { getObjectStream } from "@/lib/storage";
-import { dayIn } from "@/lib/time-zone";
+import { dayIn } from "@/lib/shared/time-zone";
 
 type Ctx = { params: Promise<{ patientId: string }> };
 

@@ -1,7 +1,7 @@
 import { isUuid, requireRole, requireStaffPatientAccess } from "@/lib/auth/permissions";
-import { AppError } from "@/lib/errors";
-import { handle } from "@/lib/http";
-import { removeUpload } from "@/lib/uploads";
+import { AppError } from "@/lib/http/errors";
+import { handle } from "@/lib/http/handle";
+import { removeUpload } from "@/lib/records/uploads";
 
 type Ctx = { params: Promise<{ patientId: string; uploadId: string }> };
 

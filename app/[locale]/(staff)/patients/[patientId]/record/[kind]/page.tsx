@@ -7,9 +7,9 @@ import { buttonClass } from "@/components/ui/button";
 import { getRecordingContext, type EpisodeDto } from "@/db/queries/episodes";
 import { blockagePattern, type EndReason } from "@/lib/clinical";
 import { Link } from "@/lib/i18n/navigation";
-import { openRecordPage } from "@/lib/patient-record-page";
+import { openRecordPage } from "@/lib/records/patient-record-page";
 import { RECORD_KINDS, type RecordKind } from "@/lib/validations/episode";
-import { dayIn, deploymentTimeZone } from "@/lib/time-zone";
+import { dayIn, deploymentTimeZone } from "@/lib/shared/time-zone";
 
 type Params = { locale: string; patientId: string; kind: string };
 

@@ -5,7 +5,7 @@ import { VisitForm } from "@/components/visit-form/visit-form";
 import { getRecordingContext } from "@/db/queries/episodes";
 import { listObservations } from "@/db/queries/observations";
 import { Link } from "@/lib/i18n/navigation";
-import { openRecordPage } from "@/lib/patient-record-page";
+import { openRecordPage } from "@/lib/records/patient-record-page";
 
 type Params = { locale: string; patientId: string };
 

@@ -1,10 +1,10 @@
 import { db } from "@/db";
 import { getMessageById, getPatientMessage, toMessageDto } from "@/db/queries/outbox";
 import { isUuid, requireStaffPatientAccess, requireUser } from "@/lib/auth/permissions";
-import { audit } from "@/lib/audit";
+import { audit } from "@/lib/records/audit";
 import { resendMessage } from "@/lib/email/resend";
-import { AppError } from "@/lib/errors";
-import { handle, json } from "@/lib/http";
+import { AppError } from "@/lib/http/errors";
+import { handle, json } from "@/lib/http/handle";
 
 type Ctx = { params: Promise<{ patientId: string; messageId: string }> };
 

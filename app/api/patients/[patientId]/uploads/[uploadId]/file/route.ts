@@ -1,11 +1,11 @@
 import { getUploadRow } from "@/db/queries/uploads";
-import { audit } from "@/lib/audit";
+import { audit } from "@/lib/records/audit";
 import { isUuid, requireRole, requireStaffPatientAccess } from "@/lib/auth/permissions";
-import { AppError } from "@/lib/errors";
-import { handle } from "@/lib/http";
+import { AppError } from "@/lib/http/errors";
+import { handle } from "@/lib/http/handle";
 import { getObjectStream } from "@/lib/storage";
-import { dayIn } from "@/lib/time-zone";
-import { downloadName } from "@/lib/uploads";
+import { dayIn } from "@/lib/shared/time-zone";
+import { downloadName } from "@/lib/records/uploads";
 
 type Ctx = { params: Promise<{ patientId: string; uploadId: string }> };
 

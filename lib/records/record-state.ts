@@ -4,7 +4,7 @@ import "server-only";
 import { eq } from "drizzle-orm";
 import type { Executor } from "@/db";
 import { patients } from "@/db/schema";
-import { AppError } from "./errors";
+import { AppError } from "@/lib/http/errors";
 
 /**
  * Throws 409 `record_closed` when the patient's record is closed (404 when there is no such

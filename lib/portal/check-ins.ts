@@ -7,11 +7,11 @@ import { getActiveRoute, getCheckInByKey, insertCheckIn, setLatestCheckIn, toChe
 import { db, type Executor } from "@/db";
 import type { PatientAccessVia } from "@/db/queries/access";
 import { TRIAGE_RULES, type TriageLevel } from "@/lib/clinical";
-import { scoreAnswers, type SubmittedAnswers } from "./check-in-flow";
-import { audit } from "./audit";
-import { queueCareTeamAlert } from "./email/care-team-alert";
-import type { Viewer } from "./auth/session";
-import { AppError } from "./errors";
+import { scoreAnswers, type SubmittedAnswers } from "@/lib/shared/check-in-flow";
+import { audit } from "@/lib/records/audit";
+import { queueCareTeamAlert } from "@/lib/email/care-team-alert";
+import type { Viewer } from "@/lib/auth/session";
+import { AppError } from "@/lib/http/errors";
 
 const ANSWERED_AT_PAST_DAYS = 7;
 const ANSWERED_AT_FUTURE_MINUTES = 10;

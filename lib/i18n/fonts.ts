@@ -5,8 +5,8 @@ import localFont from "next/font/local";
 // (Polish and Romanian letters); the browser falls through the stack glyph by glyph.
 export const latin = localFont({
   src: [
-    { path: "../fonts/atkinson-hyperlegible/atkinson-hyperlegible-latin-400-normal.woff2", weight: "400" },
-    { path: "../fonts/atkinson-hyperlegible/atkinson-hyperlegible-latin-700-normal.woff2", weight: "700" },
+    { path: "../../fonts/atkinson-hyperlegible/atkinson-hyperlegible-latin-400-normal.woff2", weight: "400" },
+    { path: "../../fonts/atkinson-hyperlegible/atkinson-hyperlegible-latin-700-normal.woff2", weight: "700" },
   ],
   variable: "--font-latin",
   display: "swap",
@@ -15,8 +15,8 @@ export const latin = localFont({
 
 export const latinExt = localFont({
   src: [
-    { path: "../fonts/atkinson-hyperlegible/atkinson-hyperlegible-latin-ext-400-normal.woff2", weight: "400" },
-    { path: "../fonts/atkinson-hyperlegible/atkinson-hyperlegible-latin-ext-700-normal.woff2", weight: "700" },
+    { path: "../../fonts/atkinson-hyperlegible/atkinson-hyperlegible-latin-ext-400-normal.woff2", weight: "400" },
+    { path: "../../fonts/atkinson-hyperlegible/atkinson-hyperlegible-latin-ext-700-normal.woff2", weight: "700" },
   ],
   variable: "--font-latin-ext",
   display: "swap",
@@ -25,8 +25,8 @@ export const latinExt = localFont({
 
 export const arabic = localFont({
   src: [
-    { path: "../fonts/noto-sans-arabic/noto-sans-arabic-arabic-400-normal.woff2", weight: "400" },
-    { path: "../fonts/noto-sans-arabic/noto-sans-arabic-arabic-700-normal.woff2", weight: "700" },
+    { path: "../../fonts/noto-sans-arabic/noto-sans-arabic-arabic-400-normal.woff2", weight: "400" },
+    { path: "../../fonts/noto-sans-arabic/noto-sans-arabic-arabic-700-normal.woff2", weight: "700" },
   ],
   variable: "--font-arabic",
   display: "swap",

@@ -2,9 +2,9 @@ import "server-only";
 // Opening a patient's record as staff: the access check and the audit event together, so no
 // view or change of a record can skip either (architecture.md, access rules).
 import type { Executor } from "@/db";
-import { audit } from "./audit";
-import { requireStaffPatientAccess } from "./auth/permissions";
-import type { Viewer } from "./auth/session";
+import { audit } from "@/lib/records/audit";
+import { requireStaffPatientAccess } from "@/lib/auth/permissions";
+import type { Viewer } from "@/lib/auth/session";
 
 export async function openPatientRecord(
   {

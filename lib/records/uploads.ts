@@ -9,10 +9,10 @@ import { db } from "@/db";
 import { getUploadRow, insertUpload, markUploadRemoved, setUploadStatus, uploadDto, type UploadDto } from "@/db/queries/uploads";
 import type { PatientAccessVia } from "@/db/queries/access";
 import type { Upload } from "@/db/schema";
-import { audit } from "@/lib/audit";
+import { audit } from "@/lib/records/audit";
 import { requirePatientAccess, requireStaffPatientAccess } from "@/lib/auth/permissions";
 import type { Viewer } from "@/lib/auth/session";
-import { AppError } from "@/lib/errors";
+import { AppError } from "@/lib/http/errors";
 import { deleteObject, getObjectHead, headObject, presignPut } from "@/lib/storage";
 import { isAcceptedContentType, MAX_UPLOAD_BYTES, type UploadCreateValues } from "@/lib/validations/upload";
 

@@ -7,10 +7,10 @@ import { eq } from "drizzle-orm";
 import { db } from "@/db";
 import { twoFactorRequiredFor } from "@/db/queries/access";
 import { account, rateLimit, session, twoFactor, user, verification } from "@/db/schema";
-import { sendPasswordReset } from "./admin/mail";
-import { audit } from "./audit";
-import { hashPassword, PASSWORD_MIN_LENGTH, passwordProblem, verifyPassword } from "./auth/password";
-import { authSecret, env } from "./env";
+import { sendPasswordReset } from "@/lib/admin/mail";
+import { audit } from "@/lib/records/audit";
+import { hashPassword, PASSWORD_MIN_LENGTH, passwordProblem, verifyPassword } from "@/lib/auth/password";
+import { authSecret, env } from "@/lib/config/env";
 
 const trustedProxies = (process.env.TRUSTED_PROXIES ?? "").split(",").map((s) => s.trim()).filter(Boolean);
 

@@ -6,8 +6,8 @@ import "server-only";
 // so nobody can lock a patient out of their account by guessing from elsewhere (ASVS 6.1.1, 2.4.1).
 import { sql } from "drizzle-orm";
 import { db, type Executor } from "@/db";
-import { clientIp, hashIp } from "./client-ip";
-import { AppError } from "./errors";
+import { clientIp, hashIp } from "@/lib/http/client-ip";
+import { AppError } from "@/lib/http/errors";
 
 export type LimitRule = { name: string; max: number; windowSeconds: number };
 

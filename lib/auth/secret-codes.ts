@@ -2,7 +2,7 @@ import "server-only";
 // Secrets handed to people: activation codes (typed by hand) and carer-invitation tokens (in a
 // link). Both from the CSPRNG; only keyed hashes are stored, never the values.
 import { createHash, createHmac, randomBytes, randomInt } from "node:crypto";
-import { authSecret } from "./env";
+import { authSecret } from "@/lib/config/env";
 
 // No 0/O, 1/I/L or U/V confusion: 30 symbols that read back unambiguously.
 export const CODE_ALPHABET = "23456789ABCDEFGHJKMNPQRSTVWXYZ";

@@ -1,7 +1,7 @@
 // The one zod helper for route handlers and server actions: parse or throw a 400 with every
 // field error (not only the first).
 import type { z } from "zod";
-import { AppError } from "./errors";
+import { AppError } from "@/lib/http/errors";
 
 export function parseInput<S extends z.ZodType>(schema: S, data: unknown): z.infer<S> {
   const result = schema.safeParse(data);

@@ -17,14 +17,14 @@ import {
   revokeCarerLink,
   revokeLivePatientInvites,
 } from "@/db/queries/invitations";
-import { audit } from "./audit";
-import { queueCarerInvitation, queuePatientInvitation } from "./email/patient-mail";
-import { auth } from "./auth";
-import { hashPassword, passwordProblem } from "./auth/password";
-import type { Viewer } from "./auth/session";
-import { env } from "./env";
-import { AppError } from "./errors";
-import { LIMITS, limitByAddress } from "./rate-limit";
+import { audit } from "@/lib/records/audit";
+import { queueCarerInvitation, queuePatientInvitation } from "@/lib/email/patient-mail";
+import { auth } from "@/lib/auth";
+import { hashPassword, passwordProblem } from "@/lib/auth/password";
+import type { Viewer } from "@/lib/auth/session";
+import { env } from "@/lib/config/env";
+import { AppError } from "@/lib/http/errors";
+import { LIMITS, limitByAddress } from "@/lib/http/rate-limit";
 import {
   ACTIVATION_DAYS,
   CARER_INVITE_DAYS,
@@ -32,7 +32,7 @@ import {
   hashInviteToken,
   newActivationCode,
   newInviteToken,
-} from "./secret-codes";
+} from "@/lib/auth/secret-codes";
 
 const DAY = 86_400_000;
 

@@ -3,8 +3,8 @@ import "server-only";
 // transaction as the change they describe; the client address is kept only as a keyed hash.
 import { db, type Executor } from "@/db";
 import { auditEvents, type NewAuditEvent } from "@/db/schema";
-import type { Viewer } from "./auth/session";
-import { clientIp, hashIp } from "./client-ip";
+import type { Viewer } from "@/lib/auth/session";
+import { clientIp, hashIp } from "@/lib/http/client-ip";
 
 export type AuditInput = {
   action: string;

@@ -5,7 +5,7 @@ import "server-only";
 import { eq, inArray } from "drizzle-orm";
 import { db } from "@/db";
 import { patients } from "@/db/schema";
-import type { Viewer } from "./auth/session";
+import type { Viewer } from "@/lib/auth/session";
 
 export type PortalPatient = { id: string; givenName: string; familyName: string; weightKg: number | null; fluidLimitMl: number | null };
 

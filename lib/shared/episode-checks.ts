@@ -11,7 +11,7 @@ import {
   type Patient,
 } from "@/lib/clinical";
 import { OVERRIDE_MIN_CHARS } from "@/lib/validations/episode";
-import { dayIn } from "@/lib/time-zone";
+import { dayIn } from "@/lib/shared/time-zone";
 
 export type DeviceDraft = {
   route?: unknown;

@@ -1,8 +1,8 @@
 import "server-only";
 // Route handler wrapper: one error shape, no-store by default, and a same-origin check on every
 // state-changing request (route handlers get no CSRF check of their own; ASVS 3.5.1).
-import { AppError, toAppError } from "./errors";
-import { env } from "./env";
+import { AppError, toAppError } from "@/lib/http/errors";
+import { env } from "@/lib/config/env";
 
 type Handler<C> = (request: Request, context: C) => Promise<Response>;
 

@@ -1,5 +1,5 @@
 // Values for <input type="datetime-local">, which speaks the browser's own zone. Calendar days
-// in the deployment's zone are lib/time-zone.ts.
+// in the deployment's zone are lib/shared/time-zone.ts.
 
 /** "YYYY-MM-DDTHH:mm" for a datetime-local input, in the browser's own zone. */
 export function toLocalInputValue(iso: string | undefined): string {

@@ -9,8 +9,8 @@ import { insertObservation, toObservationDto, type ObservationDto } from "@/db/q
 import type { Viewer } from "@/lib/auth/session";
 import { ClinicalInputError, scoreNews2 } from "@/lib/clinical";
 import { isAlertLevel, queueCareTeamAlert } from "@/lib/email/care-team-alert";
-import { AppError } from "@/lib/errors";
-import { openPatientRecord } from "@/lib/patient-record";
+import { AppError } from "@/lib/http/errors";
+import { openPatientRecord } from "@/lib/records/patient-record";
 import type { ObservationsInput, VisitInput } from "@/lib/validations/visit";
 
 type Ctx = { viewer: Viewer; patientId: string; request: Request };

@@ -5,9 +5,9 @@ import "server-only";
 import { headers } from "next/headers";
 import { notFound } from "next/navigation";
 import { cache } from "react";
-import { requirePageRole, requireStaffPatientAccess } from "./auth/permissions";
-import { AppError } from "./errors";
-import { openPatientRecord } from "./patient-record";
+import { requirePageRole, requireStaffPatientAccess } from "@/lib/auth/permissions";
+import { AppError } from "@/lib/http/errors";
+import { openPatientRecord } from "@/lib/records/patient-record";
 
 function notFoundOn(error: unknown): never {
   if (error instanceof AppError && error.code === "not_found") notFound();

@@ -2,7 +2,7 @@
 // Behind a load balancer that overwrites CLIENT_IP_HEADER, its value is the client; on loopback
 // alone there is no header and the connection is local.
 import { createHmac } from "node:crypto";
-import { env } from "./env";
+import { env } from "@/lib/config/env";
 
 export function clientIp(headers: Headers): string {
   const name = env.CLIENT_IP_HEADER.trim().toLowerCase();

@@ -20,11 +20,11 @@ import {
 import type { CatheterEpisode, NewCatheterEpisode } from "@/db/schema";
 import type { Viewer } from "@/lib/auth/session";
 import { planDates, type Finding } from "@/lib/clinical";
-import { reconcileOverrides, runDeviceCheck } from "@/lib/episode-checks";
-import { AppError } from "@/lib/errors";
-import { openPatientRecord } from "@/lib/patient-record";
+import { reconcileOverrides, runDeviceCheck } from "@/lib/shared/episode-checks";
+import { AppError } from "@/lib/http/errors";
+import { openPatientRecord } from "@/lib/records/patient-record";
 import type { ChangeInput, DeviceCheckInput, InsertionInput, RemovalInput, TwocInput } from "@/lib/validations/episode";
-import { dayIn, deploymentTimeZone } from "@/lib/time-zone";
+import { dayIn, deploymentTimeZone } from "@/lib/shared/time-zone";
 
 type Ctx = { viewer: Viewer; patientId: string; request: Request };
 

@@ -4,7 +4,7 @@ import "server-only";
 // then the body (400). Nothing is read from the body before access is settled.
 import type { z } from "zod";
 import { requireRole, requireStaffPatientAccess } from "@/lib/auth/permissions";
-import { parseJsonBody } from "@/lib/validate";
+import { parseJsonBody } from "@/lib/http/validate";
 
 export type PatientRouteContext = { params: Promise<{ patientId: string }> };
 

@@ -1,0 +1,109 @@
+// Patients, their care team, carers and portal invitation codes.
+import { sql } from "drizzle-orm";
+import { boolean, check, date, index, integer, numeric, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { user } from "./auth";
+import { timestamps } from "./columns";
+import { organisations } from "./organisations";
+
+export const sexes = ["female", "male", "other", "unknown"] as const;
+
+export const patients = pgTable(
+  "patients",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    // The patient's own sign-in, once activated.
+    userId: text("user_id")
+      .unique()
+      .references(() => user.id, { onDelete: "set null" }),
+    givenName: text("given_name").notNull(),
+    familyName: text("family_name").notNull(),
+    healthRecordNumber: text("health_record_number").notNull(),
+    dateOfBirth: date("date_of_birth").notNull(),
+    sex: text("sex", { enum: sexes }).notNull(),
+    preferredLocale: text("preferred_locale").notNull().default("en"),
+    weightKg: numeric("weight_kg", { precision: 5, scale: 1, mode: "number" }),
+    phone: text("phone"),
+    allergyLatex: boolean("allergy_latex").notNull().default(false),
+    allergyChlorhexidine: boolean("allergy_chlorhexidine").notNull().default(false),
+    allergyLidocaine: boolean("allergy_lidocaine").notNull().default(false),
+    allergyOther: text("allergy_other"),
+    gpPracticeId: uuid("gp_practice_id").references(() => organisations.id, { onDelete: "set null" }),
+    // Set by the care team; when present the portal gives no drink-more advice.
+    fluidLimitMl: integer("fluid_limit_ml"),
+    // Latest check-in level, kept here so the caseload needs no per-row lookup.
+    latestCheckInLevel: text("latest_check_in_level", { enum: ["emergency", "urgent", "soon", "self-care"] }),
+    latestCheckInAt: timestamp("latest_check_in_at", { withTimezone: true }),
+    closedAt: timestamp("closed_at", { withTimezone: true }),
+    ...timestamps,
+  },
+  (t) => [
+    uniqueIndex("patients_hrn_uq").on(t.healthRecordNumber),
+    index("patients_family_name_idx").on(sql`lower(${t.familyName})`),
+    index("patients_gp_idx").on(t.gpPracticeId),
+    check("patients_weight_ck", sql`${t.weightKg} is null or (${t.weightKg} > 0 and ${t.weightKg} < 500)`),
+    check("patients_fluid_limit_ck", sql`${t.fluidLimitMl} is null or ${t.fluidLimitMl} > 0`),
+  ],
+);
+
+export const careTeam = pgTable(
+  "care_team",
+  {
+    patientId: uuid("patient_id")
+      .notNull()
+      .references(() => patients.id, { onDelete: "cascade" }),
+    organisationId: uuid("organisation_id")
+      .notNull()
+      .references(() => organisations.id, { onDelete: "cascade" }),
+    ...timestamps,
+  },
+  (t) => [primaryKey({ columns: [t.patientId, t.organisationId] }), index("care_team_org_idx").on(t.organisationId, t.patientId)],
+);
+
+export const carerLinks = pgTable(
+  "carer_links",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    patientId: uuid("patient_id")
+      .notNull()
+      .references(() => patients.id, { onDelete: "cascade" }),
+    carerUserId: text("carer_user_id").references(() => user.id, { onDelete: "cascade" }),
+    invitedEmail: text("invited_email").notNull(),
+    invitedByUserId: text("invited_by_user_id").references(() => user.id, { onDelete: "set null" }),
+    inviteTokenHash: text("invite_token_hash").unique(),
+    inviteExpiresAt: timestamp("invite_expires_at", { withTimezone: true }),
+    status: text("status", { enum: ["pending", "active", "revoked"] }).notNull().default("pending"),
+    acceptedAt: timestamp("accepted_at", { withTimezone: true }),
+    revokedAt: timestamp("revoked_at", { withTimezone: true }),
+    ...timestamps,
+  },
+  (t) => [index("carer_links_patient_idx").on(t.patientId), index("carer_links_carer_idx").on(t.carerUserId, t.status)],
+);
+
+// One-time codes a clinician gives a patient to open their portal account. Only an HMAC of the
+// code is kept; a code is used once, expires, and a newer code for the same patient revokes it.
+export const patientInvites = pgTable(
+  "patient_invites",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    patientId: uuid("patient_id")
+      .notNull()
+      .references(() => patients.id, { onDelete: "cascade" }),
+    codeHash: text("code_hash").notNull().unique(),
+    // When given, the patient must activate with this address.
+    email: text("email"),
+    createdByUserId: text("created_by_user_id").references(() => user.id, { onDelete: "set null" }),
+    expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
+    usedAt: timestamp("used_at", { withTimezone: true }),
+    revokedAt: timestamp("revoked_at", { withTimezone: true }),
+    ...timestamps,
+  },
+  (t) => [
+    index("patient_invites_patient_idx").on(t.patientId),
+    uniqueIndex("patient_invites_one_live_uq").on(t.patientId).where(sql`${t.usedAt} is null and ${t.revokedAt} is null`),
+  ],
+);
+
+export type Patient = typeof patients.$inferSelect;
+export type NewPatient = typeof patients.$inferInsert;
+export type CarerLink = typeof carerLinks.$inferSelect;
+export type PatientInvite = typeof patientInvites.$inferSelect;

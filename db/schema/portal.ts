@@ -1,0 +1,76 @@
+// What patients and carers record: check-ins, diary entries and uploads.
+import { sql } from "drizzle-orm";
+import { check, index, integer, jsonb, pgTable, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import { user } from "./auth";
+import { timestamps } from "./columns";
+import { patients } from "./patients";
+
+export const checkInLevels = ["emergency", "urgent", "soon", "self-care"] as const;
+
+export const checkIns = pgTable(
+  "check_ins",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    patientId: uuid("patient_id")
+      .notNull()
+      .references(() => patients.id, { onDelete: "cascade" }),
+    reportedByUserId: text("reported_by_user_id").references(() => user.id, { onDelete: "set null" }),
+    answers: jsonb("answers").$type<Record<string, unknown>>().notNull(),
+    level: text("level", { enum: checkInLevels }).notNull(),
+    ruleIds: text("rule_ids").array().notNull(),
+    idempotencyKey: text("idempotency_key").notNull().unique(),
+    // When the person answered, as the phone tells it (an offline check-in arrives later).
+    answeredAt: timestamp("answered_at", { withTimezone: true }),
+    reviewedAt: timestamp("reviewed_at", { withTimezone: true }),
+    reviewedByUserId: text("reviewed_by_user_id").references(() => user.id, { onDelete: "set null" }),
+    ...timestamps,
+  },
+  (t) => [index("check_ins_patient_idx").on(t.patientId, t.createdAt)],
+);
+
+export const diaryEntries = pgTable(
+  "diary_entries",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    patientId: uuid("patient_id")
+      .notNull()
+      .references(() => patients.id, { onDelete: "cascade" }),
+    kind: text("kind", { enum: ["in", "out"] }).notNull(),
+    volumeMl: integer("volume_ml").notNull(),
+    at: timestamp("at", { withTimezone: true }).notNull(),
+    recordedByUserId: text("recorded_by_user_id").references(() => user.id, { onDelete: "set null" }),
+    ...timestamps,
+  },
+  (t) => [
+    index("diary_patient_at_idx").on(t.patientId, t.at),
+    check("diary_volume_ck", sql`${t.volumeMl} > 0 and ${t.volumeMl} <= 5000`),
+  ],
+);
+
+export const uploads = pgTable(
+  "uploads",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    patientId: uuid("patient_id")
+      .notNull()
+      .references(() => patients.id, { onDelete: "cascade" }),
+    uploadedByUserId: text("uploaded_by_user_id").references(() => user.id, { onDelete: "set null" }),
+    category: text("category", { enum: ["packaging-label", "discharge-letter", "site-photo", "other"] }).notNull(),
+    // Server-chosen key; the user's file name is kept only as a label.
+    objectKey: text("object_key").notNull().unique(),
+    label: text("label").notNull(),
+    contentType: text("content_type"),
+    sizeBytes: integer("size_bytes"),
+    // "removed": a care-team clinician took it off the record; the bytes are deleted from the store.
+    status: text("status", { enum: ["pending", "ready", "rejected", "removed"] }).notNull().default("pending"),
+    ...timestamps,
+  },
+  (t) => [
+    index("uploads_patient_idx").on(t.patientId, t.createdAt),
+    check("uploads_size_ck", sql`${t.sizeBytes} is null or ${t.sizeBytes} > 0`),
+  ],
+);
+
+export type CheckIn = typeof checkIns.$inferSelect;
+export type DiaryEntry = typeof diaryEntries.$inferSelect;
+export type Upload = typeof uploads.$inferSelect;
