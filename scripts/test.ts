@@ -3,7 +3,8 @@
  *   1. unit tests (vitest, with the lib/clinical coverage gate)
  *   2. integration tests on a fresh PostgreSQL database with migrations and the demo seed
  *   3. end-to-end tests in Debian's chromium against the production build of the app
- * `npm test -- unit|integration|e2e` runs one stage. The test database is dropped at the end.
+ * `npm test -- unit|integration|e2e` runs one stage; file filters after the stage narrow it
+ * (`npm test -- e2e tests/e2e/passport.test.ts`). The test database is dropped at the end.
  */
 import { spawn, spawnSync } from "node:child_process";
 import path from "node:path";
@@ -14,6 +15,8 @@ import { defaults, dropDatabase, ensureDatabase, portOpen, servicesUp } from "./
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
 const bin = (name: string) => path.join(root, "node_modules/.bin", name);
 const stage = process.argv[2] ?? "all";
+// Anything after the stage goes to vitest as file filters (one stage only).
+const filters = stage === "all" ? [] : process.argv.slice(3);
 const started = Date.now();
 
 function run(cmd: string, args: string[], env: NodeJS.ProcessEnv, label: string) {
@@ -45,7 +48,7 @@ async function main() {
     ok = run(bin("tsc"), ["--noEmit", "-p", "tsconfig.json"], base, "type check (app, scripts and tests)") && ok;
   }
   if (stage === "all" || stage === "unit") {
-    ok = run(bin("vitest"), ["run", "--project", "unit", ...(stage === "all" ? ["--coverage"] : [])], { ...base, NODE_ENV: "test" }, "unit tests") && ok;
+    ok = run(bin("vitest"), ["run", "--project", "unit", ...(stage === "all" ? ["--coverage"] : []), ...filters], { ...base, NODE_ENV: "test" }, "unit tests") && ok;
   }
   if (stage === "unit") return ok;
 
@@ -68,7 +71,7 @@ async function main() {
     if (!run(bin("tsx"), ["db/seed.ts"], env, "demo seed")) return false;
 
     if (stage === "all" || stage === "integration") {
-      ok = run(bin("vitest"), ["run", "--project", "integration"], { ...env, NODE_ENV: "test" }, "integration tests") && ok;
+      ok = run(bin("vitest"), ["run", "--project", "integration", ...filters], { ...env, NODE_ENV: "test" }, "integration tests") && ok;
     }
     if (stage === "all" || stage === "e2e") {
       ensureTools();
@@ -91,7 +94,7 @@ async function main() {
         ok =
           run(
             bin("vitest"),
-            ["run", "--project", "e2e"],
+            ["run", "--project", "e2e", ...filters],
             // The second-instance test starts another server with the same settings.
             { ...env, NODE_ENV: "test", E2E_BASE_URL: appUrl, E2E_APP_SECRET: appEnv.BETTER_AUTH_SECRET },
             "end-to-end tests",
