@@ -53,6 +53,8 @@ async function main() {
   if (stage === "unit") return ok;
 
   await servicesUp();
+  // The integration stage renders PDFs with pdftoppm too, not only the browser stage.
+  ensureTools();
   const dbName = `caddis_test_${process.pid}_${Date.now().toString(36)}`;
   const dbUrl = new URL(defaults.databaseUrl);
   dbUrl.pathname = `/${dbName}`;
@@ -74,7 +76,6 @@ async function main() {
       ok = run(bin("vitest"), ["run", "--project", "integration", ...filters], { ...env, NODE_ENV: "test" }, "integration tests") && ok;
     }
     if (stage === "all" || stage === "e2e") {
-      ensureTools();
       const port = Number(process.env.E2E_PORT ?? 3100);
       if (await portOpen(port)) throw new Error(`port ${port} is busy; set E2E_PORT`);
       const appUrl = `http://localhost:${port}`;
