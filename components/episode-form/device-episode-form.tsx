@@ -5,9 +5,16 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useFormatter, useTranslations } from "next-intl";
 import { useEffect, useRef, useState } from "react";
-import { Controller, get, useForm, type FieldPath, type Resolver } from "react-hook-form";
+import { useForm, type Resolver } from "react-hook-form";
 import type { z } from "zod";
 import { Button } from "@/components/ui/button";
+import { Checkbox, RadioGroup } from "@/components/ui/choice";
+import { DateTimeField } from "@/components/ui/date-time-field";
+import { Field, SelectField, TextArea } from "@/components/ui/field";
+import { ErrorAlert } from "@/components/ui/notice";
+import { Section } from "@/components/ui/section";
+import { useSubmitFailure } from "@/components/ui/use-error-text";
+import { apiFetch, isApiError, setServerFieldErrors } from "@/lib/browser/api-client";
 import {
   CATHETER_TYPES,
   charriereToMm,
@@ -23,13 +30,10 @@ import {
 } from "@/lib/clinical";
 import { reconcileOverrides, runDeviceCheck, type PatientFacts } from "@/lib/shared/episode-checks";
 import { useRouter } from "@/lib/i18n/navigation";
-import { changeSchema, EPISODE_ERROR_KEYS, insertionSchema, UNPLANNED_REASONS } from "@/lib/validations/episode";
-import { fromLocalInputValue, toLocalInputValue } from "@/lib/browser/datetime-input";
+import { changeSchema, insertionSchema, UNPLANNED_REASONS } from "@/lib/validations/episode";
 import { dayIn } from "@/lib/shared/time-zone";
-import { Checkbox, RadioGroup, Section, Select, TextArea, TextInput } from "./controls";
 import { FindingsPanel } from "./findings-panel";
 import { ScanField, type ScanFill } from "./scan-field";
-import { isApiError, useRecord } from "./use-record";
 
 type Values = z.input<typeof changeSchema>;
 
@@ -110,7 +114,6 @@ export function DeviceEpisodeForm({
   blockage: BlockageHint;
 }) {
   const t = useTranslations("EpisodeForm");
-  const tErrors = useTranslations("Errors");
   const format = useFormatter();
   const router = useRouter();
   const schema = mode === "change" ? changeSchema : insertionSchema;
@@ -121,7 +124,7 @@ export function DeviceEpisodeForm({
     watch,
     setValue,
     setError,
-    formState: { errors },
+    formState: { errors, isSubmitting },
   } = useForm<Values>({
     resolver: zodResolver(schema as typeof changeSchema) as unknown as Resolver<Values>,
     defaultValues: defaults(previous),
@@ -129,10 +132,9 @@ export function DeviceEpisodeForm({
   });
   const [overrides, setOverrides] = useState<Record<string, string>>({});
   const [overrideErrors, setOverrideErrors] = useState<string[]>([]);
-  const [formError, setFormError] = useState<string | null>(null);
+  const failure = useSubmitFailure("EpisodeForm");
   const dwellEdited = useRef(Boolean(previous?.maxDwellDays));
   const url = `/api/patients/${patientId}/episodes${mode === "change" ? "/change" : ""}`;
-  const mutation = useRecord<{ episode: { id: string } }>(url);
 
   const draft = watch();
   const insertedAt = typeof draft.insertedAt === "string" && draft.insertedAt ? new Date(draft.insertedAt) : new Date();
@@ -161,14 +163,7 @@ export function DeviceEpisodeForm({
   }
 
   const dateOnly = (iso: string) => format.dateTime(new Date(`${iso}T12:00:00Z`), { dateStyle: "medium", timeZone: "UTC" });
-  const msg = (key: unknown) =>
-    typeof key === "string" && (EPISODE_ERROR_KEYS as readonly string[]).includes(key)
-      ? t(`errors.${key as (typeof EPISODE_ERROR_KEYS)[number]}`)
-      : t("errors.invalid");
-  const err = (name: FieldPath<Values>) => {
-    const e = get(errors, name) as { message?: string } | undefined;
-    return e ? [msg(e.message)] : undefined;
-  };
+  const err = (name: string) => failure.text.at(errors, name);
 
   const onScan = (fill: ScanFill) => {
     const opts = { shouldValidate: true, shouldDirty: true } as const;
@@ -190,36 +185,28 @@ export function DeviceEpisodeForm({
   // Invalid fields and missing override reasons are shown together, not one after the other.
   const onInvalid = () => {
     setOverrideErrors(overrideCheck(draft, checkAt).missing);
-    setFormError(tErrors("validation_failed"));
+    failure.show(failure.text.one("validation_failed"));
   };
 
   const onSubmit = handleSubmit(async (values) => {
-    setFormError(null);
+    failure.clear();
     const { missing, kept } = overrideCheck(values, new Date(values.insertedAt as string));
     setOverrideErrors(missing);
     if (missing.length) {
       document.querySelector<HTMLTextAreaElement>(`[data-testid="override-${missing[0]}"]`)?.focus();
-      setFormError(t("errors.override_required"));
+      failure.show(t("errors.override_required"));
       return;
     }
     try {
-      await mutation.mutateAsync({ ...values, overrides: kept });
+      await apiFetch(url, { method: "POST", body: { ...values, overrides: kept } });
       router.push(`/patients/${patientId}`);
       router.refresh();
     } catch (e) {
-      if (!isApiError(e)) {
-        setFormError(tErrors("internal"));
-        return;
-      }
-      const stopCodes: string[] = [];
-      for (const [field, messages] of Object.entries(e.fields)) {
-        if (field.startsWith("overrides.") && messages.includes("override_required")) stopCodes.push(field.slice("overrides.".length));
-        else setError(field as FieldPath<Values>, { type: "server", message: messages[0] });
-      }
-      setOverrideErrors(stopCodes);
-      setFormError(
-        e.code === "conflict" ? t(mode === "change" ? "conflict.change" : "conflict.insertion") : tErrors(e.code as "internal"),
-      );
+      // A stop finding the server found without its reason goes to that finding's box.
+      const fields = isApiError(e) ? Object.keys(e.fields) : [];
+      setServerFieldErrors(e, setError, fields.filter((f) => !f.startsWith("overrides.")));
+      setOverrideErrors(isApiError(e) ? fields.filter((f) => f.startsWith("overrides.") && e.fields[f].includes("override_required")).map((f) => f.slice("overrides.".length)) : []);
+      failure.fail(e, (error) => (error.code === "conflict" ? t(mode === "change" ? "conflict.change" : "conflict.insertion") : null));
     }
   }, onInvalid);
 
@@ -264,7 +251,7 @@ export function DeviceEpisodeForm({
             />
             {draft.changeKind === "unplanned" ? (
               <>
-                <Select
+                <SelectField
                   label={t("change.reason")}
                   placeholder={t("choose")}
                   options={options(UNPLANNED_REASONS, "unplannedReason")}
@@ -296,15 +283,15 @@ export function DeviceEpisodeForm({
             inputProps={register("catheterType")}
             errors={err("catheterType")}
           />
-          <Select label={t("field.material")} placeholder={t("choose")} options={options(MATERIALS, "material")} {...register("material")} errors={err("material")} />
-          <Select
+          <SelectField label={t("field.material")} placeholder={t("choose")} options={options(MATERIALS, "material")} {...register("material")} errors={err("material")} />
+          <SelectField
             label={t("field.lengthCategory")}
             placeholder={t("choose")}
             options={options(LENGTH_CATEGORIES, "lengthCategory")}
             {...register("lengthCategory")}
             errors={err("lengthCategory")}
           />
-          <TextInput
+          <Field
             label={t("field.sizeCh")}
             unit={t("unit.ch")}
             inputMode="numeric"
@@ -313,8 +300,8 @@ export function DeviceEpisodeForm({
             {...register("sizeCh")}
             errors={err("sizeCh")}
           />
-          <TextInput label={t("field.balloonMl")} unit={t("unit.ml")} inputMode="numeric" hint={t("hint.balloon")} {...register("balloonMl")} errors={err("balloonMl")} />
-          <TextInput label={t("field.makerBalloonMl")} unit={t("unit.ml")} inputMode="numeric" hint={t("hint.makerBalloon")} {...register("makerBalloonMl")} errors={err("makerBalloonMl")} />
+          <Field label={t("field.balloonMl")} unit={t("unit.ml")} inputMode="numeric" hint={t("hint.balloon")} {...register("balloonMl")} errors={err("balloonMl")} />
+          <Field label={t("field.makerBalloonMl")} unit={t("unit.ml")} inputMode="numeric" hint={t("hint.makerBalloon")} {...register("makerBalloonMl")} errors={err("makerBalloonMl")} />
           {sizeCh > routineMax || draft.largerSizeReason ? (
             <TextArea
               label={t("field.largerSizeReason", { max: routineMax })}
@@ -327,41 +314,24 @@ export function DeviceEpisodeForm({
 
         <Section title={t("section.packaging")}>
           <ScanField today={today} onRead={onScan} />
-          <TextInput label={t("field.maker")} autoComplete="off" {...register("maker")} errors={err("maker")} />
-          <TextInput label={t("field.productName")} autoComplete="off" {...register("productName")} errors={err("productName")} />
-          <TextInput label={t("field.lot")} autoComplete="off" dir="ltr" {...register("lot")} errors={err("lot")} data-testid="field-lot" />
-          <TextInput label={t("field.expiry")} type="date" {...register("expiry")} errors={err("expiry")} data-testid="field-expiry" />
-          <TextInput label={t("field.gtin")} inputMode="numeric" dir="ltr" {...register("gtin")} errors={err("gtin")} data-testid="field-gtin" />
-          <TextInput label={t("field.serial")} autoComplete="off" dir="ltr" {...register("serial")} errors={err("serial")} data-testid="field-serial" />
+          <Field label={t("field.maker")} autoComplete="off" {...register("maker")} errors={err("maker")} />
+          <Field label={t("field.productName")} autoComplete="off" {...register("productName")} errors={err("productName")} />
+          <Field label={t("field.lot")} autoComplete="off" dir="ltr" {...register("lot")} errors={err("lot")} data-testid="field-lot" />
+          <Field label={t("field.expiry")} type="date" {...register("expiry")} errors={err("expiry")} data-testid="field-expiry" />
+          <Field label={t("field.gtin")} inputMode="numeric" dir="ltr" {...register("gtin")} errors={err("gtin")} data-testid="field-gtin" />
+          <Field label={t("field.serial")} autoComplete="off" dir="ltr" {...register("serial")} errors={err("serial")} data-testid="field-serial" />
           <input type="hidden" {...register("udi")} />
         </Section>
 
         <Section title={t("section.insertion")}>
           <TextArea className="sm:col-span-2" label={t("field.indication")} {...register("indication")} errors={err("indication")} />
-          <Controller
-            control={control}
-            name="insertedAt"
-            render={({ field }) => (
-              <TextInput
-                label={t(mode === "change" ? "field.changedAt" : "field.insertedAt")}
-                type="datetime-local"
-                max={toLocalInputValue(new Date().toISOString())}
-                value={toLocalInputValue(field.value as string)}
-                onChange={(e) => field.onChange(fromLocalInputValue(e.target.value))}
-                onBlur={field.onBlur}
-                name={field.name}
-                ref={field.ref}
-                errors={err("insertedAt")}
-                data-testid="field-inserted-at"
-              />
-            )}
-          />
+          <DateTimeField control={control} name="insertedAt" label={t(mode === "change" ? "field.changedAt" : "field.insertedAt")} errors={err("insertedAt")} testId="field-inserted-at" />
           <div className="flex flex-col gap-1">
             <p className="font-bold">{t("field.insertedBy")}</p>
             <p className="flex min-h-12 items-center">{clinicianName}</p>
           </div>
-          <Select label={t("field.gelKind")} placeholder={t("choose")} options={options(GEL_KINDS, "gelKind")} {...register("gelKind")} errors={err("gelKind")} />
-          <TextInput
+          <SelectField label={t("field.gelKind")} placeholder={t("choose")} options={options(GEL_KINDS, "gelKind")} {...register("gelKind")} errors={err("gelKind")} />
+          <Field
             label={t("field.gelVolumeMl")}
             unit={t("unit.ml")}
             inputMode="decimal"
@@ -370,19 +340,19 @@ export function DeviceEpisodeForm({
             {...register("gelVolumeMl")}
             errors={err("gelVolumeMl")}
           />
-          <TextInput label={t("field.attempts")} inputMode="numeric" {...register("attempts")} errors={err("attempts")} />
+          <Field label={t("field.attempts")} inputMode="numeric" {...register("attempts")} errors={err("attempts")} />
           <TextArea label={t("field.difficulties")} {...register("difficulties")} errors={err("difficulties")} />
           <TextArea label={t("field.patientReaction")} {...register("patientReaction")} errors={err("patientReaction")} />
         </Section>
 
         <Section title={t("section.urine")}>
-          <TextInput label={t("field.residualUrineMl")} unit={t("unit.ml")} inputMode="numeric" {...register("residualUrineMl")} errors={err("residualUrineMl")} />
-          <TextInput label={t("field.urineDescription")} hint={t("hint.urine")} {...register("urineDescription")} errors={err("urineDescription")} />
+          <Field label={t("field.residualUrineMl")} unit={t("unit.ml")} inputMode="numeric" {...register("residualUrineMl")} errors={err("residualUrineMl")} />
+          <Field label={t("field.urineDescription")} hint={t("hint.urine")} {...register("urineDescription")} errors={err("urineDescription")} />
           <Checkbox label={t("field.specimenTaken")} {...register("specimenTaken")} />
         </Section>
 
         <Section title={t("section.plan")}>
-          <TextInput
+          <Field
             label={t("field.maxDwellDays")}
             unit={t("unit.days")}
             inputMode="numeric"
@@ -391,7 +361,7 @@ export function DeviceEpisodeForm({
             errors={err("maxDwellDays")}
             data-testid="field-max-dwell"
           />
-          <TextInput
+          <Field
             label={t("field.reviewIntervalDays")}
             unit={t("unit.days")}
             inputMode="numeric"
@@ -428,13 +398,9 @@ export function DeviceEpisodeForm({
           overrideErrors={overrideErrors}
           formatDate={dateOnly}
         />
-        {formError ? (
-          <p role="alert" className="rounded-lg border-2 border-level-emergency bg-level-emergency-soft p-3 font-bold text-level-emergency-ink" data-testid="form-error">
-            {formError}
-          </p>
-        ) : null}
-        <Button type="submit" disabled={mutation.isPending} className="w-full text-lg" data-testid="save">
-          {mutation.isPending ? t("saving") : t(mode === "change" ? "save.change" : "save.insertion")}
+        <ErrorAlert message={failure.message} />
+        <Button type="submit" disabled={isSubmitting} className="w-full text-lg" data-testid="save">
+          {isSubmitting ? t("saving") : t(mode === "change" ? "save.change" : "save.insertion")}
         </Button>
       </div>
     </form>

@@ -30,4 +30,4 @@ export async function verifyPassword({ hash, password }: { hash: string; passwor
 }
 
 // The rules live apart so client forms can check them without loading node:crypto.
-export { PASSWORD_MIN_LENGTH, passwordProblem } from "./password-rules";
+export { PASSWORD_MAX_LENGTH, PASSWORD_MIN_LENGTH, passwordProblem } from "./password-rules";

@@ -55,7 +55,7 @@ function clientNamespacesFrom(entries: string[]): Map<string, Set<string>> {
     seen.add(key);
     if (client) {
       const text = source(path);
-      for (const match of text.matchAll(/use(?:Translations|ErrorText)\(\s*["']([A-Za-z]+)/g)) {
+      for (const match of text.matchAll(/use(?:Translations|ErrorText|SubmitFailure)\(\s*["']([A-Za-z]+)/g)) {
         const namespace = match[1]!;
         if (!used.has(namespace)) used.set(namespace, new Set());
         used.get(namespace)!.add(relative(root, path));
