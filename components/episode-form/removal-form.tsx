@@ -14,6 +14,7 @@ import { useSubmitFailure } from "@/components/ui/use-error-text";
 import { apiFetch } from "@/lib/browser/api-client";
 import { useRouter } from "@/lib/i18n/navigation";
 import { REMOVAL_REASONS, removalSchema } from "@/lib/validations/episode";
+import { useEpisodeOptions } from "./fieldsets/options";
 
 type Values = z.input<typeof removalSchema>;
 
@@ -23,6 +24,7 @@ export function RemovalForm({ patientId, current }: { patientId: string; current
   const t = useTranslations("EpisodeForm");
   const format = useFormatter();
   const router = useRouter();
+  const options = useEpisodeOptions();
   const {
     register,
     handleSubmit,
@@ -70,7 +72,7 @@ export function RemovalForm({ patientId, current }: { patientId: string; current
         <SelectField
           label={t("field.removalReason")}
           placeholder={t("choose")}
-          options={REMOVAL_REASONS.map((r) => ({ value: r, label: t(`option.removalReason.${r}`) }))}
+          options={options(REMOVAL_REASONS, "removalReason")}
           {...register("reason")}
           errors={err("reason")}
         />

@@ -15,6 +15,7 @@ import { useSubmitFailure } from "@/components/ui/use-error-text";
 import { apiFetch } from "@/lib/browser/api-client";
 import { useRouter } from "@/lib/i18n/navigation";
 import { TWOC_FAILED_ACTIONS, twocSchema } from "@/lib/validations/episode";
+import { useEpisodeOptions } from "./fieldsets/options";
 
 type Values = z.input<typeof twocSchema>;
 
@@ -22,6 +23,7 @@ export function TwocForm({ patientId, removedAt }: { patientId: string; removedA
   const t = useTranslations("EpisodeForm");
   const format = useFormatter();
   const router = useRouter();
+  const options = useEpisodeOptions();
   const {
     register,
     handleSubmit,
@@ -104,7 +106,7 @@ export function TwocForm({ patientId, removedAt }: { patientId: string; removedA
           <SelectField
             label={t("field.failedAction")}
             placeholder={t("choose")}
-            options={TWOC_FAILED_ACTIONS.map((a) => ({ value: a, label: t(`option.failedAction.${a}`) }))}
+            options={options(TWOC_FAILED_ACTIONS, "failedAction")}
             {...register("failedAction", { shouldUnregister: true })}
             errors={err("failedAction")}
           />
