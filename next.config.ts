@@ -28,11 +28,7 @@ const nextConfig: NextConfig = {
       },
       // The portal's service worker: always revalidated, so a fix reaches phones at once.
       { source: "/sw.js", headers: [{ key: "Cache-Control", value: "no-cache" }, { key: "Service-Worker-Allowed", value: "/" }] },
-      // Invitation links carry their token in the path: never in a Referer.
-      { source: "/:locale/carer-invite/:token", headers: [{ key: "Referrer-Policy", value: "no-referrer" }] },
-      { source: "/:locale/accept-invite/:token", headers: [{ key: "Referrer-Policy", value: "no-referrer" }] },
-      // The reset link carries its token in the query string.
-      { source: "/:locale/reset-password", headers: [{ key: "Referrer-Policy", value: "no-referrer" }] },
+      // Pages with a secret in their address get their headers in proxy.ts (lib/http/secret-headers).
     ];
   },
 };

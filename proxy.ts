@@ -1,16 +1,15 @@
 // Kept cheap on purpose: locale routing, a per-request CSP nonce, a redirect to sign-in when
-// no session cookie is present, and the per-address limit of the public device card (one
-// statement, and only on those paths, so its 429 is a real status). It never decides
-// authorisation: pages and handlers do.
+// no session cookie is present, the secret-URL pages' headers, and the per-address limit of the
+// public device card (one statement, and only on those paths, so its 429 is a real status). It
+// never decides authorisation: pages and handlers do.
 import createMiddleware from "next-intl/middleware";
 import { NextResponse, type NextRequest } from "next/server";
-import { routing } from "@/lib/i18n/routing";
-import { withPassportHeaders } from "@/lib/http/secret-headers";
-import { isCardPath, limitCardRequest } from "@/lib/qr/card-limit";
+import { locales, routing } from "@/lib/i18n/routing";
+import { isCardPath, withSecretUrlHeaders } from "@/lib/http/secret-headers";
 
 const intl = createMiddleware(routing);
 
-const signedInAreas = /^\/(en|es|pl|ro|ar|ur)\/(caseload|patients|admin|scan|today|my-catheter|check-in|diary|help|people|learn|more|account|home)(\/|$)/;
+const signedInAreas = new RegExp(`^/(${locales.join("|")})/(caseload|patients|admin|scan|today|my-catheter|check-in|diary|help|people|learn|more|account|home)(/|$)`);
 
 function contentSecurityPolicy(nonce: string) {
   const dev = process.env.NODE_ENV !== "production";
@@ -35,8 +34,10 @@ function contentSecurityPolicy(nonce: string) {
 export default async function proxy(request: NextRequest) {
   const { pathname } = request.nextUrl;
   if ((request.method === "GET" || request.method === "HEAD") && isCardPath(pathname)) {
+    // The database client and the catalogues are loaded for the card's paths only.
+    const { limitCardRequest } = await import("@/lib/qr/card-limit");
     const limited = await limitCardRequest(request, pathname.split("/")[1]!);
-    if (limited) return withPassportHeaders(pathname, limited);
+    if (limited) return withSecretUrlHeaders(pathname, limited);
   }
   const hasSession =
     request.cookies.has("better-auth.session_token") || request.cookies.has("__Secure-better-auth.session_token");
@@ -57,7 +58,7 @@ export default async function proxy(request: NextRequest) {
   request.headers.set("Content-Security-Policy", csp);
   const response = intl(request);
   response.headers.set("Content-Security-Policy", csp);
-  return withPassportHeaders(pathname, response);
+  return withSecretUrlHeaders(pathname, response);
 }
 
 export const config = {

@@ -4,7 +4,8 @@
 // other response that could hold patient data; check-ins waiting to be sent live in the page's
 // own outbox (components/check-in/outbox.ts), not here.
 const VERSION = "caddis-sw-v1";
-const LOCALES = ["en", "es", "pl", "ro", "ar", "ur"];
+// The locales come from the registration (lib/i18n/routing, the one list); English at least.
+const LOCALES = (new URL(self.location.href).searchParams.get("locales") ?? "en").split(",").filter((l) => /^[a-z]{2}$/.test(l));
 const STATIC = /^\/(_next\/static\/|icon[-.]|apple-icon|manifest\.webmanifest$)/;
 
 async function precache() {

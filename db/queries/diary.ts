@@ -2,7 +2,6 @@ import "server-only";
 import { and, asc, eq, gte, lt } from "drizzle-orm";
 import { db, type Executor } from "@/db";
 import { diaryEntries, type DiaryEntry } from "@/db/schema";
-import { DIARY_DELETE_HOURS } from "@/lib/validations/diary";
 
 export type DiaryEntryDto = {
   id: string;
@@ -13,12 +12,9 @@ export type DiaryEntryDto = {
   removable: boolean;
 };
 
-export function canRemove(row: Pick<DiaryEntry, "recordedByUserId" | "createdAt">, userId: string, now = Date.now()) {
-  return row.recordedByUserId === userId && now - row.createdAt.getTime() <= DIARY_DELETE_HOURS * 3_600_000;
-}
-
-export function toDiaryDto(row: DiaryEntry, userId: string): DiaryEntryDto {
-  return { id: row.id, kind: row.kind, volumeMl: row.volumeMl, at: row.at.toISOString(), removable: canRemove(row, userId) };
+/** `removable`: whether this viewer may still remove it (lib/auth/permissions canRemoveDiaryEntry). */
+export function toDiaryDto(row: DiaryEntry, removable: boolean): DiaryEntryDto {
+  return { id: row.id, kind: row.kind, volumeMl: row.volumeMl, at: row.at.toISOString(), removable };
 }
 
 export async function addDiaryEntry(

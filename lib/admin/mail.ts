@@ -4,24 +4,16 @@ import "server-only";
 // sent and never resent (redactAfterSend), and the link is never shown on any screen.
 // Staff e-mails are in the organisation's language; a patient's in the patient's.
 import { createHash } from "node:crypto";
-import { createTranslator } from "next-intl";
 import { db, type Executor } from "@/db";
 import { accountMailContext, PASSWORD_RESET_KIND, STAFF_INVITE_KIND } from "@/db/queries/admin-mail";
 import { emailDates, emailLocale, emailTranslator } from "@/lib/email/i18n";
 import { queueMessage, type QueuedMessage } from "@/lib/email/outbox";
 import { renderEmail } from "@/lib/email/render";
+import { translatorFor } from "@/lib/i18n/catalogues";
 import type { Locale } from "@/lib/i18n/routing";
-import ar from "@/messages/ar.json";
-import en from "@/messages/en.json";
-import es from "@/messages/es.json";
-import pl from "@/messages/pl.json";
-import ro from "@/messages/ro.json";
-import ur from "@/messages/ur.json";
-
-const catalogues = { en, es, pl, ro, ar, ur } as Record<Locale, typeof en>;
 
 function adminMailTranslator(locale: Locale) {
-  return createTranslator({ locale, messages: catalogues[locale], namespace: "AdminEmail" });
+  return translatorFor(locale, "AdminEmail");
 }
 
 export type StaffInvitationMail = {

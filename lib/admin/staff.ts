@@ -28,6 +28,7 @@ import {
 } from "@/db/queries/staff";
 import { audit } from "@/lib/records/audit";
 import { hashPassword } from "@/lib/auth/password";
+import { assertManagesOrganisations } from "@/lib/auth/permissions";
 import type { Viewer } from "@/lib/auth/session";
 import { env } from "@/lib/config/env";
 import { AppError } from "@/lib/http/errors";
@@ -38,11 +39,6 @@ import { hashToken, newToken } from "./tokens";
 export const INVITATION_LIFETIME_HOURS = 72;
 
 type RequestLike = Request | { headers: Headers } | null;
-
-function assertManages(viewer: Viewer, organisationIds: string[]) {
-  // An organisation the admin does not belong to is, to them, one that does not exist.
-  if (organisationIds.some((id) => !viewer.organisationIds.includes(id))) throw new AppError("not_found");
-}
 
 /**
  * Runs a change to the admin roster under the roster lock and refuses it if it leaves an
@@ -66,7 +62,7 @@ async function guardAdmins<T>(tx: Executor, viewer: Viewer, change: (actor: View
 }
 
 export async function inviteStaff({ viewer, input, request }: { viewer: Viewer; input: InviteStaffInput; request: RequestLike }) {
-  assertManages(viewer, input.organisationIds);
+  assertManagesOrganisations(viewer, input.organisationIds);
   const token = newToken();
   const expiresAt = new Date(Date.now() + INVITATION_LIFETIME_HOURS * 3600_000);
   const result = await db.transaction(async (tx) => {
@@ -180,7 +176,7 @@ async function loadMember(viewer: Viewer, userId: string, tx: Executor) {
 export async function updateStaff({ viewer, userId, input, request }: { viewer: Viewer; userId: string; input: UpdateStaffInput; request: RequestLike }) {
   return db.transaction(async (tx) =>
     guardAdmins(tx, viewer, async (actor) => {
-      if (input.organisationIds) assertManages(actor, input.organisationIds);
+      if (input.organisationIds) assertManagesOrganisations(actor, input.organisationIds);
       const before = await loadMember(actor, userId, tx);
       const details: Record<string, unknown> = {};
       if (input.role && input.role !== before.role) {

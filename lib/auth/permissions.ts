@@ -2,8 +2,12 @@ import "server-only";
 // The one module of authorisation checks. Every route handler, page and server action calls
 // these on the server; hiding a link in the menu is never the control.
 import { forbidden, redirect } from "next/navigation";
+import type { z } from "zod";
 import { findPatientAccess, isAdminOfPatient, type PatientAccessVia } from "@/db/queries/access";
+import type { DiaryEntry, Upload } from "@/db/schema";
 import { AppError } from "@/lib/http/errors";
+import { parseJsonBody } from "@/lib/http/validate";
+import { DIARY_DELETE_HOURS } from "@/lib/validations/diary";
 import { getViewer, getViewerFromHeaders, needsSecondFactorSetup, type Role, type Viewer } from "./session";
 
 /** Route handlers: the viewer, or 401. */
@@ -51,6 +55,39 @@ export async function requireStaffPatientAccess(viewer: Viewer, patientId: strin
   return requirePatientAccess(viewer, patientId);
 }
 
+/** The care team's own acts (editing details, inviting, removing a file, the access log): visit access is not enough (403). */
+export async function requireCareTeam(viewer: Viewer, patientId: string): Promise<"care_team"> {
+  const via = await requireStaffPatientAccess(viewer, patientId);
+  if (!isCareTeam(via)) throw new AppError("forbidden", "Only the patient's care team can do this.");
+  return "care_team";
+}
+
+/** For pages that offer the care team's acts: whether the way in is the care team. */
+export function isCareTeam(via: PatientAccessVia | null | undefined): via is "care_team" {
+  return via === "care_team";
+}
+
+/**
+ * Who may add files to this patient: staff through the care team (or visit access); the
+ * patient themself or a linked carer, for site photos only (the portal reuses these routes).
+ */
+export async function requireUploadAccess(viewer: Viewer, patientId: string, category?: Upload["category"]): Promise<PatientAccessVia> {
+  if (viewer.role === "clinician") return requireStaffPatientAccess(viewer, patientId);
+  if (viewer.role === "patient" || viewer.role === "carer") {
+    const via = await requirePatientAccess(viewer, patientId);
+    if (category !== undefined && category !== "site-photo") {
+      throw new AppError("forbidden", "Patients and carers can add site photos only.");
+    }
+    return via;
+  }
+  throw new AppError("forbidden");
+}
+
+/** Patients and carers finish only the uploads they started themselves (staff finish any). */
+export function assertUploadStarter(viewer: Viewer, upload: Pick<Upload, "uploadedByUserId">) {
+  if ((viewer.role === "patient" || viewer.role === "carer") && upload.uploadedByUserId !== viewer.userId) throw new AppError("not_found");
+}
+
 /** Portal route handlers: a patient or carer (staff are refused with 403). */
 export async function requirePortalViewer(request: Request): Promise<Viewer> {
   return requireRole(request, "patient", "carer");
@@ -67,6 +104,44 @@ export async function requirePortalPatient(viewer: Viewer, patientId: string): P
   return via;
 }
 
+/**
+ * Portal routes whose patient travels in the body: the role (403), then that patient (404)
+ * before the rest of the body is validated (400), so nobody learns about a record they cannot see.
+ */
+export async function openPortalBody<S extends z.ZodType>(request: Request, schema: S) {
+  const viewer = await requirePortalViewer(request);
+  const settled: { via?: "self" | "carer" } = {};
+  const input = await parseJsonBody(request, schema, {
+    settleAccess: async (raw) => {
+      settled.via = await requirePortalPatient(viewer, patientIdIn(raw));
+    },
+  });
+  return { viewer, via: settled.via!, input };
+}
+
+/** The patient a body or a query names; a missing or malformed one is a 400 on that field. */
+export function patientIdIn(data: unknown): string {
+  const id = (data as { patientId?: unknown } | null)?.patientId;
+  if (typeof id !== "string" || !isUuid(id)) throw new AppError("validation_failed", undefined, { fields: { patientId: ["invalid"] } });
+  return id;
+}
+
+/** The diary's own rule: only who added an entry removes it, and only within 24 hours, so the diary the care team reads is not rewritten later. */
+export function canRemoveDiaryEntry(entry: Pick<DiaryEntry, "recordedByUserId" | "createdAt">, userId: string, now = Date.now()): boolean {
+  return entry.recordedByUserId === userId && now - entry.createdAt.getTime() <= DIARY_DELETE_HOURS * 3_600_000;
+}
+
+export async function requireDiaryEntryRemover(viewer: Viewer, entry: Pick<DiaryEntry, "patientId" | "recordedByUserId" | "createdAt">) {
+  const via = await requirePortalPatient(viewer, entry.patientId);
+  if (!canRemoveDiaryEntry(entry, viewer.userId)) throw new AppError("forbidden", "Only entries you added in the last 24 hours can be removed.");
+  return via;
+}
+
+/** An admin acts only on the organisations they belong to; another one is, to them, one that does not exist (404). */
+export function assertManagesOrganisations(viewer: Viewer, organisationIds: readonly string[]) {
+  if (organisationIds.some((id) => !viewer.organisationIds.includes(id))) throw new AppError("not_found");
+}
+
 /** Inviting and removing carers: the patient themselves, or a clinician of the care team; carers and admins may not. */
 export async function requireCarerManager(viewer: Viewer, patientId: string): Promise<"self" | "care_team"> {
   if (viewer.role === "patient") {
@@ -74,11 +149,7 @@ export async function requireCarerManager(viewer: Viewer, patientId: string): Pr
     if (via !== "self") throw new AppError("not_found");
     return "self";
   }
-  if (viewer.role === "clinician") {
-    const via = await requireStaffPatientAccess(viewer, patientId);
-    if (via !== "care_team") throw new AppError("forbidden");
-    return "care_team";
-  }
+  if (viewer.role === "clinician") return requireCareTeam(viewer, patientId);
   throw new AppError("forbidden");
 }
 

@@ -10,24 +10,31 @@ export function parseInput<S extends z.ZodType>(schema: S, data: unknown): z.inf
   return result.data;
 }
 
-/** Reads a JSON body (at most maxBytes) and parses it with the schema. */
+/**
+ * Reads a JSON body (at most maxBytes) and parses it with the schema. `settleAccess` runs on the
+ * raw body first, for a route whose patient travels in it: access is decided before validation.
+ */
 export async function parseJsonBody<S extends z.ZodType>(
   request: Request,
   schema: S,
-  maxBytes = 64 * 1024,
+  { maxBytes = 64 * 1024, settleAccess }: { maxBytes?: number; settleAccess?: (raw: unknown) => Promise<void> } = {},
 ): Promise<z.infer<S>> {
+  const raw = await readJsonBody(request, maxBytes);
+  await settleAccess?.(raw);
+  return parseInput(schema, raw);
+}
+
+async function readJsonBody(request: Request, maxBytes: number): Promise<unknown> {
   const type = request.headers.get("content-type") ?? "";
   if (!type.toLowerCase().startsWith("application/json")) {
     throw new AppError("unsupported_media_type", "Send the request body as application/json.");
   }
   const text = await readCapped(request, maxBytes);
-  let data: unknown;
   try {
-    data = JSON.parse(text);
+    return JSON.parse(text);
   } catch {
     throw new AppError("bad_request", "The request body is not valid JSON.");
   }
-  return parseInput(schema, data);
 }
 
 /** The body as text, refused as soon as it passes maxBytes (never read whole into memory first). */

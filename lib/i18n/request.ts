@@ -1,6 +1,8 @@
 import "server-only";
 import { hasLocale } from "next-intl";
+import { deploymentTimeZone } from "@/lib/shared/time-zone";
 import { getRequestConfig } from "next-intl/server";
+import { messagesFor } from "./catalogues";
 import { routing } from "./routing";
 
 export default getRequestConfig(async ({ requestLocale }) => {
@@ -8,7 +10,7 @@ export default getRequestConfig(async ({ requestLocale }) => {
   const locale = hasLocale(routing.locales, requested) ? requested : routing.defaultLocale;
   return {
     locale,
-    messages: (await import(`../../messages/${locale}.json`)).default,
-    timeZone: process.env.CADDIS_TIME_ZONE ?? "Europe/London",
+    messages: messagesFor(locale),
+    timeZone: deploymentTimeZone(),
   };
 });

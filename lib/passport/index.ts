@@ -34,6 +34,7 @@ import {
   isWellFormedShortCode,
   isWellFormedToken,
 } from "./tokens";
+import { isCareTeam } from "@/lib/auth/permissions";
 
 export * from "./tokens";
 
@@ -206,7 +207,7 @@ export async function issuePassport({
   if (!record) throw new AppError("not_found");
   let activation: PatientActivation | null = null;
   if (withActivationCode) {
-    if ((via ?? "care_team") !== "care_team") {
+    if (!isCareTeam(via ?? "care_team")) {
       throw new AppError("forbidden", "Only the patient's care team can give a portal activation code.");
     }
     const invitee = await getPatientForInvite({ patientId });

@@ -10,7 +10,7 @@ import { getUploadRow, insertUpload, markUploadRemoved, setUploadStatus, uploadD
 import type { PatientAccessVia } from "@/db/queries/access";
 import type { Upload } from "@/db/schema";
 import { audit } from "@/lib/records/audit";
-import { requirePatientAccess, requireStaffPatientAccess } from "@/lib/auth/permissions";
+import { assertUploadStarter } from "@/lib/auth/permissions";
 import type { Viewer } from "@/lib/auth/session";
 import { AppError } from "@/lib/http/errors";
 import { deleteObject, getObjectHead, headObject, presignPut } from "@/lib/storage";
@@ -18,22 +18,6 @@ import { isAcceptedContentType, MAX_UPLOAD_BYTES, type UploadCreateValues } from
 
 /** Bytes read back from the store to recognise the type (file-type needs at most 4100). */
 const SNIFF_BYTES = 4100;
-
-/**
- * Who may add files to this patient: staff through the care team (or visit access); the
- * patient themself or a linked carer, for site photos only (the portal reuses these routes).
- */
-export async function requireUploadAccess(viewer: Viewer, patientId: string, category?: Upload["category"]): Promise<PatientAccessVia> {
-  if (viewer.role === "clinician") return requireStaffPatientAccess(viewer, patientId);
-  if (viewer.role === "patient" || viewer.role === "carer") {
-    const via = await requirePatientAccess(viewer, patientId);
-    if (category !== undefined && category !== "site-photo") {
-      throw new AppError("forbidden", "Patients and carers can add site photos only.");
-    }
-    return via;
-  }
-  throw new AppError("forbidden");
-}
 
 /** Where a patient's uploaded files are stored (retention deletes everything under it). */
 export function uploadPrefix(patientId: string): string {
@@ -123,10 +107,8 @@ export async function completeUpload({
   request: Request;
 }): Promise<UploadDto> {
   const row = await getUploadRow({ patientId, uploadId });
-  // Patients and carers finish only what they started themselves.
-  if (!row || ((viewer.role === "patient" || viewer.role === "carer") && row.uploadedByUserId !== viewer.userId)) {
-    throw new AppError("not_found");
-  }
+  if (!row) throw new AppError("not_found");
+  assertUploadStarter(viewer, row);
   if (row.status === "ready") return uploadDto(row);
   if (row.status === "rejected") throw new AppError("conflict", "This upload was refused. Start a new one.");
   const head = await headObject({ key: row.objectKey });

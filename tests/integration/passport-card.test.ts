@@ -13,8 +13,8 @@ import { findPatientAccess } from "@/db/queries/access";
 import { auditEvents, visitAccess } from "@/db/schema";
 import { getViewerFromHeaders, type Viewer } from "@/lib/auth/session";
 import { generateToken, issuePassport, type IssuedPassport } from "@/lib/passport";
-import { withPassportHeaders } from "@/lib/http/secret-headers";
-import { CARD_LIMIT, isCardPath, limitCardRequest } from "@/lib/qr/card-limit";
+import { isCardPath, withSecretUrlHeaders } from "@/lib/http/secret-headers";
+import { CARD_LIMIT, limitCardRequest } from "@/lib/qr/card-limit";
 import { openDeviceCard } from "@/lib/qr/device-card";
 import { patientIdByHrn } from "../support/fixtures";
 import { call, sessionFor } from "../support/http";
@@ -107,16 +107,21 @@ describe("per-address limit (PostgreSQL, holds across instances)", () => {
   });
 });
 
-describe("passport headers (proxy.ts)", () => {
-  it("sends no-referrer, no-store and noindex on /p/…, redirects and 429s included", () => {
-    for (const [path, status] of [["/p/abc", 307], ["/en/p/abc", 200], ["/ar/p", 200], ["/en/p/abc/visit", 200], ["/en/p/abc", 429]] as const) {
-      const res = withPassportHeaders(path, new Response(null, { status }));
+describe("secret-URL headers (proxy.ts)", () => {
+  it("sends no-referrer, no-store and noindex on /p/…, invitation and reset links, redirects and 429s included", () => {
+    const paths = [
+      ["/p/abc", 307], ["/en/p/abc", 200], ["/ar/p", 200], ["/en/p/abc/visit", 200], ["/en/p/abc", 429],
+      ["/en/carer-invite/tok", 200], ["/carer-invite/tok", 307], ["/ur/accept-invite/tok", 200], ["/es/reset-password", 200],
+    ] as const;
+    for (const [path, status] of paths) {
+      const res = withSecretUrlHeaders(path, new Response(null, { status }));
       expect(res.headers.get("referrer-policy")).toBe("no-referrer");
       expect(res.headers.get("cache-control")).toBe("no-store");
       expect(res.headers.get("x-robots-tag")).toBe("noindex");
     }
-    const other = withPassportHeaders("/en/sign-in", new Response(null));
-    expect(other.headers.get("x-robots-tag")).toBeNull();
+    for (const path of ["/en/sign-in", "/en/patients/abc", "/en/activate", "/en/forgot-password"]) {
+      expect(withSecretUrlHeaders(path, new Response(null)).headers.get("x-robots-tag"), path).toBeNull();
+    }
   });
 });
 

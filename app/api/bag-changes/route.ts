@@ -1,18 +1,15 @@
 import { db } from "@/db";
 import { addBagChange } from "@/db/queries/bag-changes";
 import { audit } from "@/lib/records/audit";
-import { requirePortalPatient, requirePortalViewer } from "@/lib/auth/permissions";
+import { openPortalBody } from "@/lib/auth/permissions";
 import { nextBagChange } from "@/lib/clinical";
 import { handle, json } from "@/lib/http/handle";
 import { todayIso } from "@/lib/shared/time-zone";
-import { parseJsonBody } from "@/lib/http/validate";
 import { bagChangeSchema } from "@/lib/validations/diary";
 
 // "I changed my leg bag / valve today": stores today's date; the next change comes from lib/clinical.
 export const POST = handle(async (request) => {
-  const viewer = await requirePortalViewer(request);
-  const input = await parseJsonBody(request, bagChangeSchema);
-  const via = await requirePortalPatient(viewer, input.patientId);
+  const { viewer, via, input } = await openPortalBody(request, bagChangeSchema);
   const today = todayIso();
   const row = await db.transaction(async (tx) => {
     const change = await addBagChange({ patientId: input.patientId, kind: input.kind, changedOn: today, recordedByUserId: viewer.userId }, tx);

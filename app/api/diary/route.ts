@@ -1,24 +1,23 @@
 import { db } from "@/db";
 import { addDiaryEntry, listDiaryEntries, toDiaryDto } from "@/db/queries/diary";
 import { audit } from "@/lib/records/audit";
-import { requirePortalPatient, requirePortalViewer } from "@/lib/auth/permissions";
+import { canRemoveDiaryEntry, openPortalBody, patientIdIn, requirePortalPatient, requirePortalViewer } from "@/lib/auth/permissions";
 import { AppError } from "@/lib/http/errors";
 import { handle, json } from "@/lib/http/handle";
-import { parseInput, parseJsonBody, searchParamsObject } from "@/lib/http/validate";
+import { parseInput, searchParamsObject } from "@/lib/http/validate";
 import { DIARY_BACKDATE_DAYS, diaryEntrySchema, diaryRangeSchema } from "@/lib/validations/diary";
 
 export const GET = handle(async (request) => {
   const viewer = await requirePortalViewer(request);
-  const input = parseInput(diaryRangeSchema, searchParamsObject(request.url));
-  await requirePortalPatient(viewer, input.patientId);
+  const query = searchParamsObject(request.url);
+  await requirePortalPatient(viewer, patientIdIn(query));
+  const input = parseInput(diaryRangeSchema, query);
   const rows = await listDiaryEntries({ patientId: input.patientId, from: new Date(input.from), to: new Date(input.to) });
-  return json({ entries: rows.map((r) => toDiaryDto(r, viewer.userId)) });
+  return json({ entries: rows.map((r) => toDiaryDto(r, canRemoveDiaryEntry(r, viewer.userId))) });
 });
 
 export const POST = handle(async (request) => {
-  const viewer = await requirePortalViewer(request);
-  const input = await parseJsonBody(request, diaryEntrySchema);
-  const via = await requirePortalPatient(viewer, input.patientId);
+  const { viewer, via, input } = await openPortalBody(request, diaryEntrySchema);
   const now = Date.now();
   const at = input.at ? new Date(input.at) : new Date(now);
   if (at.getTime() > now + 10 * 60_000 || at.getTime() < now - DIARY_BACKDATE_DAYS * 86_400_000) {
@@ -29,5 +28,5 @@ export const POST = handle(async (request) => {
     await audit({ action: "diary.add", actor: viewer, patientId: input.patientId, via, request, details: { entryId: entry.id, kind: entry.kind } }, tx);
     return entry;
   });
-  return json({ entry: toDiaryDto(row, viewer.userId) }, { status: 201 });
+  return json({ entry: toDiaryDto(row, true) }, { status: 201 });
 });

@@ -1,9 +1,9 @@
-import { createTranslator } from "next-intl";
 import { listCaseloadAll } from "@/db/queries/caseload";
 import { requireRole } from "@/lib/auth/permissions";
 import { audit } from "@/lib/records/audit";
 import { toCsv } from "@/lib/http/csv";
 import { handle } from "@/lib/http/handle";
+import { translatorFor } from "@/lib/i18n/catalogues";
 import { isLocale } from "@/lib/i18n/routing";
 import { parseInput, searchParamsObject } from "@/lib/http/validate";
 import { caseloadViewSchema } from "@/lib/validations/caseload";
@@ -14,8 +14,7 @@ export const GET = handle(async (request) => {
   const params = searchParamsObject(request.url);
   const view = parseInput(caseloadViewSchema, params);
   const locale = params.locale && isLocale(params.locale) ? params.locale : viewer.locale && isLocale(viewer.locale) ? viewer.locale : "en";
-  const messages = (await import(`../../../../messages/${locale}.json`)).default;
-  const t = createTranslator({ locale, messages, namespace: "CaseloadExport" });
+  const t = translatorFor(locale, "CaseloadExport");
   const { rows, today } = await listCaseloadAll({ organisationIds: viewer.organisationIds, view });
   const csv = toCsv([
     [

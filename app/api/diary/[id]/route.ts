@@ -1,20 +1,18 @@
 import { db } from "@/db";
-import { canRemove, deleteDiaryEntry, getDiaryEntry } from "@/db/queries/diary";
+import { deleteDiaryEntry, getDiaryEntry } from "@/db/queries/diary";
 import { audit } from "@/lib/records/audit";
-import { isUuid, requirePortalPatient, requirePortalViewer } from "@/lib/auth/permissions";
+import { isUuid, requireDiaryEntryRemover, requirePortalViewer } from "@/lib/auth/permissions";
 import { AppError } from "@/lib/http/errors";
 import { handle } from "@/lib/http/handle";
 
-// Only the person who added an entry removes it, and only within 24 hours: the diary the care
-// team reads is not rewritten later.
+// Only the person who added an entry removes it, and only within 24 hours (lib/auth/permissions).
 export const DELETE = handle<{ params: Promise<{ id: string }> }>(async (request, { params }) => {
   const viewer = await requirePortalViewer(request);
   const { id } = await params;
   if (!isUuid(id)) throw new AppError("not_found");
   const entry = await getDiaryEntry({ id });
   if (!entry) throw new AppError("not_found");
-  const via = await requirePortalPatient(viewer, entry.patientId);
-  if (!canRemove(entry, viewer.userId)) throw new AppError("forbidden", "Only entries you added in the last 24 hours can be removed.");
+  const via = await requireDiaryEntryRemover(viewer, entry);
   await db.transaction(async (tx) => {
     await deleteDiaryEntry({ id }, tx);
     await audit(

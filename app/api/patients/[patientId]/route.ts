@@ -1,6 +1,6 @@
 import { db } from "@/db";
 import { getPatientRecord, updatePatient } from "@/db/queries/patients";
-import { requireRole, requireStaffPatientAccess } from "@/lib/auth/permissions";
+import { requireCareTeam, requireRole } from "@/lib/auth/permissions";
 import { AppError } from "@/lib/http/errors";
 import { handle, json } from "@/lib/http/handle";
 import { openPatientRecord } from "@/lib/records/patient-record";
@@ -23,13 +23,12 @@ export const GET = handle<Ctx>(async (request, { params }) => {
 export const PATCH = handle<Ctx>(async (request, { params }) => {
   const { patientId } = await params;
   const viewer = await requireRole(request, "clinician");
-  // Who may touch the record first, so a stranger learns nothing from a validation answer.
-  await requireStaffPatientAccess(viewer, patientId);
+  // Who may touch the record first, so a stranger learns nothing from a validation answer. Visit
+  // access is for seeing the record and adding a visit, not for changing who the patient is.
+  await requireCareTeam(viewer, patientId);
   const input = await parseJsonBody(request, patientUpdateSchema);
   await db.transaction(async (tx) => {
-    const via = await openPatientRecord({ viewer, patientId, action: "patient.update", request, details: { fields: Object.keys(input) } }, tx);
-    // Visit access is for seeing the record and adding a visit, not for changing who the patient is.
-    if (via !== "care_team") throw new AppError("forbidden");
+    await openPatientRecord({ viewer, patientId, action: "patient.update", request, details: { fields: Object.keys(input) } }, tx);
     await updatePatient({ patientId, input }, tx);
   });
   const record = await getPatientRecord({ patientId });

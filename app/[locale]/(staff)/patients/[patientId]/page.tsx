@@ -10,6 +10,7 @@ import { PLAN_DEFAULTS, charriereToMm, parseIsoDate, stateFor } from "@/lib/clin
 import { Link } from "@/lib/i18n/navigation";
 import { openRecordPage } from "@/lib/records/patient-record-page";
 import { todayIso } from "@/lib/shared/time-zone";
+import { isCareTeam } from "@/lib/auth/permissions";
 
 export async function generateMetadata() {
   const t = await getTranslations("PatientRecord.tabs");
@@ -173,7 +174,7 @@ export default async function DeviceTab({ params }: { params: Promise<{ locale: 
           {t("detailsTitle")}
         </h2>
         <Card>
-          <PatientDetailsPanel patient={record.patient} gpPractices={gpPractices} canEdit={via === "care_team"} />
+          <PatientDetailsPanel patient={record.patient} gpPractices={gpPractices} canEdit={isCareTeam(via)} />
         </Card>
       </section>
     </div>

@@ -1,6 +1,5 @@
 import { listAccessLog } from "@/db/queries/audit-log";
-import { requireRole } from "@/lib/auth/permissions";
-import { AppError } from "@/lib/http/errors";
+import { requireCareTeam, requireRole } from "@/lib/auth/permissions";
 import { handle, json } from "@/lib/http/handle";
 import { openPatientRecord } from "@/lib/records/patient-record";
 import { parseInput, searchParamsObject } from "@/lib/http/validate";
@@ -12,8 +11,8 @@ type Ctx = { params: Promise<{ patientId: string }> };
 export const GET = handle<Ctx>(async (request, { params }) => {
   const { patientId } = await params;
   const viewer = await requireRole(request, "clinician");
+  await requireCareTeam(viewer, patientId);
   const { page, pageSize } = parseInput(pageQuerySchema, searchParamsObject(request.url));
-  const via = await openPatientRecord({ viewer, patientId, action: "patient.view.access-log", request, details: { source: "api", page } });
-  if (via !== "care_team") throw new AppError("forbidden");
+  await openPatientRecord({ viewer, patientId, action: "patient.view.access-log", request, details: { source: "api", page } });
   return json(await listAccessLog({ patientId, page, pageSize }));
 });

@@ -17,7 +17,6 @@ export const GET = handle<{ params: Promise<{ patientId: string }> }>(async (req
   assertRole(viewer, "patient", "admin");
   const { patientId } = await params;
   if (!isUuid(patientId)) throw new AppError("not_found");
-  const { reason, format } = parseInput(exportRequestSchema, searchParamsObject(request.url));
   let via: "self" | "admin";
   if (viewer.role === "admin") {
     await requireAdminOfPatient(viewer, patientId);
@@ -26,6 +25,7 @@ export const GET = handle<{ params: Promise<{ patientId: string }> }>(async (req
     if ((await requirePatientAccess(viewer, patientId)) !== "self") throw new AppError("not_found");
     via = "self";
   }
+  const { reason, format } = parseInput(exportRequestSchema, searchParamsObject(request.url));
   const day = new Date().toISOString().slice(0, 10);
   if (format === "fhir") {
     const bundle = await patientFhirBundle({ patientId });

@@ -1,5 +1,4 @@
-import { requireRole, requireStaffPatientAccess } from "@/lib/auth/permissions";
-import { AppError } from "@/lib/http/errors";
+import { requireCareTeam, requireRole } from "@/lib/auth/permissions";
 import { handle, json } from "@/lib/http/handle";
 import { createPatientInvite } from "@/lib/portal/invitations";
 import { parseJsonBody } from "@/lib/http/validate";
@@ -10,8 +9,7 @@ import { patientInviteSchema } from "@/lib/validations/invitations";
 export const POST = handle<{ params: Promise<{ patientId: string }> }>(async (request, { params }) => {
   const viewer = await requireRole(request, "clinician");
   const { patientId } = await params;
-  const via = await requireStaffPatientAccess(viewer, patientId);
-  if (via !== "care_team") throw new AppError("forbidden", "Only the patient's care team can invite them.");
+  await requireCareTeam(viewer, patientId);
   const input = await parseJsonBody(request, patientInviteSchema);
   const invite = await createPatientInvite({ viewer, patientId, email: input.email, request });
   return json(invite, { status: 201 });

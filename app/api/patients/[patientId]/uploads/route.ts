@@ -1,8 +1,8 @@
 import { listUploads } from "@/db/queries/uploads";
-import { requireRole, requireUser } from "@/lib/auth/permissions";
+import { requireRole, requireUploadAccess, requireUser } from "@/lib/auth/permissions";
 import { handle, json } from "@/lib/http/handle";
 import { openPatientRecord } from "@/lib/records/patient-record";
-import { createUpload, requireUploadAccess } from "@/lib/records/uploads";
+import { createUpload } from "@/lib/records/uploads";
 import { parseJsonBody } from "@/lib/http/validate";
 import { uploadCreateSchema } from "@/lib/validations/upload";
 

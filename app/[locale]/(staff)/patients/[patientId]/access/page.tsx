@@ -4,6 +4,7 @@ import { listAccessLog } from "@/db/queries/audit-log";
 import { Link } from "@/lib/i18n/navigation";
 import { openRecordPage } from "@/lib/records/patient-record-page";
 import { pageQuerySchema } from "@/lib/validations/caseload";
+import { isCareTeam } from "@/lib/auth/permissions";
 
 export async function generateMetadata() {
   const t = await getTranslations("PatientRecord.tabs");
@@ -27,7 +28,7 @@ export default async function AccessTab({
   const page = parsed.success ? parsed.data.page : 1;
   const { via } = await openRecordPage({ locale, patientId, action: "patient.view.access-log" });
   // The log is for the care team; a visiting clinician's attempt is itself logged above.
-  if (via !== "care_team") forbidden();
+  if (!isCareTeam(via)) forbidden();
   const log = await listAccessLog({ patientId, page, pageSize: PAGE_SIZE });
   const t = await getTranslations("PatientAccessLog");
   const format = await getFormatter();

@@ -2,6 +2,7 @@ import { getTranslations } from "next-intl/server";
 import { UploadsPanel } from "@/components/uploads/uploads-panel";
 import { listUploads } from "@/db/queries/uploads";
 import { openRecordPage } from "@/lib/records/patient-record-page";
+import { isCareTeam } from "@/lib/auth/permissions";
 
 export async function generateMetadata() {
   const t = await getTranslations("Documents");
@@ -13,5 +14,5 @@ export default async function DocumentsTab({ params }: { params: Promise<{ local
   const { via } = await openRecordPage({ locale, patientId, action: "patient.view.uploads" });
   const uploads = await listUploads({ patientId });
   // Removing is for the care team (the route refuses visit access too).
-  return <UploadsPanel patientId={patientId} initial={uploads} canRemove={via === "care_team"} />;
+  return <UploadsPanel patientId={patientId} initial={uploads} canRemove={isCareTeam(via)} />;
 }

@@ -7,6 +7,7 @@ import { getPassportOverview } from "@/db/queries/passports";
 import { getPatientRecord } from "@/db/queries/patients";
 import { passportLanguages } from "@/lib/passport";
 import { openRecordPage } from "@/lib/records/patient-record-page";
+import { isCareTeam } from "@/lib/auth/permissions";
 
 export async function generateMetadata() {
   const t = await getTranslations("Passport");
@@ -23,7 +24,7 @@ export default async function PassportTab({ params }: { params: Promise<{ locale
   ]);
   if (!record || !invitee) notFound();
   // Only the care team gives activation codes (as on the invite route), and only before an account exists.
-  const canInvite = via === "care_team" && !invitee.userId && !invitee.closedAt;
+  const canInvite = isCareTeam(via) && !invitee.userId && !invitee.closedAt;
   return (
     <div className="flex flex-col gap-8">
       <PassportPanel

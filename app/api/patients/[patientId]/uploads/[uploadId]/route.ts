@@ -1,4 +1,4 @@
-import { isUuid, requireRole, requireStaffPatientAccess } from "@/lib/auth/permissions";
+import { isUuid, requireCareTeam, requireRole } from "@/lib/auth/permissions";
 import { AppError } from "@/lib/http/errors";
 import { handle } from "@/lib/http/handle";
 import { removeUpload } from "@/lib/records/uploads";
@@ -9,8 +9,7 @@ type Ctx = { params: Promise<{ patientId: string; uploadId: string }> };
 export const DELETE = handle<Ctx>(async (request, { params }) => {
   const { patientId, uploadId } = await params;
   const viewer = await requireRole(request, "clinician");
-  const via = await requireStaffPatientAccess(viewer, patientId);
-  if (via !== "care_team") throw new AppError("forbidden", "Only the patient's care team can remove a file.");
+  const via = await requireCareTeam(viewer, patientId);
   if (!isUuid(uploadId)) throw new AppError("not_found");
   await removeUpload({ viewer, patientId, via, uploadId, request });
   return new Response(null, { status: 204 });

@@ -1,7 +1,7 @@
-import { isUuid, requireUser } from "@/lib/auth/permissions";
+import { isUuid, requireUploadAccess, requireUser } from "@/lib/auth/permissions";
 import { AppError } from "@/lib/http/errors";
 import { handle, json } from "@/lib/http/handle";
-import { completeUpload, requireUploadAccess } from "@/lib/records/uploads";
+import { completeUpload } from "@/lib/records/uploads";
 
 type Ctx = { params: Promise<{ patientId: string; uploadId: string }> };
 

@@ -1,0 +1,36 @@
+import "server-only";
+// The one loader of the message catalogues for server code: e-mails, PDFs, CSV, the card's 429
+// page and each request's messages (lib/i18n/request.ts). A locale Caddis does not have falls
+// back to English. Dates and numbers are formatted in the deployment's time zone.
+import { createFormatter, createTranslator, type NamespaceKeys, type NestedKeyOf } from "next-intl";
+import { deploymentTimeZone } from "@/lib/shared/time-zone";
+import ar from "@/messages/ar.json";
+import en from "@/messages/en.json";
+import es from "@/messages/es.json";
+import pl from "@/messages/pl.json";
+import ro from "@/messages/ro.json";
+import ur from "@/messages/ur.json";
+import { isLocale, routing, type Locale } from "./routing";
+
+export type Messages = typeof en;
+
+const catalogues = { en, es, pl, ro, ar, ur } as Record<Locale, Messages>;
+
+/** The locale to write in: the one asked for when Caddis has it, else English. */
+export function catalogueLocale(value: string | null | undefined): Locale {
+  return value && isLocale(value) ? value : routing.defaultLocale;
+}
+
+export function messagesFor(locale: string): Messages {
+  return catalogues[catalogueLocale(locale)];
+}
+
+/** next-intl's translator for one namespace, outside a React request. */
+export function translatorFor<N extends NamespaceKeys<Messages, NestedKeyOf<Messages>>>(locale: string, namespace: N) {
+  const l = catalogueLocale(locale);
+  return createTranslator({ locale: l, messages: catalogues[l], namespace });
+}
+
+export function formatterFor(locale: string) {
+  return createFormatter({ locale: catalogueLocale(locale), timeZone: deploymentTimeZone() });
+}
