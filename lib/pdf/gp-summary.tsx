@@ -7,16 +7,13 @@ import type { Styles } from "@react-pdf/renderer";
 import type { Block, EmailContent } from "@/lib/email/render";
 import { emailDates, emailTranslator } from "@/lib/email/i18n";
 import { directionOf } from "@/lib/i18n/routing";
-import { PDF_FONT_FAMILY, registerPdfFonts } from "./fonts";
+import { PDF_FONT_FAMILY, registerPdfFonts } from "./kit/fonts";
+import { palette } from "./kit/palette";
+import { direction as textDirection, pdfText } from "./kit/rtl";
 
 type Pdf = typeof import("@react-pdf/renderer");
 
-// Two @react-pdf 4.9 text-layout quirks, seen in rendered pages: bidi marks inside a text (Intl
-// puts them in Arabic dates) come out of order, so they are removed; and a right-to-left text
-// loses its first letter's body (only its dots are drawn) unless it starts with a right-to-left
-// mark and ends with a zero-width space, so each such text gets both.
-const bidiMarks = /[\u061c\u200e\u200f\u202a-\u202e\u2066-\u2069]/g;
-const cleaner = (rtl: boolean) => (text: string) => (rtl ? `\u200f${text.replace(bidiMarks, "")}\u200b` : text.replace(bidiMarks, ""));
+const cleaner = (rtl: boolean) => (text: string) => pdfText(text, rtl);
 
 function plainBlock(b: Block, plain: (text: string) => string): Block {
   switch (b.type) {
@@ -36,16 +33,7 @@ function plainBlock(b: Block, plain: (text: string) => string): Block {
   }
 }
 
-const c = {
-  brand: "#0b5563",
-  ink: "#1c1f21",
-  soft: "#4f565b",
-  line: "#d9d3c6",
-  sunk: "#f1ece1",
-  stop: ["#a4231b", "#fbe6e3"],
-  warn: ["#8a4b00", "#fdf0d9"],
-  info: ["#1f4e99", "#e3ecfa"],
-} as const;
+const c = palette;
 
 function styles(rtl: boolean) {
   const align = rtl ? ("right" as const) : ("left" as const);
@@ -59,16 +47,16 @@ function styles(rtl: boolean) {
     title: { direction, fontSize: 18, fontWeight: 700, marginBottom: 6, textAlign: align },
     intro: { direction, lineHeight: 1.45, marginBottom: 8, textAlign: align },
     heading: { direction, fontSize: 12.5, fontWeight: 700, color: c.brand, marginTop: 10, marginBottom: 4, textAlign: align },
-    row: { flexDirection: rtl ? "row-reverse" : "row", borderBottomWidth: 0.75, borderBottomColor: c.line, paddingVertical: 3 },
-    label: { direction, lineHeight: 1.45, width: "38%", fontWeight: 700, color: c.soft, textAlign: align, paddingHorizontal: 3 },
+    row: { flexDirection: rtl ? "row-reverse" : "row", borderBottomWidth: 0.75, borderBottomColor: c.faint, paddingVertical: 3 },
+    label: { direction, lineHeight: 1.45, width: "38%", fontWeight: 700, color: c.inkSoft, textAlign: align, paddingHorizontal: 3 },
     value: { direction, lineHeight: 1.45, width: "62%", textAlign: align, paddingHorizontal: 3 },
     para: { direction, lineHeight: 1.45, marginBottom: 5, textAlign: align },
     item: { direction, lineHeight: 1.45, marginBottom: 2, textAlign: align },
     cellHead: { direction, lineHeight: 1.45, flex: 1, fontWeight: 700, backgroundColor: c.sunk, padding: 3, textAlign: align },
     cell: { direction, lineHeight: 1.45, flex: 1, padding: 3, textAlign: align },
     // No lineHeight on the page: inherited, it hides the text this one draws with `render` (@react-pdf 4.9).
-    footer: { direction, position: "absolute", bottom: 20, left: 40, right: 40, fontSize: 8.5, color: c.soft, textAlign: align },
-    small: { direction, lineHeight: 1.45, fontSize: 8.5, color: c.soft, marginTop: 2, textAlign: align },
+    footer: { direction, position: "absolute", bottom: 20, left: 40, right: 40, fontSize: 8.5, color: c.inkSoft, textAlign: align },
+    small: { direction, lineHeight: 1.45, fontSize: 8.5, color: c.inkSoft, marginTop: 2, textAlign: align },
   } satisfies Styles;
 }
 
@@ -106,7 +94,7 @@ function BlockView({ pdf, block, s, rtl }: { pdf: Pdf; block: Block; s: ReturnTy
         </View>
       );
     case "notice": {
-      const [strong, soft] = c[block.tone];
+      const { strong, soft } = c.tone[block.tone];
       return (
         <View
           wrap={false}
@@ -117,7 +105,7 @@ function BlockView({ pdf, block, s, rtl }: { pdf: Pdf; block: Block; s: ReturnTy
             ...(rtl ? { borderRightWidth: 4, borderRightColor: strong } : { borderLeftWidth: 4, borderLeftColor: strong }),
           }}
         >
-          <Text style={{ textAlign: rtl ? "right" : "left", lineHeight: 1.45, direction: rtl ? "rtl" : "ltr" }}>
+          <Text style={{ ...textDirection(rtl), lineHeight: 1.45 }}>
             <Text style={{ fontWeight: 700, color: strong }}>{block.label}</Text> {block.text}
           </Text>
         </View>

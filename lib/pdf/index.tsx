@@ -2,12 +2,12 @@ import "server-only";
 // PDFs made on the server with @react-pdf/renderer (kept out of the bundle by
 // serverExternalPackages in next.config.ts).
 import { Font, renderToBuffer } from "@react-pdf/renderer";
-import { registerPdfFonts } from "./fonts";
-import { PassportBooklet, type PassportBookletData } from "./passport-booklet";
+import { registerPdfFonts } from "./kit/fonts";
+import { PassportBooklet, type PassportBookletData } from "./booklet";
 
-export type { BookletContact, BookletDevice, BookletEvent, PassportBookletData } from "./passport-booklet";
-export { PDF_FONT_FAMILY, registerPdfFonts } from "./fonts";
-export { pdfStrings } from "./messages";
+export type { BookletContact, BookletDevice, BookletEvent, PassportBookletData } from "./booklet";
+export { PDF_FONT_FAMILY, registerPdfFonts } from "./kit/fonts";
+export { pdfStrings } from "./kit/strings";
 
 /** The passport booklet as PDF bytes. */
 export async function renderPassportPdf(data: PassportBookletData): Promise<Buffer> {

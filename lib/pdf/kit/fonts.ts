@@ -4,7 +4,7 @@ import "server-only";
 // inflated again on every read. Latin and Latin Extended (Polish, Romanian) are one merged font:
 // as two, every run of text that fell back to the second embedded a subset of its own — 150
 // fonts, 225 KiB and a second for a Polish booklet. Arabic script (ar, ur) is the fallback.
-// No static import of @react-pdf here: the worker loads it dynamically (see gp-summary.tsx).
+// No static import of @react-pdf here: the worker loads it dynamically (see lib/pdf/gp-summary.tsx).
 import path from "node:path";
 import type { Font as PdfFont } from "@react-pdf/renderer";
 

@@ -1,0 +1,103 @@
+import "server-only";
+// The booklet's rows as data: every label and value in each language, built by pure functions
+// (tested without rendering, tests/unit/pdf-rows.test.ts); the pages only lay them out.
+import { ltrRun } from "../kit/rtl";
+import type { PdfStrings } from "../kit/strings";
+import type { BookletDevice, BookletEvent, PassportBookletData } from "./types";
+
+export type FactRow = {
+  /** One label per language, patient's language first. */
+  labels: string[];
+  /** One value per language; shown once when every language writes it the same way. */
+  values: string[];
+  /** A language-neutral line under the value (a team's name). */
+  note?: string;
+  big?: boolean;
+};
+
+/** A Latin or numeric value, kept left to right in a right-to-left column. */
+export const iso = (s: PdfStrings, value: string) => ltrRun(value, s.rtl);
+
+export function allergyList(s: PdfStrings, a: PassportBookletData["patient"]["allergies"]): string[] {
+  const out: string[] = [];
+  if (a.latex) out.push(s.t("allergy.latex"));
+  if (a.chlorhexidine) out.push(s.t("allergy.chlorhexidine"));
+  if (a.lidocaine) out.push(s.t("allergy.lidocaine"));
+  if (a.other?.trim()) out.push(`${s.t("allergy.other")}: ${a.other.trim()}`);
+  return out;
+}
+
+export function deviceRows(all: PdfStrings[], d: BookletDevice): FactRow[] {
+  const each = (f: (s: PdfStrings) => string) => all.map(f);
+  const row = (label: (s: PdfStrings) => string, value: (s: PdfStrings) => string): FactRow => ({
+    labels: each(label),
+    values: each(value),
+  });
+  return [
+    row((s) => s.t("route"), (s) => s.t(`routes.${d.route}`)),
+    row((s) => s.t("catheterType"), (s) => s.t(`catheterTypes.${d.catheterType}`)),
+    row((s) => s.t("material"), (s) => s.t(`materials.${d.material}`)),
+    row((s) => s.t("length"), (s) => s.t(`lengths.${d.lengthCategory}`)),
+    {
+      ...row((s) => s.t("size"), (s) => s.t("sizeValue", { ch: iso(s, String(d.sizeCh)), mm: iso(s, s.number(d.sizeMm)) })),
+      big: true,
+    },
+    { ...row((s) => s.t("balloon"), (s) => s.t("balloonValue", { ml: iso(s, String(d.balloonMl)) })), big: true },
+    // Maker and lot on one row: they are read together (a recall names both).
+    row(
+      (s) => `${s.t("maker")} · ${s.t("lot")}`,
+      (s) => `${d.maker ? iso(s, [d.maker, d.productName].filter(Boolean).join(" ")) : "—"} · ${d.lot ? iso(s, d.lot) : "—"}`,
+    ),
+    row((s) => s.t("expiry"), (s) => s.day(d.expiry)),
+    {
+      ...row((s) => s.t("insertedOn"), (s) => s.moment(d.insertedAt)),
+      note: [d.insertedByName, d.organisationName].filter(Boolean).join(", "),
+    },
+    row((s) => s.t("indication"), () => d.indication),
+  ];
+}
+
+/** The two dates the nurse set, for the box at the top of the device page. */
+export function plannedDates(d: BookletDevice) {
+  return [
+    ["nextChange", d.plannedChangeOn],
+    ["reviewDue", d.reviewDueOn],
+  ] as const;
+}
+
+export function contactRows(all: PdfStrings[], c: PassportBookletData["contacts"]): FactRow[] {
+  const each = (f: (s: PdfStrings) => string) => all.map(f);
+  const rows: FactRow[] = [{ labels: each((s) => s.t("emergency")), values: each((s) => iso(s, c.emergencyNumber)), big: true }];
+  for (const team of c.careTeams) {
+    rows.push({ labels: each((s) => s.t("careTeam")), values: each((s) => phoneLine(s, team.phone)), note: team.name, big: true });
+    if (team.outOfHoursPhone) {
+      rows.push({
+        labels: each((s) => s.t("outOfHours")),
+        values: each((s) => iso(s, team.outOfHoursPhone!)),
+        note: c.outOfHoursServiceName ?? undefined,
+        big: true,
+      });
+    }
+  }
+  if (c.gp) rows.push({ labels: each((s) => s.t("gp")), values: each((s) => phoneLine(s, c.gp!.phone)), note: c.gp.name });
+  return rows;
+}
+
+export function phoneLine(s: PdfStrings, phone: string | null) {
+  return phone ? iso(s, phone) : s.t("noPhone");
+}
+
+export function eventWhat(s: PdfStrings, e: BookletEvent): string {
+  let what = s.t(`events.${e.kind}`);
+  if (e.reason) what += ` (${s.t(`reasons.${e.reason}`)})`;
+  if (e.twocOutcome) what += ` (${s.t(`twoc.${e.twocOutcome}`)})`;
+  return what;
+}
+
+export function eventDetails(s: PdfStrings, e: BookletEvent): string {
+  const parts: string[] = [];
+  if (e.sizeCh) parts.push(iso(s, `${e.sizeCh} Ch`));
+  if (e.material) parts.push(s.t(`materials.${e.material}`));
+  if (e.lot) parts.push(`${s.t("lot")} ${iso(s, e.lot)}`);
+  return parts.join(s.rtl ? "، " : ", ") || "—";
+}

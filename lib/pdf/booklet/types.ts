@@ -1,0 +1,73 @@
+import "server-only";
+// What the passport booklet prints: loaded by lib/passport from the record, never more.
+export type BookletDevice = {
+  route: "urethral" | "suprapubic";
+  catheterType: "two-way" | "three-way";
+  material:
+    | "all-silicone"
+    | "hydrogel-coated-silicone"
+    | "hydrogel-coated-latex"
+    | "silicone-coated-latex"
+    | "ptfe-coated-latex"
+    | "latex";
+  lengthCategory: "standard" | "female" | "paediatric";
+  sizeCh: number;
+  /** Outer diameter from lib/clinical charriereToMm. */
+  sizeMm: number;
+  balloonMl: number;
+  maker: string | null;
+  productName: string | null;
+  lot: string | null;
+  /** YYYY-MM-DD */
+  expiry: string | null;
+  insertedAt: Date;
+  insertedByName: string;
+  organisationName: string | null;
+  indication: string;
+  /** YYYY-MM-DD, as stored from lib/clinical planDates when the episode was saved. */
+  plannedChangeOn: string;
+  reviewDueOn: string;
+};
+
+export type BookletEvent = {
+  at: Date;
+  kind: "insertion" | "planned_change" | "unplanned_change" | "problem" | "removal" | "twoc_outcome" | "visit" | "review";
+  reason: "blockage" | "bypassing" | "expelled" | "infection" | "other" | null;
+  twocOutcome: "passed" | "failed" | null;
+  byName: string;
+  organisationName: string | null;
+  /** The catheter this event put in (insertions and changes). */
+  sizeCh: number | null;
+  material: BookletDevice["material"] | null;
+  lot: string | null;
+};
+
+export type BookletContact = { name: string; phone: string | null; outOfHoursPhone: string | null };
+
+export type PassportBookletData = {
+  /** [patient's language, "en"], or ["en"] alone. */
+  locales: string[];
+  url: string;
+  shortCode: string;
+  qrPngDataUrl: string;
+  issuedAt: Date;
+  issuedByName: string;
+  patient: {
+    givenName: string;
+    familyName: string;
+    /** YYYY-MM-DD */
+    dateOfBirth: string;
+    healthRecordNumber: string;
+    allergies: { latex: boolean; chlorhexidine: boolean; lidocaine: boolean; other: string | null };
+  };
+  device: BookletDevice | null;
+  history: BookletEvent[];
+  contacts: {
+    emergencyNumber: string;
+    outOfHoursServiceName: string | null;
+    careTeams: BookletContact[];
+    gp: BookletContact | null;
+  };
+  /** A one-time portal activation code, printed on its own page; never on the stored copy. */
+  portalActivation?: { code: string; expiresAt: Date; activateUrl: string } | null;
+};
