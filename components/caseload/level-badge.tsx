@@ -1,6 +1,7 @@
 import { useTranslations } from "next-intl";
+import type { TriageLevel } from "@/lib/clinical";
 
-export type Level = "emergency" | "urgent" | "soon" | "self-care";
+export type Level = TriageLevel;
 
 const styles: Record<Level, string> = {
   emergency: "border-level-emergency bg-level-emergency-soft text-level-emergency-ink",
@@ -9,7 +10,7 @@ const styles: Record<Level, string> = {
   "self-care": "border-level-selfcare bg-level-selfcare-soft text-level-selfcare-ink",
 };
 
-/** The shape of each level, so it never rests on colour alone (visual.md). */
+/** The shape of each level, so it never rests on colour alone (WCAG 2.2 1.4.1 Use of Color; docs/design.md). */
 export function LevelIcon({ level, className = "h-4 w-4" }: { level: Level; className?: string }) {
   const common = { className, viewBox: "0 0 16 16", "aria-hidden": true as const, focusable: "false" as const };
   switch (level) {

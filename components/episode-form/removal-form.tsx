@@ -13,7 +13,8 @@ import { Section } from "@/components/ui/section";
 import { useSubmitFailure } from "@/components/ui/use-error-text";
 import { apiFetch } from "@/lib/browser/api-client";
 import { useRouter } from "@/lib/i18n/navigation";
-import { REMOVAL_REASONS, removalSchema } from "@/lib/validations/episode";
+import { REMOVAL_REASONS } from "@/lib/clinical";
+import { removalSchema } from "@/lib/validations/episode";
 import { useEpisodeOptions } from "./fieldsets/options";
 
 type Values = z.input<typeof removalSchema>;

@@ -14,7 +14,8 @@ import { Section } from "@/components/ui/section";
 import { useSubmitFailure } from "@/components/ui/use-error-text";
 import { apiFetch } from "@/lib/browser/api-client";
 import { useRouter } from "@/lib/i18n/navigation";
-import { TWOC_FAILED_ACTIONS, twocSchema } from "@/lib/validations/episode";
+import { TWOC_FAILED_ACTIONS } from "@/lib/clinical";
+import { twocSchema } from "@/lib/validations/episode";
 import { useEpisodeOptions } from "./fieldsets/options";
 
 type Values = z.input<typeof twocSchema>;

@@ -12,13 +12,13 @@ import { ErrorAlert } from "@/components/ui/notice";
 import { Section } from "@/components/ui/section";
 import { useSubmitFailure } from "@/components/ui/use-error-text";
 import { apiFetch, setServerFieldErrors } from "@/lib/browser/api-client";
+import { SEXES } from "@/lib/clinical";
 import { useRouter } from "@/lib/i18n/navigation";
 import { localeNames } from "@/lib/i18n/routing";
 import {
   EARLIEST_BIRTH_DATE,
   patientLocales,
   patientSchema,
-  patientSexes,
   patientUpdateSchema,
   type PatientInput,
   type PatientValues,
@@ -152,7 +152,7 @@ export function PatientForm(props: Props) {
             {...register("dateOfBirth")}
           />
         </div>
-        <RadioGroup legend={t("sex")} errors={errorsOf("sex")} options={patientSexes.map((s) => ({ value: s, label: t(`sexes.${s}`) }))} inputProps={register("sex")} />
+        <RadioGroup legend={t("sex")} errors={errorsOf("sex")} options={SEXES.map((s) => ({ value: s, label: t(`sexes.${s}`) }))} inputProps={register("sex")} />
         <div className="grid gap-4 md:grid-cols-2">
           <SelectField label={t("preferredLocale")} errors={errorsOf("preferredLocale")} {...register("preferredLocale")}>
             {patientLocales.map((l) => (

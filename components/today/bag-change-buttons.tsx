@@ -4,14 +4,15 @@ import { useTranslations } from "next-intl";
 import { useState } from "react";
 import { apiFetch } from "@/lib/browser/api-client";
 import { useRouter } from "@/lib/i18n/navigation";
+import { BAG_KINDS, type BagKind } from "@/lib/clinical";
 
 /** "I changed my leg bag / valve today": stores the date; the page then shows the next change. */
 export function BagChangeButtons({ patientId }: { patientId: string }) {
   const t = useTranslations("Today.bags");
   const router = useRouter();
-  const [saved, setSaved] = useState<"leg-bag" | "valve" | null>(null);
+  const [saved, setSaved] = useState<BagKind | null>(null);
   const mutation = useMutation({
-    mutationFn: async (kind: "leg-bag" | "valve") => {
+    mutationFn: async (kind: BagKind) => {
       await apiFetch("/api/bag-changes", { method: "POST", body: { patientId, kind } });
       return kind;
     },
@@ -22,7 +23,7 @@ export function BagChangeButtons({ patientId }: { patientId: string }) {
   });
   return (
     <div className="flex flex-col gap-3">
-      {(["leg-bag", "valve"] as const).map((kind) => (
+      {BAG_KINDS.map((kind) => (
         <button
           key={kind}
           type="button"

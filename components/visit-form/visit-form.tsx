@@ -11,9 +11,9 @@ import { ErrorAlert } from "@/components/ui/notice";
 import { Section } from "@/components/ui/section";
 import { useSubmitFailure } from "@/components/ui/use-error-text";
 import { apiFetch } from "@/lib/browser/api-client";
-import { scoreNews2 } from "@/lib/clinical";
+import { CONSCIOUSNESS_LEVELS, scoreNews2 } from "@/lib/clinical";
 import { Link } from "@/lib/i18n/navigation";
-import { CONSCIOUSNESS, observationsSchema, visitSchema } from "@/lib/validations/visit";
+import { observationsSchema, visitSchema } from "@/lib/validations/visit";
 import { fromLocalInputValue, toLocalInputValue } from "@/lib/browser/datetime-input";
 import { News2Panel, type News2View } from "./news2-panel";
 
@@ -155,7 +155,7 @@ export function VisitForm({ patientId }: { patientId: string }) {
           <RadioGroup
             className="sm:col-span-2"
             legend={t("consciousness")}
-            options={CONSCIOUSNESS.map((c) => ({ value: c, label: `${c} · ${t(`acvpu.${c}`)}` }))}
+            options={CONSCIOUSNESS_LEVELS.map((c) => ({ value: c, label: `${c} · ${t(`acvpu.${c}`)}` }))}
             inputProps={register("observations.consciousness")}
             errors={err("observations.consciousness")}
           />

@@ -1,10 +1,11 @@
 import "server-only";
 import { and, desc, eq } from "drizzle-orm";
 import { db, type Executor } from "@/db";
-import { bagChanges, bagKinds } from "@/db/schema";
+import { bagChanges } from "@/db/schema";
+import { BAG_KINDS, type BagKind } from "@/lib/clinical";
 
 export async function addBagChange(
-  values: { patientId: string; kind: (typeof bagKinds)[number]; changedOn: string; recordedByUserId: string },
+  values: { patientId: string; kind: BagKind; changedOn: string; recordedByUserId: string },
   tx: Executor = db,
 ) {
   const [row] = await tx.insert(bagChanges).values(values).returning();
@@ -13,8 +14,8 @@ export async function addBagChange(
 
 /** The latest change of each kind the patient has logged. */
 export async function getLastBagChanges({ patientId }: { patientId: string }, tx: Executor = db) {
-  const out: { kind: (typeof bagKinds)[number]; lastChangedOn: string }[] = [];
-  for (const kind of bagKinds) {
+  const out: { kind: BagKind; lastChangedOn: string }[] = [];
+  for (const kind of BAG_KINDS) {
     const [row] = await tx
       .select({ changedOn: bagChanges.changedOn })
       .from(bagChanges)

@@ -7,8 +7,9 @@ import { db, type Executor } from "@/db";
 import { PLAN_DEFAULTS, parseIsoDate, stateFor, worseState, type CaseloadState } from "@/lib/clinical";
 import { deploymentTimeZone, todayIso } from "@/lib/shared/time-zone";
 import type { CaseloadFilter, CaseloadQuery, CaseloadSort, CaseloadView } from "@/lib/validations/caseload";
+import type { Route, TriageLevel } from "@/lib/clinical";
 
-export type CheckInLevel = "emergency" | "urgent" | "soon" | "self-care";
+export type CheckInLevel = TriageLevel;
 
 export type CaseloadRow = {
   patientId: string;
@@ -16,7 +17,7 @@ export type CaseloadRow = {
   givenName: string;
   familyName: string;
   healthRecordNumber: string;
-  route: "urethral" | "suprapubic" | null;
+  route: Route | null;
   sizeCh: number | null;
   /** Calendar day of insertion in the deployment's time zone. */
   insertedOn: string | null;
@@ -45,7 +46,7 @@ type RawRow = {
   health_record_number: string;
   latest_check_in_level: CheckInLevel | null;
   latest_check_in_at: string | null;
-  route: "urethral" | "suprapubic" | null;
+  route: Route | null;
   size_ch: number | null;
   inserted_on: string | null;
   planned_change_on: string | null;

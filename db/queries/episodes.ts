@@ -12,11 +12,12 @@ import {
   type NewCatheterEpisode,
   type NewEpisodeEvent,
 } from "@/db/schema";
+import type { Sex } from "@/lib/clinical";
 
 export type PatientForRecording = {
   id: string;
   name: string;
-  sex: "female" | "male" | "other" | "unknown";
+  sex: Sex;
   dateOfBirth: string;
   allergies: { latex: boolean; chlorhexidine: boolean; lidocaine: boolean; other: string | null };
   closed: boolean;

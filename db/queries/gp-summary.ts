@@ -14,6 +14,7 @@ import {
   type CatheterEpisode,
 } from "@/db/schema";
 import { charriereToMm } from "@/lib/clinical";
+import type { TwocOutcome } from "@/lib/clinical";
 
 export const gpSummaryCauses = ["passport", "insertion", "change", "removal", "twoc"] as const;
 export type GpSummaryCause = (typeof gpSummaryCauses)[number];
@@ -62,7 +63,7 @@ export type GpSummaryFacts = {
   device: DeviceFacts | null;
   /** The catheter taken out (change, removal, trial without catheter). */
   previous: DeviceFacts | null;
-  event: { kind: string; reason: string | null; twocOutcome: "passed" | "failed" | null; notes: string | null } | null;
+  event: { kind: string; reason: string | null; twocOutcome: TwocOutcome | null; notes: string | null } | null;
   passport: { issuedAt: string; languages: string[] } | null;
   findings: FindingFact[];
   refused: { code: string; detail: string | null }[];

@@ -12,12 +12,13 @@ import {
   type EndReason,
 } from "@/lib/clinical";
 import { dayIn, todayIso } from "@/lib/shared/time-zone";
+import type { TwocOutcome } from "@/lib/clinical";
 
 export type HistoryEvent = {
   id: string;
   kind: (typeof episodeEvents.$inferSelect)["kind"];
   reason: (typeof episodeEvents.$inferSelect)["reason"];
-  twocOutcome: "passed" | "failed" | null;
+  twocOutcome: TwocOutcome | null;
   notes: string | null;
   details: Record<string, unknown>;
   occurredAt: string;

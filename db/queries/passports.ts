@@ -14,6 +14,7 @@ import {
   user,
   type Passport,
 } from "@/db/schema";
+import type { TwocOutcome } from "@/lib/clinical";
 
 export type PassportSummary = {
   id: string;
@@ -148,7 +149,7 @@ export type BookletRecord = {
     episodeId: string;
     kind: (typeof episodeEvents.$inferSelect)["kind"];
     reason: (typeof episodeEvents.$inferSelect)["reason"];
-    twocOutcome: "passed" | "failed" | null;
+    twocOutcome: TwocOutcome | null;
     occurredAt: Date;
     recordedByName: string;
     organisationName: string | null;

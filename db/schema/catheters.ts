@@ -1,24 +1,22 @@
 // Catheter episodes (one catheter in one patient, insertion to removal), their events and bag changes.
-// Enum values match the types of lib/clinical so a row can be handed to the rules as it is.
+// Enum values are lib/clinical's own, so a row can be handed to the rules as it is.
 import { sql } from "drizzle-orm";
+import {
+  BAG_KINDS,
+  CATHETER_TYPES,
+  EPISODE_EVENT_KINDS,
+  GEL_KINDS,
+  LENGTH_CATEGORIES,
+  MATERIALS,
+  ROUTES,
+  TWOC_OUTCOMES,
+  UNPLANNED_REASONS,
+} from "@/lib/clinical";
 import { boolean, check, date, index, integer, jsonb, numeric, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { user } from "./auth";
 import { timestamps } from "./columns";
 import { organisations } from "./organisations";
 import { patients } from "./patients";
-
-export const routes = ["urethral", "suprapubic"] as const;
-export const catheterTypes = ["two-way", "three-way"] as const;
-export const materials = [
-  "all-silicone",
-  "hydrogel-coated-silicone",
-  "hydrogel-coated-latex",
-  "silicone-coated-latex",
-  "ptfe-coated-latex",
-  "latex",
-] as const;
-export const lengthCategories = ["standard", "female", "paediatric"] as const;
-export const gelKinds = ["none", "plain", "lidocaine", "chlorhexidine", "lidocaine-chlorhexidine"] as const;
 
 export const catheterEpisodes = pgTable(
   "catheter_episodes",
@@ -29,10 +27,10 @@ export const catheterEpisodes = pgTable(
       .references(() => patients.id, { onDelete: "cascade" }),
     organisationId: uuid("organisation_id").references(() => organisations.id, { onDelete: "set null" }),
     previousEpisodeId: uuid("previous_episode_id"),
-    route: text("route", { enum: routes }).notNull(),
-    catheterType: text("catheter_type", { enum: catheterTypes }).notNull(),
-    material: text("material", { enum: materials }).notNull(),
-    lengthCategory: text("length_category", { enum: lengthCategories }).notNull(),
+    route: text("route", { enum: ROUTES }).notNull(),
+    catheterType: text("catheter_type", { enum: CATHETER_TYPES }).notNull(),
+    material: text("material", { enum: MATERIALS }).notNull(),
+    lengthCategory: text("length_category", { enum: LENGTH_CATEGORIES }).notNull(),
     sizeCh: integer("size_ch").notNull(),
     balloonMl: integer("balloon_ml").notNull(),
     makerBalloonMl: integer("maker_balloon_ml"),
@@ -47,7 +45,7 @@ export const catheterEpisodes = pgTable(
     insertedAt: timestamp("inserted_at", { withTimezone: true }).notNull(),
     insertedByUserId: text("inserted_by_user_id").references(() => user.id, { onDelete: "set null" }),
     insertedByName: text("inserted_by_name").notNull(),
-    gelKind: text("gel_kind", { enum: gelKinds }).notNull().default("none"),
+    gelKind: text("gel_kind", { enum: GEL_KINDS }).notNull().default("none"),
     gelVolumeMl: numeric("gel_volume_ml", { precision: 4, scale: 1, mode: "number" }),
     residualUrineMl: integer("residual_urine_ml"),
     urineDescription: text("urine_description"),
@@ -85,18 +83,6 @@ export const catheterEpisodes = pgTable(
   ],
 );
 
-export const eventKinds = [
-  "insertion",
-  "planned_change",
-  "unplanned_change",
-  "problem",
-  "removal",
-  "twoc_outcome",
-  "visit",
-  "review",
-] as const;
-export const unplannedReasons = ["blockage", "bypassing", "expelled", "infection", "other"] as const;
-
 export const episodeEvents = pgTable(
   "episode_events",
   {
@@ -107,9 +93,9 @@ export const episodeEvents = pgTable(
     patientId: uuid("patient_id")
       .notNull()
       .references(() => patients.id, { onDelete: "cascade" }),
-    kind: text("kind", { enum: eventKinds }).notNull(),
-    reason: text("reason", { enum: unplannedReasons }),
-    twocOutcome: text("twoc_outcome", { enum: ["passed", "failed"] }),
+    kind: text("kind", { enum: EPISODE_EVENT_KINDS }).notNull(),
+    reason: text("reason", { enum: UNPLANNED_REASONS }),
+    twocOutcome: text("twoc_outcome", { enum: TWOC_OUTCOMES }),
     notes: text("notes"),
     details: jsonb("details").$type<Record<string, unknown>>().notNull().default(sql`'{}'::jsonb`),
     occurredAt: timestamp("occurred_at", { withTimezone: true }).notNull(),
@@ -126,8 +112,6 @@ export const episodeEvents = pgTable(
   ],
 );
 
-export const bagKinds = ["leg-bag", "valve"] as const;
-
 // "I changed my leg bag / valve today", logged by the patient or carer; the next change is
 // worked out by lib/clinical nextBagChange from the latest row of each kind.
 export const bagChanges = pgTable(
@@ -137,7 +121,7 @@ export const bagChanges = pgTable(
     patientId: uuid("patient_id")
       .notNull()
       .references(() => patients.id, { onDelete: "cascade" }),
-    kind: text("kind", { enum: bagKinds }).notNull(),
+    kind: text("kind", { enum: BAG_KINDS }).notNull(),
     changedOn: date("changed_on").notNull(),
     recordedByUserId: text("recorded_by_user_id").references(() => user.id, { onDelete: "set null" }),
     ...timestamps,

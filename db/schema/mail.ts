@@ -6,6 +6,7 @@ import { timestamps } from "./columns";
 import { organisations } from "./organisations";
 import { patients } from "./patients";
 import { catheterEpisodes } from "./catheters";
+import type { SupplyItemKind } from "@/lib/clinical";
 
 export const outboundStatuses = ["queued", "sending", "sent", "failed"] as const;
 export type OutboundStatus = (typeof outboundStatuses)[number];
@@ -63,9 +64,8 @@ export const outboundMessages = pgTable(
   ],
 );
 
-export const supplyItemKinds = ["catheter", "leg-bag", "night-bag", "valve", "gel"] as const;
 export type SupplyRequestItem = {
-  item: (typeof supplyItemKinds)[number];
+  item: SupplyItemKind;
   /** From lib/clinical suppliesFor for the period. */
   computed: number;
   /** What the nurse asked for after review. */

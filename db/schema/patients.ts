@@ -4,8 +4,8 @@ import { boolean, check, date, index, integer, numeric, pgTable, primaryKey, tex
 import { user } from "./auth";
 import { timestamps } from "./columns";
 import { organisations } from "./organisations";
+import { SEXES } from "@/lib/clinical";
 
-export const sexes = ["female", "male", "other", "unknown"] as const;
 
 export const patients = pgTable(
   "patients",
@@ -19,7 +19,7 @@ export const patients = pgTable(
     familyName: text("family_name").notNull(),
     healthRecordNumber: text("health_record_number").notNull(),
     dateOfBirth: date("date_of_birth").notNull(),
-    sex: text("sex", { enum: sexes }).notNull(),
+    sex: text("sex", { enum: SEXES }).notNull(),
     preferredLocale: text("preferred_locale").notNull().default("en"),
     weightKg: numeric("weight_kg", { precision: 5, scale: 1, mode: "number" }),
     phone: text("phone"),

@@ -4,8 +4,8 @@ import { check, index, integer, jsonb, pgTable, text, timestamp, uuid } from "dr
 import { user } from "./auth";
 import { timestamps } from "./columns";
 import { patients } from "./patients";
+import { TRIAGE_LEVELS } from "@/lib/clinical";
 
-export const checkInLevels = ["emergency", "urgent", "soon", "self-care"] as const;
 
 export const checkIns = pgTable(
   "check_ins",
@@ -16,7 +16,7 @@ export const checkIns = pgTable(
       .references(() => patients.id, { onDelete: "cascade" }),
     reportedByUserId: text("reported_by_user_id").references(() => user.id, { onDelete: "set null" }),
     answers: jsonb("answers").$type<Record<string, unknown>>().notNull(),
-    level: text("level", { enum: checkInLevels }).notNull(),
+    level: text("level", { enum: TRIAGE_LEVELS }).notNull(),
     ruleIds: text("rule_ids").array().notNull(),
     idempotencyKey: text("idempotency_key").notNull().unique(),
     // When the person answered, as the phone tells it (an offline check-in arrives later).

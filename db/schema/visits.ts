@@ -6,6 +6,7 @@ import { timestamps } from "./columns";
 import { organisations } from "./organisations";
 import { patients } from "./patients";
 import { episodeEvents } from "./catheters";
+import { CONSCIOUSNESS_LEVELS, NEWS2_RESPONSE_KEYS, NEWS2_RISKS } from "@/lib/clinical";
 
 // Time-limited access for a clinician outside the care team, opened from the passport QR.
 export const visitAccess = pgTable(
@@ -27,9 +28,6 @@ export const visitAccess = pgTable(
 
 // NEWS2 observations taken on a visit (RCP NEWS2 2017). The values as entered, and the score
 // lib/clinical scoreNews2 gave on the server when they were saved (never recomputed on read).
-export const consciousnessLevels = ["A", "C", "V", "P", "U"] as const;
-export const news2Risks = ["low", "low-medium", "medium", "high"] as const;
-export const news2ResponseKeys = ["routine", "ward-assessment", "urgent-ward-review", "urgent", "emergency"] as const;
 
 export const observations = pgTable(
   "observations",
@@ -47,12 +45,12 @@ export const observations = pgTable(
     onOxygen: boolean("on_oxygen").notNull(),
     systolicBp: integer("systolic_bp").notNull(),
     pulse: integer("pulse").notNull(),
-    consciousness: text("consciousness", { enum: consciousnessLevels }).notNull(),
+    consciousness: text("consciousness", { enum: CONSCIOUSNESS_LEVELS }).notNull(),
     temperatureC: numeric("temperature_c", { precision: 3, scale: 1, mode: "number" }).notNull(),
     news2Total: integer("news2_total").notNull(),
     news2Subscores: jsonb("news2_subscores").$type<Record<string, number>>().notNull(),
-    news2Risk: text("news2_risk", { enum: news2Risks }).notNull(),
-    news2Response: text("news2_response", { enum: news2ResponseKeys }).notNull(),
+    news2Risk: text("news2_risk", { enum: NEWS2_RISKS }).notNull(),
+    news2Response: text("news2_response", { enum: NEWS2_RESPONSE_KEYS }).notNull(),
     recordedByUserId: text("recorded_by_user_id").references(() => user.id, { onDelete: "set null" }),
     recordedByName: text("recorded_by_name").notNull(),
     organisationId: uuid("organisation_id").references(() => organisations.id, { onDelete: "set null" }),

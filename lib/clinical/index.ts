@@ -11,6 +11,7 @@ export * from "./gtin";
 export * from "./gs1";
 export * from "./size";
 export * from "./device-types";
+export * from "./record-vocabulary";
 export * from "./device-check";
 export * from "./plan-dates";
 export * from "./blockage";

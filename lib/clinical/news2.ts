@@ -6,7 +6,9 @@ import {
 } from "./errors";
 import type { SourceId } from "./sources";
 
-export type Consciousness = "A" | "C" | "V" | "P" | "U";
+/** ACVPU: alert, new confusion, responds to voice, to pain, unresponsive. */
+export const CONSCIOUSNESS_LEVELS = ["A", "C", "V", "P", "U"] as const;
+export type Consciousness = (typeof CONSCIOUSNESS_LEVELS)[number];
 
 export interface News2Observations {
   respirationRate: number;
@@ -20,7 +22,8 @@ export interface News2Observations {
   temperatureC: number;
 }
 
-export type News2Risk = "low" | "low-medium" | "medium" | "high";
+export const NEWS2_RISKS = ["low", "low-medium", "medium", "high"] as const;
+export type News2Risk = (typeof NEWS2_RISKS)[number];
 
 /**
  * Stable key plus English text (chart 4). Other code translates by key:
@@ -30,7 +33,8 @@ export type News2Risk = "low" | "low-medium" | "medium" | "high";
  * - `urgent`: total 5-6
  * - `emergency`: total 7 or more
  */
-export type News2ResponseKey = "routine" | "ward-assessment" | "urgent-ward-review" | "urgent" | "emergency";
+export const NEWS2_RESPONSE_KEYS = ["routine", "ward-assessment", "urgent-ward-review", "urgent", "emergency"] as const;
+export type News2ResponseKey = (typeof NEWS2_RESPONSE_KEYS)[number];
 
 export interface News2Response {
   key: News2ResponseKey;

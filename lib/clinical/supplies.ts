@@ -26,7 +26,8 @@ export interface SupplyPlan {
   valveChangeDays?: number;
 }
 
-export type SupplyItemKind = "catheter" | "leg-bag" | "night-bag" | "valve" | "gel";
+export const SUPPLY_ITEMS = ["catheter", "leg-bag", "night-bag", "valve", "gel"] as const;
+export type SupplyItemKind = (typeof SUPPLY_ITEMS)[number];
 
 export interface SupplyLine {
   item: SupplyItemKind;
@@ -79,7 +80,8 @@ export function suppliesFor(plan: SupplyPlan, days: number): SupplyList {
   return { days, lines };
 }
 
-export type BagKind = "leg-bag" | "valve";
+export const BAG_KINDS = ["leg-bag", "valve"] as const;
+export type BagKind = (typeof BAG_KINDS)[number];
 
 export interface BagInUse {
   kind: BagKind;

@@ -8,6 +8,7 @@ import { loadGpSummaryFacts, type DeviceFacts, type GpSummaryCause, type GpSumma
 import { emailDates, emailLocale, emailTranslator, type EmailT } from "./i18n";
 import { queueMessage, type QueuedMessage } from "./outbox";
 import { renderEmail, type Block, type EmailContent } from "./render";
+import { REMOVAL_REASONS } from "@/lib/clinical";
 
 export type { GpSummaryCause, GpSummaryFacts };
 
@@ -116,7 +117,7 @@ export function gpSummaryContent(facts: GpSummaryFacts, locale: string): EmailCo
     if (c === "twoc" && facts.event?.twocOutcome) rows.push({ label: t("gp.twocOutcome"), value: t(`enum.twoc.${facts.event.twocOutcome}`) });
     const reason = facts.previous?.removalReason;
     if (c === "removal" && reason) {
-      const known = ["no-longer-needed", "trial-without-catheter", "problem", "patient-choice", "other"].includes(reason);
+      const known = (REMOVAL_REASONS as readonly string[]).includes(reason);
       rows.push({ label: t("gp.removalReason"), value: known ? t(`enum.removalReason.${reason as "other"}`) : reason });
     }
     if (facts.event?.notes) rows.push({ label: t("gp.notes"), value: facts.event.notes });

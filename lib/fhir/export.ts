@@ -2,9 +2,10 @@ import "server-only";
 // A patient's record as a FHIR R4 Bundle (type "collection"): Patient, one Device and one
 // DeviceUseStatement per catheter, and one Observation per NEWS2 score. Pure: the caller loads
 // the rows and checks access. References are urn:uuid full URLs inside the Bundle.
-// Codes: SNOMED CT 23973005 "Indwelling urinary catheter, device" (HL7 R4 device-kind value set)
-// and UK SNOMED 1104051000000101 for the NEWS2 total (a public FHIR implementation guide), both
-// as seen in /work/shared/references/clinical-checks.md section 8.
+// Codes: SNOMED CT 23973005 "Indwelling urinary catheter, device" (HL7 FHIR R4, value set
+// device-kind) and the UK edition of SNOMED CT's 1104051000000101, the NEWS2 total score
+// (NHS England's UK Core FHIR implementation guide uses it for the NEWS2 observation).
+import type { Sex } from "@/lib/clinical";
 
 export type FhirInput = {
   patient: {
@@ -13,7 +14,7 @@ export type FhirInput = {
     familyName: string;
     healthRecordNumber: string;
     dateOfBirth: string;
-    sex: "female" | "male" | "other" | "unknown";
+    sex: Sex;
     preferredLocale: string;
   };
   episodes: {

@@ -2,7 +2,7 @@ import "server-only";
 // Fixed-window counters in PostgreSQL (table attempt_counters) for Caddis's own endpoints that
 // take a guessable secret: activation codes, carer-invitation sign-ins and the passport device
 // card. better-auth's own rate_limit table covers only its endpoints, and calls through
-// auth.api.* are not limited (security-accessibility.md). Keys are per client address (hashed),
+// auth.api.* are not limited (better-auth 1.7 documentation, rate limit). Keys are per client address (hashed),
 // so nobody can lock a patient out of their account by guessing from elsewhere (ASVS 6.1.1, 2.4.1).
 import { sql } from "drizzle-orm";
 import { db, type Executor } from "@/db";

@@ -1,6 +1,6 @@
 import "server-only";
 // Opening a patient's record as staff: the access check and the audit event together, so no
-// view or change of a record can skip either (architecture.md, access rules).
+// view or change of a record can skip either (docs/security.md, access rules).
 import type { Executor } from "@/db";
 import { audit } from "@/lib/records/audit";
 import { requireStaffPatientAccess } from "@/lib/auth/permissions";

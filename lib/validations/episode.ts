@@ -8,18 +8,12 @@ import {
   GEL_KINDS,
   LENGTH_CATEGORIES,
   MATERIALS,
+  REMOVAL_REASONS,
   ROUTES,
+  TWOC_FAILED_ACTIONS,
+  TWOC_OUTCOMES,
+  UNPLANNED_REASONS,
 } from "@/lib/clinical";
-
-export const UNPLANNED_REASONS = ["blockage", "bypassing", "expelled", "infection", "other"] as const;
-export type UnplannedReason = (typeof UNPLANNED_REASONS)[number];
-
-export const REMOVAL_REASONS = ["no-longer-needed", "trial-without-catheter", "problem", "patient-choice", "other"] as const;
-export type RemovalReason = (typeof REMOVAL_REASONS)[number];
-
-export const TWOC_OUTCOMES = ["passed", "failed"] as const;
-export const TWOC_FAILED_ACTIONS = ["re-catheterised", "intermittent-self-catheterisation", "referred", "other"] as const;
-export type TwocFailedAction = (typeof TWOC_FAILED_ACTIONS)[number];
 
 export const RECORD_KINDS = ["insertion", "change", "removal", "twoc"] as const;
 export type RecordKind = (typeof RECORD_KINDS)[number];

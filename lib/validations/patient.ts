@@ -3,8 +3,8 @@
 // translated message whether the client or the server found the problem.
 import { z } from "zod";
 import { locales } from "@/lib/i18n/routing";
+import { SEXES } from "@/lib/clinical";
 
-export const patientSexes = ["female", "male", "other", "unknown"] as const;
 export const patientLocales = locales;
 
 /** Free format per deployment: 3–20 letters, digits, spaces or hyphens, kept upper-case. */
@@ -47,7 +47,7 @@ export const patientSchema = z.object({
     .pipe(z.iso.date({ error: "date_invalid" }))
     .refine((d) => d >= EARLIEST_BIRTH_DATE, { error: "dob_too_early" })
     .refine((d) => d <= latestBirthDate(), { error: "dob_future" }),
-  sex: z.enum(patientSexes, { error: "required" }),
+  sex: z.enum(SEXES, { error: "required" }),
   preferredLocale: z.enum(patientLocales, { error: "required" }),
   weightKg: z
     .number({ error: "weight_range" })

@@ -2,8 +2,8 @@
 // uses, and the quantities (the server recomputes the suggested ones with lib/clinical).
 // Messages are keys of Supplies.errors, translated by the form.
 import { z } from "zod";
+import { SUPPLY_ITEMS } from "@/lib/clinical";
 
-export const supplyItems = ["catheter", "leg-bag", "night-bag", "valve", "gel"] as const;
 export const supplyPeriodChoices = [7, 14, 28, 56, 84] as const;
 export const DEFAULT_SUPPLY_PERIOD = 28;
 
@@ -14,12 +14,12 @@ export const supplyRequestSchema = z
     items: z
       .array(
         z.object({
-          item: z.enum(supplyItems),
+          item: z.enum(SUPPLY_ITEMS),
           quantity: z.number({ error: "quantity" }).int("quantity").min(0, "quantity").max(999, "quantity"),
         }),
       )
       .min(1, "nothing")
-      .max(supplyItems.length),
+      .max(SUPPLY_ITEMS.length),
     note: z.string().trim().max(1000, "note").optional(),
   })
   .superRefine((v, ctx) => {

@@ -4,6 +4,7 @@
 import { z } from "zod";
 import { NEWS2_BOUNDS } from "@/lib/clinical";
 import { pastInstant } from "./episode";
+import { CONSCIOUSNESS_LEVELS } from "@/lib/clinical";
 
 const blank = (v: unknown) =>
   v === "" || v === null || (typeof v === "number" && Number.isNaN(v)) || (typeof v === "string" && v.trim() === "") ? undefined : v;
@@ -19,7 +20,6 @@ const measure = (bounds: { min: number; max: number }, whole: boolean) =>
       .max(bounds.max, { error: "out_of_range" }),
   );
 
-export const CONSCIOUSNESS = ["A", "C", "V", "P", "U"] as const;
 
 export const observationsSchema = z.object({
   respirationRate: measure(NEWS2_BOUNDS.respirationRate, true),
@@ -28,7 +28,7 @@ export const observationsSchema = z.object({
   onOxygen: z.preprocess((v) => (v === "true" ? true : v === "false" ? false : v), z.boolean({ error: "choose_one" })),
   systolicBp: measure(NEWS2_BOUNDS.systolicBp, true),
   pulse: measure(NEWS2_BOUNDS.pulse, true),
-  consciousness: z.preprocess(blank, z.enum(CONSCIOUSNESS, { error: "choose_one" })),
+  consciousness: z.preprocess(blank, z.enum(CONSCIOUSNESS_LEVELS, { error: "choose_one" })),
   // The chart's resolution is 0.1 °C.
   temperatureC: z.preprocess(
     numberFrom,

@@ -14,7 +14,7 @@ import { demo } from "../support/http";
 import { launch, newPage, screenshot, signInAs } from "./support/browser";
 import { writeLabelVideo } from "./support/fake-camera";
 
-// Source: clinical-checks.md §7 (GS1 General Specifications): 0109506000134352 17281100 10AB12
+// Source: GS1 General Specifications, AIs (01) GTIN, (17) expiry, (10) lot, (21) serial and the check digit of section 7.9.1: 0109506000134352 17281100 10AB12
 // GS 21XYZ → GTIN 09506000134352, expiry 2028-11-30, lot AB12, serial XYZ; the check digit is valid.
 const LABEL_BEFORE_GS = "0109506000134352" + "17281100" + "10AB12";
 const LABEL_AFTER_GS = "21XYZ";
@@ -170,7 +170,7 @@ describe("recording an insertion in Chromium", () => {
     const patientId = await makePatient();
     const page = await nurse();
     await page.goto(`/en/patients/${patientId}/record/insertion`);
-    // Source: clinical-checks.md §7: 09506000134353 has a wrong check digit.
+    // Source: GS1 General Specifications, section 7.9.1 (check digit): 09506000134353 is wrong.
     await page.getByTestId("scan-input").fill("(01)09506000134353(17)281100(10)AB12");
     await page.getByTestId("scan-read").click();
     await expect.poll(() => page.getByTestId("scan-errors").textContent()).toContain("check digit is wrong");

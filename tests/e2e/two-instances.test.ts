@@ -1,5 +1,5 @@
 // The app server keeps no state: two instances on one PostgreSQL share sessions and the
-// sign-in rate limit (architecture.md, "past one machine").
+// sign-in rate limit (README.md, "Past one machine").
 import { spawn, type ChildProcess } from "node:child_process";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";

@@ -34,7 +34,7 @@ function insertionBody(over: Record<string, unknown> = {}) {
     ...demoDevice,
     productName: "Silicone two-way 14 Ch (demo)",
     lot: "AB12",
-    // Source: clinical-checks.md §7, worked element string (expiry 2028-11-30, valid check digit).
+    // Source: GS1 General Specifications, AIs (01) GTIN, (17) expiry, (10) lot, (21) serial and the check digit of section 7.9.1: expiry 2028-11-30, valid check digit.
     expiry: "2028-11-30",
     gtin: "09506000134352",
     serial: "XYZ",

@@ -34,7 +34,7 @@ beforeAll(async () => {
     body: {
       route: "urethral", catheterType: "two-way", material: "all-silicone", lengthCategory: "standard", sizeCh: 14, balloonMl: 10,
       maker: "Northfen Medical (demo)", productName: "Silicone two-way 14 Ch (demo)", lot: "AB12",
-      // Source: clinical-checks.md §7, worked element string (GTIN 09506000134352, expiry 2028-11-30, lot AB12, serial XYZ).
+      // Source: GS1 General Specifications, AIs (01) GTIN, (17) expiry, (10) lot, (21) serial and the check digit of section 7.9.1 (GTIN 09506000134352, expiry 2028-11-30, lot AB12, serial XYZ).
       expiry: "2028-11-30", gtin: "09506000134352", serial: "XYZ", udi: "010950600013435217281100" + "10AB12\u001d21XYZ",
       indication: "Chronic urinary retention", insertedAt: minutesAgo(40), gelKind: "plain", gelVolumeMl: 11, attempts: 1,
       maxDwellDays: 84, reviewIntervalDays: 28, overrides: [], changeKind: "planned", needReviewed: true,
@@ -78,7 +78,7 @@ describe("GET /api/patients/[patientId]/fhir", () => {
       expirationDate: "2028-11-30",
       manufacturer: "Northfen Medical (demo)",
       serialNumber: "XYZ",
-      // Source: HL7 R4 device-kind value set, SNOMED CT 23973005 (clinical-checks.md §8).
+      // Source: HL7 FHIR R4, value set device-kind: SNOMED CT 23973005 "Indwelling urinary catheter, device".
       type: { coding: [{ system: "http://snomed.info/sct", code: "23973005" }] },
     });
     expect(devices.filter((d) => d.status === "inactive").length).toBe(devices.length - 1);
@@ -89,7 +89,7 @@ describe("GET /api/patients/[patientId]/fhir", () => {
       expect(fullUrls.has((s.subject as { reference: string }).reference)).toBe(true);
     }
     const [news2] = of("Observation");
-    // Source: UK SNOMED 1104051000000101 for the NEWS2 total (clinical-checks.md §8).
+    // Source: UK edition of SNOMED CT, 1104051000000101 (NEWS2 total score), as NHS England's UK Core FHIR guide uses it.
     expect(news2).toMatchObject({ status: "final", valueInteger: 6, code: { coding: [{ code: "1104051000000101" }] } });
     expect((news2.component as unknown[]).length).toBe(7);
   });

@@ -38,7 +38,7 @@ function changeBody() {
   return {
     ...demoDevice,
     lot: "QR12",
-    // Source: clinical-checks.md §7, worked element string (expiry 2028-11-30, valid check digit).
+    // Source: GS1 General Specifications, AIs (01) GTIN, (17) expiry, (10) lot, (21) serial and the check digit of section 7.9.1: expiry 2028-11-30, valid check digit.
     expiry: "2028-11-30",
     gtin: "09506000134352",
     indication: "Chronic urinary retention",

@@ -3,7 +3,7 @@
 import { describe, expect, it } from "vitest";
 import { GS, isGroupSeparatorKey, normaliseScan, readScan, showScan } from "@/lib/browser/gs1-input";
 
-// Source: clinical-checks.md §7 (GS1 General Specifications worked element string):
+// Source: GS1 General Specifications, AIs (01) GTIN, (17) expiry, (10) lot, (21) serial and the check digit of section 7.9.1:
 // 0109506000134352 17281100 10AB12 GS 21XYZ → GTIN 09506000134352, expiry 2028-11-30, lot AB12, serial XYZ.
 const expected = { gtin: "09506000134352", expiry: "2028-11-30", lot: "AB12", serial: "XYZ", errors: [] };
 const today = "2026-06-01";
@@ -33,7 +33,7 @@ describe("normaliseScan / readScan", () => {
   });
 
   it("reports a wrong check digit and does not fill the GTIN", () => {
-    // Source: clinical-checks.md §7: 09506000134353 is invalid.
+    // Source: GS1 General Specifications, section 7.9.1 (check digit): 09506000134353 is invalid.
     const r = readScan("(01)09506000134353(17)281100(10)AB12", today);
     expect(r.gtin).toBeUndefined();
     expect(r.errors.join(" ")).toMatch(/AI 01: check digit is wrong/);

@@ -1,5 +1,6 @@
-// Every English guidance page reads at Flesch–Kincaid grade 6 or below (clinical-checks.md §9:
-// target grade ≤ 6 for patient pages), and every page of every locale is complete.
+// Every English guidance page reads at Flesch–Kincaid grade 6 or below (Caddis's target for
+// patient pages, docs/design.md: below the Patient Information Forum's reading age of 9–11 and the
+// 6th–8th grade US health-literacy bodies advise), and every page of every locale is complete.
 import fs from "node:fs";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
@@ -12,8 +13,9 @@ type Page = { title: string; summary: string; sections: LearnSection[] };
 const pageBlocks = (p: Page) => [p.title, p.summary, ...p.sections.flatMap((s) => [s.heading, ...s.points])];
 
 describe("readability measure", () => {
-  // Source: security-accessibility.md, "Plain language — measuring grade": a known-easy sample
-  // of 38 words, 5 sentences and 44 syllables must score 1.04. (Our own sample text with those counts.)
+  // Source: Kincaid et al., Derivation of New Readability Formulas for Navy Enlisted Personnel
+  // (1975), the grade formula 0.39 × words/sentence + 11.8 × syllables/word − 15.59: 38 words,
+  // 5 sentences and 44 syllables give 1.04 by hand. (Our own sample text with those counts.)
   const sample =
     "Wash your hands with water. Keep the bag lower on your leg. Drink a glass of water now and then. Tell the nurses if it itches. Call us when the tube is blocked or the bag stays empty.";
 

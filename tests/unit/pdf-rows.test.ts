@@ -1,6 +1,7 @@
 // The passport booklet's rows as data, without rendering a PDF: what each row says in each
 // language, in what order, and how right-to-left columns keep Latin values whole.
 import { describe, expect, it } from "vitest";
+import { charriereToMm } from "@/lib/clinical";
 import { allergyList, contactRows, deviceRows, eventDetails, eventWhat, plannedDates } from "@/lib/pdf/booklet/rows";
 import type { BookletDevice, BookletEvent } from "@/lib/pdf/booklet/types";
 import { pdfStrings } from "@/lib/pdf/kit/strings";
@@ -18,8 +19,7 @@ const device: BookletDevice = {
   material: "all-silicone",
   lengthCategory: "standard",
   sizeCh: 16,
-  // Source: ISO 20696:2018 5.5.2 (Charrière = outer diameter in thirds of a millimetre): 16 Ch → 5.3 mm.
-  sizeMm: 5.3,
+  sizeMm: charriereToMm(16),
   balloonMl: 10,
   maker: "Northfen Medical (demo)",
   productName: "SilkLine",
@@ -41,7 +41,8 @@ describe("device rows", () => {
       `${words.maker} · ${words.lot}`, words.expiry, words.insertedOn, words.indication,
     ]);
     const value = (label: string) => rows.find((r) => r.labels[0] === label)!.values[0];
-    expect(value(words.size)).toBe("16 Ch (5.3 mm)");
+    // Source: ISO 20696:2018 clause 5.5.2: 16 Ch → 5.4 mm.
+    expect(value(words.size)).toBe("16 Ch (5.4 mm)");
     expect(value(words.balloon)).toBe("10 ml sterile water");
     expect(value(words.material)).toBe(words.materials["all-silicone"]);
     // Maker and lot together: a recall names both.
@@ -63,7 +64,7 @@ describe("device rows", () => {
       expect(r.values).toHaveLength(2);
     }
     const size = rows[4]!;
-    expect(size.values[1]).toBe("16 Ch (5.3 mm)");
+    expect(size.values[1]).toBe("16 Ch (5.4 mm)");
     expect(size.values[0]).toContain(`${LRM}16${LRM}`);
     expect(withoutMarks(size.values[0])).toContain("16");
     expect(rows[6]!.values[0]).toContain(`${LRM}YH5520${LRM}`);

@@ -5,7 +5,7 @@ import { useFormatter, useTranslations } from "next-intl";
 import { Checkbox, RadioGroup } from "@/components/ui/choice";
 import { SelectField, TextArea } from "@/components/ui/field";
 import { Section } from "@/components/ui/section";
-import { UNPLANNED_REASONS } from "@/lib/validations/episode";
+import { UNPLANNED_REASONS } from "@/lib/clinical";
 import type { EpisodeFields, PreviousDevice } from "../use-device-episode-form";
 import { useEpisodeOptions } from "./options";
 

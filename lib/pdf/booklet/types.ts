@@ -1,16 +1,12 @@
 import "server-only";
 // What the passport booklet prints: loaded by lib/passport from the record, never more.
+import type { CatheterType, EpisodeEventKind, LengthCategory, Material, Route, TwocOutcome, UnplannedReason } from "@/lib/clinical";
+
 export type BookletDevice = {
-  route: "urethral" | "suprapubic";
-  catheterType: "two-way" | "three-way";
-  material:
-    | "all-silicone"
-    | "hydrogel-coated-silicone"
-    | "hydrogel-coated-latex"
-    | "silicone-coated-latex"
-    | "ptfe-coated-latex"
-    | "latex";
-  lengthCategory: "standard" | "female" | "paediatric";
+  route: Route;
+  catheterType: CatheterType;
+  material: Material;
+  lengthCategory: LengthCategory;
   sizeCh: number;
   /** Outer diameter from lib/clinical charriereToMm. */
   sizeMm: number;
@@ -31,14 +27,14 @@ export type BookletDevice = {
 
 export type BookletEvent = {
   at: Date;
-  kind: "insertion" | "planned_change" | "unplanned_change" | "problem" | "removal" | "twoc_outcome" | "visit" | "review";
-  reason: "blockage" | "bypassing" | "expelled" | "infection" | "other" | null;
-  twocOutcome: "passed" | "failed" | null;
+  kind: EpisodeEventKind;
+  reason: UnplannedReason | null;
+  twocOutcome: TwocOutcome | null;
   byName: string;
   organisationName: string | null;
   /** The catheter this event put in (insertions and changes). */
   sizeCh: number | null;
-  material: BookletDevice["material"] | null;
+  material: Material | null;
   lot: string | null;
 };
 

@@ -37,7 +37,7 @@ describe("checkDevice", () => {
     ["no lot", { lot: " " }, {}, "info:lot-missing"],
     // Source: GS1 General Specifications 7.9.1 (09506000134353 invalid)
     ["wrong GTIN check digit", { gtin: "09506000134353" }, {}, "warn:gtin-invalid"],
-    // Source: ask about latex allergy before catheterising (clinical-checks.md section 10)
+    // Source: lib/clinical/sources.ts latex-ask-before (ask about latex allergy before catheterising)
     ["latex catheter, latex allergy", { material: "ptfe-coated-latex" }, { allergies: { latex: true } }, "stop:latex-allergy"],
     ["hydrogel-coated latex, latex allergy", { material: "hydrogel-coated-latex" }, { allergies: { latex: true } }, "stop:latex-allergy"],
     ["silicone-coated latex, latex allergy", { material: "silicone-coated-latex" }, { allergies: { latex: true } }, "stop:latex-allergy"],
@@ -49,7 +49,7 @@ describe("checkDevice", () => {
     // common practice, no source
     ["lidocaine gel, lidocaine allergy", { gel: { kind: "lidocaine", volumeMl: 11 } }, { allergies: { lidocaine: true } }, "stop:lidocaine-allergy"],
     ["lidocaine gel, allergy not known", { gel: { kind: "lidocaine" } }, { allergies: {} }, "warn:lidocaine-allergy-unknown"],
-    // common practice, no source (clinical-checks.md section 10): balloon would inflate in the urethra
+    // common practice, no source: a female-length catheter's balloon would inflate in a man's urethra
     ["female length in a male urethra", { lengthCategory: "female" }, {}, "stop:female-length-male"],
     ["female length, sex unknown", { lengthCategory: "female" }, { sex: "unknown" }, "warn:female-length-sex-unknown"],
     ["female length, sex other", { lengthCategory: "female" }, { sex: "other" }, "warn:female-length-sex-unknown"],

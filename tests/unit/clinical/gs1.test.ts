@@ -69,7 +69,7 @@ describe("isValidGtin", () => {
 
 describe("parseGs1", () => {
   it("reads the General Specifications example with a group separator", () => {
-    // Source: GS1 General Specifications (clinical-checks.md section 7 example)
+    // Source: GS1 General Specifications, AIs (01) GTIN, (17) expiry, (10) lot, (21) serial and the check digit of section 7.9.1
     const r = parseGs1(`01095060001343521728110010AB12${GS}21XYZ`, TODAY);
     expect(r).toMatchObject({ gtin: "09506000134352", expiry: "2028-11-30", lot: "AB12", serial: "XYZ", errors: [] });
   });

@@ -62,7 +62,7 @@ describe("triageCheckIn levels", () => {
     // common practice, no source
     ["urethral catheter out", { catheterOut: true, route: "urethral" }, "urgent", "TRIAGE-CATHETER-OUT"],
     ["catheter out, route not given", { catheterOut: true }, "urgent", "TRIAGE-CATHETER-OUT"],
-    // Source: constipation causes blockage, bypassing and spasm (clinical-checks.md section 5)
+    // Source: lib/clinical/sources.ts constipation-blockage (constipation presses on the bladder: blockage, bypassing, spasm)
     ["leaking (bypassing)", { leaking: true }, "soon", "TRIAGE-LEAKING"],
     ["constipated", { constipated: true }, "soon", "TRIAGE-CONSTIPATED"],
     // Source: NICE NG51 (signs of wound infection: moderate-to-high when sepsis is suspected); alone: soon

@@ -1,0 +1,29 @@
+// The words of a catheter's record, defined once: the database schema, the zod schemas, the
+// forms, the PDFs and the labels all take their values from here (device words are in
+// device-types.ts).
+
+/** What happened to a catheter or its patient, as the record lists it. */
+export const EPISODE_EVENT_KINDS = [
+  "insertion",
+  "planned_change",
+  "unplanned_change",
+  "problem",
+  "removal",
+  "twoc_outcome",
+  "visit",
+  "review",
+] as const;
+export type EpisodeEventKind = (typeof EPISODE_EVENT_KINDS)[number];
+
+/** Why a catheter was changed before its planned date. */
+export const UNPLANNED_REASONS = ["blockage", "bypassing", "expelled", "infection", "other"] as const;
+export type UnplannedReason = (typeof UNPLANNED_REASONS)[number];
+
+export const REMOVAL_REASONS = ["no-longer-needed", "trial-without-catheter", "problem", "patient-choice", "other"] as const;
+export type RemovalReason = (typeof REMOVAL_REASONS)[number];
+
+/** A trial without catheter (TWOC): passed, or failed and what was done. */
+export const TWOC_OUTCOMES = ["passed", "failed"] as const;
+export type TwocOutcome = (typeof TWOC_OUTCOMES)[number];
+export const TWOC_FAILED_ACTIONS = ["re-catheterised", "intermittent-self-catheterisation", "referred", "other"] as const;
+export type TwocFailedAction = (typeof TWOC_FAILED_ACTIONS)[number];
