@@ -4,19 +4,51 @@ import "server-only";
 // a once-a-minute sweep of the outbox backs up the workers' own LISTEN and poll.
 // pg-boss sends each scheduled job once however many instances run, and the digest's
 // idempotency keys make even a repeat harmless.
-import { PgBoss } from "pg-boss";
+// pg-boss 10 (its 11 and 12 need Node.js 22): handlers get an array of jobs, retention of
+// finished jobs is set for the whole instance (archive, then delete), not per queue.
+import { sql } from "drizzle-orm";
+import PgBoss from "pg-boss";
+import { db } from "@/db";
 import { env } from "@/lib/config/env";
 
 export const QUEUES = { digest: "care-team-digest", reminders: "change-reminders", sweep: "outbox-sweep", retention: "record-retention" } as const;
 
+/** The schema version this pg-boss writes (its package's version.json). */
+const PG_BOSS_SCHEMA_VERSION = 24;
+const SCHEMA = "pgboss";
+
+/**
+ * A database last used by a newer pg-boss (12 writes a later schema that 10 cannot read or roll
+ * back) gets a fresh pg-boss schema: it holds only the schedules, made again below, and jobs the
+ * next run makes again (the outbox itself is Caddis's own table).
+ */
+async function dropNewerSchema(log: (m: string) => void) {
+  const table = await db.execute<{ found: string | null }>(sql`select to_regclass(${`${SCHEMA}.version`})::text as found`);
+  if (!table.rows[0]?.found) return;
+  const version = (await db.execute<{ version: number }>(sql.raw(`select version from ${SCHEMA}.version limit 1`))).rows[0]?.version;
+  if (version !== undefined && Number(version) > PG_BOSS_SCHEMA_VERSION) {
+    log(`pg-boss: schema version ${version} is newer than this pg-boss (${PG_BOSS_SCHEMA_VERSION}); making it again`);
+    await db.execute(sql.raw(`drop schema ${SCHEMA} cascade`));
+  }
+}
+
 export async function startBoss({ onSweep, log }: { onSweep: () => Promise<void>; log: (m: string) => void }) {
-  const boss = new PgBoss({ connectionString: env.DATABASE_URL, max: 3, application_name: "caddis-jobs" });
+  await dropNewerSchema(log);
+  const boss = new PgBoss({
+    connectionString: env.DATABASE_URL,
+    schema: SCHEMA,
+    max: 3,
+    application_name: "caddis-jobs",
+    // Finished jobs (a sweep a minute) leave the job table after an hour and are gone after a day.
+    archiveCompletedAfterSeconds: 3600,
+    deleteAfterDays: 1,
+  });
   boss.on("error", (e) => log(`pg-boss: ${e instanceof Error ? e.message : String(e)}`));
   await boss.start();
-  await boss.createQueue(QUEUES.digest, { retryLimit: 5, retryDelay: 60, retryBackoff: true, expireInSeconds: 900 });
-  await boss.createQueue(QUEUES.reminders, { retryLimit: 5, retryDelay: 60, retryBackoff: true, expireInSeconds: 900 });
-  await boss.createQueue(QUEUES.sweep, { retryLimit: 0, expireInSeconds: 300, deleteAfterSeconds: 3600 });
-  await boss.createQueue(QUEUES.retention, { retryLimit: 3, retryDelay: 300, retryBackoff: true, expireInSeconds: 3600 });
+  await boss.createQueue(QUEUES.digest, { name: QUEUES.digest, retryLimit: 5, retryDelay: 60, retryBackoff: true, expireInSeconds: 900 });
+  await boss.createQueue(QUEUES.reminders, { name: QUEUES.reminders, retryLimit: 5, retryDelay: 60, retryBackoff: true, expireInSeconds: 900 });
+  await boss.createQueue(QUEUES.sweep, { name: QUEUES.sweep, retryLimit: 0, expireInSeconds: 300 });
+  await boss.createQueue(QUEUES.retention, { name: QUEUES.retention, retryLimit: 3, retryDelay: 300, retryBackoff: true, expireInSeconds: 3600 });
   await boss.schedule(QUEUES.digest, env.DIGEST_CRON, {}, { tz: env.CADDIS_TIME_ZONE });
   await boss.schedule(QUEUES.reminders, env.REMINDER_CRON, {}, { tz: env.CADDIS_TIME_ZONE });
   await boss.schedule(QUEUES.sweep, "* * * * *", {}, { tz: "UTC" });
