@@ -1,9 +1,10 @@
 /**
  * `npm test`: every test, on services this script starts on loopback.
+ *   0. type check, ESLint and knip (`npm test -- lint` alone)
  *   1. unit tests (vitest, with the lib/clinical coverage gate)
  *   2. integration tests on a fresh PostgreSQL database with migrations and the demo seed
  *   3. end-to-end tests in Debian's chromium against the production build of the app
- * `npm test -- unit|integration|e2e` runs one stage; file filters after the stage narrow it
+ * `npm test -- lint|unit|integration|e2e` runs one stage; file filters after the stage narrow it
  * (`npm test -- e2e tests/e2e/passport.test.ts`). The test database is dropped at the end.
  */
 import { spawn, spawnSync } from "node:child_process";
@@ -44,9 +45,12 @@ async function main() {
   const base: NodeJS.ProcessEnv = { ...process.env, NEXT_TELEMETRY_DISABLED: "1", NODE_OPTIONS: "" };
   let ok = true;
 
-  if (stage === "all") {
+  if (stage === "all" || stage === "lint") {
     ok = run(bin("tsc"), ["--noEmit", "-p", "tsconfig.json"], base, "type check (app, scripts and tests)") && ok;
+    ok = run(bin("eslint"), [".", "--max-warnings", "0"], base, "ESLint (Next.js's configuration)") && ok;
+    ok = run(bin("knip"), [], base, "knip (unused files, exports and dependencies)") && ok;
   }
+  if (stage === "lint") return ok;
   if (stage === "all" || stage === "unit") {
     ok = run(bin("vitest"), ["run", "--project", "unit", ...(stage === "all" ? ["--coverage"] : []), ...filters], { ...base, NODE_ENV: "test" }, "unit tests") && ok;
   }

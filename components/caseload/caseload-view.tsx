@@ -259,7 +259,7 @@ function DateWithState({ date, state }: { date: string; state: CaseloadRow["chan
 }
 
 function CaseloadTable({ rows, query, onSort }: { rows: CaseloadRow[]; query: CaseloadQuery; onSort: (s: CaseloadSort) => void }) {
-  const { t, date, device, days } = useCells();
+  const { t, date, days } = useCells();
   const header = (label: string, sort?: CaseloadSort) => {
     if (!sort) return <th scope="col" className="px-2.5 py-3 text-start align-bottom">{label}</th>;
     const active = query.sort === sort;

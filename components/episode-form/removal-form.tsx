@@ -2,6 +2,7 @@
 // Record the removal of the catheter in place, optionally as the start of a trial without catheter.
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useFormatter, useTranslations } from "next-intl";
+import { useState } from "react";
 import { useForm, type Resolver } from "react-hook-form";
 import type { z } from "zod";
 import { Button } from "@/components/ui/button";
@@ -12,6 +13,7 @@ import { ErrorAlert } from "@/components/ui/notice";
 import { Section } from "@/components/ui/section";
 import { useSubmitFailure } from "@/components/ui/use-error-text";
 import { apiFetch } from "@/lib/browser/api-client";
+import { thisMinute } from "@/lib/browser/datetime-input";
 import { useRouter } from "@/lib/i18n/navigation";
 import { REMOVAL_REASONS } from "@/lib/clinical";
 import { removalSchema } from "@/lib/validations/episode";
@@ -26,6 +28,7 @@ export function RemovalForm({ patientId, current }: { patientId: string; current
   const format = useFormatter();
   const router = useRouter();
   const options = useEpisodeOptions();
+  const [now] = useState(thisMinute);
   const {
     register,
     handleSubmit,
@@ -36,7 +39,7 @@ export function RemovalForm({ patientId, current }: { patientId: string; current
     resolver: zodResolver(removalSchema) as unknown as Resolver<Values>,
     mode: "onTouched",
     defaultValues: {
-      removedAt: new Date(Math.floor(Date.now() / 60_000) * 60_000).toISOString(),
+      removedAt: now,
       reason: current.awaitingTwoc ? "trial-without-catheter" : "",
       notes: "",
       startTwoc: current.awaitingTwoc,

@@ -3,7 +3,8 @@
 // catheter after a failed trial is recorded next, on the insertion form.
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useFormatter, useTranslations } from "next-intl";
-import { useFieldArray, useForm, type Resolver } from "react-hook-form";
+import { useState } from "react";
+import { useFieldArray, useForm, useWatch, type Resolver } from "react-hook-form";
 import type { z } from "zod";
 import { Button } from "@/components/ui/button";
 import { ChoiceGroup, RadioGroup } from "@/components/ui/choice";
@@ -13,6 +14,7 @@ import { ErrorAlert } from "@/components/ui/notice";
 import { Section } from "@/components/ui/section";
 import { useSubmitFailure } from "@/components/ui/use-error-text";
 import { apiFetch } from "@/lib/browser/api-client";
+import { thisMinute } from "@/lib/browser/datetime-input";
 import { useRouter } from "@/lib/i18n/navigation";
 import { TWOC_FAILED_ACTIONS } from "@/lib/clinical";
 import { twocSchema } from "@/lib/validations/episode";
@@ -25,18 +27,18 @@ export function TwocForm({ patientId, removedAt }: { patientId: string; removedA
   const format = useFormatter();
   const router = useRouter();
   const options = useEpisodeOptions();
+  const [now] = useState(thisMinute);
   const {
     register,
     handleSubmit,
     control,
-    watch,
     setError,
     formState: { errors, isSubmitting },
   } = useForm<Values>({
     resolver: zodResolver(twocSchema) as unknown as Resolver<Values>,
     mode: "onTouched",
     defaultValues: {
-      occurredAt: new Date(Math.floor(Date.now() / 60_000) * 60_000).toISOString(),
+      occurredAt: now,
       outcome: "",
       voids: [],
       postVoidResidualMl: "",
@@ -46,9 +48,9 @@ export function TwocForm({ patientId, removedAt }: { patientId: string; removedA
   });
   const failure = useSubmitFailure("EpisodeForm", setError);
   const voids = useFieldArray({ control, name: "voids" as never });
-  const outcome = watch("outcome");
-  const failedAction = watch("failedAction");
-  const volumes = (watch("voids") as { volumeMl?: unknown }[] | undefined) ?? [];
+  const outcome = useWatch({ control, name: "outcome" });
+  const failedAction = useWatch({ control, name: "failedAction" });
+  const volumes = (useWatch({ control, name: "voids" }) as { volumeMl?: unknown }[] | undefined) ?? [];
   const total = volumes.reduce<number>((sum, v) => sum + (Number(v?.volumeMl) > 0 ? Number(v.volumeMl) : 0), 0);
   const err = (name: string) => failure.text.at(errors, name);
 

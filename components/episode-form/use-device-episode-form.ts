@@ -9,6 +9,7 @@ import { useForm, type Control, type Resolver, type UseFormRegister } from "reac
 import type { z } from "zod";
 import { useSubmitFailure } from "@/components/ui/use-error-text";
 import { apiFetch, isApiError, setServerFieldErrors } from "@/lib/browser/api-client";
+import { thisMinute } from "@/lib/browser/datetime-input";
 import { planDates, type Material, type PlanDatesResult } from "@/lib/clinical";
 import { useRouter } from "@/lib/i18n/navigation";
 import { reconcileOverrides, runDeviceCheck, type CheckOutcome, type PatientFacts } from "@/lib/shared/episode-checks";
@@ -48,7 +49,7 @@ export type EpisodeFields = {
   draft: DeviceValues;
 };
 
-function startingValues(prev: PreviousDevice | null, defaults: PlanDefaults): DeviceValues {
+function startingValues(prev: PreviousDevice | null, defaults: PlanDefaults, now: string): DeviceValues {
   const s = (v: number | null | undefined) => (v === null || v === undefined ? "" : String(v));
   return {
     route: prev?.route ?? "",
@@ -70,7 +71,7 @@ function startingValues(prev: PreviousDevice | null, defaults: PlanDefaults): De
     largerSizeReason: "",
     maxDwellDays: s(prev?.maxDwellDays),
     indication: prev?.indication ?? "",
-    insertedAt: new Date(Math.floor(Date.now() / 60_000) * 60_000).toISOString(),
+    insertedAt: now,
     residualUrineMl: "",
     urineDescription: "",
     specimenTaken: false,
@@ -103,9 +104,10 @@ export function useDeviceEpisodeForm({
 }) {
   const t = useTranslations("EpisodeForm");
   const router = useRouter();
+  const [now] = useState(thisMinute);
   const { register, handleSubmit, control, watch, setValue, setError, formState } = useForm<DeviceValues>({
     resolver: zodResolver((mode === "change" ? changeSchema : insertionSchema) as typeof changeSchema) as unknown as Resolver<DeviceValues>,
-    defaultValues: startingValues(previous, planDefaults),
+    defaultValues: startingValues(previous, planDefaults, now),
     mode: "onTouched",
   });
   const [overrides, setOverrides] = useState<Record<string, string>>({});

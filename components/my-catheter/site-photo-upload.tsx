@@ -1,6 +1,6 @@
 "use client";
 import { useTranslations } from "next-intl";
-import { useEffect, useState } from "react";
+import { useEffect, useMemo, useState } from "react";
 import { ACCEPTED_PHOTO_TYPES, precheck, uploadFile } from "@/components/uploads/upload-file";
 
 const TYPES: readonly string[] = ACCEPTED_PHOTO_TYPES;
@@ -16,15 +16,12 @@ export function SitePhotoUpload({ patientId }: { patientId: string }) {
   const t = useTranslations("MyCatheter.photo");
   const tu = useTranslations("Uploads");
   const [file, setFile] = useState<File | null>(null);
-  const [preview, setPreview] = useState<string | null>(null);
   const [state, setState] = useState<State>("idle");
-
-  useEffect(() => {
-    if (!file) return setPreview(null);
-    const url = URL.createObjectURL(file);
-    setPreview(url);
-    return () => URL.revokeObjectURL(url);
-  }, [file]);
+  // A local preview of the chosen photo, let go when another is chosen or the page closes.
+  const preview = useMemo(() => (file ? URL.createObjectURL(file) : null), [file]);
+  useEffect(() => () => {
+    if (preview) URL.revokeObjectURL(preview);
+  }, [preview]);
 
   async function send() {
     if (!file) return;

@@ -19,7 +19,6 @@ import {
   EARLIEST_BIRTH_DATE,
   patientLocales,
   patientSchema,
-  patientUpdateSchema,
   type PatientInput,
   type PatientValues,
 } from "@/lib/validations/patient";

@@ -31,7 +31,9 @@ function Camera({ onText }: { onText: (text: string) => void }) {
   const videoRef = useRef<HTMLVideoElement>(null);
   const [failed, setFailed] = useState(false);
   const onTextRef = useRef(onText);
-  onTextRef.current = onText;
+  useEffect(() => {
+    onTextRef.current = onText;
+  }, [onText]);
 
   useEffect(() => {
     let controls: Controls | null = null;

@@ -3,7 +3,7 @@
 // (lib/clinical, the same rule the server applies again when saving).
 import { useTranslations } from "next-intl";
 import { useState } from "react";
-import { useForm, type FieldPath } from "react-hook-form";
+import { useForm, useWatch, type FieldPath } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { Checkbox, RadioGroup } from "@/components/ui/choice";
 import { Field, TextArea } from "@/components/ui/field";
@@ -57,7 +57,7 @@ function liveScore(o: Values["observations"]): News2View | null {
 export function VisitForm({ patientId }: { patientId: string }) {
   const t = useTranslations("VisitForm");
   const [saved, setSaved] = useState<Saved | null>(null);
-  const { register, handleSubmit, setError, clearErrors, watch, formState } = useForm<Values>({
+  const { register, handleSubmit, setError, clearErrors, control, formState } = useForm<Values>({
     defaultValues: {
       occurredAt: toLocalInputValue(new Date().toISOString()),
       notes: "",
@@ -66,9 +66,9 @@ export function VisitForm({ patientId }: { patientId: string }) {
     },
   });
   const failure = useSubmitFailure("VisitForm", setError);
-  const withObs = watch("withObservations");
-  const obs = watch("observations");
-  // Recomputed on every render: watch() may hand back the same object as values change.
+  const withObs = useWatch({ control, name: "withObservations" });
+  const obs = useWatch({ control, name: "observations" });
+  // Recomputed on every render: the observations may come back as the same object as values change.
   const score = withObs ? liveScore(obs) : null;
   const err = (name: FieldPath<Values>) => failure.text.at(formState.errors, name);
 

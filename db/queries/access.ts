@@ -5,15 +5,6 @@ import { careTeam, carerLinks, memberships, organisations, patients, visitAccess
 
 export type Role = "admin" | "clinician" | "patient" | "carer";
 
-/** Organisations a staff user belongs to. */
-export async function getMembershipOrganisationIds({ userId }: { userId: string }, tx: Executor = db) {
-  const rows = await tx
-    .select({ id: memberships.organisationId })
-    .from(memberships)
-    .where(eq(memberships.userId, userId));
-  return rows.map((r) => r.id);
-}
-
 /** A staff user's organisations, with whether each requires two-step sign-in. */
 export async function getMemberships({ userId }: { userId: string }, tx: Executor = db) {
   return tx
@@ -98,14 +89,5 @@ export async function isAdminOfPatient({ userId, patientId }: { userId: string; 
     .where(and(eq(careTeam.patientId, patientId), eq(memberships.userId, userId)))
     .limit(1);
   return rows.length > 0;
-}
-
-export async function listOrganisationsForUser({ userId }: { userId: string }, tx: Executor = db) {
-  return tx
-    .select({ id: organisations.id, name: organisations.name, kind: organisations.kind, parentName: organisations.parentName })
-    .from(organisations)
-    .innerJoin(memberships, eq(memberships.organisationId, organisations.id))
-    .where(eq(memberships.userId, userId))
-    .orderBy(organisations.name);
 }
 

@@ -1,5 +1,5 @@
 import "server-only";
-import { and, desc, eq, isNull, lt, or } from "drizzle-orm";
+import { and, eq, isNull, lt, or } from "drizzle-orm";
 import { db, type Executor } from "@/db";
 import { catheterEpisodes, checkIns, patients, type CheckIn } from "@/db/schema";
 
@@ -59,7 +59,3 @@ export async function setLatestCheckIn(
     .where(and(eq(patients.id, patientId), or(isNull(patients.latestCheckInAt), lt(patients.latestCheckInAt, at))));
 }
 
-export async function getLastCheckIn({ patientId }: { patientId: string }, tx: Executor = db) {
-  const [row] = await tx.select().from(checkIns).where(eq(checkIns.patientId, patientId)).orderBy(desc(checkIns.createdAt)).limit(1);
-  return row ? toCheckInDto(row) : null;
-}

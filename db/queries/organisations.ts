@@ -34,14 +34,6 @@ export async function listOrganisationsManagedBy({ organisationIds }: { organisa
   return rows.map((r) => ({ ...r, staffCount: Number(r.staffCount) }));
 }
 
-export async function listGpPractices() {
-  return db
-    .select({ id: organisations.id, name: organisations.name, phone: organisations.phone })
-    .from(organisations)
-    .where(eq(organisations.kind, "gp_practice"))
-    .orderBy(organisations.name);
-}
-
 export type OrganisationDetail = {
   id: string;
   name: string;

@@ -37,10 +37,6 @@ export type CurrentEpisode = Omit<
 
 export type PatientRecord = { patient: PatientDetails; currentEpisode: CurrentEpisode | null };
 
-export function hasAnyAllergy(a: PatientDetails["allergies"]): boolean {
-  return a.latex || a.chlorhexidine || a.lidocaine || Boolean(a.other);
-}
-
 function toDetails(
   p: Patient,
   gp: PatientDetails["gpPractice"],

@@ -147,4 +147,3 @@ function roleOf(u: object): AuditRole {
   return (["admin", "clinician", "patient", "carer"] as const).find((r) => r === role) ?? "patient";
 }
 
-export type AuthSession = typeof auth.$Infer.Session;

@@ -1,6 +1,11 @@
 // Values for <input type="datetime-local">, which speaks the browser's own zone. Calendar days
 // in the deployment's zone are lib/shared/time-zone.ts.
 
+/** Now, to the minute, as an ISO instant: where a form's "when" starts. */
+export function thisMinute(): string {
+  return new Date(Math.floor(Date.now() / 60_000) * 60_000).toISOString();
+}
+
 /** "YYYY-MM-DDTHH:mm" for a datetime-local input, in the browser's own zone. */
 export function toLocalInputValue(iso: string | undefined): string {
   if (!iso) return "";

@@ -20,10 +20,8 @@ export const UNPLANNED_REASONS = ["blockage", "bypassing", "expelled", "infectio
 export type UnplannedReason = (typeof UNPLANNED_REASONS)[number];
 
 export const REMOVAL_REASONS = ["no-longer-needed", "trial-without-catheter", "problem", "patient-choice", "other"] as const;
-export type RemovalReason = (typeof REMOVAL_REASONS)[number];
 
 /** A trial without catheter (TWOC): passed, or failed and what was done. */
 export const TWOC_OUTCOMES = ["passed", "failed"] as const;
 export type TwocOutcome = (typeof TWOC_OUTCOMES)[number];
 export const TWOC_FAILED_ACTIONS = ["re-catheterised", "intermittent-self-catheterisation", "referred", "other"] as const;
-export type TwocFailedAction = (typeof TWOC_FAILED_ACTIONS)[number];

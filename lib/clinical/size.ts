@@ -1,9 +1,7 @@
 import { requireNumber } from "./errors";
-import type { SourceId } from "./sources";
 
 /** Plausible urinary catheter sizes; outside this range the input is a typing error. */
 export const CH_BOUNDS = { min: 4, max: 40 } as const;
-export const CHARRIERE_SOURCE: SourceId = "iso-20696-5.5.2";
 
 const EPS = 1e-9;
 

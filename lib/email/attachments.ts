@@ -10,10 +10,6 @@ const renderers: Record<string, () => Promise<Renderer>> = {
   "gp-summary-pdf": async () => (await import("./gp-summary")).renderGpSummaryAttachment,
 };
 
-export function isKnownAttachmentKind(kind: string) {
-  return kind in renderers;
-}
-
 export async function renderAttachments(descriptors: readonly AttachmentDescriptor[]): Promise<RenderedAttachment[]> {
   const out: RenderedAttachment[] = [];
   for (const d of descriptors) {

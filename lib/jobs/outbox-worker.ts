@@ -214,6 +214,3 @@ export class OutboxWorker {
   }
 }
 
-export async function startOutboxWorker(options: OutboxWorkerOptions = {}) {
-  return new OutboxWorker(options).start();
-}

@@ -5,9 +5,7 @@ import { Font, renderToBuffer } from "@react-pdf/renderer";
 import { registerPdfFonts } from "./kit/fonts";
 import { PassportBooklet, type PassportBookletData } from "./booklet";
 
-export type { BookletContact, BookletDevice, BookletEvent, PassportBookletData } from "./booklet";
-export { PDF_FONT_FAMILY, registerPdfFonts } from "./kit/fonts";
-export { pdfStrings } from "./kit/strings";
+export type { PassportBookletData } from "./booklet";
 
 /** The passport booklet as PDF bytes. */
 export async function renderPassportPdf(data: PassportBookletData): Promise<Buffer> {

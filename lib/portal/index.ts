@@ -2,7 +2,7 @@ import "server-only";
 // Which patient a portal page is about: the patient themselves, or for a carer the patient chosen
 // with ?patient= (only among their active links), else the first. Access is rechecked by every
 // route handler; this only picks what to show.
-import { eq, inArray } from "drizzle-orm";
+import { inArray } from "drizzle-orm";
 import { db } from "@/db";
 import { patients } from "@/db/schema";
 import type { Viewer } from "@/lib/auth/session";
@@ -29,7 +29,3 @@ export function subjectName(viewer: Viewer, p: PortalPatient): string | null {
   return viewer.role === "carer" ? `${p.givenName} ${p.familyName}` : null;
 }
 
-export async function getPatientFluidFacts({ patientId }: { patientId: string }) {
-  const [row] = await db.select({ weightKg: patients.weightKg, fluidLimitMl: patients.fluidLimitMl }).from(patients).where(eq(patients.id, patientId));
-  return row ?? null;
-}

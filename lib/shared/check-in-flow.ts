@@ -9,19 +9,6 @@ export type SubmittedAnswers = Partial<Omit<CheckInAnswers, "route">>;
 
 export type OtherSymptom = "leaking" | "cloudyOrSmelly" | "sediment" | "constipated" | "suprapubicSiteRed";
 
-export type QuestionId =
-  | "newConfusion"
-  | "breathless"
-  | "feelsVeryUnwell"
-  | "shivering"
-  | "temperatureC"
-  | "catheterOut"
-  | "draining"
-  | "hoursWithoutUrine"
-  | "pain"
-  | "blood"
-  | "other";
-
 export type Question =
   | { id: "newConfusion" | "breathless" | "feelsVeryUnwell" | "shivering" | "catheterOut"; kind: "yes-no" }
   | { id: "temperatureC"; kind: "temperature" }

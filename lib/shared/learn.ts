@@ -13,7 +13,6 @@ export const LEARN_PAGES = [
   { slug: "when-to-get-help", key: "help" },
 ] as const;
 
-export type LearnKey = (typeof LEARN_PAGES)[number]["key"];
 export type LearnSection = { heading: string; points: string[] };
 
 export function learnPage(slug: string) {

@@ -51,7 +51,3 @@ export function ageOn(dateOfBirth: string, day: string = todayIso()): number {
   return day.slice(5) < dateOfBirth.slice(5) ? years - 1 : years;
 }
 
-/** Whole days from one YYYY-MM-DD date to another (negative when `to` is earlier). */
-export function daysBetween(from: string, to: string): number {
-  return Math.round((Date.parse(`${to}T00:00:00Z`) - Date.parse(`${from}T00:00:00Z`)) / 86_400_000);
-}

@@ -77,17 +77,6 @@ export async function getObjectHead({ key, maxBytes }: { key: string; maxBytes: 
   }
 }
 
-/** The whole object as bytes (small objects only, e.g. a passport PDF), or null. */
-export async function getObjectBytes({ key }: { key: string }): Promise<Uint8Array | null> {
-  try {
-    const r = await s3().send(new GetObjectCommand({ Bucket: bucket(), Key: key }));
-    return r.Body ? await r.Body.transformToByteArray() : new Uint8Array();
-  } catch (error) {
-    if (isMissing(error)) return null;
-    throw error;
-  }
-}
-
 /** The object as a web stream to pass straight into a Response, or null. */
 export async function getObjectStream({ key }: { key: string }): Promise<{ body: ReadableStream; size?: number } | null> {
   try {

@@ -29,4 +29,3 @@ export const checkInSchema = z.strictObject({
   // When the person answered (it may reach us later, from an offline phone).
   answeredAt: z.iso.datetime({ offset: true }).optional(),
 });
-export type CheckInInput = z.infer<typeof checkInSchema>;

@@ -16,7 +16,6 @@ export const diaryEntrySchema = z.strictObject({
   volumeMl: z.number().int().min(1).max(MAX_ENTRY_ML),
   at: z.iso.datetime({ offset: true }).optional(),
 });
-export type DiaryEntryInput = z.infer<typeof diaryEntrySchema>;
 
 /** The form on the phone: a custom amount typed in ml. */
 export const customVolumeSchema = z.object({

@@ -86,7 +86,6 @@ export const overrideSchema = z.object({
   code: z.enum(FINDING_CODES, { error: "choose_one" }),
   reason: requiredText(OVERRIDE_MIN_CHARS, 500),
 });
-export type OverrideInput = z.infer<typeof overrideSchema>;
 
 /** The device itself: what checkDevice reads. Also the body of POST …/episodes/check. */
 export const deviceShape = {

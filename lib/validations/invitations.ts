@@ -12,7 +12,6 @@ export const activateSchema = z.strictObject({
   email,
   password: newPasswordSchema,
 });
-export type ActivateInput = z.input<typeof activateSchema>;
 
 export const carerInviteSchema = z.strictObject({ email });
 

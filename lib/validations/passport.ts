@@ -10,4 +10,3 @@ export const passportIssueSchema = z
   })
   .strict();
 
-export type PassportIssueValues = z.infer<typeof passportIssueSchema>;

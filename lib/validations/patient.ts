@@ -77,23 +77,5 @@ export const patientUpdateSchema = patientSchema
   .partial()
   .refine((v) => Object.keys(v).length > 0, { error: "nothing_to_change", path: ["_form"] });
 
-export type PatientUpdateInput = z.input<typeof patientUpdateSchema>;
 export type PatientUpdateValues = z.output<typeof patientUpdateSchema>;
 
-/** Every message key the schema can produce (PatientForm.errors.<key> in the catalogues). */
-export const patientErrorKeys = [
-  "required",
-  "too_long",
-  "hrn_format",
-  "hrn_taken",
-  "date_invalid",
-  "dob_too_early",
-  "dob_future",
-  "weight_range",
-  "gp_required",
-  "gp_unknown",
-  "care_team_required",
-  "care_team_not_yours",
-  "nothing_to_change",
-] as const;
-export type PatientErrorKey = (typeof patientErrorKeys)[number];

@@ -11,7 +11,7 @@ import { HelpPage } from "./help-page";
 import { PortalPage } from "./portal-page";
 import type { PassportBookletData } from "./types";
 
-export type { BookletContact, BookletDevice, BookletEvent, PassportBookletData } from "./types";
+export type { PassportBookletData } from "./types";
 
 export function PassportBooklet({ data }: { data: PassportBookletData }) {
   const all = data.locales.map((l) => pdfStrings(l));

@@ -38,7 +38,7 @@ export type BookletEvent = {
   lot: string | null;
 };
 
-export type BookletContact = { name: string; phone: string | null; outOfHoursPhone: string | null };
+type BookletContact = { name: string; phone: string | null; outOfHoursPhone: string | null };
 
 export type PassportBookletData = {
   /** [patient's language, "en"], or ["en"] alone. */

@@ -17,5 +17,3 @@ export const palette = {
     info: { strong: "#1f4e99", soft: "#e3ecfa" },
   },
 } as const;
-
-export type PdfTone = keyof typeof palette.tone;

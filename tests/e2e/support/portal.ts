@@ -108,11 +108,6 @@ export async function overflowProblems(page: Page) {
   });
 }
 
-export async function signInFresh(page: Page, email: string, password: string, locale = "en") {
-  const { signInAs } = await import("./browser");
-  await signInAs(page, email, password, locale);
-}
-
 /**
  * A whole-page screenshot that keeps the text size: Playwright's fullPage capture resets
  * Chromium's font-size setting, so the viewport is made as tall as the page instead.

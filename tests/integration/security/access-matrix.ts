@@ -57,8 +57,6 @@ const anyoneSignedIn: Expectations = {
   anonymous: 401, admin: 200, careTeamClinician: 200, otherClinician: 200, patient: 200, otherPatient: 200, carer: 200,
 };
 
-export const shapes = { staffOnPatient, clinicianOnly, adminOnly, portalOnly, anyoneSignedIn };
-
 const patient = (f: Fixture) => ({ patientId: f.patientId });
 const upload = (f: Fixture) => ({ patientId: f.patientId, uploadId: f.uploadId });
 
@@ -173,5 +171,3 @@ export const matrix: Row[] = [
   { route: "POST /api/patients/[patientId]/visits", params: patient, expect: staffOnPatient },
   { route: "GET /api/patients/[patientId]/fhir", params: patient, expect: staffOnPatient },
 ];
-
-export { patient as patientParams };
