@@ -1,7 +1,7 @@
 "use client";
 // Record the removal of the catheter in place, optionally as the start of a trial without catheter.
 import { zodResolver } from "@hookform/resolvers/zod";
-import { useFormatter, useTranslations } from "next-intl";
+import { useTranslations } from "next-intl";
 import { useState } from "react";
 import { useForm, type Resolver } from "react-hook-form";
 import type { z } from "zod";
@@ -17,7 +17,7 @@ import { thisMinute } from "@/lib/browser/datetime-input";
 import { useRouter } from "@/lib/i18n/navigation";
 import { REMOVAL_REASONS } from "@/lib/clinical";
 import { removalSchema } from "@/lib/validations/episode";
-import { useEpisodeOptions } from "./fieldsets/options";
+import { useDeviceSummary, useEpisodeOptions } from "./fieldsets/words";
 
 type Values = z.input<typeof removalSchema>;
 
@@ -25,9 +25,9 @@ export type CurrentDevice = { sizeCh: number; balloonMl: number; material: strin
 
 export function RemovalForm({ patientId, current }: { patientId: string; current: CurrentDevice }) {
   const t = useTranslations("EpisodeForm");
-  const format = useFormatter();
   const router = useRouter();
   const options = useEpisodeOptions();
+  const summary = useDeviceSummary();
   const [now] = useState(thisMinute);
   const {
     register,
@@ -65,12 +65,7 @@ export function RemovalForm({ patientId, current }: { patientId: string; current
     <form onSubmit={onSubmit} noValidate className="flex max-w-3xl flex-col gap-6" data-testid="removal-form">
       <Section title={t("removal.title")}>
         <p className="sm:col-span-2" data-testid="current-device">
-          {t("removal.current", {
-            size: current.sizeCh,
-            balloon: current.balloonMl,
-            material: t(`option.material.${current.material as "latex"}`),
-            date: format.dateTime(new Date(current.insertedAt), { dateStyle: "medium" }),
-          })}
+          {t("removal.current", summary(current))}
         </p>
         <DateTimeField control={control} name="removedAt" label={t("field.removedAt")} errors={err("removedAt")} />
         <SelectField

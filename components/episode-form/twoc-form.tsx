@@ -18,7 +18,7 @@ import { thisMinute } from "@/lib/browser/datetime-input";
 import { useRouter } from "@/lib/i18n/navigation";
 import { TWOC_FAILED_ACTIONS } from "@/lib/clinical";
 import { twocSchema } from "@/lib/validations/episode";
-import { useEpisodeOptions } from "./fieldsets/options";
+import { useEpisodeOptions } from "./fieldsets/words";
 
 type Values = z.input<typeof twocSchema>;
 

@@ -11,23 +11,12 @@ import pg from "pg";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import * as schema from "@/db/schema";
 import { migrationTags, runMigrations } from "@/db/migrate";
+import { adminQuery } from "../support/db-admin";
 
 const tags = migrationTags();
 const snapshotOf = (tag: string) => path.resolve(__dirname, "../fixtures/demo-data", `${tag}.sql`);
 const url = new URL(process.env.DATABASE_URL!);
 url.pathname = `${url.pathname}_mig`;
-const admin = new URL(url);
-admin.pathname = "/postgres";
-
-async function adminQuery(text: string) {
-  const client = new pg.Client({ connectionString: admin.toString() });
-  await client.connect();
-  try {
-    await client.query(text);
-  } finally {
-    await client.end();
-  }
-}
 
 /** Loads a snapshot (pg_dump's INSERTs) as one transaction; foreign keys are checked by the rows themselves. */
 async function load(pool: pg.Pool, file: string) {
@@ -60,13 +49,13 @@ async function rowCounts(pool: pg.Pool) {
 
 let pool: pg.Pool;
 beforeAll(async () => {
-  await adminQuery(`drop database if exists ${url.pathname.slice(1)} with (force)`);
-  await adminQuery(`create database ${url.pathname.slice(1)}`);
+  await adminQuery(url, `drop database if exists ${url.pathname.slice(1)} with (force)`);
+  await adminQuery(url, `create database ${url.pathname.slice(1)}`);
   pool = new pg.Pool({ connectionString: url.toString(), max: 2 });
 });
 afterAll(async () => {
   await pool?.end();
-  await adminQuery(`drop database if exists ${url.pathname.slice(1)} with (force)`);
+  await adminQuery(url, `drop database if exists ${url.pathname.slice(1)} with (force)`);
 });
 
 describe("migrations", () => {

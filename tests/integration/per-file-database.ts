@@ -1,25 +1,14 @@
 // Each integration test file gets its own copy of the migrated, seeded database (PostgreSQL's
 // CREATE DATABASE … TEMPLATE), so no file sees rows another file wrote.
 import { randomBytes } from "node:crypto";
-import pg from "pg";
 import { afterAll } from "vitest";
+import { adminQuery } from "../support/db-admin";
 
 const template = new URL(process.env.DATABASE_URL!);
 const templateName = template.pathname.slice(1);
 const copy = new URL(template);
 copy.pathname = `/${templateName.slice(0, 40)}_f${randomBytes(4).toString("hex")}`;
-const admin = new URL(template);
-admin.pathname = "/postgres";
-
-async function sql(text: string) {
-  const client = new pg.Client({ connectionString: admin.toString() });
-  await client.connect();
-  try {
-    await client.query(text);
-  } finally {
-    await client.end();
-  }
-}
+const sql = (text: string) => adminQuery(template, text);
 
 await sql(`create database ${copy.pathname.slice(1)} template ${templateName}`);
 process.env.DATABASE_URL = copy.toString();

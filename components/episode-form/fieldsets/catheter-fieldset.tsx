@@ -7,7 +7,7 @@ import { Field, SelectField, TextArea } from "@/components/ui/field";
 import { Section } from "@/components/ui/section";
 import { CATHETER_TYPES, charriereToMm, DEVICE_RULES, LENGTH_CATEGORIES, MATERIALS, ROUTES } from "@/lib/clinical";
 import type { EpisodeFields } from "../use-device-episode-form";
-import { useEpisodeOptions } from "./options";
+import { useEpisodeOptions } from "./words";
 
 export function CatheterFieldset({ fields: { register, errorsOf, draft } }: { fields: EpisodeFields }) {
   const t = useTranslations("EpisodeForm");

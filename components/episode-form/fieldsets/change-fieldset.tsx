@@ -1,30 +1,25 @@
 "use client";
 // A change: planned or not (and why), whether need was reviewed, and the blockage pattern when
 // this patient's catheters keep blocking.
-import { useFormatter, useTranslations } from "next-intl";
+import { useTranslations } from "next-intl";
 import { Checkbox, RadioGroup } from "@/components/ui/choice";
 import { SelectField, TextArea } from "@/components/ui/field";
 import { Section } from "@/components/ui/section";
 import { UNPLANNED_REASONS } from "@/lib/clinical";
 import type { EpisodeFields, PreviousDevice } from "../use-device-episode-form";
-import { useEpisodeOptions } from "./options";
+import { useDeviceSummary, useEpisodeOptions } from "./words";
 
 export type BlockageHint = { typicalDwellDays: number; suggestedIntervalDays: number; blockageEpisodes: number } | null;
 
 export function ChangeFieldset({ fields: { register, errorsOf, draft }, previous, blockage }: { fields: EpisodeFields; previous: PreviousDevice | null; blockage: BlockageHint }) {
   const t = useTranslations("EpisodeForm");
-  const format = useFormatter();
   const options = useEpisodeOptions();
+  const summary = useDeviceSummary();
   return (
     <Section title={t("change.title")}>
       {previous ? (
         <p className="sm:col-span-2" data-testid="previous-device">
-          {t("change.previous", {
-            size: previous.sizeCh,
-            balloon: previous.balloonMl,
-            material: t(`option.material.${previous.material as "latex"}`),
-            date: format.dateTime(new Date(previous.insertedAt), { dateStyle: "medium" }),
-          })}
+          {t("change.previous", summary(previous))}
         </p>
       ) : null}
       <RadioGroup

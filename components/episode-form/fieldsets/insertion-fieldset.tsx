@@ -8,7 +8,7 @@ import { Field, SelectField, TextArea } from "@/components/ui/field";
 import { Section } from "@/components/ui/section";
 import { GEL_KINDS } from "@/lib/clinical";
 import type { EpisodeFields, EpisodeMode } from "../use-device-episode-form";
-import { useEpisodeOptions } from "./options";
+import { useEpisodeOptions } from "./words";
 
 export function InsertionFieldset({ fields: { register, control, errorsOf, draft }, mode, clinicianName }: { fields: EpisodeFields; mode: EpisodeMode; clinicianName: string }) {
   const t = useTranslations("EpisodeForm");
