@@ -11,8 +11,7 @@ import { sendPasswordReset } from "@/lib/admin/mail";
 import { audit } from "@/lib/records/audit";
 import { hashPassword, PASSWORD_MIN_LENGTH, passwordProblem, verifyPassword } from "@/lib/auth/password";
 import { authSecret, env } from "@/lib/config/env";
-
-const trustedProxies = (process.env.TRUSTED_PROXIES ?? "").split(",").map((s) => s.trim()).filter(Boolean);
+import { CLIENT_ADDRESS_HEADER } from "@/lib/http/client-ip";
 
 export const SIGN_IN_WINDOW_SECONDS = 60;
 export const RESET_LINK_SECONDS = 60 * 60;
@@ -74,10 +73,8 @@ export const auth = betterAuth({
     },
   },
   advanced: {
-    ipAddress: {
-      ipAddressHeaders: env.CLIENT_IP_HEADER ? [env.CLIENT_IP_HEADER] : [],
-      ...(trustedProxies.length ? { trustedProxies } : {}),
-    },
+    // The address the server entry worked out (lib/http/client-ip.ts), never a client's header.
+    ipAddress: { ipAddressHeaders: [CLIENT_ADDRESS_HEADER] },
     useSecureCookies: env.APP_URL.startsWith("https://"),
   },
   databaseHooks: {

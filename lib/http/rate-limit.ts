@@ -6,7 +6,7 @@ import "server-only";
 // so nobody can lock a patient out of their account by guessing from elsewhere (ASVS 6.1.1, 2.4.1).
 import { sql } from "drizzle-orm";
 import { db, type Executor } from "@/db";
-import { clientIp, hashIp } from "@/lib/http/client-ip";
+import { clientIp, hashIp, limiterAddress } from "@/lib/http/client-ip";
 import { AppError } from "@/lib/http/errors";
 
 export type LimitRule = { name: string; max: number; windowSeconds: number };
@@ -37,7 +37,7 @@ export type LimitResult = { allowed: boolean; count: number; retryAfterSeconds: 
 
 /** Counts an attempt from this request's address and says whether it is within the rule. */
 export async function checkAddress(request: Request | { headers: Headers }, rule: LimitRule): Promise<LimitResult> {
-  const key = `${rule.name}:${hashIp(clientIp(request.headers))}`;
+  const key = `${rule.name}:${hashIp(limiterAddress(clientIp(request.headers)))}`;
   const { count, windowStartedAt } = await countAttempt({ key, windowSeconds: rule.windowSeconds });
   const retryAfterSeconds = Math.max(1, Math.ceil((windowStartedAt.getTime() + rule.windowSeconds * 1000 - Date.now()) / 1000));
   return { allowed: count <= rule.max, count, retryAfterSeconds };

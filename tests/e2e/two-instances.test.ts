@@ -1,40 +1,27 @@
 // The app server keeps no state: two instances on one PostgreSQL share sessions and the
 // sign-in rate limit (architecture.md, "past one machine").
-import { spawn, type ChildProcess } from "node:child_process";
-import path from "node:path";
+import type { ChildProcess } from "node:child_process";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { spawnAppServer, waitForApp } from "../../scripts/app-server";
 import { demo } from "../support/http";
 import { freePort } from "../support/mail";
 import { baseUrl } from "./support/browser";
 
-const root = path.resolve(__dirname, "../..");
 const second = new URL(baseUrl);
 let secondUrl = "";
 let server: ChildProcess;
-
-async function up(url: string) {
-  for (let i = 0; i < 240; i++) {
-    try {
-      if ((await fetch(`${url}/en/sign-in`)).ok) return;
-    } catch {
-      /* starting */
-    }
-    await new Promise((r) => setTimeout(r, 250));
-  }
-  throw new Error(`${url} did not start`);
-}
 
 beforeAll(async () => {
   // A free port, not E2E_PORT + 1: on a shared machine that may be another engineer's server.
   second.port = String(await freePort());
   secondUrl = second.origin;
-  server = spawn(path.join(root, "node_modules/.bin/next"), ["start", "-p", second.port, "-H", "127.0.0.1"], {
-    cwd: root,
-    // Same public address and secret as the first instance, as behind one load balancer.
-    env: { ...process.env, APP_URL: baseUrl, BETTER_AUTH_SECRET: process.env.E2E_APP_SECRET, NODE_ENV: "production" },
+  server = spawnAppServer({
+    port: second.port,
+    // Same public address, secret and trusted proxies as the first instance, as behind one load balancer.
+    env: { ...process.env, APP_URL: baseUrl, BETTER_AUTH_SECRET: process.env.E2E_APP_SECRET, TRUSTED_PROXIES: process.env.E2E_TRUSTED_PROXIES, NODE_ENV: "production" },
     stdio: "ignore",
   });
-  await up(secondUrl);
+  await waitForApp(secondUrl, 60);
 });
 
 afterAll(() => {

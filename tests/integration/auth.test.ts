@@ -6,6 +6,7 @@ import { db } from "@/db";
 import { session, user } from "@/db/schema";
 import { SIGN_IN_MAX_ATTEMPTS } from "@/lib/auth";
 import { call, demo, request, sessionFor, signIn } from "../support/http";
+import { CLIENT_ADDRESS_HEADER } from "@/lib/http/client-ip";
 
 describe("sign-in with better-auth on PostgreSQL", () => {
   it.each(Object.keys(demo) as (keyof typeof demo)[])("demo account %s signs in and is known to the API", async (who) => {
@@ -32,7 +33,7 @@ describe("sign-in with better-auth on PostgreSQL", () => {
     const res = await authPost(
       request("/api/auth/sign-in/email", {
         body: { email: demo.patient.email, password: "not-the-password-1" },
-        headers: { "x-forwarded-for": "10.98.0.1" },
+        headers: { [CLIENT_ADDRESS_HEADER]: "10.98.0.1" },
       }),
     );
     expect(res.status).toBe(401);
@@ -46,7 +47,7 @@ describe("sign-in with better-auth on PostgreSQL", () => {
       const res = await authPost(
         request("/api/auth/sign-in/email", {
           body: { email: demo.carer.email, password: `wrong-password-${i}` },
-          headers: { "x-forwarded-for": ip },
+          headers: { [CLIENT_ADDRESS_HEADER]: ip },
         }),
       );
       statuses.push(res.status);

@@ -13,10 +13,11 @@ import { DEMO_ADMIN_TOTP } from "@/db/seed";
 import { auditEvents, memberships, twoFactor, user } from "@/db/schema";
 import { call, demo, request, sessionFor, signIn, totpCode } from "../support/http";
 import { createOrganisation, createStaff } from "../support/staff";
+import { CLIENT_ADDRESS_HEADER } from "@/lib/http/client-ip";
 
 let ip = 1;
 function firstStep(email: string, password: string) {
-  const headers = { "x-forwarded-for": `10.96.0.${ip++}` };
+  const headers = { [CLIENT_ADDRESS_HEADER]: `10.96.0.${ip++}` };
   return authPost(request("/api/auth/sign-in/email", { body: { email, password }, headers })).then(async (res) => ({
     res,
     headers,
@@ -93,7 +94,7 @@ describe("an organisation that requires two-step sign-in", () => {
     expect((await refused.json()).error.code).toBe("two_factor_required");
 
     // Set-up through better-auth: enable (with the password) gives the otpauth URI, a code confirms it.
-    const headers = { "x-forwarded-for": "10.96.1.1" };
+    const headers = { [CLIENT_ADDRESS_HEADER]: "10.96.1.1" };
     const enable = await authPost(request("/api/auth/two-factor/enable", { body: { password: nurse.password }, cookie, headers }));
     expect(enable.status).toBe(200);
     const { totpURI, backupCodes } = await enable.json();
@@ -106,7 +107,7 @@ describe("an organisation that requires two-step sign-in", () => {
     const [enabledEvent] = await db.select().from(auditEvents).where(eq(auditEvents.action, "account.two_factor_enable"));
     expect(enabledEvent.actorUserId).toBe(nurse.id);
 
-    const disable = await authPost(request("/api/auth/two-factor/disable", { body: { password: nurse.password }, cookie: newCookie, headers: { "x-forwarded-for": "10.96.1.2" } }));
+    const disable = await authPost(request("/api/auth/two-factor/disable", { body: { password: nurse.password }, cookie: newCookie, headers: { [CLIENT_ADDRESS_HEADER]: "10.96.1.2" } }));
     expect(disable.status).toBe(403);
     const [u] = await db.select({ on: user.twoFactorEnabled }).from(user).where(eq(user.id, nurse.id));
     expect(u.on).toBe(true);

@@ -3,6 +3,7 @@ import * as OTPAuth from "otpauth";
 import { POST as authPost } from "@/app/api/auth/[...all]/route";
 import { DEMO_ADMIN_TOTP } from "@/db/seed";
 import { env } from "@/lib/config/env";
+import { CLIENT_ADDRESS_HEADER } from "@/lib/http/client-ip";
 
 export const origin = new URL(env.APP_URL).origin;
 
@@ -48,7 +49,7 @@ let ipCounter = 10;
  */
 export async function signIn(email: string, password: string, ip?: string, totp?: string): Promise<string> {
   // Each sign-in from its own test address, so the sign-in rate limit does not trip here.
-  const headers = { "x-forwarded-for": ip ?? `10.99.0.${ipCounter++ % 250}` };
+  const headers = { [CLIENT_ADDRESS_HEADER]: ip ?? `10.99.0.${ipCounter++ % 250}` };
   const res = await authPost(request("/api/auth/sign-in/email", { body: { email, password }, headers }));
   if (res.status !== 200) throw new Error(`sign-in as ${email} failed: ${res.status} ${await res.text()}`);
   const cookies = res.headers.getSetCookie().map((c) => c.split(";")[0]);
