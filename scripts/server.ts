@@ -6,7 +6,7 @@
  *   - With an https APP_URL, a request that did not arrive over https is redirected there.
  * `npm start`, the end-to-end tests and the bench serve the app through this file
  * (`spawnAppServer` in scripts/app-server.ts); `next start` alone has no client address.
- *   node --import tsx scripts/server.ts --port 3000 --hostname 127.0.0.1
+ *   node --import tsx scripts/server.ts --port 3000 --hostname 127.0.0.1 [--dev]
  */
 import http from "node:http";
 import path from "node:path";
@@ -43,7 +43,8 @@ function removeHeader(req: http.IncomingMessage, name: string) {
 }
 
 async function main() {
-  const app = next({ dev: false, dir: root, hostname, port });
+  // --dev: `npm run dev` (hot reload), with the same client address as production.
+  const app = next({ dev: process.argv.includes("--dev"), dir: root, hostname, port });
   const handle = app.getRequestHandler();
   await app.prepare();
 
