@@ -10,6 +10,7 @@ import { account, rateLimit, session, twoFactor, user, verification } from "@/db
 import { sendPasswordReset } from "@/lib/admin/mail";
 import { audit } from "@/lib/records/audit";
 import { hashPassword, PASSWORD_MIN_LENGTH, passwordProblem, verifyPassword } from "@/lib/auth/password";
+import { ACCOUNT_LIMITS, clearDelay, holdIfDelayed, newKnownDeviceValue, recordFailure, recordSuccess } from "@/lib/auth/sign-in-throttle";
 import { authSecret, env } from "@/lib/config/env";
 import { CLIENT_ADDRESS_HEADER } from "@/lib/http/client-ip";
 
@@ -43,6 +44,8 @@ export const auth = betterAuth({
       await sendPasswordReset({ userId: u.id, email: u.email, name: u.name, url, expiresInSeconds: RESET_LINK_SECONDS });
     },
     onPasswordReset: async ({ user: u }, request) => {
+      // The reset works while sign-in is being held back, and ends the hold (OWASP).
+      await clearDelay({ userId: u.id });
       await audit({ action: "account.password_reset", actor: { userId: u.id, role: roleOf(u) }, request: request ?? null });
     },
   },
@@ -90,9 +93,23 @@ export const auth = betterAuth({
     },
   },
   hooks: {
-    // Caddis's password rules (ASVS 6.2.4) on every path that sets a password, and no turning
-    // off two-factor where an organisation requires it.
+    // Caddis's password rules (ASVS 6.2.4) on every path that sets a password, no turning off
+    // two-factor where an organisation requires it, and the per-account sign-in delay.
     before: createAuthMiddleware(async (ctx) => {
+      if (ctx.path === "/sign-in/email") {
+        const wait = await holdIfDelayed({ email: String(ctx.body?.email ?? ""), request: requestOf(ctx), knownDevice: await readKnownDevice(ctx) });
+        if (wait > 0) {
+          throw new APIError(
+            "TOO_MANY_REQUESTS",
+            { message: "Too many wrong tries for this account. Try again later, or reset the password.", code: "ACCOUNT_DELAYED", retryAfterSeconds: wait },
+            { "Retry-After": String(wait) },
+          );
+        }
+      }
+      if (secondStepPaths.has(ctx.path) && !(await getSessionFromCtx(ctx))) {
+        const userId = await pendingSecondStepUser(ctx);
+        if (userId) pendingUsers.set(ctx.context, userId);
+      }
       if (ctx.path === "/reset-password" || ctx.path === "/change-password") {
         const problem = passwordProblem(String(ctx.body?.newPassword ?? ""));
         if (problem) throw new APIError("BAD_REQUEST", { message: passwordMessages[problem], code: `PASSWORD_${problem.toUpperCase()}` });
@@ -104,14 +121,16 @@ export const auth = betterAuth({
         }
       }
     }),
-    // Account security changes are audit events.
+    // Sign-ins count for or against the account (lib/auth/sign-in-throttle.ts); account security
+    // changes are audit events.
     after: createAuthMiddleware(async (ctx) => {
+      await countSignIn(ctx);
       const action = accountActions[ctx.path];
       if (!action || ctx.context.returned instanceof Error) return;
       const u = ctx.context.session?.user ?? ctx.context.newSession?.user;
       // verify-totp without a session is the second step of a sign-in, not a set-up.
       if (!u || (ctx.path === "/two-factor/verify-totp" && !ctx.context.session)) return;
-      await audit({ action, actor: { userId: u.id, role: roleOf(u) }, request: ctx.request ?? null });
+      await audit({ action, actor: { userId: u.id, role: roleOf(u) }, request: requestOf(ctx) });
     }),
   },
   plugins: [
@@ -135,6 +154,75 @@ const accountActions: Record<string, string> = {
   "/two-factor/disable": "account.two_factor_disable",
   "/two-factor/generate-backup-codes": "account.backup_codes_regenerate",
 };
+
+type HookContext = Parameters<Parameters<typeof createAuthMiddleware>[0]>[0];
+
+/** The request, or for a server-side `auth.api` call its headers (for the client address). */
+function requestOf(ctx: HookContext): { headers: Headers } | null {
+  return ctx.request ?? (ctx.headers ? { headers: ctx.headers } : null);
+}
+
+// A browser that has signed in to an account before (OWASP device cookies): not held back by
+// that account's sign-in delay unless it has failed too often itself.
+const KNOWN_DEVICE_COOKIE = "known_device";
+
+async function readKnownDevice(ctx: HookContext) {
+  const cookie = ctx.context.createAuthCookie(KNOWN_DEVICE_COOKIE);
+  return (await ctx.getSignedCookie(cookie.name, ctx.context.secret)) || null;
+}
+
+async function rememberDevice(ctx: HookContext, userId: string) {
+  const cookie = ctx.context.createAuthCookie(KNOWN_DEVICE_COOKIE, { maxAge: ACCOUNT_LIMITS.knownDeviceCookieDays * 24 * 60 * 60 });
+  await ctx.setSignedCookie(cookie.name, newKnownDeviceValue(userId), ctx.context.secret, cookie.attributes);
+}
+
+const secondStepPaths = new Set(["/two-factor/verify-totp", "/two-factor/verify-backup-code"]);
+// The account a second step is for, read before the plugin may spend the challenge.
+const pendingUsers = new WeakMap<object, string>();
+
+async function pendingSecondStepUser(ctx: HookContext): Promise<string | null> {
+  const cookie = ctx.context.createAuthCookie("two_factor");
+  const identifier = await ctx.getSignedCookie(cookie.name, ctx.context.secret);
+  if (!identifier) return null;
+  const row = await ctx.context.internalAdapter.findVerificationValue(identifier);
+  return row?.value ?? null;
+}
+
+function isApiError(value: unknown): value is APIError {
+  return value instanceof APIError || (value instanceof Error && "statusCode" in value);
+}
+
+async function countSignIn(ctx: HookContext) {
+  const returned = ctx.context.returned;
+  const request = requestOf(ctx);
+  if (ctx.path === "/sign-in/email") {
+    if (isApiError(returned)) {
+      if (returned.statusCode === 401) {
+        await recordFailure({ email: String(ctx.body?.email ?? ""), step: "password", request, knownDevice: await readKnownDevice(ctx) });
+      }
+      return;
+    }
+    const u = ctx.context.newSession?.user as { id: string; twoFactorEnabled?: boolean } | undefined;
+    // With two-step sign-in the password alone is not a sign-in: the code decides.
+    if (u && !u.twoFactorEnabled) {
+      await recordSuccess({ userId: u.id, role: roleOf(u), request });
+      await rememberDevice(ctx, u.id);
+    }
+    return;
+  }
+  if (!secondStepPaths.has(ctx.path)) return;
+  const pending = pendingUsers.get(ctx.context);
+  if (!pending) return;
+  if (isApiError(returned)) {
+    await recordFailure({ userId: pending, step: "second_step", request, knownDevice: await readKnownDevice(ctx) });
+    return;
+  }
+  const u = ctx.context.newSession?.user;
+  if (u) {
+    await recordSuccess({ userId: u.id, role: roleOf(u), request });
+    await rememberDevice(ctx, u.id);
+  }
+}
 
 type AuditRole = "admin" | "clinician" | "patient" | "carer";
 function roleOf(u: object): AuditRole {

@@ -33,6 +33,14 @@ export async function countAttempt({ key, windowSeconds }: { key: string; window
   return { count: Number(row.count), windowStartedAt: new Date(row.window_started_at) };
 }
 
+/** How many attempts the current window of `key` holds, without counting one. */
+export async function currentCount({ key, windowSeconds }: { key: string; windowSeconds: number }, tx: Executor = db) {
+  const result = await tx.execute<{ count: number }>(sql`
+    select count from attempt_counters
+    where key = ${key} and window_started_at > now() - make_interval(secs => ${windowSeconds})`);
+  return Number(result.rows[0]?.count ?? 0);
+}
+
 export type LimitResult = { allowed: boolean; count: number; retryAfterSeconds: number };
 
 /** Counts an attempt from this request's address and says whether it is within the rule. */
