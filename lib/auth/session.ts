@@ -1,7 +1,7 @@
 import "server-only";
 import { headers } from "next/headers";
 import { cache } from "react";
-import { getMemberships, getOwnPatientIds, type Role } from "@/db/queries/access";
+import { getMemberships, getOwnPatientIds, secondFactorRequired, type Role } from "@/db/queries/access";
 import { auth } from "@/lib/auth";
 
 export type { Role };
@@ -18,8 +18,8 @@ export type Viewer = {
   /** Patients: themselves. Carers: the patients whose link is active. */
   patientIds: string[];
   /**
-   * Staff: whether they have two-step sign-in, and whether one of their organisations requires
-   * it. Missing means not known (treated as not required).
+   * Whether they have two-step sign-in, and whether they must (staff, unless every organisation
+   * of theirs relaxed it; patients and carers may turn it on). Missing means not known.
    */
   secondFactor?: { enabled: boolean; required: boolean };
 };
@@ -52,9 +52,7 @@ export async function getViewerFromHeaders(h: Headers): Promise<Viewer | null> {
     locale: typeof u.locale === "string" ? u.locale : "en",
     organisationIds: memberships.map((m) => m.organisationId),
     patientIds,
-    ...(staff
-      ? { secondFactor: { enabled: u.twoFactorEnabled === true, required: memberships.some((m) => m.requireTwoFactor) } }
-      : {}),
+    secondFactor: { enabled: u.twoFactorEnabled === true, required: staff && secondFactorRequired(memberships) },
   };
 }
 

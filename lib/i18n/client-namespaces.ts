@@ -6,7 +6,7 @@ export const clientNamespaces = {
   /** Every page: the root error boundary. */
   root: ["Errors"],
   auth: ["AcceptInvite", "Activate", "CarerInvite", "Common", "PasswordReset", "SignIn", "SignOut", "TwoFactor"],
-  portal: ["CheckIn", "Common", "Diary", "More", "MyCatheter", "People", "Portal", "Today", "Uploads"],
+  portal: ["Account", "CheckIn", "Common", "Diary", "More", "MyCatheter", "People", "Portal", "Today", "TwoFactor", "Uploads"],
   staff: [
     "Account", "Admin", "AdminOrganisations", "AdminPatients", "AdminSettings", "AdminStaff", "Caseload", "CaseloadState",
     "Common", "EpisodeForm", "Letters", "LevelBadge", "Passport", "PatientDevice", "PatientForm", "PatientRecord", "Scan",

@@ -15,6 +15,7 @@ import pg from "pg";
 import { spawnAppServer } from "../app-server";
 import { ensureTools } from "../ensure-tools";
 import { defaults, dropDatabase, ensureDatabase, portOpen, servicesUp } from "../services";
+import { signInOverHttp } from "../../tests/support/sign-in-over-http";
 import { seedLarge } from "./large-data";
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "../..");
@@ -105,14 +106,9 @@ async function lighthouseScores(pathname: string, cookie?: string) {
   }
 }
 
-async function signInCookie(email: string, password: string) {
-  const res = await fetch(`${base}/api/auth/sign-in/email`, {
-    method: "POST",
-    headers: { "content-type": "application/json", origin: base, "x-forwarded-for": "10.250.0.1" },
-    body: JSON.stringify({ email, password }),
-  });
-  if (!res.ok) throw new Error(`sign-in failed: ${res.status}`);
-  return res.headers.getSetCookie().map((c) => c.split(";")[0]).join("; ");
+/** Signs in; staff give the code from their demo TOTP secret, as every member of staff must. */
+function signInCookie(email: string, password: string) {
+  return signInOverHttp({ baseUrl: base, email, password, headers: { "x-forwarded-for": "10.250.0.1" } });
 }
 
 /** POST /api/patients/[id]/passport (reissue when asked); the token from the answer's card address. */

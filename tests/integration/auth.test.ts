@@ -44,9 +44,10 @@ describe("sign-in with better-auth on PostgreSQL", () => {
     const ip = "10.97.0.1";
     const statuses: number[] = [];
     for (let i = 0; i < SIGN_IN_MAX_ATTEMPTS + 2; i++) {
+      // A different account each time (the per-account limit is tests/integration/sign-in-throttle.test.ts).
       const res = await authPost(
         request("/api/auth/sign-in/email", {
-          body: { email: demo.carer.email, password: `wrong-password-${i}` },
+          body: { email: `nobody.${i}@testwick.example`, password: `wrong-password-${i}` },
           headers: { [CLIENT_ADDRESS_HEADER]: ip },
         }),
       );
