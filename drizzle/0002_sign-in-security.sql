@@ -16,6 +16,7 @@ CREATE TABLE "sign_in_throttles" (
 );
 --> statement-breakpoint
 ALTER TABLE "organisations" ALTER COLUMN "require_two_factor" SET DEFAULT true;--> statement-breakpoint
+ALTER TABLE "session" ADD COLUMN "last_seen_at" timestamp with time zone DEFAULT now() NOT NULL;--> statement-breakpoint
 ALTER TABLE "organisations" ADD COLUMN "two_factor_relaxed_reason" text;--> statement-breakpoint
 ALTER TABLE "organisations" ADD COLUMN "two_factor_relaxed_by_user_id" text;--> statement-breakpoint
 ALTER TABLE "organisations" ADD COLUMN "two_factor_relaxed_at" timestamp with time zone;--> statement-breakpoint

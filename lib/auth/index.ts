@@ -27,6 +27,9 @@ export const auth = betterAuth({
     provider: "pg",
     schema: { user, session, account, verification, rateLimit, twoFactor },
   }),
+  // Listing and ending sessions go through Caddis's own routes (app/api/account/sessions), which
+  // never hand a token to the browser; better-auth's would (they take and return tokens).
+  disabledPaths: ["/list-sessions", "/revoke-session", "/revoke-sessions", "/revoke-other-sessions"],
   // Reset-password and two-factor identifiers are kept only as hashes.
   verification: { storeIdentifier: "hashed" },
   emailAndPassword: {
@@ -110,27 +113,28 @@ export const auth = betterAuth({
         const userId = await pendingSecondStepUser(ctx);
         if (userId) pendingUsers.set(ctx.context, userId);
       }
-      if (ctx.path === "/reset-password" || ctx.path === "/change-password") {
-        const problem = passwordProblem(String(ctx.body?.newPassword ?? ""));
-        if (problem) throw new APIError("BAD_REQUEST", { message: passwordMessages[problem], code: `PASSWORD_${problem.toUpperCase()}` });
-      }
       if (ctx.path === "/two-factor/disable") {
         const current = await getSessionFromCtx(ctx);
         if (current && (await twoFactorRequiredFor({ userId: current.user.id }))) {
           throw new APIError("FORBIDDEN", { message: "Your organisation requires two-step sign-in.", code: "TWO_FACTOR_REQUIRED" });
         }
       }
+      if (ctx.path === "/reset-password" || ctx.path === "/change-password") {
+        const problem = passwordProblem(String(ctx.body?.newPassword ?? ""));
+        if (problem) throw new APIError("BAD_REQUEST", { message: passwordMessages[problem], code: `PASSWORD_${problem.toUpperCase()}` });
+      }
+      // A new password ends every other session, whatever the client asked (ASVS 5.0.0 7.4.3).
+      if (ctx.path === "/change-password") return { context: { body: { ...ctx.body, revokeOtherSessions: true } } };
     }),
     // Sign-ins count for or against the account (lib/auth/sign-in-throttle.ts); account security
     // changes are audit events.
     after: createAuthMiddleware(async (ctx) => {
       await countSignIn(ctx);
-      const action = accountActions[ctx.path];
-      if (!action || ctx.context.returned instanceof Error) return;
-      const u = ctx.context.session?.user ?? ctx.context.newSession?.user;
-      // verify-totp without a session is the second step of a sign-in, not a set-up.
-      if (!u || (ctx.path === "/two-factor/verify-totp" && !ctx.context.session)) return;
-      await audit({ action, actor: { userId: u.id, role: roleOf(u) }, request: requestOf(ctx) });
+      await auditAccountChange(ctx);
+      // Session tokens never reach page JavaScript: they travel only in the HttpOnly cookie. The
+      // sign-in, second-step, password-change and session answers lose theirs (ASVS 5.0.0 7.2.x).
+      const returned = ctx.context.returned;
+      if (ctx.request && !isApiError(returned) && containsToken(returned)) return ctx.json(withoutTokens(returned) as Record<string, unknown>);
     }),
   },
   plugins: [
@@ -222,6 +226,30 @@ async function countSignIn(ctx: HookContext) {
     await recordSuccess({ userId: u.id, role: roleOf(u), request });
     await rememberDevice(ctx, u.id);
   }
+}
+
+async function auditAccountChange(ctx: HookContext) {
+  const action = accountActions[ctx.path];
+  if (!action || isApiError(ctx.context.returned)) return;
+  const u = ctx.context.session?.user ?? ctx.context.newSession?.user;
+  // verify-totp without a session is the second step of a sign-in, not a set-up.
+  if (!u || (ctx.path === "/two-factor/verify-totp" && !ctx.context.session)) return;
+  await audit({ action, actor: { userId: u.id, role: roleOf(u) }, request: requestOf(ctx) });
+}
+
+const isPlainObject = (v: unknown): v is Record<string, unknown> => typeof v === "object" && v !== null && Object.getPrototypeOf(v) === Object.prototype;
+
+/** Whether an answer holds a `token` field at its top, or one level down (a session, a list of them). */
+function containsToken(value: unknown): boolean {
+  if (Array.isArray(value)) return value.some((v) => isPlainObject(v) && "token" in v);
+  if (!isPlainObject(value)) return false;
+  return "token" in value || Object.values(value).some((v) => isPlainObject(v) && "token" in v);
+}
+
+function withoutTokens(value: unknown): unknown {
+  if (Array.isArray(value)) return value.map(withoutTokens);
+  if (!isPlainObject(value)) return value;
+  return Object.fromEntries(Object.entries(value).filter(([k]) => k !== "token").map(([k, v]) => [k, isPlainObject(v) ? withoutTokens(v) : v]));
 }
 
 type AuditRole = "admin" | "clinician" | "patient" | "carer";

@@ -2,13 +2,17 @@ import "server-only";
 import { headers } from "next/headers";
 import { cache } from "react";
 import { getMemberships, getOwnPatientIds, secondFactorRequired, type Role } from "@/db/queries/access";
+import { noteSessionUse } from "@/db/queries/account-sessions";
 import { auth } from "@/lib/auth";
+import { clientIp } from "@/lib/http/client-ip";
 
 export type { Role };
 export const roles: readonly Role[] = ["admin", "clinician", "patient", "carer"];
 
 export type Viewer = {
   userId: string;
+  /** The better-auth session this request came with (its id, never its token). */
+  sessionId: string;
   name: string;
   email: string;
   role: Role;
@@ -44,8 +48,10 @@ export async function getViewerFromHeaders(h: Headers): Promise<Viewer | null> {
     staff ? getMemberships({ userId: u.id }) : Promise.resolve([]),
     staff ? Promise.resolve([]) : getOwnPatientIds({ userId: u.id, role: u.role }),
   ]);
+  await noteSessionUse({ sessionId: result.session.id, ipAddress: clientIp(h), userAgent: h.get("user-agent") });
   return {
     userId: u.id,
+    sessionId: result.session.id,
     name: u.name,
     email: u.email,
     role: u.role,

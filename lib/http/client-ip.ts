@@ -32,3 +32,15 @@ export function limiterAddress(ip: string): string {
 export function hashIp(ip: string): string {
   return createHmac("sha256", env.AUDIT_IP_SALT).update(ip).digest("hex").slice(0, 32);
 }
+
+/**
+ * An address coarse enough to show a person ("which of my devices is this?") without pinning a
+ * household: IPv4 without its last part, IPv6 by its first three groups (the site's /48).
+ */
+export function approximateAddress(ip: string | null | undefined): string | null {
+  if (!ip) return null;
+  const family = isIP(ip);
+  if (family === 4) return `${ip.split(".").slice(0, 3).join(".")}.x`;
+  if (family === 6) return limiterAddress(ip).split(":").slice(0, 3).map((g) => g.replace(/^0+(?=.)/, "")).join(":") + ":…";
+  return null;
+}

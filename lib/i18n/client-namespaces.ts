@@ -6,11 +6,11 @@ export const clientNamespaces = {
   /** Every page: the root error boundary. */
   root: ["Errors"],
   auth: ["AcceptInvite", "Activate", "CarerInvite", "Common", "PasswordReset", "SignIn", "SignOut", "TwoFactor"],
-  portal: ["Account", "CheckIn", "Common", "Diary", "More", "MyCatheter", "People", "Portal", "Today", "TwoFactor", "Uploads"],
+  portal: ["Account", "CheckIn", "Common", "Diary", "More", "MyCatheter", "People", "Portal", "Sessions", "Today", "TwoFactor", "Uploads"],
   staff: [
     "Account", "Admin", "AdminOrganisations", "AdminPatients", "AdminSettings", "AdminStaff", "Caseload", "CaseloadState",
     "Common", "EpisodeForm", "Letters", "LevelBadge", "Passport", "PatientDevice", "PatientForm", "PatientRecord", "Scan",
-    "Supplies", "TwoFactor", "Uploads", "VisitForm",
+    "Sessions", "Supplies", "TwoFactor", "Uploads", "VisitForm",
   ],
   /** The public device card and short-code pages, and the clinician's visit sign-in. */
   card: ["SignIn", "VisitAccess"],
