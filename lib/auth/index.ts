@@ -11,6 +11,7 @@ import { sendPasswordReset } from "@/lib/admin/mail";
 import { audit } from "@/lib/records/audit";
 import { hashPassword, PASSWORD_MIN_LENGTH, passwordProblem, verifyPassword } from "@/lib/auth/password";
 import { ACCOUNT_LIMITS, clearDelay, holdIfDelayed, newKnownDeviceValue, recordFailure, recordSuccess } from "@/lib/auth/sign-in-throttle";
+import { cookiePrefixFor } from "@/lib/auth/cookies";
 import { authSecret, env } from "@/lib/config/env";
 import { CLIENT_ADDRESS_HEADER } from "@/lib/http/client-ip";
 
@@ -81,7 +82,11 @@ export const auth = betterAuth({
   advanced: {
     // The address the server entry worked out (lib/http/client-ip.ts), never a client's header.
     ipAddress: { ipAddressHeaders: [CLIENT_ADDRESS_HEADER] },
-    useSecureCookies: env.APP_URL.startsWith("https://"),
+    // Over https every auth cookie is `__Host-caddis.*`: Secure, Path=/, no Domain (better-auth's
+    // own secure prefix is __Secure-, so its switch stays off and the prefix and flag are set here).
+    cookiePrefix: cookiePrefixFor(env.APP_URL),
+    useSecureCookies: false,
+    defaultCookieAttributes: { secure: env.APP_URL.startsWith("https://"), sameSite: "lax", path: "/", httpOnly: true },
   },
   databaseHooks: {
     session: {
