@@ -166,7 +166,7 @@ describe("plain http", () => {
   });
 
   it("is redirected when it reaches the app directly, even claiming X-Forwarded-Proto: https (the client is not the proxy)", async () => {
-    for (const headers of [{}, { "x-forwarded-proto": "https" }, { host: "evil.example" }]) {
+    for (const headers of [{}, { "x-forwarded-proto": "https" }, { host: "evil.example" }] as Record<string, string>[]) {
       const res = await send(`http://127.0.0.1:${appPort}/api/me`, { headers });
       expect(res.status).toBe(308);
       // To APP_URL, never to the Host a client sent.
