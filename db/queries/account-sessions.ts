@@ -36,3 +36,8 @@ export async function ownSessionToken({ userId, sessionId }: { userId: string; s
   const [row] = await tx.select({ token: session.token }).from(session).where(and(eq(session.id, sessionId), eq(session.userId, userId)));
   return row?.token ?? null;
 }
+
+/** Ends one session by id (a session past its absolute lifetime). */
+export async function deleteSession({ sessionId }: { sessionId: string }, tx: Executor = db) {
+  await tx.delete(session).where(eq(session.id, sessionId));
+}

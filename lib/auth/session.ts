@@ -2,7 +2,7 @@ import "server-only";
 import { headers } from "next/headers";
 import { cache } from "react";
 import { getMemberships, getOwnPatientIds, secondFactorRequired, type Role } from "@/db/queries/access";
-import { noteSessionUse } from "@/db/queries/account-sessions";
+import { deleteSession, noteSessionUse } from "@/db/queries/account-sessions";
 import { auth } from "@/lib/auth";
 import { clientIp } from "@/lib/http/client-ip";
 
@@ -28,6 +28,13 @@ export type Viewer = {
   secondFactor?: { enabled: boolean; required: boolean };
 };
 
+/**
+ * The longest a session lives from its sign-in, however active: one long shift for staff, a month
+ * for patients and carers on their own phones. Without use it ends sooner, 7 days after its last
+ * refresh (better-auth's expiresIn, lib/auth/index.ts). docs/security.md gives the reasons.
+ */
+export const SESSION_MAX_HOURS = { staff: 13, portal: 30 * 24 } as const;
+
 function isRole(value: unknown): value is Role {
   return typeof value === "string" && (roles as readonly string[]).includes(value);
 }
@@ -44,6 +51,11 @@ export async function getViewerFromHeaders(h: Headers): Promise<Viewer | null> {
   };
   if (u.deactivatedAt || !isRole(u.role)) return null;
   const staff = u.role === "admin" || u.role === "clinician";
+  // However active, a session ends a fixed time after its sign-in (ASVS 5.0.0 7.3.2).
+  if (Date.now() - new Date(result.session.createdAt).getTime() > SESSION_MAX_HOURS[staff ? "staff" : "portal"] * 3_600_000) {
+    await deleteSession({ sessionId: result.session.id });
+    return null;
+  }
   const [memberships, patientIds] = await Promise.all([
     staff ? getMemberships({ userId: u.id }) : Promise.resolve([]),
     staff ? Promise.resolve([]) : getOwnPatientIds({ userId: u.id, role: u.role }),

@@ -72,10 +72,14 @@ describe("with no trusted proxy (the default)", () => {
     for (let i = 0; i < 12; i++) {
       statuses.push((await wrongSignIn(direct, { "x-forwarded-for": `198.51.100.${i + 1}`, [CLIENT_ADDRESS_HEADER]: `203.0.113.${i + 1}` })).status);
     }
-    // SIGN_IN_MAX_ATTEMPTS (10) a minute per address, the sign-in above included: one address,
-    // whatever the headers said.
-    expect(statuses.slice(0, 9).every((s) => s === 401)).toBe(true);
-    expect(statuses.slice(9)).toEqual([429, 429, 429]);
+    // SIGN_IN_MAX_ATTEMPTS (10) a minute per address, whatever the headers said: the sign-in
+    // above counted too (and other files' sign-ins from loopback may have), so twelve tries end
+    // in 429s from the 11th attempt of the minute at the latest, and stay there.
+    const firstHeld = statuses.indexOf(429);
+    expect(firstHeld).toBeGreaterThanOrEqual(0);
+    expect(firstHeld).toBeLessThanOrEqual(9);
+    expect(statuses.slice(0, firstHeld).every((s) => s === 401)).toBe(true);
+    expect(statuses.slice(firstHeld).every((s) => s === 429)).toBe(true);
   });
 
   it("limits the device card and activation the same way", async () => {

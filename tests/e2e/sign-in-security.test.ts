@@ -71,7 +71,8 @@ describe("an account under attack", () => {
     const orgs = await orgIdsByName(["Harbourside Community Nursing Team"]);
     const nurse = await createStaff({ role: "clinician", organisationIds: [orgs["Harbourside Community Nursing Team"]!], name: "Wren Halloway", email: `wren.halloway.${Date.now().toString(36)}@eastmere.example` });
 
-    // Thirty wrong passwords from thirty addresses (the suite's server trusts loopback as its proxy).
+    // Thirty wrong passwords from thirty addresses (the suite's server trusts loopback as its
+    // proxy). The guesser waits out short holds, as a patient one would: each wait doubles.
     const statuses: number[] = [];
     for (let i = 0; i < 30; i++) {
       const res = await fetch(`${baseUrl}/api/auth/sign-in/email`, {
@@ -80,14 +81,13 @@ describe("an account under attack", () => {
         body: JSON.stringify({ email: nurse.email, password: `summer-guess-${i}` }),
       });
       statuses.push(res.status);
+      const wait = Number(res.headers.get("retry-after") ?? 0);
+      if (res.status === 429 && wait <= 8) await new Promise((r) => setTimeout(r, wait * 1000 + 100));
     }
     expect(statuses.slice(0, 5)).toEqual([401, 401, 401, 401, 401]);
+    // Thirty tries, and only nine or so were checked in the time it took.
+    expect(statuses.filter((s) => s === 401).length).toBeLessThanOrEqual(10);
     expect(statuses.filter((s) => s === 429).length).toBeGreaterThanOrEqual(20);
-
-    // The owner is told, through the outbox, in the fake inbox.
-    const [mail] = await waitForEmails(nurse.email, 1, { timeoutMs: 30_000 });
-    expect(mail.subject).toBe("Someone is trying to sign in to your Caddis account");
-    expect(mail.text).toMatch(/forgot-password/);
 
     // On a browser she has never used, her right password is held back, and she is told for how long.
     const fresh = await newPage(browser, { viewport: { width: 1280, height: 900 } });
@@ -101,6 +101,11 @@ describe("an account under attack", () => {
     expect(await alert.textContent()).toMatch(/Too many wrong tries for this account\. You can try again in \d+ (seconds?|minutes?)/);
     await screenshot(fresh, "sign-in-held-en");
     await fresh.context().close();
+
+    // She was told, through the outbox, in the fake inbox.
+    const [mail] = await waitForEmails(nurse.email, 1, { timeoutMs: 30_000 });
+    expect(mail.subject).toBe("Someone is trying to sign in to your Caddis account");
+    expect(mail.text).toMatch(/forgot-password/);
 
     // The admin sees the account, and what Caddis did about it.
     const admin = await newPage(browser, { viewport: { width: 1280, height: 900 } });

@@ -4,14 +4,16 @@
 import { and, eq, sql } from "drizzle-orm";
 import { describe, expect, it } from "vitest";
 import { DELETE as endOne } from "@/app/api/account/sessions/[sessionId]/route";
+import { POST as adminSignOut } from "@/app/api/admin/staff/[userId]/sign-out/route";
 import { DELETE as endOthers, GET as listSessions } from "@/app/api/account/sessions/route";
 import { GET as authGet, POST as authPost } from "@/app/api/auth/[...all]/route";
 import { GET as me } from "@/app/api/me/route";
 import { db } from "@/db";
 import { auditEvents, session, user } from "@/db/schema";
 import { CLIENT_ADDRESS_HEADER } from "@/lib/http/client-ip";
-import { call, demo, request, signIn, totpCode } from "../support/http";
-import { createStaff } from "../support/staff";
+import { SESSION_MAX_HOURS } from "@/lib/auth/session";
+import { call, demo, request, sessionFor, signIn, totpCode } from "../support/http";
+import { createStaff, orgIdsByName } from "../support/staff";
 
 const phone = "Mozilla/5.0 (Linux; Android 14; Pixel 8) AppleWebKit/537.36 (KHTML, like Gecko) Chrome/131.0.0.0 Mobile Safari/537.36";
 const laptop = "Mozilla/5.0 (Windows NT 10.0; Win64; x64; rv:133.0) Gecko/20100101 Firefox/133.0";
@@ -159,5 +161,47 @@ describe("a new password", () => {
     // The device that changed it stays signed in, on its new cookie.
     const renewed = res.headers.getSetCookie().map((c) => c.split(";")[0]).filter((c) => c.includes("session_token")).join("; ");
     expect((await call(me, "/api/me", { cookie: renewed })).status).toBe(200);
+  });
+});
+
+describe("session lifetime", () => {
+  it("ends a session a fixed time after sign-in however active: 13 h for staff, 30 days for patients (ASVS 7.3.2)", async () => {
+    const nurse = await createStaff({ role: "clinician", organisationIds: [] });
+    const staffCookie = await signIn(nurse.email, nurse.password);
+    const age = async (userId: string, hours: number) =>
+      db.update(session).set({ createdAt: sql`now() - make_interval(hours => ${hours})` }).where(eq(session.userId, userId));
+    await age(nurse.id, SESSION_MAX_HOURS.staff - 1);
+    expect((await call(me, "/api/me", { cookie: staffCookie })).status).toBe(200);
+    await age(nurse.id, SESSION_MAX_HOURS.staff + 1);
+    expect((await call(me, "/api/me", { cookie: staffCookie })).status).toBe(401);
+    expect(await db.select().from(session).where(eq(session.userId, nurse.id))).toHaveLength(0);
+
+    const { cookie } = await signInFrom(demo.patientAr.email, demo.patientAr.password, phone, "10.61.4.1");
+    const yusuf = (await db.select({ id: user.id }).from(user).where(eq(user.email, demo.patientAr.email)))[0]!.id;
+    await age(yusuf, SESSION_MAX_HOURS.staff + 1);
+    expect((await call(me, "/api/me", { cookie })).status).toBe(200);
+    await age(yusuf, SESSION_MAX_HOURS.portal + 1);
+    expect((await call(me, "/api/me", { cookie })).status).toBe(401);
+  });
+});
+
+describe("an admin", () => {
+  it("signs a member of staff of their organisation out on every device (ASVS 7.4.5); another organisation's is 404", async () => {
+    const orgs = await orgIdsByName(["Larch Ward", "Millbrook Surgery"]);
+    const nurse = await createStaff({ role: "clinician", organisationIds: [orgs["Larch Ward"]!] });
+    const stranger = await createStaff({ role: "clinician", organisationIds: [orgs["Millbrook Surgery"]!] });
+    const cookies = [await signIn(nurse.email, nurse.password), await signIn(nurse.email, nurse.password)];
+    const strangerCookie = await signIn(stranger.email, stranger.password);
+    const admin = await sessionFor("admin");
+    const res = await call(adminSignOut, `/api/admin/staff/${nurse.id}/sign-out`, { cookie: admin, body: {}, params: { userId: nurse.id } });
+    expect(res.status).toBe(200);
+    expect(await res.json()).toEqual({ userId: nurse.id, sessionsEnded: 2 });
+    for (const cookie of cookies) expect((await call(me, "/api/me", { cookie })).status).toBe(401);
+    const [event] = await db.select().from(auditEvents).where(eq(auditEvents.action, "admin.staff.sessions_end"));
+    expect(event!.details).toMatchObject({ userId: nurse.id, sessionsEnded: 2 });
+
+    const refused = await call(adminSignOut, `/api/admin/staff/${stranger.id}/sign-out`, { cookie: admin, body: {}, params: { userId: stranger.id } });
+    expect(refused.status).toBe(404);
+    expect((await call(me, "/api/me", { cookie: strangerCookie })).status).toBe(200);
   });
 });

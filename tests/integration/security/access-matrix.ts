@@ -28,6 +28,8 @@ export type Fixture = {
   staffUserId: string;
   /** The demo admin themselves (deactivating oneself is refused, so the matrix changes nothing). */
   adminUserId: string;
+  /** Priya Sandhu (Rowan Ward, the admin manages it), who plays no persona: signing her out changes no other row. */
+  bystanderStaffUserId: string;
 };
 
 export type Row =
@@ -159,6 +161,7 @@ export const matrix: Row[] = [
   { route: "GET /api/admin/staff/[userId]", params: (f) => ({ userId: f.staffUserId }), expect: adminOnly },
   { route: "PATCH /api/admin/staff/[userId]", params: (f) => ({ userId: f.staffUserId }), expect: adminOnly },
   { route: "POST /api/admin/staff/[userId]/deactivate", params: (f) => ({ userId: f.adminUserId }), expect: adminOnly },
+  { route: "POST /api/admin/staff/[userId]/sign-out", params: (f) => ({ userId: f.bystanderStaffUserId }), expect: adminOnly },
   { route: "POST /api/admin/staff/[userId]/reactivate", params: (f) => ({ userId: f.adminUserId }), expect: adminOnly },
   {
     route: "POST /api/staff-invitations/accept",

@@ -35,7 +35,6 @@ export default async function PortalSecurityPage({ params }: { params: Promise<{
         <h2 id="two-step-heading" className="text-xl font-bold">
           {t("twoStepHeading")}
         </h2>
-        <p>{t("twoStepIntro")}</p>
         <TwoFactorPanel enabled={viewer.secondFactor?.enabled ?? false} required={false} />
       </section>
       <section aria-labelledby="password-heading" className={section}>
