@@ -137,7 +137,10 @@ describe("the real user during an attack", () => {
     const newPassword = "Testwick-after-attack-2026";
     const reset = await authPost(request("/api/auth/reset-password", { body: { token, newPassword }, headers: { [CLIENT_ADDRESS_HEADER]: "10.49.0.2" } }));
     expect(reset.status).toBe(200);
-    expect((await attempt(nurse.email, newPassword)).status).toBe(200);
+    // Checked at once — and the reset did not skip the second step (ASVS 6.4.3).
+    const after = await attempt(nurse.email, newPassword);
+    expect(after.status).toBe(200);
+    expect(after.body).toMatchObject({ twoFactorRedirect: true });
   });
 });
 
