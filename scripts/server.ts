@@ -8,6 +8,9 @@
  * (`spawnAppServer` in scripts/app-server.ts); `next start` alone has no client address.
  *   node --import tsx scripts/server.ts --port 3000 --hostname 127.0.0.1 [--dev]
  */
+// lib/ modules say `import "server-only"`; outside a React Server Components bundle that package
+// throws on purpose, so this process maps it to its empty module, as the other scripts do.
+import "./server-only-shim.cjs";
 import http from "node:http";
 import path from "node:path";
 import { fileURLToPath } from "node:url";

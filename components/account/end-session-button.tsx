@@ -2,6 +2,7 @@
 import { useLocale, useTranslations } from "next-intl";
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
+import { ErrorAlert } from "@/components/ui/notice";
 import { apiFetch } from "@/lib/browser/api-client";
 import { useRouter } from "@/lib/i18n/navigation";
 
@@ -36,11 +37,7 @@ export function EndSessionButton({ sessionId, current = false, label }: { sessio
       >
         {busy ? t("ending") : label}
       </Button>
-      {failed ? (
-        <span role="alert" className="text-sm font-bold text-level-emergency-ink">
-          {t("failed")}
-        </span>
-      ) : null}
+      <ErrorAlert message={failed ? t("failed") : null} />
     </span>
   );
 }

@@ -2,7 +2,7 @@
 import { useTranslations } from "next-intl";
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
-import { Notice } from "@/components/ui/notice";
+import { ErrorAlert, Notice } from "@/components/ui/notice";
 import { apiFetch } from "@/lib/browser/api-client";
 
 /** Signs a member of staff out on every device (their next request needs a new sign-in). */
@@ -12,7 +12,8 @@ export function SignOutStaffButton({ userId, name }: { userId: string; name: str
   const [result, setResult] = useState<{ tone: "ok" | "stop"; text: string } | null>(null);
   return (
     <div className="flex flex-col gap-2">
-      {result ? <Notice tone={result.tone} role={result.tone === "stop" ? "alert" : "status"} title={result.text} /> : null}
+      <ErrorAlert message={result?.tone === "stop" ? result.text : null} />
+      {result?.tone === "ok" ? <Notice tone="ok" role="status" title={result.text} /> : null}
       <div>
         <Button
           variant="secondary"

@@ -2,6 +2,7 @@
 // down. Each item holds only the patient id, the idempotency key and the answers (ASVS 14.3.3);
 // the shared sign-out clears it with the rest of localStorage. The server's idempotency key
 // makes every resend safe: a check-in is stored once however often it is sent.
+import { apiFetch, isApiError } from "@/lib/browser/api-client";
 import type { SubmittedAnswers } from "@/lib/shared/check-in-flow";
 
 export const OUTBOX_KEY = "caddis.checkInOutbox.v1";
@@ -56,21 +57,15 @@ export function flushCheckIns(): Promise<void> {
   flushing ??= (async () => {
     try {
       for (const item of read()) {
-        let status = 0;
+        let status = 200;
         let level: string | undefined;
         try {
-          const res = await fetch("/api/check-ins", {
-            method: "POST",
-            headers: { "content-type": "application/json" },
-            credentials: "same-origin",
-            body: JSON.stringify(item),
-          });
-          status = res.status;
-          if (res.ok) level = (await res.json().catch(() => null))?.checkIn?.level;
-        } catch {
-          break; // offline: stop, try again later
+          level = (await apiFetch<{ checkIn?: { level?: string } }>("/api/check-ins", { method: "POST", body: item })).checkIn?.level;
+        } catch (error) {
+          if (!isApiError(error) || error.status === 0) break; // offline: stop, try again later
+          status = error.status;
         }
-        if (status === 200 || status === 201) {
+        if (status === 200) {
           remove(item.idempotencyKey);
           window.dispatchEvent(new CustomEvent<SentDetail>(SENT_EVENT, { detail: { idempotencyKey: item.idempotencyKey, ok: true, level, status } }));
         } else if (FINAL_REFUSALS.has(status)) {

@@ -10,6 +10,8 @@ import { DRINK_GUIDE, OUTPUT_WINDOW_HOURS } from "@/lib/shared/diary-guidance";
 import { Link } from "@/lib/i18n/navigation";
 import { BAG_SIZES, customVolumeSchema, DRINK_SIZES } from "@/lib/validations/diary";
 import { WeekChart } from "./week-chart";
+import { FieldError } from "@/components/ui/field";
+import { apiFetch } from "@/lib/browser/api-client";
 
 type Entry = { id: string; kind: "in" | "out"; volumeMl: number; at: string; removable: boolean };
 
@@ -47,18 +49,14 @@ export function DiaryView({ patientId, weightKg, fluidLimitMl }: { patientId: st
     queryKey: key,
     queryFn: async (): Promise<Entry[]> => {
       const to = new Date(Date.now() + 86_400_000).toISOString();
-      const res = await fetch(`/api/diary?patientId=${patientId}&from=${encodeURIComponent(from)}&to=${encodeURIComponent(to)}`);
-      if (!res.ok) throw new Error(String(res.status));
-      return (await res.json()).entries;
+      return (await apiFetch<{ entries: Entry[] }>(`/api/diary?patientId=${patientId}&from=${encodeURIComponent(from)}&to=${encodeURIComponent(to)}`)).entries;
     },
   });
   const [last, setLast] = useState<Entry | null>(null);
 
   const add = useMutation({
     mutationFn: async ({ kind, volumeMl }: { kind: "in" | "out"; volumeMl: number }) => {
-      const res = await fetch("/api/diary", { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ patientId, kind, volumeMl }) });
-      if (!res.ok) throw new Error(String(res.status));
-      return (await res.json()).entry as Entry;
+      return (await apiFetch<{ entry: Entry }>("/api/diary", { method: "POST", body: { patientId, kind, volumeMl } })).entry;
     },
     onSuccess: (entry) => {
       setLast(entry);
@@ -67,8 +65,7 @@ export function DiaryView({ patientId, weightKg, fluidLimitMl }: { patientId: st
   });
   const remove = useMutation({
     mutationFn: async (id: string) => {
-      const res = await fetch(`/api/diary/${id}`, { method: "DELETE" });
-      if (!res.ok) throw new Error(String(res.status));
+      await apiFetch(`/api/diary/${id}`, { method: "DELETE" });
       return id;
     },
     onSuccess: (id) => {
@@ -261,11 +258,7 @@ function CustomAmount({ kind, onAdd, disabled }: { kind: "in" | "out"; onAdd: (m
           {t("add")}
         </button>
       </div>
-      {errors.volumeMl ? (
-        <p id={`${id}-error`} role="alert" className="font-bold text-level-emergency-ink">
-          {t("customError")}
-        </p>
-      ) : null}
+      <FieldError id={`${id}-error`} errors={errors.volumeMl ? [t("customError")] : undefined} />
     </form>
   );
 }

@@ -6,7 +6,9 @@ import { useFormatter, useTranslations } from "next-intl";
 import { useEffect, useRef, useState } from "react";
 import { Button, buttonClass } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
-import { Field } from "@/components/ui/field";
+import { Field, SelectField } from "@/components/ui/field";
+import { ErrorAlert } from "@/components/ui/notice";
+import { apiFetch, isApiError } from "@/lib/browser/api-client";
 import type { UploadDto } from "@/lib/shared/dto";
 import { uploadCategories, type UploadCategory } from "@/lib/validations/upload";
 import { ACCEPTED_UPLOAD_TYPES, precheck, uploadFile, type UploadFailure } from "./upload-file";
@@ -17,9 +19,7 @@ export const uploadKeys = {
 };
 
 async function fetchUploads(patientId: string): Promise<UploadDto[]> {
-  const res = await fetch(`/api/patients/${patientId}/uploads`);
-  if (!res.ok) throw new Error(`uploads ${res.status}`);
-  return (await res.json()).uploads;
+  return (await apiFetch<{ uploads: UploadDto[] }>(`/api/patients/${patientId}/uploads`)).uploads;
 }
 
 const failureKey: Record<UploadFailure, "tooLarge" | "badType" | "failed"> = {
@@ -66,8 +66,12 @@ export function UploadsPanel({ patientId, initial, canRemove }: { patientId: str
 
   const remove = useMutation({
     mutationFn: async (uploadId: string) => {
-      const res = await fetch(`/api/patients/${patientId}/uploads/${uploadId}`, { method: "DELETE" });
-      if (!res.ok && res.status !== 404) throw new Error(`remove ${res.status}`);
+      try {
+        await apiFetch(`/api/patients/${patientId}/uploads/${uploadId}`, { method: "DELETE" });
+      } catch (error) {
+        // Already gone is what was asked for.
+        if (!isApiError(error) || error.status !== 404) throw error;
+      }
     },
     onSuccess: () => {
       setConfirmId(null);
@@ -109,23 +113,12 @@ export function UploadsPanel({ patientId, initial, canRemove }: { patientId: str
           <h3 id="uploads-add" className="text-xl font-bold">
             {t("add")}
           </h3>
-          <div className="flex flex-col gap-1">
-            <label htmlFor="upload-category" className="font-bold">
-              {t("category")}
-            </label>
-            <select
-              id="upload-category"
-              value={category}
-              onChange={(e) => setCategory(e.target.value as UploadCategory)}
-              className="min-h-12 rounded-lg border-2 border-stone-line bg-paper-raised px-3 text-ink"
-            >
-              {uploadCategories.map((c) => (
-                <option key={c} value={c}>
-                  {t(`categories.${c}`)}
-                </option>
-              ))}
-            </select>
-          </div>
+          <SelectField
+            label={t("category")}
+            value={category}
+            onChange={(e) => setCategory(e.target.value as UploadCategory)}
+            options={uploadCategories.map((c) => ({ value: c, label: t(`categories.${c}`) }))}
+          />
           <Field
             label={t("label")}
             hint={t("labelHint")}
@@ -236,11 +229,7 @@ export function UploadsPanel({ patientId, initial, canRemove }: { patientId: str
             </li>
           ))}
         </ul>
-        {remove.isError ? (
-          <p role="alert" className="font-bold text-level-emergency-ink">
-            {t("removeFailed")}
-          </p>
-        ) : null}
+        {remove.isError ? <ErrorAlert message={t("removeFailed")} testId="upload-remove-error" /> : null}
       </section>
     </div>
   );

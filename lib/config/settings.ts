@@ -4,7 +4,7 @@ import "server-only";
 // says so (e.g. the portal says the emergency number is not configured).
 import type { Executor } from "@/db";
 import { readSettingRows, writeSettings } from "@/db/queries/settings";
-import type { Material, PlanDatesOptions } from "@/lib/clinical";
+import { MATERIAL_SPECS, MATERIALS, PLAN_DEFAULTS, type Material, type PlanDatesOptions } from "@/lib/clinical";
 import { settingKeys, settingSchemas, type SettingsPatch } from "@/lib/validations/settings";
 
 export type DeploymentSettings = {
@@ -56,6 +56,15 @@ export function planDatesOptions(s: DeploymentSettings, extra: PlanDatesOptions 
     ...(s.dueSoonDays !== null ? { dueSoonDays: s.dueSoonDays } : {}),
     ...(Object.keys(s.defaultMaxDwellDays).length ? { defaultMaxDwellDays: s.defaultMaxDwellDays } : {}),
     ...extra,
+  };
+}
+
+/** The planning defaults a form starts from: the admin's settings over the rules' own. */
+export function planDefaultsFor(s: DeploymentSettings): { maxDwellDays: Record<Material, number>; reviewIntervalDays: number; dueSoonDays: number } {
+  return {
+    maxDwellDays: Object.fromEntries(MATERIALS.map((m) => [m, s.defaultMaxDwellDays[m] ?? MATERIAL_SPECS[m].defaultMaxDwellDays])) as Record<Material, number>,
+    reviewIntervalDays: s.reviewIntervalDays ?? PLAN_DEFAULTS.reviewIntervalDays.value,
+    dueSoonDays: s.dueSoonDays ?? PLAN_DEFAULTS.dueSoonDays.value,
   };
 }
 

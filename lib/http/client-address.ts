@@ -1,3 +1,4 @@
+import "server-only";
 // Working out the client's address from a connection (ASVS 5.0.0 15.3.4 / 2.4.1). Used by the
 // server entry (scripts/server.ts) before Next.js sees the request; no other module reads a
 // forwarding header. Pure: no Next.js, no database, no environment.

@@ -1,3 +1,4 @@
+import "server-only";
 // The client address for every limiter and audit event (ASVS 5.0.0 15.3.4), from one source: the
 // header the server entry (scripts/server.ts) sets after working it out from the TCP peer and the
 // trusted proxies (lib/http/client-address.ts). A client cannot send that header: the entry

@@ -144,11 +144,3 @@ describe("level marks are not colour alone and stand out (WCAG 1.4.11)", () => {
     expect(contrast(c.ink, c.soft)).toBeGreaterThanOrEqual(4.5);
   });
 });
-
-describe("shared schemas", () => {
-  it("the browser's password minimum equals the server's", async () => {
-    const { NEW_PASSWORD_MIN } = await import("@/lib/validations/invitations");
-    const { PASSWORD_MIN_LENGTH } = await import("@/lib/auth/password");
-    expect(NEW_PASSWORD_MIN).toBe(PASSWORD_MIN_LENGTH);
-  });
-});

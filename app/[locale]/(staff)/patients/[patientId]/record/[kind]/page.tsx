@@ -6,6 +6,7 @@ import { TwocForm } from "@/components/episode-form/twoc-form";
 import { buttonClass } from "@/components/ui/button";
 import { getRecordingContext, type EpisodeDto } from "@/db/queries/episodes";
 import { blockagePattern, type EndReason } from "@/lib/clinical";
+import { getSettings, planDefaultsFor } from "@/lib/config/settings";
 import { Link } from "@/lib/i18n/navigation";
 import { openRecordPage } from "@/lib/records/patient-record-page";
 import { RECORD_KINDS, type RecordKind } from "@/lib/validations/episode";
@@ -58,6 +59,7 @@ export default async function RecordEpisodePage({ params }: { params: Promise<Pa
   const timeZone = deploymentTimeZone();
   const facts = { sex: patient.sex, dateOfBirth: patient.dateOfBirth, allergies: { latex: patient.allergies.latex, chlorhexidine: patient.allergies.chlorhexidine, lidocaine: patient.allergies.lidocaine } };
   const trial = latest && latest.removedAt && latest.awaitingTwoc && !active ? latest : null;
+  const planDefaults = planDefaultsFor(await getSettings());
 
   let blockage: BlockageHint = null;
   if (kind === "change") {
@@ -100,10 +102,10 @@ export default async function RecordEpisodePage({ params }: { params: Promise<Pa
   else if (kind === "insertion") {
     body = active
       ? blocked(t("blocked.inPlace"), { href: `${record}/record/change`, label: t("title.change") })
-      : <DeviceEpisodeForm mode="insertion" patientId={patientId} patient={facts} clinicianName={viewer.name} previous={previousDevice(latest)} timeZone={timeZone} blockage={null} />;
+      : <DeviceEpisodeForm mode="insertion" patientId={patientId} patient={facts} clinicianName={viewer.name} previous={previousDevice(latest)} timeZone={timeZone} blockage={null} planDefaults={planDefaults} />;
   } else if (kind === "change") {
     body = active
-      ? <DeviceEpisodeForm mode="change" patientId={patientId} patient={facts} clinicianName={viewer.name} previous={previousDevice(active)} timeZone={timeZone} blockage={blockage} />
+      ? <DeviceEpisodeForm mode="change" patientId={patientId} patient={facts} clinicianName={viewer.name} previous={previousDevice(active)} timeZone={timeZone} blockage={blockage} planDefaults={planDefaults} />
       : blocked(t("blocked.noneInPlace"), { href: `${record}/record/insertion`, label: t("title.insertion") });
   } else if (kind === "removal") {
     body = active
