@@ -62,6 +62,7 @@ export function PassportPanel({
   languages,
   hasDevice,
   canOfferActivation,
+  readOnly = false,
 }: {
   patientId: string;
   overview: PassportOverview;
@@ -69,6 +70,8 @@ export function PassportPanel({
   hasDevice: boolean;
   /** No portal account yet and the viewer is in the care team: offer a code on the booklet. */
   canOfferActivation: boolean;
+  /** A closed record: its passport history is shown, nothing can be issued. */
+  readOnly?: boolean;
 }) {
   const t = useTranslations("Passport");
   const format = useFormatter();
@@ -230,26 +233,26 @@ export function PassportPanel({
                   {t("download")}
                 </a>
               ) : null}
-              <Button
+              {readOnly ? null : <Button
                 variant={issued ? "secondary" : "primary"}
                 onClick={() => setConfirming(true)}
                 disabled={mutation.isPending || confirming}
                 data-testid="passport-reissue"
               >
                 {t("reissue")}
-              </Button>
+              </Button>}
             </div>
-            <p className="text-sm text-ink-soft">{t("reissueHint")}</p>
+            {readOnly ? null : <p className="text-sm text-ink-soft">{t("reissueHint")}</p>}
           </>
         ) : (
           <>
             <p>{t("none")}</p>
-            {activationChoice}
+            {readOnly ? null : <>{activationChoice}
             <div>
               <Button onClick={() => mutation.mutate(false)} disabled={mutation.isPending} data-testid="passport-issue">
                 {mutation.isPending ? t("issuing") : t("issue")}
               </Button>
-            </div>
+            </div></>}
           </>
         )}
         {confirming ? (

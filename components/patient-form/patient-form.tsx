@@ -69,6 +69,7 @@ function todayLocal() {
 
 export function PatientForm(props: Props) {
   const t = useTranslations("PatientForm");
+  const tErrors = useTranslations("Errors");
   const router = useRouter();
   const [formError, setFormError] = useState<string | null>(null);
   const editing = props.mode === "edit";
@@ -150,7 +151,8 @@ export function PatientForm(props: Props) {
       setFormError(fields._form ? message(fields._form[0]) : t("fixFields"));
       return;
     }
-    setFormError(res.status === 403 || res.status === 404 ? t("notAllowed") : t("serverError"));
+    if (payload?.error?.code === "record_closed") setFormError(tErrors("record_closed"));
+    else setFormError(res.status === 403 || res.status === 404 ? t("notAllowed") : t("serverError"));
   }, onInvalid);
 
   const today = todayLocal();

@@ -28,7 +28,7 @@ const failureKey: Record<UploadFailure, "tooLarge" | "badType" | "failed"> = {
   failed: "failed",
 };
 
-export function UploadsPanel({ patientId, initial, canRemove }: { patientId: string; initial: UploadDto[]; canRemove: boolean }) {
+export function UploadsPanel({ patientId, initial, canRemove, readOnly = false }: { patientId: string; initial: UploadDto[]; canRemove: boolean; readOnly?: boolean }) {
   const t = useTranslations("Uploads");
   const format = useFormatter();
   const queryClient = useQueryClient();
@@ -104,7 +104,7 @@ export function UploadsPanel({ patientId, initial, canRemove }: { patientId: str
         <p className="max-w-prose">{t("intro")}</p>
       </section>
 
-      <Card>
+      {readOnly ? null : <Card>
         <form onSubmit={submit} noValidate className="flex max-w-xl flex-col gap-4" aria-labelledby="uploads-add">
           <h3 id="uploads-add" className="text-xl font-bold">
             {t("add")}
@@ -155,7 +155,7 @@ export function UploadsPanel({ patientId, initial, canRemove }: { patientId: str
             </Button>
           </div>
         </form>
-      </Card>
+      </Card>}
 
       <p role="status" className="font-bold" data-testid="upload-status">
         {status}

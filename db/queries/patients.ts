@@ -81,6 +81,12 @@ function toEpisode(e: CatheterEpisode): CurrentEpisode {
   };
 }
 
+/** When the record was closed, or null while it is open. */
+export async function getRecordClosedAt({ patientId }: { patientId: string }, tx: Executor = db): Promise<Date | null> {
+  const [row] = await tx.select({ closedAt: patients.closedAt }).from(patients).where(eq(patients.id, patientId));
+  return row?.closedAt ?? null;
+}
+
 /** The patient's details, care team, GP practice and the catheter in place (if any). */
 export async function getPatientRecord({ patientId }: { patientId: string }, tx: Executor = db): Promise<PatientRecord | null> {
   const [p] = await tx.select().from(patients).where(eq(patients.id, patientId));

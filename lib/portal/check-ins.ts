@@ -4,11 +4,12 @@ import "server-only";
 // emergency results alerts the care team, all in one transaction. The idempotency key makes a
 // resend (an offline phone, a double tap) return the first result without a second row.
 import { getActiveRoute, getCheckInByKey, insertCheckIn, setLatestCheckIn, toCheckInDto, type CheckInDto } from "@/db/queries/check-ins";
-import { db, type Executor } from "@/db";
+import type { Executor } from "@/db";
 import type { PatientAccessVia } from "@/db/queries/access";
 import { TRIAGE_RULES, type TriageLevel } from "@/lib/clinical";
 import { scoreAnswers, type SubmittedAnswers } from "@/lib/shared/check-in-flow";
 import { audit } from "@/lib/records/audit";
+import { writeRecord } from "@/lib/records/record-state";
 import { queueCareTeamAlert } from "@/lib/email/care-team-alert";
 import type { Viewer } from "@/lib/auth/session";
 import { AppError } from "@/lib/http/errors";
@@ -51,7 +52,7 @@ export async function submitCheckIn({
   }
   const { result } = scored;
 
-  return db.transaction(async (tx) => {
+  return writeRecord(patientId, async (tx) => {
     const row = await insertCheckIn(
       { patientId, reportedByUserId: viewer.userId, answers, level: result.level, ruleIds: result.ruleIds, idempotencyKey, answeredAt: answered },
       tx,

@@ -23,6 +23,7 @@ import { planDates, type Finding } from "@/lib/clinical";
 import { reconcileOverrides, runDeviceCheck } from "@/lib/shared/episode-checks";
 import { AppError } from "@/lib/http/errors";
 import { openPatientRecord } from "@/lib/records/patient-record";
+import { assertRecordOpen } from "@/lib/records/record-state";
 import type { ChangeInput, DeviceCheckInput, InsertionInput, RemovalInput, TwocInput } from "@/lib/validations/episode";
 import { dayIn, deploymentTimeZone } from "@/lib/shared/time-zone";
 
@@ -36,9 +37,9 @@ export type RecordedEpisode = {
 
 async function openForWrite(ctx: Ctx, action: string, tx: Transaction): Promise<PatientForRecording> {
   await openPatientRecord({ viewer: ctx.viewer, patientId: ctx.patientId, action, request: ctx.request }, tx);
+  await assertRecordOpen(tx, ctx.patientId);
   const patient = await getPatientForRecording({ patientId: ctx.patientId, lock: true }, tx);
   if (!patient) throw new AppError("not_found");
-  if (patient.closed) throw new AppError("conflict", "This record is closed.");
   return patient;
 }
 

@@ -1,8 +1,10 @@
 import "server-only";
 // A closed record is kept read-only for the retention period. Every write to a patient's record
-// calls assertRecordOpen inside its transaction, before writing.
+// goes through writeRecord (or calls assertRecordOpen inside its own transaction), so a closed
+// record answers one error everywhere: 409 `record_closed`.
+// tests/integration/closed-record.test.ts finds every write route on disk and tries each one.
 import { eq } from "drizzle-orm";
-import type { Executor } from "@/db";
+import { db, type Executor, type Transaction } from "@/db";
 import { patients } from "@/db/schema";
 import { AppError } from "@/lib/http/errors";
 
@@ -15,4 +17,12 @@ export async function assertRecordOpen(tx: Executor, patientId: string): Promise
   const [row] = await tx.select({ closedAt: patients.closedAt }).from(patients).where(eq(patients.id, patientId)).for("share");
   if (!row) throw new AppError("not_found");
   if (row.closedAt) throw new AppError("record_closed");
+}
+
+/** One write to a patient's record: a transaction that refuses a closed record before anything else. */
+export function writeRecord<T>(patientId: string, write: (tx: Transaction) => Promise<T>): Promise<T> {
+  return db.transaction(async (tx) => {
+    await assertRecordOpen(tx, patientId);
+    return write(tx);
+  });
 }

@@ -1,6 +1,6 @@
-import { db } from "@/db";
 import { addDiaryEntry, listDiaryEntries, toDiaryDto } from "@/db/queries/diary";
 import { audit } from "@/lib/records/audit";
+import { writeRecord } from "@/lib/records/record-state";
 import { requirePortalPatient, requirePortalViewer } from "@/lib/auth/permissions";
 import { AppError } from "@/lib/http/errors";
 import { handle, json } from "@/lib/http/handle";
@@ -24,7 +24,7 @@ export const POST = handle(async (request) => {
   if (at.getTime() > now + 10 * 60_000 || at.getTime() < now - DIARY_BACKDATE_DAYS * 86_400_000) {
     throw new AppError("validation_failed", undefined, { fields: { at: [`must be within the last ${DIARY_BACKDATE_DAYS} days`] } });
   }
-  const row = await db.transaction(async (tx) => {
+  const row = await writeRecord(input.patientId, async (tx) => {
     const entry = await addDiaryEntry({ patientId: input.patientId, kind: input.kind, volumeMl: input.volumeMl, at, recordedByUserId: viewer.userId }, tx);
     await audit({ action: "diary.add", actor: viewer, patientId: input.patientId, via, request, details: { entryId: entry.id, kind: entry.kind } }, tx);
     return entry;

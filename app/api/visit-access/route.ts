@@ -1,7 +1,7 @@
-import { db } from "@/db";
 import { findPatientAccess } from "@/db/queries/access";
 import { grantVisitAccess } from "@/db/queries/passport-card";
 import { audit } from "@/lib/records/audit";
+import { writeRecord } from "@/lib/records/record-state";
 import { requireRole } from "@/lib/auth/permissions";
 import { AppError } from "@/lib/http/errors";
 import { handle, json } from "@/lib/http/handle";
@@ -24,7 +24,7 @@ export const POST = handle(async (request) => {
   if (!passport) throw new AppError("not_found");
   const current = await findPatientAccess({ userId: viewer.userId, role: viewer.role, patientId: passport.patientId });
   if (current === "care_team") return json({ patientId: passport.patientId, via: "care_team", expiresAt: null });
-  const grant = await db.transaction(async (tx) => {
+  const grant = await writeRecord(passport.patientId, async (tx) => {
     const g = await grantVisitAccess({ patientId: passport.patientId, userId: viewer.userId, reason: body.reason, hours: VISIT_ACCESS_HOURS }, tx);
     await audit(
       {

@@ -20,7 +20,7 @@ const severities: FindingSeverity[] = ["stop", "warn", "info"];
 
 export default async function DeviceTab({ params }: { params: Promise<{ locale: string; patientId: string }> }) {
   const { locale, patientId } = await params;
-  const { via } = await openRecordPage({ locale, patientId, action: "patient.view.device" });
+  const { via, closed } = await openRecordPage({ locale, patientId, action: "patient.view.device" });
   const [record, gpPractices] = await Promise.all([getPatientRecord({ patientId }), listGpPracticeDirectory()]);
   if (!record) notFound();
   const t = await getTranslations("PatientDevice");
@@ -44,7 +44,7 @@ export default async function DeviceTab({ params }: { params: Promise<{ locale: 
             {e ? t("inPlace") : t("noneInPlace")}
           </h2>
           <div className="flex flex-wrap gap-2">
-            {e ? (
+            {closed ? null : e ? (
               <>
                 <ActionLink href={recordHref("change")}>{t("actions.change")}</ActionLink>
                 <ActionLink href={recordHref("removal")} secondary>
@@ -173,7 +173,7 @@ export default async function DeviceTab({ params }: { params: Promise<{ locale: 
           {t("detailsTitle")}
         </h2>
         <Card>
-          <PatientDetailsPanel patient={record.patient} gpPractices={gpPractices} canEdit={via === "care_team"} />
+          <PatientDetailsPanel patient={record.patient} gpPractices={gpPractices} canEdit={via === "care_team" && !closed} />
         </Card>
       </section>
     </div>

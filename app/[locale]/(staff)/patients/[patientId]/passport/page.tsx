@@ -14,7 +14,7 @@ export async function generateMetadata() {
 
 export default async function PassportTab({ params }: { params: Promise<{ locale: string; patientId: string }> }) {
   const { locale, patientId } = await params;
-  const { via } = await openRecordPage({ locale, patientId, action: "patient.view.passport" });
+  const { via, closed } = await openRecordPage({ locale, patientId, action: "patient.view.passport" });
   const [record, overview, invitee] = await Promise.all([
     getPatientRecord({ patientId }),
     getPassportOverview({ patientId }),
@@ -29,6 +29,7 @@ export default async function PassportTab({ params }: { params: Promise<{ locale
       hasDevice={Boolean(record.currentEpisode)}
       // Only the care team gives activation codes (as on the invite route), and only before an account exists.
       canOfferActivation={via === "care_team" && !invitee.userId && !invitee.closedAt}
+      readOnly={closed}
     />
   );
 }
