@@ -14,12 +14,11 @@ import {
   DEVICE_RULES,
   GEL_KINDS,
   LENGTH_CATEGORIES,
-  MATERIAL_SPECS,
   MATERIALS,
-  PLAN_DEFAULTS,
   planDates,
   ROUTES,
   type Material,
+  type PlanDefaults,
 } from "@/lib/clinical";
 import { reconcileOverrides, runDeviceCheck, type PatientFacts } from "@/lib/shared/episode-checks";
 import { useRouter } from "@/lib/i18n/navigation";
@@ -53,7 +52,7 @@ export type PreviousDevice = {
 
 export type BlockageHint = { typicalDwellDays: number; suggestedIntervalDays: number; blockageEpisodes: number } | null;
 
-function defaults(prev: PreviousDevice | null): Values {
+function defaults(prev: PreviousDevice | null, planning: PlanDefaults): Values {
   const s = (v: number | null | undefined) => (v === null || v === undefined ? "" : String(v));
   return {
     route: prev?.route ?? "",
@@ -82,7 +81,7 @@ function defaults(prev: PreviousDevice | null): Values {
     attempts: "1",
     difficulties: "",
     patientReaction: "",
-    reviewIntervalDays: s(prev?.reviewIntervalDays ?? PLAN_DEFAULTS.reviewIntervalDays.value),
+    reviewIntervalDays: s(prev?.reviewIntervalDays ?? planning.reviewIntervalDays),
     overrides: [],
     changeKind: "",
     unplannedReason: "",
@@ -99,6 +98,7 @@ export function DeviceEpisodeForm({
   previous,
   timeZone,
   blockage,
+  planning,
 }: {
   mode: "insertion" | "change";
   patientId: string;
@@ -108,6 +108,8 @@ export function DeviceEpisodeForm({
   previous: PreviousDevice | null;
   timeZone: string;
   blockage: BlockageHint;
+  /** The deployment's planning values (lib/config/settings getPlanDefaults). */
+  planning: PlanDefaults;
 }) {
   const t = useTranslations("EpisodeForm");
   const tErrors = useTranslations("Errors");
@@ -124,7 +126,7 @@ export function DeviceEpisodeForm({
     formState: { errors },
   } = useForm<Values>({
     resolver: zodResolver(schema as typeof changeSchema) as unknown as Resolver<Values>,
-    defaultValues: defaults(previous),
+    defaultValues: defaults(previous, planning),
     mode: "onTouched",
   });
   const [overrides, setOverrides] = useState<Record<string, string>>({});
@@ -144,8 +146,8 @@ export function DeviceEpisodeForm({
   // The maker's maximum dwell starts as the material's common-practice default until the nurse types one.
   const material = draft.material as Material | "";
   useEffect(() => {
-    if (material && !dwellEdited.current) setValue("maxDwellDays", String(MATERIAL_SPECS[material].defaultMaxDwellDays));
-  }, [material, setValue]);
+    if (material && !dwellEdited.current) setValue("maxDwellDays", String(planning.maxDwellDays[material]));
+  }, [material, setValue, planning]);
 
   let plan: ReturnType<typeof planDates> | null = null;
   try {
@@ -155,7 +157,7 @@ export function DeviceEpisodeForm({
       route: draft.route as "urethral",
       maxDwellDays: draft.maxDwellDays ? Number(draft.maxDwellDays) : undefined,
       reviewIntervalDays: draft.reviewIntervalDays ? Number(draft.reviewIntervalDays) : undefined,
-    });
+    }, { reviewIntervalDays: planning.reviewIntervalDays, dueSoonDays: planning.dueSoonDays, defaultMaxDwellDays: planning.maxDwellDays });
   } catch {
     plan = null;
   }
@@ -234,7 +236,7 @@ export function DeviceEpisodeForm({
   const options = <T extends string>(values: readonly T[], group: "route" | "catheterType" | "material" | "lengthCategory" | "gelKind" | "unplannedReason") =>
     values.map((v) => ({ value: v, label: t(`option.${group}.${v}` as "option.route.urethral") }));
   // A prefilled default the nurse has not changed is not the maker's figure, whatever the field holds.
-  const dwellIsDefault = Boolean(material) && !dwellEdited.current && Number(draft.maxDwellDays) === MATERIAL_SPECS[material as Material].defaultMaxDwellDays;
+  const dwellIsDefault = Boolean(material) && !dwellEdited.current && Number(draft.maxDwellDays) === planning.maxDwellDays[material as Material];
   const planBasis = plan ? t(`plan.basis.${dwellIsDefault && plan.change.basis === "maker" ? "material-default" : plan.change.basis}`) : "";
 
   return (
@@ -386,7 +388,7 @@ export function DeviceEpisodeForm({
             label={t("field.maxDwellDays")}
             unit={t("unit.days")}
             inputMode="numeric"
-            hint={material ? t("hint.dwell", { days: MATERIAL_SPECS[material].defaultMaxDwellDays }) : t("hint.dwellNoMaterial")}
+            hint={material ? t("hint.dwell", { days: planning.maxDwellDays[material] }) : t("hint.dwellNoMaterial")}
             {...register("maxDwellDays", { onChange: () => (dwellEdited.current = true) })}
             errors={err("maxDwellDays")}
             data-testid="field-max-dwell"

@@ -4,7 +4,7 @@ import "server-only";
 // says so (e.g. the portal says the emergency number is not configured).
 import type { Executor } from "@/db";
 import { readSettingRows, writeSettings } from "@/db/queries/settings";
-import type { Material, PlanDatesOptions } from "@/lib/clinical";
+import { planDefaults, type Material, type PlanDatesOptions, type PlanDefaults } from "@/lib/clinical";
 import { settingKeys, settingSchemas, type SettingsPatch } from "@/lib/validations/settings";
 
 export type DeploymentSettings = {
@@ -57,6 +57,15 @@ export function planDatesOptions(s: DeploymentSettings, extra: PlanDatesOptions 
     ...(Object.keys(s.defaultMaxDwellDays).length ? { defaultMaxDwellDays: s.defaultMaxDwellDays } : {}),
     ...extra,
   };
+}
+
+/**
+ * The planning values in force (review interval, due-soon window, change interval by material):
+ * what the admin set, else the rules' defaults. The one way episodes, the episode forms, the
+ * record, the caseload, the digest and the reminders learn them.
+ */
+export async function getPlanDefaults(tx?: Executor): Promise<PlanDefaults> {
+  return planDefaults(planDatesOptions(await getSettings(tx)));
 }
 
 /** Applies a validated change; returns the keys that changed (for the audit event). */

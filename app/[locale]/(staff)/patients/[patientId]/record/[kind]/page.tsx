@@ -6,6 +6,7 @@ import { TwocForm } from "@/components/episode-form/twoc-form";
 import { buttonClass } from "@/components/ui/button";
 import { getRecordingContext, type EpisodeDto } from "@/db/queries/episodes";
 import { blockagePattern, type EndReason } from "@/lib/clinical";
+import { getPlanDefaults } from "@/lib/config/settings";
 import { Link } from "@/lib/i18n/navigation";
 import { openRecordPage } from "@/lib/records/patient-record-page";
 import { RECORD_KINDS, type RecordKind } from "@/lib/validations/episode";
@@ -51,7 +52,7 @@ export default async function RecordEpisodePage({ params }: { params: Promise<Pa
   // Clinician role, access check and audit event before anything is read (the record layout
   // around this page shows the patient, their allergies and the tabs).
   const { viewer } = await openRecordPage({ locale, patientId, action: `episode.form.${kind}` });
-  const context = await getRecordingContext({ patientId });
+  const [context, planning] = await Promise.all([getRecordingContext({ patientId }), getPlanDefaults()]);
   if (!context.patient) notFound();
   const { patient, active, latest } = context;
   const t = await getTranslations("EpisodeForm");
@@ -68,7 +69,7 @@ export default async function RecordEpisodePage({ params }: { params: Promise<Pa
           removedOn: e.removedAt ? dayIn(e.removedAt, timeZone) : undefined,
           endReason: endReason(e.removalReason),
         })),
-        { maxDwellDays: active?.maxDwellDays ?? undefined },
+        { maxDwellDays: active ? (active.maxDwellDays ?? planning.maxDwellDays[active.material]) : undefined },
       );
       if (pattern.status === "pattern") {
         blockage = { typicalDwellDays: pattern.typicalDwellDays, suggestedIntervalDays: pattern.suggestedIntervalDays, blockageEpisodes: pattern.blockageEpisodes };
@@ -100,10 +101,10 @@ export default async function RecordEpisodePage({ params }: { params: Promise<Pa
   else if (kind === "insertion") {
     body = active
       ? blocked(t("blocked.inPlace"), { href: `${record}/record/change`, label: t("title.change") })
-      : <DeviceEpisodeForm mode="insertion" patientId={patientId} patient={facts} clinicianName={viewer.name} previous={previousDevice(latest)} timeZone={timeZone} blockage={null} />;
+      : <DeviceEpisodeForm mode="insertion" patientId={patientId} patient={facts} clinicianName={viewer.name} previous={previousDevice(latest)} timeZone={timeZone} blockage={null} planning={planning} />;
   } else if (kind === "change") {
     body = active
-      ? <DeviceEpisodeForm mode="change" patientId={patientId} patient={facts} clinicianName={viewer.name} previous={previousDevice(active)} timeZone={timeZone} blockage={blockage} />
+      ? <DeviceEpisodeForm mode="change" patientId={patientId} patient={facts} clinicianName={viewer.name} previous={previousDevice(active)} timeZone={timeZone} blockage={blockage} planning={planning} />
       : blocked(t("blocked.noneInPlace"), { href: `${record}/record/insertion`, label: t("title.insertion") });
   } else if (kind === "removal") {
     body = active
