@@ -8,6 +8,7 @@ import type { DeviceCard } from "@/lib/shared/dto";
 import { charriereToMm } from "@/lib/clinical";
 import { directionOf, isLocale, type Locale } from "@/lib/i18n/routing";
 import { deploymentTimeZone } from "@/lib/shared/time-zone";
+import { allergySummary } from "@/lib/clinical/allergies";
 
 /** The patient's language first, then English (once, when that is the patient's). */
 /**
@@ -30,11 +31,9 @@ async function CardInLanguage({ card, locale, first }: { card: DeviceCard; local
   const day = (iso: string) => format.dateTime(new Date(iso), { weekday: "short", day: "numeric", month: "short", year: "numeric", timeZone });
   const calendarDay = (ymd: string) =>
     format.dateTime(new Date(`${ymd}T12:00:00Z`), { weekday: "short", day: "numeric", month: "short", year: "numeric", timeZone: "UTC" });
-  const allergies = [
-    card.allergies.latex ? p("allergy.latex") : null,
-    card.allergies.chlorhexidine ? p("allergy.chlorhexidine") : null,
-    card.allergies.lidocaine ? p("allergy.lidocaine") : null,
-  ].filter((x): x is string => Boolean(x));
+  const { present, notRecorded } = allergySummary(card.allergies);
+  const allergies = present.map((a) => p(`allergy.${a}`));
+  const unknown = notRecorded.length ? p("allergyNotRecorded", { allergens: notRecorded.map((a) => p(`allergy.${a}`)).join(" · ") }) : null;
   const H = first ? "h2" : "h3";
   return (
     <section lang={locale} dir={directionOf(locale)} className="flex flex-col gap-4" data-testid={`card-${locale}`}>
@@ -49,7 +48,20 @@ async function CardInLanguage({ card, locale, first }: { card: DeviceCard; local
           <div>
             <p className="font-bold">{t("allergiesTitle")}</p>
             <p className="text-xl font-bold">{allergies.join(" · ")}</p>
+            {unknown ? <p className="font-bold" data-testid="card-allergies-not-recorded">{unknown}</p> : null}
             <p>{p("allergyCheck")}</p>
+          </div>
+        </div>
+      ) : unknown ? (
+        <div role="note" className="flex items-start gap-3 rounded-lg border-2 border-level-urgent bg-level-urgent-soft p-3 text-level-urgent-ink" data-testid="card-allergies-not-recorded">
+          <svg viewBox="0 0 16 16" className="mt-1 h-6 w-6 shrink-0" aria-hidden="true">
+            <path d="M8 1.5 15 14.5H1z" fill="currentColor" />
+            <path d="M8 6v4" stroke="white" strokeWidth="1.8" strokeLinecap="round" />
+            <circle cx="8" cy="12.3" r="1" fill="white" />
+          </svg>
+          <div>
+            <p className="font-bold">{t("allergiesTitle")}</p>
+            <p className="text-xl font-bold">{unknown}</p>
           </div>
         </div>
       ) : (

@@ -8,6 +8,7 @@ import { useId, useState, type ReactNode } from "react";
 import { useForm, type FieldErrors, type Path } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
+import { ALLERGENS, ALLERGY_ANSWERS } from "@/lib/clinical/allergies";
 import { useRouter } from "@/lib/i18n/navigation";
 import { localeNames } from "@/lib/i18n/routing";
 import {
@@ -38,7 +39,7 @@ const blank: PatientInput = {
   sex: undefined as unknown as PatientInput["sex"],
   preferredLocale: "en",
   weightKg: null,
-  allergies: { latex: false, chlorhexidine: false, lidocaine: false, other: "" },
+  allergies: { latex: "not-asked", chlorhexidine: "not-asked", lidocaine: "not-asked", other: "" },
   gpPracticeId: "",
   careTeamOrganisationIds: [],
 };
@@ -51,6 +52,9 @@ const formFields = [
   "sex",
   "preferredLocale",
   "weightKg",
+  "allergies.latex",
+  "allergies.chlorhexidine",
+  "allergies.lidocaine",
   "allergies.other",
   "gpPracticeId",
   "careTeamOrganisationIds",
@@ -218,12 +222,16 @@ export function PatientForm(props: Props) {
       </Section>
 
       <Section title={t("sections.allergies")} hint={t("allergiesHint")}>
-        <div className="flex flex-col gap-1">
-          {(["latex", "chlorhexidine", "lidocaine"] as const).map((a) => (
-            <label key={a} className="flex min-h-11 items-center gap-3">
-              <input type="checkbox" className="h-5 w-5 accent-brand" {...register(`allergies.${a}`)} />
-              {t(`allergy.${a}`)}
-            </label>
+        <div className="flex flex-col gap-3">
+          {ALLERGENS.map((a) => (
+            <ChoiceGroup key={a} legend={t(`allergy.${a}`)} errors={errorsOf(`allergies.${a}`)}>
+              {ALLERGY_ANSWERS.map((answer) => (
+                <label key={answer} className="flex min-h-11 items-center gap-2">
+                  <input type="radio" value={answer} className="h-5 w-5 accent-brand" {...register(`allergies.${a}`)} data-testid={`allergy-${a}-${answer}`} />
+                  {t(`allergyAnswer.${answer}`)}
+                </label>
+              ))}
+            </ChoiceGroup>
           ))}
         </div>
         <Field label={t("allergyOther")} hint={t("allergyOtherHint")} errors={errorsOf("allergies.other")} {...register("allergies.other")} />

@@ -3,6 +3,7 @@ import "server-only";
 // one-transaction reissue. Access checks happen before these are called.
 import { and, asc, desc, eq, isNull, max, sql } from "drizzle-orm";
 import { db, type Executor } from "@/db";
+import type { AllergyAnswers } from "@/lib/clinical";
 import { getSettings } from "@/lib/config/settings";
 import {
   careTeam,
@@ -140,7 +141,7 @@ export type BookletRecord = {
     dateOfBirth: string;
     healthRecordNumber: string;
     preferredLocale: string;
-    allergies: { latex: boolean; chlorhexidine: boolean; lidocaine: boolean; other: string | null };
+    allergies: AllergyAnswers & { other: string | null };
   };
   currentEpisode: (typeof catheterEpisodes.$inferSelect & { organisationName: string | null }) | null;
   episodes: { id: string; sizeCh: number; material: (typeof catheterEpisodes.$inferSelect)["material"]; lot: string | null }[];

@@ -2,6 +2,7 @@
 // route handlers. Error messages are keys of PatientForm.errors, so the client shows the same
 // translated message whether the client or the server found the problem.
 import { z } from "zod";
+import { ALLERGY_ANSWERS } from "@/lib/clinical/allergies";
 import { locales } from "@/lib/i18n/routing";
 
 export const patientSexes = ["female", "male", "other", "unknown"] as const;
@@ -55,10 +56,11 @@ export const patientSchema = z.object({
     .max(WEIGHT_KG.max, { error: "weight_range" })
     .nullish()
     .transform((v) => (v === undefined || v === null ? null : Math.round(v * 10) / 10)),
+  // Each one yes, no or "not-asked" (the form's starting value): never a silent "no".
   allergies: z.object({
-    latex: z.boolean({ error: "required" }),
-    chlorhexidine: z.boolean({ error: "required" }),
-    lidocaine: z.boolean({ error: "required" }),
+    latex: z.enum(ALLERGY_ANSWERS, { error: "required" }),
+    chlorhexidine: z.enum(ALLERGY_ANSWERS, { error: "required" }),
+    lidocaine: z.enum(ALLERGY_ANSWERS, { error: "required" }),
     other: optionalText(200),
   }),
   gpPracticeId: z.uuid({ error: "gp_required" }),

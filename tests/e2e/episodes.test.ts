@@ -32,7 +32,9 @@ async function makePatient(opts: { latex?: boolean; familyName?: string } = {}) 
       healthRecordNumber: `E2E-${randomUUID()}`,
       dateOfBirth: "1948-02-14",
       sex: "male",
-      allergyLatex: opts.latex ?? false,
+      allergyLatex: opts.latex ? "yes" : "no",
+      allergyChlorhexidine: "no",
+      allergyLidocaine: "no",
     })
     .returning({ id: patients.id });
   created.push(p.id);

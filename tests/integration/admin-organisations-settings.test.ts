@@ -146,7 +146,7 @@ describe("deployment settings", () => {
         cookie: team.cookie,
         body: {
           givenName: "Setta", familyName: `Ingham ${suffix()}`, healthRecordNumber: `ST-${suffix().slice(0, 8).toUpperCase()}`, dateOfBirth: "1950-02-03",
-          sex: "female", preferredLocale: "en", weightKg: null, allergies: { latex: false, chlorhexidine: false, lidocaine: false, other: null },
+          sex: "female", preferredLocale: "en", weightKg: null, allergies: { latex: "no", chlorhexidine: "no", lidocaine: "no", other: null },
           gpPracticeId: gp.id, careTeamOrganisationIds: [team.organisationId],
         },
       });

@@ -5,6 +5,7 @@ import { Card } from "@/components/ui/card";
 import { getMyCatheter } from "@/db/queries/portal";
 import { requirePageRole } from "@/lib/auth/permissions";
 import { portalPatient, portalPatients, subjectName } from "@/lib/portal";
+import { allergySummary } from "@/lib/clinical/allergies";
 
 export async function generateMetadata() {
   const t = await getTranslations("MyCatheter");
@@ -21,9 +22,9 @@ export default async function MyCatheterPage({ params, searchParams }: { params:
   const { episode, allergies } = await getMyCatheter({ patientId: patient.id });
   const day = (d: string) => format.dateTime(new Date(`${d}T12:00:00Z`), { weekday: "long", day: "numeric", month: "long", year: "numeric", timeZone: "UTC" });
   const carerOf = subjectName(viewer, patient);
-  const allergyList = allergies
-    ? [allergies.latex && t("allergy.latex"), allergies.chlorhexidine && t("allergy.chlorhexidine"), allergies.lidocaine && t("allergy.lidocaine"), allergies.other].filter(Boolean)
-    : [];
+  const summary = allergies ? allergySummary(allergies) : { present: [], notRecorded: [] };
+  const allergyList = [...summary.present.map((a) => t(`allergy.${a}`)), ...(allergies?.other ? [allergies.other] : [])];
+  const notAsked = summary.notRecorded.map((a) => t(`allergy.${a}`)).join(", ");
   const row = (label: string, value: string, testId?: string) => (
     <div className="flex flex-col border-b border-stone-faint py-2 last:border-b-0">
       <dt className="text-ink-soft">{label}</dt>
@@ -62,9 +63,14 @@ export default async function MyCatheterPage({ params, searchParams }: { params:
               <li key={String(a)}>{a}</li>
             ))}
           </ul>
-        ) : (
+        ) : notAsked ? null : (
           <p>{t("noAllergies")}</p>
         )}
+        {notAsked ? (
+          <p className="font-bold" data-testid="allergy-not-recorded">
+            {t("allergyNotRecorded", { allergens: notAsked })}
+          </p>
+        ) : null}
         <p className="text-ink-soft">{t("wrong")}</p>
       </Card>
       <SitePhotoUpload patientId={patient.id} />
