@@ -14,9 +14,6 @@ import { queueCareTeamAlert } from "@/lib/email/care-team-alert";
 import type { Viewer } from "@/lib/auth/session";
 import { AppError } from "@/lib/http/errors";
 
-const ANSWERED_AT_PAST_DAYS = 7;
-const ANSWERED_AT_FUTURE_MINUTES = 10;
-
 export type SubmitResult = { created: boolean; checkIn: CheckInDto; reasons: { ruleId: string; key: string; text: string }[] };
 
 export async function submitCheckIn({
@@ -37,11 +34,8 @@ export async function submitCheckIn({
   request: Request;
 }): Promise<SubmitResult> {
   const now = Date.now();
-  let answered: Date | null = answeredAt ? new Date(answeredAt) : null;
-  // A phone clock far off is not believed: keep the arrival time instead.
-  if (answered && (answered.getTime() > now + ANSWERED_AT_FUTURE_MINUTES * 60_000 || answered.getTime() < now - ANSWERED_AT_PAST_DAYS * 86_400_000)) {
-    answered = null;
-  }
+  // Bounded by the schema (lib/validations/entry-time.ts): within the last 7 days, not ahead.
+  const answered: Date | null = answeredAt ? new Date(answeredAt) : null;
 
   const route = await getActiveRoute({ patientId });
   const scored = scoreAnswers(answers, route);

@@ -1,7 +1,7 @@
 import { z } from "zod";
 import { MAX_ENTRY_ML } from "@/lib/clinical";
+import { entryTimeSchema } from "./entry-time";
 
-export const DIARY_BACKDATE_DAYS = 7;
 export const DIARY_RANGE_MAX_DAYS = 35;
 export const DIARY_DELETE_HOURS = 24;
 
@@ -14,7 +14,10 @@ export const diaryEntrySchema = z.strictObject({
   kind: z.enum(["in", "out"]),
   // A single drink or bag above MAX_ENTRY_ML is a typing error (lib/clinical).
   volumeMl: z.number().int().min(1).max(MAX_ENTRY_ML),
-  at: z.iso.datetime({ offset: true }).optional(),
+  // When it was drunk or emptied (an offline phone sends it later); bounded. Default: now.
+  at: entryTimeSchema.optional(),
+  // Made on the phone: the same key again is the same entry (a resend from its outbox).
+  clientKey: z.uuid().optional(),
 });
 export type DiaryEntryInput = z.infer<typeof diaryEntrySchema>;
 

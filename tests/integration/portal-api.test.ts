@@ -215,6 +215,20 @@ describe("POST /api/check-ins", () => {
     const [p] = await db.select().from(patients).where(eq(patients.id, ids.arthur));
     expect(p.latestCheckInLevel).toBe("self-care");
   });
+
+  it("refuses an answer time in the future or older than 7 days with a field error, and writes nothing", async () => {
+    const cookie = await sessionFor("patient");
+    const before = (await db.select({ n: count() }).from(checkIns))[0].n;
+    for (const [answeredAt, code] of [
+      [new Date(Date.now() + 60 * 60_000).toISOString(), "in_future"],
+      [new Date(Date.now() - 8 * 86_400_000).toISOString(), "too_old"],
+    ] as const) {
+      const res = await post(checkInsPost, "/api/check-ins", { ...checkIn(ids.arthur, fine), answeredAt }, cookie);
+      expect(res.status).toBe(400);
+      expect((await res.json()).error.fields.answeredAt).toEqual([code]);
+    }
+    expect((await db.select({ n: count() }).from(checkIns))[0].n).toBe(before);
+  });
 });
 
 describe("diary", () => {
@@ -236,6 +250,30 @@ describe("diary", () => {
     expect((await post(diaryPost, "/api/diary", entry(ids.arthur, 400, "out"), await sessionFor("carer"))).status).toBe(201);
   });
 
+  it("an entry made offline keeps its own time, and sent twice with its key is one entry", async () => {
+    const cookie = await sessionFor("patient");
+    const clientKey = randomUUID();
+    const at = new Date(Date.now() - 6 * 3_600_000).toISOString();
+    const first = await post(diaryPost, "/api/diary", { ...entry(ids.arthur, 330), at, clientKey }, cookie);
+    expect(first.status).toBe(201);
+    const again = await post(diaryPost, "/api/diary", { ...entry(ids.arthur, 330), at, clientKey }, cookie);
+    expect(again.status).toBe(200);
+    const [a, b] = [(await first.json()).entry, (await again.json()).entry];
+    expect(b.id).toBe(a.id);
+    expect(a.at).toBe(at);
+    expect(await db.select().from(diaryEntries).where(eq(diaryEntries.clientKey, clientKey))).toHaveLength(1);
+    // The key is the patient's own: the carer of another patient cannot reuse it for them.
+    const other = await post(diaryPost, "/api/diary", { ...entry(ids.yusuf, 330), at, clientKey }, await sessionFor("patientAr"));
+    expect(other.status).toBe(409);
+    for (const [when, code] of [
+      [new Date(Date.now() + 60 * 60_000).toISOString(), "in_future"],
+      [new Date(Date.now() - 8 * 86_400_000).toISOString(), "too_old"],
+    ] as const) {
+      const res = await post(diaryPost, "/api/diary", { ...entry(ids.arthur), at: when, clientKey: randomUUID() }, cookie);
+      expect((await res.json()).error.fields.at).toEqual([code]);
+    }
+  });
+
   it("GET /api/diary returns own entries in range; others 404; staff 403", async () => {
     const from = new Date(Date.now() - 86_400_000).toISOString();
     const to = new Date(Date.now() + 60_000).toISOString();
@@ -244,7 +282,7 @@ describe("diary", () => {
     expect(res.status).toBe(200);
     const body = await res.json();
     expect(body.entries.length).toBeGreaterThanOrEqual(2);
-    expect(Object.keys(body.entries[0]).sort()).toEqual(["at", "id", "kind", "removable", "volumeMl"]);
+    expect(Object.keys(body.entries[0]).sort()).toEqual(["at", "clientKey", "id", "kind", "removable", "volumeMl"]);
     expect((await call(diaryGet, q(ids.yusuf), { cookie: await sessionFor("patient") })).status).toBe(404);
     expect((await call(diaryGet, q(ids.arthur), { cookie: await sessionFor("communityNurse") })).status).toBe(403);
     expect((await call(diaryGet, q(ids.arthur))).status).toBe(401);
