@@ -1,5 +1,6 @@
 "use client";
 import { useTranslations } from "next-intl";
+import { useRangeText } from "@/components/ui/range-text";
 import { ApiError } from "@/lib/browser/api-client";
 
 /**
@@ -9,7 +10,10 @@ import { ApiError } from "@/lib/browser/api-client";
 export function useErrorText(namespace: "AdminOrganisations" | "AdminStaff" | "AdminSettings" | "AdminPatients" | "Account" | "AcceptInvite" | "PasswordReset" | "TwoFactor") {
   const t = useTranslations(namespace);
   const e = useTranslations("Errors");
+  const range = useRangeText();
   const one = (code: string): string => {
+    const r = range(code);
+    if (r) return r;
     const key = `errors.${code}`;
     if (t.has(key as never)) return t(key as never);
     if (e.has(code as never)) return e(code as never);

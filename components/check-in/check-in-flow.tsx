@@ -1,4 +1,5 @@
 "use client";
+import { parsePlainDecimal } from "@/lib/shared/numbers";
 import { useTranslations } from "next-intl";
 import { useEffect, useMemo, useRef, useState } from "react";
 import {
@@ -138,8 +139,9 @@ function TemperatureAnswer({ onAnswer }: { onAnswer: (p: SubmittedAnswers) => vo
         noValidate
         onSubmit={(e) => {
           e.preventDefault();
-          const n = Number(value.replace(",", "."));
-          if (!value.trim() || !Number.isFinite(n)) return setError(t("temperature.needNumber"));
+          // Plain decimals only ("37.5" or "37,5"): "3e1" is not a temperature.
+          const n = parsePlainDecimal(value);
+          if (n === undefined) return setError(t("temperature.needNumber"));
           if (n > 90 && n < 115) return setError(t("temperature.fahrenheit"));
           if (n < TEMPERATURE_RANGE.min || n > TEMPERATURE_RANGE.max) return setError(t("temperature.range", TEMPERATURE_RANGE));
           onAnswer({ temperatureC: Math.round(n * 10) / 10 });

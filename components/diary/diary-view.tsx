@@ -5,6 +5,7 @@ import { useFormatter, useTranslations } from "next-intl";
 import { useEffect, useMemo, useState } from "react";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
+import { useRangeText } from "@/components/ui/range-text";
 import { fluidBalance, formatIsoDate, urineOutputRate, type DiaryEntry as ClinicalEntry } from "@/lib/clinical";
 import { DRINK_GUIDE, OUTPUT_WINDOW_HOURS } from "@/lib/shared/diary-guidance";
 import { Link } from "@/lib/i18n/navigation";
@@ -262,6 +263,7 @@ function OutputNote({ output, weightKnown, limit }: { output: ReturnType<typeof 
 
 function CustomAmount({ kind, onAdd }: { kind: "in" | "out"; onAdd: (ml: number) => void }) {
   const t = useTranslations("Diary");
+  const range = useRangeText();
   const id = `custom-${kind}`;
   const {
     register,
@@ -298,7 +300,7 @@ function CustomAmount({ kind, onAdd }: { kind: "in" | "out"; onAdd: (ml: number)
       </div>
       {errors.volumeMl ? (
         <p id={`${id}-error`} role="alert" className="font-bold text-level-emergency-ink">
-          {t("customError")}
+          {range(errors.volumeMl.message) ?? t("customError")}
         </p>
       ) : null}
     </form>

@@ -7,6 +7,7 @@ import { useFormatter, useTranslations } from "next-intl";
 import { useEffect, useRef, useState } from "react";
 import { Controller, get, useForm, type FieldPath, type Resolver } from "react-hook-form";
 import type { z } from "zod";
+import { useRangeText } from "@/components/ui/range-text";
 import { Button } from "@/components/ui/button";
 import {
   CATHETER_TYPES,
@@ -113,6 +114,7 @@ export function DeviceEpisodeForm({
 }) {
   const t = useTranslations("EpisodeForm");
   const tErrors = useTranslations("Errors");
+  const range = useRangeText();
   const format = useFormatter();
   const router = useRouter();
   const schema = mode === "change" ? changeSchema : insertionSchema;
@@ -164,9 +166,10 @@ export function DeviceEpisodeForm({
 
   const dateOnly = (iso: string) => format.dateTime(new Date(`${iso}T12:00:00Z`), { dateStyle: "medium", timeZone: "UTC" });
   const msg = (key: unknown) =>
-    typeof key === "string" && (EPISODE_ERROR_KEYS as readonly string[]).includes(key)
+    range(key) ??
+    (typeof key === "string" && (EPISODE_ERROR_KEYS as readonly string[]).includes(key)
       ? t(`errors.${key as (typeof EPISODE_ERROR_KEYS)[number]}`)
-      : t("errors.invalid");
+      : t("errors.invalid"));
   const err = (name: FieldPath<Values>) => {
     const e = get(errors, name) as { message?: string } | undefined;
     return e ? [msg(e.message)] : undefined;

@@ -5,6 +5,7 @@ import { useFormatter, useTranslations } from "next-intl";
 import { useState } from "react";
 import { Controller, get, useForm, type FieldPath, type Resolver } from "react-hook-form";
 import type { z } from "zod";
+import { useRangeText } from "@/components/ui/range-text";
 import { Button } from "@/components/ui/button";
 import { useRouter } from "@/lib/i18n/navigation";
 import { EPISODE_ERROR_KEYS, REMOVAL_REASONS, removalSchema } from "@/lib/validations/episode";
@@ -19,6 +20,7 @@ export type CurrentDevice = { sizeCh: number; balloonMl: number; material: strin
 export function RemovalForm({ patientId, current }: { patientId: string; current: CurrentDevice }) {
   const t = useTranslations("EpisodeForm");
   const tErrors = useTranslations("Errors");
+  const range = useRangeText();
   const format = useFormatter();
   const router = useRouter();
   const [formError, setFormError] = useState<string | null>(null);
@@ -45,7 +47,7 @@ export function RemovalForm({ patientId, current }: { patientId: string; current
     const e = get(errors, name) as { message?: string } | undefined;
     if (!e) return undefined;
     const key = e.message as (typeof EPISODE_ERROR_KEYS)[number];
-    return [(EPISODE_ERROR_KEYS as readonly string[]).includes(key) ? t(`errors.${key}`) : t("errors.invalid")];
+    return [range(key) ?? ((EPISODE_ERROR_KEYS as readonly string[]).includes(key) ? t(`errors.${key}`) : t("errors.invalid"))];
   };
 
   const onSubmit = handleSubmit(async (values) => {

@@ -6,6 +6,7 @@ import { useFormatter, useTranslations } from "next-intl";
 import { useState } from "react";
 import { Controller, get, useFieldArray, useForm, type FieldPath, type Resolver } from "react-hook-form";
 import type { z } from "zod";
+import { useRangeText } from "@/components/ui/range-text";
 import { Button } from "@/components/ui/button";
 import { useRouter } from "@/lib/i18n/navigation";
 import { EPISODE_ERROR_KEYS, TWOC_FAILED_ACTIONS, twocSchema } from "@/lib/validations/episode";
@@ -18,6 +19,7 @@ type Values = z.input<typeof twocSchema>;
 export function TwocForm({ patientId, removedAt }: { patientId: string; removedAt: string }) {
   const t = useTranslations("EpisodeForm");
   const tErrors = useTranslations("Errors");
+  const range = useRangeText();
   const format = useFormatter();
   const router = useRouter();
   const [formError, setFormError] = useState<string | null>(null);
@@ -50,7 +52,7 @@ export function TwocForm({ patientId, removedAt }: { patientId: string; removedA
     const e = get(errors, name) as { message?: string } | undefined;
     if (!e?.message) return undefined;
     const key = e.message as (typeof EPISODE_ERROR_KEYS)[number];
-    return [(EPISODE_ERROR_KEYS as readonly string[]).includes(key) ? t(`errors.${key}`) : t("errors.invalid")];
+    return [range(key) ?? ((EPISODE_ERROR_KEYS as readonly string[]).includes(key) ? t(`errors.${key}`) : t("errors.invalid"))];
   };
 
   const onSubmit = handleSubmit(async (values) => {

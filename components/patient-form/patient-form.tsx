@@ -6,6 +6,7 @@ import { useQuery } from "@tanstack/react-query";
 import { useTranslations } from "next-intl";
 import { useId, useState, type ReactNode } from "react";
 import { useForm, type FieldErrors, type Path } from "react-hook-form";
+import { useRangeText } from "@/components/ui/range-text";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { ALLERGENS, ALLERGY_ANSWERS } from "@/lib/clinical/allergies";
@@ -93,8 +94,11 @@ export function PatientForm(props: Props) {
     mode: "onTouched",
   });
 
+  const range = useRangeText();
   const message = (key: string | undefined): string => {
     if (!key) return t("errors.required");
+    const r = range(key);
+    if (r) return r;
     return (patientErrorKeys as readonly string[]).includes(key) ? t(`errors.${key as PatientErrorKey}`) : t("errors.generic");
   };
   const errorsOf = (path: string): string[] | undefined => {
@@ -209,14 +213,11 @@ export function PatientForm(props: Props) {
           <Field
             label={t("weightKg")}
             hint={t("weightHint")}
-            type="number"
             inputMode="decimal"
-            step="0.1"
-            min={1}
-            max={400}
+            autoComplete="off"
             className="tabular"
             errors={errorsOf("weightKg")}
-            {...register("weightKg", { setValueAs: (v) => (v === "" || v === null || v === undefined ? null : Number(v)) })}
+            {...register("weightKg")}
           />
         </div>
       </Section>

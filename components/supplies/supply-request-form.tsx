@@ -6,6 +6,8 @@ import { useMutation } from "@tanstack/react-query";
 import { useTranslations } from "next-intl";
 import { useEffect, useMemo, useState } from "react";
 import { useFieldArray, useForm, useWatch } from "react-hook-form";
+import type { z } from "zod";
+import { useRangeText } from "@/components/ui/range-text";
 import { Button } from "@/components/ui/button";
 import { suppliesFor } from "@/lib/clinical";
 import { useRouter } from "@/lib/i18n/navigation";
@@ -41,7 +43,7 @@ export function SupplyRequestForm({ patientId, changeIntervalDays, gpName, gpHas
     setError,
     reset,
     formState: { errors, isSubmitting },
-  } = useForm<SupplyRequestInput>({
+  } = useForm<z.input<typeof supplyRequestSchema>, unknown, SupplyRequestInput>({
     resolver: zodResolver(supplyRequestSchema),
     defaultValues: {
       periodDays: DEFAULT_SUPPLY_PERIOD,
@@ -59,7 +61,8 @@ export function SupplyRequestForm({ patientId, changeIntervalDays, gpName, gpHas
     replace(lines.map((l) => ({ item: l.item, quantity: l.quantity })));
   }, [lines, replace]);
 
-  const message = (key: string | undefined) => (key && (supplyErrorKeys as readonly string[]).includes(key) ? t(`errors.${key as SupplyErrorKey}`) : key ? t("errors.quantity") : undefined);
+  const range = useRangeText();
+  const message = (key: string | undefined) => range(key) ?? (key && (supplyErrorKeys as readonly string[]).includes(key) ? t(`errors.${key as SupplyErrorKey}`) : key ? t("errors.quantity") : undefined);
 
   const send = useMutation({
     mutationFn: async (values: SupplyRequestInput) => {
@@ -145,14 +148,12 @@ export function SupplyRequestForm({ patientId, changeIntervalDays, gpName, gpHas
                   <td className="p-3">
                     <input
                       id={`qty-${f.item}`}
-                      type="number"
                       inputMode="numeric"
-                      min={0}
-                      max={999}
+                      autoComplete="off"
                       className={`tabular min-h-12 w-24 rounded-lg border-2 bg-paper-raised px-3 ${err ? "border-level-emergency" : "border-stone-line"}`}
                       aria-invalid={err ? true : undefined}
                       aria-describedby={err ? `qty-${f.item}-error` : undefined}
-                      {...register(`items.${i}.quantity`, { valueAsNumber: true })}
+                      {...register(`items.${i}.quantity`)}
                     />
                     <input type="hidden" {...register(`items.${i}.item`)} />
                     {err ? (

@@ -4,6 +4,7 @@
 import { useTranslations } from "next-intl";
 import { useState } from "react";
 import { get, useForm, type FieldPath } from "react-hook-form";
+import { useRangeText } from "@/components/ui/range-text";
 import { isApiError, useRecord } from "@/components/episode-form/use-record";
 import { Checkbox, RadioGroup, Section, TextArea, TextInput } from "@/components/episode-form/controls";
 import { Button } from "@/components/ui/button";
@@ -31,7 +32,7 @@ type Values = {
 
 type Saved = { eventId: string; observation: { news2: News2View } | null; alerted: number };
 
-const ERROR_KEYS = ["number", "whole_number", "out_of_range", "required", "choose_one", "too_long", "date_time", "in_future"] as const;
+const ERROR_KEYS = ["number", "whole_number", "out_of_range", "one_decimal", "required", "choose_one", "too_long", "date_time", "in_future"] as const;
 
 function payload(v: Values) {
   return {
@@ -69,11 +70,12 @@ export function VisitForm({ patientId }: { patientId: string }) {
   const obs = watch("observations");
   // Recomputed on every render: watch() may hand back the same object as values change.
   const score = withObs ? liveScore(obs) : null;
+  const range = useRangeText();
   const err = (name: FieldPath<Values>) => {
     const e = get(formState.errors, name) as { message?: string } | undefined;
     if (!e) return undefined;
     const key = e.message as (typeof ERROR_KEYS)[number];
-    return [(ERROR_KEYS as readonly string[]).includes(key) ? t(`errors.${key}`) : t("errors.out_of_range")];
+    return [range(key) ?? ((ERROR_KEYS as readonly string[]).includes(key) ? t(`errors.${key}`) : t("errors.out_of_range"))];
   };
 
   const onSubmit = handleSubmit(async (values) => {

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { queryInt } from "./number";
 
 const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, { message: "date_invalid" });
 const blank = (v: unknown) => (typeof v === "string" && v.trim() === "" ? undefined : v);
@@ -12,8 +13,8 @@ export const auditQuerySchema = z
     via: z.preprocess(blank, z.enum(["care_team", "visit_access", "qr", "self", "carer", "admin", "system"]).optional()),
     from: z.preprocess(blank, isoDate.optional()),
     to: z.preprocess(blank, isoDate.optional()),
-    page: z.preprocess(blank, z.coerce.number().int().min(1).max(10_000).default(1)),
-    pageSize: z.preprocess(blank, z.coerce.number().int().min(1).max(100).default(50)),
+    page: queryInt(1, 10_000, 1),
+    pageSize: queryInt(1, 100, 50),
   })
   .refine((q) => !q.from || !q.to || q.from <= q.to, { message: "range_invalid", path: ["to"] });
 export type AuditQuery = z.infer<typeof auditQuerySchema>;

@@ -4,6 +4,7 @@
 import { z } from "zod";
 import { ALLERGY_ANSWERS } from "@/lib/clinical/allergies";
 import { locales } from "@/lib/i18n/routing";
+import { numberIn, toNumber } from "./number";
 
 export const patientSexes = ["female", "male", "other", "unknown"] as const;
 export const patientLocales = locales;
@@ -51,10 +52,7 @@ export const patientSchema = z.object({
   sex: z.enum(patientSexes, { error: "required" }),
   preferredLocale: z.enum(patientLocales, { error: "required" }),
   weightKg: z
-    .number({ error: "weight_range" })
-    .min(WEIGHT_KG.min, { error: "weight_range" })
-    .max(WEIGHT_KG.max, { error: "weight_range" })
-    .nullish()
+    .preprocess(toNumber, numberIn({ ...WEIGHT_KG, unit: "kg" }).nullish())
     .transform((v) => (v === undefined || v === null ? null : Math.round(v * 10) / 10)),
   // Each one yes, no or "not-asked" (the form's starting value): never a silent "no".
   allergies: z.object({

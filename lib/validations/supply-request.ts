@@ -2,6 +2,7 @@
 // uses, and the quantities (the server recomputes the suggested ones with lib/clinical).
 // Messages are keys of Supplies.errors, translated by the form.
 import { z } from "zod";
+import { numberIn, toNumber } from "./number";
 
 export const supplyItems = ["catheter", "leg-bag", "night-bag", "valve", "gel"] as const;
 export const supplyPeriodChoices = [7, 14, 28, 56, 84] as const;
@@ -12,13 +13,13 @@ export type SupplyErrorKey = (typeof supplyErrorKeys)[number];
 
 export const supplyRequestSchema = z
   .object({
-    periodDays: z.number({ error: "period" }).int("period").min(1, "period").max(366, "period"),
+    periodDays: z.preprocess(toNumber, numberIn({ min: 1, max: 366, unit: "days", whole: true, missing: "period" })),
     include: z.object({ legBag: z.boolean(), valve: z.boolean(), nightBag: z.boolean(), gel: z.boolean() }),
     items: z
       .array(
         z.object({
           item: z.enum(supplyItems),
-          quantity: z.number({ error: "quantity" }).int("quantity").min(0, "quantity").max(999, "quantity"),
+          quantity: z.preprocess(toNumber, numberIn({ min: 0, max: 999, whole: true, missing: "quantity" })),
         }),
       )
       .min(1, "nothing")

@@ -199,7 +199,7 @@ describe("POST /api/patients/[patientId]/episodes (insertion)", () => {
     expect(Object.keys(res.body.error.fields).sort()).toEqual(
       ["attempts", "balloonMl", "expiry", "gelVolumeMl", "indication", "route", "sizeCh"].sort(),
     );
-    expect(res.body.error.fields.sizeCh).toEqual(["out_of_range"]);
+    expect(res.body.error.fields.sizeCh).toEqual(["range:6:30:ch"]);
     const after = await counts(patientId);
     expect(after).toEqual(before);
   });

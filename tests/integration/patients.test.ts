@@ -86,7 +86,7 @@ describe("POST /api/patients", () => {
       dateOfBirth: ["dob_future"],
       sex: ["required"],
       preferredLocale: ["required"],
-      weightKg: ["weight_range"],
+      weightKg: ["range:1:400:kg"],
       gpPracticeId: ["gp_required"],
       careTeamOrganisationIds: ["care_team_required"],
     });
@@ -100,7 +100,7 @@ describe("POST /api/patients", () => {
     });
     expect(res.status).toBe(400);
     const { error } = await res.json();
-    expect(error.fields).toEqual({ dateOfBirth: ["dob_too_early"], weightKg: ["weight_range"], healthRecordNumber: ["hrn_format"] });
+    expect(error.fields).toEqual({ dateOfBirth: ["dob_too_early"], weightKg: ["range:1:400:kg"], healthRecordNumber: ["hrn_format"] });
   });
 
   it("409 with a field error for a health record number already registered, and nothing written", async () => {
