@@ -1,6 +1,6 @@
 "use client";
 import { useTranslations } from "next-intl";
-import { useRangeText } from "@/components/ui/range-text";
+import { useSharedErrorText } from "@/components/ui/shared-error-text";
 import { ApiError } from "@/lib/browser/api-client";
 
 /**
@@ -10,7 +10,7 @@ import { ApiError } from "@/lib/browser/api-client";
 export function useErrorText(namespace: "AdminOrganisations" | "AdminStaff" | "AdminSettings" | "AdminPatients" | "Account" | "AcceptInvite" | "PasswordReset" | "TwoFactor") {
   const t = useTranslations(namespace);
   const e = useTranslations("Errors");
-  const range = useRangeText();
+  const range = useSharedErrorText();
   const one = (code: string): string => {
     const r = range(code);
     if (r) return r;

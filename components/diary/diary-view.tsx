@@ -5,7 +5,7 @@ import { useFormatter, useTranslations } from "next-intl";
 import { useEffect, useMemo, useState } from "react";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
-import { useRangeText } from "@/components/ui/range-text";
+import { useSharedErrorText } from "@/components/ui/shared-error-text";
 import { fluidBalance, formatIsoDate, urineOutputRate, type DiaryEntry as ClinicalEntry } from "@/lib/clinical";
 import { DRINK_GUIDE, OUTPUT_WINDOW_HOURS } from "@/lib/shared/diary-guidance";
 import { Link } from "@/lib/i18n/navigation";
@@ -263,7 +263,7 @@ function OutputNote({ output, weightKnown, limit }: { output: ReturnType<typeof 
 
 function CustomAmount({ kind, onAdd }: { kind: "in" | "out"; onAdd: (ml: number) => void }) {
   const t = useTranslations("Diary");
-  const range = useRangeText();
+  const range = useSharedErrorText();
   const id = `custom-${kind}`;
   const {
     register,

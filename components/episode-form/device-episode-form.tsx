@@ -7,7 +7,7 @@ import { useFormatter, useTranslations } from "next-intl";
 import { useEffect, useRef, useState } from "react";
 import { Controller, get, useForm, type FieldPath, type Resolver } from "react-hook-form";
 import type { z } from "zod";
-import { useRangeText } from "@/components/ui/range-text";
+import { useSharedErrorText } from "@/components/ui/shared-error-text";
 import { Button } from "@/components/ui/button";
 import {
   CATHETER_TYPES,
@@ -114,7 +114,7 @@ export function DeviceEpisodeForm({
 }) {
   const t = useTranslations("EpisodeForm");
   const tErrors = useTranslations("Errors");
-  const range = useRangeText();
+  const range = useSharedErrorText();
   const format = useFormatter();
   const router = useRouter();
   const schema = mode === "change" ? changeSchema : insertionSchema;

@@ -5,7 +5,7 @@ import { useFormatter, useTranslations } from "next-intl";
 import { useState } from "react";
 import { Controller, get, useForm, type FieldPath, type Resolver } from "react-hook-form";
 import type { z } from "zod";
-import { useRangeText } from "@/components/ui/range-text";
+import { useSharedErrorText } from "@/components/ui/shared-error-text";
 import { Button } from "@/components/ui/button";
 import { useRouter } from "@/lib/i18n/navigation";
 import { EPISODE_ERROR_KEYS, REMOVAL_REASONS, removalSchema } from "@/lib/validations/episode";
@@ -20,7 +20,7 @@ export type CurrentDevice = { sizeCh: number; balloonMl: number; material: strin
 export function RemovalForm({ patientId, current }: { patientId: string; current: CurrentDevice }) {
   const t = useTranslations("EpisodeForm");
   const tErrors = useTranslations("Errors");
-  const range = useRangeText();
+  const range = useSharedErrorText();
   const format = useFormatter();
   const router = useRouter();
   const [formError, setFormError] = useState<string | null>(null);

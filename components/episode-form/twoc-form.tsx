@@ -6,7 +6,7 @@ import { useFormatter, useTranslations } from "next-intl";
 import { useState } from "react";
 import { Controller, get, useFieldArray, useForm, type FieldPath, type Resolver } from "react-hook-form";
 import type { z } from "zod";
-import { useRangeText } from "@/components/ui/range-text";
+import { useSharedErrorText } from "@/components/ui/shared-error-text";
 import { Button } from "@/components/ui/button";
 import { useRouter } from "@/lib/i18n/navigation";
 import { EPISODE_ERROR_KEYS, TWOC_FAILED_ACTIONS, twocSchema } from "@/lib/validations/episode";
@@ -19,7 +19,7 @@ type Values = z.input<typeof twocSchema>;
 export function TwocForm({ patientId, removedAt }: { patientId: string; removedAt: string }) {
   const t = useTranslations("EpisodeForm");
   const tErrors = useTranslations("Errors");
-  const range = useRangeText();
+  const range = useSharedErrorText();
   const format = useFormatter();
   const router = useRouter();
   const [formError, setFormError] = useState<string | null>(null);

@@ -6,7 +6,7 @@ import { useQuery } from "@tanstack/react-query";
 import { useTranslations } from "next-intl";
 import { useId, useState, type ReactNode } from "react";
 import { useForm, type FieldErrors, type Path } from "react-hook-form";
-import { useRangeText } from "@/components/ui/range-text";
+import { useSharedErrorText } from "@/components/ui/shared-error-text";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { ALLERGENS, ALLERGY_ANSWERS } from "@/lib/clinical/allergies";
@@ -94,7 +94,7 @@ export function PatientForm(props: Props) {
     mode: "onTouched",
   });
 
-  const range = useRangeText();
+  const range = useSharedErrorText();
   const message = (key: string | undefined): string => {
     if (!key) return t("errors.required");
     const r = range(key);

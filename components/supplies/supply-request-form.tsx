@@ -7,7 +7,7 @@ import { useTranslations } from "next-intl";
 import { useEffect, useMemo, useState } from "react";
 import { useFieldArray, useForm, useWatch } from "react-hook-form";
 import type { z } from "zod";
-import { useRangeText } from "@/components/ui/range-text";
+import { useSharedErrorText } from "@/components/ui/shared-error-text";
 import { Button } from "@/components/ui/button";
 import { suppliesFor } from "@/lib/clinical";
 import { useRouter } from "@/lib/i18n/navigation";
@@ -61,7 +61,7 @@ export function SupplyRequestForm({ patientId, changeIntervalDays, gpName, gpHas
     replace(lines.map((l) => ({ item: l.item, quantity: l.quantity })));
   }, [lines, replace]);
 
-  const range = useRangeText();
+  const range = useSharedErrorText();
   const message = (key: string | undefined) => range(key) ?? (key && (supplyErrorKeys as readonly string[]).includes(key) ? t(`errors.${key as SupplyErrorKey}`) : key ? t("errors.quantity") : undefined);
 
   const send = useMutation({

@@ -4,11 +4,12 @@
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { useFormatter, useTranslations } from "next-intl";
 import { useEffect, useRef, useState } from "react";
+import { useSharedErrorText } from "@/components/ui/shared-error-text";
 import { Button, buttonClass } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
 import { Field } from "@/components/ui/field";
 import type { UploadDto } from "@/lib/shared/dto";
-import { uploadCategories, type UploadCategory } from "@/lib/validations/upload";
+import { uploadCategories, uploadCreateSchema, type UploadCategory } from "@/lib/validations/upload";
 import { ACCEPTED_UPLOAD_TYPES, precheck, uploadFile, type UploadFailure } from "./upload-file";
 
 export const uploadKeys = {
@@ -38,6 +39,7 @@ export function UploadsPanel({ patientId, initial, canRemove, readOnly = false }
   const [label, setLabel] = useState("");
   const [file, setFile] = useState<File | null>(null);
   const [errors, setErrors] = useState<{ label?: string[]; file?: string[] }>({});
+  const sharedError = useSharedErrorText();
   const [status, setStatus] = useState<string>("");
   const [confirmId, setConfirmId] = useState<string | null>(null);
   // A new key clears the file input after an upload.
@@ -81,7 +83,9 @@ export function UploadsPanel({ patientId, initial, canRemove, readOnly = false }
     setStatus("");
     // Every problem at once, not the first only.
     const next: typeof errors = {};
+    const labelCheck = uploadCreateSchema.shape.label.safeParse(label);
     if (!label.trim()) next.label = [t("labelRequired")];
+    else if (!labelCheck.success) next.label = [sharedError(labelCheck.error.issues[0].message) ?? t("labelRequired")];
     if (!file) next.file = [t("chooseFile")];
     else {
       const problem = precheck(file, ACCEPTED_UPLOAD_TYPES);

@@ -4,7 +4,7 @@
 import { useTranslations } from "next-intl";
 import { useState } from "react";
 import { get, useForm, type FieldPath } from "react-hook-form";
-import { useRangeText } from "@/components/ui/range-text";
+import { useSharedErrorText } from "@/components/ui/shared-error-text";
 import { isApiError, useRecord } from "@/components/episode-form/use-record";
 import { Checkbox, RadioGroup, Section, TextArea, TextInput } from "@/components/episode-form/controls";
 import { Button } from "@/components/ui/button";
@@ -70,7 +70,7 @@ export function VisitForm({ patientId }: { patientId: string }) {
   const obs = watch("observations");
   // Recomputed on every render: watch() may hand back the same object as values change.
   const score = withObs ? liveScore(obs) : null;
-  const range = useRangeText();
+  const range = useSharedErrorText();
   const err = (name: FieldPath<Values>) => {
     const e = get(formState.errors, name) as { message?: string } | undefined;
     if (!e) return undefined;

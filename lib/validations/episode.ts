@@ -2,6 +2,7 @@
 // of schemas for the react-hook-form forms and the route handlers. Error messages are keys
 // (EpisodeForm.errors.<key>) so the form can show them in the nurse's language.
 import { z } from "zod";
+import { multiLine, singleLine } from "./text";
 import type { RangeUnit } from "@/lib/shared/numbers";
 import { optionalNumber, requiredNumber } from "./number";
 import {
@@ -41,11 +42,13 @@ const blankToUndefined = (v: unknown) =>
 const requiredInt = (min: number, max: number, unit?: RangeUnit) => requiredNumber({ min, max, unit, whole: true });
 const optionalInt = (min: number, max: number, unit?: RangeUnit) => optionalNumber({ min, max, unit, whole: true });
 const optionalDecimal = (min: number, max: number, unit?: RangeUnit) => optionalNumber({ min, max, unit });
-const optionalText = (max: number) => z.preprocess(blankToUndefined, z.string({ error: "text" }).max(max, { error: "too_long" }).optional());
+const optionalText = (max: number) => z.preprocess(blankToUndefined, multiLine(z.string({ error: "text" }).max(max, { error: "too_long" })).optional());
+/** A name, a lot or a serial as on the label: one line, no bidirectional overrides. */
+const optionalLine = (max: number) => z.preprocess(blankToUndefined, singleLine(z.string({ error: "text" }).max(max, { error: "too_long" })).optional());
 const requiredText = (min: number, max: number) =>
   z.preprocess(
     blankToUndefined,
-    z.string({ error: "required" }).min(min, { error: "too_short" }).max(max, { error: "too_long" }),
+    multiLine(z.string({ error: "required" }).min(min, { error: "too_short" }).max(max, { error: "too_long" })),
   );
 const choice = <T extends readonly [string, ...string[]]>(values: T) =>
   z.preprocess(blankToUndefined, z.enum(values, { error: "choose_one" }));
@@ -88,12 +91,12 @@ export const deviceShape = {
   sizeCh: requiredInt(6, 30, "ch"),
   balloonMl: requiredInt(1, 30, "ml"),
   makerBalloonMl: optionalInt(1, 30, "ml"),
-  maker: optionalText(120),
-  productName: optionalText(120),
-  lot: optionalText(40),
+  maker: optionalLine(120),
+  productName: optionalLine(120),
+  lot: optionalLine(40),
   expiry: isoDate,
   gtin: z.preprocess(blankToUndefined, z.string().regex(/^\d{8,14}$/, { error: "gtin" }).optional()),
-  serial: optionalText(40),
+  serial: optionalLine(40),
   udi: optionalText(200),
   gelKind: choice(GEL_KINDS),
   gelVolumeMl: optionalDecimal(0, 30, "ml"),

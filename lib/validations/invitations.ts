@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { multiLine, singleLine } from "./text";
 
 // Kept equal to PASSWORD_MIN_LENGTH in lib/auth/password.ts (a unit test checks); that module
 // uses node:crypto and cannot be bundled into the browser forms that share these schemas.
@@ -23,7 +24,7 @@ export const carerInviteSchema = z.strictObject({ email });
 export const acceptCarerInviteSchema = z.strictObject({
   token: z.string().min(20).max(200),
   // For a new carer account.
-  name: z.string().trim().min(1).max(120).optional(),
+  name: singleLine(z.string().trim().min(1).max(120)).optional(),
   // For a new account (a new password) or an existing one (its password).
   password: z.string().min(1).max(256).optional(),
 });

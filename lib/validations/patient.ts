@@ -2,6 +2,7 @@
 // route handlers. Error messages are keys of PatientForm.errors, so the client shows the same
 // translated message whether the client or the server found the problem.
 import { z } from "zod";
+import { multiLine, singleLine } from "./text";
 import { ALLERGY_ANSWERS } from "@/lib/clinical/allergies";
 import { locales } from "@/lib/i18n/routing";
 import { numberIn, toNumber } from "./number";
@@ -20,17 +21,14 @@ function latestBirthDate(): string {
   return new Date(Date.now() + 14 * 3_600_000).toISOString().slice(0, 10);
 }
 
-const name = z
-  .string({ error: "required" })
-  .trim()
-  .min(1, { error: "required" })
-  .max(100, { error: "too_long" });
+const name = singleLine(z.string({ error: "required" }).trim().min(1, { error: "required" }).max(100, { error: "too_long" }));
 
 const optionalText = (max: number) =>
   z
     .string({ error: "too_long" })
     .trim()
     .max(max, { error: "too_long" })
+    .pipe(singleLine(z.string()))
     .nullish()
     .transform((v) => (v ? v : null));
 

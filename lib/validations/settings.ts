@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { multiLine, singleLine } from "./text";
 import { MATERIALS } from "@/lib/clinical";
 import { numberIn, toNumber } from "./number";
 
@@ -12,7 +13,7 @@ const days = (min: number, max: number) => z.preprocess(toNumber, numberIn({ min
 
 export const settingSchemas = {
   emergencyNumber: emergencyNumberSchema,
-  outOfHoursServiceName: z.string().trim().min(2, { message: "name_length" }).max(120, { message: "name_length" }),
+  outOfHoursServiceName: singleLine(z.string().trim().min(2, { message: "name_length" }).max(120, { message: "name_length" })),
   reviewIntervalDays: days(1, 365),
   dueSoonDays: days(0, 60),
   defaultMaxDwellDays: z.partialRecord(z.enum(MATERIALS), days(1, 365)),

@@ -2,6 +2,7 @@
 // uses, and the quantities (the server recomputes the suggested ones with lib/clinical).
 // Messages are keys of Supplies.errors, translated by the form.
 import { z } from "zod";
+import { multiLine, singleLine } from "./text";
 import { numberIn, toNumber } from "./number";
 
 export const supplyItems = ["catheter", "leg-bag", "night-bag", "valve", "gel"] as const;
@@ -24,7 +25,7 @@ export const supplyRequestSchema = z
       )
       .min(1, "nothing")
       .max(supplyItems.length),
-    note: z.string().trim().max(1000, "note").optional(),
+    note: multiLine(z.string().trim().max(1000, "note")).optional(),
   })
   .superRefine((v, ctx) => {
     const seen = new Set<string>();

@@ -2,6 +2,7 @@
 // handler. Bounds are lib/clinical's NEWS2_BOUNDS (a value outside is a typing error, not a
 // reading). Error messages are keys (VisitForm.errors.<key>).
 import { z } from "zod";
+import { multiLine, singleLine } from "./text";
 import { NEWS2_BOUNDS } from "@/lib/clinical";
 import type { RangeUnit } from "@/lib/shared/numbers";
 import { pastInstant } from "./episode";
@@ -31,7 +32,7 @@ export type ObservationsInput = z.infer<typeof observationsSchema>;
 
 export const visitSchema = z.object({
   occurredAt: pastInstant,
-  notes: z.preprocess(blank, z.string({ error: "required" }).trim().max(2000, { error: "too_long" }).optional()),
+  notes: z.preprocess(blank, multiLine(z.string({ error: "required" }).trim().max(2000, { error: "too_long" })).optional()),
   observations: observationsSchema.optional(),
 });
 export type VisitInput = z.infer<typeof visitSchema>;
