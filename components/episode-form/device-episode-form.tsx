@@ -177,10 +177,11 @@ export function DeviceEpisodeForm({
 
   const onScan = (fill: ScanFill) => {
     const opts = { shouldValidate: true, shouldDirty: true } as const;
-    if (fill.gtin) setValue("gtin", fill.gtin, opts);
-    if (fill.lot) setValue("lot", fill.lot, opts);
-    if (fill.expiry) setValue("expiry", fill.expiry, opts);
-    if (fill.serial) setValue("serial", fill.serial, opts);
+    // A scan replaces every field a label can carry; one this label lacks is cleared.
+    setValue("gtin", fill.gtin ?? "", opts);
+    setValue("lot", fill.lot ?? "", opts);
+    setValue("expiry", fill.expiry ?? "", opts);
+    setValue("serial", fill.serial ?? "", opts);
     setValue("udi", fill.udi, opts);
   };
 
