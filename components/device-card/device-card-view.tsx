@@ -172,3 +172,22 @@ export async function InvalidPassport({ locale }: { locale: string }) {
     </div>
   );
 }
+
+/** A typed code with a typing mistake (its check symbol does not match): check it and type again. */
+export async function MistypedCode({ locale }: { locale: string }) {
+  const locales: Locale[] = isLocale(locale) && locale !== "en" ? [locale, "en"] : ["en"];
+  return (
+    <div role="alert" className="flex flex-col gap-2 rounded-lg border-2 border-level-urgent bg-level-urgent-soft p-4 text-level-urgent-ink" data-testid="card-typo">
+      {await Promise.all(
+        locales.map(async (l) => {
+          const t = await getTranslations({ locale: l, namespace: "DeviceCard" });
+          return (
+            <p key={l} lang={l} dir={directionOf(l)} className="text-lg font-bold">
+              {t("checkCode")}
+            </p>
+          );
+        }),
+      )}
+    </div>
+  );
+}

@@ -25,6 +25,7 @@ export function VisitAccessForm({ token }: { token: string }) {
       window.location.assign(`/${locale}/patients/${res.patientId}`);
     } catch (e) {
       if (isApiError(e) && e.fields.reason) setError("reason", { message: e.fields.reason[0] });
+      else if (isApiError(e) && e.fields.token?.includes("check_code")) setFormError(t("errors.check_code"));
       else setFormError(isApiError(e) && e.status === 404 ? t("errors.invalid") : isApiError(e) && e.status === 429 ? t("errors.limited") : t("errors.failed"));
     }
   });

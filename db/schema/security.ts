@@ -6,7 +6,7 @@ import { timestamps } from "./columns";
 import { organisations } from "./organisations";
 import { patients } from "./patients";
 
-export const auditVia = ["care_team", "visit_access", "qr", "self", "carer", "admin", "system"] as const;
+export const auditVia = ["care_team", "visit_access", "qr", "short_code", "self", "carer", "admin", "system"] as const;
 
 export const auditEvents = pgTable(
   "audit_events",

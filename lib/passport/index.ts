@@ -76,7 +76,7 @@ export async function findPassportByToken(token: string): Promise<FoundPassport 
 
 /** The same for the short code a visiting clinician types (callers must rate-limit it). */
 export async function findPassportByShortCode(code: string): Promise<FoundPassport | null> {
-  if (typeof code !== "string" || !isWellFormedShortCode(code)) return null;
+  if (typeof code !== "string" || !isWellFormedShortCode(code)) return null; // a typo (readShortCode) or not a code
   const hash = hashShortCode(code);
   const row = await findPassportRowByShortCodeHash({ shortCodeHash: hash });
   if (!row || !hashesEqual(row.shortCodeHash, hash) || row.revokedAt) return null;

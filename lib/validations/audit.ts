@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { auditVia } from "@/db/schema/security";
 import { queryInt } from "./number";
 
 const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, { message: "date_invalid" });
@@ -10,7 +11,7 @@ export const auditQuerySchema = z
     person: z.preprocess(blank, z.string().trim().max(120).optional()),
     patient: z.preprocess(blank, z.string().trim().max(120).optional()),
     action: z.preprocess(blank, z.string().trim().max(80).regex(/^[a-z0-9_.]+$/, { message: "action_invalid" }).optional()),
-    via: z.preprocess(blank, z.enum(["care_team", "visit_access", "qr", "self", "carer", "admin", "system"]).optional()),
+    via: z.preprocess(blank, z.enum(auditVia).optional()),
     from: z.preprocess(blank, isoDate.optional()),
     to: z.preprocess(blank, isoDate.optional()),
     page: queryInt(1, 10_000, 1),

@@ -1,4 +1,5 @@
 import { getFormatter, getTranslations } from "next-intl/server";
+import { auditVia } from "@/db/schema/security";
 import { buttonClass } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { searchAudit } from "@/db/queries/audit-search";
@@ -11,7 +12,7 @@ export async function generateMetadata() {
   return { title: t("title") };
 }
 
-const vias = ["care_team", "visit_access", "qr", "self", "carer", "admin", "system"] as const;
+const vias = auditVia;
 const inputClass = "min-h-12 rounded-lg border-2 border-stone-line bg-paper-raised px-3 text-ink";
 
 export default async function AuditPage({

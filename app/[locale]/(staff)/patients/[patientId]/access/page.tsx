@@ -1,5 +1,6 @@
 import { forbidden } from "next/navigation";
 import { getFormatter, getTranslations } from "next-intl/server";
+import { auditVia } from "@/db/schema/security";
 import { listAccessLog } from "@/db/queries/audit-log";
 import { Link } from "@/lib/i18n/navigation";
 import { openRecordPage } from "@/lib/records/patient-record-page";
@@ -11,7 +12,7 @@ export async function generateMetadata() {
 }
 
 const PAGE_SIZE = 25;
-const knownVia = ["care_team", "visit_access", "qr", "self", "carer", "admin", "system"] as const;
+const knownVia = auditVia;
 const knownRoles = ["admin", "clinician", "patient", "carer"] as const;
 
 export default async function AccessTab({
