@@ -96,7 +96,11 @@ export function UploadsPanel({ patientId, initial, canRemove, readOnly = false }
     upload.mutate({ file, category, label: label.trim() });
   }
 
-  const uploads = list.data ?? [];
+  // Only files that arrived and passed the checks are on the record; refused or unfinished ones
+  // (no file to show) are listed apart, so they never look like blank documents of the patient.
+  const all = list.data ?? [];
+  const uploads = all.filter((u) => u.status === "ready");
+  const notKept = all.filter((u) => u.status !== "ready");
   const fileUrl = (u: UploadDto, inline = false) => `/api/patients/${patientId}/uploads/${u.id}/file${inline ? "?inline=1" : ""}`;
 
   return (
@@ -200,15 +204,10 @@ export function UploadsPanel({ patientId, initial, canRemove, readOnly = false }
                 <span className="tabular">{t("added", { date: format.dateTime(new Date(u.createdAt), { dateStyle: "medium", timeStyle: "short" }) })}</span>
                 {u.uploadedByName ? <> {t("addedBy", { name: u.uploadedByName })}</> : null}
               </p>
-              {u.status !== "ready" ? (
-                <p className="text-sm font-bold text-level-urgent-ink">{u.status === "rejected" ? t("rejected") : t("pending")}</p>
-              ) : null}
               <div className="mt-auto flex flex-wrap gap-2">
-                {u.status === "ready" ? (
-                  <a href={fileUrl(u)} className={buttonClass("secondary")} download>
-                    {t("download")}
-                  </a>
-                ) : null}
+                <a href={fileUrl(u)} className={buttonClass("secondary")} download>
+                  {t("download")}
+                </a>
                 {canRemove ? (
                   <Button variant="quiet" onClick={() => setConfirmId(u.id)} disabled={remove.isPending} data-testid="upload-remove">
                     {t("remove")}
@@ -246,6 +245,25 @@ export function UploadsPanel({ patientId, initial, canRemove, readOnly = false }
           </p>
         ) : null}
       </section>
+
+      {notKept.length ? (
+        <details className="rounded-card border border-stone-faint bg-paper-sunk p-4" data-testid="uploads-not-kept">
+          <summary className="cursor-pointer font-bold">{t("notKeptTitle", { count: notKept.length })}</summary>
+          <p className="mt-2 text-sm text-ink-soft">{t("notKeptIntro")}</p>
+          <ul className="mt-2 flex flex-col gap-2">
+            {notKept.map((u) => (
+              <li key={u.id} className="flex flex-wrap items-baseline gap-x-3 gap-y-1" data-testid="upload-not-kept">
+                <span className="font-bold">{u.label}</span>
+                <span className="text-sm font-bold text-level-urgent-ink">{u.status === "rejected" ? t("rejected") : t("pending")}</span>
+                <span className="tabular text-sm text-ink-soft">
+                  {t("added", { date: format.dateTime(new Date(u.createdAt), { dateStyle: "medium", timeStyle: "short" }) })}
+                  {u.uploadedByName ? <> {t("addedBy", { name: u.uploadedByName })}</> : null}
+                </span>
+              </li>
+            ))}
+          </ul>
+        </details>
+      ) : null}
     </div>
   );
 }

@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { auditVia } from "@/db/schema/security";
 import { queryInt } from "./number";
+import { pageQuerySchema } from "./caseload";
 
 const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, { message: "date_invalid" });
 const blank = (v: unknown) => (typeof v === "string" && v.trim() === "" ? undefined : v);
@@ -19,3 +20,8 @@ export const auditQuerySchema = z
   })
   .refine((q) => !q.from || !q.to || q.from <= q.to, { message: "range_invalid", path: ["to"] });
 export type AuditQuery = z.infer<typeof auditQuerySchema>;
+
+/** A patient's access log: a page, and everyone or only people outside the care team. */
+export const accessLogQuerySchema = pageQuerySchema.extend({
+  who: z.preprocess(blank, z.enum(["all", "outside"]).default("all")),
+});

@@ -5,6 +5,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { GET as orgList, POST as orgCreate } from "@/app/api/admin/organisations/route";
 import { GET as orgGet, PATCH as orgPatch } from "@/app/api/admin/organisations/[organisationId]/route";
 import { GET as settingsGet, PATCH as settingsPatch } from "@/app/api/admin/settings/route";
+import { POST as deactivate } from "@/app/api/admin/staff/[userId]/deactivate/route";
 import { db } from "@/db";
 import { auditEvents, memberships, organisations, settings, user } from "@/db/schema";
 import { GET as caseloadGet } from "@/app/api/caseload/route";
@@ -102,6 +103,22 @@ describe("organisations", () => {
       expect((await call(orgGet, `/api/admin/organisations/${larch}`, { cookie, params: { organisationId: larch } })).status).toBe(403);
       expect((await call(orgPatch, `/api/admin/organisations/${larch}`, { method: "PATCH", cookie, params: { organisationId: larch }, body: { phone: "01632 960 000" } })).status).toBe(403);
     }
+  });
+});
+
+describe("admin home counts", () => {
+  it("counts the active staff of each organisation: a deactivated member is not counted", async () => {
+    const harbourside = orgs["Harbourside Community Nursing Team"];
+    const countOf = async () => {
+      const res = await call(orgList, "/api/admin/organisations", { cookie: admin });
+      return (await res.json()).organisations.find((o: { id: string }) => o.id === harbourside).staffCount as number;
+    };
+    const before = await countOf();
+    const member = await createStaff({ role: "clinician", organisationIds: [harbourside] });
+    expect(await countOf()).toBe(before + 1);
+    const off = await call(deactivate, `/api/admin/staff/${member.id}/deactivate`, { method: "POST", cookie: admin, params: { userId: member.id } });
+    expect(off.status).toBe(200);
+    expect(await countOf()).toBe(before);
   });
 });
 
