@@ -84,7 +84,7 @@ export function CheckInFlow({ patientId, route, contacts, patientName }: { patie
         {t(`questions.${question.id}.${subject}`)}
       </h1>
       {t.has(`questions.${question.id}.hint` as never) ? <p>{t(`questions.${question.id}.hint` as never)}</p> : null}
-      <QuestionAnswers key={question.id} question={question} answers={answers} onAnswer={answer} />
+      <QuestionAnswers key={question.id} question={question} answers={answers} onAnswer={answer} onDraft={(patch) => setAnswers(keepAsked(questions, { ...answers, ...patch }))} />
       {history.length ? (
         <button type="button" onClick={back} className="min-h-12 self-start rounded-lg px-3 font-bold text-brand underline underline-offset-4">
           {t("back")}
@@ -94,16 +94,27 @@ export function CheckInFlow({ patientId, route, contacts, patientName }: { patie
   );
 }
 
-function QuestionAnswers({ question, answers, onAnswer }: { question: Question; answers: SubmittedAnswers; onAnswer: (p: SubmittedAnswers) => void }) {
+function QuestionAnswers({
+  question,
+  answers,
+  onAnswer,
+  onDraft,
+}: {
+  question: Question;
+  answers: SubmittedAnswers;
+  onAnswer: (p: SubmittedAnswers) => void;
+  /** A choice made on this screen before moving on (kept if the person goes back first). */
+  onDraft: (p: SubmittedAnswers) => void;
+}) {
   const t = useTranslations("CheckIn");
   switch (question.kind) {
     case "yes-no":
       return (
         <div className="flex flex-col gap-3">
-          <button type="button" className={chosenClass(answers[question.id] === true)} aria-pressed={answers[question.id] === true} data-answer="yes" onClick={() => onAnswer({ [question.id]: true })}>
+          <button type="button" className={chosenClass(answers[question.id] === true)} aria-pressed={answers[question.id] === true || undefined} data-answer="yes" onClick={() => onAnswer({ [question.id]: true })}>
             {t("yes")}
           </button>
-          <button type="button" className={chosenClass(answers[question.id] === false)} aria-pressed={answers[question.id] === false} data-answer="no" onClick={() => onAnswer({ [question.id]: false })}>
+          <button type="button" className={chosenClass(answers[question.id] === false)} aria-pressed={answers[question.id] === false || undefined} data-answer="no" onClick={() => onAnswer({ [question.id]: false })}>
             {t("no")}
           </button>
         </div>
@@ -116,7 +127,7 @@ function QuestionAnswers({ question, answers, onAnswer }: { question: Question; 
               key={o}
               type="button"
               className={chosenClass(isChosen(question, o, answers))}
-              aria-pressed={isChosen(question, o, answers)}
+              aria-pressed={isChosen(question, o, answers) || undefined}
               data-answer={o}
               onClick={() =>
                 onAnswer(
@@ -134,7 +145,7 @@ function QuestionAnswers({ question, answers, onAnswer }: { question: Question; 
     case "temperature":
       return <TemperatureAnswer initial={answers.temperatureC} onAnswer={onAnswer} />;
     case "many":
-      return <ManyAnswer options={question.options} answers={answers} onAnswer={onAnswer} />;
+      return <ManyAnswer options={question.options} answers={answers} onAnswer={onAnswer} onDraft={onDraft} />;
   }
 }
 
@@ -189,7 +200,17 @@ function TemperatureAnswer({ initial, onAnswer }: { initial?: number; onAnswer: 
   );
 }
 
-function ManyAnswer({ options, answers, onAnswer }: { options: readonly OtherSymptom[]; answers: SubmittedAnswers; onAnswer: (p: SubmittedAnswers) => void }) {
+function ManyAnswer({
+  options,
+  answers,
+  onAnswer,
+  onDraft,
+}: {
+  options: readonly OtherSymptom[];
+  answers: SubmittedAnswers;
+  onAnswer: (p: SubmittedAnswers) => void;
+  onDraft: (p: SubmittedAnswers) => void;
+}) {
   const t = useTranslations("CheckIn");
   const [picked, setPicked] = useState<Set<OtherSymptom>>(() => new Set(options.filter((o) => answers[o] === true)));
   const toggle = (o: OtherSymptom) => {
@@ -197,6 +218,7 @@ function ManyAnswer({ options, answers, onAnswer }: { options: readonly OtherSym
     if (next.has(o)) next.delete(o);
     else next.add(o);
     setPicked(next);
+    onDraft({ [o]: next.has(o) } as SubmittedAnswers);
   };
   const submit = (set: Set<OtherSymptom>) => onAnswer(Object.fromEntries(options.map((o) => [o, set.has(o)])) as SubmittedAnswers);
   return (
