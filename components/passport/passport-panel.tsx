@@ -74,6 +74,7 @@ export function PassportPanel({
   readOnly?: boolean;
 }) {
   const t = useTranslations("Passport");
+  const tRecord = useTranslations("PatientRecord");
   const format = useFormatter();
   const router = useRouter();
   const [issued, setIssued] = useState<Issued | null>(null);
@@ -135,7 +136,11 @@ export function PassportPanel({
         <p>
           <span className="font-bold">{t("languages")}:</span> {languageNames(languages)}
         </p>
-        {!hasDevice ? <p className="rounded-lg border-2 border-stone-line bg-paper-sunk p-3">{t("noDevice")}</p> : null}
+        {readOnly ? (
+          <p className="rounded-lg border-2 border-stone-line bg-paper-sunk p-3 font-bold">{tRecord("closedNoWrites")}</p>
+        ) : !hasDevice ? (
+          <p className="rounded-lg border-2 border-stone-line bg-paper-sunk p-3">{t("noDevice")}</p>
+        ) : null}
         <p className="max-w-prose rounded-lg border border-stone-faint bg-paper-sunk p-3" data-testid="passport-safety">
           {t("safety")}
         </p>
