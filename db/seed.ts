@@ -4,6 +4,8 @@
  * running it again changes nothing that is already there. Prints the demo accounts.
  * Every name, number and address here is invented; 01632 960xxx is a range set aside for fiction.
  */
+// Run with tsx outside Next.js: the server modules it loads say "server-only" (see the shim).
+import "../scripts/server-only-shim.cjs";
 import { randomUUID } from "node:crypto";
 import path from "node:path";
 import { fileURLToPath } from "node:url";

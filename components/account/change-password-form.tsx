@@ -4,51 +4,46 @@ import { useTranslations } from "next-intl";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
-import { Field } from "@/components/ui/field";
-import { Notice } from "@/components/ui/notice";
+import { DoneStatus, ErrorAlert } from "@/components/ui/notice";
+import { PasswordField } from "@/components/ui/password-field";
+import { useSubmitFailure } from "@/components/ui/use-error-text";
 import { authClient } from "@/lib/auth/client";
-import { changePasswordSchema, PASSWORD_MIN_LENGTH, type ChangePasswordInput } from "@/lib/validations/staff";
-import { useErrorText } from "@/components/admin/use-field-errors";
+import { changePasswordSchema, type ChangePasswordInput } from "@/lib/validations/staff";
 
 /** A new password needs the current one (re-authentication); every other session is signed out. */
 export function ChangePasswordForm() {
   const t = useTranslations("Account");
-  const errorText = useErrorText("Account");
-  const [status, setStatus] = useState<{ tone: "ok" | "stop"; text: string } | null>(null);
+  const [changed, setChanged] = useState(false);
   const {
     register,
     handleSubmit,
     reset,
     formState: { errors, isSubmitting },
   } = useForm<ChangePasswordInput>({ resolver: zodResolver(changePasswordSchema), defaultValues: { currentPassword: "", newPassword: "", confirmPassword: "" } });
+  const failure = useSubmitFailure("Account");
+  const text = failure.text;
 
   return (
     <form
       noValidate
       className="flex max-w-md flex-col gap-4"
       onSubmit={handleSubmit(async (v) => {
-        setStatus(null);
+        failure.clear();
+        setChanged(false);
         const { error } = await authClient.changePassword({ currentPassword: v.currentPassword, newPassword: v.newPassword, revokeOtherSessions: true });
         if (error) {
-          const code = error.code === "PASSWORD_TOO_COMMON" ? "password_too_common" : error.status === 429 ? "rate_limited" : "current_wrong";
-          setStatus({ tone: "stop", text: errorText.one(code) });
-          return;
+          const code = error.code?.startsWith("PASSWORD_") ? error.code.toLowerCase() : error.status === 429 ? "rate_limited" : "current_wrong";
+          return failure.show(text.one(code));
         }
         reset();
-        setStatus({ tone: "ok", text: t("passwordChanged") });
+        setChanged(true);
       })}
     >
-      {status ? <Notice tone={status.tone} role={status.tone === "stop" ? "alert" : "status"} title={status.text} /> : null}
-      <Field label={t("currentPassword")} type="password" autoComplete="current-password" errors={errorText.list(errors.currentPassword)} {...register("currentPassword")} />
-      <Field
-        label={t("newPassword")}
-        hint={t("passwordRules", { min: PASSWORD_MIN_LENGTH })}
-        type="password"
-        autoComplete="new-password"
-        errors={errorText.list(errors.newPassword)}
-        {...register("newPassword")}
-      />
-      <Field label={t("confirmPassword")} type="password" autoComplete="new-password" errors={errorText.list(errors.confirmPassword)} {...register("confirmPassword")} />
+      <ErrorAlert message={failure.message} />
+      <DoneStatus message={changed ? t("passwordChanged") : null} />
+      <PasswordField purpose="current" label={t("currentPassword")} errors={text.list(errors.currentPassword)} {...register("currentPassword")} />
+      <PasswordField purpose="new" label={t("newPassword")} errors={text.list(errors.newPassword)} {...register("newPassword")} />
+      <PasswordField purpose="confirm" label={t("confirmPassword")} errors={text.list(errors.confirmPassword)} {...register("confirmPassword")} />
       <div>
         <Button type="submit" disabled={isSubmitting}>
           {t("changePassword")}

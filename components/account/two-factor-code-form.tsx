@@ -3,11 +3,11 @@ import { useLocale, useTranslations } from "next-intl";
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
-import { Notice } from "@/components/ui/notice";
+import { ErrorAlert } from "@/components/ui/notice";
 import { authClient } from "@/lib/auth/client";
 import { Link } from "@/lib/i18n/navigation";
 import { backupCodeSchema, totpCodeSchema } from "@/lib/validations/staff";
-import { useErrorText } from "@/components/admin/use-field-errors";
+import { useErrorText } from "@/components/ui/use-error-text";
 
 /** The second step of signing in: the code from the authenticator app, or a backup code. */
 export function TwoFactorCodeForm() {
@@ -44,15 +44,13 @@ export function TwoFactorCodeForm() {
 
   return (
     <form onSubmit={submit} noValidate className="flex flex-col gap-4">
-      {failure ? (
-        <Notice tone="stop" role="alert" title={failure.text}>
-          {failure.expired ? (
-            <Link href="/sign-in" className="font-bold underline underline-offset-4">
-              {t("startAgain")}
-            </Link>
-          ) : null}
-        </Notice>
-      ) : null}
+      <ErrorAlert message={failure?.text}>
+        {failure?.expired ? (
+          <Link href="/sign-in" className="font-bold underline underline-offset-4">
+            {t("startAgain")}
+          </Link>
+        ) : null}
+      </ErrorAlert>
       {backup ? (
         <Field
           key="backup"

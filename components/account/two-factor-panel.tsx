@@ -2,8 +2,8 @@
 import { useTranslations } from "next-intl";
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
-import { Field } from "@/components/ui/field";
-import { Notice } from "@/components/ui/notice";
+import { DoneStatus, ErrorAlert, Notice } from "@/components/ui/notice";
+import { PasswordField } from "@/components/ui/password-field";
 import { authClient } from "@/lib/auth/client";
 import { useRouter } from "@/lib/i18n/navigation";
 import { BackupCodes } from "./backup-codes";
@@ -55,7 +55,7 @@ export function TwoFactorPanel({ enabled, required }: { enabled: boolean; requir
   return (
     <div className="flex flex-col gap-4">
       <Notice tone="ok" title={t("onExplain")} />
-      {message ? <Notice tone={message.tone} role="alert" title={message.text} /> : null}
+      {message?.tone === "stop" ? <ErrorAlert message={message.text} /> : <DoneStatus message={message?.text} />}
       <BackupCodes codes={codes} />
       {mode === "idle" ? (
         <div className="flex flex-wrap gap-3">
@@ -77,7 +77,7 @@ export function TwoFactorPanel({ enabled, required }: { enabled: boolean; requir
           }}
         >
           <p>{mode === "codes" ? t("newBackupCodesExplain") : t("turnOffExplain")}</p>
-          <Field label={t("password")} type="password" autoComplete="current-password" value={password} onChange={(e) => setPassword(e.target.value)} />
+          <PasswordField purpose="current" label={t("password")} value={password} onChange={(e) => setPassword(e.target.value)} />
           <div className="flex gap-3">
             <Button type="submit" variant={mode === "disable" ? "danger" : "primary"} disabled={busy || !password}>
               {mode === "codes" ? t("newBackupCodes") : t("turnOff")}

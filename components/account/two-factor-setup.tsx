@@ -4,10 +4,11 @@ import { useTranslations } from "next-intl";
 import { useEffect, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
-import { Notice } from "@/components/ui/notice";
+import { ErrorAlert, Notice } from "@/components/ui/notice";
+import { PasswordField } from "@/components/ui/password-field";
 import { authClient } from "@/lib/auth/client";
 import { totpCodeSchema } from "@/lib/validations/staff";
-import { useErrorText } from "@/components/admin/use-field-errors";
+import { useErrorText } from "@/components/ui/use-error-text";
 import { BackupCodes } from "./backup-codes";
 
 /**
@@ -53,9 +54,9 @@ export function TwoFactorSetup({ onDone }: { onDone?: () => void }) {
           setStep("scan");
         }}
       >
-        {error ? <Notice tone="stop" role="alert" title={error} /> : null}
+        <ErrorAlert message={error} />
         <p>{t("setupIntro")}</p>
-        <Field label={t("password")} type="password" autoComplete="current-password" value={password} onChange={(e) => setPassword(e.target.value)} />
+        <PasswordField purpose="current" label={t("password")} value={password} onChange={(e) => setPassword(e.target.value)} />
         <div>
           <Button type="submit" disabled={busy || !password}>
             {t("start")}
@@ -88,7 +89,7 @@ export function TwoFactorSetup({ onDone }: { onDone?: () => void }) {
           setStep("done");
         }}
       >
-        {error ? <Notice tone="stop" role="alert" title={error} /> : null}
+        <ErrorAlert message={error} />
         <ol className="flex list-decimal flex-col gap-3 ps-6">
           <li>{t("scanStep")}</li>
           <li>{t("codeStep")}</li>

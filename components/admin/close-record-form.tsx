@@ -5,24 +5,24 @@ import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
-import { Notice } from "@/components/ui/notice";
+import { ErrorAlert } from "@/components/ui/notice";
+import { useSubmitFailure } from "@/components/ui/use-error-text";
 import { apiFetch } from "@/lib/browser/api-client";
 import { useRouter } from "@/lib/i18n/navigation";
 import { closeRecordSchema, type CloseRecordInput } from "@/lib/validations/admin-patient";
-import { useErrorText } from "./use-field-errors";
 
 /** Closing a record: a reason, a confirmation, then read-only until the retention job removes it. */
 export function CloseRecordForm({ patientId, name }: { patientId: string; name: string }) {
   const t = useTranslations("AdminPatients");
-  const errorText = useErrorText("AdminPatients");
   const router = useRouter();
   const [open, setOpen] = useState(false);
-  const [failure, setFailure] = useState<string | null>(null);
   const {
     register,
     handleSubmit,
+    setError,
     formState: { errors, isSubmitting },
   } = useForm<CloseRecordInput>({ resolver: zodResolver(closeRecordSchema), defaultValues: { reason: "" } });
+  const failure = useSubmitFailure("AdminPatients", setError);
 
   if (!open) {
     return (
@@ -38,19 +38,19 @@ export function CloseRecordForm({ patientId, name }: { patientId: string; name: 
       noValidate
       className="flex flex-col gap-3"
       onSubmit={handleSubmit(async (values) => {
-        setFailure(null);
+        failure.clear();
         if (!window.confirm(t("closeConfirm", { name }))) return;
         try {
           await apiFetch(`/api/admin/patients/${patientId}/close`, { method: "POST", body: values });
           router.refresh();
         } catch (error) {
-          setFailure(errorText.ofError(error));
+          failure.fail(error);
         }
       })}
     >
-      {failure ? <Notice tone="stop" role="alert" title={failure} /> : null}
+      <ErrorAlert message={failure.message} />
       <p className="text-sm">{t("closeExplain")}</p>
-      <Field label={t("closeReason")} errors={errorText.list(errors.reason)} {...register("reason")} />
+      <Field label={t("closeReason")} errors={failure.text.list(errors.reason)} {...register("reason")} />
       <div className="flex gap-3">
         <Button type="submit" variant="danger" disabled={isSubmitting}>
           {t("closeSubmit")}

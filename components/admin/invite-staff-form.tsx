@@ -4,23 +4,20 @@ import { useTranslations } from "next-intl";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
-import { Checkbox } from "@/components/ui/checkbox";
-import { Field } from "@/components/ui/field";
-import { Notice } from "@/components/ui/notice";
-import { SelectField } from "@/components/ui/select-field";
-import { ApiError, apiFetch } from "@/lib/browser/api-client";
+import { Checkbox, ChoiceGroup } from "@/components/ui/choice";
+import { Field, SelectField } from "@/components/ui/field";
+import { DoneStatus, ErrorAlert } from "@/components/ui/notice";
+import { useSubmitFailure } from "@/components/ui/use-error-text";
+import { apiFetch } from "@/lib/browser/api-client";
 import { useRouter } from "@/lib/i18n/navigation";
 import { inviteStaffSchema, staffRoles, type InviteStaffFormValues, type InviteStaffInput } from "@/lib/validations/staff";
-import { useErrorText } from "./use-field-errors";
 
 type Org = { id: string; name: string };
 type Result = { invitation: { email: string; expiresAt: string }; emailed: boolean };
 
 export function InviteStaffForm({ organisations }: { organisations: Org[] }) {
   const t = useTranslations("AdminStaff");
-  const errorText = useErrorText("AdminStaff");
   const router = useRouter();
-  const [formError, setFormError] = useState<string | null>(null);
   const [result, setResult] = useState<Result | null>(null);
   const {
     register,
@@ -32,9 +29,11 @@ export function InviteStaffForm({ organisations }: { organisations: Org[] }) {
     resolver: zodResolver(inviteStaffSchema),
     defaultValues: { email: "", name: "", role: "clinician", organisationIds: organisations.length === 1 ? [organisations[0].id] : [] },
   });
+  const failure = useSubmitFailure("AdminStaff", setError);
+  const errorText = failure.text;
 
   const onSubmit = handleSubmit(async (values) => {
-    setFormError(null);
+    failure.clear();
     setResult(null);
     try {
       const r = await apiFetch<Result>("/api/admin/staff/invitations", { method: "POST", body: values });
@@ -42,45 +41,30 @@ export function InviteStaffForm({ organisations }: { organisations: Org[] }) {
       reset({ ...values, email: "", name: "" });
       router.refresh();
     } catch (error) {
-      if (error instanceof ApiError) {
-        for (const [field, codes] of Object.entries(error.fields)) setError(field as keyof InviteStaffFormValues, { message: codes[0] });
-      }
-      setFormError(errorText.ofError(error));
+      failure.fail(error);
     }
   });
 
   return (
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4" aria-labelledby="invite-heading">
-      {formError ? <Notice tone="stop" role="alert" title={formError} /> : null}
+      <ErrorAlert message={failure.message} />
       {result ? (
-        <Notice tone="ok" role="status" title={t("invited", { email: result.invitation.email })}>
+        <DoneStatus message={t("invited", { email: result.invitation.email })}>
           <p>{t("emailed")}</p>
-        </Notice>
+        </DoneStatus>
       ) : null}
       <div className="grid gap-4 md:grid-cols-2">
         <Field label={t("email")} type="email" inputMode="email" autoComplete="off" errors={errorText.list(errors.email)} {...register("email")} />
         <Field label={t("nameOptional")} autoComplete="off" errors={errorText.list(errors.name)} {...register("name")} />
-        <SelectField label={t("role")} errors={errorText.list(errors.role)} {...register("role")}>
-          {staffRoles.map((r) => (
-            <option key={r} value={r}>
-              {t(`roles.${r}`)}
-            </option>
-          ))}
-        </SelectField>
+        <SelectField label={t("role")} errors={errorText.list(errors.role)} options={staffRoles.map((r) => ({ value: r, label: t(`roles.${r}`) }))} {...register("role")} />
       </div>
-      <fieldset className="flex flex-col gap-1">
-        <legend className="font-bold">{t("organisations")}</legend>
+      <ChoiceGroup legend={t("organisations")} errors={errorText.list(errors.organisationIds)}>
         <div className="grid gap-x-4 md:grid-cols-2">
           {organisations.map((o) => (
             <Checkbox key={o.id} value={o.id} label={o.name} {...register("organisationIds")} />
           ))}
         </div>
-        {errors.organisationIds ? (
-          <p className="text-sm font-bold text-level-emergency-ink" role="alert">
-            {errorText.list(errors.organisationIds)?.join(" ")}
-          </p>
-        ) : null}
-      </fieldset>
+      </ChoiceGroup>
       <div>
         <Button type="submit" disabled={isSubmitting}>
           {isSubmitting ? t("inviting") : t("invite")}

@@ -4,22 +4,19 @@ import { useTranslations } from "next-intl";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
-import { Checkbox } from "@/components/ui/checkbox";
-import { Field } from "@/components/ui/field";
-import { Notice } from "@/components/ui/notice";
-import { SelectField } from "@/components/ui/select-field";
-import { ApiError, apiFetch } from "@/lib/browser/api-client";
+import { Checkbox, ChoiceGroup } from "@/components/ui/choice";
+import { Field, SelectField } from "@/components/ui/field";
+import { DoneStatus, ErrorAlert } from "@/components/ui/notice";
+import { useSubmitFailure } from "@/components/ui/use-error-text";
+import { apiFetch } from "@/lib/browser/api-client";
 import { useRouter } from "@/lib/i18n/navigation";
 import { localeNames, locales } from "@/lib/i18n/routing";
 import { organisationKinds, organisationSchema, type OrganisationFormValues, type OrganisationInput } from "@/lib/validations/organisation";
-import { useErrorText } from "./use-field-errors";
 
 export function OrganisationForm({ organisationId, initial }: { organisationId?: string; initial?: OrganisationFormValues }) {
   const t = useTranslations("AdminOrganisations");
   const kinds = useTranslations("Admin.kind");
-  const errorText = useErrorText("AdminOrganisations");
   const router = useRouter();
-  const [formError, setFormError] = useState<string | null>(null);
   const [saved, setSaved] = useState(false);
   const {
     register,
@@ -30,9 +27,11 @@ export function OrganisationForm({ organisationId, initial }: { organisationId?:
     resolver: zodResolver(organisationSchema),
     defaultValues: initial ?? { name: "", kind: "hospital_ward", parentName: "", phone: "", outOfHoursPhone: "", inboxEmail: "", locale: "en", languages: ["en"], requireTwoFactor: false },
   });
+  const failure = useSubmitFailure("AdminOrganisations", setError);
+  const errorText = failure.text;
 
   const onSubmit = handleSubmit(async (values) => {
-    setFormError(null);
+    failure.clear();
     setSaved(false);
     try {
       if (organisationId) {
@@ -45,27 +44,16 @@ export function OrganisationForm({ organisationId, initial }: { organisationId?:
         router.refresh();
       }
     } catch (error) {
-      if (error instanceof ApiError && Object.keys(error.fields).length) {
-        for (const [field, codes] of Object.entries(error.fields)) {
-          setError(field as keyof OrganisationFormValues, { message: codes[0] });
-        }
-      }
-      setFormError(errorText.ofError(error));
+      failure.fail(error);
     }
   });
 
   return (
     <form onSubmit={onSubmit} noValidate className="flex max-w-2xl flex-col gap-4">
-      {formError ? <Notice tone="stop" role="alert" title={formError} /> : null}
-      {saved ? <Notice tone="ok" role="status" title={t("saved")} /> : null}
+      <ErrorAlert message={failure.message} />
+      <DoneStatus message={saved ? t("saved") : null} />
       <Field label={t("name")} autoComplete="organization" errors={errorText.list(errors.name)} {...register("name")} />
-      <SelectField label={t("kind")} errors={errorText.list(errors.kind)} {...register("kind")}>
-        {organisationKinds.map((k) => (
-          <option key={k} value={k}>
-            {kinds(k)}
-          </option>
-        ))}
-      </SelectField>
+      <SelectField label={t("kind")} errors={errorText.list(errors.kind)} options={organisationKinds.map((k) => ({ value: k, label: kinds(k) }))} {...register("kind")} />
       <Field label={t("parentName")} hint={t("parentNameHint")} errors={errorText.list(errors.parentName)} {...register("parentName")} />
       <div className="grid gap-4 md:grid-cols-2">
         <Field label={t("phone")} type="tel" inputMode="tel" autoComplete="off" errors={errorText.list(errors.phone)} {...register("phone")} />
@@ -95,22 +83,13 @@ export function OrganisationForm({ organisationId, initial }: { organisationId?:
           </option>
         ))}
       </SelectField>
-      <fieldset className="flex flex-col gap-1" aria-describedby="languages-hint">
-        <legend className="font-bold">{t("languages")}</legend>
-        <p id="languages-hint" className="text-sm text-ink-soft">
-          {t("languagesHint")}
-        </p>
+      <ChoiceGroup legend={t("languages")} hint={t("languagesHint")} errors={errorText.list(errors.languages)}>
         <div className="grid grid-cols-2 gap-x-4 md:grid-cols-3">
           {locales.map((l) => (
             <Checkbox key={l} value={l} label={<span lang={l}>{localeNames[l]}</span>} {...register("languages")} />
           ))}
         </div>
-        {errors.languages ? (
-          <p className="text-sm font-bold text-level-emergency-ink" role="alert">
-            {errorText.list(errors.languages)?.join(" ")}
-          </p>
-        ) : null}
-      </fieldset>
+      </ChoiceGroup>
       <Checkbox label={t("requireTwoFactor")} hint={t("requireTwoFactorHint")} {...register("requireTwoFactor")} />
       <div>
         <Button type="submit" disabled={isSubmitting}>

@@ -6,12 +6,12 @@ import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
-import { Notice } from "@/components/ui/notice";
-import { ApiError, apiFetch } from "@/lib/browser/api-client";
+import { DoneStatus, ErrorAlert, Notice } from "@/components/ui/notice";
+import { useSubmitFailure } from "@/components/ui/use-error-text";
+import { apiFetch } from "@/lib/browser/api-client";
 import { MATERIALS, MATERIAL_SPECS, PLAN_DEFAULTS, type Material } from "@/lib/clinical";
 import { useRouter } from "@/lib/i18n/navigation";
 import { settingsFormSchema, type SettingsFormOutput, type SettingsFormValues } from "@/lib/validations/settings";
-import { useErrorText } from "./use-field-errors";
 
 export type SettingsInitial = {
   emergencyNumber: string | null;
@@ -28,9 +28,8 @@ const num = { setValueAs: (v: unknown) => (v === "" || v === null || v === undef
 
 export function SettingsForm({ initial }: { initial: SettingsInitial }) {
   const t = useTranslations("AdminSettings");
-  const errorText = useErrorText("AdminSettings");
   const router = useRouter();
-  const [status, setStatus] = useState<{ tone: "ok" | "stop"; text: string } | null>(null);
+  const [saved, setSaved] = useState(false);
   const {
     register,
     handleSubmit,
@@ -40,18 +39,18 @@ export function SettingsForm({ initial }: { initial: SettingsInitial }) {
     resolver: zodResolver(settingsFormSchema),
     defaultValues: { ...initial, defaultMaxDwellDays: initial.defaultMaxDwellDays },
   });
+  const failure = useSubmitFailure("AdminSettings", setError);
+  const errorText = failure.text;
 
   const onSubmit = handleSubmit(async (values) => {
-    setStatus(null);
+    failure.clear();
+    setSaved(false);
     try {
       await apiFetch("/api/admin/settings", { method: "PATCH", body: values });
-      setStatus({ tone: "ok", text: t("saved") });
+      setSaved(true);
       router.refresh();
     } catch (error) {
-      if (error instanceof ApiError) {
-        for (const [field, codes] of Object.entries(error.fields)) setError(field as keyof SettingsFormValues, { message: codes[0] });
-      }
-      setStatus({ tone: "stop", text: errorText.ofError(error) });
+      failure.fail(error);
     }
   });
 
@@ -59,14 +58,15 @@ export function SettingsForm({ initial }: { initial: SettingsInitial }) {
 
   return (
     <form onSubmit={onSubmit} noValidate className="flex max-w-3xl flex-col gap-8">
-      {status ? <Notice tone={status.tone} role={status.tone === "stop" ? "alert" : "status"} title={status.text} /> : null}
+      <ErrorAlert message={failure.message} />
+      <DoneStatus message={saved ? t("saved") : null} />
 
       <fieldset className="flex flex-col gap-4">
         <legend className="mb-2 text-xl font-bold">{t("patientsHeading")}</legend>
         <Notice tone="warn" title={t("emergencyWarningTitle")}>
           <p>{t("emergencyWarning")}</p>
         </Notice>
-        {!initial.emergencyNumber ? <Notice tone="stop" role="alert" title={t("emergencyUnset")} /> : null}
+        {!initial.emergencyNumber ? <ErrorAlert message={t("emergencyUnset")} testId="emergency-unset" /> : null}
         <Field
           label={t("emergencyNumber")}
           hint={t("emergencyNumberHint")}

@@ -2,13 +2,13 @@
 import { useTranslations } from "next-intl";
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
-import { Checkbox } from "@/components/ui/checkbox";
-import { Notice } from "@/components/ui/notice";
-import { SelectField } from "@/components/ui/select-field";
+import { Checkbox, ChoiceGroup } from "@/components/ui/choice";
+import { SelectField } from "@/components/ui/field";
+import { DoneStatus, ErrorAlert } from "@/components/ui/notice";
+import { useSubmitFailure } from "@/components/ui/use-error-text";
 import { apiFetch } from "@/lib/browser/api-client";
 import { useRouter } from "@/lib/i18n/navigation";
 import { staffRoles } from "@/lib/validations/staff";
-import { useErrorText } from "./use-field-errors";
 
 type Org = { id: string; name: string };
 
@@ -23,22 +23,23 @@ export function StaffEditor({
   isSelf: boolean;
 }) {
   const t = useTranslations("AdminStaff");
-  const errorText = useErrorText("AdminStaff");
+  const failure = useSubmitFailure("AdminStaff");
   const router = useRouter();
   const [role, setRole] = useState(member.role);
   const [orgIds, setOrgIds] = useState<string[]>(member.organisationIds);
-  const [message, setMessage] = useState<{ tone: "ok" | "stop"; text: string } | null>(null);
+  const [done, setDone] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
 
   async function run(fn: () => Promise<unknown>, ok: string) {
     setBusy(true);
-    setMessage(null);
+    setDone(null);
+    failure.clear();
     try {
       await fn();
-      setMessage({ tone: "ok", text: ok });
+      setDone(ok);
       router.refresh();
     } catch (error) {
-      setMessage({ tone: "stop", text: errorText.ofError(error) });
+      failure.fail(error);
     } finally {
       setBusy(false);
     }
@@ -46,7 +47,8 @@ export function StaffEditor({
 
   return (
     <div className="flex flex-col gap-6">
-      {message ? <Notice tone={message.tone} role={message.tone === "stop" ? "alert" : "status"} title={message.text} /> : null}
+      <ErrorAlert message={failure.message} />
+      <DoneStatus message={done} />
       <form
         className="flex max-w-xl flex-col gap-4"
         onSubmit={(e) => {
@@ -61,9 +63,7 @@ export function StaffEditor({
             </option>
           ))}
         </SelectField>
-        <fieldset className="flex flex-col gap-1">
-          <legend className="font-bold">{t("organisations")}</legend>
-          <p className="text-sm text-ink-soft">{t("membershipsHint")}</p>
+        <ChoiceGroup legend={t("organisations")} hint={t("membershipsHint")}>
           {organisations.map((o) => (
             <Checkbox
               key={o.id}
@@ -72,7 +72,7 @@ export function StaffEditor({
               onChange={(e) => setOrgIds(e.target.checked ? [...orgIds, o.id] : orgIds.filter((id) => id !== o.id))}
             />
           ))}
-        </fieldset>
+        </ChoiceGroup>
         <div>
           <Button type="submit" disabled={busy}>
             {t("save")}

@@ -2,6 +2,7 @@
 import { useTranslations } from "next-intl";
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
+import { ErrorAlert } from "@/components/ui/notice";
 import { apiFetch } from "@/lib/browser/api-client";
 import { useRouter } from "@/lib/i18n/navigation";
 
@@ -32,11 +33,7 @@ export function WithdrawInvitationButton({ invitationId, email }: { invitationId
       >
         {t("withdraw")}
       </Button>
-      {failed ? (
-        <span role="alert" className="text-sm font-bold text-level-emergency-ink">
-          {t("errors.generic")}
-        </span>
-      ) : null}
+      {failed ? <ErrorAlert message={t("errors.generic")} testId="withdraw-error" /> : null}
     </span>
   );
 }

@@ -1,18 +1,21 @@
 "use client";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useLocale, useTranslations } from "next-intl";
-import { useEffect, useState } from "react";
+import { useEffect } from "react";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
-import { activateSchema, NEW_PASSWORD_MIN } from "@/lib/validations/invitations";
+import { ErrorAlert } from "@/components/ui/notice";
+import { PasswordField } from "@/components/ui/password-field";
+import { useSubmitFailure } from "@/components/ui/use-error-text";
+import { apiFetch } from "@/lib/browser/api-client";
+import { activateSchema } from "@/lib/validations/invitations";
 
 /** Open the portal account: the code from the care team, an e-mail address, a new password. */
 export function ActivateForm() {
   const t = useTranslations("Activate");
   const locale = useLocale();
-  const [formError, setFormError] = useState<string | null>(null);
   const {
     register,
     handleSubmit,
@@ -20,6 +23,8 @@ export function ActivateForm() {
     setError,
     formState: { errors, isSubmitting },
   } = useForm<z.input<typeof activateSchema>, unknown, z.output<typeof activateSchema>>({ resolver: zodResolver(activateSchema) });
+  const failure = useSubmitFailure("Activate", setError);
+  const text = failure.text;
 
   // An e-mailed link may carry the code after "#" (never sent to the server or in a Referer).
   useEffect(() => {
@@ -28,33 +33,18 @@ export function ActivateForm() {
   }, [setValue]);
 
   const onSubmit = handleSubmit(async (values) => {
-    setFormError(null);
-    const res = await fetch("/api/activate", { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(values) });
-    const body = await res.json().catch(() => null);
-    if (res.ok) {
-      window.location.assign(body?.signedIn ? body.next : `/${locale}/sign-in`);
-      return;
+    failure.clear();
+    try {
+      const body = await apiFetch<{ signedIn: boolean; next: string }>("/api/activate", { method: "POST", body: values });
+      window.location.assign(body.signedIn ? body.next : `/${locale}/sign-in`);
+    } catch (error) {
+      failure.fail(error);
     }
-    if (res.status === 429) return setFormError(t("tooMany"));
-    const fields = body?.error?.fields ?? {};
-    if (fields.code) setError("code", { message: "invalid" });
-    if (fields.email) setError("email", { message: fields.email[0] });
-    if (fields.password) setError("password", { message: fields.password[0] });
-    if (!fields.code && !fields.email && !fields.password) setFormError(t("error"));
   });
 
-  const passwordError = errors.password
-    ? errors.password.message === "too_common"
-      ? t("passwordCommon")
-      : t("passwordShort", { min: NEW_PASSWORD_MIN })
-    : undefined;
   return (
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
-      {formError ? (
-        <p role="alert" className="rounded-lg border-2 border-level-emergency bg-level-emergency-soft p-3 font-bold text-level-emergency-ink">
-          {formError}
-        </p>
-      ) : null}
+      <ErrorAlert message={failure.message} />
       <Field
         label={t("code")}
         hint={t("codeHint")}
@@ -62,7 +52,7 @@ export function ActivateForm() {
         autoCapitalize="characters"
         spellCheck={false}
         className="[&_input]:text-xl [&_input]:tracking-widest"
-        errors={errors.code ? [t("codeInvalid")] : undefined}
+        errors={errors.code ? [text.one("code_invalid")] : undefined}
         {...register("code")}
       />
       <Field
@@ -71,17 +61,10 @@ export function ActivateForm() {
         type="email"
         inputMode="email"
         autoComplete="username"
-        errors={errors.email ? [errors.email.message === "taken" ? t("emailTaken") : t("emailInvalid")] : undefined}
+        errors={text.list(errors.email)}
         {...register("email")}
       />
-      <Field
-        label={t("password")}
-        hint={t("passwordHint", { min: NEW_PASSWORD_MIN })}
-        type="password"
-        autoComplete="new-password"
-        errors={passwordError ? [passwordError] : undefined}
-        {...register("password")}
-      />
+      <PasswordField purpose="new" label={t("password")} errors={text.list(errors.password)} {...register("password")} />
       <Button type="submit" disabled={isSubmitting} className="w-full text-lg">
         {isSubmitting ? t("working") : t("submit")}
       </Button>

@@ -5,6 +5,8 @@ import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
+import { ErrorAlert } from "@/components/ui/notice";
+import { PasswordField } from "@/components/ui/password-field";
 import { authClient } from "@/lib/auth/client";
 import { signInSchema, type SignInInput } from "@/lib/validations/auth";
 
@@ -37,11 +39,7 @@ export function SignInForm({ returnTo }: { returnTo?: string } = {}) {
 
   return (
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
-      {formError ? (
-        <p role="alert" className="rounded-lg border-2 border-level-emergency bg-level-emergency-soft p-3 font-bold text-level-emergency-ink">
-          {formError}
-        </p>
-      ) : null}
+      <ErrorAlert message={formError} />
       <Field
         label={t("email")}
         type="email"
@@ -50,13 +48,7 @@ export function SignInForm({ returnTo }: { returnTo?: string } = {}) {
         errors={errors.email ? [t("emailInvalid")] : undefined}
         {...register("email")}
       />
-      <Field
-        label={t("password")}
-        type="password"
-        autoComplete="current-password"
-        errors={errors.password ? [t("passwordRequired")] : undefined}
-        {...register("password")}
-      />
+      <PasswordField purpose="current" label={t("password")} errors={errors.password ? [t("passwordRequired")] : undefined} {...register("password")} />
       <Button type="submit" disabled={isSubmitting} className="w-full text-lg">
         {isSubmitting ? t("signingIn") : t("submit")}
       </Button>

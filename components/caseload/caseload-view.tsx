@@ -4,6 +4,9 @@
 import { keepPreviousData, useQuery } from "@tanstack/react-query";
 import { useFormatter, useLocale, useTranslations } from "next-intl";
 import { useEffect, useId, useMemo, useRef, useState } from "react";
+import { Button } from "@/components/ui/button";
+import { ErrorAlert } from "@/components/ui/notice";
+import { apiFetch } from "@/lib/browser/api-client";
 import type { CaseloadPage, CaseloadRow } from "@/lib/shared/dto";
 import { Link } from "@/lib/i18n/navigation";
 import {
@@ -31,15 +34,11 @@ function toSearch(q: CaseloadQuery): URLSearchParams {
   return p;
 }
 
-class CaseloadFetchError extends Error {}
-
 async function fetchCaseload(q: CaseloadQuery): Promise<CaseloadPage> {
   const params = toSearch(q);
   // Always send the page size, so the server's default can change without the client noticing.
   params.set("pageSize", String(q.pageSize));
-  const res = await fetch(`/api/caseload?${params}`, { headers: { accept: "application/json" } });
-  if (!res.ok) throw new CaseloadFetchError(String(res.status));
-  return res.json();
+  return apiFetch<CaseloadPage>(`/api/caseload?${params}`);
 }
 
 export function CaseloadView({ initialQuery, initialData }: { initialQuery: CaseloadQuery; initialData: CaseloadPage }) {
@@ -179,12 +178,11 @@ export function CaseloadView({ initialQuery, initialData }: { initialQuery: Case
       </p>
 
       {isError ? (
-        <div role="alert" className="flex items-center gap-3 rounded-lg border-2 border-level-emergency bg-level-emergency-soft p-3 text-level-emergency-ink">
-          <span className="font-bold">{t("loadFailed")}</span>
-          <button type="button" onClick={() => refetch()} className="min-h-11 rounded-lg border-2 border-level-emergency px-3 font-bold">
+        <ErrorAlert message={t("loadFailed")} testId="caseload-error">
+          <Button variant="secondary" className="mt-2" onClick={() => refetch()}>
             {t("retry")}
-          </button>
-        </div>
+          </Button>
+        </ErrorAlert>
       ) : null}
 
       {page.rows.length === 0 ? (

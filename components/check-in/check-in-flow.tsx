@@ -18,6 +18,7 @@ import type { Route } from "@/lib/clinical";
 import type { Contacts } from "@/components/portal/call-buttons";
 import { CheckInResult } from "./check-in-result";
 import { newKey } from "./outbox";
+import { FieldError } from "@/components/ui/field";
 
 const answerButton =
   "flex min-h-16 w-full items-center justify-center rounded-lg border-2 border-brand bg-paper-raised px-4 py-3 text-center text-xl font-bold text-brand hover:bg-brand-soft";
@@ -184,11 +185,7 @@ function TemperatureAnswer({ initial, onAnswer }: { initial?: number; onAnswer: 
           />
           <span className="text-xl font-bold">°C</span>
         </div>
-        {error ? (
-          <p id="temperature-error" role="alert" className="font-bold text-level-emergency-ink">
-            {error}
-          </p>
-        ) : null}
+        <FieldError id="temperature-error" errors={error ? [error] : undefined} className="text-base" />
         <button type="submit" className="flex min-h-16 w-full items-center justify-center rounded-lg bg-brand px-4 text-xl font-bold text-white">
           {t("temperature.save")}
         </button>

@@ -5,7 +5,8 @@ import { useFormatter, useTranslations } from "next-intl";
 import { useEffect, useMemo, useState } from "react";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
-import { useSharedErrorText } from "@/components/ui/shared-error-text";
+import { FieldError } from "@/components/ui/field";
+import { apiFetch } from "@/lib/browser/api-client";
 import { fluidBalance, formatIsoDate, urineOutputRate, type DiaryEntry as ClinicalEntry } from "@/lib/clinical";
 import { DRINK_GUIDE, OUTPUT_WINDOW_HOURS } from "@/lib/shared/diary-guidance";
 import { Link } from "@/lib/i18n/navigation";
@@ -52,9 +53,7 @@ export function DiaryView({ patientId, weightKg, fluidLimitMl }: { patientId: st
     queryKey: key,
     queryFn: async (): Promise<Entry[]> => {
       const to = new Date(Date.now() + 86_400_000).toISOString();
-      const res = await fetch(`/api/diary?patientId=${patientId}&from=${encodeURIComponent(from)}&to=${encodeURIComponent(to)}`);
-      if (!res.ok) throw new Error(String(res.status));
-      return (await res.json()).entries;
+      return (await apiFetch<{ entries: Entry[] }>(`/api/diary?patientId=${patientId}&from=${encodeURIComponent(from)}&to=${encodeURIComponent(to)}`)).entries;
     },
   });
   const [last, setLast] = useState<Entry | null>(null);
@@ -95,8 +94,7 @@ export function DiaryView({ patientId, weightKg, fluidLimitMl }: { patientId: st
       }
       const id = entry.waiting ? (query.data ?? []).find((e) => e.clientKey === entry.clientKey)?.id : entry.id;
       if (!id) throw new Error("not sent");
-      const res = await fetch(`/api/diary/${id}`, { method: "DELETE" });
-      if (!res.ok) throw new Error(String(res.status));
+      await apiFetch(`/api/diary/${id}`, { method: "DELETE" });
       return entry;
     },
     onSuccess: (entry) => {
@@ -263,7 +261,6 @@ function OutputNote({ output, weightKnown, limit }: { output: ReturnType<typeof 
 
 function CustomAmount({ kind, onAdd }: { kind: "in" | "out"; onAdd: (ml: number) => void }) {
   const t = useTranslations("Diary");
-  const range = useSharedErrorText();
   const id = `custom-${kind}`;
   const {
     register,
@@ -298,11 +295,8 @@ function CustomAmount({ kind, onAdd }: { kind: "in" | "out"; onAdd: (ml: number)
           {t("add")}
         </button>
       </div>
-      {errors.volumeMl ? (
-        <p id={`${id}-error`} role="alert" className="font-bold text-level-emergency-ink">
-          {range(errors.volumeMl.message) ?? t("customError")}
-        </p>
-      ) : null}
+      {/* The words name the range ("a whole number of ml, from 1 to 5000") whatever was wrong. */}
+      <FieldError id={`${id}-error`} errors={errors.volumeMl ? [t("customError")] : undefined} />
     </form>
   );
 }

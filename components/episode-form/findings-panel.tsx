@@ -5,7 +5,7 @@ import { useTranslations } from "next-intl";
 import { DEVICE_RULES, type Finding, type Severity } from "@/lib/clinical";
 import type { CheckOutcome, DeviceDraft } from "@/lib/shared/episode-checks";
 import { OVERRIDE_MIN_CHARS } from "@/lib/validations/episode";
-import { TextArea } from "./controls";
+import { TextArea } from "@/components/ui/field";
 
 const tone: Record<Severity, { box: string; ink: string }> = {
   stop: { box: "border-finding-stop bg-finding-stop-soft", ink: "text-level-emergency-ink" },

@@ -2,16 +2,19 @@
 // Record the removal of the catheter in place, optionally as the start of a trial without catheter.
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useFormatter, useTranslations } from "next-intl";
-import { useState } from "react";
-import { Controller, get, useForm, type FieldPath, type Resolver } from "react-hook-form";
+import { useForm, type Resolver } from "react-hook-form";
 import type { z } from "zod";
-import { useSharedErrorText } from "@/components/ui/shared-error-text";
 import { Button } from "@/components/ui/button";
+import { Checkbox } from "@/components/ui/choice";
+import { DateTimeField } from "@/components/ui/date-time-field";
+import { Field, SelectField, TextArea } from "@/components/ui/field";
+import { ErrorAlert } from "@/components/ui/notice";
+import { Section } from "@/components/ui/section";
+import { useSubmitFailure } from "@/components/ui/use-error-text";
+import { apiFetch } from "@/lib/browser/api-client";
 import { useRouter } from "@/lib/i18n/navigation";
-import { EPISODE_ERROR_KEYS, REMOVAL_REASONS, removalSchema } from "@/lib/validations/episode";
-import { fromLocalInputValue, toLocalInputValue } from "@/lib/browser/datetime-input";
-import { Checkbox, Section, Select, TextArea, TextInput } from "./controls";
-import { isApiError, useRecord } from "./use-record";
+import { REMOVAL_REASONS, removalSchema } from "@/lib/validations/episode";
+import { useEpisodeOptions } from "./fieldsets/options";
 
 type Values = z.input<typeof removalSchema>;
 
@@ -19,18 +22,15 @@ export type CurrentDevice = { sizeCh: number; balloonMl: number; material: strin
 
 export function RemovalForm({ patientId, current }: { patientId: string; current: CurrentDevice }) {
   const t = useTranslations("EpisodeForm");
-  const tErrors = useTranslations("Errors");
-  const range = useSharedErrorText();
   const format = useFormatter();
   const router = useRouter();
-  const [formError, setFormError] = useState<string | null>(null);
-  const mutation = useRecord(`/api/patients/${patientId}/episodes/removal`);
+  const options = useEpisodeOptions();
   const {
     register,
     handleSubmit,
     control,
     setError,
-    formState: { errors },
+    formState: { errors, isSubmitting },
   } = useForm<Values>({
     resolver: zodResolver(removalSchema) as unknown as Resolver<Values>,
     mode: "onTouched",
@@ -43,23 +43,17 @@ export function RemovalForm({ patientId, current }: { patientId: string; current
       catheterIntact: true,
     },
   });
-  const err = (name: FieldPath<Values>) => {
-    const e = get(errors, name) as { message?: string } | undefined;
-    if (!e) return undefined;
-    const key = e.message as (typeof EPISODE_ERROR_KEYS)[number];
-    return [range(key) ?? ((EPISODE_ERROR_KEYS as readonly string[]).includes(key) ? t(`errors.${key}`) : t("errors.invalid"))];
-  };
+  const failure = useSubmitFailure("EpisodeForm", setError);
+  const err = (name: string) => failure.text.at(errors, name);
 
   const onSubmit = handleSubmit(async (values) => {
-    setFormError(null);
+    failure.clear();
     try {
-      await mutation.mutateAsync(values);
+      await apiFetch(`/api/patients/${patientId}/episodes/removal`, { method: "POST", body: values });
       router.push(`/patients/${patientId}`);
       router.refresh();
     } catch (e) {
-      if (!isApiError(e)) return setFormError(tErrors("internal"));
-      for (const [field, messages] of Object.entries(e.fields)) setError(field as FieldPath<Values>, { type: "server", message: messages[0] });
-      setFormError(e.code === "conflict" ? t("conflict.removal") : tErrors(e.code as "internal"));
+      failure.fail(e, (error) => (error.code === "conflict" ? t("conflict.removal") : null));
     }
   });
 
@@ -74,31 +68,15 @@ export function RemovalForm({ patientId, current }: { patientId: string; current
             date: format.dateTime(new Date(current.insertedAt), { dateStyle: "medium" }),
           })}
         </p>
-        <Controller
-          control={control}
-          name="removedAt"
-          render={({ field }) => (
-            <TextInput
-              label={t("field.removedAt")}
-              type="datetime-local"
-              max={toLocalInputValue(new Date().toISOString())}
-              value={toLocalInputValue(field.value as string)}
-              onChange={(e) => field.onChange(fromLocalInputValue(e.target.value))}
-              onBlur={field.onBlur}
-              name={field.name}
-              ref={field.ref}
-              errors={err("removedAt")}
-            />
-          )}
-        />
-        <Select
+        <DateTimeField control={control} name="removedAt" label={t("field.removedAt")} errors={err("removedAt")} />
+        <SelectField
           label={t("field.removalReason")}
           placeholder={t("choose")}
-          options={REMOVAL_REASONS.map((r) => ({ value: r, label: t(`option.removalReason.${r}`) }))}
+          options={options(REMOVAL_REASONS, "removalReason")}
           {...register("reason")}
           errors={err("reason")}
         />
-        <TextInput
+        <Field
           label={t("field.balloonDeflatedMl")}
           unit={t("unit.ml")}
           inputMode="numeric"
@@ -110,13 +88,9 @@ export function RemovalForm({ patientId, current }: { patientId: string; current
         <Checkbox className="sm:col-span-2" label={t("field.startTwoc")} hint={t("hint.startTwoc")} {...register("startTwoc")} data-testid="start-twoc" />
         <TextArea className="sm:col-span-2" label={t("field.notes")} {...register("notes")} errors={err("notes")} />
       </Section>
-      {formError ? (
-        <p role="alert" className="rounded-lg border-2 border-level-emergency bg-level-emergency-soft p-3 font-bold text-level-emergency-ink">
-          {formError}
-        </p>
-      ) : null}
-      <Button type="submit" disabled={mutation.isPending} className="w-full text-lg sm:w-auto sm:self-start" data-testid="save">
-        {mutation.isPending ? t("saving") : t("save.removal")}
+      <ErrorAlert message={failure.message} />
+      <Button type="submit" disabled={isSubmitting} className="w-full text-lg sm:w-auto sm:self-start" data-testid="save">
+        {isSubmitting ? t("saving") : t("save.removal")}
       </Button>
     </form>
   );

@@ -4,6 +4,7 @@
 import { useTranslations } from "next-intl";
 import { useEffect, useId, useLayoutEffect, useRef, useState, type KeyboardEvent } from "react";
 import { Button } from "@/components/ui/button";
+import { ErrorAlert } from "@/components/ui/notice";
 import { GS_VISIBLE, isGroupSeparatorKey, readCameraText, readScan, showScan, type CameraSymbology, type ScanReading } from "@/lib/browser/gs1-input";
 
 export type ScanFill = { gtin?: string; lot?: string; expiry?: string; serial?: string; udi: string };
@@ -122,8 +123,7 @@ export function ScanField({ today, onRead }: { today: string; onRead: (fill: Sca
           </p>
         ) : null}
         {reading && reading.errors.length > 0 ? (
-          <div role="alert" className="mt-1 rounded-lg border-2 border-finding-stop bg-finding-stop-soft p-3" data-testid="scan-errors">
-            <p className="font-bold text-level-emergency-ink">{t("errorsTitle")}</p>
+          <ErrorAlert message={t("errorsTitle")} testId="scan-errors" className="mt-1">
             <ul className="list-disc ps-6">
               {reading.errors.map((m) => {
                 const { key, detail } = errorKey(m);
@@ -134,7 +134,7 @@ export function ScanField({ today, onRead }: { today: string; onRead: (fill: Sca
                 );
               })}
             </ul>
-          </div>
+          </ErrorAlert>
         ) : null}
       </div>
     </div>

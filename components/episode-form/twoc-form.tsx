@@ -3,34 +3,34 @@
 // catheter after a failed trial is recorded next, on the insertion form.
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useFormatter, useTranslations } from "next-intl";
-import { useState } from "react";
-import { Controller, get, useFieldArray, useForm, type FieldPath, type Resolver } from "react-hook-form";
+import { useFieldArray, useForm, type Resolver } from "react-hook-form";
 import type { z } from "zod";
-import { useSharedErrorText } from "@/components/ui/shared-error-text";
 import { Button } from "@/components/ui/button";
+import { ChoiceGroup, RadioGroup } from "@/components/ui/choice";
+import { DateTimeField } from "@/components/ui/date-time-field";
+import { Field, SelectField, TextArea } from "@/components/ui/field";
+import { ErrorAlert } from "@/components/ui/notice";
+import { Section } from "@/components/ui/section";
+import { useSubmitFailure } from "@/components/ui/use-error-text";
+import { apiFetch } from "@/lib/browser/api-client";
 import { useRouter } from "@/lib/i18n/navigation";
-import { EPISODE_ERROR_KEYS, TWOC_FAILED_ACTIONS, twocSchema } from "@/lib/validations/episode";
-import { fromLocalInputValue, toLocalInputValue } from "@/lib/browser/datetime-input";
-import { RadioGroup, Section, Select, TextArea, TextInput } from "./controls";
-import { isApiError, useRecord } from "./use-record";
+import { TWOC_FAILED_ACTIONS, twocSchema } from "@/lib/validations/episode";
+import { useEpisodeOptions } from "./fieldsets/options";
 
 type Values = z.input<typeof twocSchema>;
 
 export function TwocForm({ patientId, removedAt }: { patientId: string; removedAt: string }) {
   const t = useTranslations("EpisodeForm");
-  const tErrors = useTranslations("Errors");
-  const range = useSharedErrorText();
   const format = useFormatter();
   const router = useRouter();
-  const [formError, setFormError] = useState<string | null>(null);
-  const mutation = useRecord<{ next: "insertion" | null }>(`/api/patients/${patientId}/episodes/twoc`);
+  const options = useEpisodeOptions();
   const {
     register,
     handleSubmit,
     control,
     watch,
     setError,
-    formState: { errors },
+    formState: { errors, isSubmitting },
   } = useForm<Values>({
     resolver: zodResolver(twocSchema) as unknown as Resolver<Values>,
     mode: "onTouched",
@@ -43,28 +43,22 @@ export function TwocForm({ patientId, removedAt }: { patientId: string; removedA
       notes: "",
     },
   });
+  const failure = useSubmitFailure("EpisodeForm", setError);
   const voids = useFieldArray({ control, name: "voids" as never });
   const outcome = watch("outcome");
   const failedAction = watch("failedAction");
   const volumes = (watch("voids") as { volumeMl?: unknown }[] | undefined) ?? [];
   const total = volumes.reduce<number>((sum, v) => sum + (Number(v?.volumeMl) > 0 ? Number(v.volumeMl) : 0), 0);
-  const err = (name: string) => {
-    const e = get(errors, name) as { message?: string } | undefined;
-    if (!e?.message) return undefined;
-    const key = e.message as (typeof EPISODE_ERROR_KEYS)[number];
-    return [range(key) ?? ((EPISODE_ERROR_KEYS as readonly string[]).includes(key) ? t(`errors.${key}`) : t("errors.invalid"))];
-  };
+  const err = (name: string) => failure.text.at(errors, name);
 
   const onSubmit = handleSubmit(async (values) => {
-    setFormError(null);
+    failure.clear();
     try {
-      const result = await mutation.mutateAsync(values);
+      const result = await apiFetch<{ next: "insertion" | null }>(`/api/patients/${patientId}/episodes/twoc`, { method: "POST", body: values });
       router.push(result.next === "insertion" ? `/patients/${patientId}/record/insertion` : `/patients/${patientId}`);
       router.refresh();
     } catch (e) {
-      if (!isApiError(e)) return setFormError(tErrors("internal"));
-      for (const [field, messages] of Object.entries(e.fields)) setError(field as FieldPath<Values>, { type: "server", message: messages[0] });
-      setFormError(e.code === "conflict" ? t("conflict.twoc") : tErrors(e.code as "internal"));
+      failure.fail(e, (error) => (error.code === "conflict" ? t("conflict.twoc") : null));
     }
   });
 
@@ -72,23 +66,7 @@ export function TwocForm({ patientId, removedAt }: { patientId: string; removedA
     <form onSubmit={onSubmit} noValidate className="flex max-w-3xl flex-col gap-6" data-testid="twoc-form">
       <Section title={t("twoc.title")}>
         <p className="sm:col-span-2">{t("twoc.since", { date: format.dateTime(new Date(removedAt), { dateStyle: "medium", timeStyle: "short" }) })}</p>
-        <Controller
-          control={control}
-          name="occurredAt"
-          render={({ field }) => (
-            <TextInput
-              label={t("field.twocAt")}
-              type="datetime-local"
-              max={toLocalInputValue(new Date().toISOString())}
-              value={toLocalInputValue(field.value as string)}
-              onChange={(e) => field.onChange(fromLocalInputValue(e.target.value))}
-              onBlur={field.onBlur}
-              name={field.name}
-              ref={field.ref}
-              errors={err("occurredAt")}
-            />
-          )}
-        />
+        <DateTimeField control={control} name="occurredAt" label={t("field.twocAt")} errors={err("occurredAt")} />
         <RadioGroup
           legend={t("field.twocOutcome")}
           options={[
@@ -98,12 +76,10 @@ export function TwocForm({ patientId, removedAt }: { patientId: string; removedA
           inputProps={register("outcome")}
           errors={err("outcome")}
         />
-        <fieldset className="flex flex-col gap-3 sm:col-span-2">
-          <legend className="font-bold">{t("field.voids")}</legend>
-          <p className="text-sm text-ink-soft">{t("hint.voids")}</p>
+        <ChoiceGroup className="sm:col-span-2" legend={t("field.voids")} hint={t("hint.voids")}>
           {voids.fields.map((f, i) => (
             <div key={f.id} className="flex items-end gap-2">
-              <TextInput
+              <Field
                 className="flex-1"
                 label={t("field.voidN", { n: i + 1 })}
                 unit={t("unit.ml")}
@@ -124,13 +100,13 @@ export function TwocForm({ patientId, removedAt }: { patientId: string; removedA
               {t("twoc.total", { total })}
             </p>
           </div>
-        </fieldset>
-        <TextInput label={t("field.postVoidResidualMl")} unit={t("unit.ml")} inputMode="numeric" hint={t("hint.residual")} {...register("postVoidResidualMl")} errors={err("postVoidResidualMl")} />
+        </ChoiceGroup>
+        <Field label={t("field.postVoidResidualMl")} unit={t("unit.ml")} inputMode="numeric" hint={t("hint.residual")} {...register("postVoidResidualMl")} errors={err("postVoidResidualMl")} />
         {outcome === "failed" ? (
-          <Select
+          <SelectField
             label={t("field.failedAction")}
             placeholder={t("choose")}
-            options={TWOC_FAILED_ACTIONS.map((a) => ({ value: a, label: t(`option.failedAction.${a}`) }))}
+            options={options(TWOC_FAILED_ACTIONS, "failedAction")}
             {...register("failedAction", { shouldUnregister: true })}
             errors={err("failedAction")}
           />
@@ -140,13 +116,9 @@ export function TwocForm({ patientId, removedAt }: { patientId: string; removedA
         ) : null}
         <TextArea className="sm:col-span-2" label={t("field.notes")} {...register("notes")} errors={err("notes")} />
       </Section>
-      {formError ? (
-        <p role="alert" className="rounded-lg border-2 border-level-emergency bg-level-emergency-soft p-3 font-bold text-level-emergency-ink">
-          {formError}
-        </p>
-      ) : null}
-      <Button type="submit" disabled={mutation.isPending} className="w-full text-lg sm:w-auto sm:self-start" data-testid="save">
-        {mutation.isPending ? t("saving") : t("save.twoc")}
+      <ErrorAlert message={failure.message} />
+      <Button type="submit" disabled={isSubmitting} className="w-full text-lg sm:w-auto sm:self-start" data-testid="save">
+        {isSubmitting ? t("saving") : t("save.twoc")}
       </Button>
     </form>
   );

@@ -3,17 +3,15 @@ import { useMutation } from "@tanstack/react-query";
 import { useTranslations } from "next-intl";
 import { useRouter } from "@/lib/i18n/navigation";
 import { Button } from "@/components/ui/button";
+import { ErrorAlert } from "@/components/ui/notice";
+import { apiFetch } from "@/lib/browser/api-client";
 
 /** Queues the message again as a new one (POST …/resend), then reloads the list. */
 export function ResendButton({ patientId, messageId, subject }: { patientId: string; messageId: string; subject: string }) {
   const t = useTranslations("Letters");
   const router = useRouter();
   const resend = useMutation({
-    mutationFn: async () => {
-      const res = await fetch(`/api/patients/${patientId}/messages/${messageId}/resend`, { method: "POST", headers: { "content-type": "application/json" } });
-      if (!res.ok) throw new Error(String(res.status));
-      return res.json();
-    },
+    mutationFn: () => apiFetch(`/api/patients/${patientId}/messages/${messageId}/resend`, { method: "POST", body: {} }),
     onSuccess: () => router.refresh(),
   });
   return (
@@ -23,8 +21,8 @@ export function ResendButton({ patientId, messageId, subject }: { patientId: str
       </Button>
       <p aria-live="polite" className="text-sm">
         {resend.isSuccess ? <span className="font-bold text-level-selfcare-ink">{t("resent")}</span> : null}
-        {resend.isError ? <span role="alert" className="font-bold text-level-emergency-ink">{t("resendFailed")}</span> : null}
       </p>
+      {resend.isError ? <ErrorAlert message={t("resendFailed")} testId="resend-error" /> : null}
     </div>
   );
 }

@@ -6,6 +6,8 @@ import { useFormatter, useTranslations } from "next-intl";
 import { useEffect, useRef, useState, useTransition } from "react";
 import { Button, buttonClass } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
+import { ErrorAlert } from "@/components/ui/notice";
+import { apiFetch, isApiError } from "@/lib/browser/api-client";
 import type { PassportOverview } from "@/lib/shared/dto";
 import { useRouter } from "@/lib/i18n/navigation";
 import { localeNames, type Locale } from "@/lib/i18n/routing";
@@ -20,29 +22,11 @@ type Issued = {
   activation: { code: string; expiresAt: string; activateUrl: string; pdfBase64: string } | null;
 };
 
-/** Why an issue failed, as one of the panel's messages. */
-type IssueFailure = "emergencyNumber" | "hasAccount" | "other";
-
-class IssueError extends Error {
-  constructor(readonly reason: IssueFailure) {
-    super(reason);
-  }
-}
-
-async function issue(patientId: string, reissue: boolean, activationCode: boolean): Promise<Issued> {
-  const res = await fetch(`/api/patients/${patientId}/passport`, {
+function issue(patientId: string, reissue: boolean, activationCode: boolean): Promise<Issued> {
+  return apiFetch<Issued>(`/api/patients/${patientId}/passport`, {
     method: "POST",
-    headers: { "content-type": "application/json" },
-    body: JSON.stringify({ ...(reissue ? { reissue: true } : {}), ...(activationCode ? { activationCode: true } : {}) }),
+    body: { ...(reissue ? { reissue: true } : {}), ...(activationCode ? { activationCode: true } : {}) },
   });
-  if (!res.ok) {
-    const body = await res.json().catch(() => null);
-    const fields = body?.error?.fields ?? {};
-    if (fields.emergencyNumber) throw new IssueError("emergencyNumber");
-    if (fields.activationCode) throw new IssueError("hasAccount");
-    throw new IssueError("other");
-  }
-  return res.json();
 }
 
 /** The one-time booklet (with the activation code) as a download link held in memory only. */
@@ -105,7 +89,7 @@ export function PassportPanel({
   useEffect(() => () => {
     if (codePdfUrl) URL.revokeObjectURL(codePdfUrl);
   }, [codePdfUrl]);
-  const failure = mutation.error instanceof IssueError ? mutation.error.reason : "other";
+  const failedFields = isApiError(mutation.error) ? mutation.error.fields : {};
   const activationChoice = canOfferActivation ? (
     <label className="flex max-w-prose items-start gap-3">
       <input
@@ -285,9 +269,10 @@ export function PassportPanel({
           </div>
         ) : null}
         {mutation.isError ? (
-          <p role="alert" className="font-bold text-level-emergency-ink">
-            {failure === "emergencyNumber" ? t("errorEmergency") : failure === "hasAccount" ? t("errorHasAccount") : t("error")}
-          </p>
+          <ErrorAlert
+            message={failedFields.emergencyNumber ? t("errorEmergency") : failedFields.activationCode ? t("errorHasAccount") : t("error")}
+            testId="passport-error"
+          />
         ) : null}
       </Card>
 

@@ -4,22 +4,23 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useQuery } from "@tanstack/react-query";
 import { useTranslations } from "next-intl";
-import { useId, useState, type ReactNode } from "react";
-import { useForm, type FieldErrors, type Path } from "react-hook-form";
-import { useSharedErrorText } from "@/components/ui/shared-error-text";
+import { useForm } from "react-hook-form";
 import { Button } from "@/components/ui/button";
-import { Field } from "@/components/ui/field";
-import { ALLERGENS, ALLERGY_ANSWERS } from "@/lib/clinical/allergies";
+import { Checkbox, ChoiceGroup, RadioGroup } from "@/components/ui/choice";
+import { Field, SelectField } from "@/components/ui/field";
+import { ErrorAlert } from "@/components/ui/notice";
+import { Section } from "@/components/ui/section";
+import { useSubmitFailure } from "@/components/ui/use-error-text";
+import { apiFetch, setServerFieldErrors } from "@/lib/browser/api-client";
 import { useRouter } from "@/lib/i18n/navigation";
 import { localeNames } from "@/lib/i18n/routing";
+import { ALLERGENS, ALLERGY_ANSWERS } from "@/lib/clinical/allergies";
 import {
   EARLIEST_BIRTH_DATE,
-  patientErrorKeys,
   patientLocales,
   patientSchema,
   patientSexes,
   patientUpdateSchema,
-  type PatientErrorKey,
   type PatientInput,
   type PatientValues,
 } from "@/lib/validations/patient";
@@ -62,9 +63,7 @@ const formFields = [
 ] as const;
 
 async function loadGpPractices(): Promise<GpPractice[]> {
-  const res = await fetch("/api/gp-practices");
-  if (!res.ok) throw new Error(String(res.status));
-  return (await res.json()).practices;
+  return (await apiFetch<{ practices: GpPractice[] }>("/api/gp-practices")).practices;
 }
 
 function todayLocal() {
@@ -74,9 +73,7 @@ function todayLocal() {
 
 export function PatientForm(props: Props) {
   const t = useTranslations("PatientForm");
-  const tErrors = useTranslations("Errors");
   const router = useRouter();
-  const [formError, setFormError] = useState<string | null>(null);
   const editing = props.mode === "edit";
   const gp = useQuery({ queryKey: gpPracticeKeys.directory(), queryFn: loadGpPractices, initialData: props.gpPractices });
   const onlyTeam = props.mode === "create" && props.careTeamOptions.length === 1 ? [props.careTeamOptions[0].id] : [];
@@ -85,7 +82,6 @@ export function PatientForm(props: Props) {
     register,
     handleSubmit,
     setError,
-    setFocus,
     formState: { errors, isSubmitting, dirtyFields },
   } = useForm<PatientInput, unknown, PatientValues>({
     // Editing leaves the care team out; the server's schema for PATCH does the same.
@@ -94,24 +90,13 @@ export function PatientForm(props: Props) {
     mode: "onTouched",
   });
 
-  const range = useSharedErrorText();
-  const message = (key: string | undefined): string => {
-    if (!key) return t("errors.required");
-    const r = range(key);
-    if (r) return r;
-    return (patientErrorKeys as readonly string[]).includes(key) ? t(`errors.${key as PatientErrorKey}`) : t("errors.generic");
-  };
-  const errorsOf = (path: string): string[] | undefined => {
-    const e = path.split(".").reduce<unknown>((o, k) => (o as Record<string, unknown> | undefined)?.[k], errors as FieldErrors) as
-      | { message?: string }
-      | undefined;
-    return e ? [message(e.message)] : undefined;
-  };
+  const failure = useSubmitFailure("PatientForm");
+  const errorsOf = (path: string) => failure.text.at(errors, path);
 
-  const onInvalid = () => setFormError(t("fixFields"));
+  const onInvalid = () => failure.show(t("fixFields"));
 
   const onSubmit = handleSubmit(async (values) => {
-    setFormError(null);
+    failure.clear();
     let body: Record<string, unknown> = values;
     if (editing) {
       // Only what changed, so the audit event names the fields that were edited.
@@ -122,57 +107,36 @@ export function PatientForm(props: Props) {
         return;
       }
     }
-    let res: Response;
     try {
-      res = await fetch(editing ? `/api/patients/${props.patientId}` : "/api/patients", {
-        method: editing ? "PATCH" : "POST",
-        headers: { "content-type": "application/json" },
-        body: JSON.stringify(body),
-      });
-    } catch {
-      setFormError(t("networkError"));
-      return;
-    }
-    if (res.ok) {
+      const saved = await apiFetch<{ patient: { id: string } }>(editing ? `/api/patients/${props.patientId}` : "/api/patients", { method: editing ? "PATCH" : "POST", body });
       if (props.mode === "edit") {
         props.onDone();
         router.refresh();
-      } else {
-        const { patient } = await res.json();
-        router.push(`/patients/${patient.id}`);
-      }
-      return;
+      } else router.push(`/patients/${saved.patient.id}`);
+    } catch (e) {
+      setServerFieldErrors(e, setError, formFields);
+      failure.fail(e, (error) =>
+        error.fields._form
+          ? failure.text.one(error.fields._form[0])
+          : Object.keys(error.fields).length
+            ? t("fixFields")
+            : error.code === "record_closed"
+              ? failure.text.one("record_closed")
+              : error.status === 0
+              ? t("networkError")
+              : error.status === 403 || error.status === 404
+                ? t("notAllowed")
+                : t("serverError"),
+      );
     }
-    const payload = await res.json().catch(() => null);
-    const fields: Record<string, string[]> | undefined = payload?.error?.fields;
-    if (fields && Object.keys(fields).length) {
-      let focused = false;
-      for (const [field, keys] of Object.entries(fields)) {
-        if ((formFields as readonly string[]).includes(field)) {
-          setError(field as Path<PatientInput>, { type: "server", message: keys[0] });
-          if (!focused) {
-            setFocus(field as Path<PatientInput>);
-            focused = true;
-          }
-        }
-      }
-      setFormError(fields._form ? message(fields._form[0]) : t("fixFields"));
-      return;
-    }
-    if (payload?.error?.code === "record_closed") setFormError(tErrors("record_closed"));
-    else setFormError(res.status === 403 || res.status === 404 ? t("notAllowed") : t("serverError"));
   }, onInvalid);
 
   const today = todayLocal();
   return (
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-6" data-testid="patient-form">
-      {formError ? (
-        <p role="alert" className="rounded-lg border-2 border-level-emergency bg-level-emergency-soft p-3 font-bold text-level-emergency-ink">
-          {formError}
-        </p>
-      ) : null}
+      <ErrorAlert message={failure.message} />
 
-      <Section title={t("sections.person")}>
+      <Section columns={1} title={t("sections.person")}>
         <div className="grid gap-4 md:grid-cols-2">
           <Field label={t("givenName")} autoComplete="off" errors={errorsOf("givenName")} {...register("givenName")} />
           <Field label={t("familyName")} autoComplete="off" errors={errorsOf("familyName")} {...register("familyName")} />
@@ -194,14 +158,7 @@ export function PatientForm(props: Props) {
             {...register("dateOfBirth")}
           />
         </div>
-        <ChoiceGroup legend={t("sex")} errors={errorsOf("sex")}>
-          {patientSexes.map((s) => (
-            <label key={s} className="flex min-h-11 items-center gap-2">
-              <input type="radio" value={s} className="h-5 w-5 accent-brand" {...register("sex")} />
-              {t(`sexes.${s}`)}
-            </label>
-          ))}
-        </ChoiceGroup>
+        <RadioGroup legend={t("sex")} errors={errorsOf("sex")} options={patientSexes.map((s) => ({ value: s, label: t(`sexes.${s}`) }))} inputProps={register("sex")} />
         <div className="grid gap-4 md:grid-cols-2">
           <SelectField label={t("preferredLocale")} errors={errorsOf("preferredLocale")} {...register("preferredLocale")}>
             {patientLocales.map((l) => (
@@ -222,41 +179,44 @@ export function PatientForm(props: Props) {
         </div>
       </Section>
 
-      <Section title={t("sections.allergies")} hint={t("allergiesHint")}>
-        <div className="flex flex-col gap-3">
+      <Section columns={1} title={t("sections.allergies")} hint={t("allergiesHint")}>
+        {/* Each one yes, no or "not asked yet" (the starting value): never a silent "no". */}
+        <div className="flex flex-col gap-2">
           {ALLERGENS.map((a) => (
-            <ChoiceGroup key={a} legend={t(`allergy.${a}`)} errors={errorsOf(`allergies.${a}`)}>
-              {ALLERGY_ANSWERS.map((answer) => (
-                <label key={answer} className="flex min-h-11 items-center gap-2">
-                  <input type="radio" value={answer} className="h-5 w-5 accent-brand" {...register(`allergies.${a}`)} data-testid={`allergy-${a}-${answer}`} />
-                  {t(`allergyAnswer.${answer}`)}
-                </label>
-              ))}
-            </ChoiceGroup>
+            <RadioGroup
+              key={a}
+              legend={t(`allergy.${a}`)}
+              errors={errorsOf(`allergies.${a}`)}
+              options={ALLERGY_ANSWERS.map((answer) => ({ value: answer, label: t(`allergyAnswer.${answer}`) }))}
+              inputProps={register(`allergies.${a}`)}
+            />
           ))}
         </div>
         <Field label={t("allergyOther")} hint={t("allergyOtherHint")} errors={errorsOf("allergies.other")} {...register("allergies.other")} />
       </Section>
 
-      <Section title={t("sections.care")}>
-        <SelectField label={t("gpPractice")} errors={errorsOf("gpPracticeId")} {...register("gpPracticeId")}>
-          <option value="">{t("gpChoose")}</option>
-          {(gp.data ?? []).map((p) => (
-            <option key={p.id} value={p.id}>
-              {p.name}
-            </option>
-          ))}
-        </SelectField>
+      <Section columns={1} title={t("sections.care")}>
+        <SelectField
+          label={t("gpPractice")}
+          placeholder={t("gpChoose")}
+          options={(gp.data ?? []).map((p) => ({ value: p.id, label: p.name }))}
+          errors={errorsOf("gpPracticeId")}
+          {...register("gpPracticeId")}
+        />
         {props.mode === "create" ? (
           <ChoiceGroup legend={t("careTeam")} hint={t("careTeamHint")} errors={errorsOf("careTeamOrganisationIds")}>
             {props.careTeamOptions.map((o) => (
-              <label key={o.id} className="flex min-h-11 items-center gap-3">
-                <input type="checkbox" value={o.id} className="h-5 w-5 accent-brand" {...register("careTeamOrganisationIds")} />
-                <span>
-                  {o.name}
-                  {o.parentName ? <span className="text-ink-soft"> · {o.parentName}</span> : null}
-                </span>
-              </label>
+              <Checkbox
+                key={o.id}
+                value={o.id}
+                label={
+                  <>
+                    {o.name}
+                    {o.parentName ? <span className="text-ink-soft"> · {o.parentName}</span> : null}
+                  </>
+                }
+                {...register("careTeamOrganisationIds")}
+              />
             ))}
           </ChoiceGroup>
         ) : null}
@@ -273,62 +233,5 @@ export function PatientForm(props: Props) {
         ) : null}
       </div>
     </form>
-  );
-}
-
-function Section({ title, hint, children }: { title: string; hint?: string; children: ReactNode }) {
-  return (
-    <fieldset className="flex flex-col gap-4 rounded-card border border-stone-faint bg-paper-raised p-5">
-      <legend className="px-1 text-xl font-bold">{title}</legend>
-      {hint ? <p className="-mt-2 text-sm text-ink-soft">{hint}</p> : null}
-      {children}
-    </fieldset>
-  );
-}
-
-function ChoiceGroup({ legend, hint, errors, children }: { legend: string; hint?: string; errors?: string[]; children: ReactNode }) {
-  const id = useId();
-  return (
-    <fieldset className="flex flex-col gap-1" aria-describedby={errors ? `${id}-error` : undefined} aria-invalid={errors ? true : undefined}>
-      <legend className="font-bold">{legend}</legend>
-      {hint ? <p className="text-sm text-ink-soft">{hint}</p> : null}
-      <div className={`flex flex-wrap gap-x-6 ${errors ? "rounded-lg border-2 border-level-emergency px-3" : ""}`}>{children}</div>
-      {errors ? (
-        <p id={`${id}-error`} role="alert" className="text-sm font-bold text-level-emergency-ink">
-          {errors.join(" ")}
-        </p>
-      ) : null}
-    </fieldset>
-  );
-}
-
-function SelectField({
-  label,
-  errors,
-  children,
-  ...select
-}: React.SelectHTMLAttributes<HTMLSelectElement> & { label: string; errors?: string[]; ref?: React.Ref<HTMLSelectElement> }) {
-  const id = useId();
-  const invalid = Boolean(errors?.length);
-  return (
-    <div className="flex flex-col gap-1">
-      <label htmlFor={id} className="font-bold">
-        {label}
-      </label>
-      <select
-        id={id}
-        aria-invalid={invalid || undefined}
-        aria-describedby={invalid ? `${id}-error` : undefined}
-        className={`min-h-12 rounded-lg border-2 bg-paper-raised px-3 ${invalid ? "border-level-emergency" : "border-stone-line"}`}
-        {...select}
-      >
-        {children}
-      </select>
-      {invalid ? (
-        <p id={`${id}-error`} role="alert" className="text-sm font-bold text-level-emergency-ink">
-          {errors!.join(" ")}
-        </p>
-      ) : null}
-    </div>
   );
 }

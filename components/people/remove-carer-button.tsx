@@ -2,6 +2,8 @@
 import { useTranslations } from "next-intl";
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
+import { ErrorAlert } from "@/components/ui/notice";
+import { apiFetch, isApiError } from "@/lib/browser/api-client";
 import { useRouter } from "@/lib/i18n/navigation";
 
 /** Remove a carer: one tap to ask, one to confirm. It takes effect on their very next request. */
@@ -37,9 +39,16 @@ export function RemoveCarerButton({ patientId, linkId, name }: { patientId: stri
         data-testid="confirm-remove"
         onClick={async () => {
           setBusy(true);
-          const res = await fetch(`/api/patients/${patientId}/carers/${linkId}`, { method: "DELETE" });
+          try {
+            await apiFetch(`/api/patients/${patientId}/carers/${linkId}`, { method: "DELETE" });
+          } catch (e) {
+            // Already gone is what was asked for.
+            if (!isApiError(e) || e.status !== 404) {
+              setBusy(false);
+              return setError(true);
+            }
+          }
           setBusy(false);
-          if (!res.ok && res.status !== 404) return setError(true);
           setRemoved(true);
           router.refresh();
         }}
@@ -49,7 +58,7 @@ export function RemoveCarerButton({ patientId, linkId, name }: { patientId: stri
       <Button variant="secondary" onClick={() => setAsking(false)}>
         {t("no")}
       </Button>
-      {error ? <p role="alert">{t("error")}</p> : null}
+      {error ? <ErrorAlert message={t("error")} testId="remove-carer-error" /> : null}
     </div>
   );
 }

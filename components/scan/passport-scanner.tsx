@@ -5,6 +5,7 @@
 import { useLocale, useTranslations } from "next-intl";
 import { useEffect, useRef, useState } from "react";
 import { Button, buttonClass } from "@/components/ui/button";
+import { FieldError } from "@/components/ui/field";
 
 // As lib/passport's normalising (which is server-only): case, spaces and dashes ignored. The
 // server checks the alphabet itself.
@@ -126,11 +127,7 @@ export function PassportScanner() {
           className={`tabular min-h-12 rounded-lg border-2 bg-paper-raised px-3 text-xl tracking-wider text-ink ${codeError ? "border-level-emergency" : "border-stone-line"}`}
           data-testid="scan-code"
         />
-        {codeError ? (
-          <p id="scan-code-error" role="alert" className="font-bold text-level-emergency-ink">
-            {t("codeInvalid")}
-          </p>
-        ) : null}
+        <FieldError id="scan-code-error" errors={codeError ? [t("codeInvalid")] : undefined} className="text-base" />
         <button type="submit" className={buttonClass("primary", "self-start")} data-testid="scan-code-submit">
           {t("codeSubmit")}
         </button>

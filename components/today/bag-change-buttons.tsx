@@ -2,6 +2,7 @@
 import { useMutation } from "@tanstack/react-query";
 import { useTranslations } from "next-intl";
 import { useState } from "react";
+import { apiFetch } from "@/lib/browser/api-client";
 import { useRouter } from "@/lib/i18n/navigation";
 
 /** "I changed my leg bag / valve today": stores the date; the page then shows the next change. */
@@ -11,8 +12,7 @@ export function BagChangeButtons({ patientId }: { patientId: string }) {
   const [saved, setSaved] = useState<"leg-bag" | "valve" | null>(null);
   const mutation = useMutation({
     mutationFn: async (kind: "leg-bag" | "valve") => {
-      const res = await fetch("/api/bag-changes", { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ patientId, kind }) });
-      if (!res.ok) throw new Error(String(res.status));
+      await apiFetch("/api/bag-changes", { method: "POST", body: { patientId, kind } });
       return kind;
     },
     onSuccess: (kind) => {

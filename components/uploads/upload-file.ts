@@ -1,6 +1,7 @@
 // One upload, from the browser: declare it to the app, PUT the bytes straight to the store with
 // the presigned URL, then ask the app to check them. Used by the record's Documents tab and by
 // the portal's site photo, so both go through the same service and the same server checks.
+import { apiFetch, isApiError } from "@/lib/browser/api-client";
 import { MAX_UPLOAD_BYTES, type UploadCategory } from "@/lib/validations/upload";
 
 export const ACCEPTED_UPLOAD_TYPES = ["image/jpeg", "image/png", "image/webp", "image/heic", "image/heif", "application/pdf"] as const;
@@ -16,9 +17,9 @@ export function precheck(file: File, accepted: readonly string[]): UploadFailure
   return null;
 }
 
-function failureOf(status: number): UploadFailure {
-  if (status === 413) return "too-big";
-  if (status === 415) return "wrong-type";
+function failureOf(error: unknown): UploadFailure {
+  if (isApiError(error) && error.status === 413) return "too-big";
+  if (isApiError(error) && error.status === 415) return "wrong-type";
   return "failed";
 }
 
@@ -34,24 +35,17 @@ export async function uploadFile({
   label: string;
 }): Promise<UploadOutcome> {
   try {
-    const start = await fetch(`/api/patients/${patientId}/uploads`, {
+    const declared = await apiFetch<{ upload: { id: string }; uploadUrl: string; uploadHeaders: Record<string, string> }>(`/api/patients/${patientId}/uploads`, {
       method: "POST",
-      headers: { "content-type": "application/json" },
-      body: JSON.stringify({ category, label, contentType: file.type, sizeBytes: file.size }),
+      body: { category, label, contentType: file.type, sizeBytes: file.size },
     });
-    if (!start.ok) return { ok: false, reason: failureOf(start.status) };
-    const declared: { upload: { id: string }; uploadUrl: string; uploadHeaders: Record<string, string> } = await start.json();
-    // Exactly the signed headers (the declared type): a second Content-Type would break the signature.
+    // The bytes go to the object store, not to Caddis, so not through apiFetch: exactly the
+    // signed headers (the declared type); a second Content-Type would break the signature.
     const put = await fetch(declared.uploadUrl, { method: "PUT", headers: declared.uploadHeaders, body: file });
     if (!put.ok) return { ok: false, reason: "failed" };
-    const done = await fetch(`/api/patients/${patientId}/uploads/${declared.upload.id}/complete`, {
-      method: "POST",
-      headers: { "content-type": "application/json" },
-      body: "{}",
-    });
-    if (!done.ok) return { ok: false, reason: failureOf(done.status) };
+    await apiFetch(`/api/patients/${patientId}/uploads/${declared.upload.id}/complete`, { method: "POST", body: {} });
     return { ok: true, uploadId: declared.upload.id };
-  } catch {
-    return { ok: false, reason: "failed" };
+  } catch (error) {
+    return { ok: false, reason: failureOf(error) };
   }
 }

@@ -4,10 +4,12 @@
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { useFormatter, useTranslations } from "next-intl";
 import { useEffect, useRef, useState } from "react";
-import { useSharedErrorText } from "@/components/ui/shared-error-text";
+import { useErrorText } from "@/components/ui/use-error-text";
 import { Button, buttonClass } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
-import { Field } from "@/components/ui/field";
+import { Field, SelectField } from "@/components/ui/field";
+import { ErrorAlert } from "@/components/ui/notice";
+import { apiFetch, isApiError } from "@/lib/browser/api-client";
 import type { UploadDto } from "@/lib/shared/dto";
 import { uploadCategories, uploadCreateSchema, type UploadCategory } from "@/lib/validations/upload";
 import { ACCEPTED_UPLOAD_TYPES, precheck, uploadFile, type UploadFailure } from "./upload-file";
@@ -18,9 +20,7 @@ export const uploadKeys = {
 };
 
 async function fetchUploads(patientId: string): Promise<UploadDto[]> {
-  const res = await fetch(`/api/patients/${patientId}/uploads`);
-  if (!res.ok) throw new Error(`uploads ${res.status}`);
-  return (await res.json()).uploads;
+  return (await apiFetch<{ uploads: UploadDto[] }>(`/api/patients/${patientId}/uploads`)).uploads;
 }
 
 const failureKey: Record<UploadFailure, "tooLarge" | "badType" | "failed"> = {
@@ -39,7 +39,7 @@ export function UploadsPanel({ patientId, initial, canRemove, readOnly = false }
   const [label, setLabel] = useState("");
   const [file, setFile] = useState<File | null>(null);
   const [errors, setErrors] = useState<{ label?: string[]; file?: string[] }>({});
-  const sharedError = useSharedErrorText();
+  const errorText = useErrorText("Uploads");
   const [status, setStatus] = useState<string>("");
   const [confirmId, setConfirmId] = useState<string | null>(null);
   // A new key clears the file input after an upload.
@@ -68,8 +68,12 @@ export function UploadsPanel({ patientId, initial, canRemove, readOnly = false }
 
   const remove = useMutation({
     mutationFn: async (uploadId: string) => {
-      const res = await fetch(`/api/patients/${patientId}/uploads/${uploadId}`, { method: "DELETE" });
-      if (!res.ok && res.status !== 404) throw new Error(`remove ${res.status}`);
+      try {
+        await apiFetch(`/api/patients/${patientId}/uploads/${uploadId}`, { method: "DELETE" });
+      } catch (error) {
+        // Already gone is what was asked for.
+        if (!isApiError(error) || error.status !== 404) throw error;
+      }
     },
     onSuccess: () => {
       setConfirmId(null);
@@ -85,7 +89,7 @@ export function UploadsPanel({ patientId, initial, canRemove, readOnly = false }
     const next: typeof errors = {};
     const labelCheck = uploadCreateSchema.shape.label.safeParse(label);
     if (!label.trim()) next.label = [t("labelRequired")];
-    else if (!labelCheck.success) next.label = [sharedError(labelCheck.error.issues[0].message) ?? t("labelRequired")];
+    else if (!labelCheck.success) next.label = [errorText.one(labelCheck.error.issues[0].message)];
     if (!file) next.file = [t("chooseFile")];
     else {
       const problem = precheck(file, ACCEPTED_UPLOAD_TYPES);
@@ -117,23 +121,12 @@ export function UploadsPanel({ patientId, initial, canRemove, readOnly = false }
           <h3 id="uploads-add" className="text-xl font-bold">
             {t("add")}
           </h3>
-          <div className="flex flex-col gap-1">
-            <label htmlFor="upload-category" className="font-bold">
-              {t("category")}
-            </label>
-            <select
-              id="upload-category"
-              value={category}
-              onChange={(e) => setCategory(e.target.value as UploadCategory)}
-              className="min-h-12 rounded-lg border-2 border-stone-line bg-paper-raised px-3 text-ink"
-            >
-              {uploadCategories.map((c) => (
-                <option key={c} value={c}>
-                  {t(`categories.${c}`)}
-                </option>
-              ))}
-            </select>
-          </div>
+          <SelectField
+            label={t("category")}
+            value={category}
+            onChange={(e) => setCategory(e.target.value as UploadCategory)}
+            options={uploadCategories.map((c) => ({ value: c, label: t(`categories.${c}`) }))}
+          />
           <Field
             label={t("label")}
             hint={t("labelHint")}
@@ -239,11 +232,7 @@ export function UploadsPanel({ patientId, initial, canRemove, readOnly = false }
             </li>
           ))}
         </ul>
-        {remove.isError ? (
-          <p role="alert" className="font-bold text-level-emergency-ink">
-            {t("removeFailed")}
-          </p>
-        ) : null}
+        {remove.isError ? <ErrorAlert message={t("removeFailed")} testId="upload-remove-error" /> : null}
       </section>
 
       {notKept.length ? (

@@ -3,11 +3,14 @@
 // (lib/clinical, the same rule the server applies again when saving).
 import { useTranslations } from "next-intl";
 import { useState } from "react";
-import { get, useForm, type FieldPath } from "react-hook-form";
-import { useSharedErrorText } from "@/components/ui/shared-error-text";
-import { isApiError, useRecord } from "@/components/episode-form/use-record";
-import { Checkbox, RadioGroup, Section, TextArea, TextInput } from "@/components/episode-form/controls";
+import { useForm, type FieldPath } from "react-hook-form";
 import { Button } from "@/components/ui/button";
+import { Checkbox, RadioGroup } from "@/components/ui/choice";
+import { Field, TextArea } from "@/components/ui/field";
+import { ErrorAlert } from "@/components/ui/notice";
+import { Section } from "@/components/ui/section";
+import { useSubmitFailure } from "@/components/ui/use-error-text";
+import { apiFetch } from "@/lib/browser/api-client";
 import { scoreNews2 } from "@/lib/clinical";
 import { Link } from "@/lib/i18n/navigation";
 import { CONSCIOUSNESS, observationsSchema, visitSchema } from "@/lib/validations/visit";
@@ -32,8 +35,6 @@ type Values = {
 
 type Saved = { eventId: string; observation: { news2: News2View } | null; alerted: number };
 
-const ERROR_KEYS = ["number", "whole_number", "out_of_range", "one_decimal", "required", "choose_one", "too_long", "date_time", "in_future"] as const;
-
 function payload(v: Values) {
   return {
     occurredAt: fromLocalInputValue(v.occurredAt),
@@ -55,9 +56,7 @@ function liveScore(o: Values["observations"]): News2View | null {
 
 export function VisitForm({ patientId }: { patientId: string }) {
   const t = useTranslations("VisitForm");
-  const [formError, setFormError] = useState<string | null>(null);
   const [saved, setSaved] = useState<Saved | null>(null);
-  const mutation = useRecord<Saved>(`/api/patients/${patientId}/visits`);
   const { register, handleSubmit, setError, clearErrors, watch, formState } = useForm<Values>({
     defaultValues: {
       occurredAt: toLocalInputValue(new Date().toISOString()),
@@ -66,20 +65,15 @@ export function VisitForm({ patientId }: { patientId: string }) {
       observations: { respirationRate: "", spo2: "", spo2Scale: "1", onOxygen: "false", systolicBp: "", pulse: "", consciousness: "A", temperatureC: "" },
     },
   });
+  const failure = useSubmitFailure("VisitForm", setError);
   const withObs = watch("withObservations");
   const obs = watch("observations");
   // Recomputed on every render: watch() may hand back the same object as values change.
   const score = withObs ? liveScore(obs) : null;
-  const range = useSharedErrorText();
-  const err = (name: FieldPath<Values>) => {
-    const e = get(formState.errors, name) as { message?: string } | undefined;
-    if (!e) return undefined;
-    const key = e.message as (typeof ERROR_KEYS)[number];
-    return [range(key) ?? ((ERROR_KEYS as readonly string[]).includes(key) ? t(`errors.${key}`) : t("errors.out_of_range"))];
-  };
+  const err = (name: FieldPath<Values>) => failure.text.at(formState.errors, name);
 
   const onSubmit = handleSubmit(async (values) => {
-    setFormError(null);
+    failure.clear();
     clearErrors();
     const body = payload(values);
     const check = visitSchema.safeParse(body);
@@ -88,11 +82,9 @@ export function VisitForm({ patientId }: { patientId: string }) {
       return;
     }
     try {
-      setSaved(await mutation.mutateAsync(body));
+      setSaved(await apiFetch<Saved>(`/api/patients/${patientId}/visits`, { method: "POST", body }));
     } catch (e) {
-      if (!isApiError(e)) return setFormError(t("failed"));
-      for (const [field, messages] of Object.entries(e.fields)) setError(field as FieldPath<Values>, { type: "server", message: messages[0] });
-      setFormError(e.code === "conflict" ? t("noEpisode") : t("failed"));
+      failure.fail(e, (error) => (error.code === "conflict" ? t("noEpisode") : error.code === "validation_failed" ? null : t("failed")));
     }
   });
 
@@ -116,7 +108,7 @@ export function VisitForm({ patientId }: { patientId: string }) {
   }
 
   const num = (name: keyof Values["observations"], label: string, unit: string, decimal = false) => (
-    <TextInput
+    <Field
       label={label}
       unit={unit}
       inputMode={decimal ? "decimal" : "numeric"}
@@ -130,7 +122,7 @@ export function VisitForm({ patientId }: { patientId: string }) {
     <form onSubmit={onSubmit} noValidate className="flex max-w-3xl flex-col gap-6" data-testid="visit-form">
       <Section title={t("title")}>
         <p className="sm:col-span-2">{t("intro")}</p>
-        <TextInput label={t("occurredAt")} type="datetime-local" max={toLocalInputValue(new Date().toISOString())} {...register("occurredAt")} errors={err("occurredAt")} />
+        <Field label={t("occurredAt")} type="datetime-local" max={toLocalInputValue(new Date().toISOString())} {...register("occurredAt")} errors={err("occurredAt")} />
         <TextArea className="sm:col-span-2" label={t("notes")} hint={t("notesHint")} {...register("notes")} errors={err("notes")} data-testid="visit-notes" />
         <Checkbox className="sm:col-span-2" label={t("withObservations")} {...register("withObservations")} data-testid="with-observations" />
       </Section>
@@ -172,13 +164,9 @@ export function VisitForm({ patientId }: { patientId: string }) {
           </div>
         </Section>
       ) : null}
-      {formError ? (
-        <p role="alert" className="rounded-lg border-2 border-level-emergency bg-level-emergency-soft p-3 font-bold text-level-emergency-ink">
-          {formError}
-        </p>
-      ) : null}
-      <Button type="submit" disabled={mutation.isPending} className="w-full text-lg sm:w-auto sm:self-start" data-testid="visit-save">
-        {mutation.isPending ? t("saving") : t("save")}
+      <ErrorAlert message={failure.message} />
+      <Button type="submit" disabled={formState.isSubmitting} className="w-full text-lg sm:w-auto sm:self-start" data-testid="visit-save">
+        {formState.isSubmitting ? t("saving") : t("save")}
       </Button>
     </form>
   );

@@ -1,3 +1,4 @@
+import "server-only";
 import { betterAuth } from "better-auth";
 import { drizzleAdapter } from "better-auth/adapters/drizzle";
 import { APIError, createAuthMiddleware, getSessionFromCtx } from "better-auth/api";
@@ -9,7 +10,7 @@ import { twoFactorRequiredFor } from "@/db/queries/access";
 import { account, rateLimit, session, twoFactor, user, verification } from "@/db/schema";
 import { sendPasswordReset } from "@/lib/admin/mail";
 import { audit } from "@/lib/records/audit";
-import { hashPassword, PASSWORD_MIN_LENGTH, passwordProblem, verifyPassword } from "@/lib/auth/password";
+import { hashPassword, PASSWORD_MAX_LENGTH, PASSWORD_MIN_LENGTH, passwordProblem, verifyPassword } from "@/lib/auth/password";
 import { authSecret, env } from "@/lib/config/env";
 
 const trustedProxies = (process.env.TRUSTED_PROXIES ?? "").split(",").map((s) => s.trim()).filter(Boolean);
@@ -34,7 +35,7 @@ export const auth = betterAuth({
     // Accounts are made by admins, by clinicians (patients) and by invitation (carers).
     disableSignUp: true,
     minPasswordLength: PASSWORD_MIN_LENGTH,
-    maxPasswordLength: 256,
+    maxPasswordLength: PASSWORD_MAX_LENGTH,
     password: { hash: hashPassword, verify: verifyPassword },
     resetPasswordTokenExpiresIn: RESET_LINK_SECONDS,
     // A reset ends every session, so whoever knew the old password is signed out.
@@ -98,7 +99,7 @@ export const auth = betterAuth({
     before: createAuthMiddleware(async (ctx) => {
       if (ctx.path === "/reset-password" || ctx.path === "/change-password") {
         const problem = passwordProblem(String(ctx.body?.newPassword ?? ""));
-        if (problem) throw new APIError("BAD_REQUEST", { message: passwordMessages[problem], code: `PASSWORD_${problem.toUpperCase()}` });
+        if (problem) throw new APIError("BAD_REQUEST", { message: passwordMessages[problem], code: problem.toUpperCase() });
       }
       if (ctx.path === "/two-factor/disable") {
         const current = await getSessionFromCtx(ctx);
@@ -128,8 +129,9 @@ export const auth = betterAuth({
 });
 
 const passwordMessages = {
-  too_short: `Use at least ${PASSWORD_MIN_LENGTH} characters.`,
-  too_common: "This password is too common. Choose another.",
+  password_too_short: `Use at least ${PASSWORD_MIN_LENGTH} characters.`,
+  password_too_long: `Use at most ${PASSWORD_MAX_LENGTH} characters.`,
+  password_too_common: "This password is too common. Choose another.",
 } as const;
 
 const accountActions: Record<string, string> = {

@@ -1,5 +1,6 @@
-// Password rules shared by the server and the client forms (no Node.js imports here).
-// A short list of the passwords most often tried (ASVS 6.2.4); checked case-insensitively.
+// The one set of password rules, for the server and every form that sets a password (browser-safe:
+// no Node.js imports). A short list of the passwords most often tried (ASVS 6.2.4), checked
+// case-insensitively.
 const COMMON = new Set([
   "password", "password1", "password123", "123456789012", "qwertyuiop12", "iloveyou1234",
   "letmein12345", "welcome12345", "changeme1234", "administrator", "passwordpassword",
@@ -7,9 +8,14 @@ const COMMON = new Set([
 ]);
 
 export const PASSWORD_MIN_LENGTH = 12;
+export const PASSWORD_MAX_LENGTH = 256;
 
-export function passwordProblem(password: string): "too_short" | "too_common" | null {
-  if (password.length < PASSWORD_MIN_LENGTH) return "too_short";
-  if (COMMON.has(password.toLowerCase())) return "too_common";
+export type PasswordProblem = "password_too_short" | "password_too_long" | "password_too_common";
+
+/** The problem with a new password, as the error code every form and route uses, or null. */
+export function passwordProblem(password: string): PasswordProblem | null {
+  if (password.length < PASSWORD_MIN_LENGTH) return "password_too_short";
+  if (password.length > PASSWORD_MAX_LENGTH) return "password_too_long";
+  if (COMMON.has(password.toLowerCase())) return "password_too_common";
   return null;
 }

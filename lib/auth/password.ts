@@ -1,3 +1,4 @@
+import "server-only";
 // Password hashing with scrypt at OWASP's current floor (N=2^17, r=8, p=1), stronger than
 // better-auth's default. Stored as scrypt$N$r$p$salt$hash (base64url).
 import { randomBytes, scrypt as scryptCb, timingSafeEqual, type ScryptOptions } from "node:crypto";
@@ -30,4 +31,4 @@ export async function verifyPassword({ hash, password }: { hash: string; passwor
 }
 
 // The rules live apart so client forms can check them without loading node:crypto.
-export { PASSWORD_MIN_LENGTH, passwordProblem } from "./password-rules";
+export { PASSWORD_MAX_LENGTH, PASSWORD_MIN_LENGTH, passwordProblem } from "./password-rules";

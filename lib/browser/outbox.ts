@@ -6,6 +6,8 @@
 // clears localStorage with the rest.
 
 /** Fired on window whenever an outbox changes or an item was sent or refused. */
+import { apiFetch, isApiError } from "@/lib/browser/api-client";
+
 export const OUTBOX_EVENT = "caddis:outbox";
 export type OutboxEventDetail = { queue: string; key: string; ok: boolean; status: number; body?: unknown } | { queue: string; changed: true };
 
@@ -75,22 +77,16 @@ export function createOutbox<T>({
       flushing ??= (async () => {
         try {
           for (const item of read()) {
-            let status = 0;
+            let status = 200;
             let body: unknown;
             try {
-              const res = await fetch(url, {
-                method: "POST",
-                headers: { "content-type": "application/json" },
-                credentials: "same-origin",
-                body: JSON.stringify(item),
-              });
-              status = res.status;
-              body = await res.json().catch(() => null);
-            } catch {
-              break; // offline: stop, try again later
+              body = await apiFetch(url, { method: "POST", body: item });
+            } catch (error) {
+              if (!isApiError(error) || error.status === 0) break; // offline: stop, try again later
+              status = error.status;
             }
             const key = keyOf(item);
-            if (status === 200 || status === 201 || FINAL_REFUSALS.has(status)) {
+            if (status === 200 || FINAL_REFUSALS.has(status)) {
               remove(key);
               window.dispatchEvent(
                 new CustomEvent<OutboxEventDetail>(OUTBOX_EVENT, { detail: { queue: name, key, ok: status < 300, status, body } }),

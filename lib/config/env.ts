@@ -1,3 +1,4 @@
+import "server-only";
 import { z } from "zod";
 
 // Every setting Caddis reads from the environment, validated once. Defaults are the loopback

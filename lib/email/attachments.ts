@@ -1,3 +1,4 @@
+import "server-only";
 // Attachments are stored as descriptors ({ kind, filename, params }) and rendered when the
 // message is sent, so the outbox stays small. Add a kind here to attach something new.
 import type { AttachmentDescriptor } from "@/db/schema";

@@ -1,3 +1,4 @@
+import "server-only";
 // Translating e-mails outside a React request (the worker, route handlers' transactions) with
 // next-intl's createTranslator. Staff and GP e-mails use the organisation's locale, patient
 // e-mails the patient's preferred locale; anything else falls back to English.

@@ -1,3 +1,4 @@
+import "server-only";
 import { createHash } from "node:crypto";
 import { env } from "@/lib/config/env";
 

@@ -1,3 +1,4 @@
+import "server-only";
 // One content model, two renderings: the HTML part (escaped by lib/email/html.ts) and the plain
 // text part, so both always say the same thing.
 import { directionOf } from "@/lib/i18n/routing";

@@ -1,3 +1,4 @@
+import "server-only";
 // A patient's record as a FHIR R4 Bundle (type "collection"): Patient, one Device and one
 // DeviceUseStatement per catheter, and one Observation per NEWS2 score. Pure: the caller loads
 // the rows and checks access. References are urn:uuid full URLs inside the Bundle.

@@ -1,3 +1,4 @@
+import "server-only";
 // The client address, from one trusted source for every limiter and audit event (ASVS 15.3.4).
 // Behind a load balancer that overwrites CLIENT_IP_HEADER, its value is the client; on loopback
 // alone there is no header and the connection is local.

@@ -1,3 +1,4 @@
+import "server-only";
 // CSV for spreadsheets: RFC 4180 quoting, and cells a spreadsheet would run as a formula
 // (starting with = + - @, or a tab or carriage return) prefixed with ' (OWASP CSV injection).
 const FORMULA_START = /^[=+\-@\t\r]/;

@@ -1,3 +1,4 @@
+import "server-only";
 // One error shape for every API answer:
 //   { "error": { "code": "validation_failed", "message": "…", "fields": { "name": ["…"] } } }
 // Codes double as message keys (Errors.<code>) for translated text on screens.

@@ -1,3 +1,4 @@
+import "server-only";
 // The passport card (/p/… and /<locale>/p/…): never cached, never indexed, never sent on as a
 // referrer. Used by proxy.ts on every response for these paths, the locale redirect included.
 const passportPaths = /^\/((en|es|pl|ro|ar|ur)\/)?p(\/|$)/;

@@ -1,3 +1,4 @@
+import "server-only";
 // The one zod helper for route handlers and server actions: parse or throw a 400 with every
 // field error (not only the first).
 import type { z } from "zod";

@@ -5,15 +5,15 @@
 export const clientNamespaces = {
   /** Every page: the root error boundary. */
   root: ["Errors"],
-  auth: ["AcceptInvite", "Activate", "CarerInvite", "Common", "PasswordReset", "SignIn", "SignOut", "TwoFactor"],
+  auth: ["AcceptInvite", "Activate", "CarerInvite", "Common", "Password", "PasswordReset", "SignIn", "SignOut", "TwoFactor"],
   portal: ["CheckIn", "Common", "Diary", "More", "MyCatheter", "People", "Portal", "Today", "Uploads"],
   staff: [
     "Account", "Admin", "AdminOrganisations", "AdminPatients", "AdminSettings", "AdminStaff", "Caseload", "CaseloadState",
-    "Common", "EpisodeForm", "Letters", "LevelBadge", "Passport", "PatientDevice", "PatientForm", "PatientRecord", "Scan",
-    "Supplies", "TwoFactor", "Uploads", "VisitForm",
+    "Common", "EpisodeForm", "Letters", "LevelBadge", "Passport", "Password", "PatientDevice", "PatientForm", "PatientRecord",
+    "PortalInvite", "Scan", "Supplies", "TwoFactor", "Uploads", "VisitForm",
   ],
   /** The public device card and short-code pages, and the clinician's visit sign-in. */
-  card: ["SignIn", "VisitAccess"],
+  card: ["Password", "SignIn", "VisitAccess"],
 } as const satisfies Record<string, readonly string[]>;
 
 export type ClientScope = keyof typeof clientNamespaces;

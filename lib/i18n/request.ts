@@ -1,3 +1,4 @@
+import "server-only";
 import { hasLocale } from "next-intl";
 import { getRequestConfig } from "next-intl/server";
 import { routing } from "./routing";

@@ -1,3 +1,4 @@
+import "server-only";
 // pg-boss (jobs in PostgreSQL): the schedules. The care teams' weekly digest, the patients'
 // daily change reminders and the daily retention of closed records run from cron schedules, and
 // a once-a-minute sweep of the outbox backs up the workers' own LISTEN and poll.

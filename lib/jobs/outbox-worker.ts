@@ -1,3 +1,4 @@
+import "server-only";
 // Delivers the e-mail outbox. Any number of workers may run at once, in app servers and in
 // scripts/worker.ts: each claims one due row at a time (FOR UPDATE SKIP LOCKED) with a lease,
 // sends it, and marks it sent, or queued again after an exponential back-off, or failed after

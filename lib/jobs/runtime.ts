@@ -1,3 +1,4 @@
+import "server-only";
 // The background work of one process: the outbox worker and the pg-boss schedules. Started by
 // instrumentation.ts in every Next.js server (CADDIS_BACKGROUND=off to leave it out) and by
 // scripts/worker.ts to scale out; many at once are safe (see docs/email.md).

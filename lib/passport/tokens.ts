@@ -1,3 +1,4 @@
+import "server-only";
 // Passport secrets. The QR token is 32 bytes from the operating system's CSPRNG (256 bits,
 // ASVS 11.5.1 asks for ≥ 128); the short code is for a visiting clinician to type, drawn like
 // the portal's activation codes (lib/secret-codes). Only hashes of either are ever stored:

@@ -1,3 +1,4 @@
+import "server-only";
 // QR codes for the passport: SVG markup for pages, a PNG data URL for the PDF booklet.
 // Error correction M (15 %) survives a folded or slightly worn paper card.
 import QRCode from "qrcode";

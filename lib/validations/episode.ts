@@ -212,31 +212,3 @@ export const twocSchema = z
   }, always);
 export type TwocInput = z.infer<typeof twocSchema>;
 
-/** Every message key the schemas above can produce (the form translates each). */
-export const EPISODE_ERROR_KEYS = [
-  "number",
-  "whole_number",
-  "out_of_range",
-  "text",
-  "too_long",
-  "too_short",
-  "required",
-  "choose_one",
-  "date",
-  "date_time",
-  "in_future",
-  "too_early",
-  "gtin",
-  "gel_volume_required",
-  "duplicate",
-  "unplanned_reason_required",
-  "planned_no_reason",
-  "notes_required",
-  "failed_action_required",
-  "passed_no_action",
-  "too_many",
-  "override_required",
-  "before_insertion",
-  "before_removal",
-] as const;
-export type EpisodeErrorKey = (typeof EPISODE_ERROR_KEYS)[number];

@@ -1,21 +1,17 @@
 import { z } from "zod";
-import { multiLine, singleLine } from "./text";
+import { newPasswordSchema } from "./password";
+import { singleLine } from "./text";
 
-// Kept equal to PASSWORD_MIN_LENGTH in lib/auth/password.ts (a unit test checks); that module
-// uses node:crypto and cannot be bundled into the browser forms that share these schemas.
-export const NEW_PASSWORD_MIN = 12;
-
-const email = z.email().max(254).transform((v) => v.trim().toLowerCase());
-const newPassword = z.string().min(NEW_PASSWORD_MIN).max(256);
+const email = z.email({ message: "email_invalid" }).max(254, { message: "email_invalid" }).transform((v) => v.trim().toLowerCase());
 
 export const patientInviteSchema = z.strictObject({
   email: z.union([email, z.literal("").transform(() => undefined)]).optional(),
 });
 
 export const activateSchema = z.strictObject({
-  code: z.string().trim().min(8).max(40),
+  code: z.string().trim().min(8, { message: "code_invalid" }).max(40, { message: "code_invalid" }),
   email,
-  password: newPassword,
+  password: newPasswordSchema,
 });
 export type ActivateInput = z.input<typeof activateSchema>;
 
@@ -25,6 +21,13 @@ export const acceptCarerInviteSchema = z.strictObject({
   token: z.string().min(20).max(200),
   // For a new carer account.
   name: singleLine(z.string().trim().min(1).max(120)).optional(),
-  // For a new account (a new password) or an existing one (its password).
+  // For a new account (a new password, checked against the rules by the service) or an existing one (its password).
   password: z.string().min(1).max(256).optional(),
 });
+
+/** What the carer's invitation page asks for: nothing when signed in as the carer, the password of their account, or a new account. */
+export const carerInviteFormSchemas = {
+  accept: z.object({}),
+  "sign-in": z.object({ password: z.string().min(1, { message: "password_required" }).max(256) }),
+  create: z.object({ name: singleLine(z.string().trim().min(1, { message: "name_required" }).max(120, { message: "invalid" })), password: newPasswordSchema }),
+} as const;

@@ -1,7 +1,7 @@
 import { z } from "zod";
 import { multiLine, singleLine } from "./text";
 import type { StaffRole } from "@/db/schema/app";
-import { PASSWORD_MIN_LENGTH, passwordProblem } from "@/lib/auth/password-rules";
+import { newPasswordSchema, withConfirmation } from "./password";
 
 export const staffRoles = ["admin", "clinician"] as const satisfies readonly StaffRole[];
 
@@ -35,14 +35,6 @@ export const updateStaffSchema = z
   .strict();
 export type UpdateStaffInput = z.infer<typeof updateStaffSchema>;
 
-export const newPasswordSchema = z
-  .string()
-  .max(256, { message: "password_too_long" })
-  .superRefine((p, ctx) => {
-    const problem = passwordProblem(p);
-    if (problem) ctx.addIssue({ code: "custom", message: `password_${problem}` });
-  });
-
 export const acceptInviteSchema = z.object({
   token: z.string().min(20).max(200),
   name: singleLine(z.string().trim().min(2, { message: "name_length" }).max(120, { message: "name_length" })),
@@ -50,27 +42,16 @@ export const acceptInviteSchema = z.object({
 });
 export type AcceptInviteInput = z.infer<typeof acceptInviteSchema>;
 
-export { PASSWORD_MIN_LENGTH };
-
-/** Client forms that set a password ask for it twice. */
-const matches = (v: { newPassword: string; confirmPassword: string }) => v.newPassword === v.confirmPassword;
-const mismatch = { message: "password_mismatch", path: ["confirmPassword"] };
-
-export const changePasswordSchema = z
-  .object({ currentPassword: z.string().min(1, { message: "current_required" }).max(256), newPassword: newPasswordSchema, confirmPassword: z.string() })
-  .refine(matches, mismatch);
+export const changePasswordSchema = withConfirmation(
+  { currentPassword: z.string().min(1, { message: "current_required" }).max(256), newPassword: newPasswordSchema },
+  "newPassword",
+);
 export type ChangePasswordInput = z.infer<typeof changePasswordSchema>;
 
-export const resetPasswordSchema = z.object({ newPassword: newPasswordSchema, confirmPassword: z.string() }).refine(matches, mismatch);
+export const resetPasswordSchema = withConfirmation({ newPassword: newPasswordSchema }, "newPassword");
 export type ResetPasswordInput = z.infer<typeof resetPasswordSchema>;
 
-export const acceptInviteFormSchema = z
-  .object({
-    name: acceptInviteSchema.shape.name,
-    password: newPasswordSchema,
-    confirmPassword: z.string(),
-  })
-  .refine((v) => v.password === v.confirmPassword, { message: "password_mismatch", path: ["confirmPassword"] });
+export const acceptInviteFormSchema = withConfirmation({ name: acceptInviteSchema.shape.name, password: newPasswordSchema }, "password");
 export type AcceptInviteFormInput = z.infer<typeof acceptInviteFormSchema>;
 
 export const totpCodeSchema = z.object({ code: z.string().trim().regex(/^\d{6}$/, { message: "code_format" }) });

@@ -9,9 +9,6 @@ export const supplyItems = ["catheter", "leg-bag", "night-bag", "valve", "gel"] 
 export const supplyPeriodChoices = [7, 14, 28, 56, 84] as const;
 export const DEFAULT_SUPPLY_PERIOD = 28;
 
-export const supplyErrorKeys = ["period", "quantity", "duplicate", "nothing", "note", "itemsChanged"] as const;
-export type SupplyErrorKey = (typeof supplyErrorKeys)[number];
-
 export const supplyRequestSchema = z
   .object({
     periodDays: z.preprocess(toNumber, numberIn({ min: 1, max: 366, unit: "days", whole: true, missing: "period" })),

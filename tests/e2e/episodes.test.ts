@@ -7,7 +7,8 @@ import AxeBuilder from "@axe-core/playwright";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db, pool } from "@/db";
-import { careTeam, catheterEpisodes, episodeEvents, organisations, patients } from "@/db/schema";
+import { careTeam, catheterEpisodes, episodeEvents, organisations, patients, settings } from "@/db/schema";
+import { dayIn, deploymentTimeZone } from "@/lib/shared/time-zone";
 import { demoCatheterRow } from "../support/fixtures";
 import { demo } from "../support/http";
 import { launch, newPage, screenshot, signInAs } from "./support/browser";
@@ -178,6 +179,63 @@ describe("recording an insertion in Chromium", () => {
     expect(await page.getByTestId("field-gtin").inputValue()).toBe("");
     expect(await page.getByTestId("field-lot").inputValue()).toBe("AB12");
     await page.context().close();
+  });
+});
+
+describe("the change form's planned change follows the new catheter", () => {
+  it("the maker's maximum dwell follows the new material (from the deployment's defaults) until the nurse types one", async () => {
+    // The catheter in place: all-silicone with the maker's 84 days.
+    const patientId = await makePatientWithCatheter();
+    const page = await nurse();
+    await page.goto(`/en/patients/${patientId}/record/change`);
+    const dwell = page.getByTestId("field-max-dwell");
+    const material = page.locator('select[name="material"]');
+    await expect.poll(() => dwell.inputValue()).toBe("84");
+
+    // A different material: its default, not the previous catheter's figure. Values are the
+    // material defaults of lib/clinical MATERIAL_SPECS (common practice, no source).
+    await material.selectOption("ptfe-coated-latex");
+    await expect.poll(() => dwell.inputValue()).toBe("28");
+    await expect.poll(() => page.getByTestId("plan-preview").textContent()).toContain("after 28 days");
+    expect(await page.getByTestId("plan-preview").textContent()).toContain("default for the material");
+    await material.selectOption("latex");
+    await expect.poll(() => dwell.inputValue()).toBe("7");
+    await screenshot(page, "episode-change-dwell-follows-material-en");
+
+    // A figure the nurse types for this catheter stays, whatever the material.
+    await dwell.fill("21");
+    await material.selectOption("ptfe-coated-latex");
+    await page.waitForTimeout(200);
+    expect(await dwell.inputValue()).toBe("21");
+    expect(await page.getByTestId("plan-preview").textContent()).toContain("after 21 days");
+
+    // Saved as the nurse left it: the new catheter's figure and the change date it gives.
+    await page.locator(`input[name="changeKind"][value="planned"]`).check();
+    await page.getByTestId("save").click();
+    await page.waitForURL((u) => u.pathname === `/en/patients/${patientId}`, { timeout: 30_000 });
+    const [now] = await db
+      .select()
+      .from(catheterEpisodes)
+      .where(and(eq(catheterEpisodes.patientId, patientId), isNull(catheterEpisodes.removedAt)));
+    expect(now).toMatchObject({ material: "ptfe-coated-latex", maxDwellDays: 21 });
+    const insertedOn = dayIn(now.insertedAt, deploymentTimeZone());
+    expect((Date.parse(now.plannedChangeOn) - Date.parse(insertedOn)) / 86_400_000).toBe(21);
+    await page.context().close();
+  });
+
+  it("takes the default from the admin's settings when one is set for the material", async () => {
+    const patientId = await makePatientWithCatheter();
+    await db.insert(settings).values({ key: "defaultMaxDwellDays", value: { "ptfe-coated-latex": 21 } }).onConflictDoUpdate({ target: settings.key, set: { value: { "ptfe-coated-latex": 21 } } });
+    try {
+      const page = await nurse();
+      await page.goto(`/en/patients/${patientId}/record/change`);
+      await page.locator('select[name="material"]').selectOption("ptfe-coated-latex");
+      await expect.poll(() => page.getByTestId("field-max-dwell").inputValue()).toBe("21");
+      expect(await page.locator("form").textContent()).toContain("21 days");
+      await page.context().close();
+    } finally {
+      await db.delete(settings).where(eq(settings.key, "defaultMaxDwellDays"));
+    }
   });
 });
 

@@ -22,10 +22,13 @@ describe("getting in", () => {
     const nurse = await phonePage(browser);
     await signInAs(nurse, demo.communityNurse.email, demo.communityNurse.password);
     const rosa = await patientIdByHrn("EM-100-005");
-    const res = await nurse.request.post(`/api/patients/${rosa}/invite`, { data: {}, headers: { origin: new URL(nurse.url()).origin } });
-    expect(res.status()).toBe(201);
-    const { code, activateUrl } = await res.json();
-    expect(activateUrl).toMatch(/\/es\/activate$/);
+    // On the record's Passport tab, without printing a new booklet.
+    await nurse.goto(`/en/patients/${rosa}/passport`);
+    await nurse.getByTestId("make-activation-code").click();
+    const code = (await nurse.getByTestId("activation-code").textContent())!.trim();
+    expect(code).toMatch(/^[0-9A-Z]{4}-[0-9A-Z]{4}-[0-9A-Z]{4}$/);
+    expect(await nurse.getByTestId("portal-invite").textContent()).toMatch(/\/es\/activate/);
+    await screenshot(nurse, "staff-portal-invite-code-en-phone");
     await nurse.context().close();
 
     const page = await phonePage(browser);
@@ -49,10 +52,9 @@ describe("getting in", () => {
     await page.locator('input[type="email"]').fill("someone@eastmere.example");
     await page.locator('input[type="password"]').fill("river-lantern-quiet-morning");
     await page.locator('button[type="submit"]').click();
-    // (Next.js's empty route announcer is also role="alert": look for the one with words.)
-    const alert = page.locator('[role="alert"]').filter({ hasText: /\S/ }).first();
-    await alert.waitFor();
-    expect(await alert.textContent()).toMatch(/هذا الرمز لا يعمل/);
+    // The code's own message, beside the box, under the form's summary.
+    await page.locator('[role="alert"]').filter({ hasText: /هذا الرمز لا يعمل/ }).waitFor();
+    expect(await page.getByTestId("form-error").textContent()).toMatch(/\S/);
     await screenshot(page, "portal-activate-ar");
     await page.context().close();
   });

@@ -374,7 +374,7 @@ describe("patient activation", () => {
     const weak = await act({ code, email, password: "short" });
     expect(weak.status).toBe(400);
     const common = await act({ code, email, password: "passwordpassword" });
-    expect((await common.json()).error.fields.password).toEqual(["too_common"]);
+    expect((await common.json()).error.fields.password).toEqual(["password_too_common"]);
     const otherEmail = await act({ code, email: "someone.else@eastmere.example", password: "a-long-new-password" });
     expect((await otherEmail.json()).error.fields.code).toEqual(["invalid"]);
     expect((await db.select({ n: count() }).from(user))[0].n).toBe(before);

@@ -145,14 +145,6 @@ describe("level marks are not colour alone and stand out (WCAG 1.4.11)", () => {
   });
 });
 
-describe("shared schemas", () => {
-  it("the browser's password minimum equals the server's", async () => {
-    const { NEW_PASSWORD_MIN } = await import("@/lib/validations/invitations");
-    const { PASSWORD_MIN_LENGTH } = await import("@/lib/auth/password");
-    expect(NEW_PASSWORD_MIN).toBe(PASSWORD_MIN_LENGTH);
-  });
-});
-
 describe("catheter out, and answers kept when going back", () => {
   it("after 'it came out' drainage is not asked, and the advice never talks about the tube or the bag", () => {
     const questions = questionsFor("urethral");

@@ -1,7 +1,6 @@
-import { existsSync, readFileSync, statSync } from "node:fs";
-import { dirname, join, relative, resolve } from "node:path";
+import { join, relative } from "node:path";
 import { describe, expect, it } from "vitest";
-import { sourceFiles } from "../support/source-files";
+import { repoRoot, runtimeImports, sourceFiles, sourceText } from "../support/source-files";
 import en from "@/messages/en.json";
 import { clientNamespaces, type ClientScope } from "@/lib/i18n/client-namespaces";
 
@@ -9,40 +8,10 @@ import { clientNamespaces, type ClientScope } from "@/lib/i18n/client-namespaces
 // graph from every file of a scope and fails when a client component there would read a
 // namespace the scope does not send (the browser would show the raw key).
 
-const root = resolve(__dirname, "../..");
+const root = repoRoot;
 const localeDir = join(root, "app/[locale]");
-
-function resolveImport(from: string, spec: string): string | undefined {
-  let base: string;
-  if (spec.startsWith("@/")) base = join(root, spec.slice(2));
-  else if (spec.startsWith(".")) base = resolve(dirname(from), spec);
-  else return undefined;
-  for (const candidate of [base, `${base}.ts`, `${base}.tsx`, join(base, "index.ts"), join(base, "index.tsx")]) {
-    if (existsSync(candidate) && statSync(candidate).isFile()) return candidate;
-  }
-  return undefined;
-}
-
-const sources = new Map<string, string>();
-function source(path: string): string {
-  let text = sources.get(path);
-  if (text === undefined) {
-    text = readFileSync(path, "utf8");
-    sources.set(path, text);
-  }
-  return text;
-}
-
-function imports(path: string): string[] {
-  const found: string[] = [];
-  for (const match of source(path).matchAll(/(?:import|export)\s[^"';]*?from\s*["']([^"']+)["']|import\(\s*["']([^"']+)["']\s*\)/g)) {
-    const spec = match[1] ?? match[2];
-    if (match[0].startsWith("import type") || match[0].startsWith("export type")) continue;
-    const target = spec ? resolveImport(path, spec) : undefined;
-    if (target) found.push(target);
-  }
-  return found;
-}
+const source = sourceText;
+const imports = runtimeImports;
 
 /** Top-level namespaces read by client code reachable from these entry files. */
 function clientNamespacesFrom(entries: string[]): Map<string, Set<string>> {
@@ -55,7 +24,7 @@ function clientNamespacesFrom(entries: string[]): Map<string, Set<string>> {
     seen.add(key);
     if (client) {
       const text = source(path);
-      for (const match of text.matchAll(/use(?:Translations|ErrorText)\(\s*["']([A-Za-z]+)/g)) {
+      for (const match of text.matchAll(/use(?:Translations|ErrorText|SubmitFailure)\(\s*["']([A-Za-z]+)/g)) {
         const namespace = match[1]!;
         if (!used.has(namespace)) used.set(namespace, new Set());
         used.get(namespace)!.add(relative(root, path));

@@ -1,6 +1,6 @@
 import { getTranslations } from "next-intl/server";
 import { Card } from "@/components/ui/card";
-import { Notice } from "@/components/ui/notice";
+import { ErrorAlert } from "@/components/ui/notice";
 import { listOrganisationsManagedBy } from "@/db/queries/organisations";
 import { requirePageRole } from "@/lib/auth/permissions";
 import { Link } from "@/lib/i18n/navigation";
@@ -36,14 +36,14 @@ export default async function AdminPage({ params }: { params: Promise<{ locale: 
         <p className="text-ink-soft">{t("intro")}</p>
       </div>
       {!settings.emergencyNumber ? (
-        <Notice tone="stop" role="alert" title={h("emergencyUnsetTitle")}>
+        <ErrorAlert message={h("emergencyUnsetTitle")} testId="emergency-unset">
           <p>
             {h("emergencyUnset")}{" "}
             <Link href="/admin/settings" className="font-bold underline underline-offset-4">
               {h("goToSettings")}
             </Link>
           </p>
-        </Notice>
+        </ErrorAlert>
       ) : null}
       <nav aria-label={h("sections")}>
         <ul className="grid gap-3 md:grid-cols-2 lg:grid-cols-3">

@@ -2,7 +2,7 @@ import { getFormatter, getTranslations } from "next-intl/server";
 import { actionMessageKey } from "@/lib/shared/audit-actions";
 import { auditVia } from "@/db/schema/security";
 import { buttonClass } from "@/components/ui/button";
-import { Notice } from "@/components/ui/notice";
+import { ErrorAlert } from "@/components/ui/notice";
 import { searchAudit } from "@/db/queries/audit-search";
 import { requirePageRole } from "@/lib/auth/permissions";
 import { Link } from "@/lib/i18n/navigation";
@@ -52,7 +52,7 @@ export default async function AuditPage({
         <h1 className="text-3xl font-bold">{t("title")}</h1>
         <p className="text-ink-soft">{t("intro")}</p>
       </div>
-      {!parsed.success ? <Notice tone="warn" role="alert" title={t("badFilters")} /> : null}
+      {!parsed.success ? <ErrorAlert message={t("badFilters")} testId="bad-filters" /> : null}
       <form method="get" className="grid gap-3 rounded-card border border-stone-faint bg-paper-raised p-4 md:grid-cols-3" role="search" aria-label={t("filters")}>
         <label className="flex flex-col gap-1">
           <span className="font-bold">{t("person")}</span>

@@ -1,6 +1,7 @@
 import { notFound } from "next/navigation";
 import { getTranslations } from "next-intl/server";
 import { PassportPanel } from "@/components/passport/passport-panel";
+import { PortalInviteButton } from "@/components/portal-invite/portal-invite-button";
 import { getPatientForInvite } from "@/db/queries/invitations";
 import { getPassportOverview } from "@/db/queries/passports";
 import { getPatientRecord } from "@/db/queries/patients";
@@ -21,15 +22,19 @@ export default async function PassportTab({ params }: { params: Promise<{ locale
     getPatientForInvite({ patientId }),
   ]);
   if (!record || !invitee) notFound();
+  // Only the care team gives activation codes (as on the invite route), and only before an account exists.
+  const canInvite = via === "care_team" && !invitee.userId && !invitee.closedAt && !closed;
   return (
-    <PassportPanel
-      patientId={patientId}
-      overview={overview}
-      languages={passportLanguages(record.patient.preferredLocale)}
-      hasDevice={Boolean(record.currentEpisode)}
-      // Only the care team gives activation codes (as on the invite route), and only before an account exists.
-      canOfferActivation={via === "care_team" && !invitee.userId && !invitee.closedAt}
-      readOnly={closed}
-    />
+    <div className="flex flex-col gap-8">
+      <PassportPanel
+        patientId={patientId}
+        overview={overview}
+        languages={passportLanguages(record.patient.preferredLocale)}
+        hasDevice={Boolean(record.currentEpisode)}
+        canOfferActivation={canInvite}
+        readOnly={closed}
+      />
+      {canInvite ? <PortalInviteButton patientId={patientId} /> : null}
+    </div>
   );
 }

@@ -101,10 +101,10 @@ export default async function RecordEpisodePage({ params }: { params: Promise<Pa
   else if (kind === "insertion") {
     body = active
       ? blocked(t("blocked.inPlace"), { href: `${record}/record/change`, label: t("title.change") })
-      : <DeviceEpisodeForm mode="insertion" patientId={patientId} patient={facts} clinicianName={viewer.name} previous={previousDevice(latest)} timeZone={timeZone} blockage={null} planning={planning} />;
+      : <DeviceEpisodeForm mode="insertion" patientId={patientId} patient={facts} clinicianName={viewer.name} previous={previousDevice(latest)} timeZone={timeZone} blockage={null} planDefaults={planning} />;
   } else if (kind === "change") {
     body = active
-      ? <DeviceEpisodeForm mode="change" patientId={patientId} patient={facts} clinicianName={viewer.name} previous={previousDevice(active)} timeZone={timeZone} blockage={blockage} planning={planning} />
+      ? <DeviceEpisodeForm mode="change" patientId={patientId} patient={facts} clinicianName={viewer.name} previous={previousDevice(active)} timeZone={timeZone} blockage={blockage} planDefaults={planning} />
       : blocked(t("blocked.noneInPlace"), { href: `${record}/record/insertion`, label: t("title.insertion") });
   } else if (kind === "removal") {
     body = active
