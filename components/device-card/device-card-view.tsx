@@ -3,6 +3,7 @@
 // a bordered warning box, and the care team's phone as a big tel: button. Nothing names the patient.
 // Phone numbers and Latin units are isolated left-to-right so Arabic and Urdu do not reorder them.
 import { getFormatter, getTranslations } from "next-intl/server";
+import { ErrorAlert } from "@/components/ui/notice";
 import { buttonClass } from "@/components/ui/button";
 import type { DeviceCard } from "@/lib/shared/dto";
 import { charriereToMm } from "@/lib/clinical";
@@ -176,18 +177,14 @@ export async function InvalidPassport({ locale }: { locale: string }) {
 /** A typed code with a typing mistake (its check symbol does not match): check it and type again. */
 export async function MistypedCode({ locale }: { locale: string }) {
   const locales: Locale[] = isLocale(locale) && locale !== "en" ? [locale, "en"] : ["en"];
+  const texts = await Promise.all(locales.map(async (l) => ({ l, text: (await getTranslations({ locale: l, namespace: "DeviceCard" }))("checkCode") })));
   return (
-    <div role="alert" className="flex flex-col gap-2 rounded-lg border-2 border-level-urgent bg-level-urgent-soft p-4 text-level-urgent-ink" data-testid="card-typo">
-      {await Promise.all(
-        locales.map(async (l) => {
-          const t = await getTranslations({ locale: l, namespace: "DeviceCard" });
-          return (
-            <p key={l} lang={l} dir={directionOf(l)} className="text-lg font-bold">
-              {t("checkCode")}
-            </p>
-          );
-        }),
-      )}
-    </div>
+    <ErrorAlert message={<span lang={texts[0].l} dir={directionOf(texts[0].l)}>{texts[0].text}</span>} testId="card-typo">
+      {texts.slice(1).map(({ l, text }) => (
+        <p key={l} lang={l} dir={directionOf(l)} className="font-bold">
+          {text}
+        </p>
+      ))}
+    </ErrorAlert>
   );
 }

@@ -4,3 +4,6 @@
 export function actionMessageKey(action: string): string {
   return action.replace(/[^a-zA-Z0-9]/g, "_");
 }
+
+/** How a person reached the record ("short_code": the passport's code typed, not its QR scanned). */
+export const AUDIT_VIA = ["care_team", "visit_access", "qr", "short_code", "self", "carer", "admin", "system"] as const;

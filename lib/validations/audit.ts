@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { auditVia } from "@/db/schema/security";
+import { AUDIT_VIA } from "@/lib/shared/audit-actions";
 import { queryInt } from "./number";
 import { pageQuerySchema } from "./caseload";
 
@@ -12,7 +12,7 @@ export const auditQuerySchema = z
     person: z.preprocess(blank, z.string().trim().max(120).optional()),
     patient: z.preprocess(blank, z.string().trim().max(120).optional()),
     action: z.preprocess(blank, z.string().trim().max(80).regex(/^[a-z0-9_.]+$/, { message: "action_invalid" }).optional()),
-    via: z.preprocess(blank, z.enum(auditVia).optional()),
+    via: z.preprocess(blank, z.enum(AUDIT_VIA).optional()),
     from: z.preprocess(blank, isoDate.optional()),
     to: z.preprocess(blank, isoDate.optional()),
     page: queryInt(1, 10_000, 1),
