@@ -3,6 +3,7 @@
 // a bordered warning box, and the care team's phone as a big tel: button. Nothing names the patient.
 // Phone numbers and Latin units are isolated left-to-right so Arabic and Urdu do not reorder them.
 import { getFormatter, getTranslations } from "next-intl/server";
+import { WarningMark } from "@/components/ui/warning-mark";
 import { ErrorAlert } from "@/components/ui/notice";
 import { buttonClass } from "@/components/ui/button";
 import type { DeviceCard } from "@/lib/shared/dto";
@@ -39,30 +40,23 @@ async function CardInLanguage({ card, locale, first }: { card: DeviceCard; local
   return (
     <section lang={locale} dir={directionOf(locale)} className="flex flex-col gap-4" data-testid={`card-${locale}`}>
       <H className="text-xl font-bold">{t("sectionTitle")}</H>
-      {allergies.length ? (
-        <div role="note" className="flex items-start gap-3 rounded-lg border-4 border-level-emergency bg-level-emergency-soft p-3 text-level-emergency-ink" data-testid="card-allergies">
-          <svg viewBox="0 0 16 16" className="mt-1 h-6 w-6 shrink-0" aria-hidden="true">
-            <path d="M8 1.5 15 14.5H1z" fill="currentColor" />
-            <path d="M8 6v4" stroke="white" strokeWidth="1.8" strokeLinecap="round" />
-            <circle cx="8" cy="12.3" r="1" fill="white" />
-          </svg>
+      {allergies.length || unknown ? (
+        // A known allergy is a stop (red, heavy border); only "not recorded" is a warning (amber).
+        <div
+          role="note"
+          className={`flex items-start gap-3 rounded-lg p-3 ${allergies.length ? "border-4 border-level-emergency bg-level-emergency-soft text-level-emergency-ink" : "border-2 border-level-urgent bg-level-urgent-soft text-level-urgent-ink"}`}
+          data-testid={allergies.length ? "card-allergies" : undefined}
+        >
+          <WarningMark className="mt-1 h-6 w-6 shrink-0" />
           <div>
             <p className="font-bold">{t("allergiesTitle")}</p>
-            <p className="text-xl font-bold">{allergies.join(" · ")}</p>
-            {unknown ? <p className="font-bold" data-testid="card-allergies-not-recorded">{unknown}</p> : null}
-            <p>{p("allergyCheck")}</p>
-          </div>
-        </div>
-      ) : unknown ? (
-        <div role="note" className="flex items-start gap-3 rounded-lg border-2 border-level-urgent bg-level-urgent-soft p-3 text-level-urgent-ink" data-testid="card-allergies-not-recorded">
-          <svg viewBox="0 0 16 16" className="mt-1 h-6 w-6 shrink-0" aria-hidden="true">
-            <path d="M8 1.5 15 14.5H1z" fill="currentColor" />
-            <path d="M8 6v4" stroke="white" strokeWidth="1.8" strokeLinecap="round" />
-            <circle cx="8" cy="12.3" r="1" fill="white" />
-          </svg>
-          <div>
-            <p className="font-bold">{t("allergiesTitle")}</p>
-            <p className="text-xl font-bold">{unknown}</p>
+            {allergies.length ? <p className="text-xl font-bold">{allergies.join(" · ")}</p> : null}
+            {unknown ? (
+              <p className={allergies.length ? "font-bold" : "text-xl font-bold"} data-testid="card-allergies-not-recorded">
+                {unknown}
+              </p>
+            ) : null}
+            {allergies.length ? <p>{p("allergyCheck")}</p> : null}
           </div>
         </div>
       ) : (

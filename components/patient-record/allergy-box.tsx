@@ -1,4 +1,5 @@
 import { useTranslations } from "next-intl";
+import { WarningMark } from "@/components/ui/warning-mark";
 import { allergySummary } from "@/lib/clinical/allergies";
 import type { PatientDetails } from "@/lib/shared/dto";
 
@@ -20,11 +21,7 @@ export function AllergyBox({ allergies }: { allergies: PatientDetails["allergies
       className={`flex items-start gap-3 rounded-lg p-3 ${stop ? "border-4 border-level-emergency bg-level-emergency-soft text-level-emergency-ink" : "border-2 border-level-urgent bg-level-urgent-soft text-level-urgent-ink"}`}
       data-testid="allergy-box"
     >
-      <svg viewBox="0 0 16 16" className="mt-0.5 h-6 w-6 shrink-0" aria-hidden="true">
-        <path d="M8 1.5 15 14.5H1z" fill="currentColor" />
-        <path d="M8 6v4" stroke="white" strokeWidth="1.8" strokeLinecap="round" />
-        <circle cx="8" cy="12.3" r="1" fill="white" />
-      </svg>
+      <WarningMark className="mt-0.5 h-6 w-6 shrink-0" />
       <div>
         <p className="font-bold">{t("allergyTitle")}</p>
         {stop ? <p className="text-lg font-bold">{list.join(" · ")}</p> : null}
