@@ -4,10 +4,12 @@
 // never decides authorisation: pages and handlers do.
 import createMiddleware from "next-intl/middleware";
 import { NextResponse, type NextRequest } from "next/server";
+import { sessionCookieNameFor } from "@/lib/auth/cookies";
 import { locales, routing } from "@/lib/i18n/routing";
 import { isCardPath, withSecretUrlHeaders } from "@/lib/http/secret-headers";
 
 const intl = createMiddleware(routing);
+const sessionCookieName = sessionCookieNameFor(process.env.APP_URL ?? "http://localhost:3000");
 
 const signedInAreas = new RegExp(`^/(${locales.join("|")})/(caseload|patients|admin|scan|today|my-catheter|check-in|diary|help|people|learn|more|account|home)(/|$)`);
 
@@ -39,8 +41,7 @@ export default async function proxy(request: NextRequest) {
     const limited = await limitCardRequest(request, pathname.split("/")[1]!);
     if (limited) return withSecretUrlHeaders(pathname, limited);
   }
-  const hasSession =
-    request.cookies.has("better-auth.session_token") || request.cookies.has("__Secure-better-auth.session_token");
+  const hasSession = request.cookies.has(sessionCookieName);
   const nonce = Buffer.from(crypto.getRandomValues(new Uint8Array(16))).toString("base64");
   const csp = contentSecurityPolicy(nonce);
   if (signedInAreas.test(pathname) && !hasSession) {

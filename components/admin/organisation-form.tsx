@@ -2,7 +2,7 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useTranslations } from "next-intl";
 import { useState } from "react";
-import { useForm } from "react-hook-form";
+import { useForm, useWatch } from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { Checkbox, ChoiceGroup } from "@/components/ui/choice";
 import { Field, SelectField } from "@/components/ui/field";
@@ -22,11 +22,13 @@ export function OrganisationForm({ organisationId, initial }: { organisationId?:
     register,
     handleSubmit,
     setError,
+    control,
     formState: { errors, isSubmitting },
   } = useForm<OrganisationFormValues, unknown, OrganisationInput>({
     resolver: zodResolver(organisationSchema),
-    defaultValues: initial ?? { name: "", kind: "hospital_ward", parentName: "", phone: "", outOfHoursPhone: "", inboxEmail: "", locale: "en", languages: ["en"], requireTwoFactor: false },
+    defaultValues: initial ?? { name: "", kind: "hospital_ward", parentName: "", phone: "", outOfHoursPhone: "", inboxEmail: "", locale: "en", languages: ["en"], requireTwoFactor: true, twoFactorRelaxedReason: "" },
   });
+  const requireTwoFactor = useWatch({ control, name: "requireTwoFactor" });
   const failure = useSubmitFailure("AdminOrganisations", setError);
   const errorText = failure.text;
 
@@ -91,6 +93,16 @@ export function OrganisationForm({ organisationId, initial }: { organisationId?:
         </div>
       </ChoiceGroup>
       <Checkbox label={t("requireTwoFactor")} hint={t("requireTwoFactorHint")} {...register("requireTwoFactor")} />
+      {/* Relaxing two-step sign-in is allowed only with a reason on record. */}
+      {requireTwoFactor === false ? (
+        <Field
+          label={t("twoFactorRelaxedReason")}
+          hint={t("twoFactorRelaxedReasonHint")}
+          maxLength={500}
+          errors={errorText.list(errors.twoFactorRelaxedReason)}
+          {...register("twoFactorRelaxedReason")}
+        />
+      ) : null}
       <div>
         <Button type="submit" disabled={isSubmitting}>
           {isSubmitting ? t("saving") : organisationId ? t("save") : t("create")}

@@ -14,6 +14,7 @@ export * from "./device-types";
 export * from "./record-vocabulary";
 export * from "./device-check";
 export * from "./plan-dates";
+export * from "./allergies";
 export * from "./blockage";
 export * from "./supplies";
 export * from "./fluid";

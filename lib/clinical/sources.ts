@@ -107,7 +107,3 @@ export const SOURCES = {
 
 export type SourceId = keyof typeof SOURCES;
 
-/** Human-readable title of a source id, for screens and PDFs. */
-export function sourceTitle(id: SourceId): string {
-  return SOURCES[id].title;
-}

@@ -3,24 +3,26 @@
 // Messages are keys of Supplies.errors, translated by the form.
 import { z } from "zod";
 import { SUPPLY_ITEMS } from "@/lib/clinical";
+import { multiLine } from "./text";
+import { numberIn, toNumber } from "./number";
 
 export const supplyPeriodChoices = [7, 14, 28, 56, 84] as const;
 export const DEFAULT_SUPPLY_PERIOD = 28;
 
 export const supplyRequestSchema = z
   .object({
-    periodDays: z.number({ error: "period" }).int("period").min(1, "period").max(366, "period"),
+    periodDays: z.preprocess(toNumber, numberIn({ min: 1, max: 366, unit: "days", whole: true, missing: "period" })),
     include: z.object({ legBag: z.boolean(), valve: z.boolean(), nightBag: z.boolean(), gel: z.boolean() }),
     items: z
       .array(
         z.object({
           item: z.enum(SUPPLY_ITEMS),
-          quantity: z.number({ error: "quantity" }).int("quantity").min(0, "quantity").max(999, "quantity"),
+          quantity: z.preprocess(toNumber, numberIn({ min: 0, max: 999, whole: true, missing: "quantity" })),
         }),
       )
       .min(1, "nothing")
       .max(SUPPLY_ITEMS.length),
-    note: z.string().trim().max(1000, "note").optional(),
+    note: multiLine(z.string().trim().max(1000, "note")).optional(),
   })
   .superRefine((v, ctx) => {
     const seen = new Set<string>();

@@ -2,7 +2,7 @@
 // language, in what order, and how right-to-left columns keep Latin values whole.
 import { describe, expect, it } from "vitest";
 import { charriereToMm } from "@/lib/clinical";
-import { allergyList, contactRows, deviceRows, eventDetails, eventWhat, plannedDates } from "@/lib/pdf/booklet/rows";
+import { allergyList, contactRows, notRecordedLine, deviceRows, eventDetails, eventWhat, plannedDates } from "@/lib/pdf/booklet/rows";
 import type { BookletDevice, BookletEvent } from "@/lib/pdf/booklet/types";
 import { pdfStrings } from "@/lib/pdf/kit/strings";
 import { pdfText, withoutMarks } from "@/lib/pdf/kit/rtl";
@@ -100,12 +100,19 @@ describe("contact rows", () => {
 });
 
 describe("allergies and history", () => {
-  it("lists allergies in a fixed order, the free-text one last with its label", () => {
+  it("lists the allergies a patient has in a fixed order, the free-text one last with its label", () => {
     const s = pdfStrings("en");
-    expect(allergyList(s, { latex: true, chlorhexidine: false, lidocaine: true, other: " plasters " })).toEqual([
+    expect(allergyList(s, { latex: "yes", chlorhexidine: "no", lidocaine: "yes", other: " plasters " })).toEqual([
       words.allergy.latex, words.allergy.lidocaine, `${words.allergy.other}: plasters`,
     ]);
-    expect(allergyList(s, { latex: false, chlorhexidine: false, lidocaine: false, other: "  " })).toEqual([]);
+    expect(allergyList(s, { latex: "no", chlorhexidine: "no", lidocaine: "no", other: "  " })).toEqual([]);
+    expect(notRecordedLine(s, { latex: "no", chlorhexidine: "no", lidocaine: "no", other: null })).toBeNull();
+  });
+
+  it("names the allergens nobody has asked about, to ask first", () => {
+    const s = pdfStrings("en");
+    const line = notRecordedLine(s, { latex: "not-asked", chlorhexidine: "no", lidocaine: "not-asked", other: null });
+    expect(line).toBe(words.allergyNotRecorded.replace("{allergens}", `${words.allergy.latex}, ${words.allergy.lidocaine}`));
   });
 
   it("says what happened, why, and which catheter went in", () => {

@@ -7,7 +7,7 @@ import { PDF_FONT_FAMILY } from "../kit/fonts";
 import { palette as colour } from "../kit/palette";
 import { direction, pdfText, withoutMarks } from "../kit/rtl";
 import type { PdfStrings } from "../kit/strings";
-import { allergyList, iso, type FactRow } from "./rows";
+import { allergyList, iso, notRecordedLine, type FactRow } from "./rows";
 import type { PassportBookletData } from "./types";
 
 export const styles = StyleSheet.create({
@@ -119,7 +119,7 @@ export function Footer({ all }: { all: PdfStrings[] }) {
 }
 
 export function AllergyBox({ all, data }: { all: PdfStrings[]; data: PassportBookletData }) {
-  const any = allergyList(all[0], data.patient.allergies).length > 0;
+  const any = allergyList(all[0], data.patient.allergies).length > 0 || notRecordedLine(all[0], data.patient.allergies) !== null;
   return (
     <View
       wrap={false}
@@ -131,11 +131,17 @@ export function AllergyBox({ all, data }: { all: PdfStrings[]; data: PassportBoo
       <Columns all={all}>
         {(s) => {
           const items = allergyList(s, data.patient.allergies);
+          const unknown = notRecordedLine(s, data.patient.allergies);
           return (
             <View>
               <T s={s} style={{ fontSize: 11, fontWeight: 700, color: any ? colour.tone.stop.strong : colour.ink }}>
                 {s.t("allergiesTitle")}
               </T>
+              {unknown ? (
+                <T s={s} style={{ fontSize: 11, fontWeight: 700 }}>
+                  {unknown}
+                </T>
+              ) : null}
               {items.length ? (
                 <>
                   <T s={s} style={{ fontSize: 13, fontWeight: 700 }}>
@@ -145,7 +151,7 @@ export function AllergyBox({ all, data }: { all: PdfStrings[]; data: PassportBoo
                     {s.t("allergyCheck")}
                   </T>
                 </>
-              ) : (
+              ) : unknown ? null : (
                 <T s={s}>{s.t("noAllergies")}</T>
               )}
             </View>

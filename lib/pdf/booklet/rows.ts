@@ -1,6 +1,7 @@
 import "server-only";
 // The booklet's rows as data: every label and value in each language, built by pure functions
 // (tested without rendering, tests/unit/pdf-rows.test.ts); the pages only lay them out.
+import { allergySummary } from "@/lib/clinical";
 import { ltrRun } from "../kit/rtl";
 import type { PdfStrings } from "../kit/strings";
 import type { BookletDevice, BookletEvent, PassportBookletData } from "./types";
@@ -19,12 +20,15 @@ export type FactRow = {
 export const iso = (s: PdfStrings, value: string) => ltrRun(value, s.rtl);
 
 export function allergyList(s: PdfStrings, a: PassportBookletData["patient"]["allergies"]): string[] {
-  const out: string[] = [];
-  if (a.latex) out.push(s.t("allergy.latex"));
-  if (a.chlorhexidine) out.push(s.t("allergy.chlorhexidine"));
-  if (a.lidocaine) out.push(s.t("allergy.lidocaine"));
+  const out = allergySummary(a).present.map((k) => s.t(`allergy.${k}`));
   if (a.other?.trim()) out.push(`${s.t("allergy.other")}: ${a.other.trim()}`);
   return out;
+}
+
+/** "Not recorded, ask first: Latex" for the allergens nobody has asked about, or null. */
+export function notRecordedLine(s: PdfStrings, a: PassportBookletData["patient"]["allergies"]): string | null {
+  const unknown = allergySummary(a).notRecorded.map((k) => s.t(`allergy.${k}`));
+  return unknown.length ? s.t("allergyNotRecorded", { allergens: unknown.join(s.rtl ? "، " : ", ") }) : null;
 }
 
 export function deviceRows(all: PdfStrings[], d: BookletDevice): FactRow[] {

@@ -1,6 +1,6 @@
 import "server-only";
 // What the passport booklet prints: loaded by lib/passport from the record, never more.
-import type { CatheterType, EpisodeEventKind, LengthCategory, Material, Route, TwocOutcome, UnplannedReason } from "@/lib/clinical";
+import type { AllergyAnswers, CatheterType, EpisodeEventKind, LengthCategory, Material, Route, TwocOutcome, UnplannedReason } from "@/lib/clinical";
 
 export type BookletDevice = {
   route: Route;
@@ -54,7 +54,7 @@ export type PassportBookletData = {
     /** YYYY-MM-DD */
     dateOfBirth: string;
     healthRecordNumber: string;
-    allergies: { latex: boolean; chlorhexidine: boolean; lidocaine: boolean; other: string | null };
+    allergies: AllergyAnswers & { other: string | null };
   };
   device: BookletDevice | null;
   history: BookletEvent[];

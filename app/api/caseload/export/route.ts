@@ -1,6 +1,7 @@
 import { listCaseloadAll } from "@/db/queries/caseload";
 import { requireRole } from "@/lib/auth/permissions";
 import { audit } from "@/lib/records/audit";
+import { getPlanDefaults } from "@/lib/config/settings";
 import { toCsv } from "@/lib/http/csv";
 import { handle } from "@/lib/http/handle";
 import { translatorFor } from "@/lib/i18n/catalogues";
@@ -15,7 +16,8 @@ export const GET = handle(async (request) => {
   const view = parseInput(caseloadViewSchema, params);
   const locale = params.locale && isLocale(params.locale) ? params.locale : viewer.locale && isLocale(viewer.locale) ? viewer.locale : "en";
   const t = translatorFor(locale, "CaseloadExport");
-  const { rows, today } = await listCaseloadAll({ organisationIds: viewer.organisationIds, view });
+  const { dueSoonDays } = await getPlanDefaults();
+  const { rows, today } = await listCaseloadAll({ organisationIds: viewer.organisationIds, view, dueSoonDays });
   const csv = toCsv([
     [
       t("name"),
@@ -39,7 +41,7 @@ export const GET = handle(async (request) => {
       r.daysSinceInsertion,
       r.plannedChangeOn,
       r.reviewDueOn,
-      r.state ? t(`states.${r.state}`) : "",
+      r.state ? t(`states.${r.state}`, { days: dueSoonDays }) : "",
       r.latestCheckInLevel ? t(`levels.${r.latestCheckInLevel}`) : "",
       r.awaitingTwoc ? t("yes") : "",
     ]),

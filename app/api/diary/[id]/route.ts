@@ -1,6 +1,6 @@
-import { db } from "@/db";
 import { deleteDiaryEntry, getDiaryEntry } from "@/db/queries/diary";
 import { audit } from "@/lib/records/audit";
+import { writeRecord } from "@/lib/records/record-state";
 import { isUuid, requireDiaryEntryRemover, requirePortalViewer } from "@/lib/auth/permissions";
 import { AppError } from "@/lib/http/errors";
 import { handle } from "@/lib/http/handle";
@@ -13,7 +13,7 @@ export const DELETE = handle<{ params: Promise<{ id: string }> }>(async (request
   const entry = await getDiaryEntry({ id });
   if (!entry) throw new AppError("not_found");
   const via = await requireDiaryEntryRemover(viewer, entry);
-  await db.transaction(async (tx) => {
+  await writeRecord(entry.patientId, async (tx) => {
     await deleteDiaryEntry({ id }, tx);
     await audit(
       { action: "diary.delete", actor: viewer, patientId: entry.patientId, via, request, details: { entryId: id, kind: entry.kind, volumeMl: entry.volumeMl, at: entry.at.toISOString() } },

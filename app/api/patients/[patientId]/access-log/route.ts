@@ -3,7 +3,7 @@ import { requireCareTeam, requireRole } from "@/lib/auth/permissions";
 import { handle, json } from "@/lib/http/handle";
 import { openPatientRecord } from "@/lib/records/patient-record";
 import { parseInput, searchParamsObject } from "@/lib/http/validate";
-import { pageQuerySchema } from "@/lib/validations/caseload";
+import { accessLogQuerySchema } from "@/lib/validations/audit";
 
 type Ctx = { params: Promise<{ patientId: string }> };
 
@@ -12,7 +12,7 @@ export const GET = handle<Ctx>(async (request, { params }) => {
   const { patientId } = await params;
   const viewer = await requireRole(request, "clinician");
   await requireCareTeam(viewer, patientId);
-  const { page, pageSize } = parseInput(pageQuerySchema, searchParamsObject(request.url));
+  const { page, pageSize, who } = parseInput(accessLogQuerySchema, searchParamsObject(request.url));
   await openPatientRecord({ viewer, patientId, action: "patient.view.access-log", request, details: { source: "api", page } });
-  return json(await listAccessLog({ patientId, page, pageSize }));
+  return json(await listAccessLog({ patientId, page, pageSize, filter: who }));
 });

@@ -16,7 +16,7 @@ export async function generateMetadata() {
 
 export default async function PassportTab({ params }: { params: Promise<{ locale: string; patientId: string }> }) {
   const { locale, patientId } = await params;
-  const { via } = await openRecordPage({ locale, patientId, action: "patient.view.passport" });
+  const { via, closed } = await openRecordPage({ locale, patientId, action: "patient.view.passport" });
   const [record, overview, invitee] = await Promise.all([
     getPatientRecord({ patientId }),
     getPassportOverview({ patientId }),
@@ -24,7 +24,7 @@ export default async function PassportTab({ params }: { params: Promise<{ locale
   ]);
   if (!record || !invitee) notFound();
   // Only the care team gives activation codes (as on the invite route), and only before an account exists.
-  const canInvite = isCareTeam(via) && !invitee.userId && !invitee.closedAt;
+  const canInvite = isCareTeam(via) && !invitee.userId && !invitee.closedAt && !closed;
   return (
     <div className="flex flex-col gap-8">
       <PassportPanel
@@ -33,6 +33,7 @@ export default async function PassportTab({ params }: { params: Promise<{ locale
         languages={passportLanguages(record.patient.preferredLocale)}
         hasDevice={Boolean(record.currentEpisode)}
         canOfferActivation={canInvite}
+        readOnly={closed}
       />
       {canInvite ? <PortalInviteButton patientId={patientId} /> : null}
     </div>
