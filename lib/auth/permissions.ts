@@ -106,17 +106,19 @@ export async function requirePortalPatient(viewer: Viewer, patientId: string): P
 
 /**
  * Portal routes whose patient travels in the body: the role (403), then that patient (404)
- * before the rest of the body is validated (400), so nobody learns about a record they cannot see.
+ * before the rest of the body is validated (400), so nobody learns about a record they cannot
+ * see. A body whose patient is not an id at all names no record: it gets every field's error.
  */
-export async function openPortalBody<S extends z.ZodType>(request: Request, schema: S) {
+export async function openPortalBody<S extends z.ZodType<{ patientId: string }>>(request: Request, schema: S) {
   const viewer = await requirePortalViewer(request);
-  const settled: { via?: "self" | "carer" } = {};
+  let via: "self" | "carer" | null = null;
   const input = await parseJsonBody(request, schema, {
     settleAccess: async (raw) => {
-      settled.via = await requirePortalPatient(viewer, patientIdIn(raw));
+      const id = (raw as { patientId?: unknown } | null)?.patientId;
+      if (typeof id === "string" && isUuid(id)) via = await requirePortalPatient(viewer, id);
     },
   });
-  return { viewer, via: settled.via!, input };
+  return { viewer, via: via ?? (await requirePortalPatient(viewer, input.patientId)), input };
 }
 
 /** The patient a body or a query names; a missing or malformed one is a 400 on that field. */

@@ -34,10 +34,10 @@ describe("a bad request about someone else's record is a 404, not a 400", () => 
     expect((await call(bagChangesPost, "/api/bag-changes", { body: { patientId: arthur, kind: "hat" }, cookie: stranger })).status).toBe(404);
     expect((await call(diaryGet, `/api/diary?patientId=${arthur}&from=yesterday`, { cookie: stranger })).status).toBe(404);
     expect((await call(diaryGet, `/api/diary?patientId=${arthur}&from=yesterday`, { cookie: own })).status).toBe(400);
-    // No patient named, or not an id: nothing to check access on, so the field is the answer.
+    // No patient named, or not an id: no record to learn about, so the fields are the answer.
     const missing = await call(diaryPost, "/api/diary", { body: { kind: "in", volumeMl: 200 }, cookie: stranger });
     expect(missing.status).toBe(400);
-    expect((await missing.json()).error.fields).toEqual({ patientId: ["invalid"] });
+    expect(Object.keys((await missing.json()).error.fields)).toEqual(["patientId"]);
   });
 
   it("staff and export routes whose patient is in the path", async () => {
