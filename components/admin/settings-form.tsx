@@ -28,6 +28,7 @@ const num = { setValueAs: (v: unknown) => (v === "" || v === null || v === undef
 
 export function SettingsForm({ initial }: { initial: SettingsInitial }) {
   const t = useTranslations("AdminSettings");
+  const v = useTranslations("Vocabulary");
   const router = useRouter();
   const [saved, setSaved] = useState(false);
   const {
@@ -116,7 +117,7 @@ export function SettingsForm({ initial }: { initial: SettingsInitial }) {
             {MATERIALS.map((m) => (
               <Field
                 key={m}
-                label={t(`materials.${m}`)}
+                label={v(`material.${m}`)}
                 hint={t("ruleDefault", { days: MATERIAL_SPECS[m].defaultMaxDwellDays })}
                     inputMode="numeric"
                 min={1}

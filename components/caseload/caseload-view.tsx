@@ -236,11 +236,12 @@ export function CaseloadView({ initialQuery, initialData }: { initialQuery: Case
 
 function useCells() {
   const t = useTranslations("Caseload");
+  const v = useTranslations("Vocabulary");
   const format = useFormatter();
   const date = (d: string | null) => (d ? format.dateTime(new Date(`${d}T12:00:00Z`), { dateStyle: "medium" }) : "—");
-  const device = (r: CaseloadRow) => (r.route ? `${t(`routes.${r.route}`)} · ${t("sizeCh", { size: r.sizeCh ?? 0 })}` : t("noDevice"));
+  const device = (r: CaseloadRow) => (r.route ? `${v(`route.${r.route}`)} · ${t("sizeCh", { size: r.sizeCh ?? 0 })}` : t("noDevice"));
   const days = (r: CaseloadRow) => (r.daysSinceInsertion === null ? "—" : t("days", { count: r.daysSinceInsertion }));
-  return { t, date, device, days };
+  return { t, v, date, device, days };
 }
 
 function DateWithState({ date, state }: { date: string; state: CaseloadRow["changeState"] }) {
@@ -259,7 +260,7 @@ function DateWithState({ date, state }: { date: string; state: CaseloadRow["chan
 }
 
 function CaseloadTable({ rows, query, onSort }: { rows: CaseloadRow[]; query: CaseloadQuery; onSort: (s: CaseloadSort) => void }) {
-  const { t, date, days } = useCells();
+  const { t, v, date, days } = useCells();
   const header = (label: string, sort?: CaseloadSort) => {
     if (!sort) return <th scope="col" className="px-2.5 py-3 text-start align-bottom">{label}</th>;
     const active = query.sort === sort;
@@ -300,7 +301,7 @@ function CaseloadTable({ rows, query, onSort }: { rows: CaseloadRow[]; query: Ca
               <td className="tabular whitespace-nowrap px-2.5 py-3">
                 {r.route ? (
                   <>
-                    <span className="block">{t(`routes.${r.route}`)}</span>
+                    <span className="block">{v(`route.${r.route}`)}</span>
                     <span className="block">{t("sizeCh", { size: r.sizeCh ?? 0 })}</span>
                   </>
                 ) : (

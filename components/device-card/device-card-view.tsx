@@ -11,6 +11,7 @@ import { charriereToMm } from "@/lib/clinical";
 import { directionOf, isLocale, type Locale } from "@/lib/i18n/routing";
 import { deploymentTimeZone } from "@/lib/shared/time-zone";
 import { allergySummary } from "@/lib/clinical/allergies";
+import type { CatheterType, GelKind, LengthCategory, Material, Route } from "@/lib/clinical";
 
 /** The patient's language first, then English (once, when that is the patient's). */
 /**
@@ -27,6 +28,7 @@ export function cardLocales(patientLocale: string): Locale[] {
 async function CardInLanguage({ card, locale, first }: { card: DeviceCard; locale: Locale; first: boolean }) {
   const t = await getTranslations({ locale, namespace: "DeviceCard" });
   const p = await getTranslations({ locale, namespace: "PassportPdf" });
+  const v = await getTranslations({ locale, namespace: "Vocabulary" });
   const format = await getFormatter({ locale });
   const timeZone = deploymentTimeZone();
   const d = card.device;
@@ -86,15 +88,15 @@ async function CardInLanguage({ card, locale, first }: { card: DeviceCard; local
             <dt className="text-ink-soft">{p("nextChange")}</dt>
             <dd className="tabular font-bold" data-testid="card-next-change">{calendarDay(d.plannedChangeOn)}</dd>
             <dt className="text-ink-soft">{p("route")}</dt>
-            <dd>{p(`routes.${d.route}`)}</dd>
+            <dd>{v(`route.${d.route as Route}`)}</dd>
             <dt className="text-ink-soft">{p("catheterType")}</dt>
-            <dd>{p(`catheterTypes.${d.catheterType}`)}</dd>
+            <dd>{v(`catheterType.${d.catheterType as CatheterType}`)}</dd>
             <dt className="text-ink-soft">{p("material")}</dt>
-            <dd>{p(`materials.${d.material}`)}</dd>
+            <dd>{v(`material.${d.material as Material}`)}</dd>
             <dt className="text-ink-soft">{p("length")}</dt>
-            <dd>{p(`lengths.${d.lengthCategory}`)}</dd>
+            <dd>{v(`lengthCategory.${d.lengthCategory as LengthCategory}`)}</dd>
             <dt className="text-ink-soft">{t("gel")}</dt>
-            <dd>{t(`gels.${d.gelKind}`)}</dd>
+            <dd>{v(`gelKind.${d.gelKind as GelKind}`)}</dd>
           </dl>
         </>
       ) : (

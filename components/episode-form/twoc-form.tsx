@@ -16,7 +16,7 @@ import { useSubmitFailure } from "@/components/ui/use-error-text";
 import { apiFetch } from "@/lib/browser/api-client";
 import { thisMinute } from "@/lib/browser/datetime-input";
 import { useRouter } from "@/lib/i18n/navigation";
-import { TWOC_FAILED_ACTIONS } from "@/lib/clinical";
+import { TWOC_FAILED_ACTIONS, TWOC_OUTCOMES } from "@/lib/clinical";
 import { twocSchema } from "@/lib/validations/episode";
 import { useEpisodeOptions } from "./fieldsets/words";
 
@@ -73,8 +73,7 @@ export function TwocForm({ patientId, removedAt }: { patientId: string; removedA
         <RadioGroup
           legend={t("field.twocOutcome")}
           options={[
-            { value: "passed", label: t("option.twocOutcome.passed") },
-            { value: "failed", label: t("option.twocOutcome.failed") },
+            ...options(TWOC_OUTCOMES, "twocOutcome"),
           ]}
           inputProps={register("outcome")}
           errors={err("outcome")}

@@ -72,6 +72,7 @@ function todayLocal() {
 
 export function PatientForm(props: Props) {
   const t = useTranslations("PatientForm");
+  const v = useTranslations("Vocabulary");
   const router = useRouter();
   const editing = props.mode === "edit";
   const gp = useQuery({ queryKey: gpPracticeKeys.directory(), queryFn: loadGpPractices, initialData: props.gpPractices });
@@ -157,7 +158,7 @@ export function PatientForm(props: Props) {
             {...register("dateOfBirth")}
           />
         </div>
-        <RadioGroup legend={t("sex")} errors={errorsOf("sex")} options={SEXES.map((s) => ({ value: s, label: t(`sexes.${s}`) }))} inputProps={register("sex")} />
+        <RadioGroup legend={t("sex")} errors={errorsOf("sex")} options={SEXES.map((s) => ({ value: s, label: v(`sex.${s}`) }))} inputProps={register("sex")} />
         <div className="grid gap-4 md:grid-cols-2">
           <SelectField label={t("preferredLocale")} errors={errorsOf("preferredLocale")} {...register("preferredLocale")}>
             {patientLocales.map((l) => (

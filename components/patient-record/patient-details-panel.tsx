@@ -11,6 +11,7 @@ import { ALLERGENS } from "@/lib/clinical/allergies";
 export function PatientDetailsPanel({ patient, gpPractices, canEdit }: { patient: PatientDetails; gpPractices: GpPractice[]; canEdit: boolean }) {
   const t = useTranslations("PatientDevice");
   const tf = useTranslations("PatientForm");
+  const v = useTranslations("Vocabulary");
   const format = useFormatter();
   const [editing, setEditing] = useState(false);
 
@@ -46,7 +47,7 @@ export function PatientDetailsPanel({ patient, gpPractices, canEdit }: { patient
     [tf("familyName"), patient.familyName],
     [tf("healthRecordNumber"), patient.healthRecordNumber],
     [tf("dateOfBirth"), format.dateTime(new Date(`${patient.dateOfBirth}T12:00:00Z`), { dateStyle: "long" })],
-    [tf("sex"), tf(`sexes.${patient.sex}`)],
+    [tf("sex"), v(`sex.${patient.sex}`)],
     [tf("preferredLocale"), localeNames[patient.preferredLocale as Locale] ?? patient.preferredLocale],
     [tf("weightKg"), patient.weightKg === null ? t("notRecorded") : t("kg", { kg: patient.weightKg })],
     [t("allergies"), allergies.join(" · ")],

@@ -5,7 +5,7 @@ import "server-only";
 import type { Executor } from "@/db";
 import { getActiveEpisode, getCareTeamOrganisations, getPatientForMail } from "@/db/queries/mail-context";
 import { env } from "@/lib/config/env";
-import { emailDates, emailLocale, emailTranslator } from "./i18n";
+import { emailDates, emailLocale, emailTranslator, emailVocabulary } from "./i18n";
 import { queueMessage, type QueuedMessage } from "./outbox";
 import { renderEmail, type Block, type EmailContent } from "./render";
 
@@ -96,7 +96,7 @@ export async function queueCareTeamAlert(tx: Executor, input: CareTeamAlertInput
     const locale = emailLocale(team.locale);
     const t = emailTranslator(locale);
     const device = episode
-      ? t("alert.deviceValue", { route: t(`enum.route.${episode.route}`), ch: episode.sizeCh, ml: episode.balloonMl })
+      ? t("alert.deviceValue", { route: emailVocabulary(locale)(`route.${episode.route}`), ch: episode.sizeCh, ml: episode.balloonMl })
       : null;
     const content = alertContent(
       { ...input, level: input.level as AlertLevel },

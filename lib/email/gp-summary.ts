@@ -5,7 +5,7 @@ import "server-only";
 import type { Executor } from "@/db";
 import { db } from "@/db";
 import { loadGpSummaryFacts, type DeviceFacts, type GpSummaryCause, type GpSummaryFacts } from "@/db/queries/gp-summary";
-import { emailDates, emailLocale, emailTranslator, type EmailT } from "./i18n";
+import { emailDates, emailLocale, emailTranslator, emailVocabulary, type EmailT, type EmailV } from "./i18n";
 import { queueMessage, type QueuedMessage } from "./outbox";
 import { renderEmail, type Block, type EmailContent } from "./render";
 import { REMOVAL_REASONS } from "@/lib/clinical";
@@ -55,12 +55,12 @@ export function allergyText(t: EmailT, a: GpSummaryFacts["patient"]["allergies"]
   return [list.join(", "), unknown].filter(Boolean).join(". ");
 }
 
-export function deviceRows(t: EmailT, d: ReturnType<typeof emailDates>, dev: DeviceFacts, { dates }: { dates: boolean }) {
+export function deviceRows(t: EmailT, v: EmailV, d: ReturnType<typeof emailDates>, dev: DeviceFacts, { dates }: { dates: boolean }) {
   const rows: { label: string; value: string }[] = [
-    { label: t("device.route"), value: t(`enum.route.${dev.route}`) },
-    { label: t("device.type"), value: t(`enum.catheterType.${dev.catheterType}`) },
-    { label: t("device.material"), value: t(`enum.material.${dev.material}`) },
-    { label: t("device.length"), value: t(`enum.length.${dev.lengthCategory}`) },
+    { label: t("device.route"), value: v(`route.${dev.route}`) },
+    { label: t("device.type"), value: v(`catheterType.${dev.catheterType}`) },
+    { label: t("device.material"), value: v(`material.${dev.material}`) },
+    { label: t("device.length"), value: v(`lengthCategory.${dev.lengthCategory}`) },
     {
       label: t("device.size"),
       value: dev.sizeMm !== null ? t("device.sizeValue", { ch: dev.sizeCh, mm: d.number(dev.sizeMm) }) : t("device.sizeChOnly", { ch: dev.sizeCh }),
@@ -75,7 +75,7 @@ export function deviceRows(t: EmailT, d: ReturnType<typeof emailDates>, dev: Dev
   rows.push({ label: t("device.indication"), value: dev.indication });
   rows.push({
     label: t("device.gel"),
-    value: dev.gelVolumeMl ? t("device.gelValue", { gel: t(`enum.gel.${dev.gelKind}`), ml: dev.gelVolumeMl }) : t(`enum.gel.${dev.gelKind}`),
+    value: dev.gelVolumeMl ? t("device.gelValue", { gel: v(`gelKind.${dev.gelKind}`), ml: dev.gelVolumeMl }) : v(`gelKind.${dev.gelKind}`),
   });
   if (dev.difficulties) rows.push({ label: t("device.difficulties"), value: dev.difficulties });
   if (dates) {
@@ -95,6 +95,7 @@ export function careTeamLines(t: EmailT, team: GpSummaryFacts["careTeam"]): stri
 /** The summary as one content model, for the e-mail (HTML and text) and the PDF alike. */
 export function gpSummaryContent(facts: GpSummaryFacts, locale: string): EmailContent {
   const t = emailTranslator(locale);
+  const v = emailVocabulary(locale);
   const d = emailDates(locale);
   const c = facts.cause;
   const actor = facts.actorOrganisation ? t("common.actorAt", { name: facts.actorName, organisation: facts.actorOrganisation }) : facts.actorName;
@@ -114,11 +115,11 @@ export function gpSummaryContent(facts: GpSummaryFacts, locale: string): EmailCo
   if (c === "removal" || c === "twoc") {
     blocks.push({ type: "heading", text: c === "twoc" ? t("gp.twocHeading") : t("gp.removalHeading") });
     const rows: { label: string; value: string }[] = [{ label: t("gp.when"), value: d.at(new Date(facts.occurredAt)) }];
-    if (c === "twoc" && facts.event?.twocOutcome) rows.push({ label: t("gp.twocOutcome"), value: t(`enum.twoc.${facts.event.twocOutcome}`) });
+    if (c === "twoc" && facts.event?.twocOutcome) rows.push({ label: t("gp.twocOutcome"), value: v(`twocOutcome.${facts.event.twocOutcome}`) });
     const reason = facts.previous?.removalReason;
     if (c === "removal" && reason) {
       const known = (REMOVAL_REASONS as readonly string[]).includes(reason);
-      rows.push({ label: t("gp.removalReason"), value: known ? t(`enum.removalReason.${reason as "other"}`) : reason });
+      rows.push({ label: t("gp.removalReason"), value: known ? v(`removalReason.${reason as "other"}`) : reason });
     }
     if (facts.event?.notes) rows.push({ label: t("gp.notes"), value: facts.event.notes });
     blocks.push({ type: "facts", rows });
@@ -137,7 +138,7 @@ export function gpSummaryContent(facts: GpSummaryFacts, locale: string): EmailCo
 
   if (facts.device) {
     blocks.push({ type: "heading", text: t("gp.deviceHeading") });
-    blocks.push({ type: "facts", rows: deviceRows(t, d, facts.device, { dates: false }) });
+    blocks.push({ type: "facts", rows: deviceRows(t, v, d, facts.device, { dates: false }) });
     blocks.push({ type: "heading", text: t("gp.datesHeading") });
     blocks.push({
       type: "facts",
@@ -156,10 +157,10 @@ export function gpSummaryContent(facts: GpSummaryFacts, locale: string): EmailCo
     const rows: { label: string; value: string }[] = [
       { label: t("device.size"), value: t("device.sizeChOnly", { ch: prev.sizeCh }) },
       { label: t("device.balloon"), value: t("device.balloonValue", { ml: prev.balloonMl }) },
-      { label: t("device.material"), value: t(`enum.material.${prev.material}`) },
+      { label: t("device.material"), value: v(`material.${prev.material}`) },
       { label: t("device.inserted"), value: t("device.insertedValue", { date: d.at(new Date(prev.insertedAt)), name: prev.insertedByName }) },
     ];
-    if (c === "change" && facts.event?.reason) rows.push({ label: t("gp.changeReason"), value: t(`enum.reason.${facts.event.reason as "blockage"}`) });
+    if (c === "change" && facts.event?.reason) rows.push({ label: t("gp.changeReason"), value: v(`unplannedReason.${facts.event.reason as "blockage"}`) });
     if (c === "change" && facts.event?.kind === "planned_change") rows.push({ label: t("gp.changeReason"), value: t("gp.plannedChange") });
     blocks.push({ type: "facts", rows });
   }

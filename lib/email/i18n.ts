@@ -11,6 +11,12 @@ export function emailTranslator(locale: string) {
 }
 export type EmailT = ReturnType<typeof emailTranslator>;
 
+/** The record's words (routes, materials, reasons…) in an e-mail's language. */
+export function emailVocabulary(locale: string) {
+  return translatorFor(locale, "Vocabulary");
+}
+export type EmailV = ReturnType<typeof emailVocabulary>;
+
 /** Formats a YYYY-MM-DD calendar date (no time zone shift) or a timestamp. */
 export function emailDates(locale: string) {
   const f = formatterFor(locale);

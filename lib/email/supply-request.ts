@@ -5,7 +5,7 @@ import type { Executor } from "@/db";
 import { getCareTeamOrganisations } from "@/db/queries/mail-context";
 import type { CatheterEpisode, Organisation, Patient, SupplyRequest } from "@/db/schema";
 import { allergyText, careTeamLines } from "./gp-summary";
-import { emailDates, emailLocale, emailTranslator } from "./i18n";
+import { emailDates, emailLocale, emailTranslator, emailVocabulary } from "./i18n";
 import { queueMessage } from "./outbox";
 import { renderEmail, type Block } from "./render";
 
@@ -29,6 +29,7 @@ export async function queueSupplyRequestEmail(
 ) {
   const locale = emailLocale(gp?.locale);
   const t = emailTranslator(locale);
+  const v = emailVocabulary(locale);
   const d = emailDates(locale);
   const team = await getCareTeamOrganisations({ patientId: patient.id }, tx);
   const basis = (item: string, interval: number) => {
@@ -38,10 +39,10 @@ export async function queueSupplyRequestEmail(
     return t("supply.basisEvery", { days: interval });
   };
   const spec = t("supply.specValue", {
-    route: t(`enum.route.${episode.route}`),
-    type: t(`enum.catheterType.${episode.catheterType}`),
-    material: t(`enum.material.${episode.material}`),
-    length: t(`enum.length.${episode.lengthCategory}`),
+    route: v(`route.${episode.route}`),
+    type: v(`catheterType.${episode.catheterType}`),
+    material: v(`material.${episode.material}`),
+    length: v(`lengthCategory.${episode.lengthCategory}`),
     ch: episode.sizeCh,
     ml: episode.balloonMl,
   });

@@ -71,6 +71,7 @@ beforeAll(async () => {
 afterAll(() => fs.rmSync(dir, { recursive: true, force: true }));
 
 const pdfWords = (locale: "pl" | "ar" | "en") => (catalogues[locale] as typeof en).PassportPdf;
+const vocab = (locale: "pl" | "ar" | "en") => (catalogues[locale] as typeof en).Vocabulary;
 
 describe("passport booklet (PDF)", () => {
   it("Polish and English side by side: device facts, dates, allergies, contacts, safety line; diacritics kept", async () => {
@@ -79,14 +80,16 @@ describe("passport booklet (PDF)", () => {
     expect(pages).toBeGreaterThanOrEqual(5);
     const pl = pdfWords("pl");
     const enW = pdfWords("en");
+    const plV = vocab("pl");
+    const enV = vocab("en");
     // Seed: Halina's catheter in place is 14 Ch, 10 ml, hydrogel-coated latex, female length, lot HN2404.
     for (const phrase of [
       pl.title, enW.title,
       pl.size, enW.size, "14 Ch (4,7 mm)", "14 Ch (4.7 mm)",
       pl.balloon, enW.balloon, "10 ml jałowej wody", "10 ml sterile water",
-      pl.materials["hydrogel-coated-latex"], enW.materials["hydrogel-coated-latex"],
-      pl.lengths.female, enW.lengths.female,
-      pl.routes.urethral, enW.routes.urethral,
+      plV.material["hydrogel-coated-latex"], enV.material["hydrogel-coated-latex"],
+      plV.lengthCategory.female, enV.lengthCategory.female,
+      plV.route.urethral, enV.route.urethral,
       "HN2404", "Northfen Medical (demo)",
       pl.nextChange, enW.nextChange, pl.reviewDue, enW.reviewDue,
       pl.noAllergies, enW.noAllergies,
@@ -99,8 +102,8 @@ describe("passport booklet (PDF)", () => {
       expect(text, phrase).toContain(phrase);
     }
     // History, most recent first: her unplanned changes for blockage, in both languages.
-    expect(text).toContain(`${pl.events.unplanned_change} (${pl.reasons.blockage})`);
-    expect(text).toContain(`${enW.events.unplanned_change} (${enW.reasons.blockage})`);
+    expect(text).toContain(`${plV.eventKind.unplanned_change} (${plV.unplannedReason.blockage})`);
+    expect(text).toContain(`${enV.eventKind.unplanned_change} (${enV.unplannedReason.blockage})`);
     expect(text.indexOf("HN2404", text.indexOf(enW.historyTitle))).toBeLessThan(text.indexOf("HN2400", text.indexOf(enW.historyTitle)));
   });
 
@@ -110,13 +113,14 @@ describe("passport booklet (PDF)", () => {
     expect(pages).toBeGreaterThanOrEqual(5);
     const ar = pdfWords("ar");
     const enW = pdfWords("en");
+    const enV = vocab("en");
     // Words whose glyphs map back cleanly; the text layer is in visual (right-to-left) order, so
     // single words are compared. Yusuf: suprapubic, 16 Ch, 10 ml, all silicone, chlorhexidine allergy.
     for (const word of [ar.route, ar.size, ar.balloon, ar.length, ar.indication, ar.allergiesTitle, "سيليكون", "معقم"]) {
       expect(text, word).toContain(word);
     }
     for (const phrase of [
-      enW.routes.suprapubic, "16 Ch (5.4 mm)", "10 ml sterile water", enW.materials["all-silicone"],
+      enV.route.suprapubic, "16 Ch (5.4 mm)", "10 ml sterile water", enV.material["all-silicone"],
       enW.allergy.chlorhexidine, "YH5520", enW.translationNote, "Call 999 now if you:",
     ]) {
       expect(text, phrase).toContain(phrase);

@@ -9,6 +9,7 @@ import { pdfText, withoutMarks } from "@/lib/pdf/kit/rtl";
 import en from "@/messages/en.json";
 
 const words = en.PassportPdf;
+const vocab = en.Vocabulary;
 const LRM = "\u200E";
 const enOnly = [pdfStrings("en")];
 const arEn = [pdfStrings("ar"), pdfStrings("en")];
@@ -44,7 +45,7 @@ describe("device rows", () => {
     // Source: ISO 20696:2018 clause 5.5.2: 16 Ch → 5.4 mm.
     expect(value(words.size)).toBe("16 Ch (5.4 mm)");
     expect(value(words.balloon)).toBe("10 ml sterile water");
-    expect(value(words.material)).toBe(words.materials["all-silicone"]);
+    expect(value(words.material)).toBe(vocab.material["all-silicone"]);
     // Maker and lot together: a recall names both.
     expect(value(`${words.maker} · ${words.lot}`)).toBe("Northfen Medical (demo) SilkLine · YH5520");
     expect(rows.filter((r) => r.big).map((r) => r.labels[0])).toEqual([words.size, words.balloon]);
@@ -118,8 +119,8 @@ describe("allergies and history", () => {
   it("says what happened, why, and which catheter went in", () => {
     const s = pdfStrings("en");
     const e: BookletEvent = { at: new Date(), kind: "unplanned_change", reason: "blockage", twocOutcome: null, byName: "Grace Mensah", organisationName: null, sizeCh: 16, material: "all-silicone", lot: "YH5520" };
-    expect(eventWhat(s, e)).toBe(`${words.events.unplanned_change} (${words.reasons.blockage})`);
-    expect(eventDetails(s, e)).toBe(`16 Ch, ${words.materials["all-silicone"]}, ${words.lot} YH5520`);
+    expect(eventWhat(s, e)).toBe(`${vocab.eventKind.unplanned_change} (${vocab.unplannedReason.blockage})`);
+    expect(eventDetails(s, e)).toBe(`16 Ch, ${vocab.material["all-silicone"]}, ${words.lot} YH5520`);
     expect(eventDetails(s, { ...e, sizeCh: null, material: null, lot: null })).toBe("—");
     expect(eventDetails(pdfStrings("ar"), e)).toContain("، ");
   });

@@ -38,10 +38,10 @@ export function deviceRows(all: PdfStrings[], d: BookletDevice): FactRow[] {
     values: each(value),
   });
   return [
-    row((s) => s.t("route"), (s) => s.t(`routes.${d.route}`)),
-    row((s) => s.t("catheterType"), (s) => s.t(`catheterTypes.${d.catheterType}`)),
-    row((s) => s.t("material"), (s) => s.t(`materials.${d.material}`)),
-    row((s) => s.t("length"), (s) => s.t(`lengths.${d.lengthCategory}`)),
+    row((s) => s.t("route"), (s) => s.v(`route.${d.route}`)),
+    row((s) => s.t("catheterType"), (s) => s.v(`catheterType.${d.catheterType}`)),
+    row((s) => s.t("material"), (s) => s.v(`material.${d.material}`)),
+    row((s) => s.t("length"), (s) => s.v(`lengthCategory.${d.lengthCategory}`)),
     {
       ...row((s) => s.t("size"), (s) => s.t("sizeValue", { ch: iso(s, String(d.sizeCh)), mm: iso(s, s.number(d.sizeMm)) })),
       big: true,
@@ -92,16 +92,16 @@ export function phoneLine(s: PdfStrings, phone: string | null) {
 }
 
 export function eventWhat(s: PdfStrings, e: BookletEvent): string {
-  let what = s.t(`events.${e.kind}`);
-  if (e.reason) what += ` (${s.t(`reasons.${e.reason}`)})`;
-  if (e.twocOutcome) what += ` (${s.t(`twoc.${e.twocOutcome}`)})`;
+  let what = s.v(`eventKind.${e.kind}`);
+  if (e.reason) what += ` (${s.v(`unplannedReason.${e.reason}`)})`;
+  if (e.twocOutcome) what += ` (${s.v(`twocOutcome.${e.twocOutcome}`)})`;
   return what;
 }
 
 export function eventDetails(s: PdfStrings, e: BookletEvent): string {
   const parts: string[] = [];
   if (e.sizeCh) parts.push(iso(s, `${e.sizeCh} Ch`));
-  if (e.material) parts.push(s.t(`materials.${e.material}`));
+  if (e.material) parts.push(s.v(`material.${e.material}`));
   if (e.lot) parts.push(`${s.t("lot")} ${iso(s, e.lot)}`);
   return parts.join(s.rtl ? "، " : ", ") || "—";
 }

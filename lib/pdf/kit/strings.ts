@@ -7,6 +7,8 @@ import { directionOf } from "@/lib/i18n/routing";
 export function pdfStrings(locale: string) {
   const l = catalogueLocale(locale);
   const t = translatorFor(l, "PassportPdf");
+  /** The record's words (routes, materials, reasons…), from the one Vocabulary namespace. */
+  const v = translatorFor(l, "Vocabulary");
   const format = formatterFor(l);
   const rtl = directionOf(l) === "rtl";
   /** Date-only values (YYYY-MM-DD) are calendar days: format them at noon UTC so no zone shifts them. */
@@ -14,7 +16,7 @@ export function pdfStrings(locale: string) {
     iso ? format.dateTime(new Date(`${iso}T12:00:00Z`), { dateStyle: "long", timeZone: "UTC" }) : "—";
   const moment = (d: Date | null | undefined) => (d ? format.dateTime(d, { dateStyle: "long" }) : "—");
   const number = (n: number, maximumFractionDigits = 1) => format.number(n, { maximumFractionDigits });
-  return { locale: l, t, format, rtl, day, moment, number };
+  return { locale: l, t, v, format, rtl, day, moment, number };
 }
 
 export type PdfStrings = ReturnType<typeof pdfStrings>;

@@ -16,6 +16,7 @@ export const GET = handle(async (request) => {
   const view = parseInput(caseloadViewSchema, params);
   const locale = params.locale && isLocale(params.locale) ? params.locale : viewer.locale && isLocale(viewer.locale) ? viewer.locale : "en";
   const t = translatorFor(locale, "CaseloadExport");
+  const v = translatorFor(locale, "Vocabulary");
   const { dueSoonDays } = await getPlanDefaults();
   const { rows, today } = await listCaseloadAll({ organisationIds: viewer.organisationIds, view, dueSoonDays });
   const csv = toCsv([
@@ -35,7 +36,7 @@ export const GET = handle(async (request) => {
     ...rows.map((r) => [
       r.name,
       r.healthRecordNumber,
-      r.route ? t(`routes.${r.route}`) : "",
+      r.route ? v(`route.${r.route}`) : "",
       r.sizeCh,
       r.insertedOn,
       r.daysSinceInsertion,

@@ -13,6 +13,7 @@ export default async function PatientRecordLayout({ children, params }: { childr
   const [record, closedAt] = await Promise.all([getPatientRecord({ patientId }), recordClosedAt(patientId)]);
   if (!record) notFound();
   const t = await getTranslations("PatientRecord");
+  const v = await getTranslations("Vocabulary");
   const format = await getFormatter();
   const { patient, currentEpisode: e } = record;
   return (
@@ -30,7 +31,7 @@ export default async function PatientRecordLayout({ children, params }: { childr
         <p className="tabular text-lg" data-testid="record-device">
           {e ? (
             <>
-              <span className="font-bold">{t(`routes.${e.route}`)}</span> · {t("sizeCh", { size: e.sizeCh })} · {t("balloon", { ml: e.balloonMl })}
+              <span className="font-bold">{v(`route.${e.route}`)}</span> · {t("sizeCh", { size: e.sizeCh })} · {t("balloon", { ml: e.balloonMl })}
             </>
           ) : (
             t("noDevice")

@@ -26,6 +26,7 @@ export default async function DeviceTab({ params }: { params: Promise<{ locale: 
   const [record, gpPractices, planning] = await Promise.all([getPatientRecord({ patientId }), listGpPracticeDirectory(), getPlanDefaults()]);
   if (!record) notFound();
   const t = await getTranslations("PatientDevice");
+  const v = await getTranslations("Vocabulary");
   const tVisit = await getTranslations("VisitForm");
   const format = await getFormatter();
   const e = record.currentEpisode;
@@ -75,10 +76,10 @@ export default async function DeviceTab({ params }: { params: Promise<{ locale: 
                 <p className="tabular text-2xl font-bold">{t("balloon", { ml: e.balloonMl })}</p>
               </div>
               <dl className="grid gap-x-6 gap-y-2 sm:grid-cols-[minmax(12rem,auto)_1fr]">
-                <Row label={t("fields.route")}>{t(`routes.${e.route}`)}</Row>
-                <Row label={t("fields.type")}>{t(`types.${e.catheterType}`)}</Row>
-                <Row label={t("fields.material")}>{t(`materials.${e.material}`)}</Row>
-                <Row label={t("fields.length")}>{t(`lengths.${e.lengthCategory}`)}</Row>
+                <Row label={t("fields.route")}>{v(`route.${e.route}`)}</Row>
+                <Row label={t("fields.type")}>{v(`catheterType.${e.catheterType}`)}</Row>
+                <Row label={t("fields.material")}>{v(`material.${e.material}`)}</Row>
+                <Row label={t("fields.length")}>{v(`lengthCategory.${e.lengthCategory}`)}</Row>
                 <Row label={t("fields.size")}>
                   {t("sizeCh", { size: e.sizeCh })} · {t("mmOuter", { mm: format.number(charriereToMm(e.sizeCh), { minimumFractionDigits: 1, maximumFractionDigits: 1 }) })}
                 </Row>
@@ -97,7 +98,7 @@ export default async function DeviceTab({ params }: { params: Promise<{ locale: 
                 <Row label={t("fields.insertedBy")}>{e.insertedByName}</Row>
                 <Row label={t("fields.indication")}>{e.indication}</Row>
                 <Row label={t("fields.gel")}>
-                  {t(`gels.${e.gelKind}`)}
+                  {v(`gelKind.${e.gelKind}`)}
                   {e.gelVolumeMl !== null && e.gelVolumeMl !== undefined && e.gelKind !== "none" ? ` · ${t("ml", { ml: e.gelVolumeMl })}` : ""}
                 </Row>
                 <Row label={t("fields.residual")}>{e.residualUrineMl === null ? t("notRecorded") : t("ml", { ml: e.residualUrineMl })}</Row>

@@ -13,15 +13,16 @@ export default async function HistoryTab({ params }: { params: Promise<{ locale:
   await openRecordPage({ locale, patientId, action: "patient.view.history" });
   const history = await getPatientHistory({ patientId });
   const t = await getTranslations("PatientHistory");
+  const vocab = await getTranslations("Vocabulary");
   const format = await getFormatter();
   const dateTime = (iso: string) => format.dateTime(new Date(iso), { dateStyle: "medium", timeStyle: "short" });
   const date = (iso: string) => format.dateTime(new Date(`${iso}T12:00:00Z`), { dateStyle: "medium" });
   const b = history.blockage;
 
   const eventLine = (v: HistoryEvent) => {
-    const parts = [t(`kinds.${v.kind}`)];
-    if (v.reason) parts.push(t(`reasons.${v.reason}`));
-    if (v.twocOutcome) parts.push(t(`twoc.${v.twocOutcome}`));
+    const parts = [vocab(`eventKind.${v.kind}`)];
+    if (v.reason) parts.push(vocab(`unplannedReason.${v.reason}`));
+    if (v.twocOutcome) parts.push(vocab(`twocOutcome.${v.twocOutcome}`));
     return parts.join(" — ");
   };
 
@@ -61,8 +62,8 @@ export default async function HistoryTab({ params }: { params: Promise<{ locale:
                 e={e}
                 number={total - i}
                 labels={{
-                  heading: t("episodeHeading", { number: total - i, route: t(`routes.${e.route}`), size: e.sizeCh }),
-                  device: t("episodeDevice", { material: t(`materials.${e.material}`), balloon: e.balloonMl }),
+                  heading: t("episodeHeading", { number: total - i, route: vocab(`route.${e.route}`), size: e.sizeCh }),
+                  device: t("episodeDevice", { material: vocab(`material.${e.material}`), balloon: e.balloonMl }),
                   inserted: t("inserted", { when: dateTime(e.insertedAt), who: e.insertedByName }),
                   organisation: e.organisationName ? t("atOrganisation", { organisation: e.organisationName }) : null,
                   dwell: e.inPlace ? t("dwellInPlace", { count: e.dwellDays }) : t("dwellRemoved", { count: e.dwellDays }),
