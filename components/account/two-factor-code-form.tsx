@@ -12,6 +12,7 @@ import { useErrorText } from "@/components/ui/use-error-text";
 /** The second step of signing in: the code from the authenticator app, or a backup code. */
 export function TwoFactorCodeForm() {
   const t = useTranslations("TwoFactor");
+  const tErrors = useTranslations("Errors");
   const errorText = useErrorText("TwoFactor");
   const locale = useLocale();
   const [backup, setBackup] = useState(false);
@@ -36,7 +37,7 @@ export function TwoFactorCodeForm() {
     setBusy(false);
     if (error) {
       const expired = error.code === "INVALID_TWO_FACTOR_COOKIE" || /cookie/i.test(error.message ?? "");
-      setFailure({ text: expired ? t("expired") : error.status === 429 ? t("tooMany") : t("wrongCode"), expired });
+      setFailure({ text: expired ? t("expired") : error.status === 429 ? tErrors("rate_limited") : t("wrongCode"), expired });
       return;
     }
     window.location.assign(`/${locale}/home`);

@@ -12,6 +12,7 @@ import { TwoFactorSetup } from "./two-factor-setup";
 /** The account page's two-step sign-in section: set up, new backup codes, or turn off (if allowed). */
 export function TwoFactorPanel({ enabled, required }: { enabled: boolean; required: boolean }) {
   const t = useTranslations("TwoFactor");
+  const tErrors = useTranslations("Errors");
   const router = useRouter();
   const [mode, setMode] = useState<"idle" | "setup" | "codes" | "disable">("idle");
   const [password, setPassword] = useState("");
@@ -38,7 +39,7 @@ export function TwoFactorPanel({ enabled, required }: { enabled: boolean; requir
     if (action === "codes") {
       const { data, error } = await authClient.twoFactor.generateBackupCodes({ password });
       setBusy(false);
-      if (error || !data) return setMessage({ tone: "stop", text: error?.status === 429 ? t("tooMany") : t("wrongPassword") });
+      if (error || !data) return setMessage({ tone: "stop", text: error?.status === 429 ? tErrors("rate_limited") : t("wrongPassword") });
       setCodes(data.backupCodes);
       setPassword("");
       setMode("idle");
@@ -46,7 +47,7 @@ export function TwoFactorPanel({ enabled, required }: { enabled: boolean; requir
     }
     const { error } = await authClient.twoFactor.disable({ password });
     setBusy(false);
-    if (error) return setMessage({ tone: "stop", text: error.status === 403 ? t("requiredCannotDisable") : error.status === 429 ? t("tooMany") : t("wrongPassword") });
+    if (error) return setMessage({ tone: "stop", text: error.status === 403 ? t("requiredCannotDisable") : error.status === 429 ? tErrors("rate_limited") : t("wrongPassword") });
     setPassword("");
     setMode("idle");
     router.refresh();

@@ -17,6 +17,7 @@ import { BackupCodes } from "./backup-codes";
  */
 export function TwoFactorSetup({ onDone }: { onDone?: () => void }) {
   const t = useTranslations("TwoFactor");
+  const tErrors = useTranslations("Errors");
   const errorText = useErrorText("TwoFactor");
   const [password, setPassword] = useState("");
   const [step, setStep] = useState<"password" | "scan" | "done">("password");
@@ -46,7 +47,7 @@ export function TwoFactorSetup({ onDone }: { onDone?: () => void }) {
           const { data, error: err } = await authClient.twoFactor.enable({ password, issuer: "Caddis" });
           setBusy(false);
           if (err || !data || !("totpURI" in data) || !data.totpURI) {
-            setError(err?.status === 429 ? t("tooMany") : t("wrongPassword"));
+            setError(err?.status === 429 ? tErrors("rate_limited") : t("wrongPassword"));
             return;
           }
           setUri(data.totpURI);
@@ -83,7 +84,7 @@ export function TwoFactorSetup({ onDone }: { onDone?: () => void }) {
           const { error: err } = await authClient.twoFactor.verifyTotp({ code: parsed.data.code });
           setBusy(false);
           if (err) {
-            setError(err.status === 429 ? t("tooMany") : t("wrongCode"));
+            setError(err.status === 429 ? tErrors("rate_limited") : t("wrongCode"));
             return;
           }
           setStep("done");

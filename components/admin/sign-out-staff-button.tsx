@@ -8,6 +8,7 @@ import { apiFetch } from "@/lib/browser/api-client";
 /** Signs a member of staff out on every device (their next request needs a new sign-in). */
 export function SignOutStaffButton({ userId, name }: { userId: string; name: string }) {
   const t = useTranslations("AdminStaff");
+  const tErrors = useTranslations("Errors");
   const [busy, setBusy] = useState(false);
   const [result, setResult] = useState<{ tone: "ok" | "stop"; text: string } | null>(null);
   return (
@@ -26,7 +27,7 @@ export function SignOutStaffButton({ userId, name }: { userId: string; name: str
               const { sessionsEnded } = await apiFetch<{ sessionsEnded: number }>(`/api/admin/staff/${encodeURIComponent(userId)}/sign-out`, { method: "POST" });
               setResult({ tone: "ok", text: t("signedOut", { count: sessionsEnded }) });
             } catch {
-              setResult({ tone: "stop", text: t("errors.generic") });
+              setResult({ tone: "stop", text: tErrors("generic") });
             } finally {
               setBusy(false);
             }

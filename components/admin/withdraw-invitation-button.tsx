@@ -8,6 +8,7 @@ import { useRouter } from "@/lib/i18n/navigation";
 
 export function WithdrawInvitationButton({ invitationId, email }: { invitationId: string; email: string }) {
   const t = useTranslations("AdminStaff");
+  const tErrors = useTranslations("Errors");
   const router = useRouter();
   const [busy, setBusy] = useState(false);
   const [failed, setFailed] = useState(false);
@@ -33,7 +34,7 @@ export function WithdrawInvitationButton({ invitationId, email }: { invitationId
       >
         {t("withdraw")}
       </Button>
-      {failed ? <ErrorAlert message={t("errors.generic")} testId="withdraw-error" /> : null}
+      {failed ? <ErrorAlert message={tErrors("generic")} testId="withdraw-error" /> : null}
     </span>
   );
 }

@@ -10,6 +10,7 @@ import { signInSchema } from "@/lib/validations/auth";
 /** Asks for a reset link; the answer is the same whether or not the address has an account. */
 export function ForgotPasswordForm() {
   const t = useTranslations("PasswordReset");
+  const tErrors = useTranslations("Errors");
   const locale = useLocale();
   const [email, setEmail] = useState("");
   const [sent, setSent] = useState(false);
@@ -27,7 +28,7 @@ export function ForgotPasswordForm() {
         setBusy(true);
         const { error: err } = await authClient.requestPasswordReset({ email, redirectTo: `/${locale}/reset-password` });
         setBusy(false);
-        if (err?.status === 429) return setError(t("errors.rate_limited"));
+        if (err?.status === 429) return setError(tErrors("rate_limited"));
         setSent(true);
       }}
     >

@@ -13,6 +13,7 @@ import { signInSchema, type SignInInput } from "@/lib/validations/auth";
 /** `returnTo`: a same-site path to go back to after signing in (the passport's visit-access page). */
 export function SignInForm({ returnTo }: { returnTo?: string } = {}) {
   const t = useTranslations("SignIn");
+  const tErrors = useTranslations("Errors");
   const locale = useLocale();
   const [formError, setFormError] = useState<string | null>(null);
   const {
@@ -31,7 +32,7 @@ export function SignInForm({ returnTo }: { returnTo?: string } = {}) {
         setFormError(t("delayed", { wait: wait < 90 ? t("waitSeconds", { count: wait }) : t("waitMinutes", { count: Math.ceil(wait / 60) }) }));
         return;
       }
-      setFormError(error.status === 429 ? t("tooMany") : error.status === 403 ? t("inactive") : t("wrong"));
+      setFormError(error.status === 429 ? tErrors("rate_limited") : error.status === 403 ? t("inactive") : t("wrong"));
       return;
     }
     // Two-step sign-in: the password was right; the code page finishes signing in.

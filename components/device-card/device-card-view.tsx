@@ -36,8 +36,8 @@ async function CardInLanguage({ card, locale, first }: { card: DeviceCard; local
   const calendarDay = (ymd: string) =>
     format.dateTime(new Date(`${ymd}T12:00:00Z`), { weekday: "short", day: "numeric", month: "short", year: "numeric", timeZone: "UTC" });
   const { present, notRecorded } = allergySummary(card.allergies);
-  const allergies = present.map((a) => p(`allergy.${a}`));
-  const unknown = notRecorded.length ? p("allergyNotRecorded", { allergens: notRecorded.map((a) => p(`allergy.${a}`)).join(" · ") }) : null;
+  const allergies = present.map((a) => v(`allergen.${a}`));
+  const unknown = notRecorded.length ? p("allergyNotRecorded", { allergens: notRecorded.map((a) => v(`allergen.${a}`)).join(" · ") }) : null;
   const H = first ? "h2" : "h3";
   return (
     <section lang={locale} dir={directionOf(locale)} className="flex flex-col gap-4" data-testid={`card-${locale}`}>

@@ -185,7 +185,7 @@ export function PatientForm(props: Props) {
           {ALLERGENS.map((a) => (
             <RadioGroup
               key={a}
-              legend={t(`allergy.${a}`)}
+              legend={v(`allergen.${a}`)}
               errors={errorsOf(`allergies.${a}`)}
               options={ALLERGY_ANSWERS.map((answer) => ({ value: answer, label: t(`allergyAnswer.${answer}`) }))}
               inputProps={register(`allergies.${a}`)}

@@ -9,9 +9,10 @@ import type { PatientDetails } from "@/lib/shared/dto";
  */
 export function AllergyBox({ allergies }: { allergies: PatientDetails["allergies"] }) {
   const t = useTranslations("PatientRecord");
+  const v = useTranslations("Vocabulary");
   const { present, notRecorded } = allergySummary(allergies);
-  const list = [...present.map((a) => t(`allergy.${a}`)), ...(allergies.other ? [allergies.other] : [])];
-  const unknown = notRecorded.map((a) => t(`allergy.${a}`)).join(" · ");
+  const list = [...present.map((a) => v(`allergen.${a}`)), ...(allergies.other ? [allergies.other] : [])];
+  const unknown = notRecorded.map((a) => v(`allergen.${a}`)).join(" · ");
   if (list.length === 0 && !unknown) return null;
   const stop = list.length > 0;
   return (

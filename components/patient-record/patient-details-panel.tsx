@@ -39,7 +39,7 @@ export function PatientDetailsPanel({ patient, gpPractices, canEdit }: { patient
   }
 
   const allergies = [
-    ...ALLERGENS.map((a) => `${tf(`allergy.${a}`)}: ${tf(`allergyAnswer.${patient.allergies[a]}`)}`),
+    ...ALLERGENS.map((a) => `${v(`allergen.${a}`)}: ${tf(`allergyAnswer.${patient.allergies[a]}`)}`),
     ...(patient.allergies.other ? [`${tf("allergyOther")}: ${patient.allergies.other}`] : []),
   ];
   const rows: [string, string][] = [

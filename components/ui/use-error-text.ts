@@ -13,7 +13,7 @@ type Namespace = keyof typeof en;
 
 /**
  * `one(code)`: the namespace's `errors.<code>`, else the shared `Errors.<code>` (request codes,
- * password rules), else the namespace's `errors.generic`, else a general word.
+ * password rules), else the namespace's own `errors.generic` or the shared `Errors.generic`.
  */
 export function useErrorText(namespace: Namespace) {
   const t = useTranslations(namespace);
@@ -27,7 +27,7 @@ export function useErrorText(namespace: Namespace) {
     if (t.has(key as never)) return t(key as never);
     if (e.has(code as never)) return e(code as never, values as never);
     if (t.has("errors.generic" as never)) return t("errors.generic" as never);
-    return e(fallback);
+    return e(fallback === "internal" ? "generic" : fallback);
   };
   return {
     one,

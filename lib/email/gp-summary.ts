@@ -47,10 +47,10 @@ function findingName(t: EmailT, code: string, message: string): string {
 }
 
 /** The allergies, then those nobody has asked about ("not recorded"); "none recorded" only when all were asked. */
-export function allergyText(t: EmailT, a: GpSummaryFacts["patient"]["allergies"]): string {
+export function allergyText(t: EmailT, v: EmailV, a: GpSummaryFacts["patient"]["allergies"]): string {
   const { present, notRecorded } = allergySummary(a);
-  const list = [...present.map((k) => t(`enum.allergy.${k}`)), ...(a.other?.trim() ? [a.other.trim()] : [])];
-  const unknown = notRecorded.length ? t("gp.allergyNotRecorded", { allergens: notRecorded.map((k) => t(`enum.allergy.${k}`)).join(", ") }) : null;
+  const list = [...present.map((k) => v(`allergen.${k}`)), ...(a.other?.trim() ? [a.other.trim()] : [])];
+  const unknown = notRecorded.length ? t("gp.allergyNotRecorded", { allergens: notRecorded.map((k) => v(`allergen.${k}`)).join(", ") }) : null;
   if (!list.length && !unknown) return t("common.noneRecorded");
   return [list.join(", "), unknown].filter(Boolean).join(". ");
 }
@@ -108,7 +108,7 @@ export function gpSummaryContent(facts: GpSummaryFacts, locale: string): EmailCo
       { label: t("gp.name"), value: facts.patient.name },
       { label: t("gp.dateOfBirth"), value: d.short(facts.patient.dateOfBirth) },
       { label: t("gp.healthRecordNumber"), value: facts.patient.healthRecordNumber },
-      { label: t("gp.allergies"), value: allergyText(t, facts.patient.allergies) },
+      { label: t("gp.allergies"), value: allergyText(t, v, facts.patient.allergies) },
     ],
   });
 

@@ -56,7 +56,7 @@ export async function queueSupplyRequestEmail(
         { label: t("gp.healthRecordNumber"), value: patient.healthRecordNumber },
         {
           label: t("gp.allergies"),
-          value: allergyText(t, { latex: patient.allergyLatex, chlorhexidine: patient.allergyChlorhexidine, lidocaine: patient.allergyLidocaine, other: patient.allergyOther }),
+          value: allergyText(t, v, { latex: patient.allergyLatex, chlorhexidine: patient.allergyChlorhexidine, lidocaine: patient.allergyLidocaine, other: patient.allergyOther }),
         },
       ],
     },

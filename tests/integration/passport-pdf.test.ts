@@ -121,7 +121,7 @@ describe("passport booklet (PDF)", () => {
     }
     for (const phrase of [
       enV.route.suprapubic, "16 Ch (5.4 mm)", "10 ml sterile water", enV.material["all-silicone"],
-      enW.allergy.chlorhexidine, "YH5520", enW.translationNote, "Call 999 now if you:",
+      enV.allergen.chlorhexidine, "YH5520", enW.translationNote, "Call 999 now if you:",
     ]) {
       expect(text, phrase).toContain(phrase);
     }

@@ -104,7 +104,7 @@ describe("allergies and history", () => {
   it("lists the allergies a patient has in a fixed order, the free-text one last with its label", () => {
     const s = pdfStrings("en");
     expect(allergyList(s, { latex: "yes", chlorhexidine: "no", lidocaine: "yes", other: " plasters " })).toEqual([
-      words.allergy.latex, words.allergy.lidocaine, `${words.allergy.other}: plasters`,
+      vocab.allergen.latex, vocab.allergen.lidocaine, `${words.allergy.other}: plasters`,
     ]);
     expect(allergyList(s, { latex: "no", chlorhexidine: "no", lidocaine: "no", other: "  " })).toEqual([]);
     expect(notRecordedLine(s, { latex: "no", chlorhexidine: "no", lidocaine: "no", other: null })).toBeNull();
@@ -113,7 +113,7 @@ describe("allergies and history", () => {
   it("names the allergens nobody has asked about, to ask first", () => {
     const s = pdfStrings("en");
     const line = notRecordedLine(s, { latex: "not-asked", chlorhexidine: "no", lidocaine: "not-asked", other: null });
-    expect(line).toBe(words.allergyNotRecorded.replace("{allergens}", `${words.allergy.latex}, ${words.allergy.lidocaine}`));
+    expect(line).toBe(words.allergyNotRecorded.replace("{allergens}", `${vocab.allergen.latex}, ${vocab.allergen.lidocaine}`));
   });
 
   it("says what happened, why, and which catheter went in", () => {

@@ -20,14 +20,14 @@ export type FactRow = {
 export const iso = (s: PdfStrings, value: string) => ltrRun(value, s.rtl);
 
 export function allergyList(s: PdfStrings, a: PassportBookletData["patient"]["allergies"]): string[] {
-  const out = allergySummary(a).present.map((k) => s.t(`allergy.${k}`));
+  const out = allergySummary(a).present.map((k) => s.v(`allergen.${k}`));
   if (a.other?.trim()) out.push(`${s.t("allergy.other")}: ${a.other.trim()}`);
   return out;
 }
 
 /** "Not recorded, ask first: Latex" for the allergens nobody has asked about, or null. */
 export function notRecordedLine(s: PdfStrings, a: PassportBookletData["patient"]["allergies"]): string | null {
-  const unknown = allergySummary(a).notRecorded.map((k) => s.t(`allergy.${k}`));
+  const unknown = allergySummary(a).notRecorded.map((k) => s.v(`allergen.${k}`));
   return unknown.length ? s.t("allergyNotRecorded", { allergens: unknown.join(s.rtl ? "، " : ", ") }) : null;
 }
 

@@ -19,6 +19,7 @@ export async function generateMetadata() {
 export default async function MyCatheterPage({ params, searchParams }: { params: Promise<{ locale: string }>; searchParams: Promise<{ patient?: string }> }) {
   const { locale } = await params;
   const viewer = await requirePageRole(locale, "patient", "carer");
+  const v = await getTranslations("Vocabulary");
   const t = await getTranslations("MyCatheter");
   const format = await getFormatter();
   const patient = await portalPatient(viewer, (await searchParams).patient);
@@ -27,8 +28,8 @@ export default async function MyCatheterPage({ params, searchParams }: { params:
   const day = (d: string) => format.dateTime(new Date(`${d}T12:00:00Z`), { weekday: "long", day: "numeric", month: "long", year: "numeric", timeZone: "UTC" });
   const carerOf = subjectName(viewer, patient);
   const summary = allergies ? allergySummary(allergies) : { present: [], notRecorded: [] };
-  const allergyList = [...summary.present.map((a) => t(`allergy.${a}`)), ...(allergies?.other ? [allergies.other] : [])];
-  const notAsked = summary.notRecorded.map((a) => t(`allergy.${a}`)).join(", ");
+  const allergyList = [...summary.present.map((a) => v(`allergen.${a}`)), ...(allergies?.other ? [allergies.other] : [])];
+  const notAsked = summary.notRecorded.map((a) => v(`allergen.${a}`)).join(", ");
   const today = todayIso();
   const daysUntil = (d: string) => parseIsoDate("date", d) - parseIsoDate("today", today);
   const row = (label: string, value: string, testId?: string, more?: ReactNode) => (
