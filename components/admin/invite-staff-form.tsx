@@ -17,6 +17,7 @@ type Result = { invitation: { email: string; expiresAt: string }; emailed: boole
 
 export function InviteStaffForm({ organisations }: { organisations: Org[] }) {
   const t = useTranslations("AdminStaff");
+  const v = useTranslations("Vocabulary");
   const router = useRouter();
   const [result, setResult] = useState<Result | null>(null);
   const {
@@ -56,7 +57,7 @@ export function InviteStaffForm({ organisations }: { organisations: Org[] }) {
       <div className="grid gap-4 md:grid-cols-2">
         <Field label={t("email")} type="email" inputMode="email" autoComplete="off" errors={errorText.list(errors.email)} {...register("email")} />
         <Field label={t("nameOptional")} autoComplete="off" errors={errorText.list(errors.name)} {...register("name")} />
-        <SelectField label={t("role")} errors={errorText.list(errors.role)} options={staffRoles.map((r) => ({ value: r, label: t(`roles.${r}`) }))} {...register("role")} />
+        <SelectField label={t("role")} errors={errorText.list(errors.role)} options={staffRoles.map((r) => ({ value: r, label: v(`role.${r}`) }))} {...register("role")} />
       </div>
       <ChoiceGroup legend={t("organisations")} errors={errorText.list(errors.organisationIds)}>
         <div className="grid gap-x-4 md:grid-cols-2">

@@ -23,6 +23,7 @@ export function StaffEditor({
   isSelf: boolean;
 }) {
   const t = useTranslations("AdminStaff");
+  const v = useTranslations("Vocabulary");
   const failure = useSubmitFailure("AdminStaff");
   const router = useRouter();
   const [role, setRole] = useState(member.role);
@@ -59,7 +60,7 @@ export function StaffEditor({
         <SelectField label={t("role")} value={role} onChange={(e) => setRole(e.target.value as typeof role)}>
           {staffRoles.map((r) => (
             <option key={r} value={r}>
-              {t(`roles.${r}`)}
+              {v(`role.${r}`)}
             </option>
           ))}
         </SelectField>

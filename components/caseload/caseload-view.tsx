@@ -239,7 +239,7 @@ function useCells() {
   const v = useTranslations("Vocabulary");
   const format = useFormatter();
   const date = (d: string | null) => (d ? format.dateTime(new Date(`${d}T12:00:00Z`), { dateStyle: "medium" }) : "—");
-  const device = (r: CaseloadRow) => (r.route ? `${v(`route.${r.route}`)} · ${t("sizeCh", { size: r.sizeCh ?? 0 })}` : t("noDevice"));
+  const device = (r: CaseloadRow) => (r.route ? `${v(`route.${r.route}`)} · ${v("device.sizeCh", { ch: r.sizeCh ?? 0 })}` : t("noDevice"));
   const days = (r: CaseloadRow) => (r.daysSinceInsertion === null ? "—" : t("days", { count: r.daysSinceInsertion }));
   return { t, v, date, device, days };
 }
@@ -302,7 +302,7 @@ function CaseloadTable({ rows, query, onSort }: { rows: CaseloadRow[]; query: Ca
                 {r.route ? (
                   <>
                     <span className="block">{v(`route.${r.route}`)}</span>
-                    <span className="block">{t("sizeCh", { size: r.sizeCh ?? 0 })}</span>
+                    <span className="block">{v("device.sizeCh", { ch: r.sizeCh ?? 0 })}</span>
                   </>
                 ) : (
                   t("noDevice")

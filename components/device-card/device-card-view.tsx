@@ -68,14 +68,14 @@ async function CardInLanguage({ card, locale, first }: { card: DeviceCard; local
         <>
           <div className="grid grid-cols-2 gap-3">
             <div className="rounded-lg bg-brand-soft p-3">
-              <p className="text-ink-soft">{p("size")}</p>
+              <p className="text-ink-soft">{v("device.size")}</p>
               <p className="tabular text-3xl font-bold" data-testid="card-size">
-                <bdi dir="ltr">{t("sizeValue", { ch: d.sizeCh })}</bdi>
+                <bdi dir="ltr">{v("device.sizeCh", { ch: d.sizeCh })}</bdi>
               </p>
               <p className="tabular">{t("mm", { mm: charriereToMm(d.sizeCh) })}</p>
             </div>
             <div className="rounded-lg bg-brand-soft p-3">
-              <p className="text-ink-soft">{p("balloon")}</p>
+              <p className="text-ink-soft">{v("device.balloon")}</p>
               <p className="tabular text-3xl font-bold" data-testid="card-balloon">
                 {t("mlValue", { ml: d.balloonMl })}
               </p>
@@ -87,13 +87,13 @@ async function CardInLanguage({ card, locale, first }: { card: DeviceCard; local
             <dd className="tabular font-bold">{day(d.insertedAt)}</dd>
             <dt className="text-ink-soft">{p("nextChange")}</dt>
             <dd className="tabular font-bold" data-testid="card-next-change">{calendarDay(d.plannedChangeOn)}</dd>
-            <dt className="text-ink-soft">{p("route")}</dt>
+            <dt className="text-ink-soft">{v("device.route")}</dt>
             <dd>{v(`route.${d.route as Route}`)}</dd>
-            <dt className="text-ink-soft">{p("catheterType")}</dt>
+            <dt className="text-ink-soft">{v("device.type")}</dt>
             <dd>{v(`catheterType.${d.catheterType as CatheterType}`)}</dd>
-            <dt className="text-ink-soft">{p("material")}</dt>
+            <dt className="text-ink-soft">{v("device.material")}</dt>
             <dd>{v(`material.${d.material as Material}`)}</dd>
-            <dt className="text-ink-soft">{p("length")}</dt>
+            <dt className="text-ink-soft">{v("device.length")}</dt>
             <dd>{v(`lengthCategory.${d.lengthCategory as LengthCategory}`)}</dd>
             <dt className="text-ink-soft">{t("gel")}</dt>
             <dd>{v(`gelKind.${d.gelKind as GelKind}`)}</dd>

@@ -1,6 +1,6 @@
 import { useTranslations } from "next-intl";
 import type { TriageLevel } from "@/lib/clinical";
-import { LEVEL_ICON, LEVEL_STYLE } from "./level-icons";
+import { LEVEL_ICON, LEVEL_STYLE } from "@/components/ui/level-marks";
 
 /** A level as word + shape + colour together (never colour alone). */
 export function LevelBadge({ level, size = "large", as: Tag = "p" }: { level: TriageLevel; size?: "large" | "small"; as?: "p" | "h2" | "h1" }) {

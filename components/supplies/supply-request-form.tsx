@@ -22,6 +22,7 @@ const includeKeys = ["legBag", "valve", "nightBag", "gel"] as const;
 
 export function SupplyRequestForm({ patientId, changeIntervalDays, gpName, gpHasInbox }: Props) {
   const t = useTranslations("Supplies");
+  const v = useTranslations("Vocabulary");
   const router = useRouter();
   const [sent, setSent] = useState<string | null>(null);
   const initialInclude = { legBag: true, valve: false, nightBag: true, gel: true };
@@ -108,7 +109,7 @@ export function SupplyRequestForm({ patientId, changeIntervalDays, gpName, gpHas
               return (
                 <tr key={f.id} className="border-t border-stone-faint">
                   <th scope="row" className="p-3 text-start font-bold">
-                    <label htmlFor={`qty-${f.item}`}>{t(`item.${f.item}`)}</label>
+                    <label htmlFor={`qty-${f.item}`}>{v(`supplyItem.${f.item}`)}</label>
                   </th>
                   <td className="tabular p-3">{line?.quantity ?? "—"}</td>
                   <td className="p-3">

@@ -51,7 +51,7 @@ export async function sendStaffInvitation(tx: Executor, mail: StaffInvitationMai
         type: "facts" as const,
         rows: [
           { label: t("staffInvite.organisations"), value: mail.organisationNames.join(", ") },
-          { label: t("staffInvite.role"), value: t(`staffInvite.roles.${mail.role}`) },
+          { label: t("staffInvite.role"), value: translatorFor(locale, "Vocabulary")(`role.${mail.role}`) },
         ],
       },
       { type: "action" as const, href: mail.link, label: t("staffInvite.action") },

@@ -57,22 +57,22 @@ export function allergyText(t: EmailT, v: EmailV, a: GpSummaryFacts["patient"]["
 
 export function deviceRows(t: EmailT, v: EmailV, d: ReturnType<typeof emailDates>, dev: DeviceFacts, { dates }: { dates: boolean }) {
   const rows: { label: string; value: string }[] = [
-    { label: t("device.route"), value: v(`route.${dev.route}`) },
-    { label: t("device.type"), value: v(`catheterType.${dev.catheterType}`) },
-    { label: t("device.material"), value: v(`material.${dev.material}`) },
-    { label: t("device.length"), value: v(`lengthCategory.${dev.lengthCategory}`) },
+    { label: v("device.route"), value: v(`route.${dev.route}`) },
+    { label: v("device.type"), value: v(`catheterType.${dev.catheterType}`) },
+    { label: v("device.material"), value: v(`material.${dev.material}`) },
+    { label: v("device.length"), value: v(`lengthCategory.${dev.lengthCategory}`) },
     {
-      label: t("device.size"),
-      value: dev.sizeMm !== null ? t("device.sizeValue", { ch: dev.sizeCh, mm: d.number(dev.sizeMm) }) : t("device.sizeChOnly", { ch: dev.sizeCh }),
+      label: v("device.size"),
+      value: dev.sizeMm !== null ? v("device.sizeMm", { ch: dev.sizeCh, mm: d.number(dev.sizeMm) }) : v("device.sizeCh", { ch: dev.sizeCh }),
     },
-    { label: t("device.balloon"), value: t("device.balloonValue", { ml: dev.balloonMl }) },
+    { label: v("device.balloon"), value: v("device.balloonWater", { ml: dev.balloonMl }) },
   ];
   const maker = [dev.maker, dev.productName].filter(Boolean).join(", ");
-  if (maker) rows.push({ label: t("device.maker"), value: maker });
-  rows.push({ label: t("device.lot"), value: dev.lot || t("common.noneRecorded") });
-  rows.push({ label: t("device.expiry"), value: dev.expiry ? d.short(dev.expiry) : t("common.noneRecorded") });
+  if (maker) rows.push({ label: v("device.maker"), value: maker });
+  rows.push({ label: v("device.lot"), value: dev.lot || t("common.noneRecorded") });
+  rows.push({ label: v("device.expiry"), value: dev.expiry ? d.short(dev.expiry) : t("common.noneRecorded") });
   rows.push({ label: t("device.inserted"), value: t("device.insertedValue", { date: d.at(new Date(dev.insertedAt)), name: dev.insertedByName }) });
-  rows.push({ label: t("device.indication"), value: dev.indication });
+  rows.push({ label: v("device.indication"), value: dev.indication });
   rows.push({
     label: t("device.gel"),
     value: dev.gelVolumeMl ? t("device.gelValue", { gel: v(`gelKind.${dev.gelKind}`), ml: dev.gelVolumeMl }) : v(`gelKind.${dev.gelKind}`),
@@ -155,9 +155,9 @@ export function gpSummaryContent(facts: GpSummaryFacts, locale: string): EmailCo
     blocks.push({ type: "heading", text: t("gp.previousHeading") });
     const prev = facts.previous;
     const rows: { label: string; value: string }[] = [
-      { label: t("device.size"), value: t("device.sizeChOnly", { ch: prev.sizeCh }) },
-      { label: t("device.balloon"), value: t("device.balloonValue", { ml: prev.balloonMl }) },
-      { label: t("device.material"), value: v(`material.${prev.material}`) },
+      { label: v("device.size"), value: v("device.sizeCh", { ch: prev.sizeCh }) },
+      { label: v("device.balloon"), value: v("device.balloonWater", { ml: prev.balloonMl }) },
+      { label: v("device.material"), value: v(`material.${prev.material}`) },
       { label: t("device.inserted"), value: t("device.insertedValue", { date: d.at(new Date(prev.insertedAt)), name: prev.insertedByName }) },
     ];
     if (c === "change" && facts.event?.reason) rows.push({ label: t("gp.changeReason"), value: v(`unplannedReason.${facts.event.reason as "blockage"}`) });

@@ -66,7 +66,7 @@ export async function queueSupplyRequestEmail(
       head: [t("supply.colItem"), t("supply.colQuantity"), t("supply.colBasis")],
       rows: request.items
         .filter((i) => i.quantity > 0)
-        .map((i) => [t(`enum.item.${i.item}`), String(i.quantity), basis(i.item, i.intervalDays)]),
+        .map((i) => [v(`supplyItem.${i.item}`), String(i.quantity), basis(i.item, i.intervalDays)]),
     },
     { type: "heading", text: t("supply.specHeading") },
     {
@@ -74,7 +74,7 @@ export async function queueSupplyRequestEmail(
       rows: [
         { label: t("supply.spec"), value: spec },
         ...(episode.maker || episode.productName
-          ? [{ label: t("device.maker"), value: [episode.maker, episode.productName].filter(Boolean).join(", ") }]
+          ? [{ label: v("device.maker"), value: [episode.maker, episode.productName].filter(Boolean).join(", ") }]
           : []),
         { label: t("device.plannedChange"), value: d.day(episode.plannedChangeOn) },
       ],

@@ -168,7 +168,7 @@ describe("passport tab", () => {
     const text = await pdfText(booklet);
     expect(text).toContain(en.PassportPdf.title);
     // The text layer keeps Arabic in visual order and splits some words: single labels are compared.
-    for (const word of [ar.PassportPdf.route, ar.PassportPdf.balloon, ar.PassportPdf.allergiesTitle]) expect(text, word).toContain(word);
+    for (const word of [ar.Vocabulary.device.route, ar.Vocabulary.device.balloon, ar.PassportPdf.allergiesTitle]) expect(text, word).toContain(word);
 
     // And an English-only booklet, for the renders.
     await db.update(patients).set({ preferredLocale: "en" }).where(eq(patients.id, fixture.patientId));

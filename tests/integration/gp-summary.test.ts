@@ -144,7 +144,7 @@ describe("GP summary", () => {
     expect(passportMail.text).toContain("en, pl");
     expect(passportMail.text).toContain("Tomasz Reid");
     const twocMail = mails.find((m) => m.subject.includes("trial without catheter"))!;
-    expect(twocMail.text).toContain("Passed: voiding without a catheter");
+    expect(twocMail.text).toContain("Passed: passing urine without a catheter");
     expect(twocMail.text).toContain("Voided 250 ml twice");
     expect(twocMail.text).toContain("No catheter is in place now.");
     expect(twocMail.attachments).toHaveLength(1);

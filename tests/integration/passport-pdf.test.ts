@@ -85,8 +85,8 @@ describe("passport booklet (PDF)", () => {
     // Seed: Halina's catheter in place is 14 Ch, 10 ml, hydrogel-coated latex, female length, lot HN2404.
     for (const phrase of [
       pl.title, enW.title,
-      pl.size, enW.size, "14 Ch (4,7 mm)", "14 Ch (4.7 mm)",
-      pl.balloon, enW.balloon, "10 ml jałowej wody", "10 ml sterile water",
+      plV.device.size, enV.device.size, "14 Ch (4,7 mm)", "14 Ch (4.7 mm)",
+      plV.device.balloon, enV.device.balloon, "10 ml jałowej wody", "10 ml sterile water",
       plV.material["hydrogel-coated-latex"], enV.material["hydrogel-coated-latex"],
       plV.lengthCategory.female, enV.lengthCategory.female,
       plV.route.urethral, enV.route.urethral,
@@ -112,11 +112,12 @@ describe("passport booklet (PDF)", () => {
     const { text, pages } = await textOf(pdf);
     expect(pages).toBeGreaterThanOrEqual(5);
     const ar = pdfWords("ar");
+    const arV = vocab("ar");
     const enW = pdfWords("en");
     const enV = vocab("en");
     // Words whose glyphs map back cleanly; the text layer is in visual (right-to-left) order, so
     // single words are compared. Yusuf: suprapubic, 16 Ch, 10 ml, all silicone, chlorhexidine allergy.
-    for (const word of [ar.route, ar.size, ar.balloon, ar.length, ar.indication, ar.allergiesTitle, "سيليكون", "معقم"]) {
+    for (const word of [arV.device.route, arV.device.size, arV.device.balloon, arV.device.length, ar.allergiesTitle, "سيليكون", "معقم"]) {
       expect(text, word).toContain(word);
     }
     for (const phrase of [

@@ -58,7 +58,7 @@ describe("patient-facing e-mail", () => {
     );
     await drainOutbox({ keyPrefix: `carer-invite:${linkId}`, log: quiet });
     const [mail] = await waitForEmails(email, 1);
-    expect(mail.subject).toBe("يدعوك Halina للمساعدة في رعاية القثطار");
+    expect(mail.subject).toBe("يدعوك Halina للمساعدة في رعاية القسطرة");
     expect(mail.html).toContain('dir="rtl"');
     expect(mail.html).toContain(`secret-${fx.tag}`);
     const [row] = await db.select().from(outboundMessages).where(eq(outboundMessages.idempotencyKey, `carer-invite:${linkId}`));

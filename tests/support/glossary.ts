@@ -18,6 +18,7 @@ export const glossary: Record<string, GlossaryTerm[]> = {
   pl: [
     { concept: "catheter", use: "cewnik", notAlso: ["kateter"] },
     { concept: "lidocaine", use: "lidokain", notAlso: ["lignokain"] },
+    { concept: "sterile water", use: "jałow", notAlso: ["sterylnej wody", "wody sterylnej", "sterylna woda"] },
   ],
   ro: [
     { concept: "catheter", use: "sond", notAlso: ["cateterul", "catetere", "cateter "] },

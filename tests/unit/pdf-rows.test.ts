@@ -10,6 +10,7 @@ import en from "@/messages/en.json";
 
 const words = en.PassportPdf;
 const vocab = en.Vocabulary;
+const dev = en.Vocabulary.device;
 const LRM = "\u200E";
 const enOnly = [pdfStrings("en")];
 const arEn = [pdfStrings("ar"), pdfStrings("en")];
@@ -38,24 +39,24 @@ describe("device rows", () => {
   it("every fact once, in the order a clinician reads them, the size and balloon in big type", () => {
     const rows = deviceRows(enOnly, device);
     expect(rows.map((r) => r.labels[0])).toEqual([
-      words.route, words.catheterType, words.material, words.length, words.size, words.balloon,
-      `${words.maker} · ${words.lot}`, words.expiry, words.insertedOn, words.indication,
+      dev.route, dev.type, dev.material, dev.length, dev.size, dev.balloon,
+      `${dev.maker} · ${dev.lot}`, dev.expiry, words.insertedOn, dev.indication,
     ]);
     const value = (label: string) => rows.find((r) => r.labels[0] === label)!.values[0];
     // Source: ISO 20696:2018 clause 5.5.2: 16 Ch → 5.4 mm.
-    expect(value(words.size)).toBe("16 Ch (5.4 mm)");
-    expect(value(words.balloon)).toBe("10 ml sterile water");
-    expect(value(words.material)).toBe(vocab.material["all-silicone"]);
+    expect(value(dev.size)).toBe("16 Ch (5.4 mm)");
+    expect(value(dev.balloon)).toBe("10 ml sterile water");
+    expect(value(dev.material)).toBe(vocab.material["all-silicone"]);
     // Maker and lot together: a recall names both.
-    expect(value(`${words.maker} · ${words.lot}`)).toBe("Northfen Medical (demo) SilkLine · YH5520");
-    expect(rows.filter((r) => r.big).map((r) => r.labels[0])).toEqual([words.size, words.balloon]);
+    expect(value(`${dev.maker} · ${dev.lot}`)).toBe("Northfen Medical (demo) SilkLine · YH5520");
+    expect(rows.filter((r) => r.big).map((r) => r.labels[0])).toEqual([dev.size, dev.balloon]);
     expect(rows.find((r) => r.labels[0] === words.insertedOn)!.note).toBe("Grace Mensah, Harbourside Community Nursing Team");
   });
 
   it("says what is not recorded instead of leaving a gap", () => {
     const rows = deviceRows(enOnly, { ...device, maker: null, lot: null, expiry: null });
-    expect(rows.find((r) => r.labels[0] === `${words.maker} · ${words.lot}`)!.values[0]).toBe("— · —");
-    expect(rows.find((r) => r.labels[0] === words.expiry)!.values[0]).toBe("—");
+    expect(rows.find((r) => r.labels[0] === `${dev.maker} · ${dev.lot}`)!.values[0]).toBe("— · —");
+    expect(rows.find((r) => r.labels[0] === dev.expiry)!.values[0]).toBe("—");
   });
 
   it("in Arabic beside English: one label and value per language, Latin values held left to right", () => {
@@ -120,7 +121,7 @@ describe("allergies and history", () => {
     const s = pdfStrings("en");
     const e: BookletEvent = { at: new Date(), kind: "unplanned_change", reason: "blockage", twocOutcome: null, byName: "Grace Mensah", organisationName: null, sizeCh: 16, material: "all-silicone", lot: "YH5520" };
     expect(eventWhat(s, e)).toBe(`${vocab.eventKind.unplanned_change} (${vocab.unplannedReason.blockage})`);
-    expect(eventDetails(s, e)).toBe(`16 Ch, ${vocab.material["all-silicone"]}, ${words.lot} YH5520`);
+    expect(eventDetails(s, e)).toBe(`16 Ch, ${vocab.material["all-silicone"]}, ${dev.lot} YH5520`);
     expect(eventDetails(s, { ...e, sizeCh: null, material: null, lot: null })).toBe("—");
     expect(eventDetails(pdfStrings("ar"), e)).toContain("، ");
   });

@@ -38,26 +38,26 @@ export function deviceRows(all: PdfStrings[], d: BookletDevice): FactRow[] {
     values: each(value),
   });
   return [
-    row((s) => s.t("route"), (s) => s.v(`route.${d.route}`)),
-    row((s) => s.t("catheterType"), (s) => s.v(`catheterType.${d.catheterType}`)),
-    row((s) => s.t("material"), (s) => s.v(`material.${d.material}`)),
-    row((s) => s.t("length"), (s) => s.v(`lengthCategory.${d.lengthCategory}`)),
+    row((s) => s.v("device.route"), (s) => s.v(`route.${d.route}`)),
+    row((s) => s.v("device.type"), (s) => s.v(`catheterType.${d.catheterType}`)),
+    row((s) => s.v("device.material"), (s) => s.v(`material.${d.material}`)),
+    row((s) => s.v("device.length"), (s) => s.v(`lengthCategory.${d.lengthCategory}`)),
     {
-      ...row((s) => s.t("size"), (s) => s.t("sizeValue", { ch: iso(s, String(d.sizeCh)), mm: iso(s, s.number(d.sizeMm)) })),
+      ...row((s) => s.v("device.size"), (s) => s.v("device.sizeMm", { ch: iso(s, String(d.sizeCh)), mm: iso(s, s.number(d.sizeMm)) })),
       big: true,
     },
-    { ...row((s) => s.t("balloon"), (s) => s.t("balloonValue", { ml: iso(s, String(d.balloonMl)) })), big: true },
+    { ...row((s) => s.v("device.balloon"), (s) => s.v("device.balloonWater", { ml: iso(s, String(d.balloonMl)) })), big: true },
     // Maker and lot on one row: they are read together (a recall names both).
     row(
-      (s) => `${s.t("maker")} · ${s.t("lot")}`,
+      (s) => `${s.v("device.maker")} · ${s.v("device.lot")}`,
       (s) => `${d.maker ? iso(s, [d.maker, d.productName].filter(Boolean).join(" ")) : "—"} · ${d.lot ? iso(s, d.lot) : "—"}`,
     ),
-    row((s) => s.t("expiry"), (s) => s.day(d.expiry)),
+    row((s) => s.v("device.expiry"), (s) => s.day(d.expiry)),
     {
       ...row((s) => s.t("insertedOn"), (s) => s.moment(d.insertedAt)),
       note: [d.insertedByName, d.organisationName].filter(Boolean).join(", "),
     },
-    row((s) => s.t("indication"), () => d.indication),
+    row((s) => s.v("device.indication"), () => d.indication),
   ];
 }
 
@@ -100,8 +100,8 @@ export function eventWhat(s: PdfStrings, e: BookletEvent): string {
 
 export function eventDetails(s: PdfStrings, e: BookletEvent): string {
   const parts: string[] = [];
-  if (e.sizeCh) parts.push(iso(s, `${e.sizeCh} Ch`));
+  if (e.sizeCh) parts.push(iso(s, s.v("device.sizeCh", { ch: e.sizeCh })));
   if (e.material) parts.push(s.v(`material.${e.material}`));
-  if (e.lot) parts.push(`${s.t("lot")} ${iso(s, e.lot)}`);
+  if (e.lot) parts.push(`${s.v("device.lot")} ${iso(s, e.lot)}`);
   return parts.join(s.rtl ? "، " : ", ") || "—";
 }

@@ -1,6 +1,6 @@
 import { getTranslations } from "next-intl/server";
 import { CallButtons } from "@/components/portal/call-buttons";
-import { EmergencyIcon, UrgentIcon } from "@/components/portal/level-icons";
+import { EmergencyIcon, UrgentIcon } from "@/components/ui/level-marks";
 import { getHelpContacts } from "@/db/queries/contacts";
 import { requirePageRole } from "@/lib/auth/permissions";
 import { Link } from "@/lib/i18n/navigation";

@@ -43,7 +43,7 @@ export const GET = handle(async (request) => {
       r.plannedChangeOn,
       r.reviewDueOn,
       r.state ? t(`states.${r.state}`, { days: dueSoonDays }) : "",
-      r.latestCheckInLevel ? t(`levels.${r.latestCheckInLevel}`) : "",
+      r.latestCheckInLevel ? v(`triageLevel.${r.latestCheckInLevel}`) : "",
       r.awaitingTwoc ? t("yes") : "",
     ]),
   ]);

@@ -15,7 +15,7 @@ export default async function AcceptInvitePage({ params }: { params: Promise<{ l
   const { locale, token } = await params;
   setRequestLocale(locale as "en");
   const t = await getTranslations("AcceptInvite");
-  const roles = await getTranslations("AdminStaff.roles");
+  const roles = await getTranslations("Vocabulary.role");
   const invitation = await previewInvitation(token);
   if (!invitation) {
     return (

@@ -27,6 +27,7 @@ export default async function AuditPage({
   const viewer = await requirePageRole(locale, "admin");
   const t = await getTranslations("AdminAudit");
   const tl = await getTranslations("PatientAccessLog");
+  const vocab = await getTranslations("Vocabulary");
   const format = await getFormatter();
   // The action in words (the code stays beside it, small, for the action filter).
   const actionWords = (a: string) => {
@@ -77,7 +78,7 @@ export default async function AuditPage({
             <option value="">{t("anyVia")}</option>
             {vias.map((v) => (
               <option key={v} value={v}>
-                {t(`vias.${v}`)}
+                {vocab(`accessVia.${v}`)}
               </option>
             ))}
           </select>
@@ -128,7 +129,7 @@ export default async function AuditPage({
                   {r.actor ? (
                     <>
                       <span className="font-bold">{r.actor.name}</span>
-                      <div className="text-sm text-ink-soft">{r.actor.role ? t(`roles.${r.actor.role as "admin"}`) : ""}</div>
+                      <div className="text-sm text-ink-soft">{r.actor.role ? vocab(`role.${r.actor.role as "admin"}`) : ""}</div>
                     </>
                   ) : (
                     <span className="text-ink-soft">{t("system")}</span>
@@ -152,7 +153,7 @@ export default async function AuditPage({
                     <span className="text-ink-soft">{r.organisation.name}</span>
                   ) : null}
                 </td>
-                <td className="p-2">{r.via ? t(`vias.${r.via as "qr"}`) : ""}</td>
+                <td className="p-2">{r.via ? vocab(`accessVia.${r.via as "qr"}`) : ""}</td>
                 <td className="p-2 text-sm">{r.reason}</td>
               </tr>
             ))}

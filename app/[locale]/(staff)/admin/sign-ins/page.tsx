@@ -15,6 +15,7 @@ export default async function SignInAttemptsPage({ params }: { params: Promise<{
   const { locale } = await params;
   const viewer = await requirePageRole(locale, "admin");
   const t = await getTranslations("AdminSignIns");
+  const v = await getTranslations("Vocabulary");
   const format = await getFormatter();
   const [accounts, unknown] = await Promise.all([accountsUnderAttack({ organisationIds: viewer.organisationIds }), attemptsOnUnknownAccounts()]);
   const when = (d: Date) => format.dateTime(d, { weekday: "short", day: "numeric", month: "short", hour: "numeric", minute: "2-digit" });
@@ -50,7 +51,7 @@ export default async function SignInAttemptsPage({ params }: { params: Promise<{
                     <td className="p-2">
                       <strong>{a.name}</strong>
                       <div className="break-all text-sm text-ink-soft">{a.email}</div>
-                      <div className="text-sm text-ink-soft">{t(`roles.${a.role}`)}</div>
+                      <div className="text-sm text-ink-soft">{v(`role.${a.role}`)}</div>
                     </td>
                     <td className="tabular p-2 text-end">
                       {a.failedAttempts}

@@ -16,6 +16,7 @@ export default async function StaffPage({ params }: { params: Promise<{ locale: 
   const { locale } = await params;
   const viewer = await requirePageRole(locale, "admin");
   const t = await getTranslations("AdminStaff");
+  const v = await getTranslations("Vocabulary");
   const format = await getFormatter();
   const [staff, invitations, orgs] = await Promise.all([
     listStaff({ organisationIds: viewer.organisationIds }),
@@ -53,7 +54,7 @@ export default async function StaffPage({ params }: { params: Promise<{ locale: 
                     </Link>
                     <div className="break-all text-sm text-ink-soft">{m.email}</div>
                   </td>
-                  <td className="p-2">{t(`roles.${m.role}`)}</td>
+                  <td className="p-2">{v(`role.${m.role}`)}</td>
                   <td className="p-2">
                     {m.organisations.map((o) => o.name).join(", ")}
                     {m.otherOrganisationCount ? <div className="text-sm text-ink-soft">{t("otherOrganisations", { count: m.otherOrganisationCount })}</div> : null}
@@ -81,7 +82,7 @@ export default async function StaffPage({ params }: { params: Promise<{ locale: 
                 <div>
                   <p className="break-all font-bold">{i.email}</p>
                   <p className="text-sm">
-                    {t(`roles.${i.role}`)} · {i.organisations.map((o) => o.name).join(", ")}
+                    {v(`role.${i.role}`)} · {i.organisations.map((o) => o.name).join(", ")}
                   </p>
                   <p className="text-sm text-ink-soft tabular">{i.expired ? t("expired") : t("expires", { when: when(i.expiresAt) })}</p>
                   {i.mail ? (

@@ -31,7 +31,7 @@ export default async function PatientRecordLayout({ children, params }: { childr
         <p className="tabular text-lg" data-testid="record-device">
           {e ? (
             <>
-              <span className="font-bold">{v(`route.${e.route}`)}</span> · {t("sizeCh", { size: e.sizeCh })} · {t("balloon", { ml: e.balloonMl })}
+              <span className="font-bold">{v(`route.${e.route}`)}</span> · {v("device.sizeCh", { ch: e.sizeCh })} · {t("balloon", { ml: e.balloonMl })}
             </>
           ) : (
             t("noDevice")

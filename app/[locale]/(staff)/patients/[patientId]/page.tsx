@@ -71,32 +71,32 @@ export default async function DeviceTab({ params }: { params: Promise<{ locale: 
             <Card className="flex flex-col gap-4">
               <div className="flex flex-wrap items-baseline gap-x-6 gap-y-1">
                 <p className="tabular text-3xl font-bold" data-testid="device-size">
-                  {t("sizeCh", { size: e.sizeCh })} <span className="text-lg font-normal text-ink-soft">({t("mm", { mm: format.number(charriereToMm(e.sizeCh), { minimumFractionDigits: 1, maximumFractionDigits: 1 }) })})</span>
+                  {v("device.sizeCh", { ch: e.sizeCh })} <span className="text-lg font-normal text-ink-soft">({t("mm", { mm: format.number(charriereToMm(e.sizeCh), { minimumFractionDigits: 1, maximumFractionDigits: 1 }) })})</span>
                 </p>
                 <p className="tabular text-2xl font-bold">{t("balloon", { ml: e.balloonMl })}</p>
               </div>
               <dl className="grid gap-x-6 gap-y-2 sm:grid-cols-[minmax(12rem,auto)_1fr]">
-                <Row label={t("fields.route")}>{v(`route.${e.route}`)}</Row>
-                <Row label={t("fields.type")}>{v(`catheterType.${e.catheterType}`)}</Row>
-                <Row label={t("fields.material")}>{v(`material.${e.material}`)}</Row>
-                <Row label={t("fields.length")}>{v(`lengthCategory.${e.lengthCategory}`)}</Row>
-                <Row label={t("fields.size")}>
-                  {t("sizeCh", { size: e.sizeCh })} · {t("mmOuter", { mm: format.number(charriereToMm(e.sizeCh), { minimumFractionDigits: 1, maximumFractionDigits: 1 }) })}
+                <Row label={v("device.route")}>{v(`route.${e.route}`)}</Row>
+                <Row label={v("device.type")}>{v(`catheterType.${e.catheterType}`)}</Row>
+                <Row label={v("device.material")}>{v(`material.${e.material}`)}</Row>
+                <Row label={v("device.length")}>{v(`lengthCategory.${e.lengthCategory}`)}</Row>
+                <Row label={v("device.size")}>
+                  {v("device.sizeCh", { ch: e.sizeCh })} · {t("mmOuter", { mm: format.number(charriereToMm(e.sizeCh), { minimumFractionDigits: 1, maximumFractionDigits: 1 }) })}
                 </Row>
-                <Row label={t("fields.balloon")}>
+                <Row label={v("device.balloon")}>
                   {t("ml", { ml: e.balloonMl })}
                   {e.makerBalloonMl && e.makerBalloonMl !== e.balloonMl ? ` · ${t("makerBalloon", { ml: e.makerBalloonMl })}` : ""}
                 </Row>
-                <Row label={t("fields.maker")}>{[e.maker, e.productName].filter(Boolean).join(" · ") || t("notRecorded")}</Row>
-                <Row label={t("fields.lot")}>{e.lot ?? t("notRecorded")}</Row>
-                <Row label={t("fields.expiry")}>{date(e.expiry)}</Row>
+                <Row label={v("device.maker")}>{[e.maker, e.productName].filter(Boolean).join(" · ") || t("notRecorded")}</Row>
+                <Row label={v("device.lot")}>{e.lot ?? t("notRecorded")}</Row>
+                <Row label={v("device.expiry")}>{date(e.expiry)}</Row>
                 <Row label={t("fields.gtin")}>{[e.gtin, e.serial ? t("serial", { serial: e.serial }) : null].filter(Boolean).join(" · ") || t("notRecorded")}</Row>
                 <Row label={t("fields.udi")}>
                   {e.udi ? <code className="break-all text-sm">{e.udi}</code> : t("notRecorded")}
                 </Row>
                 <Row label={t("fields.insertedAt")}>{dateTime(e.insertedAt)}</Row>
-                <Row label={t("fields.insertedBy")}>{e.insertedByName}</Row>
-                <Row label={t("fields.indication")}>{e.indication}</Row>
+                <Row label={v("device.insertedBy")}>{e.insertedByName}</Row>
+                <Row label={v("device.indication")}>{e.indication}</Row>
                 <Row label={t("fields.gel")}>
                   {v(`gelKind.${e.gelKind}`)}
                   {e.gelVolumeMl !== null && e.gelVolumeMl !== undefined && e.gelKind !== "none" ? ` · ${t("ml", { ml: e.gelVolumeMl })}` : ""}

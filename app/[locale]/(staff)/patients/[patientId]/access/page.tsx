@@ -35,6 +35,7 @@ export default async function AccessTab({
   if (!isCareTeam(via)) forbidden();
   const log = await listAccessLog({ patientId, page, pageSize: PAGE_SIZE, filter: who });
   const t = await getTranslations("PatientAccessLog");
+  const v = await getTranslations("Vocabulary");
   const format = await getFormatter();
   const pages = Math.max(1, Math.ceil(log.total / PAGE_SIZE));
   // Action codes use dots, which next-intl reads as nesting: look them up with underscores.
@@ -88,7 +89,7 @@ export default async function AccessTab({
                   <span className="font-bold">{e.actorName ?? (e.actorRole ? t("unknownPerson") : t("notSignedIn"))}</span>
                   {e.actorRole ? (
                     <span className="block text-sm text-ink-soft">
-                      {(knownRoles as readonly string[]).includes(e.actorRole) ? t(`roles.${e.actorRole as "admin"}`) : e.actorRole}
+                      {(knownRoles as readonly string[]).includes(e.actorRole) ? v(`role.${e.actorRole as "admin"}`) : e.actorRole}
                     </span>
                   ) : null}
                 </td>
@@ -100,7 +101,7 @@ export default async function AccessTab({
                     </span>
                   ) : null}
                 </td>
-                <td className="p-3">{e.via && (knownVia as readonly string[]).includes(e.via) ? t(`vias.${e.via}`) : "—"}</td>
+                <td className="p-3">{e.via && (knownVia as readonly string[]).includes(e.via) ? v(`accessVia.${e.via}`) : "—"}</td>
                 <td className="p-3">{e.reason ?? "—"}</td>
               </tr>
             ))}

@@ -17,8 +17,9 @@ export default async function SuppliesPage({ params }: { params: Promise<{ local
   const { locale, patientId } = await params;
   // The clinician role, the access check and the audit event before any data is read.
   const { closed } = await openRecordPage({ locale, patientId, action: "patient.view.supplies" });
-  const [t, tl, tr, format, ctx, history] = await Promise.all([
+  const [t, v, tl, tr, format, ctx, history] = await Promise.all([
     getTranslations("Supplies"),
+    getTranslations("Vocabulary"),
     getTranslations("Letters"),
     getTranslations("PatientRecord"),
     getFormatter(),
@@ -81,7 +82,7 @@ export default async function SuppliesPage({ params }: { params: Promise<{ local
                   {r.items.map((i) => (
                     <li key={i.item} className="tabular">
                       {t("historyLine", {
-                        item: (items as readonly string[]).includes(i.item) ? t(`item.${i.item as (typeof items)[number]}`) : i.item,
+                        item: (items as readonly string[]).includes(i.item) ? v(`supplyItem.${i.item as (typeof items)[number]}`) : i.item,
                         quantity: i.quantity,
                         computed: i.computed,
                       })}
