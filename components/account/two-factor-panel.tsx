@@ -12,6 +12,7 @@ import { TwoFactorSetup } from "./two-factor-setup";
 /** The account page's two-step sign-in section: set up, new backup codes, or turn off (if allowed). */
 export function TwoFactorPanel({ enabled, required }: { enabled: boolean; required: boolean }) {
   const t = useTranslations("TwoFactor");
+  const tc = useTranslations("Common");
   const tErrors = useTranslations("Errors");
   const router = useRouter();
   const [mode, setMode] = useState<"idle" | "setup" | "codes" | "disable">("idle");
@@ -84,7 +85,7 @@ export function TwoFactorPanel({ enabled, required }: { enabled: boolean; requir
               {mode === "codes" ? t("newBackupCodes") : t("turnOff")}
             </Button>
             <Button variant="quiet" onClick={() => setMode("idle")}>
-              {t("cancel")}
+              {tc("cancel")}
             </Button>
           </div>
         </form>

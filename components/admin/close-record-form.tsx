@@ -14,6 +14,7 @@ import { closeRecordSchema, type CloseRecordInput } from "@/lib/validations/admi
 /** Closing a record: a reason, a confirmation, then read-only until the retention job removes it. */
 export function CloseRecordForm({ patientId, name }: { patientId: string; name: string }) {
   const t = useTranslations("AdminPatients");
+  const tc = useTranslations("Common");
   const router = useRouter();
   const [open, setOpen] = useState(false);
   const {
@@ -56,7 +57,7 @@ export function CloseRecordForm({ patientId, name }: { patientId: string; name: 
           {t("closeSubmit")}
         </Button>
         <Button variant="quiet" onClick={() => setOpen(false)}>
-          {t("cancel")}
+          {tc("cancel")}
         </Button>
       </div>
     </form>

@@ -15,6 +15,7 @@ import { organisationKinds, organisationSchema, type OrganisationFormValues, typ
 
 export function OrganisationForm({ organisationId, initial }: { organisationId?: string; initial?: OrganisationFormValues }) {
   const t = useTranslations("AdminOrganisations");
+  const tc = useTranslations("Common");
   const kinds = useTranslations("Admin.kind");
   const router = useRouter();
   const [saved, setSaved] = useState(false);
@@ -105,7 +106,7 @@ export function OrganisationForm({ organisationId, initial }: { organisationId?:
       ) : null}
       <div>
         <Button type="submit" disabled={isSubmitting}>
-          {isSubmitting ? t("saving") : organisationId ? t("save") : t("create")}
+          {isSubmitting ? tc("saving") : organisationId ? t("save") : t("create")}
         </Button>
       </div>
     </form>

@@ -28,6 +28,7 @@ const num = { setValueAs: (v: unknown) => (v === "" || v === null || v === undef
 
 export function SettingsForm({ initial }: { initial: SettingsInitial }) {
   const t = useTranslations("AdminSettings");
+  const tc = useTranslations("Common");
   const v = useTranslations("Vocabulary");
   const router = useRouter();
   const [saved, setSaved] = useState(false);
@@ -145,7 +146,7 @@ export function SettingsForm({ initial }: { initial: SettingsInitial }) {
 
       <div>
         <Button type="submit" disabled={isSubmitting}>
-          {isSubmitting ? t("saving") : t("save")}
+          {isSubmitting ? tc("saving") : t("save")}
         </Button>
       </div>
     </form>

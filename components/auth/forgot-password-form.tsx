@@ -24,7 +24,7 @@ export function ForgotPasswordForm() {
       onSubmit={async (e) => {
         e.preventDefault();
         setError(null);
-        if (!signInSchema.shape.email.safeParse(email).success) return setError(t("errors.email_invalid"));
+        if (!signInSchema.shape.email.safeParse(email).success) return setError(tErrors("email_invalid"));
         setBusy(true);
         const { error: err } = await authClient.requestPasswordReset({ email, redirectTo: `/${locale}/reset-password` });
         setBusy(false);

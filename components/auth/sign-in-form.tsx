@@ -52,7 +52,7 @@ export function SignInForm({ returnTo }: { returnTo?: string } = {}) {
         type="email"
         autoComplete="username"
         inputMode="email"
-        errors={errors.email ? [t("emailInvalid")] : undefined}
+        errors={errors.email ? [tErrors("email_invalid")] : undefined}
         {...register("email")}
       />
       <PasswordField purpose="current" label={t("password")} errors={errors.password ? [t("passwordRequired")] : undefined} {...register("password")} />

@@ -37,6 +37,7 @@ export function DeviceEpisodeForm({
   planDefaults: PlanDefaults;
 }) {
   const t = useTranslations("EpisodeForm");
+  const tc = useTranslations("Common");
   const format = useFormatter();
   const form = useDeviceEpisodeForm({ mode, patientId, patient, previous, timeZone, planDefaults });
   const dateOnly = (iso: string) => format.dateTime(new Date(`${iso}T12:00:00Z`), { dateStyle: "medium", timeZone: "UTC" });
@@ -70,7 +71,7 @@ export function DeviceEpisodeForm({
         />
         <ErrorAlert message={form.failure} />
         <Button type="submit" disabled={form.submitting} className="w-full text-lg" data-testid="save">
-          {form.submitting ? t("saving") : t(mode === "change" ? "save.change" : "save.insertion")}
+          {form.submitting ? tc("saving") : t(mode === "change" ? "save.change" : "save.insertion")}
         </Button>
       </div>
     </form>

@@ -25,6 +25,7 @@ export type CurrentDevice = { sizeCh: number; balloonMl: number; material: strin
 
 export function RemovalForm({ patientId, current }: { patientId: string; current: CurrentDevice }) {
   const t = useTranslations("EpisodeForm");
+  const tc = useTranslations("Common");
   const router = useRouter();
   const options = useEpisodeOptions();
   const summary = useDeviceSummary();
@@ -89,7 +90,7 @@ export function RemovalForm({ patientId, current }: { patientId: string; current
       </Section>
       <ErrorAlert message={failure.message} />
       <Button type="submit" disabled={isSubmitting} className="w-full text-lg sm:w-auto sm:self-start" data-testid="save">
-        {isSubmitting ? t("saving") : t("save.removal")}
+        {isSubmitting ? tc("saving") : t("save.removal")}
       </Button>
     </form>
   );

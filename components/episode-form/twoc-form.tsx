@@ -24,6 +24,7 @@ type Values = z.input<typeof twocSchema>;
 
 export function TwocForm({ patientId, removedAt }: { patientId: string; removedAt: string }) {
   const t = useTranslations("EpisodeForm");
+  const tc = useTranslations("Common");
   const format = useFormatter();
   const router = useRouter();
   const options = useEpisodeOptions();
@@ -120,7 +121,7 @@ export function TwocForm({ patientId, removedAt }: { patientId: string; removedA
       </Section>
       <ErrorAlert message={failure.message} />
       <Button type="submit" disabled={isSubmitting} className="w-full text-lg sm:w-auto sm:self-start" data-testid="save">
-        {isSubmitting ? t("saving") : t("save.twoc")}
+        {isSubmitting ? tc("saving") : t("save.twoc")}
       </Button>
     </form>
   );

@@ -58,6 +58,7 @@ export function PassportPanel({
   readOnly?: boolean;
 }) {
   const t = useTranslations("Passport");
+  const tc = useTranslations("Common");
   const tRecord = useTranslations("PatientRecord");
   const format = useFormatter();
   const router = useRouter();
@@ -263,7 +264,7 @@ export function PassportPanel({
                 {mutation.isPending ? t("issuing") : t("confirm")}
               </button>
               <Button variant="secondary" onClick={() => setConfirming(false)} disabled={mutation.isPending}>
-                {t("cancel")}
+                {tc("cancel")}
               </Button>
             </div>
           </div>

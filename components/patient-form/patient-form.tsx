@@ -72,6 +72,7 @@ function todayLocal() {
 
 export function PatientForm(props: Props) {
   const t = useTranslations("PatientForm");
+  const tc = useTranslations("Common");
   const v = useTranslations("Vocabulary");
   const router = useRouter();
   const editing = props.mode === "edit";
@@ -224,11 +225,11 @@ export function PatientForm(props: Props) {
 
       <div className="flex flex-wrap gap-3">
         <Button type="submit" disabled={isSubmitting}>
-          {isSubmitting ? t("saving") : editing ? t("saveChanges") : t("submit")}
+          {isSubmitting ? tc("saving") : editing ? t("saveChanges") : t("submit")}
         </Button>
         {props.mode === "edit" ? (
           <Button variant="secondary" onClick={props.onDone} disabled={isSubmitting}>
-            {t("cancel")}
+            {tc("cancel")}
           </Button>
         ) : null}
       </div>

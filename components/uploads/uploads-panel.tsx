@@ -31,6 +31,7 @@ const failureKey: Record<UploadFailure, "tooLarge" | "badType" | "failed"> = {
 
 export function UploadsPanel({ patientId, initial, canRemove, readOnly = false }: { patientId: string; initial: UploadDto[]; canRemove: boolean; readOnly?: boolean }) {
   const t = useTranslations("Uploads");
+  const tc = useTranslations("Common");
   const format = useFormatter();
   const queryClient = useQueryClient();
   const list = useQuery({ queryKey: uploadKeys.list(patientId), queryFn: () => fetchUploads(patientId), initialData: initial });
@@ -224,7 +225,7 @@ export function UploadsPanel({ patientId, initial, canRemove, readOnly = false }
                       {t("removeYes")}
                     </button>
                     <Button variant="secondary" onClick={() => setConfirmId(null)}>
-                      {t("cancel")}
+                      {tc("cancel")}
                     </Button>
                   </div>
                 </div>

@@ -56,6 +56,7 @@ function liveScore(o: Values["observations"]): News2View | null {
 
 export function VisitForm({ patientId }: { patientId: string }) {
   const t = useTranslations("VisitForm");
+  const tc = useTranslations("Common");
   const [saved, setSaved] = useState<Saved | null>(null);
   const { register, handleSubmit, setError, clearErrors, control, formState } = useForm<Values>({
     defaultValues: {
@@ -166,7 +167,7 @@ export function VisitForm({ patientId }: { patientId: string }) {
       ) : null}
       <ErrorAlert message={failure.message} />
       <Button type="submit" disabled={formState.isSubmitting} className="w-full text-lg sm:w-auto sm:self-start" data-testid="visit-save">
-        {formState.isSubmitting ? t("saving") : t("save")}
+        {formState.isSubmitting ? tc("saving") : t("save")}
       </Button>
     </form>
   );

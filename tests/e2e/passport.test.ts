@@ -128,7 +128,7 @@ describe("passport tab", () => {
     // Focus moves to the confirming button.
     expect(await page.evaluate(() => document.activeElement?.getAttribute("data-testid"))).toBe("passport-reissue-confirm");
     await screenshot(page, "passport-en-confirm");
-    await page.getByRole("button", { name: en.Passport.cancel }).click();
+    await page.getByRole("button", { name: en.Common.cancel }).click();
     expect(await findPassportByToken(firstToken)).not.toBeNull();
 
     await page.getByTestId("passport-reissue").click();
