@@ -73,7 +73,8 @@ describe("a check-in answered offline keeps its time, across a closed tab, to th
     const nurse = await newPage(browser, { viewport: { width: 1280, height: 900 } });
     await signInAs(nurse, demo.communityNurse.email, demo.communityNurse.password);
     await nurse.goto(`/en/patients/${arthur}/check-ins`);
-    const first = nurse.getByTestId("check-in-list").locator("li").first();
+    // Listed by when it was answered: other check-ins made since come before it.
+    const first = nurse.getByTestId("check-in-list").locator("li", { has: nurse.getByTestId("check-in-received-later") }).first();
     const shown = await first.getByTestId("check-in-answered").textContent();
     expect(shown).toMatch(/2:00|02:00/);
     expect(await first.getByTestId("check-in-received-later").textContent()).toMatch(/answered offline, received/);

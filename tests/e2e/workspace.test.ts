@@ -96,8 +96,8 @@ describe("clinician workspace", () => {
     await page.getByLabel("Female").check();
     await page.getByLabel("Weight (kg)").fill("58");
     // Each allergy starts as "not asked yet"; latex yes, chlorhexidine no, lidocaine left unasked.
-    await page.getByRole("group", { name: "Latex" }).getByLabel("Yes").check();
-    await page.getByRole("group", { name: "Chlorhexidine" }).getByLabel("No").check();
+    await page.getByRole("group", { name: "Latex" }).getByLabel("Yes", { exact: true }).check();
+    await page.getByRole("group", { name: "Chlorhexidine" }).getByLabel("No", { exact: true }).check();
     await page.getByLabel("GP practice").selectOption({ label: "Quayside Practice" });
     await page.getByRole("button", { name: "Register the patient" }).click();
     await expect.poll(() => page.getByText("A patient with this health record number is already registered.").count()).toBe(1);
