@@ -4,11 +4,13 @@
 // authorisation: pages and handlers do.
 import createMiddleware from "next-intl/middleware";
 import { NextResponse, type NextRequest } from "next/server";
+import { sessionCookieNameFor } from "@/lib/auth/cookies";
 import { routing } from "@/lib/i18n/routing";
 import { withPassportHeaders } from "@/lib/http/secret-headers";
 import { isCardPath, limitCardRequest } from "@/lib/qr/card-limit";
 
 const intl = createMiddleware(routing);
+const sessionCookieName = sessionCookieNameFor(process.env.APP_URL ?? "http://localhost:3000");
 
 const signedInAreas = /^\/(en|es|pl|ro|ar|ur)\/(caseload|patients|admin|scan|today|my-catheter|check-in|diary|help|people|learn|more|account|home)(\/|$)/;
 
@@ -38,8 +40,7 @@ export default async function proxy(request: NextRequest) {
     const limited = await limitCardRequest(request, pathname.split("/")[1]!);
     if (limited) return withPassportHeaders(pathname, limited);
   }
-  const hasSession =
-    request.cookies.has("better-auth.session_token") || request.cookies.has("__Secure-better-auth.session_token");
+  const hasSession = request.cookies.has(sessionCookieName);
   const nonce = Buffer.from(crypto.getRandomValues(new Uint8Array(16))).toString("base64");
   const csp = contentSecurityPolicy(nonce);
   if (signedInAreas.test(pathname) && !hasSession) {

@@ -10,7 +10,7 @@ import { randomUUID } from "node:crypto";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
 import { and, eq, sql } from "drizzle-orm";
-import { db, pool, type Database } from "./index";
+import { db, pool, type Database, type Executor } from "./index";
 import {
   account,
   careTeam,
@@ -46,27 +46,38 @@ export const demoAccounts: { email: string; password: string; name: string; role
 ];
 
 /**
- * Two-step sign-in for the demo admin, so tests and demos can compute its codes. An invented
- * secret for this demo only: the raw key (better-auth keeps it as text) and its base32 form,
- * which is what an authenticator app is given. Other demo accounts have no second step.
+ * Two-step sign-in for the demo's staff (required of every member of staff by default), so
+ * demos and tests can compute their codes. Invented secrets for this demo only: the raw key
+ * (better-auth keeps it as text) and its base32 form, which an authenticator app is given.
+ * Patients and carers may turn it on themselves; the demo ones have not.
  */
-export const DEMO_ADMIN_TOTP = {
-  email: "admin@eastmere.example",
-  key: "eastmere-demo-admin-totp-key-026",
-  base32: "MVQXG5DNMVZGKLLEMVWW6LLBMRWWS3RNORXXI4BNNNSXSLJQGI3A",
-  backupCodes: ["DEMOA-00001", "DEMOA-00002", "DEMOA-00003", "DEMOA-00004", "DEMOA-00005", "DEMOA-00006", "DEMOA-00007", "DEMOA-00008", "DEMOA-00009", "DEMOA-00010"],
-} as const;
+export type DemoTotp = { email: string; key: string; base32: string; backupCodes: readonly string[] };
 
-/** Gives the demo admin its fixed TOTP secret, re-encrypted if the auth secret has changed. */
-async function ensureDemoTotp(tx: Database, userId: string) {
+const backupCodes = (prefix: string) => Array.from({ length: 10 }, (_, i) => `${prefix}-${String(i + 1).padStart(5, "0")}`);
+
+export const DEMO_STAFF_TOTP: readonly DemoTotp[] = [
+  { email: "admin@eastmere.example", key: "eastmere-demo-admin-totp-key-026", base32: "MVQXG5DNMVZGKLLEMVWW6LLBMRWWS3RNORXXI4BNNNSXSLJQGI3A", backupCodes: backupCodes("DEMOA") },
+  { email: "ward.nurse@eastmere.example", key: "eastmere-demo-ward-totp-key-0263", base32: "MVQXG5DNMVZGKLLEMVWW6LLXMFZGILLUN52HALLLMV4S2MBSGYZQ", backupCodes: backupCodes("DEMOW") },
+  { email: "community.nurse@eastmere.example", key: "eastmere-demo-comm-totp-key-0264", base32: "MVQXG5DNMVZGKLLEMVWW6LLDN5WW2LLUN52HALLLMV4S2MBSGY2A", backupCodes: backupCodes("DEMOC") },
+  { email: "rowan.nurse@eastmere.example", key: "eastmere-demo-rown-totp-key-0265", base32: "MVQXG5DNMVZGKLLEMVWW6LLSN53W4LLUN52HALLLMV4S2MBSGY2Q", backupCodes: backupCodes("DEMOR") },
+];
+
+export const DEMO_ADMIN_TOTP = DEMO_STAFF_TOTP[0]!;
+
+/**
+ * Gives an account a TOTP secret and backup codes, as better-auth's two-factor plugin keeps them
+ * (encrypted with the auth secret), re-encrypted if that secret has changed. Demo and test
+ * accounts only: real people enrol with their own app.
+ */
+export async function enrolTotp(tx: Executor, userId: string, totp: Pick<DemoTotp, "key" | "backupCodes">) {
   const key = authSecret();
   const [row] = await tx.select().from(twoFactor).where(eq(twoFactor.userId, userId));
   const readable = row ? await symmetricDecrypt({ key, data: row.secret }).catch(() => null) : null;
   const codes = row ? await symmetricDecrypt({ key, data: row.backupCodes }).catch(() => null) : null;
-  if (row && row.verified && readable === DEMO_ADMIN_TOTP.key && codes === JSON.stringify(DEMO_ADMIN_TOTP.backupCodes)) return;
+  if (row && row.verified && readable === totp.key && codes === JSON.stringify(totp.backupCodes)) return;
   const values = {
-    secret: await symmetricEncrypt({ key, data: DEMO_ADMIN_TOTP.key }),
-    backupCodes: await symmetricEncrypt({ key, data: JSON.stringify(DEMO_ADMIN_TOTP.backupCodes) }),
+    secret: await symmetricEncrypt({ key, data: totp.key }),
+    backupCodes: await symmetricEncrypt({ key, data: JSON.stringify(totp.backupCodes) }),
     verified: true,
     failedVerificationCount: 0,
     lockedUntil: null,
@@ -330,7 +341,8 @@ export async function seed({ quiet = false }: { quiet?: boolean } = {}) {
     for (const a of demoAccounts) {
       const id = await upsertUser(t, a);
       userIds.set(a.email, id);
-      if (a.email === DEMO_ADMIN_TOTP.email) await ensureDemoTotp(t, id);
+      const totp = DEMO_STAFF_TOTP.find((x) => x.email === a.email);
+      if (totp) await enrolTotp(t, id, totp);
       for (const org of a.orgs) {
         await tx.insert(memberships).values({ userId: id, organisationId: orgIds.get(org)! }).onConflictDoNothing();
       }
@@ -442,10 +454,12 @@ export function printAccounts() {
   for (const a of demoAccounts) {
     console.log(`  ${a.role.padEnd(9)} ${a.email.padEnd(w)}  ${a.password.padEnd(26)} ${a.note}`);
   }
-  console.log(`\n  Two-step sign-in (TOTP) for ${DEMO_ADMIN_TOTP.email}:`);
-  console.log(`    secret (base32, for an authenticator app): ${DEMO_ADMIN_TOTP.base32}`);
-  console.log(`    otpauth://totp/Caddis:${encodeURIComponent(DEMO_ADMIN_TOTP.email)}?secret=${DEMO_ADMIN_TOTP.base32}&issuer=Caddis`);
-  console.log(`    a backup code: ${DEMO_ADMIN_TOTP.backupCodes[0]} (each works once; the seed restores them)`);
+  console.log("\n  Two-step sign-in (TOTP): add a secret to any authenticator app, or use a backup code once.");
+  for (const x of DEMO_STAFF_TOTP) {
+    console.log(`    ${x.email.padEnd(w)}  secret ${x.base32}  backup code ${x.backupCodes[0]}`);
+    console.log(`      otpauth://totp/Caddis:${encodeURIComponent(x.email)}?secret=${x.base32}&issuer=Caddis`);
+  }
+  console.log("    (each backup code works once; the seed restores them)");
   console.log("");
 }
 

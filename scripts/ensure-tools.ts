@@ -1,6 +1,7 @@
 /**
  * Debian packages the browser and PDF tests need: chromium (driven by playwright-core; no
- * browser is ever downloaded) and poppler-utils (pdftoppm renders PDF pages to images).
+ * browser is ever downloaded), poppler-utils (pdftoppm renders PDF pages to images) and openssl
+ * (the https test makes a throwaway certificate for its local TLS terminator).
  */
 import { spawnSync } from "node:child_process";
 import fs from "node:fs";
@@ -8,6 +9,7 @@ import fs from "node:fs";
 const wanted: { bin: string; pkg: string }[] = [
   { bin: "/usr/bin/chromium", pkg: "chromium" },
   { bin: "/usr/bin/pdftoppm", pkg: "poppler-utils" },
+  { bin: "/usr/bin/openssl", pkg: "openssl" },
 ];
 
 export function ensureTools() {

@@ -4,10 +4,11 @@
  * running until `npm run services down`.
  */
 import { randomBytes } from "node:crypto";
-import { spawn, spawnSync } from "node:child_process";
+import { spawnSync } from "node:child_process";
 import fs from "node:fs";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
+import { spawnAppServer } from "./app-server";
 import { defaults, servicesUp } from "./services";
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
@@ -47,11 +48,8 @@ async function main() {
   if (!process.argv.includes("--no-build")) run(path.join(root, "node_modules/.bin/next"), ["build"], env);
   const port = appUrl.port || "3000";
   console.log(`[start] Caddis on ${appUrl.origin} (fake inbox: ${defaults.inboxUrl})`);
-  const server = spawn(path.join(root, "node_modules/.bin/next"), ["start", "-p", port, "-H", process.env.HOST ?? "127.0.0.1"], {
-    cwd: root,
-    stdio: "inherit",
-    env,
-  });
+  // Through the server entry (scripts/server.ts), which works out each client's address.
+  const server = spawnAppServer({ port, hostname: process.env.HOST ?? "127.0.0.1", env: { ...env, NODE_ENV: "production" } });
   for (const signal of ["SIGINT", "SIGTERM"] as const) process.on(signal, () => server.kill(signal));
   server.on("exit", (code) => process.exit(code ?? 0));
 }

@@ -6,9 +6,10 @@
  * `npm test -- unit|integration|e2e` runs one stage; file filters after the stage narrow it
  * (`npm test -- e2e tests/e2e/passport.test.ts`). The test database is dropped at the end.
  */
-import { spawn, spawnSync } from "node:child_process";
+import { spawnSync } from "node:child_process";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
+import { spawnAppServer, waitForApp } from "./app-server";
 import { ensureTools } from "./ensure-tools";
 import { defaults, dropDatabase, ensureDatabase, portOpen, servicesUp } from "./services";
 
@@ -25,19 +26,6 @@ function run(cmd: string, args: string[], env: NodeJS.ProcessEnv, label: string)
   const r = spawnSync(cmd, args, { cwd: root, stdio: "inherit", env });
   console.log(`[test] ${label}: ${r.status === 0 ? "passed" : "FAILED"} in ${((Date.now() - t) / 1000).toFixed(0)} s`);
   return r.status === 0;
-}
-
-async function waitForHttp(url: string, seconds: number) {
-  for (let i = 0; i < seconds * 4; i++) {
-    try {
-      const r = await fetch(url, { redirect: "manual" });
-      if (r.status < 500) return;
-    } catch {
-      /* not up yet */
-    }
-    await new Promise((r) => setTimeout(r, 250));
-  }
-  throw new Error(`app did not answer on ${url} within ${seconds} s`);
 }
 
 async function main() {
@@ -83,21 +71,21 @@ async function main() {
         ...env,
         APP_URL: appUrl,
         NODE_ENV: "production",
+        // The tests stand in for a load balancer on loopback: each browser or request says which
+        // client it plays in X-Forwarded-For (tests/e2e/client-address.test.ts runs an instance
+        // that trusts no proxy, as `npm start` does by default).
+        TRUSTED_PROXIES: "127.0.0.1, ::1",
       };
       if (!run(bin("next"), ["build"], appEnv, "production build")) return false;
-      const server = spawn(bin("next"), ["start", "-p", String(port), "-H", "127.0.0.1"], {
-        cwd: root,
-        env: appEnv,
-        stdio: ["ignore", "inherit", "inherit"],
-      });
+      const server = spawnAppServer({ port, env: appEnv, stdio: ["ignore", "inherit", "inherit"] });
       try {
-        await waitForHttp(`${appUrl}/en/sign-in`, 60);
+        await waitForApp(appUrl, 60);
         ok =
           run(
             bin("vitest"),
             ["run", "--project", "e2e", ...filters],
             // The second-instance test starts another server with the same settings.
-            { ...env, NODE_ENV: "test", E2E_BASE_URL: appUrl, E2E_APP_SECRET: appEnv.BETTER_AUTH_SECRET },
+            { ...env, NODE_ENV: "test", E2E_BASE_URL: appUrl, E2E_APP_SECRET: appEnv.BETTER_AUTH_SECRET, E2E_TRUSTED_PROXIES: appEnv.TRUSTED_PROXIES },
             "end-to-end tests",
           ) && ok;
       } finally {

@@ -22,10 +22,11 @@ export function OrganisationForm({ organisationId, initial }: { organisationId?:
     register,
     handleSubmit,
     setError,
+    watch,
     formState: { errors, isSubmitting },
   } = useForm<OrganisationFormValues, unknown, OrganisationInput>({
     resolver: zodResolver(organisationSchema),
-    defaultValues: initial ?? { name: "", kind: "hospital_ward", parentName: "", phone: "", outOfHoursPhone: "", inboxEmail: "", locale: "en", languages: ["en"], requireTwoFactor: false },
+    defaultValues: initial ?? { name: "", kind: "hospital_ward", parentName: "", phone: "", outOfHoursPhone: "", inboxEmail: "", locale: "en", languages: ["en"], requireTwoFactor: true, twoFactorRelaxedReason: "" },
   });
   const failure = useSubmitFailure("AdminOrganisations", setError);
   const errorText = failure.text;
@@ -91,6 +92,16 @@ export function OrganisationForm({ organisationId, initial }: { organisationId?:
         </div>
       </ChoiceGroup>
       <Checkbox label={t("requireTwoFactor")} hint={t("requireTwoFactorHint")} {...register("requireTwoFactor")} />
+      {/* Relaxing two-step sign-in is allowed only with a reason on record. */}
+      {watch("requireTwoFactor") === false ? (
+        <Field
+          label={t("twoFactorRelaxedReason")}
+          hint={t("twoFactorRelaxedReasonHint")}
+          maxLength={500}
+          errors={errorText.list(errors.twoFactorRelaxedReason)}
+          {...register("twoFactorRelaxedReason")}
+        />
+      ) : null}
       <div>
         <Button type="submit" disabled={isSubmitting}>
           {isSubmitting ? t("saving") : organisationId ? t("save") : t("create")}

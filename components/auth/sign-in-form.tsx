@@ -25,6 +25,12 @@ export function SignInForm({ returnTo }: { returnTo?: string } = {}) {
     setFormError(null);
     const { data, error } = await authClient.signIn.email({ email: values.email, password: values.password });
     if (error) {
+      // Held back by the per-account delay: say how long (lib/auth/sign-in-throttle.ts).
+      const wait = Number((error as { retryAfterSeconds?: unknown }).retryAfterSeconds);
+      if (error.status === 429 && error.code === "ACCOUNT_DELAYED" && wait > 0) {
+        setFormError(t("delayed", { wait: wait < 90 ? t("waitSeconds", { count: wait }) : t("waitMinutes", { count: Math.ceil(wait / 60) }) }));
+        return;
+      }
       setFormError(error.status === 429 ? t("tooMany") : error.status === 403 ? t("inactive") : t("wrong"));
       return;
     }

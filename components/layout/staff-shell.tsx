@@ -23,6 +23,7 @@ export async function StaffShell({ role, name, children }: { role: Role; name: s
           { href: "/admin/settings", label: a("settings"), sub: true },
           { href: "/admin/audit", label: a("audit"), sub: true },
           { href: "/admin/patients", label: a("patients"), sub: true },
+          { href: "/admin/sign-ins", label: a("signIns"), sub: true },
         ]
       : [
           { href: "/caseload", label: t("caseload") },

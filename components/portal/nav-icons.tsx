@@ -90,3 +90,11 @@ export function ExitIcon({ className = "h-6 w-6" }: P) {
     </svg>
   );
 }
+export function KeyIcon({ className = "h-6 w-6" }: P) {
+  return (
+    <svg {...base} className={className}>
+      <circle cx="8" cy="15" r="4" />
+      <path d="M11 12l9-9M16 7l3 3M14 9l2 2" />
+    </svg>
+  );
+}

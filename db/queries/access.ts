@@ -1,7 +1,7 @@
 import "server-only";
 import { and, eq, gt } from "drizzle-orm";
 import { db, type Executor } from "@/db";
-import { careTeam, carerLinks, memberships, organisations, patients, visitAccess } from "@/db/schema";
+import { careTeam, carerLinks, memberships, organisations, patients, user, visitAccess } from "@/db/schema";
 
 export type Role = "admin" | "clinician" | "patient" | "carer";
 
@@ -23,10 +23,19 @@ export async function getMemberships({ userId }: { userId: string }, tx: Executo
     .where(eq(memberships.userId, userId));
 }
 
-/** True when one of the user's organisations requires two-step sign-in for its staff. */
+/**
+ * Staff sign in in two steps unless every organisation they belong to has relaxed it; a member of
+ * staff of no organisation needs it too (the default holds until an admin says otherwise).
+ */
+export function secondFactorRequired(memberships: { requireTwoFactor: boolean }[]): boolean {
+  return memberships.length === 0 || memberships.some((m) => m.requireTwoFactor);
+}
+
+/** Whether this account must keep two-step sign-in on (staff, by their organisations). */
 export async function twoFactorRequiredFor({ userId }: { userId: string }, tx: Executor = db) {
-  const rows = await getMemberships({ userId }, tx);
-  return rows.some((r) => r.requireTwoFactor);
+  const [u] = await tx.select({ role: user.role }).from(user).where(eq(user.id, userId));
+  if (u?.role !== "admin" && u?.role !== "clinician") return false;
+  return secondFactorRequired(await getMemberships({ userId }, tx));
 }
 
 /** The patients a patient (themselves) or a carer (active links only) may see. */

@@ -7,6 +7,7 @@ import { carerLinks, memberships, organisations, outboundMessages, patients, use
 
 export const STAFF_INVITE_KIND = "staff-invite";
 export const PASSWORD_RESET_KIND = "password-reset";
+export const SIGN_IN_ATTEMPTS_KIND = "sign-in-attempts";
 
 /** The locales of organisations, in the order of `ids` (the first chosen decides an invitation's language). */
 export async function organisationLocales({ ids }: { ids: string[] }, tx: Executor = db) {

@@ -1,5 +1,5 @@
 import "server-only";
-import { and, count, eq, inArray, isNull } from "drizzle-orm";
+import { and, count, eq, inArray, isNull, sql } from "drizzle-orm";
 import { db, type Executor } from "@/db";
 import { memberships, organisations, user, type NewOrganisation } from "@/db/schema";
 
@@ -55,6 +55,10 @@ export type OrganisationDetail = {
   locale: string;
   languages: string[];
   requireTwoFactor: boolean;
+  /** When two-step sign-in is relaxed: why, by whom, when. */
+  twoFactorRelaxedReason: string | null;
+  twoFactorRelaxedAt: Date | null;
+  twoFactorRelaxedByName: string | null;
   updatedAt: Date;
 };
 
@@ -69,8 +73,26 @@ const detailColumns = {
   locale: organisations.locale,
   languages: organisations.languages,
   requireTwoFactor: organisations.requireTwoFactor,
+  twoFactorRelaxedReason: organisations.twoFactorRelaxedReason,
+  twoFactorRelaxedAt: organisations.twoFactorRelaxedAt,
+  twoFactorRelaxedByName: sql<string | null>`(select u.name from "user" u where u.id = ${organisations.twoFactorRelaxedByUserId})`,
   updatedAt: organisations.updatedAt,
 };
+
+/**
+ * The two-step sign-in columns for a change of policy: requiring it clears the record of the
+ * relaxation; relaxing it records the reason, who and when (kept as it was when nothing changed).
+ */
+export function twoFactorPolicyValues(
+  input: { requireTwoFactor?: boolean; twoFactorRelaxedReason?: string | null },
+  { actorUserId, before }: { actorUserId: string; before?: Pick<OrganisationDetail, "requireTwoFactor" | "twoFactorRelaxedReason"> | null },
+): Partial<NewOrganisation> {
+  if (input.requireTwoFactor === undefined) return {};
+  if (input.requireTwoFactor) return { requireTwoFactor: true, twoFactorRelaxedReason: null, twoFactorRelaxedByUserId: null, twoFactorRelaxedAt: null };
+  const reason = input.twoFactorRelaxedReason ?? null;
+  if (before && !before.requireTwoFactor && before.twoFactorRelaxedReason === reason) return {};
+  return { requireTwoFactor: false, twoFactorRelaxedReason: reason, twoFactorRelaxedByUserId: actorUserId, twoFactorRelaxedAt: new Date() };
+}
 
 /** One organisation, only if it is among `organisationIds` (the admin's own). */
 export async function getManagedOrganisation(

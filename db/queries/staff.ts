@@ -254,6 +254,11 @@ export async function setRole({ userId, role }: { userId: string; role: StaffRol
 /** Deactivation: the account is marked and every session it has ends now (ASVS 7.4.2). */
 export async function deactivateUser({ userId }: { userId: string }, tx: Executor) {
   await tx.update(user).set({ deactivatedAt: new Date(), updatedAt: new Date() }).where(eq(user.id, userId));
+  return endAllSessions({ userId }, tx);
+}
+
+/** Every session of an account ends now: its cookies are refused on their next request. */
+export async function endAllSessions({ userId }: { userId: string }, tx: Executor) {
   const ended = await tx.delete(session).where(eq(session.userId, userId)).returning({ id: session.id });
   return { sessionsEnded: ended.length };
 }

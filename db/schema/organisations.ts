@@ -21,10 +21,23 @@ export const organisations = pgTable(
     inboxEmail: text("inbox_email"),
     locale: text("locale").notNull().default("en"),
     languages: text("languages").array().notNull().default(sql`'{en}'::text[]`),
-    requireTwoFactor: boolean("require_two_factor").notNull().default(false),
+    // Staff sign in with a second step (TOTP) unless an admin relaxed it for this organisation,
+    // with a reason on record (ASVS 5.0.0 6.3.3). A member of staff of several organisations
+    // needs it if any of them requires it; one of none needs it too.
+    requireTwoFactor: boolean("require_two_factor").notNull().default(true),
+    twoFactorRelaxedReason: text("two_factor_relaxed_reason"),
+    twoFactorRelaxedByUserId: text("two_factor_relaxed_by_user_id").references(() => user.id, { onDelete: "set null" }),
+    twoFactorRelaxedAt: timestamp("two_factor_relaxed_at", { withTimezone: true }),
     ...timestamps,
   },
-  (t) => [uniqueIndex("organisations_name_kind_uq").on(t.name, t.kind), index("organisations_kind_idx").on(t.kind)],
+  (t) => [
+    uniqueIndex("organisations_name_kind_uq").on(t.name, t.kind),
+    index("organisations_kind_idx").on(t.kind),
+    check(
+      "organisations_two_factor_reason_ck",
+      sql`${t.requireTwoFactor} or (length(trim(coalesce(${t.twoFactorRelaxedReason}, ''))) >= 10 and ${t.twoFactorRelaxedAt} is not null)`,
+    ),
+  ],
 );
 
 export const memberships = pgTable(

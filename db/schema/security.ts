@@ -48,3 +48,37 @@ export const attemptCounters = pgTable(
 
 export type AuditEvent = typeof auditEvents.$inferSelect;
 export type NewAuditEvent = typeof auditEvents.$inferInsert;
+
+// Failed sign-ins per account, from any address (lib/auth/sign-in-throttle.ts): the growing delay
+// and what the account's owner and the admins are told. Keyed by a keyed hash of the e-mail
+// address as typed, so an address with no account is slowed the same way (nothing to enumerate).
+export const signInThrottles = pgTable(
+  "sign_in_throttles",
+  {
+    accountKey: text("account_key").primaryKey(),
+    userId: text("user_id").references(() => user.id, { onDelete: "cascade" }),
+    // Wrong passwords (or second-step codes) since the last full sign-in: they set the delay.
+    consecutiveFailures: integer("consecutive_failures").notNull().default(0),
+    // No attempt from a device this account has not signed in on is checked before this.
+    blockedUntil: timestamp("blocked_until", { withTimezone: true }),
+    // The reporting window (24 h from its first attempt): what the e-mail and the admin view count.
+    windowStartedAt: timestamp("window_started_at", { withTimezone: true }).notNull().defaultNow(),
+    failedAttempts: integer("failed_attempts").notNull().default(0),
+    // Attempts held back by the delay (refused unchecked).
+    heldAttempts: integer("held_attempts").notNull().default(0),
+    // Wrong second-step codes after a right password: someone may know the password.
+    secondStepFailures: integer("second_step_failures").notNull().default(0),
+    // Keyed hashes of the addresses (IPv6 by /64) the window's attempts came from, at most 100.
+    addressHashes: text("address_hashes").array().notNull().default(sql`'{}'::text[]`),
+    lastAttemptAt: timestamp("last_attempt_at", { withTimezone: true }).notNull().defaultNow(),
+    notifiedAt: timestamp("notified_at", { withTimezone: true }),
+    ...timestamps,
+  },
+  (t) => [
+    index("sign_in_throttles_user_idx").on(t.userId),
+    index("sign_in_throttles_last_attempt_idx").on(t.lastAttemptAt),
+    check("sign_in_throttles_counts_ck", sql`${t.consecutiveFailures} >= 0 and ${t.failedAttempts} >= 0 and ${t.heldAttempts} >= 0 and ${t.secondStepFailures} >= 0`),
+  ],
+);
+
+export type SignInThrottle = typeof signInThrottles.$inferSelect;

@@ -4,9 +4,12 @@ import "server-only";
 // sent and never resent (redactAfterSend), and the link is never shown on any screen.
 // Staff e-mails are in the organisation's language; a patient's in the patient's.
 import { createHash } from "node:crypto";
+import { eq } from "drizzle-orm";
 import { createTranslator } from "next-intl";
 import { db, type Executor } from "@/db";
-import { accountMailContext, PASSWORD_RESET_KIND, STAFF_INVITE_KIND } from "@/db/queries/admin-mail";
+import { accountMailContext, PASSWORD_RESET_KIND, SIGN_IN_ATTEMPTS_KIND, STAFF_INVITE_KIND } from "@/db/queries/admin-mail";
+import { user } from "@/db/schema";
+import { env } from "@/lib/config/env";
 import { emailDates, emailLocale, emailTranslator } from "@/lib/email/i18n";
 import { queueMessage, type QueuedMessage } from "@/lib/email/outbox";
 import { renderEmail } from "@/lib/email/render";
@@ -120,5 +123,57 @@ export async function sendPasswordReset(
     patientId: context.patientId,
     sourceId: userId,
     redactAfterSend: true,
+  });
+}
+
+/**
+ * Tells the owner of an account that someone keeps failing to sign in to it (at most once a day,
+ * lib/auth/sign-in-throttle.ts), in the caller's transaction. Nothing in it is a secret: the link
+ * is the ordinary "forgot password" page.
+ */
+export async function sendSignInAttemptsNotice(
+  {
+    userId,
+    since,
+    attempts,
+    addresses,
+    secondStepFailures,
+    noticeKey,
+  }: { userId: string; since: Date; attempts: number; addresses: number; secondStepFailures: number; noticeKey: string },
+  tx: Executor = db,
+): Promise<QueuedMessage | null> {
+  const [u] = await tx.select({ email: user.email, name: user.name }).from(user).where(eq(user.id, userId));
+  if (!u) return null;
+  const context = await accountMailContext({ userId }, tx);
+  const locale = emailLocale(context.locale);
+  const t = adminMailTranslator(locale);
+  const common = emailTranslator(locale);
+  const d = emailDates(locale);
+  const patientFacing = context.patientId !== null;
+  const content = {
+    locale,
+    subject: t("signInAttempts.subject"),
+    title: t("signInAttempts.title"),
+    intro: t("signInAttempts.greeting", { name: u.name }),
+    blocks: [
+      { type: "paragraph" as const, text: t("signInAttempts.intro", { date: d.at(since), count: attempts }) },
+      { type: "paragraph" as const, text: t("signInAttempts.places", { count: addresses }) },
+      ...(secondStepFailures > 0 ? [{ type: "paragraph" as const, text: t("signInAttempts.secondStep", { count: secondStepFailures }) }] : []),
+      { type: "paragraph" as const, text: t("signInAttempts.slowed") },
+      { type: "paragraph" as const, text: t("signInAttempts.knownDevice") },
+      { type: "paragraph" as const, text: t("signInAttempts.whatToDo") },
+      { type: "action" as const, href: new URL(`/${locale}/forgot-password`, env.APP_URL).toString(), label: t("signInAttempts.action") },
+      { type: "paragraph" as const, text: t("signInAttempts.ifYou") },
+    ],
+    footer: patientFacing ? [common("patient.footerHelp"), common("patient.footerNoReply")] : [common("common.footerNoReply")],
+  };
+  return queueMessage(tx, {
+    idempotencyKey: `${SIGN_IN_ATTEMPTS_KIND}:${noticeKey}`,
+    kind: SIGN_IN_ATTEMPTS_KIND,
+    to: u.email,
+    ...renderEmail(content),
+    locale,
+    patientId: context.patientId,
+    sourceId: userId,
   });
 }

@@ -13,6 +13,7 @@ import {
   createStaffAccount,
   currentAdminOrganisationIds,
   deactivateUser,
+  endAllSessions,
   findInvitationByTokenHash,
   findOpenInvitations,
   findUserByEmail,
@@ -222,6 +223,16 @@ export async function deactivateStaff({ viewer, userId, request }: { viewer: Vie
       return { userId, sessionsEnded };
     }),
   );
+}
+
+/** Signs a member of staff out on every device (ASVS 5.0.0 7.4.5), e.g. after a lost phone. */
+export async function endStaffSessions({ viewer, userId, request }: { viewer: Viewer; userId: string; request: RequestLike }) {
+  return db.transaction(async (tx) => {
+    await loadMember(viewer, userId, tx);
+    const { sessionsEnded } = await endAllSessions({ userId }, tx);
+    await audit({ action: "admin.staff.sessions_end", actor: viewer, via: "admin", request, details: { userId, sessionsEnded } }, tx);
+    return { userId, sessionsEnded };
+  });
 }
 
 export async function reactivateStaff({ viewer, userId, request }: { viewer: Viewer; userId: string; request: RequestLike }) {

@@ -11,9 +11,10 @@ import { account, rateLimit, session, twoFactor, user, verification } from "@/db
 import { sendPasswordReset } from "@/lib/admin/mail";
 import { audit } from "@/lib/records/audit";
 import { hashPassword, PASSWORD_MAX_LENGTH, PASSWORD_MIN_LENGTH, passwordProblem, verifyPassword } from "@/lib/auth/password";
+import { ACCOUNT_LIMITS, clearDelay, holdIfDelayed, newKnownDeviceValue, recordFailure, recordSuccess } from "@/lib/auth/sign-in-throttle";
+import { cookiePrefixFor } from "@/lib/auth/cookies";
 import { authSecret, env } from "@/lib/config/env";
-
-const trustedProxies = (process.env.TRUSTED_PROXIES ?? "").split(",").map((s) => s.trim()).filter(Boolean);
+import { CLIENT_ADDRESS_HEADER } from "@/lib/http/client-ip";
 
 export const SIGN_IN_WINDOW_SECONDS = 60;
 export const RESET_LINK_SECONDS = 60 * 60;
@@ -28,6 +29,9 @@ export const auth = betterAuth({
     provider: "pg",
     schema: { user, session, account, verification, rateLimit, twoFactor },
   }),
+  // Listing and ending sessions go through Caddis's own routes (app/api/account/sessions), which
+  // never hand a token to the browser; better-auth's would (they take and return tokens).
+  disabledPaths: ["/list-sessions", "/revoke-session", "/revoke-sessions", "/revoke-other-sessions"],
   // Reset-password and two-factor identifiers are kept only as hashes.
   verification: { storeIdentifier: "hashed" },
   emailAndPassword: {
@@ -45,6 +49,8 @@ export const auth = betterAuth({
       await sendPasswordReset({ userId: u.id, email: u.email, name: u.name, url, expiresInSeconds: RESET_LINK_SECONDS });
     },
     onPasswordReset: async ({ user: u }, request) => {
+      // The reset works while sign-in is being held back, and ends the hold (OWASP).
+      await clearDelay({ userId: u.id });
       await audit({ action: "account.password_reset", actor: { userId: u.id, role: roleOf(u) }, request: request ?? null });
     },
   },
@@ -75,11 +81,13 @@ export const auth = betterAuth({
     },
   },
   advanced: {
-    ipAddress: {
-      ipAddressHeaders: env.CLIENT_IP_HEADER ? [env.CLIENT_IP_HEADER] : [],
-      ...(trustedProxies.length ? { trustedProxies } : {}),
-    },
-    useSecureCookies: env.APP_URL.startsWith("https://"),
+    // The address the server entry worked out (lib/http/client-ip.ts), never a client's header.
+    ipAddress: { ipAddressHeaders: [CLIENT_ADDRESS_HEADER] },
+    // Over https every auth cookie is `__Host-caddis.*`: Secure, Path=/, no Domain (better-auth's
+    // own secure prefix is __Secure-, so its switch stays off and the prefix and flag are set here).
+    cookiePrefix: cookiePrefixFor(env.APP_URL),
+    useSecureCookies: false,
+    defaultCookieAttributes: { secure: env.APP_URL.startsWith("https://"), sameSite: "lax", path: "/", httpOnly: true },
   },
   databaseHooks: {
     session: {
@@ -94,12 +102,22 @@ export const auth = betterAuth({
     },
   },
   hooks: {
-    // Caddis's password rules (ASVS 6.2.4) on every path that sets a password, and no turning
-    // off two-factor where an organisation requires it.
+    // Caddis's password rules (ASVS 6.2.4) on every path that sets a password, no turning off
+    // two-factor where an organisation requires it, and the per-account sign-in delay.
     before: createAuthMiddleware(async (ctx) => {
-      if (ctx.path === "/reset-password" || ctx.path === "/change-password") {
-        const problem = passwordProblem(String(ctx.body?.newPassword ?? ""));
-        if (problem) throw new APIError("BAD_REQUEST", { message: passwordMessages[problem], code: problem.toUpperCase() });
+      if (ctx.path === "/sign-in/email") {
+        const wait = await holdIfDelayed({ email: String(ctx.body?.email ?? ""), request: requestOf(ctx), knownDevice: await readKnownDevice(ctx) });
+        if (wait > 0) {
+          throw new APIError(
+            "TOO_MANY_REQUESTS",
+            { message: "Too many wrong tries for this account. Try again later, or reset the password.", code: "ACCOUNT_DELAYED", retryAfterSeconds: wait },
+            { "Retry-After": String(wait) },
+          );
+        }
+      }
+      if (secondStepPaths.has(ctx.path) && !(await getSessionFromCtx(ctx))) {
+        const userId = await pendingSecondStepUser(ctx);
+        if (userId) pendingUsers.set(ctx.context, userId);
       }
       if (ctx.path === "/two-factor/disable") {
         const current = await getSessionFromCtx(ctx);
@@ -107,15 +125,22 @@ export const auth = betterAuth({
           throw new APIError("FORBIDDEN", { message: "Your organisation requires two-step sign-in.", code: "TWO_FACTOR_REQUIRED" });
         }
       }
+      if (ctx.path === "/reset-password" || ctx.path === "/change-password") {
+        const problem = passwordProblem(String(ctx.body?.newPassword ?? ""));
+        if (problem) throw new APIError("BAD_REQUEST", { message: passwordMessages[problem], code: problem.toUpperCase() });
+      }
+      // A new password ends every other session, whatever the client asked (ASVS 5.0.0 7.4.3).
+      if (ctx.path === "/change-password") return { context: { body: { ...ctx.body, revokeOtherSessions: true } } };
     }),
-    // Account security changes are audit events.
+    // Sign-ins count for or against the account (lib/auth/sign-in-throttle.ts); account security
+    // changes are audit events.
     after: createAuthMiddleware(async (ctx) => {
-      const action = accountActions[ctx.path];
-      if (!action || ctx.context.returned instanceof Error) return;
-      const u = ctx.context.session?.user ?? ctx.context.newSession?.user;
-      // verify-totp without a session is the second step of a sign-in, not a set-up.
-      if (!u || (ctx.path === "/two-factor/verify-totp" && !ctx.context.session)) return;
-      await audit({ action, actor: { userId: u.id, role: roleOf(u) }, request: ctx.request ?? null });
+      await countSignIn(ctx);
+      await auditAccountChange(ctx);
+      // Session tokens never reach page JavaScript: they travel only in the HttpOnly cookie. The
+      // sign-in, second-step, password-change and session answers lose theirs (ASVS 5.0.0 7.2.x).
+      const returned = ctx.context.returned;
+      if (ctx.request && !isApiError(returned) && containsToken(returned)) return ctx.json(withoutTokens(returned) as Record<string, unknown>);
     }),
   },
   plugins: [
@@ -140,6 +165,99 @@ const accountActions: Record<string, string> = {
   "/two-factor/disable": "account.two_factor_disable",
   "/two-factor/generate-backup-codes": "account.backup_codes_regenerate",
 };
+
+type HookContext = Parameters<Parameters<typeof createAuthMiddleware>[0]>[0];
+
+/** The request, or for a server-side `auth.api` call its headers (for the client address). */
+function requestOf(ctx: HookContext): { headers: Headers } | null {
+  return ctx.request ?? (ctx.headers ? { headers: ctx.headers } : null);
+}
+
+// A browser that has signed in to an account before (OWASP device cookies): not held back by
+// that account's sign-in delay unless it has failed too often itself.
+const KNOWN_DEVICE_COOKIE = "known_device";
+
+async function readKnownDevice(ctx: HookContext) {
+  const cookie = ctx.context.createAuthCookie(KNOWN_DEVICE_COOKIE);
+  return (await ctx.getSignedCookie(cookie.name, ctx.context.secret)) || null;
+}
+
+async function rememberDevice(ctx: HookContext, userId: string) {
+  const cookie = ctx.context.createAuthCookie(KNOWN_DEVICE_COOKIE, { maxAge: ACCOUNT_LIMITS.knownDeviceCookieDays * 24 * 60 * 60 });
+  await ctx.setSignedCookie(cookie.name, newKnownDeviceValue(userId), ctx.context.secret, cookie.attributes);
+}
+
+const secondStepPaths = new Set(["/two-factor/verify-totp", "/two-factor/verify-backup-code"]);
+// The account a second step is for, read before the plugin may spend the challenge.
+const pendingUsers = new WeakMap<object, string>();
+
+async function pendingSecondStepUser(ctx: HookContext): Promise<string | null> {
+  const cookie = ctx.context.createAuthCookie("two_factor");
+  const identifier = await ctx.getSignedCookie(cookie.name, ctx.context.secret);
+  if (!identifier) return null;
+  const row = await ctx.context.internalAdapter.findVerificationValue(identifier);
+  return row?.value ?? null;
+}
+
+function isApiError(value: unknown): value is APIError {
+  return value instanceof APIError || (value instanceof Error && "statusCode" in value);
+}
+
+async function countSignIn(ctx: HookContext) {
+  const returned = ctx.context.returned;
+  const request = requestOf(ctx);
+  if (ctx.path === "/sign-in/email") {
+    if (isApiError(returned)) {
+      if (returned.statusCode === 401) {
+        await recordFailure({ email: String(ctx.body?.email ?? ""), step: "password", request, knownDevice: await readKnownDevice(ctx) });
+      }
+      return;
+    }
+    const u = ctx.context.newSession?.user as { id: string; twoFactorEnabled?: boolean } | undefined;
+    // With two-step sign-in the password alone is not a sign-in: the code decides.
+    if (u && !u.twoFactorEnabled) {
+      await recordSuccess({ userId: u.id, role: roleOf(u), request });
+      await rememberDevice(ctx, u.id);
+    }
+    return;
+  }
+  if (!secondStepPaths.has(ctx.path)) return;
+  const pending = pendingUsers.get(ctx.context);
+  if (!pending) return;
+  if (isApiError(returned)) {
+    await recordFailure({ userId: pending, step: "second_step", request, knownDevice: await readKnownDevice(ctx) });
+    return;
+  }
+  const u = ctx.context.newSession?.user;
+  if (u) {
+    await recordSuccess({ userId: u.id, role: roleOf(u), request });
+    await rememberDevice(ctx, u.id);
+  }
+}
+
+async function auditAccountChange(ctx: HookContext) {
+  const action = accountActions[ctx.path];
+  if (!action || isApiError(ctx.context.returned)) return;
+  const u = ctx.context.session?.user ?? ctx.context.newSession?.user;
+  // verify-totp without a session is the second step of a sign-in, not a set-up.
+  if (!u || (ctx.path === "/two-factor/verify-totp" && !ctx.context.session)) return;
+  await audit({ action, actor: { userId: u.id, role: roleOf(u) }, request: requestOf(ctx) });
+}
+
+const isPlainObject = (v: unknown): v is Record<string, unknown> => typeof v === "object" && v !== null && Object.getPrototypeOf(v) === Object.prototype;
+
+/** Whether an answer holds a `token` field at its top, or one level down (a session, a list of them). */
+function containsToken(value: unknown): boolean {
+  if (Array.isArray(value)) return value.some((v) => isPlainObject(v) && "token" in v);
+  if (!isPlainObject(value)) return false;
+  return "token" in value || Object.values(value).some((v) => isPlainObject(v) && "token" in v);
+}
+
+function withoutTokens(value: unknown): unknown {
+  if (Array.isArray(value)) return value.map(withoutTokens);
+  if (!isPlainObject(value)) return value;
+  return Object.fromEntries(Object.entries(value).filter(([k]) => k !== "token").map(([k, v]) => [k, isPlainObject(v) ? withoutTokens(v) : v]));
+}
 
 type AuditRole = "admin" | "clinician" | "patient" | "carer";
 function roleOf(u: object): AuditRole {

@@ -41,8 +41,11 @@ const schema = z.object({
     .enum(["true", "false"])
     .default("true")
     .transform((v) => v === "true"),
-  // Header the load balancer sets with the client address; empty means use none (loopback only).
-  CLIENT_IP_HEADER: z.string().default("x-forwarded-for"),
+  // The proxies (addresses and CIDR ranges, comma-separated) whose forwarding headers are
+  // believed, and the header they append the client address to. With none, the client address
+  // is the TCP peer and no header is read (lib/http/client-address.ts, scripts/server.ts).
+  TRUSTED_PROXIES: z.string().default(""),
+  CLIENT_IP_HEADER: z.string().trim().toLowerCase().min(1).default("x-forwarded-for"),
   // Salt for the hashed IP addresses kept in audit events and rate-limit keys.
   AUDIT_IP_SALT: z.string().min(8).default("caddis-local-ip-salt"),
   CADDIS_DATA_DIR: z.string().default(".data"),

@@ -6,7 +6,7 @@ import "server-only";
 // so nobody can lock a patient out of their account by guessing from elsewhere (ASVS 6.1.1, 2.4.1).
 import { sql } from "drizzle-orm";
 import { db, type Executor } from "@/db";
-import { clientIp, hashIp } from "@/lib/http/client-ip";
+import { clientIp, hashIp, limiterAddress } from "@/lib/http/client-ip";
 import { AppError } from "@/lib/http/errors";
 
 export type LimitRule = { name: string; max: number; windowSeconds: number };
@@ -33,11 +33,19 @@ export async function countAttempt({ key, windowSeconds }: { key: string; window
   return { count: Number(row.count), windowStartedAt: new Date(row.window_started_at) };
 }
 
+/** How many attempts the current window of `key` holds, without counting one. */
+export async function currentCount({ key, windowSeconds }: { key: string; windowSeconds: number }, tx: Executor = db) {
+  const result = await tx.execute<{ count: number }>(sql`
+    select count from attempt_counters
+    where key = ${key} and window_started_at > now() - make_interval(secs => ${windowSeconds})`);
+  return Number(result.rows[0]?.count ?? 0);
+}
+
 export type LimitResult = { allowed: boolean; count: number; retryAfterSeconds: number };
 
 /** Counts an attempt from this request's address and says whether it is within the rule. */
 export async function checkAddress(request: Request | { headers: Headers }, rule: LimitRule): Promise<LimitResult> {
-  const key = `${rule.name}:${hashIp(clientIp(request.headers))}`;
+  const key = `${rule.name}:${hashIp(limiterAddress(clientIp(request.headers)))}`;
   const { count, windowStartedAt } = await countAttempt({ key, windowSeconds: rule.windowSeconds });
   const retryAfterSeconds = Math.max(1, Math.ceil((windowStartedAt.getTime() + rule.windowSeconds * 1000 - Date.now()) / 1000));
   return { allowed: count <= rule.max, count, retryAfterSeconds };

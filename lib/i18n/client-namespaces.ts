@@ -6,11 +6,11 @@ export const clientNamespaces = {
   /** Every page: the root error boundary. */
   root: ["Errors"],
   auth: ["AcceptInvite", "Activate", "CarerInvite", "Common", "Password", "PasswordReset", "SignIn", "SignOut", "TwoFactor"],
-  portal: ["CheckIn", "Common", "Diary", "More", "MyCatheter", "People", "Portal", "Today", "Uploads"],
+  portal: ["Account", "CheckIn", "Common", "Diary", "More", "MyCatheter", "Password", "People", "Portal", "Sessions", "Today", "TwoFactor", "Uploads"],
   staff: [
     "Account", "Admin", "AdminOrganisations", "AdminPatients", "AdminSettings", "AdminStaff", "Caseload", "CaseloadState",
     "Common", "EpisodeForm", "Letters", "LevelBadge", "Passport", "Password", "PatientDevice", "PatientForm", "PatientRecord",
-    "PortalInvite", "Scan", "Supplies", "TwoFactor", "Uploads", "VisitForm",
+    "PortalInvite", "Scan", "Sessions", "Supplies", "TwoFactor", "Uploads", "VisitForm",
   ],
   /** The public device card and short-code pages, and the clinician's visit sign-in. */
   card: ["Password", "SignIn", "VisitAccess"],

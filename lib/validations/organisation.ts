@@ -20,7 +20,7 @@ const phone = z.preprocess(
     .nullable(),
 );
 
-export const organisationSchema = z.object({
+const organisationFields = z.object({
   name: singleLine(z.string().trim().min(2, { message: "name_length" }).max(120, { message: "name_length" })),
   kind: z.enum(organisationKinds, { message: "kind_required" }),
   parentName: z.preprocess(blankToNull, singleLine(z.string().trim().max(120, { message: "name_length" })).nullable()).optional(),
@@ -33,8 +33,20 @@ export const organisationSchema = z.object({
     .min(1, { message: "languages_required" })
     .refine((l) => new Set(l).size === l.length, { message: "languages_repeated" }),
   requireTwoFactor: z.boolean(),
+  // Why this organisation's staff may sign in with a password alone: required to relax two-step
+  // sign-in, kept on record with who relaxed it and when.
+  twoFactorRelaxedReason: z.preprocess(blankToNull, z.string().trim().min(10, { message: "reason_length" }).max(500, { message: "reason_length" }).nullable()).optional(),
 });
+
+/** Turning two-step sign-in off needs a reason. */
+function relaxingNeedsReason(v: { requireTwoFactor?: boolean; twoFactorRelaxedReason?: string | null }, ctx: z.RefinementCtx) {
+  if (v.requireTwoFactor === false && !v.twoFactorRelaxedReason) {
+    ctx.addIssue({ code: "custom", path: ["twoFactorRelaxedReason"], message: "reason_required" });
+  }
+}
+
+export const organisationSchema = organisationFields.superRefine(relaxingNeedsReason);
 export type OrganisationInput = z.infer<typeof organisationSchema>;
 export type OrganisationFormValues = z.input<typeof organisationSchema>;
 
-export const organisationPatchSchema = organisationSchema.partial().strict();
+export const organisationPatchSchema = organisationFields.partial().strict().superRefine(relaxingNeedsReason);

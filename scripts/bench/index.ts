@@ -3,7 +3,7 @@
  * database, and prints one table of figures (also written to docs/performance.md).
  * A script, not a test: figures are reported, never asserted, so nothing flakes.
  */
-import { spawn, spawnSync, type ChildProcess } from "node:child_process";
+import { spawnSync, type ChildProcess } from "node:child_process";
 import { randomBytes } from "node:crypto";
 import fs from "node:fs";
 import os from "node:os";
@@ -12,8 +12,10 @@ import { fileURLToPath } from "node:url";
 import { gzipSync } from "node:zlib";
 import autocannon from "autocannon";
 import pg from "pg";
+import { spawnAppServer } from "../app-server";
 import { ensureTools } from "../ensure-tools";
 import { defaults, dropDatabase, ensureDatabase, portOpen, servicesUp } from "../services";
+import { signInOverHttp } from "../../tests/support/sign-in-over-http";
 import { seedLarge } from "./large-data";
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "../..");
@@ -104,14 +106,9 @@ async function lighthouseScores(pathname: string, cookie?: string) {
   }
 }
 
-async function signInCookie(email: string, password: string) {
-  const res = await fetch(`${base}/api/auth/sign-in/email`, {
-    method: "POST",
-    headers: { "content-type": "application/json", origin: base, "x-forwarded-for": "10.250.0.1" },
-    body: JSON.stringify({ email, password }),
-  });
-  if (!res.ok) throw new Error(`sign-in failed: ${res.status}`);
-  return res.headers.getSetCookie().map((c) => c.split(";")[0]).join("; ");
+/** Signs in; staff give the code from their demo TOTP secret, as every member of staff must. */
+function signInCookie(email: string, password: string) {
+  return signInOverHttp({ baseUrl: base, email, password, headers: { "x-forwarded-for": "10.250.0.1" } });
 }
 
 /** POST /api/patients/[id]/passport (reissue when asked); the token from the answer's card address. */
@@ -155,7 +152,9 @@ async function main() {
 
   if (!skipBuild && spawnSync(bin("next"), ["build"], { cwd: root, env, stdio: "ignore" }).status !== 0) throw new Error("next build failed");
   if (await portOpen(port)) throw new Error(`port ${port} is busy (BENCH_PORT)`);
-  const server: ChildProcess = spawn(bin("next"), ["start", "-p", String(port), "-H", "127.0.0.1"], { cwd: root, env: { ...env, NODE_ENV: "production", CLIENT_IP_HEADER: "x-forwarded-for" }, stdio: "ignore" });
+  // Through the server entry, as behind a load balancer on loopback: the bench says which client
+  // each request plays in X-Forwarded-For.
+  const server: ChildProcess = spawnAppServer({ port, env: { ...env, NODE_ENV: "production", TRUSTED_PROXIES: "127.0.0.1" }, stdio: "ignore" });
   try {
     for (let i = 0; i < 240 && !(await fetch(`${base}/en/sign-in`).then((r) => r.ok).catch(() => false)); i++) await new Promise((r) => setTimeout(r, 250));
 

@@ -1,6 +1,6 @@
 // Administration in Chromium: every admin page in English and Arabic (screenshots looked at),
 // and an admin inviting a nurse who accepts from the e-mail in the fake inbox and signs in.
-import type { Browser } from "playwright-core";
+import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { demo, totpCode } from "../support/http";
 import { waitForEmails } from "../support/mail";
@@ -25,8 +25,26 @@ const pages = [
   { path: "/admin/settings", name: "admin-settings" },
   { path: "/admin/audit", name: "admin-audit" },
   { path: "/admin/patients", name: "admin-patients" },
+  { path: "/admin/sign-ins", name: "admin-sign-ins" },
   { path: "/account", name: "account" },
 ];
+
+/** On the set-up page: password, the key the page shows, a code from it; returns the secret. */
+async function enrolTotpInBrowser(page: Page, password: string, shot: string) {
+  await page.getByLabel("Password").fill(password);
+  await page.getByRole("button", { name: "Continue" }).click();
+  const secretBox = page.getByTestId("totp-secret");
+  await secretBox.waitFor();
+  const secret = (await secretBox.textContent())!.replace(/\s/g, "");
+  await screenshot(page, `${shot}-scan-en`);
+  await page.locator('input[autocomplete="one-time-code"]').fill(totpCode(secret));
+  await page.getByRole("button", { name: "Turn on two-step sign-in" }).click();
+  await page.getByTestId("backup-codes").waitFor();
+  expect(await page.getByTestId("backup-codes").locator("li").count()).toBe(10);
+  await screenshot(page, `${shot}-backup-codes-en`);
+  await page.getByRole("button", { name: "Continue" }).click();
+  return secret;
+}
 
 describe("inviting a nurse", () => {
   it("an admin (signed in with a TOTP code from the demo secret) invites a nurse, who accepts from the fake inbox and signs in to their caseload", async () => {
@@ -77,6 +95,9 @@ describe("inviting a nurse", () => {
     await nurse.getByLabel("Password", { exact: true }).fill("Larch-ward-nurse-pass-26");
     await nurse.getByLabel("Password again").fill("Larch-ward-nurse-pass-26");
     await nurse.getByRole("button", { name: "Create account and sign in" }).click();
+    // Staff sign in in two steps: before anything else she sets up her authenticator app.
+    await nurse.waitForURL(/\/en\/two-factor\/setup$/, { timeout: 30_000 });
+    const secret = await enrolTotpInBrowser(nurse, "Larch-ward-nurse-pass-26", "invited-nurse");
     await nurse.waitForURL(/\/en\/caseload$/, { timeout: 30_000 });
     await expect.poll(() => nurse.locator("h1").first().textContent()).toBe("Caseload");
     // The link worked once.
@@ -84,9 +105,9 @@ describe("inviting a nurse", () => {
     await expect.poll(() => nurse.locator("h1").textContent()).toBe("This link does not work");
     await nurse.context().close();
 
-    // And she signs in again the ordinary way.
+    // And she signs in again the ordinary way: password, then the code from her app.
     const again = await newPage(browser);
-    await signInAs(again, email, "Larch-ward-nurse-pass-26");
+    await signInAs(again, email, "Larch-ward-nurse-pass-26", "en", secret);
     expect(new URL(again.url()).pathname).toBe("/en/caseload");
     await again.context().close();
   });
@@ -152,7 +173,7 @@ describe("administration pages", () => {
 describe("an organisation that requires two-step sign-in", () => {
   it("sends its nurse to set it up after signing in, and lets them in once it is done", { timeout: 180_000 }, async () => {
     const org = await createOrganisation({ name: `Strict Ward ${Date.now().toString(36)}`, requireTwoFactor: true });
-    const nurse = await createStaff({ role: "clinician", organisationIds: [org.id] });
+    const nurse = await createStaff({ role: "clinician", organisationIds: [org.id], twoFactor: false });
     const page = await newPage(browser);
     await signInAs(page, nurse.email, nurse.password);
     expect(new URL(page.url()).pathname).toBe("/en/two-factor/setup");
@@ -160,17 +181,7 @@ describe("an organisation that requires two-step sign-in", () => {
     await page.goto("/en/caseload");
     await page.waitForURL(/\/en\/two-factor\/setup$/);
     await screenshot(page, "two-factor-setup-en");
-    await page.getByLabel("Password").fill(nurse.password);
-    await page.getByRole("button", { name: "Continue" }).click();
-    const secretBox = page.getByTestId("totp-secret");
-    await secretBox.waitFor();
-    const secret = (await secretBox.textContent())!.replace(/\s/g, "");
-    await screenshot(page, "two-factor-setup-scan-en");
-    await page.locator('input[autocomplete="one-time-code"]').fill(totpCode(secret));
-    await page.getByRole("button", { name: "Turn on two-step sign-in" }).click();
-    await page.getByTestId("backup-codes").waitFor();
-    expect(await page.getByTestId("backup-codes").locator("li").count()).toBe(10);
-    await page.getByRole("button", { name: "Continue" }).click();
+    const secret = await enrolTotpInBrowser(page, nurse.password, "two-factor-setup");
     await page.waitForURL(/\/en\/caseload$/);
     await page.goto("/ar/two-factor/setup");
     // Done: the set-up page now sends them home.

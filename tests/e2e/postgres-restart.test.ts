@@ -3,12 +3,13 @@
 // (503 in the project's error shape) and none hung; the same server then takes check-ins again
 // without being restarted, and resending the failed ones with their keys makes one row each.
 // On a private cluster and a private server, so nobody else's database is interrupted.
-import { spawn, spawnSync, type ChildProcess } from "node:child_process";
+import { spawnSync, type ChildProcess } from "node:child_process";
 import { randomUUID } from "node:crypto";
 import fs from "node:fs";
 import path from "node:path";
 import pg from "pg";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { spawnAppServer } from "../../scripts/app-server";
 import { demo } from "../support/http";
 import { freePort, privatePostgres, type PrivatePostgres } from "./support/private-postgres";
 
@@ -56,8 +57,8 @@ beforeAll(async () => {
   // reaching the shared fake inbox other tests read; the background worker still runs.
   env.SMTP_URL = `smtp://127.0.0.1:${await freePort()}`;
   appUrl = `http://localhost:${port}`;
-  server = spawn(path.join(root, "node_modules/.bin/next"), ["start", "-p", String(port), "-H", "127.0.0.1"], {
-    cwd: root,
+  server = spawnAppServer({
+    port,
     env: { ...env, NODE_ENV: "production", APP_URL: appUrl, BETTER_AUTH_SECRET: process.env.E2E_APP_SECRET ?? "fault-secret-0123456789abcdefghijklmnopqrstuvwxyz", DATABASE_POOL_MAX: "10" },
     stdio: ["ignore", "pipe", "pipe"],
   });

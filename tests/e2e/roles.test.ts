@@ -71,7 +71,7 @@ describe("sign-in and role homes in Chromium", () => {
   it("refuses a page even when the proxy is skipped: a fake session cookie gets no content", async () => {
     const res = await fetch(`${baseUrl}/en/caseload`, {
       redirect: "manual",
-      headers: { cookie: "better-auth.session_token=forged.value", "x-middleware-subrequest": "proxy:proxy:proxy:proxy:proxy" },
+      headers: { cookie: "caddis.session_token=forged.value", "x-middleware-subrequest": "proxy:proxy:proxy:proxy:proxy" },
     });
     expect([302, 303, 307, 308]).toContain(res.status);
     expect(res.headers.get("location")).toMatch(/\/en\/sign-in$/);

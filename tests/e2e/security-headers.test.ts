@@ -7,8 +7,8 @@ import pg from "pg";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { LEARN_PAGES } from "@/lib/shared/learn";
 import { RECORD_KINDS } from "@/lib/validations/episode";
-import { DEMO_ADMIN_TOTP } from "@/db/seed";
-import { demo, totpCode } from "../support/http";
+import { demo } from "../support/http";
+import { signInOverHttp } from "../support/sign-in-over-http";
 import { expandPattern, listPages } from "../support/pages";
 import { baseUrl } from "./support/browser";
 
@@ -22,24 +22,8 @@ let ipN = 1;
 async function signIn(who: keyof typeof demo) {
   const hit = cookies.get(who);
   if (hit) return hit;
-  const res = await fetch(`${baseUrl}/api/auth/sign-in/email`, {
-    method: "POST",
-    headers: { "content-type": "application/json", origin: baseUrl, "x-forwarded-for": `10.88.0.${ipN++}` },
-    body: JSON.stringify(demo[who]),
-  });
-  expect(res.status, `sign in as ${who}`).toBe(200);
-  let cookie = res.headers.getSetCookie().map((c) => c.split(";")[0]).join("; ");
-  if (((await res.json()) as { twoFactorRedirect?: boolean }).twoFactorRedirect) {
-    // The demo admin signs in in two steps: the code from its printed TOTP secret.
-    expect(demo[who].email).toBe(DEMO_ADMIN_TOTP.email);
-    const second = await fetch(`${baseUrl}/api/auth/two-factor/verify-totp`, {
-      method: "POST",
-      headers: { "content-type": "application/json", origin: baseUrl, cookie, "x-forwarded-for": `10.88.1.${ipN++}` },
-      body: JSON.stringify({ code: totpCode(DEMO_ADMIN_TOTP.base32) }),
-    });
-    expect(second.status, `second step as ${who}`).toBe(200);
-    cookie = second.headers.getSetCookie().map((c) => c.split(";")[0]).filter((c) => c.includes("session_token")).join("; ");
-  }
+  // Staff in two steps, with the code from their demo TOTP secret.
+  const cookie = await signInOverHttp({ baseUrl, ...demo[who], headers: { "x-forwarded-for": `10.88.0.${ipN++}` } });
   cookies.set(who, cookie);
   return cookie;
 }

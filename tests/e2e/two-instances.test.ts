@@ -1,44 +1,35 @@
 // The app server keeps no state: two instances on one PostgreSQL share sessions and the
 // sign-in rate limit (architecture.md, "past one machine").
-import { spawn, type ChildProcess } from "node:child_process";
-import path from "node:path";
+import type { ChildProcess } from "node:child_process";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { spawnAppServer, waitForApp } from "../../scripts/app-server";
 import { demo } from "../support/http";
+import { signInOverHttp } from "../support/sign-in-over-http";
+import { createStaff } from "../support/staff";
 import { freePort } from "../support/mail";
 import { baseUrl } from "./support/browser";
 
-const root = path.resolve(__dirname, "../..");
 const second = new URL(baseUrl);
 let secondUrl = "";
 let server: ChildProcess;
-
-async function up(url: string) {
-  for (let i = 0; i < 240; i++) {
-    try {
-      if ((await fetch(`${url}/en/sign-in`)).ok) return;
-    } catch {
-      /* starting */
-    }
-    await new Promise((r) => setTimeout(r, 250));
-  }
-  throw new Error(`${url} did not start`);
-}
 
 beforeAll(async () => {
   // A free port, not E2E_PORT + 1: on a shared machine that may be another engineer's server.
   second.port = String(await freePort());
   secondUrl = second.origin;
-  server = spawn(path.join(root, "node_modules/.bin/next"), ["start", "-p", second.port, "-H", "127.0.0.1"], {
-    cwd: root,
-    // Same public address and secret as the first instance, as behind one load balancer.
-    env: { ...process.env, APP_URL: baseUrl, BETTER_AUTH_SECRET: process.env.E2E_APP_SECRET, NODE_ENV: "production" },
+  server = spawnAppServer({
+    port: second.port,
+    // Same public address, secret and trusted proxies as the first instance, as behind one load balancer.
+    env: { ...process.env, APP_URL: baseUrl, BETTER_AUTH_SECRET: process.env.E2E_APP_SECRET, TRUSTED_PROXIES: process.env.E2E_TRUSTED_PROXIES, NODE_ENV: "production" },
     stdio: "ignore",
   });
-  await up(secondUrl);
+  await waitForApp(secondUrl, 60);
 });
 
-afterAll(() => {
+afterAll(async () => {
   server?.kill("SIGTERM");
+  const { pool } = await import("@/db");
+  await pool.end().catch(() => {});
 });
 
 function signIn(url: string, email: string, password: string, ip: string) {
@@ -51,9 +42,8 @@ function signIn(url: string, email: string, password: string, ip: string) {
 
 describe("two app instances on one database", () => {
   it("a session made on one instance works on the other, and sign-out on one ends it on both", async () => {
-    const res = await signIn(baseUrl, demo.communityNurse.email, demo.communityNurse.password, "10.66.0.1");
-    expect(res.status).toBe(200);
-    const cookie = res.headers.getSetCookie().map((c) => c.split(";")[0]).join("; ");
+    // The nurse signs in in two steps on the first instance.
+    const cookie = await signInOverHttp({ baseUrl, ...demo.communityNurse, headers: { "x-forwarded-for": "10.66.0.1" } });
     const me = await fetch(`${secondUrl}/api/me`, { headers: { cookie } });
     expect(me.status).toBe(200);
     expect((await me.json()).email).toBe(demo.communityNurse.email);
@@ -66,15 +56,32 @@ describe("two app instances on one database", () => {
     expect((await fetch(`${baseUrl}/api/me`, { headers: { cookie } })).status).toBe(401);
   });
 
-  it("counts sign-in attempts across both instances", async () => {
+  it("counts sign-in attempts from one address across both instances", async () => {
     const ip = "10.66.0.2";
     const statuses: number[] = [];
     for (let i = 0; i < 12; i++) {
       const url = i % 2 === 0 ? baseUrl : secondUrl;
-      statuses.push((await signIn(url, demo.carer.email, `wrong-password-${i}`, ip)).status);
+      // A different (unknown) account each time, so only the per-address limit can answer 429.
+      statuses.push((await signIn(url, `nobody.${i}.${Date.now().toString(36)}@testwick.example`, `wrong-password-${i}`, ip)).status);
     }
     // SIGN_IN_MAX_ATTEMPTS (10) per minute in all, whichever instance answered.
     expect(statuses.slice(0, 10).every((s) => s === 401)).toBe(true);
     expect(statuses.slice(10)).toEqual([429, 429]);
+  });
+
+  it("holds an account back on both instances once it has been guessed at on either", async () => {
+    // An account of its own, so no other test meets the hold.
+    const target = await createStaff({ role: "clinician", organisationIds: [] });
+    const answers: { status: number; code?: string; second: boolean }[] = [];
+    for (let i = 0; i < 12; i++) {
+      // From twelve addresses, alternating instances: only the account's own count (in
+      // PostgreSQL) can hold these back.
+      const second = i % 2 === 1;
+      const res = await signIn(second ? secondUrl : baseUrl, target.email, `wrong-password-${i}`, `10.66.1.${i + 1}`);
+      answers.push({ status: res.status, code: ((await res.json().catch(() => ({}))) as { code?: string }).code, second });
+    }
+    expect(answers.slice(0, 5).map((a) => a.status)).toEqual([401, 401, 401, 401, 401]);
+    expect(answers.filter((a) => a.status === 401).length).toBeLessThanOrEqual(8);
+    expect(answers.some((a) => a.second && a.status === 429 && a.code === "ACCOUNT_DELAYED")).toBe(true);
   });
 });

@@ -13,6 +13,7 @@ import { drainOutbox } from "@/lib/jobs/outbox-worker";
 import { call, request, sessionFor, signIn } from "../support/http";
 import { waitForEmails } from "../support/mail";
 import { createOrganisation, createStaff, invitationLink, invitationMessage, suffix, testPassword, tokenOf } from "../support/staff";
+import { CLIENT_ADDRESS_HEADER } from "@/lib/http/client-ip";
 
 // A switch to make the invitation's transaction fail after the e-mail was queued in it.
 const failAudit = vi.hoisted(() => ({ on: false }));
@@ -115,7 +116,7 @@ describe("password reset e-mail", () => {
   it("is delivered through the outbox in the organisation's language, and the link is blanked from the record once sent", async () => {
     const nurse = await createStaff({ role: "clinician", organisationIds: [polishOrg.id], email: `reset.${suffix()}@mail-test.example` });
     const res = await authPost(
-      request("/api/auth/request-password-reset", { body: { email: nurse.email, redirectTo: "/en/reset-password" }, headers: { "x-forwarded-for": "10.96.0.1" } }),
+      request("/api/auth/request-password-reset", { body: { email: nurse.email, redirectTo: "/en/reset-password" }, headers: { [CLIENT_ADDRESS_HEADER]: "10.96.0.1" } }),
     );
     expect(res.status).toBe(200);
     await drainOutbox({ keyPrefix: "password-reset:", log: quiet });
@@ -126,7 +127,7 @@ describe("password reset e-mail", () => {
     const [row] = await db.select().from(outboundMessages).where(eq(outboundMessages.toAddress, nurse.email));
     expect(row).toMatchObject({ kind: "password-reset", status: "sent", html: "", text: "" });
     const token = new URL(link).pathname.split("/").pop()!;
-    const ok = await authPost(request("/api/auth/reset-password", { body: { token, newPassword: "Testwick-reset-by-mail-2026" }, headers: { "x-forwarded-for": "10.96.0.2" } }));
+    const ok = await authPost(request("/api/auth/reset-password", { body: { token, newPassword: "Testwick-reset-by-mail-2026" }, headers: { [CLIENT_ADDRESS_HEADER]: "10.96.0.2" } }));
     expect(ok.status).toBe(200);
     expect(await signIn(nurse.email, "Testwick-reset-by-mail-2026")).toMatch(/session_token/);
   });

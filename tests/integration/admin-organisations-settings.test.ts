@@ -33,7 +33,7 @@ const newOrg = () => ({
   inboxEmail: "fernhill.surgery@eastmere.example",
   locale: "en",
   languages: ["en", "pl"],
-  requireTwoFactor: false,
+  requireTwoFactor: true,
 });
 
 describe("organisations", () => {

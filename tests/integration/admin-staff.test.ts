@@ -16,7 +16,7 @@ import { GET as caseload } from "@/app/api/caseload/route";
 import { db } from "@/db";
 import { auditEvents, memberships, session, staffInvitations, user } from "@/db/schema";
 import { hashToken } from "@/lib/admin/tokens";
-import { call, demo, sessionFor, signIn } from "../support/http";
+import { call, demo, sessionFor, signIn, enrolTotpOverApi } from "../support/http";
 import { createOrganisation, createStaff, invitationLink, invitationMessage, orgIdsByName, suffix, testPassword, tokenOf, userIdByEmail } from "../support/staff";
 
 let adminCookie: string;
@@ -37,7 +37,9 @@ async function inviteAndAccept({ role, organisationIds, cookie = adminCookie }: 
   const token = tokenOf(await invitationLink(body.invitation.id));
   const ok = await call(accept, "/api/staff-invitations/accept", { body: { token, name: "Testwick Invitee", password: testPassword } });
   expect(ok.status).toBe(201);
-  return { email, id: await userIdByEmail(email), cookie: await signIn(email, testPassword) };
+  // Staff sign in in two steps: set it up at the first sign-in, as the set-up page does.
+  const { cookie: signedIn } = await enrolTotpOverApi(await signIn(email, testPassword), testPassword, email);
+  return { email, id: await userIdByEmail(email), cookie: signedIn };
 }
 
 describe("invitations", () => {
@@ -81,9 +83,12 @@ describe("invitations", () => {
 
     const ok = await call(accept, "/api/staff-invitations/accept", { body: { token, name: "Ines Varga", password: testPassword } });
     expect(ok.status).toBe(201);
-    const cookie = await signIn(email, testPassword);
-    const who = await (await call(me, "/api/me", { cookie })).json();
+    const first = await signIn(email, testPassword);
+    const who = await (await call(me, "/api/me", { cookie: first })).json();
     expect(who).toMatchObject({ email, role: "clinician", name: "Ines Varga", home: "/caseload" });
+    // Like all staff she signs in in two steps: nothing but the set-up until it is done.
+    expect((await call(caseload, "/api/caseload", { cookie: first })).status).toBe(403);
+    const { cookie } = await enrolTotpOverApi(first, testPassword);
     const team = await (await call(caseload, "/api/caseload", { cookie })).json();
     expect(team.rows.map((r: { name: string }) => r.name)).toEqual(["Maria Popescu"]);
 
@@ -204,7 +209,7 @@ describe("the last admin", () => {
     // Morgan creates Zed Ward (becoming its member) and invites Tamsin as a second admin of it.
     const created = await call(createOrg, "/api/admin/organisations", {
       cookie: adminCookie,
-      body: { name: `Zed Ward ${suffix()}`, kind: "hospital_ward", locale: "en", languages: ["en"], requireTwoFactor: false },
+      body: { name: `Zed Ward ${suffix()}`, kind: "hospital_ward", locale: "en", languages: ["en"], requireTwoFactor: true },
     });
     expect(created.status).toBe(201);
     const zed = (await created.json()).organisation.id as string;

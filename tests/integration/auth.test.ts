@@ -6,6 +6,7 @@ import { db } from "@/db";
 import { session, user } from "@/db/schema";
 import { SIGN_IN_MAX_ATTEMPTS } from "@/lib/auth";
 import { call, demo, request, sessionFor, signIn } from "../support/http";
+import { CLIENT_ADDRESS_HEADER } from "@/lib/http/client-ip";
 
 describe("sign-in with better-auth on PostgreSQL", () => {
   it.each(Object.keys(demo) as (keyof typeof demo)[])("demo account %s signs in and is known to the API", async (who) => {
@@ -32,7 +33,7 @@ describe("sign-in with better-auth on PostgreSQL", () => {
     const res = await authPost(
       request("/api/auth/sign-in/email", {
         body: { email: demo.patient.email, password: "not-the-password-1" },
-        headers: { "x-forwarded-for": "10.98.0.1" },
+        headers: { [CLIENT_ADDRESS_HEADER]: "10.98.0.1" },
       }),
     );
     expect(res.status).toBe(401);
@@ -43,10 +44,11 @@ describe("sign-in with better-auth on PostgreSQL", () => {
     const ip = "10.97.0.1";
     const statuses: number[] = [];
     for (let i = 0; i < SIGN_IN_MAX_ATTEMPTS + 2; i++) {
+      // A different account each time (the per-account limit is tests/integration/sign-in-throttle.test.ts).
       const res = await authPost(
         request("/api/auth/sign-in/email", {
-          body: { email: demo.carer.email, password: `wrong-password-${i}` },
-          headers: { "x-forwarded-for": ip },
+          body: { email: `nobody.${i}@testwick.example`, password: `wrong-password-${i}` },
+          headers: { [CLIENT_ADDRESS_HEADER]: ip },
         }),
       );
       statuses.push(res.status);

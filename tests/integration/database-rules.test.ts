@@ -5,6 +5,7 @@ import { db } from "@/db";
 import { auditEvents, catheterEpisodes, diaryEntries, patients } from "@/db/schema";
 import { audit } from "@/lib/records/audit";
 import { toAppError } from "@/lib/http/errors";
+import { CLIENT_ADDRESS_HEADER } from "@/lib/http/client-ip";
 
 async function aPatientId() {
   const [p] = await db.select({ id: patients.id }).from(patients).where(eq(patients.healthRecordNumber, "EM-100-001"));
@@ -59,7 +60,7 @@ describe("database rules", () => {
 
   it("writes an audit event with a hashed address, never the address", async () => {
     const patientId = await aPatientId();
-    const headers = new Headers({ "x-forwarded-for": "203.0.113.9" });
+    const headers = new Headers({ [CLIENT_ADDRESS_HEADER]: "203.0.113.9" });
     await audit({ action: "test.view", patientId, via: "care_team", request: { headers }, details: { n: 1 } });
     const [row] = await db.select().from(auditEvents).where(eq(auditEvents.action, "test.view"));
     expect(row.patientId).toBe(patientId);

@@ -19,13 +19,14 @@ import { CARD_LIMIT, isCardPath, limitCardRequest } from "@/lib/qr/card-limit";
 import { openDeviceCard } from "@/lib/qr/device-card";
 import { patientIdByHrn } from "../support/fixtures";
 import { call, sessionFor } from "../support/http";
+import { CLIENT_ADDRESS_HEADER } from "@/lib/http/client-ip";
 
 let arthur: string;
 let nurse: Viewer;
 let first: IssuedPassport;
 let current: IssuedPassport;
 const tokenOf = (p: IssuedPassport) => p.url.split("/p/")[1]!;
-const from = (ip: string) => ({ headers: new Headers({ "x-forwarded-for": ip }) });
+const from = (ip: string) => ({ headers: new Headers({ [CLIENT_ADDRESS_HEADER]: ip }) });
 
 beforeAll(async () => {
   arthur = await patientIdByHrn("EM-100-001");

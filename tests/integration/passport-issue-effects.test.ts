@@ -14,6 +14,7 @@ import en from "@/messages/en.json";
 import pl from "@/messages/pl.json";
 import { patientIdByHrn } from "../support/fixtures";
 import { call, sessionFor } from "../support/http";
+import { CLIENT_ADDRESS_HEADER } from "@/lib/http/client-ip";
 
 // eslint-disable-next-line @typescript-eslint/no-require-imports
 const { PDFParse } = require("pdf-parse") as typeof import("pdf-parse");
@@ -132,7 +133,7 @@ describe("portal activation code on the booklet", () => {
   it("the printed code activates the portal account", async () => {
     const res = await call(activate, "/api/activate", {
       body: { code, email: "halina.booklet@eastmere.example", password: "a-long-booklet-password" },
-      headers: { "x-forwarded-for": "203.0.113.77" },
+      headers: { [CLIENT_ADDRESS_HEADER]: "203.0.113.77" },
     });
     expect(res.status).toBe(201);
     const [p] = await db.select({ userId: patients.userId }).from(patients).where(eq(patients.id, halina));

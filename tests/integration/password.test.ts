@@ -8,6 +8,7 @@ import { db } from "@/db";
 import { auditEvents, outboundMessages, patients, user, verification } from "@/db/schema";
 import { call, request, signIn } from "../support/http";
 import { createOrganisation, createStaff } from "../support/staff";
+import { CLIENT_ADDRESS_HEADER } from "@/lib/http/client-ip";
 
 /** Reset e-mails queued in the outbox for an address (no worker runs in integration tests). */
 async function resetMails(email: string) {
@@ -16,7 +17,7 @@ async function resetMails(email: string) {
 const linkIn = (text: string) => text.match(/https?:\/\/\S+\/api\/auth\/reset-password\/\S+/)![0];
 
 let ip = 1;
-const headers = () => ({ "x-forwarded-for": `10.95.0.${ip++}` });
+const headers = () => ({ [CLIENT_ADDRESS_HEADER]: `10.95.0.${ip++}` });
 
 describe("password reset by e-mail link", () => {
   it("sends a link for a known address only, the same answer either way; the link sets a new password once and ends every session", async () => {

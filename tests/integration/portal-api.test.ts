@@ -20,6 +20,7 @@ import { auditEvents, bagChanges, carerLinks, checkIns, diaryEntries, outboundMe
 import { LIMITS } from "@/lib/http/rate-limit";
 import { CODE_BITS } from "@/lib/auth/secret-codes";
 import { call, sessionFor } from "../support/http";
+import { CLIENT_ADDRESS_HEADER } from "@/lib/http/client-ip";
 
 // Handlers with typed params, called through the untyped test helper.
 const carersPost = carersPostRaw as unknown as Parameters<typeof call>[0];
@@ -49,7 +50,7 @@ const checkIn = (patient: string, answers: Record<string, unknown> = fine, key =
 const rows = async (key: string) => (await db.select({ n: count() }).from(checkIns).where(eq(checkIns.idempotencyKey, key)))[0].n;
 
 async function post(handler: typeof checkInsPost, path: string, body: unknown, cookie?: string) {
-  return call(handler, path, { body, cookie, headers: { "x-forwarded-for": freshIp() } });
+  return call(handler, path, { body, cookie, headers: { [CLIENT_ADDRESS_HEADER]: freshIp() } });
 }
 
 /** The invitation token, read from the queued e-mail (it is never returned to the inviter). */
@@ -73,7 +74,7 @@ async function newCarerForArthur() {
   const token = await carerInviteToken(linkId);
   const acc = await call(acceptCarer, "/api/carer-invites/accept", {
     body: { token, name: "Sam Carer", password: "a-long-carer-password" },
-    headers: { "x-forwarded-for": freshIp() },
+    headers: { [CLIENT_ADDRESS_HEADER]: freshIp() },
   });
   expect(acc.status).toBe(200);
   const cookie = acc.headers.getSetCookie().map((c) => c.split(";")[0]).join("; ");
@@ -354,7 +355,7 @@ describe("patient activation", () => {
     const second = await (await invite(ids.maria, await sessionFor("wardNurse"))).json();
     const act = await call(activate, "/api/activate", {
       body: { code: body.code, email: "maria.popescu@eastmere.example", password: "a-long-new-password" },
-      headers: { "x-forwarded-for": freshIp() },
+      headers: { [CLIENT_ADDRESS_HEADER]: freshIp() },
     });
     expect(act.status).toBe(400);
     expect(second.code).not.toBe(body.code);
@@ -369,7 +370,7 @@ describe("patient activation", () => {
     const [mail] = await db.select().from(outboundMessages).where(and(eq(outboundMessages.kind, "portal-invite"), eq(outboundMessages.toAddress, email)));
     expect(mail).toMatchObject({ locale: "pl", redactAfterSend: true });
     expect(mail.text).toContain(code);
-    const act = (body: unknown) => call(activate, "/api/activate", { body, headers: { "x-forwarded-for": freshIp() } });
+    const act = (body: unknown) => call(activate, "/api/activate", { body, headers: { [CLIENT_ADDRESS_HEADER]: freshIp() } });
     const before = (await db.select({ n: count() }).from(user))[0].n;
     const weak = await act({ code, email, password: "short" });
     expect(weak.status).toBe(400);
@@ -398,7 +399,7 @@ describe("patient activation", () => {
     for (let i = 0; i <= LIMITS.activate.max; i++) {
       const res = await call(activate, "/api/activate", {
         body: { code: `ZZZZ-ZZZZ-ZZ${String(i).padStart(2, "2")}`, email: "guess@eastmere.example", password: "a-long-new-password" },
-        headers: { "x-forwarded-for": ip },
+        headers: { [CLIENT_ADDRESS_HEADER]: ip },
       });
       statuses.push(res.status);
     }
@@ -406,7 +407,7 @@ describe("patient activation", () => {
     expect(statuses.at(-1)).toBe(429);
     const other = await call(activate, "/api/activate", {
       body: { code: "ZZZZ-ZZZZ-ZZZZ", email: "guess@eastmere.example", password: "a-long-new-password" },
-      headers: { "x-forwarded-for": freshIp() },
+      headers: { [CLIENT_ADDRESS_HEADER]: freshIp() },
     });
     expect(other.status).toBe(400);
   });
@@ -455,7 +456,7 @@ describe("carers", () => {
     // Joan already helps Arthur; Yusuf invites her too.
     const inv = await call(carersPost, `/api/patients/${ids.yusuf}/carers`, { body: { email }, cookie: await sessionFor("patientAr"), params: { patientId: ids.yusuf } });
     const token = await carerInviteToken((await inv.json()).linkId);
-    const accept = (body: unknown) => call(acceptCarer, "/api/carer-invites/accept", { body, headers: { "x-forwarded-for": freshIp() } });
+    const accept = (body: unknown) => call(acceptCarer, "/api/carer-invites/accept", { body, headers: { [CLIENT_ADDRESS_HEADER]: freshIp() } });
     const wrong = await accept({ token, password: "not-her-password" });
     expect(wrong.status).toBe(400);
     expect((await wrong.json()).error.fields.password).toEqual(["wrong"]);

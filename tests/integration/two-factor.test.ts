@@ -1,7 +1,7 @@
 // Two-step sign-in with TOTP (better-auth twoFactor): the demo admin signs in with a code computed
 // here from the secret the seed prints; wrong codes and a password alone get no session; backup
 // codes work once; an organisation can require two-step sign-in of its staff.
-import { eq } from "drizzle-orm";
+import { and, eq } from "drizzle-orm";
 import * as OTPAuth from "otpauth";
 import { describe, expect, it } from "vitest";
 import { POST as authPost } from "@/app/api/auth/[...all]/route";
@@ -10,13 +10,14 @@ import { GET as caseload } from "@/app/api/caseload/route";
 import { PATCH as orgPatch } from "@/app/api/admin/organisations/[organisationId]/route";
 import { db } from "@/db";
 import { DEMO_ADMIN_TOTP } from "@/db/seed";
-import { auditEvents, memberships, twoFactor, user } from "@/db/schema";
+import { auditEvents, memberships, organisations, twoFactor, user } from "@/db/schema";
 import { call, demo, request, sessionFor, signIn, totpCode } from "../support/http";
 import { createOrganisation, createStaff } from "../support/staff";
+import { CLIENT_ADDRESS_HEADER } from "@/lib/http/client-ip";
 
 let ip = 1;
 function firstStep(email: string, password: string) {
-  const headers = { "x-forwarded-for": `10.96.0.${ip++}` };
+  const headers = { [CLIENT_ADDRESS_HEADER]: `10.96.0.${ip++}` };
   return authPost(request("/api/auth/sign-in/email", { body: { email, password }, headers })).then(async (res) => ({
     res,
     headers,
@@ -69,31 +70,79 @@ describe("two-step sign-in (TOTP)", () => {
   });
 });
 
-describe("an organisation that requires two-step sign-in", () => {
-  it("keeps its staff out of staff APIs until they set it up, then lets them in; they cannot turn it off", async () => {
-    const admin = await sessionFor("admin");
-    const org = await createOrganisation({ name: `Strict Ward ${Math.random().toString(36).slice(2, 8)}` });
-    const nurse = await createStaff({ role: "clinician", organisationIds: [org.id] });
-    const cookie = await signIn(nurse.email, nurse.password);
+describe("two-step sign-in for staff, by default", () => {
+  it("a demo clinician's password alone gives no session; the code from the seed's secret does (ASVS 6.3.3)", async () => {
+    for (const who of ["wardNurse", "communityNurse", "rowanNurse"] as const) {
+      const step = await firstStep(demo[who].email, demo[who].password);
+      expect(step.body).toMatchObject({ twoFactorRedirect: true, twoFactorMethods: ["totp"] });
+      expect(step.body).not.toHaveProperty("token");
+      expect((await call(me, "/api/me", { cookie: step.cookie })).status).toBe(401);
+      expect((await call(caseload, "/api/caseload", { cookie: step.cookie })).status).toBe(401);
+    }
+    const cookie = await signIn(demo.wardNurse.email, demo.wardNurse.password);
     expect((await call(caseload, "/api/caseload", { cookie })).status).toBe(200);
+  });
 
-    // The organisation turns the requirement on (the admin must belong to it to do so).
+  it("a member of staff who has not set it up reaches nothing but the set-up, in any organisation that has not relaxed it, or in none", async () => {
+    const org = await createOrganisation();
+    for (const organisationIds of [[org.id], []]) {
+      const nurse = await createStaff({ role: "clinician", organisationIds, twoFactor: false });
+      const cookie = await signIn(nurse.email, nurse.password);
+      const refused = await call(caseload, "/api/caseload", { cookie });
+      expect(refused.status).toBe(403);
+      expect((await refused.json()).error.code).toBe("two_factor_required");
+    }
+  });
+
+  it("an admin relaxes it for an organisation only with a reason, which is on record and in the access log", async () => {
+    const admin = await sessionFor("admin");
+    const org = await createOrganisation({ name: `Relaxed Ward ${Math.random().toString(36).slice(2, 8)}` });
     const adminId = (await db.select({ id: user.id }).from(user).where(eq(user.email, demo.admin.email)))[0].id;
     await db.insert(memberships).values({ userId: adminId, organisationId: org.id });
-    const patched = await call(orgPatch, `/api/admin/organisations/${org.id}`, {
-      method: "PATCH",
-      cookie: admin,
-      params: { organisationId: org.id },
-      body: { requireTwoFactor: true },
-    });
-    expect(patched.status).toBe(200);
+    const nurse = await createStaff({ role: "clinician", organisationIds: [org.id], twoFactor: false });
+    const patch = (body: unknown) => call(orgPatch, `/api/admin/organisations/${org.id}`, { method: "PATCH", cookie: admin, params: { organisationId: org.id }, body });
 
-    const refused = await call(caseload, "/api/caseload", { cookie });
-    expect(refused.status).toBe(403);
-    expect((await refused.json()).error.code).toBe("two_factor_required");
+    const noReason = await patch({ requireTwoFactor: false });
+    expect(noReason.status).toBe(400);
+    expect((await noReason.json()).error.fields).toEqual({ twoFactorRelaxedReason: ["reason_required"] });
+    expect((await patch({ requireTwoFactor: false, twoFactorRelaxedReason: "short" })).status).toBe(400);
+    const [still] = await db.select().from(organisations).where(eq(organisations.id, org.id));
+    expect(still.requireTwoFactor).toBe(true);
 
+    const reason = "Shared ward tablet without phones; reviewed by the clinical safety officer.";
+    const ok = await patch({ requireTwoFactor: false, twoFactorRelaxedReason: reason });
+    expect(ok.status).toBe(200);
+    expect((await ok.json()).organisation).toMatchObject({ requireTwoFactor: false, twoFactorRelaxedReason: reason, twoFactorRelaxedByName: "Morgan Hale" });
+    const [event] = await db.select().from(auditEvents).where(and(eq(auditEvents.action, "admin.organisation.two_factor_relaxed"), eq(auditEvents.organisationId, org.id)));
+    expect(event).toMatchObject({ actorUserId: adminId, reason });
+
+    // Its nurse now signs in with a password alone…
+    const cookie = await signIn(nurse.email, nurse.password);
+    expect((await call(caseload, "/api/caseload", { cookie })).status).toBe(200);
+    // …unless they also belong to an organisation that requires it.
+    const strict = await createOrganisation();
+    const both = await createStaff({ role: "clinician", organisationIds: [org.id, strict.id], twoFactor: false });
+    expect((await call(caseload, "/api/caseload", { cookie: await signIn(both.email, both.password) })).status).toBe(403);
+
+    // Requiring it again clears the record and is in the log too.
+    expect((await patch({ requireTwoFactor: true })).status).toBe(200);
+    const [after] = await db.select().from(organisations).where(eq(organisations.id, org.id));
+    expect(after).toMatchObject({ requireTwoFactor: true, twoFactorRelaxedReason: null, twoFactorRelaxedByUserId: null });
+    expect(await db.select().from(auditEvents).where(and(eq(auditEvents.action, "admin.organisation.two_factor_required"), eq(auditEvents.organisationId, org.id)))).toHaveLength(1);
+    expect((await call(caseload, "/api/caseload", { cookie })).status).toBe(403);
+  });
+
+  it("the database refuses an organisation without two-step sign-in and without a reason", async () => {
+    const org = await createOrganisation();
+    await expect(db.update(organisations).set({ requireTwoFactor: false }).where(eq(organisations.id, org.id))).rejects.toThrow();
+  });
+
+  it("a member of staff sets it up through better-auth and cannot turn it off", async () => {
+    const org = await createOrganisation();
+    const nurse = await createStaff({ role: "clinician", organisationIds: [org.id], twoFactor: false });
+    const cookie = await signIn(nurse.email, nurse.password);
     // Set-up through better-auth: enable (with the password) gives the otpauth URI, a code confirms it.
-    const headers = { "x-forwarded-for": "10.96.1.1" };
+    const headers = { [CLIENT_ADDRESS_HEADER]: "10.96.1.1" };
     const enable = await authPost(request("/api/auth/two-factor/enable", { body: { password: nurse.password }, cookie, headers }));
     expect(enable.status).toBe(200);
     const { totpURI, backupCodes } = await enable.json();
@@ -103,15 +152,34 @@ describe("an organisation that requires two-step sign-in", () => {
     expect(verify.status).toBe(200);
     const newCookie = verify.headers.getSetCookie().map((c) => c.split(";")[0]).filter((c) => c.includes("session_token")).join("; ");
     expect((await call(caseload, "/api/caseload", { cookie: newCookie })).status).toBe(200);
-    const [enabledEvent] = await db.select().from(auditEvents).where(eq(auditEvents.action, "account.two_factor_enable"));
-    expect(enabledEvent.actorUserId).toBe(nurse.id);
+    const [enabledEvent] = await db.select().from(auditEvents).where(and(eq(auditEvents.action, "account.two_factor_enable"), eq(auditEvents.actorUserId, nurse.id)));
+    expect(enabledEvent).toBeTruthy();
 
-    const disable = await authPost(request("/api/auth/two-factor/disable", { body: { password: nurse.password }, cookie: newCookie, headers: { "x-forwarded-for": "10.96.1.2" } }));
+    const disable = await authPost(request("/api/auth/two-factor/disable", { body: { password: nurse.password }, cookie: newCookie, headers: { [CLIENT_ADDRESS_HEADER]: "10.96.1.2" } }));
     expect(disable.status).toBe(403);
     const [u] = await db.select({ on: user.twoFactorEnabled }).from(user).where(eq(user.id, nurse.id));
     expect(u.on).toBe(true);
 
     // Next sign-in asks for the code too.
     await expect(signIn(nurse.email, nurse.password, "10.96.1.3", secret)).resolves.toMatch(/session_token/);
+  });
+});
+
+describe("patients and carers", () => {
+  it("may turn two-step sign-in on, and off again", async () => {
+    const cookie = await signIn(demo.patientAr.email, demo.patientAr.password);
+    const headers = { [CLIENT_ADDRESS_HEADER]: "10.96.2.1" };
+    const enable = await authPost(request("/api/auth/two-factor/enable", { body: { password: demo.patientAr.password }, cookie, headers }));
+    expect(enable.status).toBe(200);
+    const secret = new URL((await enable.json()).totpURI).searchParams.get("secret")!;
+    const verify = await authPost(request("/api/auth/two-factor/verify-totp", { body: { code: totpCode(secret) }, cookie, headers }));
+    expect(verify.status).toBe(200);
+    // The next sign-in asks for the code.
+    const step = await firstStep(demo.patientAr.email, demo.patientAr.password);
+    expect(step.body).toMatchObject({ twoFactorRedirect: true });
+    const withCode = await signIn(demo.patientAr.email, demo.patientAr.password, "10.96.2.2", secret);
+    const off = await authPost(request("/api/auth/two-factor/disable", { body: { password: demo.patientAr.password }, cookie: withCode, headers: { [CLIENT_ADDRESS_HEADER]: "10.96.2.3" } }));
+    expect(off.status).toBe(200);
+    expect((await firstStep(demo.patientAr.email, demo.patientAr.password)).body).not.toHaveProperty("twoFactorRedirect");
   });
 });

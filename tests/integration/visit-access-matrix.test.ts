@@ -13,6 +13,7 @@ import { issuePassport } from "@/lib/passport";
 import { openDeviceCard } from "@/lib/qr/device-card";
 import { demoDevice, patientIdByHrn } from "../support/fixtures";
 import { call, sessionFor } from "../support/http";
+import { CLIENT_ADDRESS_HEADER } from "@/lib/http/client-ip";
 
 type Persona = "anonymous" | "careTeamClinician" | "otherBefore" | "otherAfter" | "patient" | "carer" | "admin";
 type Row = { card: "ok"; record: number; change: number; visit: number; fhir: number };
@@ -70,7 +71,7 @@ const viewers: Partial<Record<Persona, Viewer | null>> = {};
 async function cells(who: Persona) {
   const cookie = cookies[who];
   const params = { patientId: arthur };
-  const card = await openDeviceCard({ credential: token, request: { headers: new Headers({ "x-forwarded-for": `10.60.0.${who.length}` }) }, viewer: viewers[who] ?? null });
+  const card = await openDeviceCard({ credential: token, request: { headers: new Headers({ [CLIENT_ADDRESS_HEADER]: `10.60.0.${who.length}` }) }, viewer: viewers[who] ?? null });
   const record = await call(getPatient, `/api/patients/${arthur}`, { cookie, params });
   const change = await call(postChange, `/api/patients/${arthur}/episodes/change`, { cookie, params, body: changeBody() });
   const visit = await call(postVisit, `/api/patients/${arthur}/visits`, { cookie, params, body: visitBody() });

@@ -1,8 +1,10 @@
 // Calling route handlers directly, as the server would, with real sessions from better-auth.
-import * as OTPAuth from "otpauth";
 import { POST as authPost } from "@/app/api/auth/[...all]/route";
-import { DEMO_ADMIN_TOTP } from "@/db/seed";
 import { env } from "@/lib/config/env";
+import { rememberTotpSecret, totpCode, totpSecretFor } from "./totp";
+
+export { totpCode };
+import { CLIENT_ADDRESS_HEADER } from "@/lib/http/client-ip";
 
 export const origin = new URL(env.APP_URL).origin;
 
@@ -34,27 +36,21 @@ export function call<P = Record<string, string | string[]>>(
   return handler(request(pathname, init), { params: Promise.resolve((init.params ?? {}) as P) });
 }
 
-/** The current TOTP code for a base32 secret, as an authenticator app would show it. */
-export function totpCode(base32: string, timestamp = Date.now()): string {
-  return new OTPAuth.TOTP({ secret: OTPAuth.Secret.fromBase32(base32), digits: 6, period: 30, algorithm: "SHA1" }).generate({ timestamp });
-}
-
-const totpSecrets: Record<string, string> = { [DEMO_ADMIN_TOTP.email]: DEMO_ADMIN_TOTP.base32 };
-
 let ipCounter = 10;
 /**
  * Signs in through better-auth's own handler and returns the session cookie. An account with
- * two-step sign-in gets its code from `totp` (a base32 secret; the demo admin's by default).
+ * two-step sign-in gets its code computed from `totp` (a base32 secret), else from the secret the
+ * seed or createStaff registered for the address (tests/support/totp.ts).
  */
 export async function signIn(email: string, password: string, ip?: string, totp?: string): Promise<string> {
   // Each sign-in from its own test address, so the sign-in rate limit does not trip here.
-  const headers = { "x-forwarded-for": ip ?? `10.99.0.${ipCounter++ % 250}` };
+  const headers = { [CLIENT_ADDRESS_HEADER]: ip ?? `10.99.0.${ipCounter++ % 250}` };
   const res = await authPost(request("/api/auth/sign-in/email", { body: { email, password }, headers }));
   if (res.status !== 200) throw new Error(`sign-in as ${email} failed: ${res.status} ${await res.text()}`);
   const cookies = res.headers.getSetCookie().map((c) => c.split(";")[0]);
   const body = (await res.json()) as { twoFactorRedirect?: boolean };
   if (!body.twoFactorRedirect) return cookies.join("; ");
-  const secret = totp ?? totpSecrets[email];
+  const secret = totp ?? totpSecretFor(email);
   if (!secret) throw new Error(`sign-in as ${email} needs a TOTP code and no secret is known`);
   const second = await authPost(
     request("/api/auth/two-factor/verify-totp", { body: { code: totpCode(secret) }, cookie: cookies.join("; "), headers }),
@@ -65,6 +61,25 @@ export async function signIn(email: string, password: string, ip?: string, totp?
     .map((c) => c.split(";")[0])
     .filter((c) => c.includes("session_token"))
     .join("; ");
+}
+
+/**
+ * Sets up two-step sign-in for a signed-in account through better-auth's own endpoints, as the
+ * set-up page does: enable with the password, confirm with a code. Returns the secret (also
+ * registered for later sign-ins) and the new session cookie.
+ */
+export async function enrolTotpOverApi(cookie: string, password: string, email?: string) {
+  const headers = { [CLIENT_ADDRESS_HEADER]: `10.99.1.${ipCounter++ % 250}` };
+  const enable = await authPost(request("/api/auth/two-factor/enable", { body: { password }, cookie, headers }));
+  if (enable.status !== 200) throw new Error(`two-factor enable failed: ${enable.status} ${await enable.text()}`);
+  const { totpURI } = (await enable.json()) as { totpURI: string };
+  const uri = new URL(totpURI);
+  const secret = uri.searchParams.get("secret")!;
+  const verify = await authPost(request("/api/auth/two-factor/verify-totp", { body: { code: totpCode(secret) }, cookie, headers }));
+  if (verify.status !== 200) throw new Error(`two-factor confirm failed: ${verify.status} ${await verify.text()}`);
+  rememberTotpSecret(email ?? decodeURIComponent(uri.pathname.split(":").pop()!), secret);
+  const newCookie = verify.headers.getSetCookie().map((c) => c.split(";")[0]).filter((c) => c.includes("session_token")).join("; ");
+  return { secret, cookie: newCookie };
 }
 
 export const demo = {

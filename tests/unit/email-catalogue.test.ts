@@ -16,11 +16,11 @@ function leaves(obj: unknown, prefix = ""): string[] {
 
 describe("e-mail catalogues format in every locale", () => {
   for (const locale of locales) {
-    it(`${locale}: Email, Letters and Supplies`, () => {
+    it(`${locale}: Email, AdminEmail, Letters and Supplies`, () => {
       const messages = JSON.parse(fs.readFileSync(path.join(dir, `${locale}.json`), "utf8"));
       const errors: string[] = [];
       const t = createTranslator({ locale, messages, onError: (e) => errors.push(e.message) });
-      for (const ns of ["Email", "Letters", "Supplies"]) {
+      for (const ns of ["Email", "AdminEmail", "Letters", "Supplies"]) {
         for (const key of leaves(messages[ns], ns)) {
           const text: string = key.split(".").reduce((o, k) => o[k], messages);
           const names = [...text.matchAll(/\{\s*([A-Za-z]+)/g)].map((m) => m[1]);

@@ -2,8 +2,7 @@
 import fs from "node:fs";
 import path from "node:path";
 import { chromium, type Browser, type BrowserContextOptions, type Page } from "playwright-core";
-import { DEMO_ADMIN_TOTP } from "@/db/seed";
-import { totpCode } from "../../support/http";
+import { totpCode, totpSecretFor } from "../../support/totp";
 
 export const baseUrl = process.env.E2E_BASE_URL ?? "http://localhost:3100";
 export const screenshotDir = path.resolve(__dirname, "../../../test-results/screenshots");
@@ -45,9 +44,9 @@ export async function signInAs(page: Page, email: string, password: string, loca
   await page.locator('input[type="password"]').fill(password);
   await page.locator('button[type="submit"]').click();
   await page.waitForURL((url) => !url.pathname.endsWith("/sign-in") && !url.pathname.endsWith("/home"), { timeout: 30_000 });
-  // Two-step sign-in: the code from the account's TOTP secret (the demo admin's by default).
+  // Two-step sign-in: the code from the account's TOTP secret (the seed's or createStaff's).
   if (new URL(page.url()).pathname.endsWith("/two-factor")) {
-    const secret = totpSecret ?? (email === DEMO_ADMIN_TOTP.email ? DEMO_ADMIN_TOTP.base32 : undefined);
+    const secret = totpSecret ?? totpSecretFor(email);
     if (!secret) throw new Error(`${email} asks for a TOTP code and no secret is known`);
     await page.locator('input[autocomplete="one-time-code"]').fill(totpCode(secret));
     await page.locator('button[type="submit"]').click();

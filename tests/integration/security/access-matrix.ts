@@ -28,6 +28,8 @@ export type Fixture = {
   staffUserId: string;
   /** The demo admin themselves (deactivating oneself is refused, so the matrix changes nothing). */
   adminUserId: string;
+  /** Priya Sandhu (Rowan Ward, the admin manages it), who plays no persona: signing her out changes no other row. */
+  bystanderStaffUserId: string;
 };
 
 export type Row =
@@ -66,6 +68,14 @@ export const matrix: Row[] = [
   { route: "GET /api/auth/[...all]", exempt: "better-auth's own handler; sign-in, sessions and limits are tested in auth.test.ts" },
   { route: "POST /api/auth/[...all]", exempt: "better-auth's own handler; sign-in, sessions and limits are tested in auth.test.ts" },
   { route: "GET /api/me", expect: anyoneSignedIn },
+  // A person's own sessions (tests/integration/sessions.test.ts: another person's session is 404).
+  { route: "GET /api/account/sessions", expect: anyoneSignedIn },
+  { route: "DELETE /api/account/sessions", expect: anyoneSignedIn },
+  {
+    route: "DELETE /api/account/sessions/[sessionId]",
+    params: () => ({ sessionId: "not-a-session-of-theirs-0000" }),
+    expect: { anonymous: 401, admin: 404, careTeamClinician: 404, otherClinician: 404, patient: 404, otherPatient: 404, carer: 404 },
+  },
   { route: "GET /api/caseload", expect: clinicianOnly },
   { route: "GET /api/admin/organisations", expect: adminOnly },
   { route: "GET /api/portal/today", expect: portalOnly },
@@ -151,6 +161,7 @@ export const matrix: Row[] = [
   { route: "GET /api/admin/staff/[userId]", params: (f) => ({ userId: f.staffUserId }), expect: adminOnly },
   { route: "PATCH /api/admin/staff/[userId]", params: (f) => ({ userId: f.staffUserId }), expect: adminOnly },
   { route: "POST /api/admin/staff/[userId]/deactivate", params: (f) => ({ userId: f.adminUserId }), expect: adminOnly },
+  { route: "POST /api/admin/staff/[userId]/sign-out", params: (f) => ({ userId: f.bystanderStaffUserId }), expect: adminOnly },
   { route: "POST /api/admin/staff/[userId]/reactivate", params: (f) => ({ userId: f.adminUserId }), expect: adminOnly },
   {
     route: "POST /api/staff-invitations/accept",

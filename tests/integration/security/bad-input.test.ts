@@ -15,6 +15,7 @@ import { fillPattern, listRouteFiles, type Method } from "../../support/routes";
 import { matrix, type Fixture, type Persona } from "./access-matrix";
 import { securityFixture } from "./fixture";
 import { badBodies, overrides, schemaFieldNames, type BadBody, type BadInputOverride } from "./bad-input";
+import { CLIENT_ADDRESS_HEADER } from "@/lib/http/client-ip";
 
 // Watch the project's one body parser: whether a route reached it, and whether the route's own
 // schema accepted the body (then it was not bad input after all, and may be written).
@@ -145,7 +146,7 @@ describe("bad input on every route that takes a body", () => {
 
         await fc.assert(
           fc.asyncProperty(badBodies(fields, ids), fc.constantFrom(...paths), async (body, path) => {
-            const headers: Record<string, string> = { "x-forwarded-for": `10.77.${Math.floor(n / 250) % 250}.${n++ % 250}` };
+            const headers: Record<string, string> = { [CLIENT_ADDRESS_HEADER]: `10.77.${Math.floor(n / 250) % 250}.${n++ % 250}` };
             if (body.contentType === undefined) headers["content-type"] = "application/json";
             else if (body.contentType !== "") headers["content-type"] = body.contentType;
             const accepted = parser.accepted;

@@ -96,8 +96,9 @@ export const overrides: Record<string, BadInputOverride> = {
   "POST /api/auth/[...all]": {
     persona: "anonymous",
     paths: ["/api/auth/sign-in/email", "/api/auth/sign-up/email", "/api/auth/change-password", "/api/auth/update-user"],
-    // better-auth counts every attempt, refused or not, in its rate_limit table.
-    mayWrite: ["rate_limit"],
+    // better-auth counts every attempt, refused or not, in its rate_limit table; a well-formed
+    // wrong password is a failed sign-in: counted for its account and audited (ASVS 16.3.1).
+    mayWrite: ["rate_limit", "sign_in_throttles", "audit_events"],
     ownParser: "better-auth parses its own bodies and answers in its own error shape",
   },
   "POST /api/patients/[patientId]/messages/[messageId]/resend": {
@@ -106,6 +107,11 @@ export const overrides: Record<string, BadInputOverride> = {
     noBody: "takes no body: the message is named in the path; a junk body must change nothing",
   },
   "POST /api/admin/staff/[userId]/deactivate": {
+    persona: "admin",
+    params: () => ({ userId: "no-such-user" }),
+    noBody: "takes no body: the account is named in the path; a junk body must change nothing",
+  },
+  "POST /api/admin/staff/[userId]/sign-out": {
     persona: "admin",
     params: () => ({ userId: "no-such-user" }),
     noBody: "takes no body: the account is named in the path; a junk body must change nothing",

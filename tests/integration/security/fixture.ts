@@ -20,5 +20,6 @@ export async function securityFixture(): Promise<Fixture> {
     .returning({ id: uploads.id });
   const [harbourside] = await db.select({ id: organisations.id }).from(organisations).where(eq(organisations.name, "Harbourside Community Nursing Team"));
   const [admin] = await db.select({ id: user.id }).from(user).where(eq(user.email, "admin@eastmere.example"));
-  return { patientId: arthur.id, otherPatientId: yusuf.id, uploadId: upload.id, organisationId: harbourside.id, staffUserId: grace.id, adminUserId: admin.id };
+  const [priya] = await db.select({ id: user.id }).from(user).where(eq(user.email, "rowan.nurse@eastmere.example"));
+  return { patientId: arthur.id, otherPatientId: yusuf.id, uploadId: upload.id, organisationId: harbourside.id, staffUserId: grace.id, adminUserId: admin.id, bystanderStaffUserId: priya.id };
 }

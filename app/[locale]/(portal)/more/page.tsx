@@ -2,7 +2,7 @@ import { getTranslations } from "next-intl/server";
 import type { ReactNode } from "react";
 import { PendingCheckInWarning } from "@/components/check-in/pending-warning";
 import { LanguageSwitcher } from "@/components/layout/language-switcher";
-import { BookIcon, ExitIcon, GlobeIcon, LifebuoyIcon, PeopleIcon, TubeIcon } from "@/components/portal/nav-icons";
+import { BookIcon, ExitIcon, GlobeIcon, KeyIcon, LifebuoyIcon, PeopleIcon, TubeIcon } from "@/components/portal/nav-icons";
 import { buttonClass } from "@/components/ui/button";
 import { requirePageRole } from "@/lib/auth/permissions";
 import { Link } from "@/lib/i18n/navigation";
@@ -36,6 +36,7 @@ export default async function MorePage({ params }: { params: Promise<{ locale: s
         {item("/learn", <BookIcon className="h-8 w-8 shrink-0" />, t("learn"))}
         {item("/people", <PeopleIcon className="h-8 w-8 shrink-0" />, t("people"))}
         {item("/help", <LifebuoyIcon className="h-8 w-8 shrink-0" />, t("help"))}
+        {item("/more/security", <KeyIcon className="h-8 w-8 shrink-0" />, t("security.title"))}
       </ul>
       {ownPatient ? (
         <section aria-labelledby="your-data" className="flex flex-col gap-3 rounded-lg border border-stone-faint bg-paper-raised p-4">

@@ -20,6 +20,7 @@ const sections = [
   { href: "/admin/settings", key: "settings" },
   { href: "/admin/audit", key: "audit" },
   { href: "/admin/patients", key: "patients" },
+  { href: "/admin/sign-ins", key: "signIns" },
 ] as const;
 
 export default async function AdminPage({ params }: { params: Promise<{ locale: string }> }) {

@@ -1,4 +1,5 @@
-import { insertOrganisation, listOrganisationsManagedBy } from "@/db/queries/organisations";
+import { insertOrganisation, listOrganisationsManagedBy, twoFactorPolicyValues } from "@/db/queries/organisations";
+import { auditTwoFactorPolicy } from "@/lib/admin/organisations";
 import { db } from "@/db";
 import { audit } from "@/lib/records/audit";
 import { requireRole } from "@/lib/auth/permissions";
@@ -18,11 +19,14 @@ export const POST = handle(async (request) => {
   const input = await parseJsonBody(request, organisationSchema);
   try {
     const organisation = await db.transaction(async (tx) => {
-      const row = await insertOrganisation({ values: input, creatorUserId: viewer.userId }, tx);
+      const { requireTwoFactor: _require, twoFactorRelaxedReason: _reason, ...rest } = input;
+      const policy = twoFactorPolicyValues(input, { actorUserId: viewer.userId });
+      const row = await insertOrganisation({ values: { ...rest, ...policy }, creatorUserId: viewer.userId }, tx);
       await audit(
         { action: "admin.organisation.create", actor: viewer, organisationId: row.id, via: "admin", request, details: { kind: row.kind } },
         tx,
       );
+      if (!row.requireTwoFactor) await auditTwoFactorPolicy({ viewer, organisationId: row.id, row, request }, tx);
       return row;
     });
     return json({ organisation }, { status: 201 });

@@ -1,5 +1,6 @@
 import { db } from "@/db";
-import { getManagedOrganisation, updateOrganisation } from "@/db/queries/organisations";
+import { getManagedOrganisation, twoFactorPolicyValues, updateOrganisation } from "@/db/queries/organisations";
+import { auditTwoFactorPolicy } from "@/lib/admin/organisations";
 import { audit } from "@/lib/records/audit";
 import { isUuid, requireRole } from "@/lib/auth/permissions";
 import { AppError, pgConstraint } from "@/lib/http/errors";
@@ -30,7 +31,9 @@ export const PATCH = handle<Ctx>(async (request, { params }) => {
       const before = await getManagedOrganisation({ id: organisationId, organisationIds: viewer.organisationIds }, tx);
       if (!before) throw new AppError("not_found");
       if (Object.keys(input).length === 0) return before;
-      const row = await updateOrganisation({ id: organisationId, values: input }, tx);
+      const { requireTwoFactor: _require, twoFactorRelaxedReason: _reason, ...rest } = input;
+      const policy = twoFactorPolicyValues(input, { actorUserId: viewer.userId, before });
+      const row = await updateOrganisation({ id: organisationId, values: { ...rest, ...policy } }, tx);
       const changed = Object.keys(input).filter(
         (k) => JSON.stringify(before[k as keyof typeof before]) !== JSON.stringify(row![k as keyof typeof row]),
       );
@@ -38,6 +41,7 @@ export const PATCH = handle<Ctx>(async (request, { params }) => {
         { action: "admin.organisation.update", actor: viewer, organisationId, via: "admin", request, details: { changed } },
         tx,
       );
+      if (Object.keys(policy).length) await auditTwoFactorPolicy({ viewer, organisationId, row: row!, request }, tx);
       return row;
     });
     return json({ organisation });

@@ -1,6 +1,7 @@
-import { getTranslations } from "next-intl/server";
+import { getFormatter, getTranslations } from "next-intl/server";
 import { notFound } from "next/navigation";
 import { OrganisationForm } from "@/components/admin/organisation-form";
+import { Notice } from "@/components/ui/notice";
 import { getManagedOrganisation } from "@/db/queries/organisations";
 import { isUuid, requirePageRole } from "@/lib/auth/permissions";
 import { Link } from "@/lib/i18n/navigation";
@@ -17,6 +18,7 @@ export default async function EditOrganisationPage({ params }: { params: Promise
   const org = isUuid(organisationId) ? await getManagedOrganisation({ id: organisationId, organisationIds: viewer.organisationIds }) : null;
   if (!org) notFound();
   const t = await getTranslations("AdminOrganisations");
+  const format = await getFormatter();
   return (
     <div className="flex flex-col gap-6">
       <Link href="/admin/organisations" className="text-brand underline underline-offset-4">
@@ -35,8 +37,17 @@ export default async function EditOrganisationPage({ params }: { params: Promise
           locale: org.locale as Locale,
           languages: org.languages as Locale[],
           requireTwoFactor: org.requireTwoFactor,
+          twoFactorRelaxedReason: org.twoFactorRelaxedReason ?? "",
         }}
       />
+      {!org.requireTwoFactor && org.twoFactorRelaxedAt ? (
+        <Notice tone="warn" title={t("twoFactorRelaxedTitle")}>
+          <p>
+            {t("twoFactorRelaxedRecord", { name: org.twoFactorRelaxedByName ?? t("someone"), date: format.dateTime(org.twoFactorRelaxedAt, { dateStyle: "medium", timeStyle: "short" }) })}
+          </p>
+          <p className="italic">“{org.twoFactorRelaxedReason}”</p>
+        </Notice>
+      ) : null}
     </div>
   );
 }

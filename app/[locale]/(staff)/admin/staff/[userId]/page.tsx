@@ -1,5 +1,6 @@
 import { getTranslations } from "next-intl/server";
 import { notFound } from "next/navigation";
+import { SignOutStaffButton } from "@/components/admin/sign-out-staff-button";
 import { StaffEditor } from "@/components/admin/staff-editor";
 import { listOrganisationsManagedBy } from "@/db/queries/organisations";
 import { getStaffMember } from "@/db/queries/staff";
@@ -32,6 +33,15 @@ export default async function StaffMemberPage({ params }: { params: Promise<{ lo
         </p>
         {member.otherOrganisationCount ? <p className="text-sm text-ink-soft">{t("otherOrganisations", { count: member.otherOrganisationCount })}</p> : null}
       </div>
+      {member.id !== viewer.userId ? (
+        <section aria-labelledby="sessions-heading" className="flex flex-col gap-2">
+          <h2 id="sessions-heading" className="text-xl font-bold">
+            {t("sessionsHeading")}
+          </h2>
+          <p className="text-ink-soft">{t("sessionsIntro")}</p>
+          <SignOutStaffButton userId={member.id} name={member.name} />
+        </section>
+      ) : null}
       <StaffEditor
         member={{ id: member.id, name: member.name, role: member.role, active: member.active, organisationIds: member.organisations.map((o) => o.id) }}
         organisations={orgs.map((o) => ({ id: o.id, name: o.name }))}
