@@ -22,7 +22,8 @@ export async function clinicianInNewTeam(label = "Fixture"): Promise<ClinicianFi
   const email = `fixture.${tag}@eastmere.example`;
   const [org] = await db
     .insert(organisations)
-    .values({ name: `${label} Team ${tag}`, kind: "community_team", phone: "01632 960 999" })
+    // Password-only sign-in, relaxed with its reason as an admin would (two-step is the default).
+    .values({ name: `${label} Team ${tag}`, kind: "community_team", phone: "01632 960 999", requireTwoFactor: false, twoFactorRelaxedReason: "Test team with password-only sign-in", twoFactorRelaxedAt: new Date() })
     .returning({ id: organisations.id });
   const userId = randomUUID();
   await db.insert(user).values({ id: userId, email, name: `${label} Nurse ${tag}`, role: "clinician", locale: "en", emailVerified: true });
