@@ -11,6 +11,7 @@ import { apiFetch, isApiError } from "@/lib/browser/api-client";
 import type { PassportOverview } from "@/lib/shared/dto";
 import { useRouter } from "@/lib/i18n/navigation";
 import { localeNames, type Locale } from "@/lib/i18n/routing";
+import { TableHead } from "@/components/ui/table-head";
 
 type Issued = {
   passport: { id: string; issuedAt: string; issuedByName: string | null; languages: string[] };
@@ -284,14 +285,7 @@ export function PassportPanel({
           </h3>
           <div className="overflow-x-auto rounded-card border border-stone-faint bg-paper-raised">
             <table className="w-full text-start">
-              <thead className="bg-paper-sunk">
-                <tr>
-                  <th scope="col" className="p-3 text-start">{t("issuedOn")}</th>
-                  <th scope="col" className="p-3 text-start">{t("issuedBy")}</th>
-                  <th scope="col" className="p-3 text-start">{t("languages")}</th>
-                  <th scope="col" className="p-3 text-start">{t("status")}</th>
-                </tr>
-              </thead>
+              <TableHead columns={[t("issuedOn"), t("issuedBy"), t("languages"), t("status")]} />
               <tbody>
                 {overview.history.map((p) => (
                   <tr key={p.id} className="border-t border-stone-faint">

@@ -15,6 +15,7 @@ import { apiFetch } from "@/lib/browser/api-client";
 import { suppliesFor } from "@/lib/clinical";
 import { useRouter } from "@/lib/i18n/navigation";
 import { DEFAULT_SUPPLY_PERIOD, supplyPeriodChoices, supplyRequestSchema, type SupplyRequestInput } from "@/lib/validations/supply-request";
+import { TableHead } from "@/components/ui/table-head";
 
 type Props = { patientId: string; changeIntervalDays: number; gpName: string | null; gpHasInbox: boolean };
 
@@ -94,14 +95,7 @@ export function SupplyRequestForm({ patientId, changeIntervalDays, gpName, gpHas
       <div className="overflow-x-auto rounded-card border border-stone-faint bg-paper-raised">
         <table className="w-full text-start">
           <caption className="sr-only">{t("tableCaption", { days: Number(periodDays) || DEFAULT_SUPPLY_PERIOD })}</caption>
-          <thead className="bg-paper-sunk">
-            <tr>
-              <th scope="col" className="p-3 text-start">{t("colItem")}</th>
-              <th scope="col" className="p-3 text-start">{t("colSuggested")}</th>
-              <th scope="col" className="p-3 text-start">{t("colQuantity")}</th>
-              <th scope="col" className="p-3 text-start">{t("colBasis")}</th>
-            </tr>
-          </thead>
+          <TableHead columns={[t("colItem"), t("colSuggested"), t("colQuantity"), t("colBasis")]} />
           <tbody>
             {fields.map((f, i) => {
               const line = lines.find((l) => l.item === f.item);

@@ -93,20 +93,11 @@ async function reject(
   });
 }
 
+/** Who acts on which upload of which patient, and the request (for the audit event). */
+type UploadCall = { viewer: Viewer; patientId: string; via: PatientAccessVia; uploadId: string; request: Request };
+
 /** The bytes have been PUT: verify size and real type, then keep (ready) or delete (rejected). */
-export async function completeUpload({
-  viewer,
-  patientId,
-  via,
-  uploadId,
-  request,
-}: {
-  viewer: Viewer;
-  patientId: string;
-  via: PatientAccessVia;
-  uploadId: string;
-  request: Request;
-}): Promise<UploadDto> {
+export async function completeUpload({ viewer, patientId, via, uploadId, request }: UploadCall): Promise<UploadDto> {
   // Refused before the store is touched: a closed record's files are neither kept nor removed.
   await assertRecordOpen(db, patientId);
   const row = await getUploadRow({ patientId, uploadId });
@@ -141,19 +132,7 @@ export async function completeUpload({
  * its audit event, the bytes are deleted from the store after the transaction commits. Care
  * team only; the caller has checked.
  */
-export async function removeUpload({
-  viewer,
-  patientId,
-  via,
-  uploadId,
-  request,
-}: {
-  viewer: Viewer;
-  patientId: string;
-  via: PatientAccessVia;
-  uploadId: string;
-  request: Request;
-}): Promise<void> {
+export async function removeUpload({ viewer, patientId, via, uploadId, request }: UploadCall): Promise<void> {
   const row = await writeRecord(patientId, async (tx) => {
     const removed = await markUploadRemoved({ patientId, uploadId }, tx);
     if (!removed) throw new AppError("not_found");

@@ -7,6 +7,7 @@ import { searchAudit } from "@/db/queries/audit-search";
 import { requirePageRole } from "@/lib/auth/permissions";
 import { Link } from "@/lib/i18n/navigation";
 import { auditQuerySchema } from "@/lib/validations/audit";
+import { TableHead } from "@/components/ui/table-head";
 
 export async function generateMetadata() {
   const t = await getTranslations("AdminAudit");
@@ -109,16 +110,7 @@ export default async function AuditPage({
       <div className="overflow-x-auto">
         <table className="w-full min-w-[48rem] border-collapse">
           <caption className="sr-only">{t("tableCaption")}</caption>
-          <thead>
-            <tr className="border-b-2 border-stone-line">
-              <th scope="col" className="p-2 text-start">{t("when")}</th>
-              <th scope="col" className="p-2 text-start">{t("who")}</th>
-              <th scope="col" className="p-2 text-start">{t("action")}</th>
-              <th scope="col" className="p-2 text-start">{t("patient")}</th>
-              <th scope="col" className="p-2 text-start">{t("via")}</th>
-              <th scope="col" className="p-2 text-start">{t("reason")}</th>
-            </tr>
-          </thead>
+          <TableHead dense columns={[t("when"), t("who"), t("action"), t("patient"), t("via"), t("reason")]} />
           <tbody>
             {rows.map((r) => (
               <tr key={r.id} className="border-b border-stone-faint align-top">

@@ -4,6 +4,7 @@ import { Notice } from "@/components/ui/notice";
 import { accountsUnderAttack, attemptsOnUnknownAccounts, UNDER_ATTACK_ATTEMPTS } from "@/db/queries/sign-in-attempts";
 import { requirePageRole } from "@/lib/auth/permissions";
 import { ACCOUNT_LIMITS } from "@/lib/auth/sign-in-throttle";
+import { TableHead } from "@/components/ui/table-head";
 
 export async function generateMetadata() {
   const t = await getTranslations("AdminSignIns");
@@ -35,16 +36,7 @@ export default async function SignInAttemptsPage({ params }: { params: Promise<{
         ) : (
           <div className="overflow-x-auto">
             <table className="w-full min-w-[48rem] border-collapse text-start">
-              <thead>
-                <tr className="border-b-2 border-stone-line">
-                  <th scope="col" className="p-2 text-start">{t("account")}</th>
-                  <th scope="col" className="p-2 text-end">{t("failed")}</th>
-                  <th scope="col" className="p-2 text-end">{t("held")}</th>
-                  <th scope="col" className="p-2 text-end">{t("places")}</th>
-                  <th scope="col" className="p-2 text-start">{t("lastTry")}</th>
-                  <th scope="col" className="p-2 text-start">{t("state")}</th>
-                </tr>
-              </thead>
+              <TableHead dense columns={[t("account"), { label: t("failed"), end: true }, { label: t("held"), end: true }, { label: t("places"), end: true }, t("lastTry"), t("state")]} />
               <tbody>
                 {accounts.map((a) => (
                   <tr key={a.userId} className="border-b border-stone-faint align-top" data-testid="attacked-account">

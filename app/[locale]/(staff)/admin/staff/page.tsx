@@ -6,6 +6,7 @@ import { listOrganisationsManagedBy } from "@/db/queries/organisations";
 import { listPendingInvitations, listStaff } from "@/db/queries/staff";
 import { requirePageRole } from "@/lib/auth/permissions";
 import { Link } from "@/lib/i18n/navigation";
+import { TableHead } from "@/components/ui/table-head";
 
 export async function generateMetadata() {
   const t = await getTranslations("AdminStaff");
@@ -37,14 +38,7 @@ export default async function StaffPage({ params }: { params: Promise<{ locale: 
         </h2>
         <div className="overflow-x-auto">
           <table className="w-full min-w-[40rem] border-collapse text-start">
-            <thead>
-              <tr className="border-b-2 border-stone-line text-start">
-                <th scope="col" className="p-2 text-start">{t("name")}</th>
-                <th scope="col" className="p-2 text-start">{t("role")}</th>
-                <th scope="col" className="p-2 text-start">{t("organisations")}</th>
-                <th scope="col" className="p-2 text-start">{t("status")}</th>
-              </tr>
-            </thead>
+            <TableHead dense columns={[t("name"), t("role"), t("organisations"), t("status")]} />
             <tbody>
               {staff.map((m) => (
                 <tr key={m.id} className="border-b border-stone-faint align-top">

@@ -7,6 +7,7 @@ import { openRecordPage } from "@/lib/records/patient-record-page";
 import { accessLogQuerySchema } from "@/lib/validations/audit";
 import { actionMessageKey } from "@/lib/shared/audit-actions";
 import { isCareTeam } from "@/lib/auth/permissions";
+import { TableHead } from "@/components/ui/table-head";
 
 export async function generateMetadata() {
   const t = await getTranslations("PatientRecord.tabs");
@@ -72,15 +73,7 @@ export default async function AccessTab({
       <div className="overflow-x-auto rounded-card border border-stone-faint bg-paper-raised">
         <table className="w-full" data-testid="access-log">
           <caption className="sr-only">{t("title")}</caption>
-          <thead className="bg-paper-sunk">
-            <tr>
-              <th scope="col" className="p-3 text-start">{t("when")}</th>
-              <th scope="col" className="p-3 text-start">{t("who")}</th>
-              <th scope="col" className="p-3 text-start">{t("what")}</th>
-              <th scope="col" className="p-3 text-start">{t("via")}</th>
-              <th scope="col" className="p-3 text-start">{t("reason")}</th>
-            </tr>
-          </thead>
+          <TableHead columns={[t("when"), t("who"), t("what"), t("via"), t("reason")]} />
           <tbody>
             {log.entries.map((e) => (
               <tr key={e.id} className="border-t border-stone-faint align-top">

@@ -3,6 +3,7 @@ import { LevelBadge } from "@/components/caseload/level-badge";
 import { Card } from "@/components/ui/card";
 import { listDiaryDays, listRecentCheckIns } from "@/db/queries/check-in-review";
 import { openRecordPage } from "@/lib/records/patient-record-page";
+import { TableHead } from "@/components/ui/table-head";
 
 export async function generateMetadata() {
   const t = await getTranslations("PatientRecord.tabs");
@@ -115,15 +116,7 @@ export default async function CheckInsTab({ params }: { params: Promise<{ locale
         <div className="overflow-x-auto rounded-card border border-stone-faint bg-paper-raised">
           <table className="w-full" data-testid="diary-table">
             <caption className="sr-only">{t("diaryCaption")}</caption>
-            <thead className="bg-paper-sunk">
-              <tr>
-                <th scope="col" className="p-3 text-start">{t("day")}</th>
-                <th scope="col" className="p-3 text-end">{t("in")}</th>
-                <th scope="col" className="p-3 text-end">{t("out")}</th>
-                <th scope="col" className="p-3 text-end">{t("balance")}</th>
-                <th scope="col" className="p-3 text-start">{t("entries")}</th>
-              </tr>
-            </thead>
+            <TableHead columns={[t("day"), { label: t("in"), end: true }, { label: t("out"), end: true }, { label: t("balance"), end: true }, t("entries")]} />
             <tbody>
               {days.map((d) => (
                 <tr key={d.day} className="border-t border-stone-faint align-top">
