@@ -102,6 +102,8 @@ describe("visiting clinician from the passport", () => {
     await page.locator('input[autocomplete="one-time-code"]').fill(totpCode(totpSecretFor(demo.rowanNurse.email)!));
     await screenshot(page, "visit-access-second-step-en-390");
     await page.locator('button[type="submit"]').click();
+    await page.getByTestId("visit-reason").or(page.locator('[role="alert"]').filter({ hasText: /\S/ })).first().waitFor();
+    await screenshot(page, "visit-access-after-code-en-390");
     await page.getByTestId("visit-reason").waitFor();
     await page.getByTestId("visit-reason").fill("Out-of-hours visit: catheter bypassing, patient feverish");
     await page.getByTestId("visit-submit").click();
