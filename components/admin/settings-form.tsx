@@ -1,5 +1,6 @@
 "use client";
 import { zodResolver } from "@hookform/resolvers/zod";
+import { parsePlainDecimal } from "@/lib/shared/numbers";
 import { useTranslations } from "next-intl";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
@@ -22,7 +23,8 @@ export type SettingsInitial = {
 };
 
 const text = { setValueAs: (v: unknown) => (typeof v === "string" && v.trim() === "" ? null : v) };
-const num = { setValueAs: (v: unknown) => (v === "" || v === null || v === undefined ? null : Number(v)) };
+// An empty box clears the setting; anything typed goes to the schema, which takes plain decimals only.
+const num = { setValueAs: (v: unknown) => (v === "" || v === null || v === undefined ? null : typeof v === "string" ? (parsePlainDecimal(v) ?? v) : v) };
 
 export function SettingsForm({ initial }: { initial: SettingsInitial }) {
   const t = useTranslations("AdminSettings");
@@ -91,7 +93,6 @@ export function SettingsForm({ initial }: { initial: SettingsInitial }) {
           <Field
             label={t("reviewIntervalDays")}
             hint={t("ruleDefault", { days: PLAN_DEFAULTS.reviewIntervalDays.value })}
-            type="number"
             inputMode="numeric"
             min={1}
             max={365}
@@ -101,7 +102,6 @@ export function SettingsForm({ initial }: { initial: SettingsInitial }) {
           <Field
             label={t("dueSoonDays")}
             hint={t("ruleDefault", { days: PLAN_DEFAULTS.dueSoonDays.value })}
-            type="number"
             inputMode="numeric"
             min={0}
             max={60}
@@ -118,8 +118,7 @@ export function SettingsForm({ initial }: { initial: SettingsInitial }) {
                 key={m}
                 label={t(`materials.${m}`)}
                 hint={t("ruleDefault", { days: MATERIAL_SPECS[m].defaultMaxDwellDays })}
-                type="number"
-                inputMode="numeric"
+                    inputMode="numeric"
                 min={1}
                 max={365}
                 errors={errorText.list(dwellErrors?.[m])}
@@ -135,7 +134,6 @@ export function SettingsForm({ initial }: { initial: SettingsInitial }) {
         <Field
           label={t("retentionDays")}
           hint={t("retentionHint")}
-          type="number"
           inputMode="numeric"
           min={30}
           className="max-w-xs"

@@ -90,7 +90,7 @@ export function CaseloadView({ initialQuery, initialData }: { initialQuery: Case
   const filterLabel: Record<CaseloadFilter | "all", string> = {
     all: t("filters.all"),
     overdue: t("filters.overdue"),
-    "due-soon": t("filters.due-soon"),
+    "due-soon": t("filters.due-soon", { days: page.dueSoonDays }),
     urgent: t("filters.urgent"),
     twoc: t("filters.twoc"),
   };
@@ -229,7 +229,7 @@ export function CaseloadView({ initialQuery, initialData }: { initialQuery: Case
           </select>
         </label>
       </nav>
-      <p className="text-sm text-ink-soft">{t("safety")}</p>
+      <p className="text-sm text-ink-soft">{t("safety", { days: page.dueSoonDays })}</p>
     </div>
   );
 }

@@ -1,9 +1,11 @@
 "use client";
+import { parsePlainDecimal } from "@/lib/shared/numbers";
 import { useTranslations } from "next-intl";
 import { useEffect, useMemo, useRef, useState } from "react";
 import {
   HOURS_BAND_VALUE,
   isAsked,
+  keepAsked,
   questionsFor,
   reachesEmergency,
   TEMPERATURE_RANGE,
@@ -20,6 +22,16 @@ import { FieldError } from "@/components/ui/field";
 
 const answerButton =
   "flex min-h-16 w-full items-center justify-center rounded-lg border-2 border-brand bg-paper-raised px-4 py-3 text-center text-xl font-bold text-brand hover:bg-brand-soft";
+// The answer given before, when the person comes back to a screen: filled, with a tick (not colour alone).
+const chosenClass = (on: boolean) =>
+  on
+    ? "flex min-h-16 w-full items-center justify-center gap-2 rounded-lg border-2 border-brand-strong bg-brand px-4 py-3 text-center text-xl font-bold text-white before:content-['✓']"
+    : answerButton;
+
+function isChosen(question: Question, option: string, answers: SubmittedAnswers): boolean {
+  if (question.id === "hoursWithoutUrine") return answers.hoursWithoutUrine !== undefined && HOURS_BAND_VALUE[option as HoursBand] === answers.hoursWithoutUrine;
+  return (answers as Record<string, unknown>)[question.id] === option;
+}
 
 /** "How am I?": one question per screen, big answers, red flags first, emergency straight to the result. */
 export function CheckInFlow({ patientId, route, contacts, patientName }: { patientId: string; route: Route | null; contacts: Contacts; patientName: string | null }) {
@@ -44,7 +56,7 @@ export function CheckInFlow({ patientId, route, contacts, patientName }: { patie
   const position = visible.findIndex((q) => q.id === question.id) + 1;
 
   function answer(patch: SubmittedAnswers) {
-    const next = { ...answers, ...patch };
+    const next = keepAsked(questions, { ...answers, ...patch });
     setAnswers(next);
     setHistory([...history, index]);
     if (reachesEmergency(next, route)) return setDone(true);
@@ -54,13 +66,11 @@ export function CheckInFlow({ patientId, route, contacts, patientName }: { patie
     setIndex(i);
   }
 
+  // Going back keeps every answer: the screen shows what was chosen until it is changed.
   function back() {
     const previous = history.at(-1);
     if (previous === undefined) return;
     setHistory(history.slice(0, -1));
-    // Forget the answers of the screen we return to and of every screen after it.
-    const drop = new Set(questions.slice(previous).flatMap((q) => (q.kind === "many" ? [...q.options] : [q.id])));
-    setAnswers(Object.fromEntries(Object.entries(answers).filter(([k]) => !drop.has(k as never))) as SubmittedAnswers);
     setIndex(previous);
   }
 
@@ -75,7 +85,7 @@ export function CheckInFlow({ patientId, route, contacts, patientName }: { patie
         {t(`questions.${question.id}.${subject}`)}
       </h1>
       {t.has(`questions.${question.id}.hint` as never) ? <p>{t(`questions.${question.id}.hint` as never)}</p> : null}
-      <QuestionAnswers question={question} answers={answers} onAnswer={answer} />
+      <QuestionAnswers key={question.id} question={question} answers={answers} onAnswer={answer} onDraft={(patch) => setAnswers(keepAsked(questions, { ...answers, ...patch }))} />
       {history.length ? (
         <button type="button" onClick={back} className="min-h-12 self-start rounded-lg px-3 font-bold text-brand underline underline-offset-4">
           {t("back")}
@@ -85,16 +95,27 @@ export function CheckInFlow({ patientId, route, contacts, patientName }: { patie
   );
 }
 
-function QuestionAnswers({ question, answers, onAnswer }: { question: Question; answers: SubmittedAnswers; onAnswer: (p: SubmittedAnswers) => void }) {
+function QuestionAnswers({
+  question,
+  answers,
+  onAnswer,
+  onDraft,
+}: {
+  question: Question;
+  answers: SubmittedAnswers;
+  onAnswer: (p: SubmittedAnswers) => void;
+  /** A choice made on this screen before moving on (kept if the person goes back first). */
+  onDraft: (p: SubmittedAnswers) => void;
+}) {
   const t = useTranslations("CheckIn");
   switch (question.kind) {
     case "yes-no":
       return (
         <div className="flex flex-col gap-3">
-          <button type="button" className={answerButton} data-answer="yes" onClick={() => onAnswer({ [question.id]: true })}>
+          <button type="button" className={chosenClass(answers[question.id] === true)} aria-pressed={answers[question.id] === true || undefined} data-answer="yes" onClick={() => onAnswer({ [question.id]: true })}>
             {t("yes")}
           </button>
-          <button type="button" className={answerButton} data-answer="no" onClick={() => onAnswer({ [question.id]: false })}>
+          <button type="button" className={chosenClass(answers[question.id] === false)} aria-pressed={answers[question.id] === false || undefined} data-answer="no" onClick={() => onAnswer({ [question.id]: false })}>
             {t("no")}
           </button>
         </div>
@@ -106,7 +127,8 @@ function QuestionAnswers({ question, answers, onAnswer }: { question: Question; 
             <button
               key={o}
               type="button"
-              className={answerButton}
+              className={chosenClass(isChosen(question, o, answers))}
+              aria-pressed={isChosen(question, o, answers) || undefined}
               data-answer={o}
               onClick={() =>
                 onAnswer(
@@ -122,15 +144,15 @@ function QuestionAnswers({ question, answers, onAnswer }: { question: Question; 
         </div>
       );
     case "temperature":
-      return <TemperatureAnswer onAnswer={onAnswer} />;
+      return <TemperatureAnswer initial={answers.temperatureC} onAnswer={onAnswer} />;
     case "many":
-      return <ManyAnswer options={question.options} answers={answers} onAnswer={onAnswer} />;
+      return <ManyAnswer options={question.options} answers={answers} onAnswer={onAnswer} onDraft={onDraft} />;
   }
 }
 
-function TemperatureAnswer({ onAnswer }: { onAnswer: (p: SubmittedAnswers) => void }) {
+function TemperatureAnswer({ initial, onAnswer }: { initial?: number; onAnswer: (p: SubmittedAnswers) => void }) {
   const t = useTranslations("CheckIn");
-  const [value, setValue] = useState("");
+  const [value, setValue] = useState(initial === undefined ? "" : String(initial));
   const [error, setError] = useState<string | null>(null);
   return (
     <div className="flex flex-col gap-4">
@@ -139,8 +161,9 @@ function TemperatureAnswer({ onAnswer }: { onAnswer: (p: SubmittedAnswers) => vo
         noValidate
         onSubmit={(e) => {
           e.preventDefault();
-          const n = Number(value.replace(",", "."));
-          if (!value.trim() || !Number.isFinite(n)) return setError(t("temperature.needNumber"));
+          // Plain decimals only ("37.5" or "37,5"): "3e1" is not a temperature.
+          const n = parsePlainDecimal(value);
+          if (n === undefined) return setError(t("temperature.needNumber"));
           if (n > 90 && n < 115) return setError(t("temperature.fahrenheit"));
           if (n < TEMPERATURE_RANGE.min || n > TEMPERATURE_RANGE.max) return setError(t("temperature.range", TEMPERATURE_RANGE));
           onAnswer({ temperatureC: Math.round(n * 10) / 10 });
@@ -174,7 +197,17 @@ function TemperatureAnswer({ onAnswer }: { onAnswer: (p: SubmittedAnswers) => vo
   );
 }
 
-function ManyAnswer({ options, answers, onAnswer }: { options: readonly OtherSymptom[]; answers: SubmittedAnswers; onAnswer: (p: SubmittedAnswers) => void }) {
+function ManyAnswer({
+  options,
+  answers,
+  onAnswer,
+  onDraft,
+}: {
+  options: readonly OtherSymptom[];
+  answers: SubmittedAnswers;
+  onAnswer: (p: SubmittedAnswers) => void;
+  onDraft: (p: SubmittedAnswers) => void;
+}) {
   const t = useTranslations("CheckIn");
   const [picked, setPicked] = useState<Set<OtherSymptom>>(() => new Set(options.filter((o) => answers[o] === true)));
   const toggle = (o: OtherSymptom) => {
@@ -182,6 +215,7 @@ function ManyAnswer({ options, answers, onAnswer }: { options: readonly OtherSym
     if (next.has(o)) next.delete(o);
     else next.add(o);
     setPicked(next);
+    onDraft({ [o]: next.has(o) } as SubmittedAnswers);
   };
   const submit = (set: Set<OtherSymptom>) => onAnswer(Object.fromEntries(options.map((o) => [o, set.has(o)])) as SubmittedAnswers);
   return (

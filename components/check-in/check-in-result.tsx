@@ -6,7 +6,8 @@ import { LevelBadge } from "@/components/portal/level-badge";
 import { scoreAnswers, type SubmittedAnswers } from "@/lib/shared/check-in-flow";
 import { compareTriageLevels, TRIAGE_LEVELS, type Route, type TriageLevel } from "@/lib/clinical";
 import { Link } from "@/lib/i18n/navigation";
-import { enqueueCheckIn, flushCheckIns, SENT_EVENT, type SentDetail } from "./outbox";
+import type { OutboxEventDetail } from "@/lib/browser/outbox";
+import { checkInOutbox, enqueueCheckIn, OUTBOX_EVENT } from "./outbox";
 
 type Delivery = "sending" | "sent" | "waiting" | "refused";
 
@@ -25,15 +26,16 @@ export function CheckInResult({ patientId, route, answers, idempotencyKey, conta
   useEffect(() => {
     headingRef.current?.focus();
     const onSent = (e: Event) => {
-      const d = (e as CustomEvent<SentDetail>).detail;
-      if (d.idempotencyKey !== idempotencyKey) return;
+      const d = (e as CustomEvent<OutboxEventDetail>).detail;
+      if (d.queue !== checkInOutbox.name || !("key" in d) || d.key !== idempotencyKey) return;
       setDelivery(d.ok ? "sent" : "refused");
-      if (d.level && (TRIAGE_LEVELS as readonly string[]).includes(d.level)) setServerLevel(d.level as TriageLevel);
+      const level = (d.body as { checkIn?: { level?: string } } | null)?.checkIn?.level;
+      if (d.ok && level && (TRIAGE_LEVELS as readonly string[]).includes(level)) setServerLevel(level as TriageLevel);
     };
-    window.addEventListener(SENT_EVENT, onSent);
+    window.addEventListener(OUTBOX_EVENT, onSent);
     enqueueCheckIn({ patientId, idempotencyKey, answers });
-    void flushCheckIns().then(() => setDelivery((d) => (d === "sending" ? "waiting" : d)));
-    return () => window.removeEventListener(SENT_EVENT, onSent);
+    void checkInOutbox.flush().then(() => setDelivery((d) => (d === "sending" ? "waiting" : d)));
+    return () => window.removeEventListener(OUTBOX_EVENT, onSent);
   }, [patientId, idempotencyKey, answers]);
 
   if (!local) return null;

@@ -3,11 +3,14 @@
 // a bordered warning box, and the care team's phone as a big tel: button. Nothing names the patient.
 // Phone numbers and Latin units are isolated left-to-right so Arabic and Urdu do not reorder them.
 import { getFormatter, getTranslations } from "next-intl/server";
+import { WarningMark } from "@/components/ui/warning-mark";
+import { ErrorAlert } from "@/components/ui/notice";
 import { buttonClass } from "@/components/ui/button";
 import type { DeviceCard } from "@/lib/shared/dto";
 import { charriereToMm } from "@/lib/clinical";
 import { directionOf, isLocale, type Locale } from "@/lib/i18n/routing";
 import { deploymentTimeZone } from "@/lib/shared/time-zone";
+import { allergySummary } from "@/lib/clinical/allergies";
 
 /** The patient's language first, then English (once, when that is the patient's). */
 /**
@@ -30,26 +33,30 @@ async function CardInLanguage({ card, locale, first }: { card: DeviceCard; local
   const day = (iso: string) => format.dateTime(new Date(iso), { weekday: "short", day: "numeric", month: "short", year: "numeric", timeZone });
   const calendarDay = (ymd: string) =>
     format.dateTime(new Date(`${ymd}T12:00:00Z`), { weekday: "short", day: "numeric", month: "short", year: "numeric", timeZone: "UTC" });
-  const allergies = [
-    card.allergies.latex ? p("allergy.latex") : null,
-    card.allergies.chlorhexidine ? p("allergy.chlorhexidine") : null,
-    card.allergies.lidocaine ? p("allergy.lidocaine") : null,
-  ].filter((x): x is string => Boolean(x));
+  const { present, notRecorded } = allergySummary(card.allergies);
+  const allergies = present.map((a) => p(`allergy.${a}`));
+  const unknown = notRecorded.length ? p("allergyNotRecorded", { allergens: notRecorded.map((a) => p(`allergy.${a}`)).join(" · ") }) : null;
   const H = first ? "h2" : "h3";
   return (
     <section lang={locale} dir={directionOf(locale)} className="flex flex-col gap-4" data-testid={`card-${locale}`}>
       <H className="text-xl font-bold">{t("sectionTitle")}</H>
-      {allergies.length ? (
-        <div role="note" className="flex items-start gap-3 rounded-lg border-4 border-level-emergency bg-level-emergency-soft p-3 text-level-emergency-ink" data-testid="card-allergies">
-          <svg viewBox="0 0 16 16" className="mt-1 h-6 w-6 shrink-0" aria-hidden="true">
-            <path d="M8 1.5 15 14.5H1z" fill="currentColor" />
-            <path d="M8 6v4" stroke="white" strokeWidth="1.8" strokeLinecap="round" />
-            <circle cx="8" cy="12.3" r="1" fill="white" />
-          </svg>
+      {allergies.length || unknown ? (
+        // A known allergy is a stop (red, heavy border); only "not recorded" is a warning (amber).
+        <div
+          role="note"
+          className={`flex items-start gap-3 rounded-lg p-3 ${allergies.length ? "border-4 border-level-emergency bg-level-emergency-soft text-level-emergency-ink" : "border-2 border-level-urgent bg-level-urgent-soft text-level-urgent-ink"}`}
+          data-testid={allergies.length ? "card-allergies" : undefined}
+        >
+          <WarningMark className="mt-1 h-6 w-6 shrink-0" />
           <div>
             <p className="font-bold">{t("allergiesTitle")}</p>
-            <p className="text-xl font-bold">{allergies.join(" · ")}</p>
-            <p>{p("allergyCheck")}</p>
+            {allergies.length ? <p className="text-xl font-bold">{allergies.join(" · ")}</p> : null}
+            {unknown ? (
+              <p className={allergies.length ? "font-bold" : "text-xl font-bold"} data-testid="card-allergies-not-recorded">
+                {unknown}
+              </p>
+            ) : null}
+            {allergies.length ? <p>{p("allergyCheck")}</p> : null}
           </div>
         </div>
       ) : (
@@ -158,5 +165,20 @@ export async function InvalidPassport({ locale }: { locale: string }) {
         }),
       )}
     </div>
+  );
+}
+
+/** A typed code with a typing mistake (its check symbol does not match): check it and type again. */
+export async function MistypedCode({ locale }: { locale: string }) {
+  const locales: Locale[] = isLocale(locale) && locale !== "en" ? [locale, "en"] : ["en"];
+  const texts = await Promise.all(locales.map(async (l) => ({ l, text: (await getTranslations({ locale: l, namespace: "DeviceCard" }))("checkCode") })));
+  return (
+    <ErrorAlert message={<span lang={texts[0].l} dir={directionOf(texts[0].l)}>{texts[0].text}</span>} testId="card-typo">
+      {texts.slice(1).map(({ l, text }) => (
+        <p key={l} lang={l} dir={directionOf(l)} className="font-bold">
+          {text}
+        </p>
+      ))}
+    </ErrorAlert>
   );
 }

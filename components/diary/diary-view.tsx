@@ -2,18 +2,22 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { useFormatter, useTranslations } from "next-intl";
-import { useMemo, useState } from "react";
+import { useEffect, useMemo, useState } from "react";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
+import { FieldError } from "@/components/ui/field";
+import { apiFetch } from "@/lib/browser/api-client";
 import { fluidBalance, formatIsoDate, urineOutputRate, type DiaryEntry as ClinicalEntry } from "@/lib/clinical";
 import { DRINK_GUIDE, OUTPUT_WINDOW_HOURS } from "@/lib/shared/diary-guidance";
 import { Link } from "@/lib/i18n/navigation";
 import { BAG_SIZES, customVolumeSchema, DRINK_SIZES } from "@/lib/validations/diary";
+import { newKey, OUTBOX_EVENT, type OutboxEventDetail } from "@/lib/browser/outbox";
+import { diaryOutbox, type PendingDiaryEntry } from "./outbox";
 import { WeekChart } from "./week-chart";
-import { FieldError } from "@/components/ui/field";
-import { apiFetch } from "@/lib/browser/api-client";
 
-type Entry = { id: string; kind: "in" | "out"; volumeMl: number; at: string; removable: boolean };
+const asEntry = (p: PendingDiaryEntry): Entry => ({ id: p.clientKey, kind: p.kind, volumeMl: p.volumeMl, at: p.at, removable: true, clientKey: p.clientKey, waiting: true });
+
+type Entry = { id: string; kind: "in" | "out"; volumeMl: number; at: string; removable: boolean; clientKey?: string | null; waiting?: boolean };
 
 export const diaryKeys = {
   all: ["diary"] as const,
@@ -53,28 +57,57 @@ export function DiaryView({ patientId, weightKg, fluidLimitMl }: { patientId: st
     },
   });
   const [last, setLast] = useState<Entry | null>(null);
+  const [refused, setRefused] = useState(false);
+  // Entries still on the phone (offline, or on their way): shown at once with the time they were
+  // made, marked as waiting, and sent by the outbox, so the diary never waits for the network.
+  const [waiting, setWaiting] = useState<PendingDiaryEntry[]>([]);
+  useEffect(() => {
+    const update = (e?: Event) => {
+      setWaiting(diaryOutbox.list().filter((p) => p.patientId === patientId));
+      const d = (e as CustomEvent<OutboxEventDetail> | undefined)?.detail;
+      if (d && d.queue === diaryOutbox.name && "key" in d) {
+        if (d.ok) void client.invalidateQueries({ queryKey: diaryKeys.all });
+        else setRefused(true);
+      }
+    };
+    update();
+    window.addEventListener(OUTBOX_EVENT, update);
+    window.addEventListener("storage", update);
+    return () => {
+      window.removeEventListener(OUTBOX_EVENT, update);
+      window.removeEventListener("storage", update);
+    };
+  }, [patientId, client]);
 
-  const add = useMutation({
-    mutationFn: async ({ kind, volumeMl }: { kind: "in" | "out"; volumeMl: number }) => {
-      return (await apiFetch<{ entry: Entry }>("/api/diary", { method: "POST", body: { patientId, kind, volumeMl } })).entry;
+  const add = (kind: "in" | "out", volumeMl: number) => {
+    const item: PendingDiaryEntry = { patientId, clientKey: newKey(), kind, volumeMl, at: new Date().toISOString() };
+    setRefused(false);
+    diaryOutbox.enqueue(item);
+    setLast(asEntry(item));
+    void diaryOutbox.flush();
+  };
+  const remove = useMutation({
+    mutationFn: async (entry: Entry) => {
+      if (entry.waiting && diaryOutbox.list().some((p) => p.clientKey === entry.clientKey)) {
+        diaryOutbox.remove(entry.clientKey!);
+        return entry;
+      }
+      const id = entry.waiting ? (query.data ?? []).find((e) => e.clientKey === entry.clientKey)?.id : entry.id;
+      if (!id) throw new Error("not sent");
+      await apiFetch(`/api/diary/${id}`, { method: "DELETE" });
+      return entry;
     },
     onSuccess: (entry) => {
-      setLast(entry);
-      void client.invalidateQueries({ queryKey: diaryKeys.all });
-    },
-  });
-  const remove = useMutation({
-    mutationFn: async (id: string) => {
-      await apiFetch(`/api/diary/${id}`, { method: "DELETE" });
-      return id;
-    },
-    onSuccess: (id) => {
-      if (last?.id === id) setLast(null);
+      if (last?.id === entry.id) setLast(null);
       void client.invalidateQueries({ queryKey: diaryKeys.all });
     },
   });
 
-  const entries = useMemo(() => query.data ?? [], [query.data]);
+  const entries = useMemo(() => {
+    const sent = query.data ?? [];
+    const sentKeys = new Set(sent.map((e) => e.clientKey).filter(Boolean));
+    return [...sent, ...waiting.filter((p) => !sentKeys.has(p.clientKey)).map(asEntry)].sort((a, b) => a.at.localeCompare(b.at));
+  }, [query.data, waiting]);
   const clinical: ClinicalEntry[] = entries.map((e) => ({ kind: e.kind, volumeMl: e.volumeMl, at: e.at }));
   const todayIso = localIso(new Date());
   const today = fluidBalance(clinical, todayIso);
@@ -94,12 +127,12 @@ export function DiaryView({ patientId, weightKg, fluidLimitMl }: { patientId: st
         </h2>
         <div className="grid grid-cols-2 gap-3 sm:grid-cols-3">
           {DRINK_SIZES.map((v) => (
-            <button key={v} type="button" className={quick} disabled={add.isPending} onClick={() => add.mutate({ kind: "in", volumeMl: v })} data-testid={`drink-${v}`}>
+            <button key={v} type="button" className={quick} onClick={() => add("in", v)} data-testid={`drink-${v}`}>
               {t("amount", { ml: v })}
             </button>
           ))}
         </div>
-        <CustomAmount kind="in" onAdd={(volumeMl) => add.mutate({ kind: "in", volumeMl })} disabled={add.isPending} />
+        <CustomAmount kind="in" onAdd={(volumeMl) => add("in", volumeMl)} />
       </section>
 
       <section aria-labelledby="add-bag" className="flex flex-col gap-3">
@@ -108,23 +141,23 @@ export function DiaryView({ patientId, weightKg, fluidLimitMl }: { patientId: st
         </h2>
         <div className="grid grid-cols-2 gap-3">
           {BAG_SIZES.map((v) => (
-            <button key={v} type="button" className={quick} disabled={add.isPending} onClick={() => add.mutate({ kind: "out", volumeMl: v })} data-testid={`bag-${v}`}>
+            <button key={v} type="button" className={quick} onClick={() => add("out", v)} data-testid={`bag-${v}`}>
               {t("amount", { ml: v })}
             </button>
           ))}
         </div>
-        <CustomAmount kind="out" onAdd={(volumeMl) => add.mutate({ kind: "out", volumeMl })} disabled={add.isPending} />
+        <CustomAmount kind="out" onAdd={(volumeMl) => add("out", volumeMl)} />
       </section>
 
       <div role="status" aria-live="polite" className="min-h-6">
-        {add.isError ? (
+        {refused ? (
           <p className="font-bold text-level-emergency-ink">{t("addError")}</p>
         ) : last ? (
           <div className="flex flex-wrap items-center justify-between gap-3 rounded-lg border-2 border-level-selfcare bg-level-selfcare-soft p-3 text-level-selfcare-ink">
             <p className="font-bold" data-testid="diary-added">
               {t(last.kind === "in" ? "addedDrink" : "addedBag", { ml: last.volumeMl, time: time(last.at) })}
             </p>
-            <button type="button" onClick={() => remove.mutate(last.id)} className="min-h-12 rounded-lg border-2 border-level-selfcare-ink px-4 font-bold">
+            <button type="button" onClick={() => remove.mutate(last)} className="min-h-12 rounded-lg border-2 border-level-selfcare-ink px-4 font-bold">
               {t("undo")}
             </button>
           </div>
@@ -135,10 +168,9 @@ export function DiaryView({ patientId, weightKg, fluidLimitMl }: { patientId: st
         <h2 id="today-title" className="text-2xl font-bold">
           {t("today")}
         </h2>
-        {query.isPending ? (
+        {query.isError ? <p className="font-bold text-level-emergency-ink">{t("loadError")}</p> : null}
+        {query.isPending && !waiting.length ? (
           <p>{t("loading")}</p>
-        ) : query.isError ? (
-          <p className="font-bold text-level-emergency-ink">{t("loadError")}</p>
         ) : (
           <>
             <dl className="grid grid-cols-[1fr_auto] gap-x-4 gap-y-1 text-lg tabular">
@@ -175,12 +207,17 @@ export function DiaryView({ patientId, weightKg, fluidLimitMl }: { patientId: st
               <li key={e.id} className="flex items-center justify-between gap-3 rounded-lg border border-stone-faint bg-paper-raised p-3">
                 <span className="tabular">
                   <span className="font-bold">{time(e.at)}</span> · {t(e.kind === "in" ? "drinkEntry" : "bagEntry", { ml: e.volumeMl })}
+                  {e.waiting ? (
+                    <span className="ms-2 inline-block rounded border border-level-urgent px-1 text-sm font-bold text-level-urgent-ink" data-testid="diary-waiting">
+                      {t("waiting")}
+                    </span>
+                  ) : null}
                 </span>
                 {e.removable ? (
                   <button
                     type="button"
                     disabled={remove.isPending}
-                    onClick={() => remove.mutate(e.id)}
+                    onClick={() => remove.mutate(e)}
                     className="min-h-12 min-w-12 shrink-0 rounded-lg border-2 border-brand px-3 font-bold text-brand [overflow-wrap:normal]"
                     aria-label={t("removeEntry", { what: t(e.kind === "in" ? "drinkEntry" : "bagEntry", { ml: e.volumeMl }), time: time(e.at) })}
                   >
@@ -222,7 +259,7 @@ function OutputNote({ output, weightKnown, limit }: { output: ReturnType<typeof 
   return <p>{t("ok", { hours: OUTPUT_WINDOW_HOURS, rate: format.number(output.mlPerKgPerHour, { maximumFractionDigits: 1 }) })}</p>;
 }
 
-function CustomAmount({ kind, onAdd, disabled }: { kind: "in" | "out"; onAdd: (ml: number) => void; disabled: boolean }) {
+function CustomAmount({ kind, onAdd }: { kind: "in" | "out"; onAdd: (ml: number) => void }) {
   const t = useTranslations("Diary");
   const id = `custom-${kind}`;
   const {
@@ -254,10 +291,11 @@ function CustomAmount({ kind, onAdd, disabled }: { kind: "in" | "out"; onAdd: (m
           {...register("volumeMl")}
         />
         <span className="text-lg font-bold">{t("unit")}</span>
-        <button type="submit" disabled={disabled} className="min-h-14 min-w-24 rounded-lg bg-brand px-5 text-lg font-bold text-white">
+        <button type="submit" className="min-h-14 min-w-24 rounded-lg bg-brand px-5 text-lg font-bold text-white">
           {t("add")}
         </button>
       </div>
+      {/* The words name the range ("a whole number of ml, from 1 to 5000") whatever was wrong. */}
       <FieldError id={`${id}-error`} errors={errors.volumeMl ? [t("customError")] : undefined} />
     </form>
   );

@@ -4,14 +4,16 @@
 import { useTranslations } from "next-intl";
 import { useEffect, useId, useLayoutEffect, useRef, useState, type KeyboardEvent } from "react";
 import { Button } from "@/components/ui/button";
-import { GS_VISIBLE, isGroupSeparatorKey, readScan, showScan, type ScanReading } from "@/lib/browser/gs1-input";
 import { ErrorAlert } from "@/components/ui/notice";
+import { GS_VISIBLE, isGroupSeparatorKey, readCameraText, readScan, showScan, type CameraSymbology, type ScanReading } from "@/lib/browser/gs1-input";
 
 export type ScanFill = { gtin?: string; lot?: string; expiry?: string; serial?: string; udi: string };
 
 /** parseGs1's English messages → a translated key; the AI detail is kept as it is. */
-function errorKey(message: string): { key: "gtinCheckDigit" | "dateInvalid" | "separator" | "nothing" | "unreadable"; detail: string } {
+function errorKey(message: string): { key: "gtinCheckDigit" | "dateInvalid" | "separator" | "nothing" | "unreadable" | "notGs1" | "digitalLink"; detail: string } {
   if (/^AI 01: check digit/.test(message)) return { key: "gtinCheckDigit", detail: message };
+  if (/^not a GS1-128 label/.test(message)) return { key: "notGs1", detail: message };
+  if (/^no GTIN \(01\) in the address|percent-encoding|belongs in the path/.test(message)) return { key: "digitalLink", detail: message };
   if (/^AI 1[1-7]: /.test(message)) return { key: "dateInvalid", detail: message };
   if (/group separator/.test(message)) return { key: "separator", detail: message };
   if (message === "nothing to read") return { key: "nothing", detail: message };
@@ -35,11 +37,15 @@ export function ScanField({ today, onRead }: { today: string; onRead: (fill: Sca
     caretAfter.current = null;
   }, [raw]);
 
-  const read = (text: string) => {
-    if (!text.trim()) return;
-    const r = readScan(text, today);
+  // Every reading replaces every field a label can carry: a field this label lacks is cleared,
+  // never left from the label scanned before.
+  const show = (r: ScanReading) => {
     setReading(r);
     onRead({ gtin: r.gtin, lot: r.lot, expiry: r.expiry, serial: r.serial, udi: r.normalised });
+  };
+  const read = (text: string) => {
+    if (!text.trim()) return;
+    show(readScan(text, today));
   };
 
   const onKeyDown = (e: KeyboardEvent<HTMLInputElement>) => {
@@ -63,6 +69,7 @@ export function ScanField({ today, onRead }: { today: string; onRead: (fill: Sca
   const filled = reading
     ? (["gtin", "lot", "expiry", "serial"] as const).filter((k) => reading[k] !== undefined)
     : [];
+  const absent = reading ? (["gtin", "lot", "expiry", "serial"] as const).filter((k) => reading[k] === undefined) : [];
 
   return (
     <div className="flex flex-col gap-2 sm:col-span-2" data-testid="scan-field">
@@ -97,10 +104,10 @@ export function ScanField({ today, onRead }: { today: string; onRead: (fill: Sca
       </div>
       {cameraOpen ? (
         <CameraReader
-          onText={(text) => {
+          onText={(text, symbology) => {
             setCameraOpen(false);
             setRaw(showScan(text));
-            read(text);
+            show(readCameraText(text, symbology, today));
           }}
         />
       ) : null}
@@ -108,6 +115,11 @@ export function ScanField({ today, onRead }: { today: string; onRead: (fill: Sca
         {reading && filled.length > 0 ? (
           <p className="font-bold text-level-selfcare-ink" data-testid="scan-filled">
             {t("filled", { fields: filled.map((k) => t(`field.${k}`)).join(", ") })}
+          </p>
+        ) : null}
+        {reading && absent.length > 0 && absent.length < 4 ? (
+          <p className="text-ink-soft" data-testid="scan-absent">
+            {t("absent", { fields: absent.map((k) => t(`field.${k}`)).join(", ") })}
           </p>
         ) : null}
         {reading && reading.errors.length > 0 ? (
@@ -144,7 +156,7 @@ type Controls = { stop: () => void };
  * Reads a GS1 DataMatrix, GS1-128 or QR code from the camera. The decoder is loaded only when
  * the camera is opened, so no other page carries its weight.
  */
-function CameraReader({ onText }: { onText: (text: string) => void }) {
+function CameraReader({ onText }: { onText: (text: string, symbology: CameraSymbology) => void }) {
   const t = useTranslations("EpisodeForm.scan");
   const videoRef = useRef<HTMLVideoElement>(null);
   const [status, setStatus] = useState<"starting" | "scanning" | "denied" | "none" | "insecure" | "failed">("starting");
@@ -167,6 +179,9 @@ function CameraReader({ onText }: { onText: (text: string) => void }) {
         const hints = new Map();
         hints.set(DecodeHintType.POSSIBLE_FORMATS, [BarcodeFormat.DATA_MATRIX, BarcodeFormat.CODE_128, BarcodeFormat.QR_CODE]);
         hints.set(DecodeHintType.TRY_HARDER, true);
+        // Keep the FNC1 of a GS1-128: "]C1" first, ASCII 29 between fields (without this hint
+        // the reader drops them and a lot runs into the serial after it).
+        hints.set(DecodeHintType.ASSUME_GS1, true);
         const reader = new BrowserMultiFormatReader(hints, { delayBetweenScanAttempts: 150 });
         controls = await reader.decodeFromConstraints(
           { video: { facingMode: { ideal: "environment" } } },
@@ -175,7 +190,10 @@ function CameraReader({ onText }: { onText: (text: string) => void }) {
             if (result && !done.current) {
               done.current = true;
               c.stop();
-              onText(result.getText());
+              const format = result.getBarcodeFormat();
+              const symbology: CameraSymbology =
+                format === BarcodeFormat.CODE_128 ? "code128" : format === BarcodeFormat.DATA_MATRIX ? "datamatrix" : format === BarcodeFormat.QR_CODE ? "qr" : "other";
+              onText(result.getText(), symbology);
             }
           },
         );

@@ -9,7 +9,7 @@ import { useForm, type Control, type Resolver, type UseFormRegister } from "reac
 import type { z } from "zod";
 import { useSubmitFailure } from "@/components/ui/use-error-text";
 import { apiFetch, isApiError, setServerFieldErrors } from "@/lib/browser/api-client";
-import { planDates, type Material, type PlanDatesResult } from "@/lib/clinical";
+import { planDates, type Material, type PlanDatesResult, type PlanDefaults } from "@/lib/clinical";
 import { useRouter } from "@/lib/i18n/navigation";
 import { reconcileOverrides, runDeviceCheck, type CheckOutcome, type PatientFacts } from "@/lib/shared/episode-checks";
 import { dayIn } from "@/lib/shared/time-zone";
@@ -37,8 +37,8 @@ export type PreviousDevice = {
   insertedAt: string;
 };
 
-/** The deployment's planning defaults (admin settings over the rules' own), from the page. */
-export type PlanDefaults = { maxDwellDays: Record<Material, number>; reviewIntervalDays: number; dueSoonDays?: number };
+/** The deployment's planning defaults (admin settings over the rules' own: lib/config/settings getPlanDefaults), from the page. */
+export type { PlanDefaults } from "@/lib/clinical";
 
 /** What every fieldset of the form needs: the fields, their errors in words, and the live draft. */
 export type EpisodeFields = {
@@ -151,10 +151,12 @@ export function useDeviceEpisodeForm({
 
   const onScan = (fill: ScanFill) => {
     const opts = { shouldValidate: true, shouldDirty: true } as const;
-    if (fill.gtin) setValue("gtin", fill.gtin, opts);
-    if (fill.lot) setValue("lot", fill.lot, opts);
-    if (fill.expiry) setValue("expiry", fill.expiry, opts);
-    if (fill.serial) setValue("serial", fill.serial, opts);
+    // A scan replaces every field a label can carry; one this label lacks is cleared, never left
+    // from the packet scanned before.
+    setValue("gtin", fill.gtin ?? "", opts);
+    setValue("lot", fill.lot ?? "", opts);
+    setValue("expiry", fill.expiry ?? "", opts);
+    setValue("serial", fill.serial ?? "", opts);
     setValue("udi", fill.udi, opts);
   };
 

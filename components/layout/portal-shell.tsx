@@ -1,7 +1,7 @@
 import { getTranslations } from "next-intl/server";
 import type { ReactNode } from "react";
-import { CheckInOutboxSync } from "@/components/check-in/outbox-sync";
 import { LifebuoyIcon } from "@/components/portal/nav-icons";
+import { OutboxSync } from "@/components/portal/outbox-sync";
 import { ServiceWorkerRegister } from "@/components/portal/service-worker-register";
 import { Wordmark } from "@/components/ui/logo";
 import { Link } from "@/lib/i18n/navigation";
@@ -31,10 +31,10 @@ export async function PortalShell({ children }: { children: ReactNode }) {
         </div>
       </header>
       <main id="main" className="mx-auto w-full max-w-xl flex-1 px-4 pb-36 pt-5 max-[22em]:px-2 max-[22em]:pb-8">
+        <OutboxSync />
         {children}
       </main>
       <PortalNav />
-      <CheckInOutboxSync />
       <ServiceWorkerRegister />
     </div>
   );

@@ -46,6 +46,7 @@ export function PassportPanel({
   languages,
   hasDevice,
   canOfferActivation,
+  readOnly = false,
 }: {
   patientId: string;
   overview: PassportOverview;
@@ -53,8 +54,11 @@ export function PassportPanel({
   hasDevice: boolean;
   /** No portal account yet and the viewer is in the care team: offer a code on the booklet. */
   canOfferActivation: boolean;
+  /** A closed record: its passport history is shown, nothing can be issued. */
+  readOnly?: boolean;
 }) {
   const t = useTranslations("Passport");
+  const tRecord = useTranslations("PatientRecord");
   const format = useFormatter();
   const router = useRouter();
   const [issued, setIssued] = useState<Issued | null>(null);
@@ -116,7 +120,11 @@ export function PassportPanel({
         <p>
           <span className="font-bold">{t("languages")}:</span> {languageNames(languages)}
         </p>
-        {!hasDevice ? <p className="rounded-lg border-2 border-stone-line bg-paper-sunk p-3">{t("noDevice")}</p> : null}
+        {readOnly ? (
+          <p className="rounded-lg border-2 border-stone-line bg-paper-sunk p-3 font-bold">{tRecord("closedNoWrites")}</p>
+        ) : !hasDevice ? (
+          <p className="rounded-lg border-2 border-stone-line bg-paper-sunk p-3">{t("noDevice")}</p>
+        ) : null}
         <p className="max-w-prose rounded-lg border border-stone-faint bg-paper-sunk p-3" data-testid="passport-safety">
           {t("safety")}
         </p>
@@ -214,26 +222,26 @@ export function PassportPanel({
                   {t("download")}
                 </a>
               ) : null}
-              <Button
+              {readOnly ? null : <Button
                 variant={issued ? "secondary" : "primary"}
                 onClick={() => setConfirming(true)}
                 disabled={mutation.isPending || confirming}
                 data-testid="passport-reissue"
               >
                 {t("reissue")}
-              </Button>
+              </Button>}
             </div>
-            <p className="text-sm text-ink-soft">{t("reissueHint")}</p>
+            {readOnly ? null : <p className="text-sm text-ink-soft">{t("reissueHint")}</p>}
           </>
         ) : (
           <>
             <p>{t("none")}</p>
-            {activationChoice}
+            {readOnly ? null : <>{activationChoice}
             <div>
               <Button onClick={() => mutation.mutate(false)} disabled={mutation.isPending} data-testid="passport-issue">
                 {mutation.isPending ? t("issuing") : t("issue")}
               </Button>
-            </div>
+            </div></>}
           </>
         )}
         {confirming ? (

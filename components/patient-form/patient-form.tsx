@@ -14,6 +14,7 @@ import { useSubmitFailure } from "@/components/ui/use-error-text";
 import { apiFetch, setServerFieldErrors } from "@/lib/browser/api-client";
 import { useRouter } from "@/lib/i18n/navigation";
 import { localeNames } from "@/lib/i18n/routing";
+import { ALLERGENS, ALLERGY_ANSWERS } from "@/lib/clinical/allergies";
 import {
   EARLIEST_BIRTH_DATE,
   patientLocales,
@@ -40,7 +41,7 @@ const blank: PatientInput = {
   sex: undefined as unknown as PatientInput["sex"],
   preferredLocale: "en",
   weightKg: null,
-  allergies: { latex: false, chlorhexidine: false, lidocaine: false, other: "" },
+  allergies: { latex: "not-asked", chlorhexidine: "not-asked", lidocaine: "not-asked", other: "" },
   gpPracticeId: "",
   careTeamOrganisationIds: [],
 };
@@ -53,6 +54,9 @@ const formFields = [
   "sex",
   "preferredLocale",
   "weightKg",
+  "allergies.latex",
+  "allergies.chlorhexidine",
+  "allergies.lidocaine",
   "allergies.other",
   "gpPracticeId",
   "careTeamOrganisationIds",
@@ -116,7 +120,9 @@ export function PatientForm(props: Props) {
           ? failure.text.one(error.fields._form[0])
           : Object.keys(error.fields).length
             ? t("fixFields")
-            : error.status === 0
+            : error.code === "record_closed"
+              ? failure.text.one("record_closed")
+              : error.status === 0
               ? t("networkError")
               : error.status === 403 || error.status === 404
                 ? t("notAllowed")
@@ -164,22 +170,26 @@ export function PatientForm(props: Props) {
           <Field
             label={t("weightKg")}
             hint={t("weightHint")}
-            type="number"
             inputMode="decimal"
-            step="0.1"
-            min={1}
-            max={400}
+            autoComplete="off"
             className="tabular"
             errors={errorsOf("weightKg")}
-            {...register("weightKg", { setValueAs: (v) => (v === "" || v === null || v === undefined ? null : Number(v)) })}
+            {...register("weightKg")}
           />
         </div>
       </Section>
 
       <Section columns={1} title={t("sections.allergies")} hint={t("allergiesHint")}>
-        <div className="flex flex-col">
-          {(["latex", "chlorhexidine", "lidocaine"] as const).map((a) => (
-            <Checkbox key={a} label={t(`allergy.${a}`)} {...register(`allergies.${a}`)} />
+        {/* Each one yes, no or "not asked yet" (the starting value): never a silent "no". */}
+        <div className="flex flex-col gap-2">
+          {ALLERGENS.map((a) => (
+            <RadioGroup
+              key={a}
+              legend={t(`allergy.${a}`)}
+              errors={errorsOf(`allergies.${a}`)}
+              options={ALLERGY_ANSWERS.map((answer) => ({ value: answer, label: t(`allergyAnswer.${answer}`) }))}
+              inputProps={register(`allergies.${a}`)}
+            />
           ))}
         </div>
         <Field label={t("allergyOther")} hint={t("allergyOtherHint")} errors={errorsOf("allergies.other")} {...register("allergies.other")} />

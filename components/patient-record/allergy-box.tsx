@@ -1,26 +1,35 @@
 import { useTranslations } from "next-intl";
+import { WarningMark } from "@/components/ui/warning-mark";
+import { allergySummary } from "@/lib/clinical/allergies";
 import type { PatientDetails } from "@/lib/shared/dto";
 
-/** Allergies that matter for a catheter, in a bordered warning box (never colour alone). */
+/**
+ * Allergies that matter for a catheter, in a bordered warning box (never colour alone); those
+ * nobody has asked about are named as not recorded, so the nurse asks before catheterising.
+ */
 export function AllergyBox({ allergies }: { allergies: PatientDetails["allergies"] }) {
   const t = useTranslations("PatientRecord");
-  const list = [
-    allergies.latex ? t("allergy.latex") : null,
-    allergies.chlorhexidine ? t("allergy.chlorhexidine") : null,
-    allergies.lidocaine ? t("allergy.lidocaine") : null,
-    allergies.other ? allergies.other : null,
-  ].filter((x): x is string => Boolean(x));
-  if (list.length === 0) return null;
+  const { present, notRecorded } = allergySummary(allergies);
+  const list = [...present.map((a) => t(`allergy.${a}`)), ...(allergies.other ? [allergies.other] : [])];
+  const unknown = notRecorded.map((a) => t(`allergy.${a}`)).join(" · ");
+  if (list.length === 0 && !unknown) return null;
+  const stop = list.length > 0;
   return (
-    <div role="note" aria-label={t("allergyTitle")} className="flex items-start gap-3 rounded-lg border-4 border-level-emergency bg-level-emergency-soft p-3 text-level-emergency-ink" data-testid="allergy-box">
-      <svg viewBox="0 0 16 16" className="mt-0.5 h-6 w-6 shrink-0" aria-hidden="true">
-        <path d="M8 1.5 15 14.5H1z" fill="currentColor" />
-        <path d="M8 6v4" stroke="white" strokeWidth="1.8" strokeLinecap="round" />
-        <circle cx="8" cy="12.3" r="1" fill="white" />
-      </svg>
+    <div
+      role="note"
+      aria-label={t("allergyTitle")}
+      className={`flex items-start gap-3 rounded-lg p-3 ${stop ? "border-4 border-level-emergency bg-level-emergency-soft text-level-emergency-ink" : "border-2 border-level-urgent bg-level-urgent-soft text-level-urgent-ink"}`}
+      data-testid="allergy-box"
+    >
+      <WarningMark className="mt-0.5 h-6 w-6 shrink-0" />
       <div>
         <p className="font-bold">{t("allergyTitle")}</p>
-        <p className="text-lg font-bold">{list.join(" · ")}</p>
+        {stop ? <p className="text-lg font-bold">{list.join(" · ")}</p> : null}
+        {unknown ? (
+          <p className="font-bold" data-testid="allergy-not-recorded">
+            {t("allergyNotRecorded", { allergens: unknown })}
+          </p>
+        ) : null}
       </div>
     </div>
   );

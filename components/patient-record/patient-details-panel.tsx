@@ -6,6 +6,7 @@ import { PatientForm, type GpPractice } from "@/components/patient-form/patient-
 import { Button } from "@/components/ui/button";
 import type { PatientDetails } from "@/lib/shared/dto";
 import { localeNames, type Locale } from "@/lib/i18n/routing";
+import { ALLERGENS } from "@/lib/clinical/allergies";
 
 export function PatientDetailsPanel({ patient, gpPractices, canEdit }: { patient: PatientDetails; gpPractices: GpPractice[]; canEdit: boolean }) {
   const t = useTranslations("PatientDevice");
@@ -37,11 +38,9 @@ export function PatientDetailsPanel({ patient, gpPractices, canEdit }: { patient
   }
 
   const allergies = [
-    patient.allergies.latex ? tf("allergy.latex") : null,
-    patient.allergies.chlorhexidine ? tf("allergy.chlorhexidine") : null,
-    patient.allergies.lidocaine ? tf("allergy.lidocaine") : null,
-    patient.allergies.other,
-  ].filter(Boolean);
+    ...ALLERGENS.map((a) => `${tf(`allergy.${a}`)}: ${tf(`allergyAnswer.${patient.allergies[a]}`)}`),
+    ...(patient.allergies.other ? [`${tf("allergyOther")}: ${patient.allergies.other}`] : []),
+  ];
   const rows: [string, string][] = [
     [tf("givenName"), patient.givenName],
     [tf("familyName"), patient.familyName],
@@ -50,7 +49,7 @@ export function PatientDetailsPanel({ patient, gpPractices, canEdit }: { patient
     [tf("sex"), tf(`sexes.${patient.sex}`)],
     [tf("preferredLocale"), localeNames[patient.preferredLocale as Locale] ?? patient.preferredLocale],
     [tf("weightKg"), patient.weightKg === null ? t("notRecorded") : t("kg", { kg: patient.weightKg })],
-    [t("allergies"), allergies.length ? allergies.join(" · ") : t("noAllergies")],
+    [t("allergies"), allergies.join(" · ")],
     [tf("gpPractice"), patient.gpPractice ? `${patient.gpPractice.name}${patient.gpPractice.phone ? ` · ${patient.gpPractice.phone}` : ""}` : t("notRecorded")],
     [tf("careTeam"), patient.careTeam.map((o) => `${o.name}${o.phone ? ` · ${o.phone}` : ""}`).join("; ")],
   ];

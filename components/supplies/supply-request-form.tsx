@@ -5,6 +5,7 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import { useTranslations } from "next-intl";
 import { useEffect, useMemo, useState } from "react";
 import { useFieldArray, useForm, useWatch } from "react-hook-form";
+import type { z } from "zod";
 import { Button } from "@/components/ui/button";
 import { Checkbox, ChoiceGroup } from "@/components/ui/choice";
 import { FieldError, SelectField, TextArea } from "@/components/ui/field";
@@ -38,7 +39,7 @@ export function SupplyRequestForm({ patientId, changeIntervalDays, gpName, gpHas
     setError,
     reset,
     formState: { errors, isSubmitting },
-  } = useForm<SupplyRequestInput>({
+  } = useForm<z.input<typeof supplyRequestSchema>, unknown, SupplyRequestInput>({
     resolver: zodResolver(supplyRequestSchema),
     defaultValues: {
       periodDays: DEFAULT_SUPPLY_PERIOD,
@@ -113,14 +114,12 @@ export function SupplyRequestForm({ patientId, changeIntervalDays, gpName, gpHas
                   <td className="p-3">
                     <input
                       id={`qty-${f.item}`}
-                      type="number"
                       inputMode="numeric"
-                      min={0}
-                      max={999}
+                      autoComplete="off"
                       className={`tabular min-h-12 w-24 rounded-lg border-2 bg-paper-raised px-3 ${err ? "border-level-emergency" : "border-stone-line"}`}
                       aria-invalid={err ? true : undefined}
                       aria-describedby={err ? `qty-${f.item}-error` : undefined}
-                      {...register(`items.${i}.quantity`, { valueAsNumber: true })}
+                      {...register(`items.${i}.quantity`)}
                     />
                     <input type="hidden" {...register(`items.${i}.item`)} />
                     <FieldError id={`qty-${f.item}-error`} errors={err ? [text.one(err)] : undefined} className="mt-1" />

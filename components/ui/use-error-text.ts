@@ -6,6 +6,7 @@ import { useState } from "react";
 import { get, type FieldErrors, type FieldValues, type UseFormSetError } from "react-hook-form";
 import { isApiError, setServerFieldErrors, type ApiError } from "@/lib/browser/api-client";
 import { PASSWORD_MAX_LENGTH, PASSWORD_MIN_LENGTH } from "@/lib/auth/password-rules";
+import { parseRangeCode } from "@/lib/shared/numbers";
 import type en from "@/messages/en.json";
 
 type Namespace = keyof typeof en;
@@ -19,6 +20,9 @@ export function useErrorText(namespace: Namespace) {
   const e = useTranslations("Errors");
   const values = { min: PASSWORD_MIN_LENGTH, max: PASSWORD_MAX_LENGTH };
   const one = (code: string, fallback: "invalid" | "internal" = "invalid"): string => {
+    // A number outside its range names the range and its unit: "Enter a number between 5 and 30 ml".
+    const range = parseRangeCode(code);
+    if (range) return range.unit ? e("rangeUnit", { min: range.min, max: range.max, unit: e(`units.${range.unit}`) }) : e("range", { min: range.min, max: range.max });
     const key = `errors.${code}`;
     if (t.has(key as never)) return t(key as never);
     if (e.has(code as never)) return e(code as never, values as never);

@@ -4,13 +4,14 @@
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { useFormatter, useTranslations } from "next-intl";
 import { useEffect, useRef, useState } from "react";
+import { useErrorText } from "@/components/ui/use-error-text";
 import { Button, buttonClass } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
 import { Field, SelectField } from "@/components/ui/field";
 import { ErrorAlert } from "@/components/ui/notice";
 import { apiFetch, isApiError } from "@/lib/browser/api-client";
 import type { UploadDto } from "@/lib/shared/dto";
-import { uploadCategories, type UploadCategory } from "@/lib/validations/upload";
+import { uploadCategories, uploadCreateSchema, type UploadCategory } from "@/lib/validations/upload";
 import { ACCEPTED_UPLOAD_TYPES, precheck, uploadFile, type UploadFailure } from "./upload-file";
 
 export const uploadKeys = {
@@ -28,7 +29,7 @@ const failureKey: Record<UploadFailure, "tooLarge" | "badType" | "failed"> = {
   failed: "failed",
 };
 
-export function UploadsPanel({ patientId, initial, canRemove }: { patientId: string; initial: UploadDto[]; canRemove: boolean }) {
+export function UploadsPanel({ patientId, initial, canRemove, readOnly = false }: { patientId: string; initial: UploadDto[]; canRemove: boolean; readOnly?: boolean }) {
   const t = useTranslations("Uploads");
   const format = useFormatter();
   const queryClient = useQueryClient();
@@ -38,6 +39,7 @@ export function UploadsPanel({ patientId, initial, canRemove }: { patientId: str
   const [label, setLabel] = useState("");
   const [file, setFile] = useState<File | null>(null);
   const [errors, setErrors] = useState<{ label?: string[]; file?: string[] }>({});
+  const errorText = useErrorText("Uploads");
   const [status, setStatus] = useState<string>("");
   const [confirmId, setConfirmId] = useState<string | null>(null);
   // A new key clears the file input after an upload.
@@ -85,7 +87,9 @@ export function UploadsPanel({ patientId, initial, canRemove }: { patientId: str
     setStatus("");
     // Every problem at once, not the first only.
     const next: typeof errors = {};
+    const labelCheck = uploadCreateSchema.shape.label.safeParse(label);
     if (!label.trim()) next.label = [t("labelRequired")];
+    else if (!labelCheck.success) next.label = [errorText.one(labelCheck.error.issues[0].message)];
     if (!file) next.file = [t("chooseFile")];
     else {
       const problem = precheck(file, ACCEPTED_UPLOAD_TYPES);
@@ -96,7 +100,11 @@ export function UploadsPanel({ patientId, initial, canRemove }: { patientId: str
     upload.mutate({ file, category, label: label.trim() });
   }
 
-  const uploads = list.data ?? [];
+  // Only files that arrived and passed the checks are on the record; refused or unfinished ones
+  // (no file to show) are listed apart, so they never look like blank documents of the patient.
+  const all = list.data ?? [];
+  const uploads = all.filter((u) => u.status === "ready");
+  const notKept = all.filter((u) => u.status !== "ready");
   const fileUrl = (u: UploadDto, inline = false) => `/api/patients/${patientId}/uploads/${u.id}/file${inline ? "?inline=1" : ""}`;
 
   return (
@@ -108,7 +116,7 @@ export function UploadsPanel({ patientId, initial, canRemove }: { patientId: str
         <p className="max-w-prose">{t("intro")}</p>
       </section>
 
-      <Card>
+      {readOnly ? null : <Card>
         <form onSubmit={submit} noValidate className="flex max-w-xl flex-col gap-4" aria-labelledby="uploads-add">
           <h3 id="uploads-add" className="text-xl font-bold">
             {t("add")}
@@ -148,7 +156,7 @@ export function UploadsPanel({ patientId, initial, canRemove }: { patientId: str
             </Button>
           </div>
         </form>
-      </Card>
+      </Card>}
 
       <p role="status" className="font-bold" data-testid="upload-status">
         {status}
@@ -189,15 +197,10 @@ export function UploadsPanel({ patientId, initial, canRemove }: { patientId: str
                 <span className="tabular">{t("added", { date: format.dateTime(new Date(u.createdAt), { dateStyle: "medium", timeStyle: "short" }) })}</span>
                 {u.uploadedByName ? <> {t("addedBy", { name: u.uploadedByName })}</> : null}
               </p>
-              {u.status !== "ready" ? (
-                <p className="text-sm font-bold text-level-urgent-ink">{u.status === "rejected" ? t("rejected") : t("pending")}</p>
-              ) : null}
               <div className="mt-auto flex flex-wrap gap-2">
-                {u.status === "ready" ? (
-                  <a href={fileUrl(u)} className={buttonClass("secondary")} download>
-                    {t("download")}
-                  </a>
-                ) : null}
+                <a href={fileUrl(u)} className={buttonClass("secondary")} download>
+                  {t("download")}
+                </a>
                 {canRemove ? (
                   <Button variant="quiet" onClick={() => setConfirmId(u.id)} disabled={remove.isPending} data-testid="upload-remove">
                     {t("remove")}
@@ -231,6 +234,25 @@ export function UploadsPanel({ patientId, initial, canRemove }: { patientId: str
         </ul>
         {remove.isError ? <ErrorAlert message={t("removeFailed")} testId="upload-remove-error" /> : null}
       </section>
+
+      {notKept.length ? (
+        <details className="rounded-card border border-stone-faint bg-paper-sunk p-4" data-testid="uploads-not-kept">
+          <summary className="cursor-pointer font-bold">{t("notKeptTitle", { count: notKept.length })}</summary>
+          <p className="mt-2 text-sm text-ink-soft">{t("notKeptIntro")}</p>
+          <ul className="mt-2 flex flex-col gap-2">
+            {notKept.map((u) => (
+              <li key={u.id} className="flex flex-wrap items-baseline gap-x-3 gap-y-1" data-testid="upload-not-kept">
+                <span className="font-bold">{u.label}</span>
+                <span className="text-sm font-bold text-level-urgent-ink">{u.status === "rejected" ? t("rejected") : t("pending")}</span>
+                <span className="tabular text-sm text-ink-soft">
+                  {t("added", { date: format.dateTime(new Date(u.createdAt), { dateStyle: "medium", timeStyle: "short" }) })}
+                  {u.uploadedByName ? <> {t("addedBy", { name: u.uploadedByName })}</> : null}
+                </span>
+              </li>
+            ))}
+          </ul>
+        </details>
+      ) : null}
     </div>
   );
 }

@@ -26,7 +26,17 @@ export function VisitAccessForm({ token }: { token: string }) {
       const res = await apiFetch<{ patientId: string }>("/api/visit-access", { method: "POST", body: values });
       window.location.assign(`/${locale}/patients/${res.patientId}`);
     } catch (e) {
-      failure.fail(e, (error) => (error.status === 404 ? t("errors.invalid") : error.status === 429 ? t("errors.limited") : error.fields.reason ? null : t("errors.failed")));
+      failure.fail(e, (error) =>
+        error.fields.token?.includes("check_code")
+          ? t("errors.check_code")
+          : error.status === 404
+            ? t("errors.invalid")
+            : error.status === 429
+              ? t("errors.limited")
+              : error.fields.reason
+                ? null
+                : t("errors.failed"),
+      );
     }
   });
   return (

@@ -4,7 +4,7 @@ import "server-only";
 // whatever the page size (tests/integration/caseload-scale.test.ts counts the queries).
 import { sql, type SQL } from "drizzle-orm";
 import { db, type Executor } from "@/db";
-import { PLAN_DEFAULTS, parseIsoDate, stateFor, worseState, type CaseloadState } from "@/lib/clinical";
+import { parseIsoDate, stateFor, worseState, type CaseloadState } from "@/lib/clinical";
 import { deploymentTimeZone, todayIso } from "@/lib/shared/time-zone";
 import type { CaseloadFilter, CaseloadQuery, CaseloadSort, CaseloadView } from "@/lib/validations/caseload";
 
@@ -32,10 +32,7 @@ export type CaseloadRow = {
   awaitingTwoc: boolean;
 };
 
-export type CaseloadPage = { rows: CaseloadRow[]; total: number; page: number; pageSize: number; today: string };
-
-/** Due soon = from today to this many days ahead (today counts), as in lib/clinical planDates. */
-export const DUE_SOON_DAYS = PLAN_DEFAULTS.dueSoonDays.value;
+export type CaseloadPage = { rows: CaseloadRow[]; total: number; page: number; pageSize: number; today: string; dueSoonDays: number };
 
 type RawRow = {
   total: number;
@@ -58,15 +55,15 @@ function likePattern(q: string): string {
   return `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
 }
 
-function filterCondition(filter: CaseloadFilter | undefined, today: string): SQL {
+function filterCondition(filter: CaseloadFilter | undefined, today: string, dueSoonDays: number): SQL {
   // The states compare the stored planDates dates with today, as stateFor does: overdue once a
-  // date has passed; due within 7 days from today to today + 7 (either date).
+  // date has passed; due soon from today to today + dueSoonDays (either date).
   switch (filter) {
     case "overdue":
       return sql`and (f.planned_change_on < ${today}::date or f.review_due_on < ${today}::date)`;
     case "due-soon":
-      return sql`and (f.planned_change_on between ${today}::date and ${today}::date + ${DUE_SOON_DAYS}::int
-        or f.review_due_on between ${today}::date and ${today}::date + ${DUE_SOON_DAYS}::int)`;
+      return sql`and (f.planned_change_on between ${today}::date and ${today}::date + ${dueSoonDays}::int
+        or f.review_due_on between ${today}::date and ${today}::date + ${dueSoonDays}::int)`;
     case "urgent":
       return sql`and f.latest_check_in_level in ('urgent', 'emergency')`;
     case "twoc":
@@ -98,6 +95,7 @@ function caseloadStatement({
   organisationIds,
   view,
   today,
+  dueSoonDays,
   timeZone,
   limit,
   offset,
@@ -105,6 +103,7 @@ function caseloadStatement({
   organisationIds: string[];
   view: CaseloadView;
   today: string;
+  dueSoonDays: number;
   timeZone: string;
   limit: number | null;
   offset: number;
@@ -129,7 +128,7 @@ function caseloadStatement({
         and exists (select 1 from care_team ct where ct.patient_id = p.id and ct.organisation_id = any(${orgs}))
     ),
     filtered as (
-      select f.* from f where true ${search} ${filterCondition(view.filter, today)}
+      select f.* from f where true ${search} ${filterCondition(view.filter, today, dueSoonDays)}
     ),
     counted as (select count(*)::int as total from filtered)
     select counted.total, pg.* from counted
@@ -148,9 +147,9 @@ function caseloadStatement({
     ) pg on true`;
 }
 
-function toRow(r: RawRow, today: string): CaseloadRow {
+function toRow(r: RawRow, today: string, dueSoonDays: number): CaseloadRow {
   const todayDay = parseIsoDate("today", today);
-  const dateState = (d: string | null) => (d ? stateFor(parseIsoDate("date", d) - todayDay, DUE_SOON_DAYS) : null);
+  const dateState = (d: string | null) => (d ? stateFor(parseIsoDate("date", d) - todayDay, dueSoonDays) : null);
   const changeState = dateState(r.planned_change_on);
   const reviewState = dateState(r.review_due_on);
   return {
@@ -174,30 +173,35 @@ function toRow(r: RawRow, today: string): CaseloadRow {
   };
 }
 
-async function run(statement: SQL, today: string, tx: Executor) {
+async function run(statement: SQL, today: string, dueSoonDays: number, tx: Executor) {
   const result = await tx.execute<RawRow>(statement);
   const total = result.rows[0]?.total ?? 0;
-  const rows = result.rows.filter((r) => r.patient_id !== null).map((r) => toRow(r, today));
+  const rows = result.rows.filter((r) => r.patient_id !== null).map((r) => toRow(r, today, dueSoonDays));
   return { rows, total };
 }
 
-/** One page of the caseload, with the total of the filtered set. One query. */
+/**
+ * One page of the caseload, with the total of the filtered set. One query. `dueSoonDays` is the
+ * deployment's window (lib/config/settings getPlanDefaults), passed in so the page stays one query.
+ */
 export async function listCaseload(
-  { organisationIds, query, today = todayIso() }: { organisationIds: string[]; query: CaseloadQuery; today?: string },
+  { organisationIds, query, dueSoonDays, today = todayIso() }: { organisationIds: string[]; query: CaseloadQuery; dueSoonDays: number; today?: string },
   tx: Executor = db,
 ): Promise<CaseloadPage> {
-  const base = { page: query.page, pageSize: query.pageSize, today };
+  const base = { page: query.page, pageSize: query.pageSize, today, dueSoonDays };
   if (organisationIds.length === 0) return { rows: [], total: 0, ...base };
   const { rows, total } = await run(
     caseloadStatement({
       organisationIds,
       view: query,
       today,
+      dueSoonDays,
       timeZone: deploymentTimeZone(),
       limit: query.pageSize,
       offset: (query.page - 1) * query.pageSize,
     }),
     today,
+    dueSoonDays,
     tx,
   );
   return { rows, total, ...base };
@@ -205,13 +209,20 @@ export async function listCaseload(
 
 /** Every row of the filtered view, in the same order (for the CSV export). One query. */
 export async function listCaseloadAll(
-  { organisationIds, view, today = todayIso(), max = 50_000 }: { organisationIds: string[]; view: CaseloadView; today?: string; max?: number },
+  {
+    organisationIds,
+    view,
+    dueSoonDays,
+    today = todayIso(),
+    max = 50_000,
+  }: { organisationIds: string[]; view: CaseloadView; dueSoonDays: number; today?: string; max?: number },
   tx: Executor = db,
 ): Promise<{ rows: CaseloadRow[]; total: number; today: string }> {
   if (organisationIds.length === 0) return { rows: [], total: 0, today };
   const { rows, total } = await run(
-    caseloadStatement({ organisationIds, view, today, timeZone: deploymentTimeZone(), limit: max, offset: 0 }),
+    caseloadStatement({ organisationIds, view, today, dueSoonDays, timeZone: deploymentTimeZone(), limit: max, offset: 0 }),
     today,
+    dueSoonDays,
     tx,
   );
   return { rows, total, today };

@@ -1,7 +1,7 @@
 import "server-only";
 // The staff view of what the patient or carer reported: recent check-ins, and the drinks-and-
 // drainage diary of the last days with each day's totals from lib/clinical fluidBalance.
-import { and, desc, eq, gte } from "drizzle-orm";
+import { and, desc, eq, gte, sql } from "drizzle-orm";
 import { db, type Executor } from "@/db";
 import { checkIns, diaryEntries, user } from "@/db/schema";
 import { fluidBalance, type FluidBalance } from "@/lib/clinical";
@@ -9,7 +9,10 @@ import { dayIn, lastDays, utcOffsetMinutes } from "@/lib/shared/time-zone";
 
 export type StaffCheckIn = {
   id: string;
+  /** When it was answered (on an offline phone, earlier than it reached us). */
   at: string;
+  /** When it reached the server, when that was more than 5 minutes after it was answered. */
+  receivedLaterAt: string | null;
   level: (typeof checkIns.$inferSelect)["level"];
   ruleIds: string[];
   answers: Record<string, unknown>;
@@ -26,11 +29,12 @@ export async function listRecentCheckIns({ patientId, limit = 20 }: { patientId:
     .from(checkIns)
     .leftJoin(user, eq(user.id, checkIns.reportedByUserId))
     .where(eq(checkIns.patientId, patientId))
-    .orderBy(desc(checkIns.createdAt))
+    .orderBy(desc(sql`coalesce(${checkIns.answeredAt}, ${checkIns.createdAt})`), desc(checkIns.createdAt))
     .limit(limit);
   return rows.map(({ c, name, role }) => ({
     id: c.id,
-    at: c.createdAt.toISOString(),
+    at: (c.answeredAt ?? c.createdAt).toISOString(),
+    receivedLaterAt: c.answeredAt && c.createdAt.getTime() - c.answeredAt.getTime() > 5 * 60_000 ? c.createdAt.toISOString() : null,
     level: c.level,
     ruleIds: c.ruleIds,
     answers: c.answers ?? {},

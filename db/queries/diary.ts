@@ -9,6 +9,8 @@ export type DiaryEntryDto = {
   kind: "in" | "out";
   volumeMl: number;
   at: string;
+  /** The phone's key for it, so the phone can match a sent entry with the one it queued. */
+  clientKey: string | null;
   /** Added by the viewer and still within the time it may be removed. */
   removable: boolean;
 };
@@ -18,15 +20,21 @@ export function canRemove(row: Pick<DiaryEntry, "recordedByUserId" | "createdAt"
 }
 
 export function toDiaryDto(row: DiaryEntry, userId: string): DiaryEntryDto {
-  return { id: row.id, kind: row.kind, volumeMl: row.volumeMl, at: row.at.toISOString(), removable: canRemove(row, userId) };
+  return { id: row.id, kind: row.kind, volumeMl: row.volumeMl, at: row.at.toISOString(), clientKey: row.clientKey, removable: canRemove(row, userId) };
 }
 
+/** Adds the entry; with a client key already used, adds nothing and answers null. */
 export async function addDiaryEntry(
-  values: { patientId: string; kind: "in" | "out"; volumeMl: number; at: Date; recordedByUserId: string },
+  values: { patientId: string; kind: "in" | "out"; volumeMl: number; at: Date; recordedByUserId: string; clientKey?: string },
   tx: Executor = db,
 ) {
-  const [row] = await tx.insert(diaryEntries).values(values).returning();
-  return row;
+  const [row] = await tx.insert(diaryEntries).values(values).onConflictDoNothing({ target: diaryEntries.clientKey }).returning();
+  return row ?? null;
+}
+
+export async function getDiaryEntryByClientKey({ clientKey }: { clientKey: string }, tx: Executor = db) {
+  const [row] = await tx.select().from(diaryEntries).where(eq(diaryEntries.clientKey, clientKey));
+  return row ?? null;
 }
 
 export async function listDiaryEntries({ patientId, from, to }: { patientId: string; from: Date; to: Date }, tx: Executor = db) {

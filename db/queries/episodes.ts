@@ -3,6 +3,7 @@ import "server-only";
 // opened with the access check, so a record and its audit event commit or fail together.
 import { and, desc, eq, inArray, isNull } from "drizzle-orm";
 import { db, type Executor } from "@/db";
+import type { AllergyAnswers } from "@/lib/clinical";
 import {
   careTeam,
   catheterEpisodes,
@@ -18,7 +19,7 @@ export type PatientForRecording = {
   name: string;
   sex: "female" | "male" | "other" | "unknown";
   dateOfBirth: string;
-  allergies: { latex: boolean; chlorhexidine: boolean; lidocaine: boolean; other: string | null };
+  allergies: AllergyAnswers & { other: string | null };
   closed: boolean;
 };
 

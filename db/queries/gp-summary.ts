@@ -4,6 +4,7 @@ import "server-only";
 // rows, so the e-mail and its attachment agree.
 import { and, asc, eq, isNull } from "drizzle-orm";
 import { db, type Executor } from "@/db";
+import type { AllergyAnswers } from "@/lib/clinical";
 import {
   careTeam,
   catheterEpisodes,
@@ -54,7 +55,7 @@ export type GpSummaryFacts = {
     name: string;
     dateOfBirth: string;
     healthRecordNumber: string;
-    allergies: { latex: boolean; chlorhexidine: boolean; lidocaine: boolean; other: string | null };
+    allergies: AllergyAnswers & { other: string | null };
   };
   gp: { id: string; name: string; inboxEmail: string | null; locale: string } | null;
   careTeam: { name: string; phone: string | null; outOfHoursPhone: string | null }[];

@@ -1,7 +1,7 @@
 import "server-only";
-import { count, eq, inArray, sql } from "drizzle-orm";
+import { and, count, eq, inArray, isNull, sql } from "drizzle-orm";
 import { db, type Executor } from "@/db";
-import { memberships, organisations, type NewOrganisation } from "@/db/schema";
+import { memberships, organisations, user, type NewOrganisation } from "@/db/schema";
 
 export type OrganisationSummary = {
   id: string;
@@ -24,10 +24,12 @@ export async function listOrganisationsManagedBy({ organisationIds }: { organisa
       parentName: organisations.parentName,
       phone: organisations.phone,
       inboxEmail: organisations.inboxEmail,
-      staffCount: count(memberships.id),
+      // Active staff only: a deactivated account still has its memberships (for the record) but is nobody's colleague.
+      staffCount: count(user.id),
     })
     .from(organisations)
     .leftJoin(memberships, eq(memberships.organisationId, organisations.id))
+    .leftJoin(user, and(eq(user.id, memberships.userId), isNull(user.deactivatedAt)))
     .where(inArray(organisations.id, organisationIds))
     .groupBy(organisations.id)
     .orderBy(organisations.name);

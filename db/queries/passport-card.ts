@@ -4,6 +4,7 @@ import "server-only";
 // stays quick under load.
 import { and, desc, eq, isNull, sql } from "drizzle-orm";
 import { db, type Executor } from "@/db";
+import type { AllergyAnswers } from "@/lib/clinical";
 import { careTeam, catheterEpisodes, organisations, patients, visitAccess } from "@/db/schema";
 
 export type DeviceCard = {
@@ -20,7 +21,7 @@ export type DeviceCard = {
     plannedChangeOn: string;
   } | null;
   /** Only the allergies that matter for a catheter and its gel. */
-  allergies: { latex: boolean; chlorhexidine: boolean; lidocaine: boolean };
+  allergies: AllergyAnswers;
   careTeam: { phone: string | null; outOfHoursPhone: string | null } | null;
 };
 

@@ -3,6 +3,8 @@ import "server-only";
 // one-transaction reissue. Access checks happen before these are called.
 import { and, asc, desc, eq, isNull, max, sql } from "drizzle-orm";
 import { db, type Executor } from "@/db";
+import type { AllergyAnswers } from "@/lib/clinical";
+import { getSettings } from "@/lib/config/settings";
 import {
   careTeam,
   catheterEpisodes,
@@ -10,7 +12,6 @@ import {
   organisations,
   passports,
   patients,
-  settings,
   user,
   type Passport,
 } from "@/db/schema";
@@ -140,7 +141,7 @@ export type BookletRecord = {
     dateOfBirth: string;
     healthRecordNumber: string;
     preferredLocale: string;
-    allergies: { latex: boolean; chlorhexidine: boolean; lidocaine: boolean; other: string | null };
+    allergies: AllergyAnswers & { other: string | null };
   };
   currentEpisode: (typeof catheterEpisodes.$inferSelect & { organisationName: string | null }) | null;
   episodes: { id: string; sizeCh: number; material: (typeof catheterEpisodes.$inferSelect)["material"]; lot: string | null }[];
@@ -159,16 +160,10 @@ export type BookletRecord = {
   settings: { emergencyNumber: string | null; outOfHoursServiceName: string | null };
 };
 
-function settingString(value: unknown): string | null {
-  if (typeof value === "string" && value.trim()) return value.trim();
-  if (typeof value === "number") return String(value);
-  return null;
-}
-
 export async function getBookletRecord({ patientId }: { patientId: string }, tx: Executor = db): Promise<BookletRecord | null> {
   const [p] = await tx.select().from(patients).where(eq(patients.id, patientId));
   if (!p) return null;
-  const [current, episodes, events, teams, gpRows, settingRows] = await Promise.all([
+  const [current, episodes, events, teams, gpRows, deployment] = await Promise.all([
     tx
       .select({ episode: catheterEpisodes, organisationName: organisations.name })
       .from(catheterEpisodes)
@@ -207,9 +202,8 @@ export async function getBookletRecord({ patientId }: { patientId: string }, tx:
           .from(organisations)
           .where(eq(organisations.id, p.gpPracticeId))
       : Promise.resolve([]),
-    tx.select({ key: settings.key, value: settings.value }).from(settings),
+    getSettings(tx),
   ]);
-  const setting = (key: string) => settingString(settingRows.find((r) => r.key === key)?.value);
   return {
     patient: {
       givenName: p.givenName,
@@ -224,6 +218,6 @@ export async function getBookletRecord({ patientId }: { patientId: string }, tx:
     events: events.map((e) => ({ ...e, twocOutcome: e.twocOutcome ?? null })),
     careTeams: teams,
     gp: gpRows[0] ?? null,
-    settings: { emergencyNumber: setting("emergencyNumber"), outOfHoursServiceName: setting("outOfHoursServiceName") },
+    settings: { emergencyNumber: deployment.emergencyNumber, outOfHoursServiceName: deployment.outOfHoursServiceName },
   };
 }

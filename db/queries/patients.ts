@@ -4,6 +4,7 @@ import "server-only";
 import { and, asc, desc, eq, inArray, isNull } from "drizzle-orm";
 import { db, type Executor } from "@/db";
 import { careTeam, catheterEpisodes, organisations, patients, type CatheterEpisode, type Patient } from "@/db/schema";
+import type { AllergyAnswers } from "@/lib/clinical";
 import { AppError, pgConstraint, toAppError } from "@/lib/http/errors";
 import type { PatientUpdateValues, PatientValues } from "@/lib/validations/patient";
 
@@ -16,7 +17,7 @@ export type PatientDetails = {
   sex: Patient["sex"];
   preferredLocale: string;
   weightKg: number | null;
-  allergies: { latex: boolean; chlorhexidine: boolean; lidocaine: boolean; other: string | null };
+  allergies: PatientAllergies;
   gpPractice: { id: string; name: string; phone: string | null } | null;
   careTeam: { id: string; name: string; kind: string; phone: string | null }[];
   fluidLimitMl: number | null;
@@ -37,8 +38,10 @@ export type CurrentEpisode = Omit<
 
 export type PatientRecord = { patient: PatientDetails; currentEpisode: CurrentEpisode | null };
 
+export type PatientAllergies = AllergyAnswers & { other: string | null };
+
 export function hasAnyAllergy(a: PatientDetails["allergies"]): boolean {
-  return a.latex || a.chlorhexidine || a.lidocaine || Boolean(a.other);
+  return a.latex === "yes" || a.chlorhexidine === "yes" || a.lidocaine === "yes" || Boolean(a.other);
 }
 
 function toDetails(
@@ -79,6 +82,12 @@ function toEpisode(e: CatheterEpisode): CurrentEpisode {
     findings: Array.isArray(findings) ? (findings as CurrentEpisode["findings"]) : [],
     overrides: Array.isArray(overrides) ? overrides : [],
   };
+}
+
+/** When the record was closed, or null while it is open. */
+export async function getRecordClosedAt({ patientId }: { patientId: string }, tx: Executor = db): Promise<Date | null> {
+  const [row] = await tx.select({ closedAt: patients.closedAt }).from(patients).where(eq(patients.id, patientId));
+  return row?.closedAt ?? null;
 }
 
 /** The patient's details, care team, GP practice and the catheter in place (if any). */

@@ -1,5 +1,5 @@
 import "server-only";
-import { and, desc, eq, inArray, isNull } from "drizzle-orm";
+import { and, desc, eq, inArray, isNull, sql } from "drizzle-orm";
 import { db } from "@/db";
 import { careTeam, catheterEpisodes, checkIns, organisations, patients } from "@/db/schema";
 
@@ -20,12 +20,14 @@ export async function getTodaySummary({ patientId }: { patientId: string }) {
     })
     .from(catheterEpisodes)
     .where(and(eq(catheterEpisodes.patientId, patientId), isNull(catheterEpisodes.removedAt)));
-  const [lastCheckIn] = await db
-    .select({ level: checkIns.level, createdAt: checkIns.createdAt })
+  // The latest by when it was answered (an offline one may arrive after a newer one).
+  const [latest] = await db
+    .select({ level: checkIns.level, answeredAt: checkIns.answeredAt, createdAt: checkIns.createdAt })
     .from(checkIns)
     .where(eq(checkIns.patientId, patientId))
-    .orderBy(desc(checkIns.createdAt))
+    .orderBy(desc(sql`coalesce(${checkIns.answeredAt}, ${checkIns.createdAt})`))
     .limit(1);
+  const lastCheckIn = latest ? { level: latest.level, at: latest.answeredAt ?? latest.createdAt } : undefined;
   const team = await db
     .select({ name: organisations.name, phone: organisations.phone, outOfHoursPhone: organisations.outOfHoursPhone })
     .from(organisations)

@@ -1,7 +1,8 @@
 // Patients, their care team, carers and portal invitation codes.
 import { sql } from "drizzle-orm";
-import { boolean, check, date, index, integer, numeric, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { check, date, index, integer, numeric, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { user } from "./auth";
+import { ALLERGY_ANSWERS } from "../../lib/clinical/allergies";
 import { timestamps } from "./columns";
 import { organisations } from "./organisations";
 
@@ -23,9 +24,10 @@ export const patients = pgTable(
     preferredLocale: text("preferred_locale").notNull().default("en"),
     weightKg: numeric("weight_kg", { precision: 5, scale: 1, mode: "number" }),
     phone: text("phone"),
-    allergyLatex: boolean("allergy_latex").notNull().default(false),
-    allergyChlorhexidine: boolean("allergy_chlorhexidine").notNull().default(false),
-    allergyLidocaine: boolean("allergy_lidocaine").notNull().default(false),
+    // yes / no / not-asked: "not asked" (the default) is not "no", so the checks can warn.
+    allergyLatex: text("allergy_latex", { enum: ALLERGY_ANSWERS }).notNull().default("not-asked"),
+    allergyChlorhexidine: text("allergy_chlorhexidine", { enum: ALLERGY_ANSWERS }).notNull().default("not-asked"),
+    allergyLidocaine: text("allergy_lidocaine", { enum: ALLERGY_ANSWERS }).notNull().default("not-asked"),
     allergyOther: text("allergy_other"),
     gpPracticeId: uuid("gp_practice_id").references(() => organisations.id, { onDelete: "set null" }),
     // Set by the care team; when present the portal gives no drink-more advice.
@@ -42,6 +44,10 @@ export const patients = pgTable(
     index("patients_gp_idx").on(t.gpPracticeId),
     check("patients_weight_ck", sql`${t.weightKg} is null or (${t.weightKg} > 0 and ${t.weightKg} < 500)`),
     check("patients_fluid_limit_ck", sql`${t.fluidLimitMl} is null or ${t.fluidLimitMl} > 0`),
+    check(
+      "patients_allergy_answers_ck",
+      sql`${t.allergyLatex} in ('yes', 'no', 'not-asked') and ${t.allergyChlorhexidine} in ('yes', 'no', 'not-asked') and ${t.allergyLidocaine} in ('yes', 'no', 'not-asked')`,
+    ),
   ],
 );
 

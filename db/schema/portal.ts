@@ -39,6 +39,8 @@ export const diaryEntries = pgTable(
     volumeMl: integer("volume_ml").notNull(),
     at: timestamp("at", { withTimezone: true }).notNull(),
     recordedByUserId: text("recorded_by_user_id").references(() => user.id, { onDelete: "set null" }),
+    // Made on the phone with the entry: a resend from its offline queue is the same entry.
+    clientKey: uuid("client_key").unique(),
     ...timestamps,
   },
   (t) => [

@@ -6,7 +6,9 @@ import { timestamps } from "./columns";
 import { organisations } from "./organisations";
 import { patients } from "./patients";
 
-export const auditVia = ["care_team", "visit_access", "qr", "self", "carer", "admin", "system"] as const;
+import { AUDIT_VIA } from "../../lib/shared/audit-actions";
+
+export const auditVia = AUDIT_VIA;
 
 export const auditEvents = pgTable(
   "audit_events",

@@ -151,18 +151,21 @@ function splitElementString(text: string, errors: string[]): Gs1Element[] {
  */
 export function parseGs1(text: string, today?: DateInput): Gs1Result {
   const errors: string[] = [];
-  const result: Gs1Result = { elements: [], errors };
   if (typeof text !== "string" || text.trim() === "") {
     errors.push("nothing to read");
-    return result;
+    return { elements: [], errors };
   }
   let body = text.replace(/[\r\n]+$/, "").replace(/^\s+/, "");
   body = body.replace(SYMBOLOGY_PREFIX, "");
   // Bracket form only when the text does not start as an element string, so a "(" inside a lot is safe.
   const bracketed = /^\(\d{2,4}\)/.test(body) || (!/^[\d\u001d]/.test(body) && /\(\d{2,4}\)/.test(body));
   const elements = bracketed ? splitBracketed(body, errors) : splitElementString(body, errors);
-  result.elements = elements;
+  return interpret(elements, errors, today);
+}
 
+/** Checks each element (length, characters, check digit, dates) and fills the result from those that pass. */
+function interpret(elements: Gs1Element[], errors: string[], today?: DateInput): Gs1Result {
+  const result: Gs1Result = { elements, errors };
   for (const { ai, value } of elements) {
     const spec = GS1_AIS[ai];
     if (!spec) {
@@ -222,4 +225,75 @@ export function parseGs1(text: string, today?: DateInput): Gs1Result {
     }
   }
   return result;
+}
+
+/** Key qualifiers of a GTIN in a Digital Link path, in the order the standard allows them. */
+const DL_VALUE = /^(?:[A-Za-z0-9._-]|%(?:2[1256789AaBbCcFf]|3[AaBbCcDdEeFf]))*$/;
+const GTIN_QUALIFIERS = ["22", "10", "21"] as const;
+
+/**
+ * A GS1 Digital Link web address → the same result as an element string, with the same check
+ * digit, length and date rules. `https://<any domain>/[any path/]01/<gtin>[/22/<cpv>][/10/<lot>]
+ * [/21/<serial>][?17=<yymmdd>&…]`: numeric AI codes only (the alphabetic aliases were withdrawn
+ * in version 1.2); values percent-encoded; a GTIN-8, -12 or -13 is padded to 14 digits; query
+ * parameters that are not AI codes (such as linkType) are ignored.
+ * Source: GS1 Digital Link Standard: URI Syntax, release 1.2 (2021), sections 4 and 6 (from memory;
+ * cross-checked in tests against GS1's digital-link.js).
+ * Local policy, the maker's instructions and clinical judgement come first.
+ */
+export function parseGs1DigitalLink(uri: string, today?: DateInput): Gs1Result {
+  const errors: string[] = [];
+  const fail = (message: string): Gs1Result => ({ elements: [], errors: [...errors, message] });
+  const m = typeof uri === "string" ? /^https?:\/\/[^/?#\s]+(\/[^?#\s]*)?(?:\?([^#\s]*))?(?:#\S*)?$/i.exec(uri.trim()) : null;
+  if (!m) return fail("not a web address");
+  const segments = (m[1] ?? "").split("/").filter((s) => s !== "");
+  // Letters, digits, "-", "." and "_" as they are; every other character GS1 allows in a value
+  // percent-encoded (and nothing else encoded), as the standard's ABNF says.
+  const decode = (v: string): string | null => (DL_VALUE.test(v) ? decodeURIComponent(v) : null);
+  // The GTIN is the first "01" after which the rest of the path is qualifiers in order.
+  let path: Gs1Element[] | null = null;
+  for (let i = 0; i + 1 < segments.length && !path; i++) {
+    if (segments[i] !== "01") continue;
+    const rest = segments.slice(i + 2);
+    if (rest.length % 2 !== 0) continue;
+    const out: Gs1Element[] = [{ ai: "01", value: segments[i + 1] }];
+    let order = 0;
+    let ok = true;
+    for (let j = 0; j < rest.length && ok; j += 2) {
+      const at = GTIN_QUALIFIERS.indexOf(rest[j] as (typeof GTIN_QUALIFIERS)[number], order);
+      if (at < 0) ok = false;
+      else {
+        order = at + 1;
+        out.push({ ai: rest[j], value: rest[j + 1] });
+      }
+    }
+    if (ok) path = out;
+  }
+  if (!path) return fail("no GTIN (01) in the address, or its qualifiers are not 22, 10, 21 in that order");
+  const elements: Gs1Element[] = [];
+  for (const e of path) {
+    const value = decode(e.value);
+    if (value === null) return fail(`AI ${e.ai}: percent-encoding is broken or missing`);
+    elements.push({ ai: e.ai, value: e.ai === "01" && /^(\d{8}|\d{12}|\d{13})$/.test(value) ? value.padStart(14, "0") : value });
+  }
+  for (const pair of (m[2] ?? "").split("&").filter(Boolean)) {
+    const [k, v = ""] = pair.split("=");
+    if (!/^\d{2,4}$/.test(k)) continue; // linkType and other non-AI parameters
+    if (GTIN_QUALIFIERS.includes(k as (typeof GTIN_QUALIFIERS)[number]) || k === "01") {
+      errors.push(`AI ${k}: belongs in the path, not the query`);
+      continue;
+    }
+    const value = decode(v);
+    if (value === null) {
+      errors.push(`AI ${k}: percent-encoding is broken or missing`);
+      continue;
+    }
+    elements.push({ ai: k, value });
+  }
+  return interpret(elements, errors, today);
+}
+
+/** True when the text is a web address (a Digital Link candidate) rather than an element string. */
+export function isWebAddress(text: string): boolean {
+  return /^\s*https?:\/\//i.test(text);
 }

@@ -13,6 +13,7 @@ export * from "./size";
 export * from "./device-types";
 export * from "./device-check";
 export * from "./plan-dates";
+export * from "./allergies";
 export * from "./blockage";
 export * from "./supplies";
 export * from "./fluid";

@@ -56,6 +56,29 @@ export const PLAN_DEFAULTS = {
   dueSoonDays: { value: 7, source: "common-practice" },
 } as const satisfies Record<string, { value: number; source: SourceId }>;
 
+/** The planning values in force: the deployment's settings where set, else the rules' own defaults. */
+export interface PlanDefaults {
+  reviewIntervalDays: number;
+  dueSoonDays: number;
+  /** Change interval by material when the maker's maximum is not entered. */
+  maxDwellDays: Record<Material, number>;
+}
+
+/** Fills what the deployment did not set with the rules' defaults (PLAN_DEFAULTS, MATERIAL_SPECS). */
+export function planDefaults(options: Omit<PlanDatesOptions, "today"> = {}): PlanDefaults {
+  return {
+    reviewIntervalDays:
+      optionalNumber("options.reviewIntervalDays", options.reviewIntervalDays, 1, 366) ?? PLAN_DEFAULTS.reviewIntervalDays.value,
+    dueSoonDays: optionalNumber("dueSoonDays", options.dueSoonDays, 0, 90) ?? PLAN_DEFAULTS.dueSoonDays.value,
+    maxDwellDays: Object.fromEntries(
+      MATERIALS.map((m) => [
+        m,
+        optionalNumber(`options.defaultMaxDwellDays.${m}`, options.defaultMaxDwellDays?.[m], 1, 366) ?? MATERIAL_SPECS[m].defaultMaxDwellDays,
+      ]),
+    ) as Record<Material, number>,
+  };
+}
+
 const STATE_ORDER: Record<CaseloadState, number> = { ok: 0, "due-soon": 1, overdue: 2 };
 
 export function worseState(a: CaseloadState, b: CaseloadState): CaseloadState {
@@ -81,14 +104,10 @@ export function planDates(episode: Episode, options: PlanDatesOptions = {}): Pla
   const maker = optionalNumber("maxDwellDays", episode.maxDwellDays, 1, 366);
   const planned = optionalNumber("plannedIntervalDays", episode.plannedIntervalDays, 1, 366);
   const today = toDayNumber("today", options.today);
-  const dueSoon = optionalNumber("dueSoonDays", options.dueSoonDays, 0, 90) ?? PLAN_DEFAULTS.dueSoonDays.value;
-  const reviewInterval =
-    optionalNumber("reviewIntervalDays", episode.reviewIntervalDays, 1, 366) ??
-    optionalNumber("options.reviewIntervalDays", options.reviewIntervalDays, 1, 366) ??
-    PLAN_DEFAULTS.reviewIntervalDays.value;
-  const materialDefault =
-    optionalNumber(`options.defaultMaxDwellDays.${material}`, options.defaultMaxDwellDays?.[material], 1, 366) ??
-    MATERIAL_SPECS[material].defaultMaxDwellDays;
+  const defaults = planDefaults(options);
+  const dueSoon = defaults.dueSoonDays;
+  const reviewInterval = optionalNumber("reviewIntervalDays", episode.reviewIntervalDays, 1, 366) ?? defaults.reviewIntervalDays;
+  const materialDefault = defaults.maxDwellDays[material];
 
   let changeInterval = maker ?? materialDefault;
   let changeBasis: PlannedDate["basis"] = maker !== undefined ? "maker" : "material-default";

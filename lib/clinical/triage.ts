@@ -73,6 +73,8 @@ const ADVICE = {
   watchDrainage: { key: "watch-drainage", text: "Watch that urine keeps draining." },
   coverSite: { key: "cover-site", text: "Cover the hole with a clean dressing." },
   keepCatheter: { key: "keep-catheter", text: "Keep the catheter that came out to show the nurse." },
+  // common practice, no source: a catheter that came out is never pushed back in at home.
+  noReinsert: { key: "no-reinsert", text: "Do not try to put the catheter back in." },
   bowels: { key: "bowels", text: "Eat fibre and drink well. Ask about a laxative." },
   notAlone: { key: "not-alone", text: "Do not stay on your own if you can help it." },
 } as const satisfies Record<string, Phrase>;
@@ -135,13 +137,13 @@ export const TRIAGE_RULES: readonly TriageRule[] = [
   },
   {
     id: "TRIAGE-CATHETER-OUT-SUPRAPUBIC", level: "urgent", source: "common-practice",
-    reason: { key: "suprapubic-out", text: "Your tummy catheter came out. The hole can close fast." },
-    advice: [ADVICE.coverSite, ADVICE.keepCatheter], when: (a) => a.catheterOut === true && a.route === "suprapubic",
+    reason: { key: "suprapubic-out", text: "Your tummy catheter came out. The hole starts to close within hours. A nurse must put in a new one soon." },
+    advice: [ADVICE.noReinsert, ADVICE.coverSite, ADVICE.keepCatheter], when: (a) => a.catheterOut === true && a.route === "suprapubic",
   },
   {
     id: "TRIAGE-CATHETER-OUT", level: "urgent", source: "common-practice",
     reason: { key: "catheter-out", text: "Your catheter has come out." },
-    advice: [ADVICE.keepCatheter], when: (a) => a.catheterOut === true,
+    advice: [ADVICE.noReinsert, ADVICE.keepCatheter], when: (a) => a.catheterOut === true,
   },
   {
     id: "TRIAGE-FEVER", level: "urgent", source: "idsa-cauti-2010",

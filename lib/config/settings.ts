@@ -4,7 +4,7 @@ import "server-only";
 // says so (e.g. the portal says the emergency number is not configured).
 import type { Executor } from "@/db";
 import { readSettingRows, writeSettings } from "@/db/queries/settings";
-import { MATERIAL_SPECS, MATERIALS, PLAN_DEFAULTS, type Material, type PlanDatesOptions } from "@/lib/clinical";
+import { planDefaults, type Material, type PlanDatesOptions, type PlanDefaults } from "@/lib/clinical";
 import { settingKeys, settingSchemas, type SettingsPatch } from "@/lib/validations/settings";
 
 export type DeploymentSettings = {
@@ -59,13 +59,13 @@ export function planDatesOptions(s: DeploymentSettings, extra: PlanDatesOptions 
   };
 }
 
-/** The planning defaults a form starts from: the admin's settings over the rules' own. */
-export function planDefaultsFor(s: DeploymentSettings): { maxDwellDays: Record<Material, number>; reviewIntervalDays: number; dueSoonDays: number } {
-  return {
-    maxDwellDays: Object.fromEntries(MATERIALS.map((m) => [m, s.defaultMaxDwellDays[m] ?? MATERIAL_SPECS[m].defaultMaxDwellDays])) as Record<Material, number>,
-    reviewIntervalDays: s.reviewIntervalDays ?? PLAN_DEFAULTS.reviewIntervalDays.value,
-    dueSoonDays: s.dueSoonDays ?? PLAN_DEFAULTS.dueSoonDays.value,
-  };
+/**
+ * The planning values in force (review interval, due-soon window, change interval by material):
+ * what the admin set, else the rules' defaults. The one way episodes, the episode forms, the
+ * record, the caseload, the digest and the reminders learn them.
+ */
+export async function getPlanDefaults(tx?: Executor): Promise<PlanDefaults> {
+  return planDefaults(planDatesOptions(await getSettings(tx)));
 }
 
 /** Applies a validated change; returns the keys that changed (for the audit event). */

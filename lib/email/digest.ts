@@ -4,14 +4,13 @@ import "server-only";
 // caseload states, plus any message about their patients that could not be delivered.
 import { db, type Executor } from "@/db";
 import { listDigestOrganisations, listDueEpisodes, listFailedMessages } from "@/db/queries/digest";
-import { addDays, parseIsoDate, PLAN_DEFAULTS, stateFor } from "@/lib/clinical";
+import { addDays, parseIsoDate, stateFor } from "@/lib/clinical";
+import { getPlanDefaults } from "@/lib/config/settings";
 import { env } from "@/lib/config/env";
 import { dayIn } from "@/lib/shared/time-zone";
 import { emailDates, emailLocale, emailTranslator } from "./i18n";
 import { NO_RECIPIENT, queueMessage, type QueuedMessage } from "./outbox";
 import { renderEmail, type Block, type EmailContent } from "./render";
-
-const DUE_SOON_DAYS = PLAN_DEFAULTS.dueSoonDays.value;
 
 /** Today's calendar date in the deployment's time zone. */
 export function localToday(now = new Date(), timeZone = env.CADDIS_TIME_ZONE): string {
@@ -21,20 +20,21 @@ export function localToday(now = new Date(), timeZone = env.CADDIS_TIME_ZONE): s
 export type DigestLine = { patientId: string; name: string; healthRecordNumber: string; what: "change" | "review"; date: string; daysUntil: number };
 
 export async function digestLines({ organisationId, today }: { organisationId: string; today: string }, tx: Executor = db) {
-  const rows = await listDueEpisodes({ organisationId, until: addDays(today, DUE_SOON_DAYS) }, tx);
+  const { dueSoonDays } = await getPlanDefaults(tx);
+  const rows = await listDueEpisodes({ organisationId, until: addDays(today, dueSoonDays) }, tx);
   const todayN = parseIsoDate("today", today);
   const overdue: DigestLine[] = [];
   const due: DigestLine[] = [];
   for (const r of rows) {
     for (const [what, date] of [["change", r.plannedChangeOn], ["review", r.reviewDueOn]] as const) {
       const daysUntil = parseIsoDate("date", date) - todayN;
-      const state = stateFor(daysUntil, DUE_SOON_DAYS);
+      const state = stateFor(daysUntil, dueSoonDays);
       if (state === "ok") continue;
       (state === "overdue" ? overdue : due).push({ patientId: r.patientId, name: r.name, healthRecordNumber: r.healthRecordNumber, what, date, daysUntil });
     }
   }
   const byDate = (a: DigestLine, b: DigestLine) => a.daysUntil - b.daysUntil || a.name.localeCompare(b.name);
-  return { overdue: overdue.sort(byDate), due: due.sort(byDate) };
+  return { overdue: overdue.sort(byDate), due: due.sort(byDate), dueSoonDays };
 }
 
 function digestContent(
@@ -56,7 +56,7 @@ function digestContent(
   ];
   const blocks: Block[] = [{ type: "heading", text: t("digest.overdueHeading") }];
   blocks.push(lines.overdue.length ? { type: "table", head, rows: lines.overdue.map(row) } : { type: "paragraph", text: t("digest.none") });
-  blocks.push({ type: "heading", text: t("digest.dueHeading", { days: DUE_SOON_DAYS }) });
+  blocks.push({ type: "heading", text: t("digest.dueHeading", { days: lines.dueSoonDays }) });
   blocks.push(lines.due.length ? { type: "table", head, rows: lines.due.map(row) } : { type: "paragraph", text: t("digest.none") });
   if (failed.length) {
     blocks.push({ type: "heading", text: t("digest.failedHeading") });

@@ -8,6 +8,7 @@ import { loadGpSummaryFacts, type DeviceFacts, type GpSummaryCause, type GpSumma
 import { emailDates, emailLocale, emailTranslator, type EmailT } from "./i18n";
 import { queueMessage, type QueuedMessage } from "./outbox";
 import { renderEmail, type Block, type EmailContent } from "./render";
+import { allergySummary } from "@/lib/clinical/allergies";
 
 export type { GpSummaryCause, GpSummaryFacts };
 
@@ -44,14 +45,13 @@ function findingName(t: EmailT, code: string, message: string): string {
   return knownFindings.has(code) ? t(`enum.finding.${code as "device-expired"}`) : message || code;
 }
 
+/** The allergies, then those nobody has asked about ("not recorded"); "none recorded" only when all were asked. */
 export function allergyText(t: EmailT, a: GpSummaryFacts["patient"]["allergies"]): string {
-  const list = [
-    a.latex ? t("enum.allergy.latex") : null,
-    a.chlorhexidine ? t("enum.allergy.chlorhexidine") : null,
-    a.lidocaine ? t("enum.allergy.lidocaine") : null,
-    a.other?.trim() || null,
-  ].filter((x): x is string => !!x);
-  return list.length ? list.join(", ") : t("common.noneRecorded");
+  const { present, notRecorded } = allergySummary(a);
+  const list = [...present.map((k) => t(`enum.allergy.${k}`)), ...(a.other?.trim() ? [a.other.trim()] : [])];
+  const unknown = notRecorded.length ? t("gp.allergyNotRecorded", { allergens: notRecorded.map((k) => t(`enum.allergy.${k}`)).join(", ") }) : null;
+  if (!list.length && !unknown) return t("common.noneRecorded");
+  return [list.join(", "), unknown].filter(Boolean).join(". ");
 }
 
 export function deviceRows(t: EmailT, d: ReturnType<typeof emailDates>, dev: DeviceFacts, { dates }: { dates: boolean }) {

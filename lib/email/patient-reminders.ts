@@ -8,12 +8,16 @@ import { getCareTeamOrganisations } from "@/db/queries/mail-context";
 import { listChangeReminders } from "@/db/queries/reminders";
 import { addDays, parseIsoDate } from "@/lib/clinical";
 import { env } from "@/lib/config/env";
+import { getPlanDefaults } from "@/lib/config/settings";
 import { localToday } from "./digest";
 import { emailDates, emailLocale, emailTranslator } from "./i18n";
 import { queueMessage, type QueuedMessage } from "./outbox";
 import { renderEmail, type Block } from "./render";
 
-/** Days before the planned change that the reminder goes (common practice, no source). */
+/**
+ * Days before the planned change that the reminder goes (common practice, no source), never
+ * earlier than the care team's own due-soon window in Settings.
+ */
 export const REMINDER_DAYS_BEFORE = 3;
 /** A change overdue by longer than this is the care team's to chase (their digest lists it). */
 export const REMINDER_OVERDUE_DAYS = 7;
@@ -52,7 +56,9 @@ export async function queueChangeReminder(tx: Executor, row: ReminderRow, today:
 
 /** The scheduled job: every reminder due today, each in its own transaction. */
 export async function queueChangeReminders({ today = localToday() }: { today?: string } = {}) {
-  const rows = await listChangeReminders({ from: addDays(today, -REMINDER_OVERDUE_DAYS), until: addDays(today, REMINDER_DAYS_BEFORE) });
+  const { dueSoonDays } = await getPlanDefaults();
+  const ahead = Math.min(REMINDER_DAYS_BEFORE, dueSoonDays);
+  const rows = await listChangeReminders({ from: addDays(today, -REMINDER_OVERDUE_DAYS), until: addDays(today, ahead) });
   let queued = 0;
   for (const row of rows) {
     const r = await db.transaction((tx) => queueChangeReminder(tx, row, today));

@@ -3,11 +3,17 @@ import "server-only";
 // field error (not only the first).
 import type { z } from "zod";
 import { AppError } from "@/lib/http/errors";
+import { controlCharacterPaths } from "@/lib/validations/text";
 
 export function parseInput<S extends z.ZodType>(schema: S, data: unknown): z.infer<S> {
+  // Control characters (NUL above all: PostgreSQL refuses it) are refused in every field of every
+  // input, whatever its schema says, with the field's path, beside the schema's own errors.
+  const controls = controlCharacterPaths(data);
   const result = schema.safeParse(data);
-  if (!result.success) throw AppError.fromZod(result.error);
-  return result.data;
+  if (result.success && !controls.length) return result.data;
+  const fields: Record<string, string[]> = result.success ? {} : { ...AppError.fromZod(result.error).fields };
+  for (const path of controls) fields[path] = ["control_character", ...(fields[path] ?? []).filter((c) => c !== "control_character")];
+  throw new AppError("validation_failed", undefined, { fields });
 }
 
 /** Reads a JSON body (at most maxBytes) and parses it with the schema. */

@@ -14,6 +14,7 @@ import {
 } from "@/db/queries/passports";
 import { getPatientForInvite } from "@/db/queries/invitations";
 import { audit } from "@/lib/records/audit";
+import { assertRecordOpen, writeRecord } from "@/lib/records/record-state";
 import type { Viewer } from "@/lib/auth/session";
 import { charriereToMm } from "@/lib/clinical";
 import { queueGpSummary } from "@/lib/email/gp-summary";
@@ -75,7 +76,7 @@ export async function findPassportByToken(token: string): Promise<FoundPassport 
 
 /** The same for the short code a visiting clinician types (callers must rate-limit it). */
 export async function findPassportByShortCode(code: string): Promise<FoundPassport | null> {
-  if (typeof code !== "string" || !isWellFormedShortCode(code)) return null;
+  if (typeof code !== "string" || !isWellFormedShortCode(code)) return null; // a typo (readShortCode) or not a code
   const hash = hashShortCode(code);
   const row = await findPassportRowByShortCodeHash({ shortCodeHash: hash });
   if (!row || !hashesEqual(row.shortCodeHash, hash) || row.revokedAt) return null;
@@ -204,6 +205,8 @@ export async function issuePassport({
 }): Promise<IssuedPassport> {
   const record = await getBookletRecord({ patientId });
   if (!record) throw new AppError("not_found");
+  // Checked before the booklet is rendered, and again in the issuing transaction.
+  await assertRecordOpen(db, patientId);
   let activation: PatientActivation | null = null;
   if (withActivationCode) {
     if ((via ?? "care_team") !== "care_team") {
@@ -236,7 +239,7 @@ export async function issuePassport({
   const key = passportPdfKey({ patientId, passportId });
   await putObject({ key, body: pdf, contentType: "application/pdf" });
   try {
-    const result = await db.transaction(async (tx) => {
+    const result = await writeRecord(patientId, async (tx) => {
       const replaced = await replacePassport(
         {
           id: passportId,

@@ -4,6 +4,7 @@ import "server-only";
 // catalogue namespace; right-to-left columns get direction "rtl" and right alignment.
 import { Document, Image, Page, Path, Rect, StyleSheet, Svg, Text, View } from "@react-pdf/renderer";
 import type { ReactNode } from "react";
+import { allergySummary, type AllergyAnswers } from "@/lib/clinical";
 import { PDF_FONT_FAMILY } from "./fonts";
 import { pdfStrings, type PdfStrings } from "./messages";
 
@@ -65,7 +66,7 @@ export type PassportBookletData = {
     /** YYYY-MM-DD */
     dateOfBirth: string;
     healthRecordNumber: string;
-    allergies: { latex: boolean; chlorhexidine: boolean; lidocaine: boolean; other: string | null };
+    allergies: AllergyAnswers & { other: string | null };
   };
   device: BookletDevice | null;
   history: BookletEvent[];
@@ -222,16 +223,19 @@ function Footer({ all }: { all: PdfStrings[] }) {
 }
 
 function allergyList(s: PdfStrings, a: PassportBookletData["patient"]["allergies"]): string[] {
-  const out: string[] = [];
-  if (a.latex) out.push(s.t("allergy.latex"));
-  if (a.chlorhexidine) out.push(s.t("allergy.chlorhexidine"));
-  if (a.lidocaine) out.push(s.t("allergy.lidocaine"));
+  const out = allergySummary(a).present.map((k) => s.t(`allergy.${k}`));
   if (a.other?.trim()) out.push(`${s.t("allergy.other")}: ${a.other.trim()}`);
   return out;
 }
 
+/** "Not recorded, ask first: Latex" for the allergens nobody has asked about, or null. */
+function notRecordedLine(s: PdfStrings, a: PassportBookletData["patient"]["allergies"]): string | null {
+  const unknown = allergySummary(a).notRecorded.map((k) => s.t(`allergy.${k}`));
+  return unknown.length ? s.t("allergyNotRecorded", { allergens: unknown.join(s.rtl ? "، " : ", ") }) : null;
+}
+
 function AllergyBox({ all, data }: { all: PdfStrings[]; data: PassportBookletData }) {
-  const any = allergyList(all[0], data.patient.allergies).length > 0;
+  const any = allergyList(all[0], data.patient.allergies).length > 0 || notRecordedLine(all[0], data.patient.allergies) !== null;
   return (
     <View
       wrap={false}
@@ -243,11 +247,17 @@ function AllergyBox({ all, data }: { all: PdfStrings[]; data: PassportBookletDat
       <Columns all={all}>
         {(s) => {
           const items = allergyList(s, data.patient.allergies);
+          const unknown = notRecordedLine(s, data.patient.allergies);
           return (
             <View>
               <T s={s} style={{ fontSize: 11, fontWeight: 700, color: any ? colour.emergency : colour.ink }}>
                 {s.t("allergiesTitle")}
               </T>
+              {unknown ? (
+                <T s={s} style={{ fontSize: 11, fontWeight: 700 }}>
+                  {unknown}
+                </T>
+              ) : null}
               {items.length ? (
                 <>
                   <T s={s} style={{ fontSize: 13, fontWeight: 700 }}>
@@ -257,7 +267,7 @@ function AllergyBox({ all, data }: { all: PdfStrings[]; data: PassportBookletDat
                     {s.t("allergyCheck")}
                   </T>
                 </>
-              ) : (
+              ) : unknown ? null : (
                 <T s={s}>{s.t("noAllergies")}</T>
               )}
             </View>

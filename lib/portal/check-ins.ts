@@ -4,17 +4,15 @@ import "server-only";
 // emergency results alerts the care team, all in one transaction. The idempotency key makes a
 // resend (an offline phone, a double tap) return the first result without a second row.
 import { getActiveRoute, getCheckInByKey, insertCheckIn, setLatestCheckIn, toCheckInDto, type CheckInDto } from "@/db/queries/check-ins";
-import { db, type Executor } from "@/db";
+import type { Executor } from "@/db";
 import type { PatientAccessVia } from "@/db/queries/access";
 import { TRIAGE_RULES, type TriageLevel } from "@/lib/clinical";
 import { scoreAnswers, type SubmittedAnswers } from "@/lib/shared/check-in-flow";
 import { audit } from "@/lib/records/audit";
+import { writeRecord } from "@/lib/records/record-state";
 import { queueCareTeamAlert } from "@/lib/email/care-team-alert";
 import type { Viewer } from "@/lib/auth/session";
 import { AppError } from "@/lib/http/errors";
-
-const ANSWERED_AT_PAST_DAYS = 7;
-const ANSWERED_AT_FUTURE_MINUTES = 10;
 
 export type SubmitResult = { created: boolean; checkIn: CheckInDto; reasons: { ruleId: string; key: string; text: string }[] };
 
@@ -36,11 +34,8 @@ export async function submitCheckIn({
   request: Request;
 }): Promise<SubmitResult> {
   const now = Date.now();
-  let answered: Date | null = answeredAt ? new Date(answeredAt) : null;
-  // A phone clock far off is not believed: keep the arrival time instead.
-  if (answered && (answered.getTime() > now + ANSWERED_AT_FUTURE_MINUTES * 60_000 || answered.getTime() < now - ANSWERED_AT_PAST_DAYS * 86_400_000)) {
-    answered = null;
-  }
+  // Bounded by the schema (lib/validations/entry-time.ts): within the last 7 days, not ahead.
+  const answered: Date | null = answeredAt ? new Date(answeredAt) : null;
 
   const route = await getActiveRoute({ patientId });
   const scored = scoreAnswers(answers, route);
@@ -51,7 +46,7 @@ export async function submitCheckIn({
   }
   const { result } = scored;
 
-  return db.transaction(async (tx) => {
+  return writeRecord(patientId, async (tx) => {
     const row = await insertCheckIn(
       { patientId, reportedByUserId: viewer.userId, answers, level: result.level, ruleIds: result.ruleIds, idempotencyKey, answeredAt: answered },
       tx,

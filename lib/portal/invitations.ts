@@ -18,6 +18,7 @@ import {
   revokeLivePatientInvites,
 } from "@/db/queries/invitations";
 import { audit } from "@/lib/records/audit";
+import { assertRecordOpen, writeRecord } from "@/lib/records/record-state";
 import { queueCarerInvitation, queuePatientInvitation } from "@/lib/email/patient-mail";
 import { auth } from "@/lib/auth";
 import { hashPassword, passwordProblem } from "@/lib/auth/password";
@@ -58,6 +59,7 @@ export async function createPatientInvite({
   email?: string;
   request: Request;
 }) {
+  await assertRecordOpen(db, patientId);
   const patient = await getPatientForInvite({ patientId });
   if (!patient) throw new AppError("not_found");
   if (patient.userId) throw new AppError("conflict", "This patient already has a portal account.");
@@ -97,6 +99,7 @@ export async function recordPatientInvite(
     details,
   }: { viewer: Viewer; patientId: string; activation: PatientActivation; email?: string; request?: Request | { headers: Headers } | null; details?: Record<string, unknown> },
 ) {
+  await assertRecordOpen(tx, patientId);
   const patient = await getPatientForInvite({ patientId }, tx);
   if (!patient) throw new AppError("not_found");
   if (patient.userId) throw new AppError("conflict", "This patient already has a portal account.");
@@ -140,8 +143,10 @@ export async function activatePatient({ code, email, password, request }: { code
     const invite = await findLivePatientInviteForUpdate({ codeHash }, tx);
     // The same answer for an unknown, used, expired code or a different e-mail address.
     if (!invite || (invite.email && invite.email.toLowerCase() !== email)) throw fieldError("code", "invalid");
+    // A closed record takes no new account: the holder of a real code is told so, like every other write.
+    await assertRecordOpen(tx, invite.patientId);
     const record = await getPatientForInvite({ patientId: invite.patientId }, tx);
-    if (!record || record.userId || record.closedAt) throw fieldError("code", "invalid");
+    if (!record || record.userId) throw fieldError("code", "invalid");
     if (await findUserByEmail({ email }, tx)) throw fieldError("email", "taken");
     const userId = await createCredentialUser(
       { email, name: `${record.givenName} ${record.familyName}`, role: "patient", locale: record.preferredLocale, passwordHash: await hashPassword(password) },
@@ -178,7 +183,7 @@ export async function inviteCarer({
   const token = newInviteToken();
   const expiresAt = new Date(Date.now() + CARER_INVITE_DAYS * DAY);
   const inviteUrl = `${env.APP_URL}/${locale}/carer-invite/${token}`;
-  return db.transaction(async (tx) => {
+  return writeRecord(patientId, async (tx) => {
     const open = await findOpenCarerLinks({ patientId, email }, tx);
     if (open.some((l) => l.status === "active")) throw fieldError("email", "already_linked");
     // Inviting the same address again replaces the earlier invitation.
@@ -271,7 +276,7 @@ export async function acceptCarerInvite({
   }
 
   // The new account and the link in one transaction: no account without its link.
-  await db.transaction(async (tx) => {
+  await writeRecord(link.patientId, async (tx) => {
     const userId = newAccount
       ? await createCredentialUser({ email, name: newAccount.name, role: "carer", locale: link.patientLocale, passwordHash: newAccount.passwordHash }, tx)
       : carerUserId!;

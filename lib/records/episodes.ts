@@ -19,10 +19,12 @@ import {
 } from "@/db/queries/episodes";
 import type { CatheterEpisode, NewCatheterEpisode } from "@/db/schema";
 import type { Viewer } from "@/lib/auth/session";
-import { planDates, type Finding } from "@/lib/clinical";
+import { planDates, type Finding, type PlanDefaults } from "@/lib/clinical";
+import { getPlanDefaults } from "@/lib/config/settings";
 import { reconcileOverrides, runDeviceCheck } from "@/lib/shared/episode-checks";
 import { AppError } from "@/lib/http/errors";
 import { openPatientRecord } from "@/lib/records/patient-record";
+import { assertRecordOpen } from "@/lib/records/record-state";
 import type { ChangeInput, DeviceCheckInput, InsertionInput, RemovalInput, TwocInput } from "@/lib/validations/episode";
 import { dayIn, deploymentTimeZone } from "@/lib/shared/time-zone";
 
@@ -36,9 +38,9 @@ export type RecordedEpisode = {
 
 async function openForWrite(ctx: Ctx, action: string, tx: Transaction): Promise<PatientForRecording> {
   await openPatientRecord({ viewer: ctx.viewer, patientId: ctx.patientId, action, request: ctx.request }, tx);
+  await assertRecordOpen(tx, ctx.patientId);
   const patient = await getPatientForRecording({ patientId: ctx.patientId, lock: true }, tx);
   if (!patient) throw new AppError("not_found");
-  if (patient.closed) throw new AppError("conflict", "This record is closed.");
   return patient;
 }
 
@@ -61,16 +63,30 @@ function assess(input: InsertionInput, patient: PatientForRecording, insertedAt:
 function episodeValues(
   input: InsertionInput,
   ctx: Ctx,
-  extra: { organisationId: string | null; previousEpisodeId: string | null; findings: Finding[]; overrides: { code: string; reason: string }[]; timeZone: string },
+  extra: {
+    organisationId: string | null;
+    previousEpisodeId: string | null;
+    findings: Finding[];
+    overrides: { code: string; reason: string }[];
+    timeZone: string;
+    planning: PlanDefaults;
+  },
 ): NewCatheterEpisode {
   const insertedAt = new Date(input.insertedAt);
-  const plan = planDates({
-    insertedOn: dayIn(insertedAt, extra.timeZone),
-    material: input.material,
-    route: input.route,
-    maxDwellDays: input.maxDwellDays,
-    reviewIntervalDays: input.reviewIntervalDays,
-  });
+  const plan = planDates(
+    {
+      insertedOn: dayIn(insertedAt, extra.timeZone),
+      material: input.material,
+      route: input.route,
+      maxDwellDays: input.maxDwellDays,
+      reviewIntervalDays: input.reviewIntervalDays,
+    },
+    {
+      reviewIntervalDays: extra.planning.reviewIntervalDays,
+      dueSoonDays: extra.planning.dueSoonDays,
+      defaultMaxDwellDays: extra.planning.maxDwellDays,
+    },
+  );
   return {
     patientId: ctx.patientId,
     organisationId: extra.organisationId,
@@ -134,7 +150,7 @@ export async function recordInsertion(ctx: Ctx, input: InsertionInput): Promise<
     const { findings, overrides } = assess(input, patient, insertedAt, timeZone);
     const organisationId = await organisationForRecord({ patientId: ctx.patientId, organisationIds: ctx.viewer.organisationIds }, tx);
     const episode = await insertEpisode(
-      { values: episodeValues(input, ctx, { organisationId, previousEpisodeId: latest?.id ?? null, findings, overrides, timeZone }) },
+      { values: episodeValues(input, ctx, { organisationId, previousEpisodeId: latest?.id ?? null, findings, overrides, timeZone, planning: await getPlanDefaults(tx) }) },
       tx,
     );
     // A catheter that went back in after a trial without catheter ends that trial.
@@ -181,7 +197,7 @@ export async function recordChange(ctx: Ctx, input: ChangeInput): Promise<Record
     if (!ended) throw new AppError("conflict", "The catheter was changed by someone else meanwhile.");
     const organisationId = await organisationForRecord({ patientId: ctx.patientId, organisationIds: ctx.viewer.organisationIds }, tx);
     const episode = await insertEpisode(
-      { values: episodeValues(input, ctx, { organisationId, previousEpisodeId: current.id, findings, overrides, timeZone }) },
+      { values: episodeValues(input, ctx, { organisationId, previousEpisodeId: current.id, findings, overrides, timeZone, planning: await getPlanDefaults(tx) }) },
       tx,
     );
     const eventId = await insertEpisodeEvent(

@@ -7,7 +7,11 @@ import { notFound } from "next/navigation";
 import { cache } from "react";
 import { requirePageRole, requireStaffPatientAccess } from "@/lib/auth/permissions";
 import { AppError } from "@/lib/http/errors";
+import { getRecordClosedAt } from "@/db/queries/patients";
 import { openPatientRecord } from "@/lib/records/patient-record";
+
+/** When the record was closed (null while open), once per request: a closed record's pages offer no writes. */
+export const recordClosedAt = cache((patientId: string) => getRecordClosedAt({ patientId }));
 
 function notFoundOn(error: unknown): never {
   if (error instanceof AppError && error.code === "not_found") notFound();
@@ -18,7 +22,7 @@ export async function openRecordPage({ locale, patientId, action }: { locale: st
   const viewer = await requirePageRole(locale, "clinician");
   try {
     const via = await openPatientRecord({ viewer, patientId, action, request: { headers: await headers() } });
-    return { viewer, via };
+    return { viewer, via, closed: (await recordClosedAt(patientId)) !== null };
   } catch (error) {
     notFoundOn(error);
   }

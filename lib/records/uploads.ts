@@ -10,6 +10,7 @@ import { getUploadRow, insertUpload, markUploadRemoved, setUploadStatus, uploadD
 import type { PatientAccessVia } from "@/db/queries/access";
 import type { Upload } from "@/db/schema";
 import { audit } from "@/lib/records/audit";
+import { assertRecordOpen, writeRecord } from "@/lib/records/record-state";
 import { requirePatientAccess, requireStaffPatientAccess } from "@/lib/auth/permissions";
 import type { Viewer } from "@/lib/auth/session";
 import { AppError } from "@/lib/http/errors";
@@ -62,7 +63,7 @@ export async function createUpload({
     throw new AppError("unsupported_media_type", "Use a JPEG, PNG, WebP or HEIC photo, or a PDF.", { fields: { contentType: ["bad_type"] } });
   }
   const objectKey = `${uploadPrefix(patientId)}${randomUUID()}`;
-  const upload = await db.transaction(async (tx) => {
+  const upload = await writeRecord(patientId, async (tx) => {
     const row = await insertUpload(
       {
         patientId,
@@ -102,7 +103,7 @@ async function reject(
   { viewer, patientId, via, row, request, reason }: { viewer: Viewer; patientId: string; via: PatientAccessVia; row: Upload; request: Request; reason: string },
 ) {
   await deleteObject({ key: row.objectKey }).catch(() => {});
-  await db.transaction(async (tx) => {
+  await writeRecord(patientId, async (tx) => {
     await setUploadStatus({ uploadId: row.id, status: "rejected" }, tx);
     await audit({ action: "upload.reject", actor: viewer, patientId, via, request, details: { uploadId: row.id, reason } }, tx);
   });
@@ -122,6 +123,8 @@ export async function completeUpload({
   uploadId: string;
   request: Request;
 }): Promise<UploadDto> {
+  // Refused before the store is touched: a closed record's files are neither kept nor removed.
+  await assertRecordOpen(db, patientId);
   const row = await getUploadRow({ patientId, uploadId });
   // Patients and carers finish only what they started themselves.
   if (!row || ((viewer.role === "patient" || viewer.role === "carer") && row.uploadedByUserId !== viewer.userId)) {
@@ -141,7 +144,7 @@ export async function completeUpload({
     await reject({ viewer, patientId, via, row, request, reason: detected ? `type:${detected.mime}` : "type:unknown" });
     throw new AppError("unsupported_media_type", "The file is not the JPEG, PNG, WebP, HEIC or PDF it said it was. It was removed.");
   }
-  return db.transaction(async (tx) => {
+  return writeRecord(patientId, async (tx) => {
     const dto = await setUploadStatus({ uploadId, status: "ready", contentType: detected.mime, sizeBytes: head.size }, tx);
     await audit(
       { action: "upload.complete", actor: viewer, patientId, via, request, details: { uploadId, type: detected.mime, bytes: head.size } },
@@ -169,7 +172,7 @@ export async function removeUpload({
   uploadId: string;
   request: Request;
 }): Promise<void> {
-  const row = await db.transaction(async (tx) => {
+  const row = await writeRecord(patientId, async (tx) => {
     const removed = await markUploadRemoved({ patientId, uploadId }, tx);
     if (!removed) throw new AppError("not_found");
     await audit(

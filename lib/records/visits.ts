@@ -4,13 +4,14 @@ import "server-only";
 // the score lib/clinical gives here (whatever the browser showed), and for a medium or high band
 // the care-team alert in the outbox. Any error rolls everything back.
 import { db } from "@/db";
-import { getLatestEpisode, getPatientForRecording, insertEpisodeEvent, organisationForRecord } from "@/db/queries/episodes";
+import { getLatestEpisode, insertEpisodeEvent, organisationForRecord } from "@/db/queries/episodes";
 import { insertObservation, toObservationDto, type ObservationDto } from "@/db/queries/observations";
 import type { Viewer } from "@/lib/auth/session";
 import { ClinicalInputError, scoreNews2 } from "@/lib/clinical";
 import { isAlertLevel, queueCareTeamAlert } from "@/lib/email/care-team-alert";
 import { AppError } from "@/lib/http/errors";
 import { openPatientRecord } from "@/lib/records/patient-record";
+import { assertRecordOpen } from "@/lib/records/record-state";
 import type { ObservationsInput, VisitInput } from "@/lib/validations/visit";
 
 type Ctx = { viewer: Viewer; patientId: string; request: Request };
@@ -42,9 +43,7 @@ export async function recordVisit(ctx: Ctx, input: VisitInput): Promise<Recorded
   }
   return db.transaction(async (tx) => {
     const via = await openPatientRecord({ viewer: ctx.viewer, patientId: ctx.patientId, action: "visit.create", request: ctx.request }, tx);
-    const patient = await getPatientForRecording({ patientId: ctx.patientId, lock: true }, tx);
-    if (!patient) throw new AppError("not_found");
-    if (patient.closed) throw new AppError("conflict", "This record is closed.");
+    await assertRecordOpen(tx, ctx.patientId);
     const episode = await getLatestEpisode({ patientId: ctx.patientId }, tx);
     if (!episode) throw new AppError("conflict", "No catheter is recorded for this patient.");
     const occurredAt = new Date(input.occurredAt);

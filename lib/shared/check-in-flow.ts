@@ -69,16 +69,25 @@ export function questionsFor(route: Route | null): Question[] {
   ];
 }
 
-/** The hours question matters only when less or no urine drains. */
+/**
+ * Drainage is not asked once the catheter came out (there is nothing to drain, and its advice,
+ * "check the tube is not kinked", would be wrong); the hours question only when less or no urine drains.
+ */
 export function isAsked(question: Question, answers: SubmittedAnswers): boolean {
-  if (question.id === "hoursWithoutUrine") return answers.draining === "less" || answers.draining === "none";
+  if (question.id === "draining") return answers.catheterOut !== true;
+  if (question.id === "hoursWithoutUrine") return answers.catheterOut !== true && (answers.draining === "less" || answers.draining === "none");
   return true;
 }
 
-const REQUIRED = ["draining", "pain"] as const;
+/** The answers of screens no longer asked (after an earlier answer changed) are dropped. */
+export function keepAsked(questions: readonly Question[], answers: SubmittedAnswers): SubmittedAnswers {
+  const dropped = new Set(questions.filter((q) => !isAsked(q, answers)).map((q) => q.id as string));
+  return Object.fromEntries(Object.entries(answers).filter(([k]) => !dropped.has(k))) as SubmittedAnswers;
+}
 
+/** Pain always; how it drains unless the catheter came out. */
 export function isComplete(answers: SubmittedAnswers): boolean {
-  return REQUIRED.every((k) => answers[k] !== undefined);
+  return answers.pain !== undefined && (answers.draining !== undefined || answers.catheterOut === true);
 }
 
 /**

@@ -7,6 +7,8 @@ import {
   type Device,
   type Finding,
   type FindingCode,
+  allergyKnown,
+  type AllergyAnswers,
   type GelKind,
   type Patient,
 } from "@/lib/clinical";
@@ -33,7 +35,7 @@ export type DeviceDraft = {
 export type PatientFacts = {
   sex: Patient["sex"];
   dateOfBirth: string;
-  allergies: { latex: boolean; chlorhexidine: boolean; lidocaine: boolean };
+  allergies: AllergyAnswers;
 };
 
 const blank = (v: unknown) => v === undefined || v === null || v === "" || (typeof v === "number" && Number.isNaN(v));
@@ -61,7 +63,13 @@ export function toDevice(d: DeviceDraft): Device {
 }
 
 export function toClinicalPatient(p: PatientFacts): Patient {
-  return { sex: p.sex, dateOfBirth: p.dateOfBirth, allergies: { ...p.allergies } };
+  // "not asked" reaches checkDevice as not known, so it warns "not recorded: ask first".
+  const a = p.allergies;
+  return {
+    sex: p.sex,
+    dateOfBirth: p.dateOfBirth,
+    allergies: { latex: allergyKnown(a.latex), chlorhexidine: allergyKnown(a.chlorhexidine), lidocaine: allergyKnown(a.lidocaine) },
+  };
 }
 
 export type CheckOutcome =

@@ -1,7 +1,8 @@
 import { z } from "zod";
+import { multiLine, singleLine } from "./text";
 
 export const closeRecordSchema = z.object({
-  reason: z.string().trim().min(3, { message: "reason_required" }).max(500, { message: "reason_required" }),
+  reason: multiLine(z.string().trim().min(3, { message: "reason_required" }).max(500, { message: "reason_required" })),
 });
 export type CloseRecordInput = z.infer<typeof closeRecordSchema>;
 

@@ -1,4 +1,7 @@
 import { z } from "zod";
+import { AUDIT_VIA } from "@/lib/shared/audit-actions";
+import { queryInt } from "./number";
+import { pageQuerySchema } from "./caseload";
 
 const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, { message: "date_invalid" });
 const blank = (v: unknown) => (typeof v === "string" && v.trim() === "" ? undefined : v);
@@ -9,11 +12,16 @@ export const auditQuerySchema = z
     person: z.preprocess(blank, z.string().trim().max(120).optional()),
     patient: z.preprocess(blank, z.string().trim().max(120).optional()),
     action: z.preprocess(blank, z.string().trim().max(80).regex(/^[a-z0-9_.]+$/, { message: "action_invalid" }).optional()),
-    via: z.preprocess(blank, z.enum(["care_team", "visit_access", "qr", "self", "carer", "admin", "system"]).optional()),
+    via: z.preprocess(blank, z.enum(AUDIT_VIA).optional()),
     from: z.preprocess(blank, isoDate.optional()),
     to: z.preprocess(blank, isoDate.optional()),
-    page: z.preprocess(blank, z.coerce.number().int().min(1).max(10_000).default(1)),
-    pageSize: z.preprocess(blank, z.coerce.number().int().min(1).max(100).default(50)),
+    page: queryInt(1, 10_000, 1),
+    pageSize: queryInt(1, 100, 50),
   })
   .refine((q) => !q.from || !q.to || q.from <= q.to, { message: "range_invalid", path: ["to"] });
 export type AuditQuery = z.infer<typeof auditQuerySchema>;
+
+/** A patient's access log: a page, and everyone or only people outside the care team. */
+export const accessLogQuerySchema = pageQuerySchema.extend({
+  who: z.preprocess(blank, z.enum(["all", "outside"]).default("all")),
+});

@@ -1,5 +1,6 @@
 // The caseload's query string: page, page size (at most 100), search, one filter, sort, direction.
 import { z } from "zod";
+import { queryInt } from "./number";
 
 export const caseloadFilters = ["overdue", "due-soon", "urgent", "twoc"] as const;
 export type CaseloadFilter = (typeof caseloadFilters)[number];
@@ -19,8 +20,8 @@ export const caseloadViewSchema = z.object({
 });
 
 export const caseloadQuerySchema = caseloadViewSchema.extend({
-  page: z.preprocess(blank, z.coerce.number().int().min(1).max(100_000).default(1)),
-  pageSize: z.preprocess(blank, z.coerce.number().int().min(1).max(CASELOAD_MAX_PAGE_SIZE).default(CASELOAD_DEFAULT_PAGE_SIZE)),
+  page: queryInt(1, 100_000, 1),
+  pageSize: queryInt(1, CASELOAD_MAX_PAGE_SIZE, CASELOAD_DEFAULT_PAGE_SIZE),
 });
 
 export type CaseloadView = z.output<typeof caseloadViewSchema>;
@@ -28,6 +29,6 @@ export type CaseloadQuery = z.output<typeof caseloadQuerySchema>;
 export type CaseloadQueryInput = z.input<typeof caseloadQuerySchema>;
 
 export const pageQuerySchema = z.object({
-  page: z.preprocess(blank, z.coerce.number().int().min(1).max(100_000).default(1)),
-  pageSize: z.preprocess(blank, z.coerce.number().int().min(1).max(100).default(25)),
+  page: queryInt(1, 100_000, 1),
+  pageSize: queryInt(1, 100, 25),
 });

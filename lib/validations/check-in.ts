@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { TEMPERATURE_RANGE } from "@/lib/shared/check-in-flow";
+import { entryTimeSchema } from "./entry-time";
 
 // Exactly triageCheckIn's answers (minus route, which the server takes from the record);
 // unknown fields are refused (allow-list, ASVS 2.2.1).
@@ -26,7 +27,7 @@ export const checkInSchema = z.strictObject({
   answers: checkInAnswersSchema,
   // Made on the phone when the check-in starts; the same key twice is one check-in.
   idempotencyKey: z.uuid(),
-  // When the person answered (it may reach us later, from an offline phone).
-  answeredAt: z.iso.datetime({ offset: true }).optional(),
+  // When the person answered (it may reach us later, from an offline phone); bounded.
+  answeredAt: entryTimeSchema.optional(),
 });
 export type CheckInInput = z.infer<typeof checkInSchema>;

@@ -1,7 +1,8 @@
 import { z } from "zod";
 import { MAX_ENTRY_ML } from "@/lib/clinical";
+import { entryTimeSchema } from "./entry-time";
+import { numberIn, requiredNumber } from "./number";
 
-export const DIARY_BACKDATE_DAYS = 7;
 export const DIARY_RANGE_MAX_DAYS = 35;
 export const DIARY_DELETE_HOURS = 24;
 
@@ -13,14 +14,18 @@ export const diaryEntrySchema = z.strictObject({
   patientId: z.uuid(),
   kind: z.enum(["in", "out"]),
   // A single drink or bag above MAX_ENTRY_ML is a typing error (lib/clinical).
-  volumeMl: z.number().int().min(1).max(MAX_ENTRY_ML),
-  at: z.iso.datetime({ offset: true }).optional(),
+  volumeMl: numberIn({ min: 1, max: MAX_ENTRY_ML, unit: "ml", whole: true }),
+  // When it was drunk or emptied (an offline phone sends it later); bounded. Default: now.
+  at: entryTimeSchema.optional(),
+  // Made on the phone: the same key again is the same entry (a resend from its outbox).
+  clientKey: z.uuid().optional(),
 });
 export type DiaryEntryInput = z.infer<typeof diaryEntrySchema>;
 
 /** The form on the phone: a custom amount typed in ml. */
 export const customVolumeSchema = z.object({
-  volumeMl: z.coerce.number().int().min(1).max(MAX_ENTRY_ML),
+  // Plain decimals only: "1e3" or "0x10" is not 1000 or 16 ml.
+  volumeMl: requiredNumber({ min: 1, max: MAX_ENTRY_ML, unit: "ml", whole: true }),
 });
 
 export const diaryRangeSchema = z

@@ -2,6 +2,9 @@
 // of schemas for the react-hook-form forms and the route handlers. Error messages are keys
 // (EpisodeForm.errors.<key>) so the form can show them in the nurse's language.
 import { z } from "zod";
+import { multiLine, singleLine } from "./text";
+import type { RangeUnit } from "@/lib/shared/numbers";
+import { optionalNumber, requiredNumber } from "./number";
 import {
   CATHETER_TYPES,
   FINDING_CODES,
@@ -36,31 +39,16 @@ const blankToUndefined = (v: unknown) =>
       ? v.trim()
       : v;
 
-const numberFromInput = (v: unknown) => {
-  const b = blankToUndefined(v);
-  return typeof b === "string" && /^-?\d+(\.\d+)?$/.test(b) ? Number(b) : b;
-};
-
-function int(min: number, max: number) {
-  return z
-    .number({ error: "number" })
-    .int({ error: "whole_number" })
-    .min(min, { error: "out_of_range" })
-    .max(max, { error: "out_of_range" });
-}
-
-const requiredInt = (min: number, max: number) => z.preprocess(numberFromInput, int(min, max));
-const optionalInt = (min: number, max: number) => z.preprocess(numberFromInput, int(min, max).optional());
-const optionalDecimal = (min: number, max: number) =>
-  z.preprocess(
-    numberFromInput,
-    z.number({ error: "number" }).min(min, { error: "out_of_range" }).max(max, { error: "out_of_range" }).optional(),
-  );
-const optionalText = (max: number) => z.preprocess(blankToUndefined, z.string({ error: "text" }).max(max, { error: "too_long" }).optional());
+const requiredInt = (min: number, max: number, unit?: RangeUnit) => requiredNumber({ min, max, unit, whole: true });
+const optionalInt = (min: number, max: number, unit?: RangeUnit) => optionalNumber({ min, max, unit, whole: true });
+const optionalDecimal = (min: number, max: number, unit?: RangeUnit) => optionalNumber({ min, max, unit });
+const optionalText = (max: number) => z.preprocess(blankToUndefined, multiLine(z.string({ error: "text" }).max(max, { error: "too_long" })).optional());
+/** A name, a lot or a serial as on the label: one line, no bidirectional overrides. */
+const optionalLine = (max: number) => z.preprocess(blankToUndefined, singleLine(z.string({ error: "text" }).max(max, { error: "too_long" })).optional());
 const requiredText = (min: number, max: number) =>
   z.preprocess(
     blankToUndefined,
-    z.string({ error: "required" }).min(min, { error: "too_short" }).max(max, { error: "too_long" }),
+    multiLine(z.string({ error: "required" }).min(min, { error: "too_short" }).max(max, { error: "too_long" })),
   );
 const choice = <T extends readonly [string, ...string[]]>(values: T) =>
   z.preprocess(blankToUndefined, z.enum(values, { error: "choose_one" }));
@@ -100,20 +88,20 @@ export const deviceShape = {
   catheterType: choice(CATHETER_TYPES),
   material: choice(MATERIALS),
   lengthCategory: choice(LENGTH_CATEGORIES),
-  sizeCh: requiredInt(6, 30),
-  balloonMl: requiredInt(1, 30),
-  makerBalloonMl: optionalInt(1, 30),
-  maker: optionalText(120),
-  productName: optionalText(120),
-  lot: optionalText(40),
+  sizeCh: requiredInt(6, 30, "ch"),
+  balloonMl: requiredInt(1, 30, "ml"),
+  makerBalloonMl: optionalInt(1, 30, "ml"),
+  maker: optionalLine(120),
+  productName: optionalLine(120),
+  lot: optionalLine(40),
   expiry: isoDate,
   gtin: z.preprocess(blankToUndefined, z.string().regex(/^\d{8,14}$/, { error: "gtin" }).optional()),
-  serial: optionalText(40),
+  serial: optionalLine(40),
   udi: optionalText(200),
   gelKind: choice(GEL_KINDS),
-  gelVolumeMl: optionalDecimal(0, 30),
+  gelVolumeMl: optionalDecimal(0, 30, "ml"),
   largerSizeReason: optionalText(500),
-  maxDwellDays: optionalInt(1, 366),
+  maxDwellDays: optionalInt(1, 366, "days"),
 };
 
 export const deviceCheckSchema = z.object({
@@ -128,13 +116,13 @@ export const insertionObject = z.object({
   ...deviceShape,
   indication: requiredText(3, 500),
   insertedAt: pastInstant,
-  residualUrineMl: optionalInt(0, 5000),
+  residualUrineMl: optionalInt(0, 5000, "ml"),
   urineDescription: optionalText(300),
   specimenTaken: z.boolean({ error: "choose_one" }).default(false),
   attempts: requiredInt(1, 10),
   difficulties: optionalText(1000),
   patientReaction: optionalText(500),
-  reviewIntervalDays: optionalInt(1, 366),
+  reviewIntervalDays: optionalInt(1, 366, "days"),
   overrides: z.array(overrideSchema).max(FINDING_CODES.length).default([]),
 });
 
@@ -191,7 +179,7 @@ export const removalSchema = z
     notes: optionalText(1000),
     /** The catheter comes out for a trial without catheter: the outcome is recorded next. */
     startTwoc: z.boolean({ error: "choose_one" }).default(false),
-    balloonDeflatedMl: optionalInt(0, 60),
+    balloonDeflatedMl: optionalInt(0, 60, "ml"),
     catheterIntact: z.boolean({ error: "choose_one" }).default(true),
   })
   .superRefine((v, ctx) => {
@@ -201,7 +189,7 @@ export const removalSchema = z
 export type RemovalInput = z.infer<typeof removalSchema>;
 
 export const voidSchema = z.object({
-  volumeMl: requiredInt(1, 2000),
+  volumeMl: requiredInt(1, 2000, "ml"),
 });
 
 export const twocSchema = z
@@ -209,7 +197,7 @@ export const twocSchema = z
     occurredAt: pastInstant,
     outcome: choice(TWOC_OUTCOMES),
     voids: z.array(voidSchema).max(20, { error: "too_many" }).default([]),
-    postVoidResidualMl: optionalInt(0, 5000),
+    postVoidResidualMl: optionalInt(0, 5000, "ml"),
     failedAction: optionalChoice(TWOC_FAILED_ACTIONS),
     notes: optionalText(1000),
   })

@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { newPasswordSchema } from "./password";
+import { singleLine } from "./text";
 
 const email = z.email({ message: "email_invalid" }).max(254, { message: "email_invalid" }).transform((v) => v.trim().toLowerCase());
 
@@ -19,7 +20,7 @@ export const carerInviteSchema = z.strictObject({ email });
 export const acceptCarerInviteSchema = z.strictObject({
   token: z.string().min(20).max(200),
   // For a new carer account.
-  name: z.string().trim().min(1).max(120).optional(),
+  name: singleLine(z.string().trim().min(1).max(120)).optional(),
   // For a new account (a new password, checked against the rules by the service) or an existing one (its password).
   password: z.string().min(1).max(256).optional(),
 });
@@ -28,5 +29,5 @@ export const acceptCarerInviteSchema = z.strictObject({
 export const carerInviteFormSchemas = {
   accept: z.object({}),
   "sign-in": z.object({ password: z.string().min(1, { message: "password_required" }).max(256) }),
-  create: z.object({ name: z.string().trim().min(1, { message: "name_required" }).max(120, { message: "invalid" }), password: newPasswordSchema }),
+  create: z.object({ name: singleLine(z.string().trim().min(1, { message: "name_required" }).max(120, { message: "invalid" })), password: newPasswordSchema }),
 } as const;

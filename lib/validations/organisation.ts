@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { multiLine, singleLine } from "./text";
 import type { OrganisationKind } from "@/db/schema/app";
 import { locales } from "@/lib/i18n/routing";
 
@@ -20,9 +21,9 @@ const phone = z.preprocess(
 );
 
 const organisationFields = z.object({
-  name: z.string().trim().min(2, { message: "name_length" }).max(120, { message: "name_length" }),
+  name: singleLine(z.string().trim().min(2, { message: "name_length" }).max(120, { message: "name_length" })),
   kind: z.enum(organisationKinds, { message: "kind_required" }),
-  parentName: z.preprocess(blankToNull, z.string().trim().max(120, { message: "name_length" }).nullable()).optional(),
+  parentName: z.preprocess(blankToNull, singleLine(z.string().trim().max(120, { message: "name_length" })).nullable()).optional(),
   phone: phone.optional(),
   outOfHoursPhone: phone.optional(),
   inboxEmail: z.preprocess(blankToNull, z.email({ message: "email_invalid" }).max(254).nullable()).optional(),

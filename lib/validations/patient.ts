@@ -2,7 +2,10 @@
 // route handlers. Error messages are keys of PatientForm.errors, so the client shows the same
 // translated message whether the client or the server found the problem.
 import { z } from "zod";
+import { multiLine, singleLine } from "./text";
+import { ALLERGY_ANSWERS } from "@/lib/clinical/allergies";
 import { locales } from "@/lib/i18n/routing";
+import { numberIn, toNumber } from "./number";
 
 export const patientSexes = ["female", "male", "other", "unknown"] as const;
 export const patientLocales = locales;
@@ -18,17 +21,14 @@ function latestBirthDate(): string {
   return new Date(Date.now() + 14 * 3_600_000).toISOString().slice(0, 10);
 }
 
-const name = z
-  .string({ error: "required" })
-  .trim()
-  .min(1, { error: "required" })
-  .max(100, { error: "too_long" });
+const name = singleLine(z.string({ error: "required" }).trim().min(1, { error: "required" }).max(100, { error: "too_long" }));
 
 const optionalText = (max: number) =>
   z
     .string({ error: "too_long" })
     .trim()
     .max(max, { error: "too_long" })
+    .pipe(singleLine(z.string()))
     .nullish()
     .transform((v) => (v ? v : null));
 
@@ -50,15 +50,13 @@ export const patientSchema = z.object({
   sex: z.enum(patientSexes, { error: "required" }),
   preferredLocale: z.enum(patientLocales, { error: "required" }),
   weightKg: z
-    .number({ error: "weight_range" })
-    .min(WEIGHT_KG.min, { error: "weight_range" })
-    .max(WEIGHT_KG.max, { error: "weight_range" })
-    .nullish()
+    .preprocess(toNumber, numberIn({ ...WEIGHT_KG, unit: "kg" }).nullish())
     .transform((v) => (v === undefined || v === null ? null : Math.round(v * 10) / 10)),
+  // Each one yes, no or "not-asked" (the form's starting value): never a silent "no".
   allergies: z.object({
-    latex: z.boolean({ error: "required" }),
-    chlorhexidine: z.boolean({ error: "required" }),
-    lidocaine: z.boolean({ error: "required" }),
+    latex: z.enum(ALLERGY_ANSWERS, { error: "required" }),
+    chlorhexidine: z.enum(ALLERGY_ANSWERS, { error: "required" }),
+    lidocaine: z.enum(ALLERGY_ANSWERS, { error: "required" }),
     other: optionalText(200),
   }),
   gpPracticeId: z.uuid({ error: "gp_required" }),

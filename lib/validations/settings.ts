@@ -1,5 +1,7 @@
 import { z } from "zod";
+import { multiLine, singleLine } from "./text";
 import { MATERIALS } from "@/lib/clinical";
+import { numberIn, toNumber } from "./number";
 
 // Deployment settings (the `settings` table, key → JSON value). Messages are codes that the
 // settings form translates (AdminSettings.errors.<code>).
@@ -7,12 +9,11 @@ import { MATERIALS } from "@/lib/clinical";
 /** Digits only: what a patient dials (999, 112, 911, 000…). */
 export const emergencyNumberSchema = z.string().trim().regex(/^[0-9]{2,6}$/, { message: "emergency_digits" });
 
-const days = (min: number, max: number) =>
-  z.number({ message: "whole_days" }).int({ message: "whole_days" }).min(min, { message: "days_range" }).max(max, { message: "days_range" });
+const days = (min: number, max: number) => z.preprocess(toNumber, numberIn({ min, max, unit: "days", whole: true, missing: "whole_days" }));
 
 export const settingSchemas = {
   emergencyNumber: emergencyNumberSchema,
-  outOfHoursServiceName: z.string().trim().min(2, { message: "name_length" }).max(120, { message: "name_length" }),
+  outOfHoursServiceName: singleLine(z.string().trim().min(2, { message: "name_length" }).max(120, { message: "name_length" })),
   reviewIntervalDays: days(1, 365),
   dueSoonDays: days(0, 60),
   defaultMaxDwellDays: z.partialRecord(z.enum(MATERIALS), days(1, 365)),

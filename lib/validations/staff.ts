@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { multiLine, singleLine } from "./text";
 import type { StaffRole } from "@/db/schema/app";
 import { newPasswordSchema, withConfirmation } from "./password";
 
@@ -15,7 +16,7 @@ export const inviteStaffSchema = z.object({
   email: z.email({ message: "email_invalid" }).max(254).transform((e) => e.toLowerCase()),
   name: z.preprocess(
     (v) => (typeof v === "string" && v.trim() === "" ? null : v),
-    z.string().trim().max(120, { message: "name_length" }).nullable().optional(),
+    singleLine(z.string().trim().max(120, { message: "name_length" })).nullable().optional(),
   ),
   role: z.enum(staffRoles, { message: "role_required" }),
   // The e-mail goes out in the language of the first organisation chosen.
@@ -36,7 +37,7 @@ export type UpdateStaffInput = z.infer<typeof updateStaffSchema>;
 
 export const acceptInviteSchema = z.object({
   token: z.string().min(20).max(200),
-  name: z.string().trim().min(2, { message: "name_length" }).max(120, { message: "name_length" }),
+  name: singleLine(z.string().trim().min(2, { message: "name_length" }).max(120, { message: "name_length" })),
   password: newPasswordSchema,
 });
 export type AcceptInviteInput = z.infer<typeof acceptInviteSchema>;

@@ -2,6 +2,8 @@
 // uses, and the quantities (the server recomputes the suggested ones with lib/clinical).
 // Messages are keys of Supplies.errors, translated by the form.
 import { z } from "zod";
+import { multiLine, singleLine } from "./text";
+import { numberIn, toNumber } from "./number";
 
 export const supplyItems = ["catheter", "leg-bag", "night-bag", "valve", "gel"] as const;
 export const supplyPeriodChoices = [7, 14, 28, 56, 84] as const;
@@ -9,18 +11,18 @@ export const DEFAULT_SUPPLY_PERIOD = 28;
 
 export const supplyRequestSchema = z
   .object({
-    periodDays: z.number({ error: "period" }).int("period").min(1, "period").max(366, "period"),
+    periodDays: z.preprocess(toNumber, numberIn({ min: 1, max: 366, unit: "days", whole: true, missing: "period" })),
     include: z.object({ legBag: z.boolean(), valve: z.boolean(), nightBag: z.boolean(), gel: z.boolean() }),
     items: z
       .array(
         z.object({
           item: z.enum(supplyItems),
-          quantity: z.number({ error: "quantity" }).int("quantity").min(0, "quantity").max(999, "quantity"),
+          quantity: z.preprocess(toNumber, numberIn({ min: 0, max: 999, whole: true, missing: "quantity" })),
         }),
       )
       .min(1, "nothing")
       .max(supplyItems.length),
-    note: z.string().trim().max(1000, "note").optional(),
+    note: multiLine(z.string().trim().max(1000, "note")).optional(),
   })
   .superRefine((v, ctx) => {
     const seen = new Set<string>();

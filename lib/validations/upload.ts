@@ -1,6 +1,7 @@
 // Declaring an upload before the browser sends the bytes. Shared by the upload form and the
 // route handler; messages are keys of Uploads.errors.
 import { z } from "zod";
+import { multiLine, singleLine } from "./text";
 
 export const uploadCategories = ["packaging-label", "discharge-letter", "site-photo", "other"] as const;
 export type UploadCategory = (typeof uploadCategories)[number];
@@ -18,7 +19,8 @@ export function isAcceptedContentType(type: string): type is UploadContentType {
 export const uploadCreateSchema = z
   .object({
     category: z.enum(uploadCategories, { error: "invalid" }),
-    label: z.string({ error: "required" }).trim().min(1, { error: "required" }).max(120, { error: "too_long" }),
+    // Shown beside the file: one line, and no bidirectional override to make "x\u202Egnp.exe" read as a photo.
+    label: singleLine(z.string({ error: "required" }).trim().min(1, { error: "required" }).max(120, { error: "too_long" })),
     // Checked against the accepted list by the handler (415, not 400), so any string passes here.
     contentType: z.string({ error: "required" }).trim().toLowerCase().min(1, { error: "required" }).max(100, { error: "invalid" }),
     // The limit itself is checked by the handler (413); here only a whole positive number.

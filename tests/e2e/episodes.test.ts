@@ -12,7 +12,7 @@ import { dayIn, deploymentTimeZone } from "@/lib/shared/time-zone";
 import { demoCatheterRow } from "../support/fixtures";
 import { demo } from "../support/http";
 import { launch, newPage, screenshot, signInAs } from "./support/browser";
-import { writeLabelVideo } from "./support/fake-camera";
+import { writeGs1128Video, writeLabelVideo, writeQrVideo } from "./support/fake-camera";
 
 // Source: clinical-checks.md §7 (GS1 General Specifications): 0109506000134352 17281100 10AB12
 // GS 21XYZ → GTIN 09506000134352, expiry 2028-11-30, lot AB12, serial XYZ; the check digit is valid.
@@ -33,7 +33,9 @@ async function makePatient(opts: { latex?: boolean; familyName?: string } = {}) 
       healthRecordNumber: `E2E-${randomUUID()}`,
       dateOfBirth: "1948-02-14",
       sex: "male",
-      allergyLatex: opts.latex ?? false,
+      allergyLatex: opts.latex ? "yes" : "no",
+      allergyChlorhexidine: "no",
+      allergyLidocaine: "no",
     })
     .returning({ id: patients.id });
   created.push(p.id);
@@ -303,6 +305,61 @@ describe("the camera reads the packaging", () => {
     // The reader stops and closes once it has read the label.
     await expect.poll(() => page.getByTestId("camera-reader").count()).toBe(0);
     await page.context().close();
+  });
+});
+
+describe("the camera reads GS1-128 and Digital Link labels, and a rescan replaces every field", () => {
+  // A lot followed by a serial: the label that lost its separator when read by the camera.
+  const LINEAR = "(01)09506000134352(17)281100(10)HX-2217(21)S0042";
+  const LINK = "https://packs.example.org/labels/01/09506000134352/10/HX%2F2218/21/S0043?17=281100";
+  const withCamera = async (video: string) =>
+    launch(["--use-fake-ui-for-media-stream", "--use-fake-device-for-media-stream", `--use-file-for-fake-video-capture=${video}`]);
+
+  it("GS1-128 by camera: lot and serial stay apart; a label without a serial then clears it", async () => {
+    const b = await withCamera(await writeGs1128Video(LINEAR));
+    try {
+      const patientId = await makePatient();
+      const page = await nurse({}, b);
+      await page.goto(`/en/patients/${patientId}/record/insertion`);
+      await page.getByTestId("camera-open").click();
+      await expect.poll(() => page.getByTestId("field-lot").inputValue(), { timeout: 30_000, interval: 500 }).toBe("HX-2217");
+      expect(await page.getByTestId("field-serial").inputValue()).toBe("S0042");
+      expect(await page.getByTestId("field-gtin").inputValue()).toBe("09506000134352");
+      expect(await page.getByTestId("field-expiry").inputValue()).toBe("2028-11-30");
+      expect(await page.getByTestId("scan-errors").count()).toBe(0);
+      await page.getByTestId("scan-field").scrollIntoViewIfNeeded();
+      await screenshot(page, "scan-gs1-128-camera-en-1280");
+      // Another packet, whose label has no serial: the serial of the first one must not stay.
+      await page.getByTestId("scan-input").fill("(01)09506000134352(17)290131(10)HX-3001");
+      await page.getByTestId("scan-input").press("Enter");
+      await expect.poll(() => page.getByTestId("field-lot").inputValue()).toBe("HX-3001");
+      expect(await page.getByTestId("field-serial").inputValue()).toBe("");
+      expect(await page.getByTestId("field-expiry").inputValue()).toBe("2029-01-31");
+      expect(await page.getByTestId("scan-absent").textContent()).toContain("serial number");
+      await screenshot(page, "scan-rescan-clears-serial-en-1280");
+      await page.context().close();
+    } finally {
+      await b.close();
+    }
+  });
+
+  it("a GS1 Digital Link QR by camera fills the same fields, percent-encoding decoded", async () => {
+    const b = await withCamera(await writeQrVideo(LINK));
+    try {
+      const patientId = await makePatient();
+      const page = await nurse({ viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true }, b);
+      await page.goto(`/en/patients/${patientId}/record/insertion`);
+      await page.getByTestId("camera-open").click();
+      await expect.poll(() => page.getByTestId("field-lot").inputValue(), { timeout: 30_000, interval: 500 }).toBe("HX/2218");
+      expect(await page.getByTestId("field-serial").inputValue()).toBe("S0043");
+      expect(await page.getByTestId("field-gtin").inputValue()).toBe("09506000134352");
+      expect(await page.getByTestId("field-expiry").inputValue()).toBe("2028-11-30");
+      await page.getByTestId("scan-field").scrollIntoViewIfNeeded();
+      await screenshot(page, "scan-digital-link-camera-en-390");
+      await page.context().close();
+    } finally {
+      await b.close();
+    }
   });
 });
 

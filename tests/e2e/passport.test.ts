@@ -23,7 +23,7 @@ import { launch, newPage, screenshot, screenshotDir, signInAs } from "./support/
 const { PDFParse } = require("pdf-parse") as typeof import("pdf-parse");
 
 const outDir = path.resolve(screenshotDir, "..");
-const CODE = /^[2-9A-HJKMNP-TV-Z]{4}-[2-9A-HJKMNP-TV-Z]{4}-[2-9A-HJKMNP-TV-Z]{4}$/;
+const CODE = /^[2-9A-HJKMNP-TV-Z]{4}-[2-9A-HJKMNP-TV-Z]{4}-[2-9A-HJKMNP-TV-Z]{5}$/;
 
 async function pdfText(pdf: Buffer) {
   const parser = new PDFParse({ data: pdf });

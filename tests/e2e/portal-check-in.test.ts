@@ -143,10 +143,10 @@ describe("check-in on a phone", () => {
     expect(await page.getByTestId("delivery").textContent()).toMatch(/Not sent yet/);
     await screenshot(page, "portal-check-in-offline-waiting-en");
 
-    // The phone's outbox holds only the patient id, the key and the answers (ASVS 14.3.3).
+    // The phone's outbox holds only the patient id, the key, the answers and when they were given (ASVS 14.3.3).
     const outbox = await page.evaluate(() => JSON.parse(localStorage.getItem("caddis.checkInOutbox.v1") ?? "[]"));
     expect(outbox).toHaveLength(1);
-    expect(Object.keys(outbox[0]).sort()).toEqual(["answers", "idempotencyKey", "patientId"]);
+    expect(Object.keys(outbox[0]).sort()).toEqual(["answeredAt", "answers", "idempotencyKey", "patientId"]);
     const key: string = outbox[0].idempotencyKey;
     const count = async () => (await database().query<{ n: number }>("select count(*)::int as n from check_ins where idempotency_key = $1", [key])).rows[0].n;
     expect(await count()).toBe(0);

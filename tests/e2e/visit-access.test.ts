@@ -29,8 +29,9 @@ async function makePatient(opts: { familyName: string; locale: string; sex: "mal
       dateOfBirth: "1946-05-20",
       sex: opts.sex,
       preferredLocale: opts.locale,
-      allergyLatex: opts.latex ?? false,
-      allergyChlorhexidine: opts.chlorhexidine ?? false,
+      allergyLatex: opts.latex ? "yes" : "no",
+      allergyChlorhexidine: opts.chlorhexidine ? "yes" : "no",
+      allergyLidocaine: "no",
     })
     .returning({ id: patients.id });
   created.push(p.id);

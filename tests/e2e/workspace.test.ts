@@ -95,7 +95,9 @@ describe("clinician workspace", () => {
     await page.getByLabel("Date of birth").fill("1948-02-29");
     await page.getByLabel("Female").check();
     await page.getByLabel("Weight (kg)").fill("58");
-    await page.getByLabel("Latex").check();
+    // Each allergy starts as "not asked yet"; latex yes, chlorhexidine no, lidocaine left unasked.
+    await page.getByRole("group", { name: "Latex" }).getByLabel("Yes").check();
+    await page.getByRole("group", { name: "Chlorhexidine" }).getByLabel("No").check();
     await page.getByLabel("GP practice").selectOption({ label: "Quayside Practice" });
     await page.getByRole("button", { name: "Register the patient" }).click();
     await expect.poll(() => page.getByText("A patient with this health record number is already registered.").count()).toBe(1);
@@ -109,6 +111,7 @@ describe("clinician workspace", () => {
     await expect.poll(() => page.locator("h1").textContent()).toBe("Olwen Tarrant");
     expect(await page.getByText(`HRN ${hrn}`).count()).toBe(1);
     expect(await page.getByTestId("allergy-box").textContent()).toContain("Latex");
+    expect(await page.getByTestId("allergy-not-recorded").textContent()).toBe("Not recorded, ask first: Lidocaine");
     expect(await page.getByRole("link", { name: "Record an insertion" }).getAttribute("href")).toMatch(/\/record\/insertion$/);
     expect(await page.getByRole("link", { name: "Device" }).getAttribute("aria-current")).toBe("page");
     await page.context().close();

@@ -5,10 +5,16 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { GET as orgList, POST as orgCreate } from "@/app/api/admin/organisations/route";
 import { GET as orgGet, PATCH as orgPatch } from "@/app/api/admin/organisations/[organisationId]/route";
 import { GET as settingsGet, PATCH as settingsPatch } from "@/app/api/admin/settings/route";
+import { POST as deactivate } from "@/app/api/admin/staff/[userId]/deactivate/route";
 import { db } from "@/db";
 import { auditEvents, memberships, organisations, settings, user } from "@/db/schema";
-import { planDates } from "@/lib/clinical";
-import { getEmergencyNumber, getSettings, planDatesOptions } from "@/lib/config/settings";
+import { GET as caseloadGet } from "@/app/api/caseload/route";
+import { POST as postInsertion } from "@/app/api/patients/[patientId]/episodes/route";
+import { POST as createPatient } from "@/app/api/patients/route";
+import { addDays } from "@/lib/clinical";
+import { getEmergencyNumber } from "@/lib/config/settings";
+import { dayIn, deploymentTimeZone } from "@/lib/shared/time-zone";
+import { clinicianInNewTeam, demoDevice } from "../support/fixtures";
 import { call, demo, sessionFor, signIn } from "../support/http";
 import { createOrganisation, createStaff, orgIdsByName, suffix } from "../support/staff";
 
@@ -100,6 +106,22 @@ describe("organisations", () => {
   });
 });
 
+describe("admin home counts", () => {
+  it("counts the active staff of each organisation: a deactivated member is not counted", async () => {
+    const harbourside = orgs["Harbourside Community Nursing Team"];
+    const countOf = async () => {
+      const res = await call(orgList, "/api/admin/organisations", { cookie: admin });
+      return (await res.json()).organisations.find((o: { id: string }) => o.id === harbourside).staffCount as number;
+    };
+    const before = await countOf();
+    const member = await createStaff({ role: "clinician", organisationIds: [harbourside] });
+    expect(await countOf()).toBe(before + 1);
+    const off = await call(deactivate, `/api/admin/staff/${member.id}/deactivate`, { method: "POST", cookie: admin, params: { userId: member.id } });
+    expect(off.status).toBe(200);
+    expect(await countOf()).toBe(before);
+  });
+});
+
 describe("deployment settings", () => {
   it("the seed sets 999 for the demo; an admin changes it; digits only", async () => {
     const res = await call(settingsGet, "/api/admin/settings", { cookie: admin });
@@ -132,21 +154,56 @@ describe("deployment settings", () => {
     }
   });
 
-  it("the default intervals reach lib/clinical planDates as options", async () => {
-    const r = await call(settingsPatch, "/api/admin/settings", {
-      method: "PATCH",
-      cookie: admin,
-      body: { reviewIntervalDays: 14, dueSoonDays: 3, defaultMaxDwellDays: { "all-silicone": 56 } },
-    });
-    expect(r.status).toBe(200);
-    const options = planDatesOptions(await getSettings(), { today: "2026-03-01" });
-    const plan = planDates({ insertedOn: "2026-03-01", material: "all-silicone", route: "urethral" }, options);
-    expect(plan.change.intervalDays).toBe(56);
-    expect(plan.change.date).toBe("2026-04-26");
-    expect(plan.review.intervalDays).toBe(14);
-    // Cleared, the rules' own defaults apply again.
-    await call(settingsPatch, "/api/admin/settings", { method: "PATCH", cookie: admin, body: { reviewIntervalDays: null, dueSoonDays: null, defaultMaxDwellDays: null } });
-    expect(planDatesOptions(await getSettings())).toEqual({});
+  it("the planning settings reach the episodes and the caseload: a change of setting, read through the routes", async () => {
+    // A team of its own, so the caseload holds only this test's patient.
+    const team = await clinicianInNewTeam("Settings");
+    try {
+      const [gp] = await db.select({ id: organisations.id }).from(organisations).where(eq(organisations.kind, "gp_practice")).limit(1);
+      const reg = await call(createPatient, "/api/patients", {
+        cookie: team.cookie,
+        body: {
+          givenName: "Setta", familyName: `Ingham ${suffix()}`, healthRecordNumber: `ST-${suffix().slice(0, 8).toUpperCase()}`, dateOfBirth: "1950-02-03",
+          sex: "female", preferredLocale: "en", weightKg: null, allergies: { latex: "no", chlorhexidine: "no", lidocaine: "no", other: null },
+          gpPracticeId: gp.id, careTeamOrganisationIds: [team.organisationId],
+        },
+      });
+      expect(reg.status, await reg.clone().text()).toBe(201);
+      const patientId = (await reg.json()).patient.id as string;
+      const set = (body: Record<string, unknown>) => call(settingsPatch, "/api/admin/settings", { method: "PATCH", cookie: admin, body });
+      expect((await set({ reviewIntervalDays: 14, dueSoonDays: 3, defaultMaxDwellDays: { "all-silicone": 56 } })).status).toBe(200);
+
+      // Inserted 51 days ago with no maker's figure: the admin's 56 days put the change 5 days ahead.
+      const insertedAt = new Date(Date.now() - 51 * 86_400_000);
+      const ins = await call(postInsertion, `/api/patients/${patientId}/episodes`, {
+        cookie: team.cookie,
+        params: { patientId },
+        body: { ...demoDevice, material: "all-silicone", indication: "Chronic urinary retention", insertedAt: insertedAt.toISOString(), gelKind: "plain", gelVolumeMl: 11, attempts: 1, lot: "AB12", expiry: "2030-01-31", overrides: [] },
+      });
+      expect(ins.status, await ins.clone().text()).toBe(201);
+      const { episode } = await ins.json();
+      const insertedOn = dayIn(insertedAt, deploymentTimeZone());
+      expect(episode.plannedChangeOn).toBe(addDays(insertedOn, 56));
+      expect(episode.reviewDueOn).toBe(addDays(insertedOn, 14));
+
+      const caseload = async (filter?: string) => {
+        const res = await call(caseloadGet, `/api/caseload${filter ? `?filter=${filter}` : ""}`, { cookie: team.cookie });
+        expect(res.status).toBe(200);
+        return res.json();
+      };
+      // Five days ahead is not due soon with a 3-day window (the review, 14 days after insertion, is long overdue).
+      const all = await caseload();
+      expect(all.dueSoonDays).toBe(3);
+      expect(all.rows.map((r: { changeState: string }) => r.changeState)).toEqual(["ok"]);
+      expect((await caseload("due-soon")).total).toBe(0);
+      // Widened to 7 days by the admin, the same change is due soon: the caseload follows at once.
+      expect((await set({ dueSoonDays: 7 })).status).toBe(200);
+      const wider = await caseload("due-soon");
+      expect(wider.total).toBe(1);
+      expect(wider.rows[0].changeState).toBe("due-soon");
+    } finally {
+      await call(settingsPatch, "/api/admin/settings", { method: "PATCH", cookie: admin, body: { reviewIntervalDays: null, dueSoonDays: null, defaultMaxDwellDays: null } });
+      await team.cleanup();
+    }
   });
 
   it("refuses unknown keys and out-of-range values; clinicians and patients get 403", async () => {

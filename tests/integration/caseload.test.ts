@@ -212,7 +212,7 @@ describe("GET /api/caseload/export", () => {
           sex: "unknown",
           preferredLocale: "en",
           weightKg: null,
-          allergies: { latex: false, chlorhexidine: false, lidocaine: false, other: null },
+          allergies: { latex: "no", chlorhexidine: "no", lidocaine: "no", other: null },
           gpPracticeId: gp[0].id,
           careTeamOrganisationIds: [fixture.organisationId],
         },

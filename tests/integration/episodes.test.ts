@@ -61,7 +61,7 @@ let arthurId: string;
 const created: string[] = [];
 
 /** A patient of our own, so the demo patients other tests read stay as seeded. */
-async function makePatient(opts: { sex?: "male" | "female"; latex?: boolean; teams?: string[] } = {}) {
+async function makePatient(opts: { sex?: "male" | "female"; latex?: boolean | "not-asked"; teams?: string[] } = {}) {
   const [p] = await db
     .insert(patients)
     .values({
@@ -70,7 +70,9 @@ async function makePatient(opts: { sex?: "male" | "female"; latex?: boolean; tea
       healthRecordNumber: `EP-${randomUUID()}`,
       dateOfBirth: "1950-05-05",
       sex: opts.sex ?? "male",
-      allergyLatex: opts.latex ?? false,
+      allergyLatex: opts.latex === "not-asked" ? "not-asked" : opts.latex ? "yes" : "no",
+      allergyChlorhexidine: "no",
+      allergyLidocaine: "no",
     })
     .returning({ id: patients.id });
   created.push(p.id);
@@ -197,7 +199,7 @@ describe("POST /api/patients/[patientId]/episodes (insertion)", () => {
     expect(Object.keys(res.body.error.fields).sort()).toEqual(
       ["attempts", "balloonMl", "expiry", "gelVolumeMl", "indication", "route", "sizeCh"].sort(),
     );
-    expect(res.body.error.fields.sizeCh).toEqual(["out_of_range"]);
+    expect(res.body.error.fields.sizeCh).toEqual(["range:6:30:ch"]);
     const after = await counts(patientId);
     expect(after).toEqual(before);
   });
@@ -287,6 +289,18 @@ describe("POST …/episodes/check", () => {
     const after = await counts(arthurId);
     expect(after.episodes).toBe(before.episodes);
     expect(after.events).toBe(before.events);
+  });
+
+  it("warns that latex allergy is not recorded when nobody asked, and says nothing when the answer is no", async () => {
+    const unasked = await makePatient({ latex: "not-asked" });
+    const res = await post(postCheck, unasked, "/check", insertionBody({ material: "hydrogel-coated-latex" }));
+    expect(res.status).toBe(200);
+    const codes = res.body.findings.map((f: { code: string }) => f.code);
+    expect(codes).toContain("latex-allergy-unknown");
+    expect(codes).not.toContain("latex-allergy");
+    const asked = await makePatient({ latex: false });
+    const none = await post(postCheck, asked, "/check", insertionBody({ material: "hydrogel-coated-latex" }));
+    expect(none.body.findings.map((f: { code: string }) => f.code)).not.toContain("latex-allergy-unknown");
   });
 
   it("refuses an incomplete draft with field errors", async () => {

@@ -5,6 +5,9 @@ import { GET as accessLog } from "@/app/api/patients/[patientId]/access-log/rout
 import { GET as history } from "@/app/api/patients/[patientId]/history/route";
 import { GET as getPatient } from "@/app/api/patients/[patientId]/route";
 import { grantVisitAccess, patientIdByHrn, userIdByEmail } from "../support/fixtures";
+import { eq } from "drizzle-orm";
+import { db } from "@/db";
+import { auditEvents, user } from "@/db/schema";
 import { call, demo, sessionFor } from "../support/http";
 
 let halina: string;
@@ -54,37 +57,57 @@ describe("GET /api/patients/[patientId]/history", () => {
 });
 
 describe("GET /api/patients/[patientId]/access-log", () => {
-  it("shows every audit event for the patient, newest first, with who (name and role), what and how", async () => {
+  it("shows every audit event for the patient, newest first, with who (name and role), what and how; tab views run together", async () => {
     const nurse = await sessionFor("communityNurse");
     await call(getPatient, `/api/patients/${halina}`, { cookie: nurse, params: { patientId: halina } });
     await call(history, `/api/patients/${halina}/history`, { cookie: nurse, params: { patientId: halina } });
     const res = await call(accessLog, `/api/patients/${halina}/access-log`, { cookie: nurse, params: { patientId: halina } });
     expect(res.status).toBe(200);
     const body = await res.json();
-    expect(body.entries[0]).toMatchObject({ action: "patient.view.access-log", actorName: "Grace Mensah", actorRole: "clinician", via: "care_team" });
-    expect(body.entries[1]).toMatchObject({ action: "patient.view.history", actorName: "Grace Mensah" });
-    expect(body.entries[2]).toMatchObject({ action: "patient.view.details" });
+    // Details, history and the log itself, seconds apart: one line, "viewed the record 3 times".
+    expect(body.entries[0]).toMatchObject({ action: "patient.view", actorName: "Grace Mensah", actorRole: "clinician", via: "care_team" });
+    expect(body.entries[0].count).toBeGreaterThanOrEqual(3);
+    expect(new Date(body.entries[0].firstAt).getTime()).toBeLessThanOrEqual(new Date(body.entries[0].at).getTime());
     const times = body.entries.map((e: { at: string }) => e.at);
     expect(times).toEqual([...times].sort().reverse());
     expect(JSON.stringify(body)).not.toMatch(/ipHash|ip_hash/);
   });
 
+  it("68 tab views in 10 minutes are one line; a change between them stays its own line; views an hour apart are two", async () => {
+    const [grace] = await db.select({ id: user.id }).from(user).where(eq(user.email, demo.communityNurse.email));
+    const at = (minutesAgo: number) => new Date(Date.now() - minutesAgo * 60_000);
+    const tabs = ["patient.view.device", "patient.view.history", "patient.view.check-ins", "patient.view.letters"];
+    await db.insert(auditEvents).values([
+      ...Array.from({ length: 68 }, (_, i) => ({ action: tabs[i % 4], actorUserId: grace.id, actorRole: "clinician", patientId: maria, via: "care_team" as const, at: at(200 - (i * 10) / 68) })),
+      { action: "patient.update", actorUserId: grace.id, actorRole: "clinician", patientId: maria, via: "care_team" as const, at: at(195) },
+      { action: "patient.view.device", actorUserId: grace.id, actorRole: "clinician", patientId: maria, via: "care_team" as const, at: at(120) },
+    ]);
+    const log = await (await call(accessLog, `/api/patients/${maria}/access-log?pageSize=100`, { cookie: await sessionFor("communityNurse"), params: { patientId: maria } })).json();
+    const mine = log.entries.filter((e: { at: string }) => Date.now() - new Date(e.at).getTime() > 100 * 60_000 && Date.now() - new Date(e.at).getTime() < 210 * 60_000);
+    expect(mine.map((e: { action: string; count: number }) => [e.action, e.count])).toEqual([
+      ["patient.view.device", 1],
+      ["patient.view", 68],
+      ["patient.update", 1],
+    ]);
+  });
+
   it("pages the log", async () => {
     const nurse = await sessionFor("communityNurse");
-    const p1 = await (await call(accessLog, `/api/patients/${halina}/access-log?pageSize=2`, { cookie: nurse, params: { patientId: halina } })).json();
-    const p2 = await (await call(accessLog, `/api/patients/${halina}/access-log?pageSize=2&page=2`, { cookie: nurse, params: { patientId: halina } })).json();
+    const p1 = await (await call(accessLog, `/api/patients/${maria}/access-log?pageSize=2`, { cookie: nurse, params: { patientId: maria } })).json();
+    const p2 = await (await call(accessLog, `/api/patients/${maria}/access-log?pageSize=2&page=2`, { cookie: nurse, params: { patientId: maria } })).json();
     expect(p1.entries).toHaveLength(2);
     expect(p2.entries.length).toBeGreaterThan(0);
+    expect(p2.entries[0].id).not.toBe(p1.entries[0].id);
     expect(p2.total).toBeGreaterThanOrEqual(p1.total);
-    const far = await (await call(accessLog, `/api/patients/${halina}/access-log?pageSize=2&page=999`, { cookie: nurse, params: { patientId: halina } })).json();
+    const far = await (await call(accessLog, `/api/patients/${maria}/access-log?pageSize=2&page=999`, { cookie: nurse, params: { patientId: maria } })).json();
     expect(far.entries).toEqual([]);
-    expect(far.total).toBeGreaterThan(3);
-    const bad = await call(accessLog, `/api/patients/${halina}/access-log?pageSize=500`, { cookie: nurse, params: { patientId: halina } });
+    expect(far.total).toBeGreaterThan(2);
+    const bad = await call(accessLog, `/api/patients/${maria}/access-log?pageSize=500`, { cookie: nurse, params: { patientId: maria } });
     expect(bad.status).toBe(400);
     expect((await bad.json()).error.fields.pageSize).toBeDefined();
   });
 
-  it("records visit access as such, and keeps the log for the care team only", async () => {
+  it("records visit access as such, keeps the log for the care team only, and filters people outside the care team", async () => {
     const rowan = await userIdByEmail(demo.rowanNurse.email);
     const yusuf = await patientIdByHrn("EM-100-003");
     const visitor = await sessionFor("rowanNurse");
@@ -96,9 +119,16 @@ describe("GET /api/patients/[patientId]/access-log", () => {
     } finally {
       await revoke();
     }
-    const log = await (await call(accessLog, `/api/patients/${yusuf}/access-log`, { cookie: await sessionFor("communityNurse"), params: { patientId: yusuf } })).json();
-    const visit = log.entries.find((e: { action: string; actorName: string }) => e.action === "patient.view.history" && e.actorName === "Priya Sandhu");
+    const nurse = await sessionFor("communityNurse");
+    const log = await (await call(accessLog, `/api/patients/${yusuf}/access-log`, { cookie: nurse, params: { patientId: yusuf } })).json();
+    const visit = log.entries.find((e: { actorName: string; via: string }) => e.actorName === "Priya Sandhu" && e.via === "visit_access");
     expect(visit).toMatchObject({ via: "visit_access", actorRole: "clinician" });
+    const outside = await (await call(accessLog, `/api/patients/${yusuf}/access-log?who=outside`, { cookie: nurse, params: { patientId: yusuf } })).json();
+    expect(outside.filter).toBe("outside");
+    expect(outside.entries.length).toBeGreaterThan(0);
+    expect(outside.entries.every((e: { via: string | null }) => e.via !== "care_team" && e.via !== "system")).toBe(true);
+    expect(outside.entries.some((e: { actorName: string }) => e.actorName === "Priya Sandhu")).toBe(true);
+    expect(outside.total).toBeLessThan(log.total);
   });
 
   it("401 anonymous; 403 patient, carer, admin", async () => {

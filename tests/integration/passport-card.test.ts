@@ -13,6 +13,7 @@ import { findPatientAccess } from "@/db/queries/access";
 import { auditEvents, visitAccess } from "@/db/schema";
 import { getViewerFromHeaders, type Viewer } from "@/lib/auth/session";
 import { generateToken, issuePassport, type IssuedPassport } from "@/lib/passport";
+import { generateShortCode } from "@/lib/passport/tokens";
 import { withPassportHeaders } from "@/lib/http/secret-headers";
 import { CARD_LIMIT, isCardPath, limitCardRequest } from "@/lib/qr/card-limit";
 import { openDeviceCard } from "@/lib/qr/device-card";
@@ -42,7 +43,7 @@ describe("device card", () => {
     if (r.kind !== "ok") return;
     expect(r.card.device).toMatchObject({ sizeCh: expect.any(Number), balloonMl: expect.any(Number), route: expect.any(String), plannedChangeOn: expect.stringMatching(/^\d{4}-\d{2}-\d{2}$/) });
     // Arthur Pell is the seeded latex-allergic patient.
-    expect(r.card.allergies.latex).toBe(true);
+    expect(r.card.allergies.latex).toBe("yes");
     expect(r.card.careTeam?.phone).toBeTruthy();
     expect(Object.keys(r.card).sort()).toEqual(["allergies", "careTeam", "device", "patientLocale"]);
     const text = JSON.stringify(r.card);
@@ -67,15 +68,35 @@ describe("device card", () => {
     }
   });
 
-  it("opens with the typed short code too, however it is written", async () => {
+  it("opens with the typed short code too, however it is written, and logs the view as by code", async () => {
     const typed = current.shortCode.toLowerCase().replace(/-/g, " ");
-    const r = await openDeviceCard({ credential: typed, request: from("10.50.0.1"), viewer: null });
+    const r = await openDeviceCard({ credential: typed, request: from("10.50.0.1"), viewer: nurse });
     expect(r.kind).toBe("ok");
+    const [row] = await db.select().from(auditEvents).where(and(eq(auditEvents.patientId, arthur), eq(auditEvents.action, "passport.card.view"))).orderBy(desc(auditEvents.id)).limit(1);
+    expect(row).toMatchObject({ via: "short_code", details: expect.objectContaining({ by: "short-code" }) });
+  });
+
+  it("tells a mistyped code apart: one symbol wrong, two swapped, or the wrong length → check the code", async () => {
+    const code = current.shortCode.replace(/-/g, "");
+    const other = (c: string) => (c === "A" ? "B" : "A");
+    const mistyped = [
+      other(code[5]) === code[5] ? code : code.slice(0, 5) + other(code[5]) + code.slice(6),
+      code.slice(0, 2) + code[3] + code[2] + code.slice(4),
+      code.slice(0, 11),
+    ].filter((c) => c !== code && !(c.length === 13 && c[2] === c[3]));
+    for (const credential of mistyped) {
+      const r = await openDeviceCard({ credential, request: from("10.50.0.5"), viewer: null });
+      expect(r, credential).toEqual({ kind: "typo" });
+    }
+    const [row] = await db.select().from(auditEvents).where(eq(auditEvents.action, "passport.card.typo")).orderBy(desc(auditEvents.id)).limit(1);
+    expect(row).toMatchObject({ via: "short_code", patientId: null });
   });
 
   it("gives the revoked token and code (after reissue) and unknown ones one and the same answer", async () => {
+    // An unknown code with a right check symbol, and one printed before check symbols existed.
+    const unknown = generateShortCode();
     const answers = await Promise.all(
-      [tokenOf(first), first.shortCode, generateToken(), "ABCD-EFGH-JKMN", "", "x".repeat(500)].map((credential) =>
+      [tokenOf(first), first.shortCode, generateToken(), unknown, unknown.slice(0, 12), "ABCD-EFGH-JKMN"].map((credential) =>
         openDeviceCard({ credential, request: from("10.50.0.2"), viewer: null }),
       ),
     );

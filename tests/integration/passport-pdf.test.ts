@@ -151,7 +151,7 @@ describe("passport booklet (PDF)", () => {
       qrPngDataUrl: await qrPngDataUrl(url),
       issuedAt: new Date(),
       issuedByName: "Grace Mensah",
-      patient: { givenName: "Test", familyName: "Patient", dateOfBirth: "1950-01-01", healthRecordNumber: "EM-TEST", allergies: { latex: true, chlorhexidine: false, lidocaine: false, other: null } },
+      patient: { givenName: "Test", familyName: "Patient", dateOfBirth: "1950-01-01", healthRecordNumber: "EM-TEST", allergies: { latex: "yes", chlorhexidine: "no", lidocaine: "no", other: null } },
       device: null,
       history: events,
       contacts: { emergencyNumber: "999", outOfHoursServiceName: null, careTeams: [], gp: null },

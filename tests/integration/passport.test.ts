@@ -46,7 +46,7 @@ describe("POST /api/patients/[patientId]/passport", () => {
     expect(res.status).toBe(201);
     first = await res.json();
     expect(first.url).toMatch(new RegExp(`^${origin}/p/[A-Za-z0-9_-]{43}$`));
-    expect(first.shortCode).toMatch(new RegExp(`^[${SHORT_CODE_ALPHABET}]{4}-[${SHORT_CODE_ALPHABET}]{4}-[${SHORT_CODE_ALPHABET}]{4}$`));
+    expect(first.shortCode).toMatch(new RegExp(`^[${SHORT_CODE_ALPHABET}]{4}-[${SHORT_CODE_ALPHABET}]{4}-[${SHORT_CODE_ALPHABET}]{5}$`));
     expect(first.qrSvg.trim().startsWith("<svg")).toBe(true);
     expect(first.passport.languages).toEqual(["pl", "en"]);
     // The booklet is in the store under the passport's own key.

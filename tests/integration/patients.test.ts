@@ -33,7 +33,7 @@ function valid(overrides: Record<string, unknown> = {}) {
     sex: "male",
     preferredLocale: "en",
     weightKg: 71.5,
-    allergies: { latex: true, chlorhexidine: false, lidocaine: false, other: "Penicillin" },
+    allergies: { latex: "yes", chlorhexidine: "no", lidocaine: "not-asked", other: "Penicillin" },
     gpPracticeId: millbrook,
     careTeamOrganisationIds: [fixture.organisationId],
     ...overrides,
@@ -54,7 +54,7 @@ describe("POST /api/patients", () => {
     const body = await res.json();
     createdId = body.patient.id;
     const [row] = await db.select().from(patients).where(eq(patients.id, createdId));
-    expect(row).toMatchObject({ healthRecordNumber: "TST-0001", givenName: "Edwin", weightKg: 71.5, allergyLatex: true, allergyOther: "Penicillin", gpPracticeId: millbrook });
+    expect(row).toMatchObject({ healthRecordNumber: "TST-0001", givenName: "Edwin", weightKg: 71.5, allergyLatex: "yes", allergyChlorhexidine: "no", allergyLidocaine: "not-asked", allergyOther: "Penicillin", gpPracticeId: millbrook });
     const team = await db.select().from(careTeam).where(eq(careTeam.patientId, createdId));
     expect(team.map((t) => t.organisationId)).toEqual([fixture.organisationId]);
     const events = await db.select().from(auditEvents).where(and(eq(auditEvents.patientId, createdId), eq(auditEvents.action, "patient.create")));
@@ -86,7 +86,7 @@ describe("POST /api/patients", () => {
       dateOfBirth: ["dob_future"],
       sex: ["required"],
       preferredLocale: ["required"],
-      weightKg: ["weight_range"],
+      weightKg: ["range:1:400:kg"],
       gpPracticeId: ["gp_required"],
       careTeamOrganisationIds: ["care_team_required"],
     });
@@ -100,7 +100,7 @@ describe("POST /api/patients", () => {
     });
     expect(res.status).toBe(400);
     const { error } = await res.json();
-    expect(error.fields).toEqual({ dateOfBirth: ["dob_too_early"], weightKg: ["weight_range"], healthRecordNumber: ["hrn_format"] });
+    expect(error.fields).toEqual({ dateOfBirth: ["dob_too_early"], weightKg: ["range:1:400:kg"], healthRecordNumber: ["hrn_format"] });
   });
 
   it("409 with a field error for a health record number already registered, and nothing written", async () => {
@@ -162,7 +162,7 @@ describe("POST /api/patients", () => {
       expect(body.patient).toMatchObject({
         id: createdId,
         healthRecordNumber: "TST-0001",
-        allergies: { latex: true, chlorhexidine: false, lidocaine: false, other: "Penicillin" },
+        allergies: { latex: "yes", chlorhexidine: "no", lidocaine: "not-asked", other: "Penicillin" },
         gpPractice: { id: millbrook, name: "Millbrook Surgery" },
       });
       expect(body.patient.careTeam.map((o: { id: string }) => o.id)).toEqual([fixture.organisationId]);
@@ -177,7 +177,7 @@ describe("POST /api/patients", () => {
       const res = await call(getPatient, `/api/patients/${arthur}`, { cookie: await sessionFor("communityNurse"), params: { patientId: arthur } });
       const body = await res.json();
       expect(body.currentEpisode).toMatchObject({ route: "urethral", sizeCh: 14, balloonMl: 10, lot: "AP7731" });
-      expect(body.patient.allergies.latex).toBe(true);
+      expect(body.patient.allergies).toMatchObject({ latex: "yes", chlorhexidine: "no", lidocaine: "no" });
     });
 
     it("404 for a clinician of another organisation, the same as for no patient at all (ASVS 8.2.2)", async () => {
@@ -214,11 +214,11 @@ describe("POST /api/patients", () => {
         cookie: fixture.cookie,
         params: params(),
         method: "PATCH",
-        body: { weightKg: 69, allergies: { latex: true, chlorhexidine: true, lidocaine: false, other: "" } },
+        body: { weightKg: 69, allergies: { latex: "yes", chlorhexidine: "yes", lidocaine: "no", other: "" } },
       });
       expect(res.status, await res.clone().text()).toBe(200);
       const body = await res.json();
-      expect(body.patient).toMatchObject({ weightKg: 69, givenName: "Edwin", allergies: { chlorhexidine: true, other: null } });
+      expect(body.patient).toMatchObject({ weightKg: 69, givenName: "Edwin", allergies: { chlorhexidine: "yes", other: null } });
       const [event] = await db
         .select()
         .from(auditEvents)

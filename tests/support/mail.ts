@@ -128,7 +128,7 @@ export async function mailPatient(
   const hrn = `MT-${tag}`;
   const [p] = await db
     .insert(patients)
-    .values({ givenName, familyName, healthRecordNumber: hrn, dateOfBirth: "1948-05-17", sex: "male", allergyLatex: true, gpPracticeId: gp.id })
+    .values({ givenName, familyName, healthRecordNumber: hrn, dateOfBirth: "1948-05-17", sex: "male", allergyLatex: "yes", allergyChlorhexidine: "no", allergyLidocaine: "no", gpPracticeId: gp.id })
     .returning({ id: patients.id });
   await db.insert(careTeam).values([
     { patientId: p.id, organisationId: team.id },

@@ -4,6 +4,7 @@ import { describe, expect, it } from "vitest";
 import { sourceFiles } from "../support/source-files";
 import en from "@/messages/en.json";
 import { RECORD_KINDS } from "@/lib/validations/episode";
+import { actionMessageKey } from "@/lib/shared/audit-actions";
 
 // The access log shows each audit action in words; an action without a label showed its raw
 // name ("bag-change.add"). Every action the code can write about a patient needs one.
@@ -22,7 +23,7 @@ function actionsInCode(): Set<string> {
 }
 
 // Actions that are never about one patient, so never in a patient's access log.
-const notAboutAPatient = [/^admin\./, /^account\./, /^staff\./, /^caseload\./, /^retention\./, /^passport\.card\.invalid$/];
+const notAboutAPatient = [/^admin\./, /^account\./, /^staff\./, /^caseload\./, /^retention\./, /^passport\.card\.(invalid|typo)$/];
 
 describe("access log labels", () => {
   it("finds the actions the code writes", () => {
@@ -38,5 +39,11 @@ describe("access log labels", () => {
       .filter((a) => !notAboutAPatient.some((r) => r.test(a)))
       .filter((a) => !(a.replace(/[^a-zA-Z0-9]/g, "_") in labels));
     expect(missing, "add to PatientAccessLog.actions in messages/*.json").toEqual([]);
+  });
+
+  it("the audit search has words for every action the code writes, about a patient or not", () => {
+    const labels = { ...(en.PatientAccessLog.actions as Record<string, string>), ...(en.AdminAudit.actions as Record<string, string>) };
+    const missing = [...actionsInCode()].filter((a) => !(actionMessageKey(a) in labels));
+    expect(missing, "add to AdminAudit.actions in messages/*.json").toEqual([]);
   });
 });

@@ -5,7 +5,7 @@ import fs from "node:fs";
 import path from "node:path";
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { isAsked, isComplete, LEVEL_STEP_KEY, questionsFor, reachesEmergency, scoreAnswers, type SubmittedAnswers } from "@/lib/shared/check-in-flow";
+import { isAsked, isComplete, keepAsked, LEVEL_STEP_KEY, questionsFor, reachesEmergency, scoreAnswers, type SubmittedAnswers } from "@/lib/shared/check-in-flow";
 import { TRIAGE_LEVELS, TRIAGE_RULES, triageCheckIn, type CheckInAnswers } from "@/lib/clinical";
 import { locales } from "@/lib/i18n/routing";
 import { palette } from "@/tailwind.config";
@@ -142,5 +142,35 @@ describe("level marks are not colour alone and stand out (WCAG 1.4.11)", () => {
   ] as const)("%s mark ≥ 3:1 on its soft fill, text ≥ 4.5:1", (_l, c) => {
     expect(contrast(c.DEFAULT, c.soft)).toBeGreaterThanOrEqual(3);
     expect(contrast(c.ink, c.soft)).toBeGreaterThanOrEqual(4.5);
+  });
+});
+
+describe("catheter out, and answers kept when going back", () => {
+  it("after 'it came out' drainage is not asked, and the advice never talks about the tube or the bag", () => {
+    const questions = questionsFor("urethral");
+    const out = { catheterOut: true, pain: "none" } as const;
+    const asked = questions.filter((q) => isAsked(q, out)).map((q) => q.id);
+    expect(asked).not.toContain("draining");
+    expect(asked).not.toContain("hoursWithoutUrine");
+    expect(isComplete(out)).toBe(true);
+    const scored = scoreAnswers(out, "urethral")!;
+    const advice = scored.result.advice.map((a) => a.key);
+    expect(advice).toContain("no-reinsert");
+    expect(advice).not.toContain("check-tube");
+    expect(advice).not.toContain("bag-low");
+    expect(scored.result.level).toBe("urgent");
+  });
+
+  it("a suprapubic catheter out says why it is urgent", () => {
+    const scored = scoreAnswers({ catheterOut: true, pain: "none" }, "suprapubic")!;
+    expect(scored.result.reasons.map((r) => r.key)).toContain("suprapubic-out");
+    expect(scored.result.reasons.find((r) => r.key === "suprapubic-out")!.text).toMatch(/close within hours/);
+  });
+
+  it("changing an earlier answer drops only the answers no longer asked", () => {
+    const questions = questionsFor(null);
+    const kept = keepAsked(questions, { draining: "yes", hoursWithoutUrine: 18, pain: "mild", leaking: true });
+    expect(kept).toEqual({ draining: "yes", pain: "mild", leaking: true });
+    expect(keepAsked(questions, { catheterOut: true, draining: "none", pain: "none" })).toEqual({ catheterOut: true, pain: "none" });
   });
 });

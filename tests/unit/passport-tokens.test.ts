@@ -11,6 +11,8 @@ import {
   isWellFormedShortCode,
   isWellFormedToken,
   normaliseShortCode,
+  readShortCode,
+  shortCodeCheckCharacter,
   sha256Hex,
   SHORT_CODE_ALPHABET,
   SHORT_CODE_LENGTH,
@@ -69,8 +71,9 @@ describe("short code", () => {
     const codes = 4000;
     for (let i = 0; i < codes; i++) {
       const c = generateShortCode();
-      expect(c).toHaveLength(SHORT_CODE_LENGTH);
-      for (const ch of c) counts.set(ch, (counts.get(ch) ?? 0) + 1);
+      // 12 random symbols and the check symbol; only the random ones are counted.
+      expect(c).toHaveLength(SHORT_CODE_LENGTH + 1);
+      for (const ch of c.slice(0, SHORT_CODE_LENGTH)) counts.set(ch, (counts.get(ch) ?? 0) + 1);
     }
     const expected = (codes * SHORT_CODE_LENGTH) / 30;
     // Chi-square with 29 degrees of freedom: 80 is far beyond the 0.9999 quantile (≈ 67).
@@ -78,8 +81,35 @@ describe("short code", () => {
     expect(chi).toBeLessThan(80);
   });
 
+  it("a check symbol tells every single mistyped symbol and every swap of neighbours from a real code", () => {
+    for (let n = 0; n < 300; n++) {
+      const code = generateShortCode();
+      expect(readShortCode(code)).toEqual({ kind: "code", symbols: code.slice(0, SHORT_CODE_LENGTH) });
+      for (let i = 0; i < code.length; i++) {
+        for (const other of SHORT_CODE_ALPHABET) {
+          if (other === code[i]) continue;
+          const typo = code.slice(0, i) + other + code.slice(i + 1);
+          expect(readShortCode(typo).kind, `${code} → ${typo}`).toBe("typo");
+        }
+        if (i + 1 < code.length && code[i] !== code[i + 1]) {
+          const swapped = code.slice(0, i) + code[i + 1] + code[i] + code.slice(i + 2);
+          const pair = [code[i], code[i + 1]].map((c) => SHORT_CODE_ALPHABET.indexOf(c)).sort((a, b) => a - b);
+          // Luhn's one blind spot: the first and last symbols of the alphabet swapped.
+          if (!(pair[0] === 0 && pair[1] === 29)) expect(readShortCode(swapped).kind, `${code} ⇄ ${swapped}`).toBe("typo");
+        }
+      }
+    }
+  });
+
+  it("a code printed before the check symbol (12 symbols) still reads, and hashes like its 13-symbol form", () => {
+    const code = generateShortCode();
+    expect(readShortCode(code.slice(0, SHORT_CODE_LENGTH)).kind).toBe("code");
+    expect(hashShortCode(code)).toBe(hashShortCode(code.slice(0, SHORT_CODE_LENGTH)));
+    expect(readShortCode("ABCD-EFGH-JK").kind).toBe("malformed");
+  });
+
   it("is shown grouped and read back whatever the case, spaces or dashes", () => {
-    expect(formatShortCode("ABCDEFGHJKMN")).toBe("ABCD-EFGH-JKMN");
+    expect(formatShortCode("ABCDEFGHJKMN" + shortCodeCheckCharacter("ABCDEFGHJKMN"))).toMatch(/^ABCD-EFGH-JKMN.$/);
     expect(normaliseShortCode(" abcd-efgh jkmn ")).toBe("ABCDEFGHJKMN");
     expect(hashShortCode("abcd efgh-jkmn")).toBe(hashShortCode("ABCD-EFGH-JKMN"));
     // Keyed, so a leaked table cannot be searched offline; never the plain SHA-256.
@@ -88,6 +118,7 @@ describe("short code", () => {
     expect(hashShortCode("ABCD-EFGH-JKMN")).not.toBe(hashShortCode("ABCD-EFGH-JKMP"));
     expect(isWellFormedShortCode("abcd-efgh-jkmn")).toBe(true);
     expect(isWellFormedShortCode("ABCD-EFGH-JKM0")).toBe(false);
+    expect(isWellFormedShortCode(`abcd-efgh-jkmn${shortCodeCheckCharacter("ABCDEFGHJKMN").toLowerCase()}`)).toBe(true);
     expect(isWellFormedShortCode("ABCD-EFGH-JK")).toBe(false);
   });
 });

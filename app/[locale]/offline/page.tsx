@@ -1,7 +1,8 @@
 import { getTranslations, setRequestLocale } from "next-intl/server";
 import { LifebuoyIcon, PhoneIcon } from "@/components/portal/nav-icons";
 import { Wordmark } from "@/components/ui/logo";
-import { readEmergencyNumber, telHref } from "@/db/queries/contacts";
+import { telHref } from "@/db/queries/contacts";
+import { getEmergencyNumber } from "@/lib/config/settings";
 
 // Kept by the service worker for when the phone has no network. It holds nothing about any
 // patient: only the deployment's emergency number and general words.
@@ -17,7 +18,7 @@ export default async function OfflinePage({ params }: { params: Promise<{ locale
   const { locale } = await params;
   setRequestLocale(locale as "en");
   const t = await getTranslations("Offline");
-  const emergency = await readEmergencyNumber();
+  const emergency = await getEmergencyNumber();
   return (
     <main className="mx-auto flex min-h-dvh max-w-xl flex-col gap-5 p-5 text-body [overflow-wrap:anywhere]" data-testid="offline-page">
       <Wordmark size="lg" />

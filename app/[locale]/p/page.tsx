@@ -1,5 +1,5 @@
 import { getTranslations, setRequestLocale } from "next-intl/server";
-import { DeviceCardView, InvalidPassport } from "@/components/device-card/device-card-view";
+import { DeviceCardView, InvalidPassport, MistypedCode } from "@/components/device-card/device-card-view";
 import { buttonClass } from "@/components/ui/button";
 import { normaliseShortCode } from "@/lib/passport";
 import { cardRequest } from "@/lib/qr/card-page";
@@ -28,7 +28,7 @@ export default async function ShortCodePage({ params, searchParams }: { params: 
     if (result.kind === "ok") {
       return <DeviceCardView card={result.card} locale={locale} visitHref={`/${locale}/p/${normaliseShortCode(typed)}/visit`} />;
     }
-    notice = <InvalidPassport locale={locale} />;
+    notice = result.kind === "typo" ? <MistypedCode locale={locale} /> : <InvalidPassport locale={locale} />;
   }
   return (
     <div className="flex flex-col gap-6">

@@ -1,6 +1,6 @@
-import { db } from "@/db";
 import { addBagChange } from "@/db/queries/bag-changes";
 import { audit } from "@/lib/records/audit";
+import { writeRecord } from "@/lib/records/record-state";
 import { requirePortalPatient, requirePortalViewer } from "@/lib/auth/permissions";
 import { nextBagChange } from "@/lib/clinical";
 import { handle, json } from "@/lib/http/handle";
@@ -14,7 +14,7 @@ export const POST = handle(async (request) => {
   const input = await parseJsonBody(request, bagChangeSchema);
   const via = await requirePortalPatient(viewer, input.patientId);
   const today = todayIso();
-  const row = await db.transaction(async (tx) => {
+  const row = await writeRecord(input.patientId, async (tx) => {
     const change = await addBagChange({ patientId: input.patientId, kind: input.kind, changedOn: today, recordedByUserId: viewer.userId }, tx);
     await audit({ action: "bag-change.add", actor: viewer, patientId: input.patientId, via, request, details: { kind: input.kind, changedOn: today } }, tx);
     return change;

@@ -1,11 +1,11 @@
-import { db } from "@/db";
-import { addDiaryEntry, listDiaryEntries, toDiaryDto } from "@/db/queries/diary";
+import { addDiaryEntry, getDiaryEntryByClientKey, listDiaryEntries, toDiaryDto } from "@/db/queries/diary";
 import { audit } from "@/lib/records/audit";
+import { writeRecord } from "@/lib/records/record-state";
 import { requirePortalPatient, requirePortalViewer } from "@/lib/auth/permissions";
 import { AppError } from "@/lib/http/errors";
 import { handle, json } from "@/lib/http/handle";
 import { parseInput, parseJsonBody, searchParamsObject } from "@/lib/http/validate";
-import { DIARY_BACKDATE_DAYS, diaryEntrySchema, diaryRangeSchema } from "@/lib/validations/diary";
+import { diaryEntrySchema, diaryRangeSchema } from "@/lib/validations/diary";
 
 export const GET = handle(async (request) => {
   const viewer = await requirePortalViewer(request);
@@ -19,15 +19,21 @@ export const POST = handle(async (request) => {
   const viewer = await requirePortalViewer(request);
   const input = await parseJsonBody(request, diaryEntrySchema);
   const via = await requirePortalPatient(viewer, input.patientId);
-  const now = Date.now();
-  const at = input.at ? new Date(input.at) : new Date(now);
-  if (at.getTime() > now + 10 * 60_000 || at.getTime() < now - DIARY_BACKDATE_DAYS * 86_400_000) {
-    throw new AppError("validation_failed", undefined, { fields: { at: [`must be within the last ${DIARY_BACKDATE_DAYS} days`] } });
-  }
-  const row = await db.transaction(async (tx) => {
-    const entry = await addDiaryEntry({ patientId: input.patientId, kind: input.kind, volumeMl: input.volumeMl, at, recordedByUserId: viewer.userId }, tx);
-    await audit({ action: "diary.add", actor: viewer, patientId: input.patientId, via, request, details: { entryId: entry.id, kind: entry.kind } }, tx);
-    return entry;
+  // The time it was drunk or emptied, bounded by the schema; an entry sent at once is timed now.
+  const at = input.at ? new Date(input.at) : new Date();
+  const { row, created } = await writeRecord(input.patientId, async (tx) => {
+    const entry = await addDiaryEntry(
+      { patientId: input.patientId, kind: input.kind, volumeMl: input.volumeMl, at, recordedByUserId: viewer.userId, clientKey: input.clientKey },
+      tx,
+    );
+    if (!entry) {
+      // Sent again from the phone's outbox: the entry it made the first time, unless the key is someone else's.
+      const first = await getDiaryEntryByClientKey({ clientKey: input.clientKey! }, tx);
+      if (!first || first.patientId !== input.patientId) throw new AppError("conflict", "This entry key has been used already.");
+      return { row: first, created: false };
+    }
+    await audit({ action: "diary.add", actor: viewer, patientId: input.patientId, via, request, details: { entryId: entry.id, kind: entry.kind, delayed: Date.now() - at.getTime() > 5 * 60_000 } }, tx);
+    return { row: entry, created: true };
   });
-  return json({ entry: toDiaryDto(row, viewer.userId) }, { status: 201 });
+  return json({ entry: toDiaryDto(row, viewer.userId) }, { status: created ? 201 : 200 });
 });

@@ -1,11 +1,11 @@
-import { db } from "@/db";
 import { findPatientAccess } from "@/db/queries/access";
 import { grantVisitAccess } from "@/db/queries/passport-card";
 import { audit } from "@/lib/records/audit";
+import { writeRecord } from "@/lib/records/record-state";
 import { requireRole } from "@/lib/auth/permissions";
 import { AppError } from "@/lib/http/errors";
 import { handle, json } from "@/lib/http/handle";
-import { findPassport } from "@/lib/qr/device-card";
+import { findPassport, isMistypedCode } from "@/lib/qr/device-card";
 import { LIMITS, limitByAddress } from "@/lib/http/rate-limit";
 import { parseJsonBody } from "@/lib/http/validate";
 import { visitAccessSchema } from "@/lib/validations/visit-access";
@@ -21,10 +21,13 @@ export const POST = handle(async (request) => {
   // The short code is guessable in principle: the same per-address limit as the card.
   await limitByAddress(request, LIMITS.passportCard);
   const passport = await findPassport(body.token);
+  if (!passport && isMistypedCode(body.token)) {
+    throw new AppError("validation_failed", "The code has a typing mistake.", { fields: { token: ["check_code"] } });
+  }
   if (!passport) throw new AppError("not_found");
   const current = await findPatientAccess({ userId: viewer.userId, role: viewer.role, patientId: passport.patientId });
   if (current === "care_team") return json({ patientId: passport.patientId, via: "care_team", expiresAt: null });
-  const grant = await db.transaction(async (tx) => {
+  const grant = await writeRecord(passport.patientId, async (tx) => {
     const g = await grantVisitAccess({ patientId: passport.patientId, userId: viewer.userId, reason: body.reason, hours: VISIT_ACCESS_HOURS }, tx);
     await audit(
       {

@@ -19,6 +19,12 @@ export async function writeLabelVideo(bracketed: string, frames = 10): Promise<s
   return writeVideo(PNG.sync.read(await gs1DataMatrixPng(bracketed)), { fill: 0.6, frames, name: "label" });
 }
 
+/** A linear GS1-128 label (bwip-js puts FNC1 first and between variable fields, as printers do). */
+export async function writeGs1128Video(bracketed: string, frames = 10): Promise<string> {
+  const png = await bwipjs.toBuffer({ bcid: "gs1-128", text: bracketed, scale: 1, height: 12, paddingwidth: 12, paddingheight: 6, backgroundcolor: "FFFFFF" });
+  return writeVideo(PNG.sync.read(png), { fill: 0.95, frames, name: "gs1-128" });
+}
+
 /** Writes a QR of `text` (a passport address) the same way. */
 export async function writeQrVideo(text: string, frames = 10): Promise<string> {
   const png = PNG.sync.read(await bwipjs.toBuffer({ bcid: "qrcode", text, scale: 6, paddingwidth: 6, paddingheight: 6, backgroundcolor: "FFFFFF" }));

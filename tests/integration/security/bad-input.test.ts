@@ -5,6 +5,9 @@
 // included: refusals are not audited). ASVS 2.2.1, 2.2.2, 5.2.1, 16.5.1.
 import fc from "fast-check";
 import { beforeAll, describe, expect, it, vi } from "vitest";
+import { eq } from "drizzle-orm";
+import { db } from "@/db";
+import { episodeEvents } from "@/db/schema";
 import { errorStatus } from "@/lib/http/errors";
 import { changedTables, databaseTables, schemaTables, snapshot } from "../../support/db-snapshot";
 import { call, sessionFor } from "../../support/http";
@@ -103,6 +106,29 @@ describe("bad input on every route that takes a body", () => {
     expect(await databaseTables()).toEqual(schemaTables);
   });
 
+  // Every route that reads its body through lib/validate refuses a control character in any
+  // string, named by its field, whatever the route's own schema holds (NUL gave a 500 before).
+  for (const target of targets) {
+    if (target.plan?.ownParser || target.plan?.noBody) continue;
+    it(`${target.key} refuses a NUL or a control character in every field with a field error, and writes nothing`, async () => {
+      const plan = target.plan!;
+      const params = plan.params ? plan.params({ patientId: fixture.patientId }) : {};
+      const path = (plan.paths ?? [fillPattern(target.pattern, params)])[0];
+      const cookie = plan.persona === "anonymous" ? undefined : await sessionFor(personaAccount[plan.persona]);
+      const fields = schemaFieldNames();
+      const before = await snapshot();
+      for (const bad of ["Pell\u0000", "FUZZ\u001b[31m", "a\u0008b"]) {
+        const body = Object.fromEntries(fields.map((f) => [f, bad]));
+        const res = await call(target.handler, path, { method: target.method, cookie, params, body, headers: { "x-forwarded-for": "10.78.0.1" } });
+        expect(res.status, await res.clone().text()).toBe(400);
+        const { error } = (await res.json()) as { error: { code: string; fields: Record<string, string[]> } };
+        expect(error.code).toBe("validation_failed");
+        for (const f of fields) expect(error.fields[f], f).toContain("control_character");
+      }
+      expect(changedTables(before, await snapshot(), plan.mayWrite), "nothing written").toEqual([]);
+    });
+  }
+
   // One test per body route on disk: a route added later is covered without editing this file.
   for (const target of targets) {
     const { key, method } = target;
@@ -154,4 +180,52 @@ describe("bad input on every route that takes a body", () => {
         expect(acceptedBodies, "bodies the schema accepted").toBeLessThanOrEqual(Math.ceil(RUNS / 10));
     });
   }
+});
+
+// The three places a NUL gave a 500, and the upload label once shown as "FUZZ exe.png": real
+// bodies, otherwise valid, each refused on its field; notes keep their line breaks.
+describe("text with control and bidirectional characters, in otherwise valid bodies", () => {
+  const route = (key: string) => targets.find((t) => t.key === key)!;
+  const send = async (key: string, body: unknown, who: Persona = "careTeamClinician") => {
+    const t = route(key);
+    const params = { patientId: fixture.patientId };
+    return call(t.handler, fillPattern(t.pattern, params), { method: t.method, cookie: await sessionFor(personaAccount[who as Exclude<Persona, "anonymous">]), params, body });
+  };
+  const supply = (note: string) => ({ periodDays: 28, include: { legBag: true, valve: false, nightBag: true, gel: false }, items: [{ item: "catheter", quantity: 2 }], note });
+
+  it("PATCH patient, supply-request note, upload label: a NUL is a 400 on that field, nothing written", async () => {
+    await sessionFor("communityNurse");
+    const before = await snapshot();
+    const cases: [string, unknown, string][] = [
+      ["PATCH /api/patients/[patientId]", { familyName: "Pell\u0000" }, "familyName"],
+      ["POST /api/patients/[patientId]/supply-requests", supply("Two spare\u0000 please"), "note"],
+      ["POST /api/patients/[patientId]/uploads", { category: "site-photo", label: "Site\u0000", contentType: "image/png", sizeBytes: 2048 }, "label"],
+    ];
+    for (const [key, body, field] of cases) {
+      const res = await send(key, body);
+      expect(res.status, key).toBe(400);
+      expect((await res.json()).error.fields[field], key).toContain("control_character");
+    }
+    expect(changedTables(before, await snapshot())).toEqual([]);
+  });
+
+  it("a bidirectional override is refused in names and labels; line breaks are refused in a name and kept in a note", async () => {
+    await sessionFor("communityNurse");
+    const before = await snapshot();
+    const label = await send("POST /api/patients/[patientId]/uploads", { category: "site-photo", label: "FUZZ\u202Egnp.exe", contentType: "image/png", sizeBytes: 2048 });
+    expect((await label.json()).error.fields.label).toEqual(["bidi_control"]);
+    const name = await send("PATCH /api/patients/[patientId]", { givenName: "Art\u2066hur", familyName: "Pell\nSmith" });
+    const fields = (await name.json()).error.fields;
+    expect(fields.givenName).toEqual(["bidi_control"]);
+    expect(fields.familyName).toEqual(["one_line"]);
+    expect(changedTables(before, await snapshot())).toEqual([]);
+    // Right-to-left marks are part of writing Arabic and Urdu, not overrides: kept.
+    const rlm = await send("PATCH /api/patients/[patientId]", { allergies: { latex: "yes", chlorhexidine: "no", lidocaine: "no", other: "بنسلين\u200F" } });
+    expect(rlm.status).toBe(200);
+    const notes = "Bag emptied at 06:00.\n\tSite clean, no redness.";
+    const visit = await send("POST /api/patients/[patientId]/visits", { occurredAt: new Date(Date.now() - 60_000).toISOString(), notes });
+    expect(visit.status, await visit.clone().text()).toBe(201);
+    const [event] = await db.select({ notes: episodeEvents.notes }).from(episodeEvents).where(eq(episodeEvents.id, (await visit.json()).eventId));
+    expect(event.notes).toBe(notes);
+  });
 });

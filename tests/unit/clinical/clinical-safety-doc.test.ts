@@ -2,7 +2,7 @@ import { readdirSync, readFileSync } from "node:fs";
 import { dirname, join } from "node:path";
 import { fileURLToPath } from "node:url";
 import { describe, expect, it } from "vitest";
-import { FINDING_CODES, sourceTitle, SOURCES, TRIAGE_RULES, type SourceId } from "@/lib/clinical";
+import { FINDING_CODES, SOURCES, TRIAGE_RULES } from "@/lib/clinical";
 
 // Test-only file reads; lib/clinical itself never imports node:.
 const root = join(dirname(fileURLToPath(import.meta.url)), "..", "..", "..");
@@ -25,6 +25,14 @@ function findTests(file: string, dir = join(root, "tests")): string[] {
     const full = join(dir, entry.name);
     if (entry.isDirectory()) return findTests(file, full);
     return entry.name === file ? [full] : [];
+  });
+}
+/** The product's own code (not tests), where controls live. */
+function codeFiles(dir = root): string[] {
+  return readdirSync(dir, { withFileTypes: true }).flatMap((entry) => {
+    const full = join(dir, entry.name);
+    if (entry.isDirectory()) return ["app", "components", "db", "lib", "scripts", "proxy.ts"].includes(entry.name) || dir !== root ? codeFiles(full) : [];
+    return /\.(ts|tsx)$/.test(entry.name) && (dir !== root || entry.name === "proxy.ts" || entry.name === "instrumentation.ts") ? [full] : [];
   });
 }
 const risk = (sev: string, lik: string) => MATRIX[lik][SEVERITIES.indexOf(sev)];
@@ -64,6 +72,23 @@ describe("docs/clinical-safety.md", () => {
     }
   });
 
+  it("every piece of code a control names exists in the code", () => {
+    // Controls name their code (assertRecordOpen, planDates, PLAN_DEFAULTS…): a control whose
+    // function was renamed or never written is no control at all.
+    const code = codeFiles().map((f) => readFileSync(f, "utf8")).join("\n");
+    const missing: string[] = [];
+    for (const r of rows) {
+      const controls = [r[5], r[9], r[14]].join(" ");
+      const names = new Set([...controls.matchAll(/\b([a-z]+[A-Z][A-Za-z0-9]*|[A-Z][A-Z0-9]*_[A-Z0-9_]+)\b/g)].map((m) => m[1]));
+      for (const name of names) {
+        // Declared or used (a Web API such as localStorage is used, not declared).
+        const present = new RegExp(`(function|const|let|class|type|interface)\\s+${name}\\b|\\b${name}\\s*[:=(.]`);
+        if (!present.test(code)) missing.push(`${r[0]}: ${name}`);
+      }
+    }
+    expect(missing).toEqual([]);
+  });
+
   it("every cited test exists in the cited file", () => {
     for (const r of rows) {
       const cites = [...r[13].matchAll(/`([\w.-]+\.test\.ts)` › "([^"]+)"/g)];
@@ -86,9 +111,10 @@ describe("lib/clinical/README.md", () => {
     for (const code of FINDING_CODES) expect(readme).toContain(code.replace(/-unknown$/, ""));
   });
 
-  it("every source id has a title and evidence", () => {
-    for (const [id, s] of Object.entries(SOURCES)) {
-      expect(sourceTitle(id as SourceId)).toBe(s.title);
+  it("every source id has its own title and an evidence grade", () => {
+    const titles = Object.values(SOURCES).map((s) => s.title);
+    expect(new Set(titles).size, "two sources share a title").toBe(titles.length);
+    for (const s of Object.values(SOURCES)) {
       expect(s.title.length).toBeGreaterThan(5);
       expect(["seen", "recalled", "common-practice"]).toContain(s.evidence);
     }

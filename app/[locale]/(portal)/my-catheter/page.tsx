@@ -5,6 +5,11 @@ import { Card } from "@/components/ui/card";
 import { getMyCatheter } from "@/db/queries/portal";
 import { requirePageRole } from "@/lib/auth/permissions";
 import { portalPatient, portalPatients, subjectName } from "@/lib/portal";
+import { allergySummary } from "@/lib/clinical/allergies";
+import { parseIsoDate } from "@/lib/clinical";
+import { todayIso } from "@/lib/shared/time-zone";
+import { DueWords } from "@/components/portal/due-words";
+import type { ReactNode } from "react";
 
 export async function generateMetadata() {
   const t = await getTranslations("MyCatheter");
@@ -21,15 +26,18 @@ export default async function MyCatheterPage({ params, searchParams }: { params:
   const { episode, allergies } = await getMyCatheter({ patientId: patient.id });
   const day = (d: string) => format.dateTime(new Date(`${d}T12:00:00Z`), { weekday: "long", day: "numeric", month: "long", year: "numeric", timeZone: "UTC" });
   const carerOf = subjectName(viewer, patient);
-  const allergyList = allergies
-    ? [allergies.latex && t("allergy.latex"), allergies.chlorhexidine && t("allergy.chlorhexidine"), allergies.lidocaine && t("allergy.lidocaine"), allergies.other].filter(Boolean)
-    : [];
-  const row = (label: string, value: string, testId?: string) => (
+  const summary = allergies ? allergySummary(allergies) : { present: [], notRecorded: [] };
+  const allergyList = [...summary.present.map((a) => t(`allergy.${a}`)), ...(allergies?.other ? [allergies.other] : [])];
+  const notAsked = summary.notRecorded.map((a) => t(`allergy.${a}`)).join(", ");
+  const today = todayIso();
+  const daysUntil = (d: string) => parseIsoDate("date", d) - parseIsoDate("today", today);
+  const row = (label: string, value: string, testId?: string, more?: ReactNode) => (
     <div className="flex flex-col border-b border-stone-faint py-2 last:border-b-0">
       <dt className="text-ink-soft">{label}</dt>
       <dd className="text-xl font-bold tabular" data-testid={testId}>
         {value}
       </dd>
+      {more ? <dd>{more}</dd> : null}
     </div>
   );
   return (
@@ -46,8 +54,8 @@ export default async function MyCatheterPage({ params, searchParams }: { params:
             {row(t("type"), t(`types.${episode.catheterType}`))}
             {row(t("material"), t(`materials.${episode.material}`))}
             {row(t("insertedOn"), t("insertedValue", { date: format.dateTime(episode.insertedAt, { weekday: "long", day: "numeric", month: "long", year: "numeric" }), name: episode.insertedByName }))}
-            {row(t("nextChange"), day(episode.plannedChangeOn))}
-            {row(t("review"), day(episode.reviewDueOn))}
+            {row(t("nextChange"), day(episode.plannedChangeOn), "next-change", <DueWords days={daysUntil(episode.plannedChangeOn)} testId="next-change-due" />)}
+            {row(t("review"), day(episode.reviewDueOn), "review", <DueWords days={daysUntil(episode.reviewDueOn)} testId="review-due" />)}
           </dl>
           {episode.awaitingTwoc ? <p className="mt-3 rounded-lg bg-level-soon-soft p-3 text-level-soon-ink">{t("twoc")}</p> : null}
         </Card>
@@ -62,9 +70,14 @@ export default async function MyCatheterPage({ params, searchParams }: { params:
               <li key={String(a)}>{a}</li>
             ))}
           </ul>
-        ) : (
+        ) : notAsked ? null : (
           <p>{t("noAllergies")}</p>
         )}
+        {notAsked ? (
+          <p className="font-bold" data-testid="allergy-not-recorded">
+            {t("allergyNotRecorded", { allergens: notAsked })}
+          </p>
+        ) : null}
         <p className="text-ink-soft">{t("wrong")}</p>
       </Card>
       <SitePhotoUpload patientId={patient.id} />

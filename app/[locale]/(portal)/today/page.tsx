@@ -1,4 +1,5 @@
 import { getFormatter, getTranslations } from "next-intl/server";
+import { DueWords } from "@/components/portal/due-words";
 import { LevelBadge } from "@/components/portal/level-badge";
 import { PatientSwitcher } from "@/components/portal/patient-switcher";
 import { BagChangeButtons } from "@/components/today/bag-change-buttons";
@@ -11,6 +12,9 @@ import { BAG_INTERVALS, bagSchedule, parseIsoDate } from "@/lib/clinical";
 import { Link } from "@/lib/i18n/navigation";
 import { todayIso } from "@/lib/shared/time-zone";
 import { portalPatient, portalPatients, subjectName } from "@/lib/portal";
+
+/** How long the last check-in's instruction ("call now") still reads as today's (common practice, no source). */
+const LAST_CHECK_IN_CURRENT_HOURS = 24;
 
 export async function generateMetadata() {
   const t = await getTranslations("Today");
@@ -62,7 +66,7 @@ export default async function TodayPage({ params, searchParams }: { params: Prom
             <p className="text-2xl font-bold" data-testid="next-change">
               {day(summary.episode.plannedChangeOn)}
             </p>
-            <p>{change! < 0 ? t("changeOverdue") : change === 0 ? t("changeToday") : t("changeInDays", { days: change! })}</p>
+            <DueWords days={change!} testId="next-change-due" />
           </>
         ) : (
           <p>{t("noCatheter")}</p>
@@ -96,8 +100,20 @@ export default async function TodayPage({ params, searchParams }: { params: Prom
         {summary?.lastCheckIn ? (
           <>
             <LevelBadge level={summary.lastCheckIn.level} size="small" />
-            <p>{t("lastCheckIn", { when: format.dateTime(summary.lastCheckIn.createdAt, { weekday: "long", day: "numeric", month: "long", hour: "numeric", minute: "2-digit" }) })}</p>
-            <p className="font-bold">{tc(`advice.${LEVEL_STEP_KEY[summary.lastCheckIn.level]}`)}</p>
+            <p>{t("lastCheckIn", { when: format.dateTime(summary.lastCheckIn.at, { weekday: "long", day: "numeric", month: "long", hour: "numeric", minute: "2-digit" }) })}</p>
+            {Date.now() - summary.lastCheckIn.at.getTime() <= LAST_CHECK_IN_CURRENT_HOURS * 3_600_000 ? (
+              <p className="font-bold" data-testid="last-check-in-advice">
+                {tc(`advice.${LEVEL_STEP_KEY[summary.lastCheckIn.level]}`)}
+              </p>
+            ) : (
+              // An old instruction is history, not today's instruction.
+              <>
+                <p className="font-bold" data-testid="last-check-in-old">
+                  {t("lastCheckInOld")}
+                </p>
+                <p className="text-ink-soft">{t("lastCheckInThen", { advice: tc(`advice.${LEVEL_STEP_KEY[summary.lastCheckIn.level]}`) })}</p>
+              </>
+            )}
           </>
         ) : (
           <p>{t("noCheckIn")}</p>

@@ -2,6 +2,7 @@ import { headers } from "next/headers";
 import { getTranslations } from "next-intl/server";
 import { CaseloadView } from "@/components/caseload/caseload-view";
 import { listCaseload } from "@/db/queries/caseload";
+import { getPlanDefaults } from "@/lib/config/settings";
 import { audit } from "@/lib/records/audit";
 import { requirePageRole } from "@/lib/auth/permissions";
 import { Link } from "@/lib/i18n/navigation";
@@ -26,7 +27,8 @@ export default async function CaseloadPage({
   // A hand-edited address with a bad value falls back to the default view rather than an error.
   const parsed = caseloadQuerySchema.safeParse(raw);
   const query = parsed.success ? parsed.data : caseloadQuerySchema.parse({});
-  const data = await listCaseload({ organisationIds: viewer.organisationIds, query });
+  const { dueSoonDays } = await getPlanDefaults();
+  const data = await listCaseload({ organisationIds: viewer.organisationIds, query, dueSoonDays });
   await audit({
     action: "caseload.view",
     actor: viewer,

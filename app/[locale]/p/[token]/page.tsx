@@ -1,5 +1,5 @@
 import { getTranslations, setRequestLocale } from "next-intl/server";
-import { DeviceCardView, InvalidPassport } from "@/components/device-card/device-card-view";
+import { DeviceCardView, InvalidPassport, MistypedCode } from "@/components/device-card/device-card-view";
 import { cardRequest } from "@/lib/qr/card-page";
 import { openDeviceCard } from "@/lib/qr/device-card";
 
@@ -19,5 +19,6 @@ export default async function DeviceCardPage({ params }: { params: Promise<Param
   const { request, viewer } = await cardRequest();
   const result = await openDeviceCard({ credential: decodeURIComponent(token), request, viewer });
   if (result.kind === "invalid") return <InvalidPassport locale={locale} />;
+  if (result.kind === "typo") return <MistypedCode locale={locale} />;
   return <DeviceCardView card={result.card} locale={locale} visitHref={`/${locale}/p/${encodeURIComponent(token)}/visit`} />;
 }

@@ -2,6 +2,7 @@ import { createTranslator } from "next-intl";
 import { listCaseloadAll } from "@/db/queries/caseload";
 import { requireRole } from "@/lib/auth/permissions";
 import { audit } from "@/lib/records/audit";
+import { getPlanDefaults } from "@/lib/config/settings";
 import { toCsv } from "@/lib/http/csv";
 import { handle } from "@/lib/http/handle";
 import { isLocale } from "@/lib/i18n/routing";
@@ -16,7 +17,8 @@ export const GET = handle(async (request) => {
   const locale = params.locale && isLocale(params.locale) ? params.locale : viewer.locale && isLocale(viewer.locale) ? viewer.locale : "en";
   const messages = (await import(`../../../../messages/${locale}.json`)).default;
   const t = createTranslator({ locale, messages, namespace: "CaseloadExport" });
-  const { rows, today } = await listCaseloadAll({ organisationIds: viewer.organisationIds, view });
+  const { dueSoonDays } = await getPlanDefaults();
+  const { rows, today } = await listCaseloadAll({ organisationIds: viewer.organisationIds, view, dueSoonDays });
   const csv = toCsv([
     [
       t("name"),
@@ -40,7 +42,7 @@ export const GET = handle(async (request) => {
       r.daysSinceInsertion,
       r.plannedChangeOn,
       r.reviewDueOn,
-      r.state ? t(`states.${r.state}`) : "",
+      r.state ? t(`states.${r.state}`, { days: dueSoonDays }) : "",
       r.latestCheckInLevel ? t(`levels.${r.latestCheckInLevel}`) : "",
       r.awaitingTwoc ? t("yes") : "",
     ]),

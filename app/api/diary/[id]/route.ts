@@ -1,6 +1,6 @@
-import { db } from "@/db";
 import { canRemove, deleteDiaryEntry, getDiaryEntry } from "@/db/queries/diary";
 import { audit } from "@/lib/records/audit";
+import { writeRecord } from "@/lib/records/record-state";
 import { isUuid, requirePortalPatient, requirePortalViewer } from "@/lib/auth/permissions";
 import { AppError } from "@/lib/http/errors";
 import { handle } from "@/lib/http/handle";
@@ -15,7 +15,7 @@ export const DELETE = handle<{ params: Promise<{ id: string }> }>(async (request
   if (!entry) throw new AppError("not_found");
   const via = await requirePortalPatient(viewer, entry.patientId);
   if (!canRemove(entry, viewer.userId)) throw new AppError("forbidden", "Only entries you added in the last 24 hours can be removed.");
-  await db.transaction(async (tx) => {
+  await writeRecord(entry.patientId, async (tx) => {
     await deleteDiaryEntry({ id }, tx);
     await audit(
       { action: "diary.delete", actor: viewer, patientId: entry.patientId, via, request, details: { entryId: id, kind: entry.kind, volumeMl: entry.volumeMl, at: entry.at.toISOString() } },

@@ -1,9 +1,9 @@
-import { db } from "@/db";
 import { getPatientRecord, updatePatient } from "@/db/queries/patients";
 import { requireRole, requireStaffPatientAccess } from "@/lib/auth/permissions";
 import { AppError } from "@/lib/http/errors";
 import { handle, json } from "@/lib/http/handle";
 import { openPatientRecord } from "@/lib/records/patient-record";
+import { writeRecord } from "@/lib/records/record-state";
 import { parseJsonBody } from "@/lib/http/validate";
 import { patientUpdateSchema } from "@/lib/validations/patient";
 
@@ -26,7 +26,7 @@ export const PATCH = handle<Ctx>(async (request, { params }) => {
   // Who may touch the record first, so a stranger learns nothing from a validation answer.
   await requireStaffPatientAccess(viewer, patientId);
   const input = await parseJsonBody(request, patientUpdateSchema);
-  await db.transaction(async (tx) => {
+  await writeRecord(patientId, async (tx) => {
     const via = await openPatientRecord({ viewer, patientId, action: "patient.update", request, details: { fields: Object.keys(input) } }, tx);
     // Visit access is for seeing the record and adding a visit, not for changing who the patient is.
     if (via !== "care_team") throw new AppError("forbidden");

@@ -1,4 +1,6 @@
 import { getFormatter, getTranslations } from "next-intl/server";
+import { actionMessageKey } from "@/lib/shared/audit-actions";
+import { auditVia } from "@/db/schema/security";
 import { buttonClass } from "@/components/ui/button";
 import { ErrorAlert } from "@/components/ui/notice";
 import { searchAudit } from "@/db/queries/audit-search";
@@ -11,7 +13,7 @@ export async function generateMetadata() {
   return { title: t("title") };
 }
 
-const vias = ["care_team", "visit_access", "qr", "self", "carer", "admin", "system"] as const;
+const vias = auditVia;
 const inputClass = "min-h-12 rounded-lg border-2 border-stone-line bg-paper-raised px-3 text-ink";
 
 export default async function AuditPage({
@@ -24,7 +26,15 @@ export default async function AuditPage({
   const { locale } = await params;
   const viewer = await requirePageRole(locale, "admin");
   const t = await getTranslations("AdminAudit");
+  const tl = await getTranslations("PatientAccessLog");
   const format = await getFormatter();
+  // The action in words (the code stays beside it, small, for the action filter).
+  const actionWords = (a: string) => {
+    const key = actionMessageKey(a);
+    if (tl.has(`actions.${key}` as "actions.patient_create")) return tl(`actions.${key}` as "actions.patient_create");
+    if (t.has(`actions.${key}` as "actions.caseload_view")) return t(`actions.${key}` as "actions.caseload_view");
+    return a;
+  };
   const raw = Object.fromEntries(Object.entries(await searchParams).map(([k, v]) => [k, Array.isArray(v) ? v[0] : v]).filter(([, v]) => v !== undefined)) as Record<string, string>;
   const parsed = auditQuerySchema.safeParse(raw);
   const q = parsed.success ? parsed.data : auditQuerySchema.parse({});
@@ -124,8 +134,11 @@ export default async function AuditPage({
                     <span className="text-ink-soft">{t("system")}</span>
                   )}
                 </td>
-                <td className="p-2 font-mono text-sm" dir="ltr">
-                  {r.action}
+                <td className="p-2">
+                  {actionWords(r.action)}
+                  <code className="block text-xs text-ink-soft" dir="ltr">
+                    {r.action}
+                  </code>
                 </td>
                 <td className="p-2">
                   {r.patient ? (

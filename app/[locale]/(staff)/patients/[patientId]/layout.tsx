@@ -4,13 +4,13 @@ import type { ReactNode } from "react";
 import { AllergyBox } from "@/components/patient-record/allergy-box";
 import { RecordTabs } from "@/components/patient-record/record-tabs";
 import { getPatientRecord } from "@/db/queries/patients";
-import { checkRecordAccess } from "@/lib/records/patient-record-page";
+import { checkRecordAccess, recordClosedAt } from "@/lib/records/patient-record-page";
 import { ageOn } from "@/lib/shared/time-zone";
 
 export default async function PatientRecordLayout({ children, params }: { children: ReactNode; params: Promise<{ locale: string; patientId: string }> }) {
   const { locale, patientId } = await params;
   const { via } = await checkRecordAccess(locale, patientId);
-  const record = await getPatientRecord({ patientId });
+  const [record, closedAt] = await Promise.all([getPatientRecord({ patientId }), recordClosedAt(patientId)]);
   if (!record) notFound();
   const t = await getTranslations("PatientRecord");
   const format = await getFormatter();
@@ -38,6 +38,11 @@ export default async function PatientRecordLayout({ children, params }: { childr
         </p>
         {via === "visit_access" ? (
           <p className="rounded-lg border-2 border-level-soon bg-level-soon-soft p-2 font-bold text-level-soon-ink">{t("visitAccess")}</p>
+        ) : null}
+        {closedAt ? (
+          <p role="note" className="rounded-lg border-2 border-stone-line bg-paper-sunk p-3 font-bold" data-testid="record-closed">
+            {t("closedBanner", { date: format.dateTime(closedAt, { dateStyle: "long" }) })}
+          </p>
         ) : null}
         <AllergyBox allergies={patient.allergies} />
       </header>

@@ -6,7 +6,8 @@ import { FindingBadge, type FindingSeverity } from "@/components/patient-record/
 import { PatientDetailsPanel } from "@/components/patient-record/patient-details-panel";
 import { Card } from "@/components/ui/card";
 import { getPatientRecord, listGpPracticeDirectory } from "@/db/queries/patients";
-import { PLAN_DEFAULTS, charriereToMm, parseIsoDate, stateFor } from "@/lib/clinical";
+import { charriereToMm, parseIsoDate, stateFor } from "@/lib/clinical";
+import { getPlanDefaults } from "@/lib/config/settings";
 import { Link } from "@/lib/i18n/navigation";
 import { openRecordPage } from "@/lib/records/patient-record-page";
 import { todayIso } from "@/lib/shared/time-zone";
@@ -20,8 +21,8 @@ const severities: FindingSeverity[] = ["stop", "warn", "info"];
 
 export default async function DeviceTab({ params }: { params: Promise<{ locale: string; patientId: string }> }) {
   const { locale, patientId } = await params;
-  const { via } = await openRecordPage({ locale, patientId, action: "patient.view.device" });
-  const [record, gpPractices] = await Promise.all([getPatientRecord({ patientId }), listGpPracticeDirectory()]);
+  const { via, closed } = await openRecordPage({ locale, patientId, action: "patient.view.device" });
+  const [record, gpPractices, planning] = await Promise.all([getPatientRecord({ patientId }), listGpPracticeDirectory(), getPlanDefaults()]);
   if (!record) notFound();
   const t = await getTranslations("PatientDevice");
   const tVisit = await getTranslations("VisitForm");
@@ -30,7 +31,7 @@ export default async function DeviceTab({ params }: { params: Promise<{ locale: 
   const today = todayIso();
   const date = (d: string | null | undefined) => (d ? format.dateTime(new Date(`${d}T12:00:00Z`), { dateStyle: "medium" }) : t("notRecorded"));
   const dateTime = (d: string) => format.dateTime(new Date(d), { dateStyle: "medium", timeStyle: "short" });
-  const stateOf = (d: string) => stateFor(parseIsoDate("date", d) - parseIsoDate("today", today), PLAN_DEFAULTS.dueSoonDays.value);
+  const stateOf = (d: string) => stateFor(parseIsoDate("date", d) - parseIsoDate("today", today), planning.dueSoonDays);
   const daysUntil = (d: string) => parseIsoDate("date", d) - parseIsoDate("today", today);
   const findingText = (code?: string, message?: string) => (code && t.has(`findings.${code}` as "findings.lot-missing") ? t(`findings.${code}` as "findings.lot-missing") : (message ?? code ?? ""));
 
@@ -44,7 +45,7 @@ export default async function DeviceTab({ params }: { params: Promise<{ locale: 
             {e ? t("inPlace") : t("noneInPlace")}
           </h2>
           <div className="flex flex-wrap gap-2">
-            {e ? (
+            {closed ? null : e ? (
               <>
                 <ActionLink href={recordHref("change")}>{t("actions.change")}</ActionLink>
                 <ActionLink href={recordHref("removal")} secondary>
@@ -173,7 +174,7 @@ export default async function DeviceTab({ params }: { params: Promise<{ locale: 
           {t("detailsTitle")}
         </h2>
         <Card>
-          <PatientDetailsPanel patient={record.patient} gpPractices={gpPractices} canEdit={via === "care_team"} />
+          <PatientDetailsPanel patient={record.patient} gpPractices={gpPractices} canEdit={via === "care_team" && !closed} />
         </Card>
       </section>
     </div>

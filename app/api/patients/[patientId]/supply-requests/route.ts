@@ -1,4 +1,3 @@
-import { db } from "@/db";
 import { getMessageById } from "@/db/queries/outbox";
 import { getSupplyContext, insertSupplyRequest, listSupplyRequests, setSupplyRequestMessage } from "@/db/queries/supply-requests";
 import { requireStaffPatientAccess, requireUser } from "@/lib/auth/permissions";
@@ -8,6 +7,7 @@ import { queueSupplyRequestEmail } from "@/lib/email/supply-request";
 import { AppError } from "@/lib/http/errors";
 import { handle, json } from "@/lib/http/handle";
 import { openPatientRecord } from "@/lib/records/patient-record";
+import { writeRecord } from "@/lib/records/record-state";
 import { parseJsonBody } from "@/lib/http/validate";
 import { supplyRequestSchema } from "@/lib/validations/supply-request";
 
@@ -30,7 +30,7 @@ export const POST = handle<Ctx>(async (request, { params }) => {
   const viewer = await requireUser(request);
   const via = await requireStaffPatientAccess(viewer, patientId);
   const input = await parseJsonBody(request, supplyRequestSchema);
-  return db.transaction(async (tx) => {
+  return writeRecord(patientId, async (tx) => {
     const ctx = await getSupplyContext({ patientId }, tx);
     if (!ctx) throw new AppError("not_found");
     if (!ctx.episode || !ctx.changeIntervalDays) throw new AppError("conflict", "There is no catheter in place to request supplies for.");

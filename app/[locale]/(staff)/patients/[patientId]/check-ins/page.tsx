@@ -64,7 +64,14 @@ export default async function CheckInsTab({ params }: { params: Promise<{ locale
                 <Card className="flex flex-col gap-2">
                   <div className="flex flex-wrap items-center gap-3">
                     <LevelBadge level={c.level} />
-                    <span className="tabular font-bold">{dateTime(c.at)}</span>
+                    <span className="tabular font-bold" data-testid="check-in-answered">
+                      {dateTime(c.at)}
+                    </span>
+                    {c.receivedLaterAt ? (
+                      <span className="tabular text-ink-soft" data-testid="check-in-received-later">
+                        {t("receivedLater", { at: dateTime(c.receivedLaterAt) })}
+                      </span>
+                    ) : null}
                     <span className="text-ink-soft">
                       {c.reportedByName
                         ? t("reportedBy", { name: c.reportedByName, role: t(`roles.${(c.reportedByRole ?? "other") as "patient"}`) })

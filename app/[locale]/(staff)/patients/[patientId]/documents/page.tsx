@@ -10,8 +10,8 @@ export async function generateMetadata() {
 
 export default async function DocumentsTab({ params }: { params: Promise<{ locale: string; patientId: string }> }) {
   const { locale, patientId } = await params;
-  const { via } = await openRecordPage({ locale, patientId, action: "patient.view.uploads" });
+  const { via, closed } = await openRecordPage({ locale, patientId, action: "patient.view.uploads" });
   const uploads = await listUploads({ patientId });
   // Removing is for the care team (the route refuses visit access too).
-  return <UploadsPanel patientId={patientId} initial={uploads} canRemove={via === "care_team"} />;
+  return <UploadsPanel patientId={patientId} initial={uploads} canRemove={via === "care_team" && !closed} readOnly={closed} />;
 }

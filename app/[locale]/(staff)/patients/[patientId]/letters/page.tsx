@@ -18,7 +18,7 @@ export async function generateMetadata() {
 export default async function LettersPage({ params }: { params: Promise<{ locale: string; patientId: string }> }) {
   const { locale, patientId } = await params;
   // The clinician role, the access check and the audit event before any data is read.
-  await openRecordPage({ locale, patientId, action: "patient.view.letters" });
+  const { closed } = await openRecordPage({ locale, patientId, action: "patient.view.letters" });
   const [t, format, patient, messages] = await Promise.all([
     getTranslations("Letters"),
     getFormatter(),
@@ -98,7 +98,7 @@ export default async function LettersPage({ params }: { params: Promise<{ locale
                   </pre>
                 </details>
               )}
-              {(m.status === "sent" || m.status === "failed") && !m.redacted && !m.kind.endsWith("-invite") ? (
+              {!closed && (m.status === "sent" || m.status === "failed") && !m.redacted && !m.kind.endsWith("-invite") ? (
                 <div className="mt-4">
                   <ResendButton patientId={patientId} messageId={m.id} subject={m.subject} />
                 </div>

@@ -15,7 +15,7 @@ export async function generateMetadata() {
 
 export default async function PassportTab({ params }: { params: Promise<{ locale: string; patientId: string }> }) {
   const { locale, patientId } = await params;
-  const { via } = await openRecordPage({ locale, patientId, action: "patient.view.passport" });
+  const { via, closed } = await openRecordPage({ locale, patientId, action: "patient.view.passport" });
   const [record, overview, invitee] = await Promise.all([
     getPatientRecord({ patientId }),
     getPassportOverview({ patientId }),
@@ -23,7 +23,7 @@ export default async function PassportTab({ params }: { params: Promise<{ locale
   ]);
   if (!record || !invitee) notFound();
   // Only the care team gives activation codes (as on the invite route), and only before an account exists.
-  const canInvite = via === "care_team" && !invitee.userId && !invitee.closedAt;
+  const canInvite = via === "care_team" && !invitee.userId && !invitee.closedAt && !closed;
   return (
     <div className="flex flex-col gap-8">
       <PassportPanel
@@ -32,6 +32,7 @@ export default async function PassportTab({ params }: { params: Promise<{ locale
         languages={passportLanguages(record.patient.preferredLocale)}
         hasDevice={Boolean(record.currentEpisode)}
         canOfferActivation={canInvite}
+        readOnly={closed}
       />
       {canInvite ? <PortalInviteButton patientId={patientId} /> : null}
     </div>

@@ -16,10 +16,11 @@ const items = ["catheter", "leg-bag", "night-bag", "valve", "gel"] as const;
 export default async function SuppliesPage({ params }: { params: Promise<{ locale: string; patientId: string }> }) {
   const { locale, patientId } = await params;
   // The clinician role, the access check and the audit event before any data is read.
-  await openRecordPage({ locale, patientId, action: "patient.view.supplies" });
-  const [t, tl, format, ctx, history] = await Promise.all([
+  const { closed } = await openRecordPage({ locale, patientId, action: "patient.view.supplies" });
+  const [t, tl, tr, format, ctx, history] = await Promise.all([
     getTranslations("Supplies"),
     getTranslations("Letters"),
+    getTranslations("PatientRecord"),
     getFormatter(),
     getSupplyContext({ patientId }),
     listSupplyRequests({ patientId }),
@@ -44,7 +45,9 @@ export default async function SuppliesPage({ params }: { params: Promise<{ local
         <h3 id="new-request" className="mb-1 text-xl font-bold">
           {t("newRequest")}
         </h3>
-        {ctx.episode && ctx.changeIntervalDays ? (
+        {closed ? (
+          <p>{tr("closedNoWrites")}</p>
+        ) : ctx.episode && ctx.changeIntervalDays ? (
           <>
             <p className="mb-4 text-ink-soft">
               {t("device", { ch: ctx.episode.sizeCh, ml: ctx.episode.balloonMl, days: ctx.changeIntervalDays })}

@@ -6,7 +6,7 @@ import { TwocForm } from "@/components/episode-form/twoc-form";
 import { buttonClass } from "@/components/ui/button";
 import { getRecordingContext, type EpisodeDto } from "@/db/queries/episodes";
 import { blockagePattern, type EndReason } from "@/lib/clinical";
-import { getSettings, planDefaultsFor } from "@/lib/config/settings";
+import { getPlanDefaults } from "@/lib/config/settings";
 import { Link } from "@/lib/i18n/navigation";
 import { openRecordPage } from "@/lib/records/patient-record-page";
 import { RECORD_KINDS, type RecordKind } from "@/lib/validations/episode";
@@ -52,14 +52,13 @@ export default async function RecordEpisodePage({ params }: { params: Promise<Pa
   // Clinician role, access check and audit event before anything is read (the record layout
   // around this page shows the patient, their allergies and the tabs).
   const { viewer } = await openRecordPage({ locale, patientId, action: `episode.form.${kind}` });
-  const context = await getRecordingContext({ patientId });
+  const [context, planning] = await Promise.all([getRecordingContext({ patientId }), getPlanDefaults()]);
   if (!context.patient) notFound();
   const { patient, active, latest } = context;
   const t = await getTranslations("EpisodeForm");
   const timeZone = deploymentTimeZone();
   const facts = { sex: patient.sex, dateOfBirth: patient.dateOfBirth, allergies: { latex: patient.allergies.latex, chlorhexidine: patient.allergies.chlorhexidine, lidocaine: patient.allergies.lidocaine } };
   const trial = latest && latest.removedAt && latest.awaitingTwoc && !active ? latest : null;
-  const planDefaults = planDefaultsFor(await getSettings());
 
   let blockage: BlockageHint = null;
   if (kind === "change") {
@@ -70,7 +69,7 @@ export default async function RecordEpisodePage({ params }: { params: Promise<Pa
           removedOn: e.removedAt ? dayIn(e.removedAt, timeZone) : undefined,
           endReason: endReason(e.removalReason),
         })),
-        { maxDwellDays: active?.maxDwellDays ?? undefined },
+        { maxDwellDays: active ? (active.maxDwellDays ?? planning.maxDwellDays[active.material]) : undefined },
       );
       if (pattern.status === "pattern") {
         blockage = { typicalDwellDays: pattern.typicalDwellDays, suggestedIntervalDays: pattern.suggestedIntervalDays, blockageEpisodes: pattern.blockageEpisodes };
@@ -102,10 +101,10 @@ export default async function RecordEpisodePage({ params }: { params: Promise<Pa
   else if (kind === "insertion") {
     body = active
       ? blocked(t("blocked.inPlace"), { href: `${record}/record/change`, label: t("title.change") })
-      : <DeviceEpisodeForm mode="insertion" patientId={patientId} patient={facts} clinicianName={viewer.name} previous={previousDevice(latest)} timeZone={timeZone} blockage={null} planDefaults={planDefaults} />;
+      : <DeviceEpisodeForm mode="insertion" patientId={patientId} patient={facts} clinicianName={viewer.name} previous={previousDevice(latest)} timeZone={timeZone} blockage={null} planDefaults={planning} />;
   } else if (kind === "change") {
     body = active
-      ? <DeviceEpisodeForm mode="change" patientId={patientId} patient={facts} clinicianName={viewer.name} previous={previousDevice(active)} timeZone={timeZone} blockage={blockage} planDefaults={planDefaults} />
+      ? <DeviceEpisodeForm mode="change" patientId={patientId} patient={facts} clinicianName={viewer.name} previous={previousDevice(active)} timeZone={timeZone} blockage={blockage} planDefaults={planning} />
       : blocked(t("blocked.noneInPlace"), { href: `${record}/record/insertion`, label: t("title.insertion") });
   } else if (kind === "removal") {
     body = active

@@ -1,7 +1,7 @@
-import { db } from "@/db";
 import { getMessageById, getPatientMessage, toMessageDto } from "@/db/queries/outbox";
 import { isUuid, requireStaffPatientAccess, requireUser } from "@/lib/auth/permissions";
 import { audit } from "@/lib/records/audit";
+import { writeRecord } from "@/lib/records/record-state";
 import { resendMessage } from "@/lib/email/resend";
 import { AppError } from "@/lib/http/errors";
 import { handle, json } from "@/lib/http/handle";
@@ -14,7 +14,7 @@ export const POST = handle<Ctx>(async (request, { params }) => {
   const viewer = await requireUser(request);
   const via = await requireStaffPatientAccess(viewer, patientId);
   if (!isUuid(messageId)) throw new AppError("not_found");
-  return db.transaction(async (tx) => {
+  return writeRecord(patientId, async (tx) => {
     const original = await getPatientMessage({ patientId, messageId }, tx);
     if (!original) throw new AppError("not_found");
     const queued = await resendMessage(tx, { original, createdByUserId: viewer.userId });
