@@ -14,6 +14,7 @@ import { changedTables, snapshot } from "../support/db-snapshot";
 import { demoDevice } from "../support/fixtures";
 import { call, demo, sessionFor } from "../support/http";
 import { fillPattern, listRouteFiles, type Method } from "../support/routes";
+import { CLIENT_ADDRESS_HEADER } from "@/lib/http/client-ip";
 
 type Who = keyof typeof demo | "anonymous";
 type Ids = {
@@ -93,6 +94,9 @@ const plans: Record<string, Plan> = {
   "PATCH /api/admin/staff/[userId]": { notARecordWrite: "staff accounts" },
   "POST /api/admin/staff/[userId]/deactivate": { notARecordWrite: "staff accounts" },
   "POST /api/admin/staff/[userId]/reactivate": { notARecordWrite: "staff accounts" },
+  "POST /api/admin/staff/[userId]/sign-out": { notARecordWrite: "staff accounts' sessions" },
+  "DELETE /api/account/sessions": { notARecordWrite: "the person's own sessions" },
+  "DELETE /api/account/sessions/[sessionId]": { notARecordWrite: "the person's own sessions" },
   "POST /api/staff-invitations/accept": { notARecordWrite: "staff accounts" },
 };
 
@@ -160,7 +164,7 @@ describe("a closed record is read-only on every write route", () => {
         cookie: plan.who === "anonymous" ? undefined : cookies[plan.who],
         params,
         body: plan.body?.(ids),
-        headers: { "x-forwarded-for": `10.66.0.${Object.keys(plans).indexOf(key)}` },
+        headers: { [CLIENT_ADDRESS_HEADER]: `10.66.0.${Object.keys(plans).indexOf(key)}` },
       });
       const text = await res.text();
       expect(res.status, text.slice(0, 300)).toBe(409);
