@@ -5,6 +5,11 @@
 import { randomUUID } from "node:crypto";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { eq } from "drizzle-orm";
+import { db, pool } from "@/db";
+import { account, careTeam, catheterEpisodes, checkIns, organisations, patients, user } from "@/db/schema";
+import { hashPassword } from "@/lib/auth/password";
+import { demoCatheterRow } from "../support/fixtures";
 import { demo } from "../support/http";
 import { launch, newPage, screenshot, signInAs } from "./support/browser";
 import { closeDatabase, database, patientIdByHrn, phonePage } from "./support/portal";
@@ -18,6 +23,7 @@ afterAll(async () => {
   await browser?.close();
   if (created.length) await database().query("delete from patients where id = any($1::uuid[])", [created]);
   await closeDatabase();
+  await pool.end();
 });
 
 /** Taps through the check-in from its first screen (the page is already on /check-in). */
@@ -73,7 +79,8 @@ describe("a check-in answered offline keeps its time, across a closed tab, to th
     const nurse = await newPage(browser, { viewport: { width: 1280, height: 900 } });
     await signInAs(nurse, demo.communityNurse.email, demo.communityNurse.password);
     await nurse.goto(`/en/patients/${arthur}/check-ins`);
-    const first = nurse.getByTestId("check-in-list").locator("li").first();
+    // Listed by when it was answered: other check-ins made since come before it.
+    const first = nurse.getByTestId("check-in-list").locator("li", { has: nurse.getByTestId("check-in-received-later") }).first();
     const shown = await first.getByTestId("check-in-answered").textContent();
     expect(shown).toMatch(/2:00|02:00/);
     expect(await first.getByTestId("check-in-received-later").textContent()).toMatch(/answered offline, received/);
@@ -134,6 +141,47 @@ describe("the diary keeps an entry made offline, with its own time", () => {
     expect((await database().query<{ n: number }>("select count(*)::int as n from diary_entries")).rows[0].n).toBe(before + 1);
     await expect.poll(() => page.getByTestId("diary-waiting").count()).toBe(0);
     await page.context().close();
+  });
+});
+
+describe("overdue dates in words, and an old instruction as history", () => {
+  it("My catheter says a review 52 days past is overdue; Today shows a three-day-old 'call now' as history", async () => {
+    const tag = randomUUID().slice(0, 8);
+    const email = `overdue.${tag}@eastmere.example`;
+    const password = `Overdue-${tag}-password`;
+    const userId = randomUUID();
+    await db.insert(user).values({ id: userId, email, name: "Nell Overby", role: "patient", locale: "en", emailVerified: true });
+    await db.insert(account).values({ id: randomUUID(), userId, accountId: userId, providerId: "credential", password: await hashPassword(password) });
+    const [harbourside] = await db.select({ id: organisations.id }).from(organisations).where(eq(organisations.name, "Harbourside Community Nursing Team"));
+    const [p] = await db
+      .insert(patients)
+      .values({ givenName: "Nell", familyName: "Overby", healthRecordNumber: `E2E-OD-${tag}`, dateOfBirth: "1939-03-03", sex: "female", userId, allergyLatex: "no", allergyChlorhexidine: "no", allergyLidocaine: "no" })
+      .returning({ id: patients.id });
+    created.push(p.id);
+    try {
+      await db.insert(careTeam).values({ patientId: p.id, organisationId: harbourside.id });
+      const day = (n: number) => new Date(Date.now() + n * 86_400_000).toISOString().slice(0, 10);
+      await db.insert(catheterEpisodes).values(
+        demoCatheterRow({ patientId: p.id, organisationId: harbourside.id, insertedAt: new Date(Date.now() - 80 * 86_400_000), plannedChangeOn: day(4), reviewDueOn: day(-52) }),
+      );
+      const threeDaysAgo = new Date(Date.now() - 3 * 86_400_000);
+      await db.insert(checkIns).values({ patientId: p.id, reportedByUserId: userId, answers: { draining: "none", pain: "severe" }, level: "urgent", ruleIds: ["TRIAGE-NO-DRAINAGE"], idempotencyKey: randomUUID(), answeredAt: threeDaysAgo, createdAt: threeDaysAgo });
+
+      const page = await phonePage(browser);
+      await signInAs(page, email, password);
+      await page.goto("/en/my-catheter");
+      expect(await page.getByTestId("review-due").textContent()).toBe("Overdue by 52 days. Please call your care team.");
+      expect(await page.getByTestId("next-change-due").textContent()).toBe("In 4 days.");
+      await screenshot(page, "story-my-catheter-overdue-en-390");
+      await page.goto("/en/today");
+      expect(await page.getByTestId("last-check-in-advice").count()).toBe(0);
+      expect(await page.getByTestId("last-check-in-old").textContent()).toMatch(/more than a day ago/);
+      expect(await page.textContent("main")).toMatch(/What we said then: Call your care team now/);
+      await screenshot(page, "story-today-old-instruction-en-390");
+      await page.context().close();
+    } finally {
+      await db.delete(user).where(eq(user.id, userId));
+    }
   });
 });
 

@@ -83,7 +83,7 @@ describe("letters, supplies and the GP summary in the fake inbox", () => {
     // Too many: the form says so and nothing is sent.
     await page.locator("#qty-leg-bag").fill("1000");
     await page.getByRole("button", { name: /^Send to/ }).click();
-    await expect.poll(async () => (await page.getByText("Enter a whole number from 0 to 999.").count()) > 0).toBe(true);
+    await expect.poll(async () => (await page.getByText("Enter a number between 0 and 999.").count()) > 0).toBe(true);
   });
 
   it("Arabic: the Letters tab and the supply request read right to left", async () => {

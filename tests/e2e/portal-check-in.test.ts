@@ -112,8 +112,8 @@ describe("check-in on a phone", () => {
   it("shows the result in Arabic, right to left, with the same level", async () => {
     const page = await phonePage(browser);
     await signInAs(page, demo.patientAr.email, demo.patientAr.password, "ar");
-    // Suprapubic catheter out: urgent (common practice, no source — the tract can close).
-    const result = await runCheckIn(page, [...no4, "not-taken", "yes", "none", "under-12", "none", "none", "done"], "ar");
+    // Suprapubic catheter out: urgent (common practice, no source — the tract can close); no drainage questions after it.
+    const result = await runCheckIn(page, [...no4, "not-taken", "yes", "none", "none", "done"], "ar");
     expect(await result.getAttribute("data-level")).toBe("urgent");
     expect(await result.textContent()).toMatch(/خرجت قسطرة البطن/);
     expect(await page.locator("html").getAttribute("dir")).toBe("rtl");

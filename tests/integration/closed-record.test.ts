@@ -94,10 +94,10 @@ const plans: Record<string, Plan> = {
   "PATCH /api/admin/staff/[userId]": { notARecordWrite: "staff accounts" },
   "POST /api/admin/staff/[userId]/deactivate": { notARecordWrite: "staff accounts" },
   "POST /api/admin/staff/[userId]/reactivate": { notARecordWrite: "staff accounts" },
-  "POST /api/admin/staff/[userId]/sign-out": { notARecordWrite: "staff accounts' sessions" },
-  "DELETE /api/account/sessions": { notARecordWrite: "the person's own sessions" },
-  "DELETE /api/account/sessions/[sessionId]": { notARecordWrite: "the person's own sessions" },
   "POST /api/staff-invitations/accept": { notARecordWrite: "staff accounts" },
+  "POST /api/admin/staff/[userId]/sign-out": { notARecordWrite: "staff accounts: ends a member of staff's sessions" },
+  "DELETE /api/account/sessions": { notARecordWrite: "the viewer's own sign-in sessions" },
+  "DELETE /api/account/sessions/[sessionId]": { notARecordWrite: "the viewer's own sign-in sessions" },
 };
 
 type Handler = (req: Request, ctx: { params: Promise<Record<string, string | string[]>> }) => Promise<Response>;
