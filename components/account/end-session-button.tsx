@@ -1,8 +1,6 @@
 "use client";
 import { useLocale, useTranslations } from "next-intl";
-import { useState } from "react";
-import { Button } from "@/components/ui/button";
-import { ErrorAlert } from "@/components/ui/notice";
+import { ActionButton } from "@/components/ui/action-button";
 import { apiFetch } from "@/lib/browser/api-client";
 import { useRouter } from "@/lib/i18n/navigation";
 
@@ -14,30 +12,17 @@ export function EndSessionButton({ sessionId, current = false, label }: { sessio
   const t = useTranslations("Sessions");
   const locale = useLocale();
   const router = useRouter();
-  const [busy, setBusy] = useState(false);
-  const [failed, setFailed] = useState(false);
   return (
-    <span className="inline-flex flex-col gap-1">
-      <Button
-        variant={sessionId ? "secondary" : "primary"}
-        disabled={busy}
-        onClick={async () => {
-          setBusy(true);
-          setFailed(false);
-          try {
-            await apiFetch(sessionId ? `/api/account/sessions/${encodeURIComponent(sessionId)}` : "/api/account/sessions", { method: "DELETE" });
-            if (current) window.location.assign(`/${locale}/sign-in`);
-            else router.refresh();
-          } catch {
-            setFailed(true);
-          } finally {
-            setBusy(false);
-          }
-        }}
-      >
-        {busy ? t("ending") : label}
-      </Button>
-      <ErrorAlert message={failed ? t("failed") : null} />
-    </span>
+    <ActionButton
+      variant={sessionId ? "secondary" : "primary"}
+      label={label}
+      busyLabel={t("ending")}
+      failedText={t("failed")}
+      onAction={async () => {
+        await apiFetch(sessionId ? `/api/account/sessions/${encodeURIComponent(sessionId)}` : "/api/account/sessions", { method: "DELETE" });
+        if (current) window.location.assign(`/${locale}/sign-in`);
+        else router.refresh();
+      }}
+    />
   );
 }

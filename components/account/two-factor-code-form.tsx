@@ -5,12 +5,17 @@ import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { ErrorAlert } from "@/components/ui/notice";
 import { authClient } from "@/lib/auth/client";
+import { sameSitePath } from "@/lib/shared/same-site-path";
 import { Link } from "@/lib/i18n/navigation";
 import { backupCodeSchema, totpCodeSchema } from "@/lib/validations/staff";
 import { useErrorText } from "@/components/ui/use-error-text";
 
-/** The second step of signing in: the code from the authenticator app, or a backup code. */
-export function TwoFactorCodeForm() {
+/**
+ * The second step of signing in: the code from the authenticator app, or a backup code. Then
+ * home, or `returnTo` (a same-site path) when the sign-in started on a page that wants its
+ * visitor back (the passport's visit-access page shows this form in place).
+ */
+export function TwoFactorCodeForm({ returnTo }: { returnTo?: string } = {}) {
   const t = useTranslations("TwoFactor");
   const tErrors = useTranslations("Errors");
   const errorText = useErrorText("TwoFactor");
@@ -40,7 +45,7 @@ export function TwoFactorCodeForm() {
       setFailure({ text: expired ? t("expired") : error.status === 429 ? tErrors("rate_limited") : t("wrongCode"), expired });
       return;
     }
-    window.location.assign(`/${locale}/home`);
+    window.location.assign(sameSitePath(returnTo) ?? `/${locale}/home`);
   }
 
   return (

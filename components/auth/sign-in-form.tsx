@@ -7,7 +7,9 @@ import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { ErrorAlert } from "@/components/ui/notice";
 import { PasswordField } from "@/components/ui/password-field";
+import { TwoFactorCodeForm } from "@/components/account/two-factor-code-form";
 import { authClient } from "@/lib/auth/client";
+import { sameSitePath } from "@/lib/shared/same-site-path";
 import { signInSchema, type SignInInput } from "@/lib/validations/auth";
 
 /** `returnTo`: a same-site path to go back to after signing in (the passport's visit-access page). */
@@ -16,6 +18,7 @@ export function SignInForm({ returnTo }: { returnTo?: string } = {}) {
   const tErrors = useTranslations("Errors");
   const locale = useLocale();
   const [formError, setFormError] = useState<string | null>(null);
+  const [secondStep, setSecondStep] = useState(false);
   const {
     register,
     handleSubmit,
@@ -35,14 +38,19 @@ export function SignInForm({ returnTo }: { returnTo?: string } = {}) {
       setFormError(error.status === 429 ? tErrors("rate_limited") : error.status === 403 ? t("inactive") : t("wrong"));
       return;
     }
-    // Two-step sign-in: the password was right; the code page finishes signing in.
+    // Two-step sign-in: the password was right; the code finishes signing in — on the code page,
+    // or here when this page wants its visitor back (its address may hold a card token, which
+    // must not travel on to another page's address).
     if (data && "twoFactorRedirect" in data && data.twoFactorRedirect) {
-      window.location.assign(`/${locale}/two-factor`);
+      if (sameSitePath(returnTo)) setSecondStep(true);
+      else window.location.assign(`/${locale}/two-factor`);
       return;
     }
     // The server sends each role on to its own home, unless a page asked to come back.
-    window.location.assign(returnTo && returnTo.startsWith("/") && !returnTo.startsWith("//") ? returnTo : `/${locale}/home`);
+    window.location.assign(sameSitePath(returnTo) ?? `/${locale}/home`);
   });
+
+  if (secondStep) return <TwoFactorCodeForm returnTo={returnTo} />;
 
   return (
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">

@@ -13,7 +13,7 @@ export const clientNamespaces = {
     "PortalInvite", "Scan", "Sessions", "Supplies", "TwoFactor", "Uploads", "VisitForm", "Vocabulary",
   ],
   /** The public device card and short-code pages, and the clinician's visit sign-in. */
-  card: ["Password", "SignIn", "VisitAccess"],
+  card: ["Password", "SignIn", "TwoFactor", "VisitAccess"],
 } as const satisfies Record<string, readonly string[]>;
 
 export type ClientScope = keyof typeof clientNamespaces;

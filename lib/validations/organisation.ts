@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { singleLine } from "./text";
+import { multiLine, singleLine } from "./text";
 import type { OrganisationKind } from "@/db/schema/app";
 import { locales } from "@/lib/i18n/routing";
 
@@ -35,7 +35,9 @@ const organisationFields = z.object({
   requireTwoFactor: z.boolean(),
   // Why this organisation's staff may sign in with a password alone: required to relax two-step
   // sign-in, kept on record with who relaxed it and when.
-  twoFactorRelaxedReason: z.preprocess(blankToNull, z.string().trim().min(10, { message: "reason_length" }).max(500, { message: "reason_length" }).nullable()).optional(),
+  twoFactorRelaxedReason: z
+    .preprocess(blankToNull, multiLine(z.string().trim().min(10, { message: "reason_length" }).max(500, { message: "reason_length" })).nullable())
+    .optional(),
 });
 
 /** Turning two-step sign-in off needs a reason. */

@@ -1,21 +1,13 @@
 // Administration in Chromium: every admin page in English and Arabic (screenshots looked at),
 // and an admin inviting a nurse who accepts from the e-mail in the fake inbox and signs in.
-import type { Browser, Page } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { Page } from "playwright-core";
+import { describe, expect, it } from "vitest";
 import { demo, totpCode } from "../support/http";
 import { waitForEmails } from "../support/mail";
 import { createOrganisation, createStaff } from "../support/staff";
-import { launch, newPage, screenshot, signInAs } from "./support/browser";
+import { browserForFile, newPage, screenshot, signInAs } from "./support/browser";
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launch();
-});
-afterAll(async () => {
-  await browser?.close();
-  const { pool } = await import("@/db");
-  await pool.end().catch(() => {});
-});
+const browserOf = browserForFile();
 
 const pages = [
   { path: "/admin", name: "admin-home" },
@@ -48,7 +40,7 @@ async function enrolTotpInBrowser(page: Page, password: string, shot: string) {
 
 describe("inviting a nurse", () => {
   it("an admin (signed in with a TOTP code from the demo secret) invites a nurse, who accepts from the fake inbox and signs in to their caseload", async () => {
-    const admin = await newPage(browser, { viewport: { width: 1280, height: 900 } });
+    const admin = await newPage(browserOf(), { viewport: { width: 1280, height: 900 } });
     await signInAs(admin, demo.admin.email, demo.admin.password);
     await admin.goto("/en/admin/staff");
     const email = `ines.varga.${Date.now().toString(36)}@eastmere.example`;
@@ -82,7 +74,7 @@ describe("inviting a nurse", () => {
     await admin.context().close();
 
     // The nurse, in their own browser, opens the link from the e-mail.
-    const nurse = await newPage(browser);
+    const nurse = await newPage(browserOf());
     await nurse.context().setExtraHTTPHeaders({ "x-forwarded-for": "10.78.0.2" });
     await nurse.goto(new URL(link).pathname);
     await expect.poll(() => nurse.locator("h1").textContent()).toBe("Set up your Caddis account");
@@ -106,7 +98,7 @@ describe("inviting a nurse", () => {
     await nurse.context().close();
 
     // And she signs in again the ordinary way: password, then the code from her app.
-    const again = await newPage(browser);
+    const again = await newPage(browserOf());
     await signInAs(again, email, "Larch-ward-nurse-pass-26", "en", secret);
     expect(new URL(again.url()).pathname).toBe("/en/caseload");
     await again.context().close();
@@ -116,7 +108,7 @@ describe("inviting a nurse", () => {
 describe("administration pages", () => {
   // Runs after the invitation above, so the access log has events to show.
   it("the admin signs in with the TOTP code and sees each admin page, in English and Arabic", { timeout: 300_000 }, async () => {
-    const page = await newPage(browser, { viewport: { width: 1280, height: 900 } });
+    const page = await newPage(browserOf(), { viewport: { width: 1280, height: 900 } });
     await signInAs(page, demo.admin.email, demo.admin.password);
     expect(new URL(page.url()).pathname).toBe("/en/admin");
     for (const locale of ["en", "ar"]) {
@@ -141,7 +133,7 @@ describe("administration pages", () => {
   });
 
   it("the sign-in's second step refuses a wrong code and says so", async () => {
-    const page = await newPage(browser);
+    const page = await newPage(browserOf());
     await page.context().setExtraHTTPHeaders({ "x-forwarded-for": "10.78.0.1" });
     await page.goto("/en/sign-in");
     await page.getByLabel("E-mail address").fill(demo.admin.email);
@@ -156,7 +148,7 @@ describe("administration pages", () => {
   });
 
   it("the public account pages read in English and Arabic", async () => {
-    const page = await newPage(browser);
+    const page = await newPage(browserOf());
     for (const locale of ["en", "ar"]) {
       await page.goto(`/${locale}/forgot-password`);
       await expect.poll(() => page.locator("h1").count()).toBe(1);
@@ -174,7 +166,7 @@ describe("an organisation that requires two-step sign-in", () => {
   it("sends its nurse to set it up after signing in, and lets them in once it is done", { timeout: 180_000 }, async () => {
     const org = await createOrganisation({ name: `Strict Ward ${Date.now().toString(36)}`, requireTwoFactor: true });
     const nurse = await createStaff({ role: "clinician", organisationIds: [org.id], twoFactor: false });
-    const page = await newPage(browser);
+    const page = await newPage(browserOf());
     await signInAs(page, nurse.email, nurse.password);
     expect(new URL(page.url()).pathname).toBe("/en/two-factor/setup");
     // Staff pages send them back here until it is done.
@@ -188,7 +180,7 @@ describe("an organisation that requires two-step sign-in", () => {
     await page.waitForURL(/\/ar\/caseload$/);
     await page.context().close();
     // The next sign-in asks for the code.
-    const again = await newPage(browser);
+    const again = await newPage(browserOf());
     await signInAs(again, nurse.email, nurse.password, "ar", secret);
     expect(new URL(again.url()).pathname).toBe("/ar/caseload");
     await again.context().close();

@@ -5,11 +5,11 @@
 // header is honoured, right-most untrusted address first.
 import type { ChildProcess } from "node:child_process";
 import { randomUUID } from "node:crypto";
-import { desc, eq } from "drizzle-orm";
+import { desc, eq, like } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { db } from "@/db";
-import { session, user } from "@/db/schema";
-import { CLIENT_ADDRESS_HEADER } from "@/lib/http/client-ip";
+import { db, pool } from "@/db";
+import { attemptCounters, rateLimit, session, user } from "@/db/schema";
+import { CLIENT_ADDRESS_HEADER, hashIp } from "@/lib/http/client-ip";
 import { spawnAppServer, waitForApp } from "../../scripts/app-server";
 import { demo } from "../support/http";
 import { freePort } from "../support/mail";
@@ -30,8 +30,13 @@ beforeAll(async () => {
   await waitForApp(direct, 90);
 }, 120_000);
 
-afterAll(() => {
+afterAll(async () => {
   server?.kill("SIGTERM");
+  // This file spends loopback's allowance on purpose (sign-in, card, activation); give it back
+  // so the files after it, whose browsers also come from 127.0.0.1, start afresh.
+  await db.delete(rateLimit).where(like(rateLimit.key, "127.0.0.1|%"));
+  await db.delete(attemptCounters).where(like(attemptCounters.key, `%:${hashIp("127.0.0.1")}`));
+  await pool.end().catch(() => {});
 });
 
 let n = 0;
@@ -55,6 +60,19 @@ async function lastSessionAddress(email: string) {
   return row?.ip;
 }
 
+/**
+ * The answers of tries from one peer under a limit of `max` per window: refused (429) from the
+ * (max + 1)th at the latest, and from then on. Other files' requests from loopback may already
+ * have counted in the same window, so the first 429 may come sooner, never later.
+ */
+function expectOneAddress(statuses: number[], max: number) {
+  const firstHeld = statuses.indexOf(429);
+  expect(firstHeld, `429 by try ${max + 1}: ${statuses.join(" ")}`).toBeGreaterThanOrEqual(0);
+  expect(firstHeld).toBeLessThanOrEqual(max);
+  expect(statuses.slice(0, firstHeld)).not.toContain(429);
+  expect(statuses.slice(firstHeld).every((s) => s === 429)).toBe(true);
+}
+
 describe("with no trusted proxy (the default)", () => {
   // First: the tests after it use up this peer's sign-in limit.
   it("records the TCP peer as the session's address, not the header", async () => {
@@ -72,14 +90,9 @@ describe("with no trusted proxy (the default)", () => {
     for (let i = 0; i < 12; i++) {
       statuses.push((await wrongSignIn(direct, { "x-forwarded-for": `198.51.100.${i + 1}`, [CLIENT_ADDRESS_HEADER]: `203.0.113.${i + 1}` })).status);
     }
-    // SIGN_IN_MAX_ATTEMPTS (10) a minute per address, whatever the headers said: the sign-in
-    // above counted too (and other files' sign-ins from loopback may have), so twelve tries end
-    // in 429s from the 11th attempt of the minute at the latest, and stay there.
-    const firstHeld = statuses.indexOf(429);
-    expect(firstHeld).toBeGreaterThanOrEqual(0);
-    expect(firstHeld).toBeLessThanOrEqual(9);
-    expect(statuses.slice(0, firstHeld).every((s) => s === 401)).toBe(true);
-    expect(statuses.slice(firstHeld).every((s) => s === 429)).toBe(true);
+    // SIGN_IN_MAX_ATTEMPTS (10) a minute per address, whatever the headers said; the sign-in
+    // above counted too.
+    expectOneAddress(statuses, 10);
   });
 
   it("limits the device card and activation the same way", async () => {
@@ -89,8 +102,7 @@ describe("with no trusted proxy (the default)", () => {
       card.push(res.status);
       await res.arrayBuffer();
     }
-    expect(card.slice(0, 30)).not.toContain(429);
-    expect(card[30]).toBe(429);
+    expectOneAddress(card, 30);
 
     const activation: number[] = [];
     for (let i = 0; i < 11; i++) {
@@ -101,8 +113,7 @@ describe("with no trusted proxy (the default)", () => {
       });
       activation.push(res.status);
     }
-    expect(activation.slice(0, 10)).not.toContain(429);
-    expect(activation[10]).toBe(429);
+    expectOneAddress(activation, 10);
   });
 
 });

@@ -20,6 +20,7 @@ import { launch, newPage, screenshot, signInAs } from "./support/browser";
 // The terminator reaches the app from 127.0.0.2, the one address the app trusts as its proxy;
 // a request straight from 127.0.0.1 is an ordinary client.
 const PROXY_ADDRESS = "127.0.0.2";
+const CLIENT_ADDRESS = "127.0.0.3";
 let dir = "";
 let cert: Buffer;
 let appPort = 0;
@@ -61,6 +62,8 @@ function send(url: string, { method = "GET", headers = {}, body }: { method?: st
     path: u.pathname + u.search,
     headers: { ...(payload ? { "content-type": "application/json", "content-length": String(Buffer.byteLength(payload)) } : {}), ...headers },
     ...(u.protocol === "https:" ? { ca: cert, servername: u.hostname } : {}),
+    // From a loopback address of this file's own, so the per-address limits it meets are its own.
+    localAddress: CLIENT_ADDRESS,
   };
   return new Promise((resolve, reject) => {
     const req = (u.protocol === "https:" ? https : http).request(options, (res) => {

@@ -2,31 +2,22 @@
 // are signed in and signs out a phone; someone guesses a nurse's password from thirty addresses,
 // the nurse is told by e-mail and held back on a new browser, and the admin sees the account
 // under attack. (A clinician setting up two-step sign-in at first sign-in: admin.test.ts.)
-import type { Browser } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { demo } from "../support/http";
 import { waitForEmails } from "../support/mail";
 import { createStaff, orgIdsByName } from "../support/staff";
-import { baseUrl, launch, newPage, screenshot, signInAs } from "./support/browser";
+import { baseUrl, browserForFile, newPage, screenshot, signInAs } from "./support/browser";
 import { PHONE } from "./support/portal";
 
 const ANDROID = "Mozilla/5.0 (Linux; Android 14; Pixel 8) AppleWebKit/537.36 (KHTML, like Gecko) Chrome/131.0.0.0 Mobile Safari/537.36";
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launch();
-});
-afterAll(async () => {
-  await browser?.close();
-  const { pool } = await import("@/db");
-  await pool.end().catch(() => {});
-});
+const browserOf = browserForFile();
 
 describe("your sessions", () => {
   it("a patient signed in on a phone and a computer sees both, and signs the phone out from the computer", { timeout: 180_000 }, async () => {
-    const phone = await newPage(browser, { ...PHONE, userAgent: ANDROID });
+    const phone = await newPage(browserOf(), { ...PHONE, userAgent: ANDROID });
     await signInAs(phone, demo.patientAr.email, demo.patientAr.password);
-    const desk = await newPage(browser, { viewport: { width: 1280, height: 900 } });
+    const desk = await newPage(browserOf(), { viewport: { width: 1280, height: 900 } });
     await signInAs(desk, demo.patientAr.email, demo.patientAr.password);
 
     // More → Sign-in and password → where you are signed in.
@@ -90,7 +81,7 @@ describe("an account under attack", () => {
     expect(statuses.filter((s) => s === 429).length).toBeGreaterThanOrEqual(20);
 
     // On a browser she has never used, her right password is held back, and she is told for how long.
-    const fresh = await newPage(browser, { viewport: { width: 1280, height: 900 } });
+    const fresh = await newPage(browserOf(), { viewport: { width: 1280, height: 900 } });
     await fresh.context().setExtraHTTPHeaders({ "x-forwarded-for": "203.0.113.200" });
     await fresh.goto("/en/sign-in");
     await fresh.getByLabel("E-mail address").fill(nurse.email);
@@ -108,7 +99,7 @@ describe("an account under attack", () => {
     expect(mail.text).toMatch(/forgot-password/);
 
     // The admin sees the account, and what Caddis did about it.
-    const admin = await newPage(browser, { viewport: { width: 1280, height: 900 } });
+    const admin = await newPage(browserOf(), { viewport: { width: 1280, height: 900 } });
     await signInAs(admin, demo.admin.email, demo.admin.password);
     await admin.goto("/en/admin");
     await admin.getByRole("link", { name: "Sign-in attempts" }).first().click();

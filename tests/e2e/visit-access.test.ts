@@ -12,6 +12,7 @@ import { careTeam, catheterEpisodes, organisations, patients } from "@/db/schema
 import en from "@/messages/en.json";
 import { demoCatheterRow } from "../support/fixtures";
 import { demo } from "../support/http";
+import { totpCode, totpSecretFor } from "../support/totp";
 import { baseUrl, launch, newPage, screenshot, signInAs } from "./support/browser";
 import { writeQrVideo } from "./support/fake-camera";
 
@@ -98,6 +99,12 @@ describe("visiting clinician from the passport", () => {
     await page.getByLabel(/e-mail/i).fill(demo.rowanNurse.email);
     await page.locator('input[type="password"]').fill(demo.rowanNurse.password);
     await page.locator('button[type="submit"]').click();
+    // Staff sign in in two steps: the code is asked for here, on the card's own page.
+    await page.locator('input[autocomplete="one-time-code"]').fill(totpCode(totpSecretFor(demo.rowanNurse.email)!));
+    await screenshot(page, "visit-access-second-step-en-390");
+    await page.locator('button[type="submit"]').click();
+    await page.getByTestId("visit-reason").or(page.locator('[role="alert"]').filter({ hasText: /\S/ })).first().waitFor();
+    await screenshot(page, "visit-access-after-code-en-390");
     await page.getByTestId("visit-reason").waitFor();
     await page.getByTestId("visit-reason").fill("Out-of-hours visit: catheter bypassing, patient feverish");
     await page.getByTestId("visit-submit").click();

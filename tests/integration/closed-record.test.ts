@@ -14,6 +14,7 @@ import { changedTables, snapshot } from "../support/db-snapshot";
 import { demoDevice } from "../support/fixtures";
 import { call, demo, sessionFor } from "../support/http";
 import { fillPattern, listRouteFiles, type Method } from "../support/routes";
+import { CLIENT_ADDRESS_HEADER } from "@/lib/http/client-ip";
 
 type Who = keyof typeof demo | "anonymous";
 type Ids = {
@@ -163,7 +164,7 @@ describe("a closed record is read-only on every write route", () => {
         cookie: plan.who === "anonymous" ? undefined : cookies[plan.who],
         params,
         body: plan.body?.(ids),
-        headers: { "x-forwarded-for": `10.66.0.${Object.keys(plans).indexOf(key)}` },
+        headers: { [CLIENT_ADDRESS_HEADER]: `10.66.0.${Object.keys(plans).indexOf(key)}` },
       });
       const text = await res.text();
       expect(res.status, text.slice(0, 300)).toBe(409);

@@ -1,11 +1,11 @@
 // Test-only organisations, clinicians and patients of their own, so a test that adds data does
 // not change what other tests see in the demo organisations. Each fixture removes itself.
-import { randomBytes, randomUUID } from "node:crypto";
+import { randomBytes } from "node:crypto";
 import { eq, inArray } from "drizzle-orm";
 import { db } from "@/db";
-import { account, careTeam, memberships, organisations, patients, user, visitAccess, type NewCatheterEpisode } from "@/db/schema";
-import { hashPassword } from "@/lib/auth/password";
+import { careTeam, organisations, patients, user, visitAccess, type NewCatheterEpisode } from "@/db/schema";
 import { signIn } from "./http";
+import { createOrganisation, createStaff } from "./staff";
 
 export type ClinicianFixture = {
   organisationId: string;
@@ -15,20 +15,13 @@ export type ClinicianFixture = {
   cleanup: () => Promise<void>;
 };
 
-/** A new community team with one clinician, signed in. */
+/** A new community team with one clinician (two-step sign-in set up, as staff must), signed in. */
 export async function clinicianInNewTeam(label = "Fixture"): Promise<ClinicianFixture> {
   const tag = randomBytes(4).toString("hex");
   const password = `Fixture-${tag}-password`;
   const email = `fixture.${tag}@eastmere.example`;
-  const [org] = await db
-    .insert(organisations)
-    // Password-only sign-in, relaxed with its reason as an admin would (two-step is the default).
-    .values({ name: `${label} Team ${tag}`, kind: "community_team", phone: "01632 960 999", requireTwoFactor: false, twoFactorRelaxedReason: "Test team with password-only sign-in", twoFactorRelaxedAt: new Date() })
-    .returning({ id: organisations.id });
-  const userId = randomUUID();
-  await db.insert(user).values({ id: userId, email, name: `${label} Nurse ${tag}`, role: "clinician", locale: "en", emailVerified: true });
-  await db.insert(account).values({ id: randomUUID(), userId, accountId: userId, providerId: "credential", password: await hashPassword(password) });
-  await db.insert(memberships).values({ userId, organisationId: org.id });
+  const org = await createOrganisation({ name: `${label} Team ${tag}`, kind: "community_team" });
+  const { id: userId } = await createStaff({ role: "clinician", organisationIds: [org.id], name: `${label} Nurse ${tag}`, email, password });
   const cookie = await signIn(email, password);
   return {
     organisationId: org.id,

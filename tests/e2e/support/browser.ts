@@ -2,6 +2,7 @@
 import fs from "node:fs";
 import path from "node:path";
 import { chromium, type Browser, type BrowserContextOptions, type Page } from "playwright-core";
+import { afterAll, beforeAll } from "vitest";
 import { totpCode, totpSecretFor } from "../../support/totp";
 
 export const baseUrl = process.env.E2E_BASE_URL ?? "http://localhost:3100";
@@ -20,6 +21,23 @@ export const chromiumArgs = [
 
 export async function launch(extraArgs: string[] = []): Promise<Browser> {
   return chromium.launch({ executablePath: process.env.CHROMIUM_PATH ?? "/usr/bin/chromium", args: [...chromiumArgs, ...extraArgs] });
+}
+
+/**
+ * One Chromium for a test file: launched before its tests, closed after them with the file's
+ * database pool. Returns a getter, as the browser exists only once the file has started.
+ */
+export function browserForFile(extraArgs: string[] = []): () => Browser {
+  let browser: Browser | undefined;
+  beforeAll(async () => {
+    browser = await launch(extraArgs);
+  });
+  afterAll(async () => {
+    await browser?.close();
+    const { pool } = await import("@/db");
+    await pool.end().catch(() => {});
+  });
+  return () => browser!;
 }
 
 export async function newPage(browser: Browser, options: BrowserContextOptions = {}): Promise<Page> {

@@ -119,7 +119,7 @@ describe("bad input on every route that takes a body", () => {
       const before = await snapshot();
       for (const bad of ["Pell\u0000", "FUZZ\u001b[31m", "a\u0008b"]) {
         const body = Object.fromEntries(fields.map((f) => [f, bad]));
-        const res = await call(target.handler, path, { method: target.method, cookie, params, body, headers: { "x-forwarded-for": "10.78.0.1" } });
+        const res = await call(target.handler, path, { method: target.method, cookie, params, body, headers: { [CLIENT_ADDRESS_HEADER]: "10.78.0.1" } });
         expect(res.status, await res.clone().text()).toBe(400);
         const { error } = (await res.json()) as { error: { code: string; fields: Record<string, string[]> } };
         expect(error.code).toBe("validation_failed");

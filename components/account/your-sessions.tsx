@@ -1,11 +1,31 @@
 import { getFormatter, getTranslations } from "next-intl/server";
-import type { SessionView } from "@/lib/auth/sessions";
+import type { Viewer } from "@/lib/auth/session";
+import { listSessionsFor } from "@/lib/auth/sessions";
+import { Link } from "@/lib/i18n/navigation";
 import { EndSessionButton } from "./end-session-button";
 
-/** "Your sessions": each device signed in to the account, this one first, with a way to end it. */
-export async function SessionsList({ sessions, large = false }: { sessions: SessionView[]; large?: boolean }) {
+/** The "your sessions" page, for staff and for the portal: back link, heading, the list. */
+export async function YourSessions({ viewer, backHref, backLabel, large = false }: { viewer: Viewer; backHref: string; backLabel: string; large?: boolean }) {
+  const t = await getTranslations("Sessions");
+  return (
+    <div className={`flex flex-col ${large ? "gap-5" : "max-w-3xl gap-6"}`}>
+      <Link href={backHref} className="text-brand underline underline-offset-4">
+        {backLabel}
+      </Link>
+      <div className="flex flex-col gap-2">
+        <h1 className="text-3xl font-bold">{t("title")}</h1>
+        <p className={large ? "" : "text-ink-soft"}>{t("intro")}</p>
+      </div>
+      <SessionsList viewer={viewer} large={large} />
+    </div>
+  );
+}
+
+/** Each device signed in to the account, this one first, with a way to end it. */
+async function SessionsList({ viewer, large }: { viewer: Viewer; large: boolean }) {
   const t = await getTranslations("Sessions");
   const format = await getFormatter();
+  const sessions = await listSessionsFor(viewer);
   const when = (iso: string) => format.dateTime(new Date(iso), { weekday: "short", day: "numeric", month: "short", hour: "numeric", minute: "2-digit" });
   const others = sessions.filter((s) => !s.current).length;
   return (
