@@ -201,7 +201,7 @@ describe("visiting clinician from the passport", () => {
       await signInAs(page, demo.rowanNurse.email, demo.rowanNurse.password);
       await page.goto("/en/scan");
       await page.getByTestId("scan-toggle").click();
-      await page.waitForURL(`**/en/p/${tokenOf(passport)}`, { timeout: 30_000 });
+      await page.waitForURL(`**/en/p/${tokenOf(passport)}`, { timeout: 60_000 });
       await expect.poll(() => page.getByTestId("card-size").textContent()).toMatch(/\d+ Ch/);
     } finally {
       await camera.close();

@@ -50,18 +50,27 @@ export async function screenshot(page: Page, name: string) {
   await page.screenshot({ path: path.join(screenshotDir, `${name}.png`), fullPage: true });
 }
 
+// Addresses 10.77.x.y with x picked per test file, so files that follow each other within the
+// sign-in limit's minute never share an address.
+const fileOctet = 1 + Math.floor(Math.random() * 250);
 let ip = 1;
 /**
  * Signs in through the real form. Each sign-in is sent as from its own address so the
- * per-address sign-in limit is not what a test of something else runs into.
+ * per-address sign-in limit is not what a test of something else runs into. When the form
+ * stays put, the error it shows is the test's failure message.
  */
 export async function signInAs(page: Page, email: string, password: string, locale = "en", totpSecret?: string) {
-  await page.context().setExtraHTTPHeaders({ "x-forwarded-for": `10.77.0.${ip++ % 250}` });
+  await page.context().setExtraHTTPHeaders({ "x-forwarded-for": `10.77.${fileOctet}.${1 + (ip++ % 250)}` });
   await page.goto(`/${locale}/sign-in`);
   await page.getByLabel(/e-mail|correo|adres|adresă|البريد|ای میل/i).first().fill(email);
   await page.locator('input[type="password"]').fill(password);
   await page.locator('button[type="submit"]').click();
-  await page.waitForURL((url) => !url.pathname.endsWith("/sign-in") && !url.pathname.endsWith("/home"), { timeout: 30_000 });
+  await page
+    .waitForURL((url) => !url.pathname.endsWith("/sign-in") && !url.pathname.endsWith("/home"), { timeout: 30_000 })
+    .catch(async (e: unknown) => {
+      const alert = await page.locator('[role="alert"]').allTextContents().catch(() => []);
+      throw new Error(`sign-in as ${email} stayed on ${page.url()}; the page said: ${alert.join(" | ").trim() || "nothing"} (${String(e)})`);
+    });
   // Two-step sign-in: the code from the account's TOTP secret (the seed's or createStaff's).
   if (new URL(page.url()).pathname.endsWith("/two-factor")) {
     const secret = totpSecret ?? totpSecretFor(email);
