@@ -2,6 +2,7 @@
 // Record a visit, with NEWS2 observations when taken. The score is shown as the clinician types
 // (lib/clinical, the same rule the server applies again when saving).
 import { useTranslations } from "next-intl";
+import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm, useWatch, type FieldPath } from "react-hook-form";
 import { Button } from "@/components/ui/button";
@@ -15,7 +16,7 @@ import { CONSCIOUSNESS_LEVELS, scoreNews2 } from "@/lib/clinical";
 import { Link } from "@/lib/i18n/navigation";
 import { observationsSchema, visitSchema } from "@/lib/validations/visit";
 import { fromLocalInputValue, toLocalInputValue } from "@/lib/browser/datetime-input";
-import { News2Panel, type News2View } from "./news2-panel";
+import { News2Panel, type News2Values, type News2View } from "./news2-panel";
 
 type Values = {
   occurredAt: string;
@@ -33,7 +34,7 @@ type Values = {
   };
 };
 
-type Saved = { eventId: string; observation: { news2: News2View } | null; alerted: number };
+type Saved = { eventId: string; observation: { news2: News2View; values: News2Values } | null; alerted: number };
 
 function payload(v: Values) {
   return {
@@ -57,6 +58,7 @@ function liveScore(o: Values["observations"]): News2View | null {
 export function VisitForm({ patientId }: { patientId: string }) {
   const t = useTranslations("VisitForm");
   const tc = useTranslations("Common");
+  const router = useRouter();
   const [saved, setSaved] = useState<Saved | null>(null);
   const { register, handleSubmit, setError, clearErrors, control, formState } = useForm<Values>({
     defaultValues: {
@@ -84,6 +86,8 @@ export function VisitForm({ patientId }: { patientId: string }) {
     }
     try {
       setSaved(await apiFetch<Saved>(`/api/patients/${patientId}/visits`, { method: "POST", body }));
+      // The page's own lists ("Earlier observations") were rendered before this visit existed.
+      router.refresh();
     } catch (e) {
       failure.fail(e, (error) => (error.code === "conflict" ? t("noEpisode") : error.code === "validation_failed" ? null : t("failed")));
     }
@@ -95,7 +99,7 @@ export function VisitForm({ patientId }: { patientId: string }) {
         <p role="status" className="text-xl font-bold">
           {t("saved")}
         </p>
-        {saved.observation ? <News2Panel score={saved.observation.news2} testId="news2-saved" /> : null}
+        {saved.observation ? <News2Panel score={saved.observation.news2} values={saved.observation.values} testId="news2-saved" /> : null}
         {saved.alerted > 0 ? (
           <p className="font-bold" data-testid="visit-alerted">
             {t("alerted")}

@@ -7,6 +7,8 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { POST as postVisit } from "@/app/api/patients/[patientId]/visits/route";
 import { db } from "@/db";
 import { auditEvents, episodeEvents, observations, outboundMessages } from "@/db/schema";
+import { getPatientHistory } from "@/db/queries/history";
+import { listObservations } from "@/db/queries/observations";
 import { patientIdByHrn } from "../support/fixtures";
 import { call, sessionFor } from "../support/http";
 
@@ -124,5 +126,25 @@ describe("POST /api/patients/[patientId]/visits", () => {
     const res = await post({ occurredAt: minutesAgo(5), notes: "Bag changed, no concerns" });
     expect(res.status).toBe(201);
     expect(await res.json()).toMatchObject({ observation: null, alerted: 0 });
+  });
+
+  it("shows the visit in History with its measured values beside the sub-scores, and first among earlier observations", async () => {
+    // Source: RCP NEWS2 (2017) chart 1: RR 21 → 2, SpO2 93 (scale 1) → 2, air → 0, SBP 120 → 0,
+    // pulse 95 → 1, alert → 0, 37.5 °C → 0: total 5, medium.
+    const res = await post({
+      occurredAt: minutesAgo(1),
+      notes: "History check",
+      observations: { respirationRate: 21, spo2: 93, spo2Scale: 1, onOxygen: false, systolicBp: 120, pulse: 95, consciousness: "A", temperatureC: 37.5 },
+    });
+    const body = await res.json();
+    const history = await getPatientHistory({ patientId: arthur });
+    const event = history.episodes.flatMap((e) => e.events).find((v) => v.id === body.eventId);
+    expect(event).toMatchObject({ kind: "visit", notes: "History check" });
+    expect(event!.observation).toMatchObject({
+      values: { respirationRate: 21, spo2: 93, spo2Scale: 1, onOxygen: false, systolicBp: 120, pulse: 95, consciousness: "A", temperatureC: 37.5 },
+      news2: { total: 5, risk: "medium", subscores: { respirationRate: 2, spo2: 2, air: 0, systolicBp: 0, pulse: 1, consciousness: 0, temperature: 0 } },
+    });
+    const [latest] = await listObservations({ patientId: arthur, limit: 5 });
+    expect(latest!.id).toBe(body.observation.id);
   });
 });

@@ -1,5 +1,6 @@
 import { getFormatter, getTranslations } from "next-intl/server";
 import { Card } from "@/components/ui/card";
+import { News2Panel } from "@/components/visit-form/news2-panel";
 import { getPatientHistory, type HistoryEpisode, type HistoryEvent } from "@/db/queries/history";
 import { openRecordPage } from "@/lib/records/patient-record-page";
 
@@ -136,6 +137,11 @@ function EpisodeItem({ e, labels }: { e: HistoryEpisode; number: number; labels:
                     <span className="font-bold">{line.what}</span> · {line.who}
                     {line.where ? ` · ${line.where}` : ""}
                     {v.notes ? <p className="text-sm text-ink-soft">{v.notes}</p> : null}
+                    {v.observation ? (
+                      <div className="mt-2">
+                        <News2Panel score={v.observation.news2} values={v.observation.values} testId="history-news2" showResponse={false} />
+                      </div>
+                    ) : null}
                   </li>
                 );
               })}

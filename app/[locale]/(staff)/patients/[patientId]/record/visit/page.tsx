@@ -46,7 +46,7 @@ export default async function RecordVisitPage({ params }: { params: Promise<Para
             <p className="tabular font-bold">
               {format.dateTime(new Date(o.takenAt), { dateStyle: "medium", timeStyle: "short" })} · {t("by", { name: o.recordedByName })}
             </p>
-            <News2Panel score={o.news2} testId="news2-previous" />
+            <News2Panel score={o.news2} values={o.values} testId="news2-previous" showResponse={false} />
           </div>
         ))}
       </section>
