@@ -5,10 +5,12 @@ import "server-only";
 // the care-team alert in the outbox. Any error rolls everything back.
 import { db } from "@/db";
 import { getLatestEpisode, insertEpisodeEvent, organisationForRecord } from "@/db/queries/episodes";
+import { getOrganisation } from "@/db/queries/mail-context";
 import { insertObservation, toObservationDto, type ObservationDto } from "@/db/queries/observations";
 import type { Viewer } from "@/lib/auth/session";
 import { ClinicalInputError, scoreNews2 } from "@/lib/clinical";
-import { isAlertLevel, queueCareTeamAlert } from "@/lib/email/care-team-alert";
+import { isAlertLevel } from "@/lib/email/care-team-alert";
+import { raiseAlert } from "@/lib/records/caseload-items";
 import { AppError } from "@/lib/http/errors";
 import { openPatientRecord } from "@/lib/records/patient-record";
 import { assertRecordOpen } from "@/lib/records/record-state";
@@ -91,9 +93,22 @@ export async function recordVisit(ctx: Ctx, input: VisitInput): Promise<Recorded
       },
       tx,
     );
-    const alerts = isAlertLevel("news2", score.risk)
-      ? await queueCareTeamAlert(tx, { patientId: ctx.patientId, kind: "news2", level: score.risk, score: score.total, summary: summary(o), sourceId: row.id })
-      : [];
+    let alerts: unknown[] = [];
+    if (isAlertLevel("news2", score.risk)) {
+      // Named in the alert so the team can call the visiting clinician back.
+      const org = organisationId ? await getOrganisation({ id: organisationId }, tx) : null;
+      alerts = await raiseAlert(tx, {
+        patientId: ctx.patientId,
+        kind: "news2",
+        level: score.risk,
+        score: score.total,
+        summary: summary(o),
+        reporter: { kind: "clinician", name: ctx.viewer.name, organisation: org?.name ?? null, phone: org?.phone ?? null },
+        notes: input.notes ?? null,
+        observationId: row.id,
+        eventId,
+      });
+    }
     return { eventId, observation: toObservationDto(row), alerted: alerts.length };
   });
 }
