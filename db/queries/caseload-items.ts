@@ -1,9 +1,9 @@
 import "server-only";
 // Caseload items: alerts to acknowledge and sample results to chase. Rows and reads only; who may
 // see or close them is decided in lib/records/caseload-items.ts.
-import { and, asc, desc, eq, inArray, isNotNull, isNull, lte } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, isNotNull, isNull, lte, sql } from "drizzle-orm";
 import { db, type Executor } from "@/db";
-import { careTeam, caseloadItems, patients, type CaseloadItem } from "@/db/schema";
+import { careTeam, caseloadItems, checkIns, patients, type CaseloadItem } from "@/db/schema";
 
 export type NewCaseloadItem = typeof caseloadItems.$inferInsert;
 
@@ -77,17 +77,14 @@ export async function markItemResent({ itemId, at }: { itemId: string; at: Date 
   return Boolean(row);
 }
 
-/** The patient's alert items by check-in, for "your care team saw this" in the portal. */
-export async function listItemsForCheckIns({ patientId, checkInIds }: { patientId: string; checkInIds: string[] }, tx: Executor = db) {
-  if (checkInIds.length === 0) return [];
-  return tx
-    .select({ checkInId: caseloadItems.checkInId, closedAt: caseloadItems.closedAt, createdAt: caseloadItems.createdAt })
-    .from(caseloadItems)
-    .where(and(eq(caseloadItems.patientId, patientId), inArray(caseloadItems.checkInId, checkInIds)));
+/** The patient's latest check-ins with, for those that alerted, whether and when the team saw it. */
+export async function listCheckInsWithAcknowledgement({ patientId, limit = 5 }: { patientId: string; limit?: number }, tx: Executor = db) {
+  const rows = await tx
+    .select({ id: checkIns.id, level: checkIns.level, answeredAt: checkIns.answeredAt, createdAt: checkIns.createdAt, itemId: caseloadItems.id, closedAt: caseloadItems.closedAt })
+    .from(checkIns)
+    .leftJoin(caseloadItems, eq(caseloadItems.checkInId, checkIns.id))
+    .where(eq(checkIns.patientId, patientId))
+    .orderBy(desc(sql`coalesce(${checkIns.answeredAt}, ${checkIns.createdAt})`))
+    .limit(limit);
+  return rows.map((r) => ({ id: r.id, level: r.level, at: r.answeredAt ?? r.createdAt, alerted: r.itemId !== null, seenAt: r.closedAt }));
 }
-
-/** Every item of one patient, newest first (the staff record). */
-export async function listPatientItems({ patientId, limit = 20 }: { patientId: string; limit?: number }, tx: Executor = db) {
-  return tx.select().from(caseloadItems).where(eq(caseloadItems.patientId, patientId)).orderBy(desc(caseloadItems.createdAt)).limit(limit);
-}
-

@@ -10,7 +10,7 @@ import { POST as acknowledgePost } from "@/app/api/patients/[patientId]/caseload
 import { POST as checkInsPost } from "@/app/api/check-ins/route";
 import { POST as visitsPost } from "@/app/api/patients/[patientId]/visits/route";
 import { db } from "@/db";
-import { listItemsForCheckIns } from "@/db/queries/caseload-items";
+import { listCheckInsWithAcknowledgement } from "@/db/queries/caseload-items";
 import { auditEvents, caseloadItems, outboundMessages, patients } from "@/db/schema";
 import { getViewerFromHeaders } from "@/lib/auth/session";
 import { openItemsFor, sendAcknowledgeReminders } from "@/lib/records/caseload-items";
@@ -141,8 +141,9 @@ describe("POST /api/patients/[patientId]/caseload-items/[itemId]", () => {
     expect(audits.some((a) => (a.details as { itemId?: string }).itemId === item.id)).toBe(true);
 
     // The portal reads when the team saw it.
-    const [seen] = await listItemsForCheckIns({ patientId: arthur, checkInIds: [c.id] });
-    expect(seen!.closedAt).toBeInstanceOf(Date);
+    const seen = (await listCheckInsWithAcknowledgement({ patientId: arthur, limit: 20 })).find((r) => r.id === c.id);
+    expect(seen).toMatchObject({ level: "urgent", alerted: true });
+    expect(seen!.seenAt).toBeInstanceOf(Date);
   });
 
   it("the caseload lists open items of the viewer's alert teams only", async () => {
