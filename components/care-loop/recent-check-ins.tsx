@@ -15,8 +15,8 @@ export async function RecentCheckIns({ patientId }: { patientId: string }) {
   const format = await getFormatter();
   const when = (d: Date) =>
     dayIn(d) === dayIn(new Date())
-      ? format.dateTime(d, { hour: "2-digit", minute: "2-digit" })
-      : format.dateTime(d, { weekday: "long", day: "numeric", month: "long", hour: "2-digit", minute: "2-digit" });
+      ? format.dateTime(d, { hour: "2-digit", minute: "2-digit", hourCycle: "h23" })
+      : format.dateTime(d, { weekday: "long", day: "numeric", month: "long", hour: "2-digit", minute: "2-digit", hourCycle: "h23" });
   return (
     <Card className="flex flex-col gap-3" data-testid="recent-check-ins">
       <h2 className="text-xl font-bold">{t("title")}</h2>

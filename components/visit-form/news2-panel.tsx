@@ -2,7 +2,7 @@
 // RCP response, with the words that local policy, the maker's instructions and clinical judgement
 // come first. Band shown by a word and a bordered box, never by colour alone.
 import { useTranslations } from "next-intl";
-import type { Consciousness, News2ResponseKey, News2Risk } from "@/lib/clinical";
+import { news2HomeResponse, type Consciousness, type News2ResponseKey, type News2Risk } from "@/lib/clinical";
 
 export type News2View = { total: number; subscores: Record<string, number>; risk: News2Risk; response: News2ResponseKey };
 
@@ -17,6 +17,11 @@ export type News2Values = {
   consciousness: Consciousness;
   temperatureC: number;
 };
+
+/** The numbers to call from the home (the care team's from its organisations, the emergency number from Settings). */
+export type News2Contacts = { emergencyNumber: string | null; team: { name: string; phone: string | null; outOfHoursPhone: string | null }[] };
+
+const tel = (phone: string) => `tel:${phone.replace(/[^+0-9]/g, "")}`;
 
 const tone: Record<News2Risk, string> = {
   low: "border-level-selfcare bg-level-selfcare-soft text-level-selfcare-ink",
@@ -33,12 +38,14 @@ export function News2Panel({
   values,
   testId = "news2-panel",
   showResponse = true,
+  contacts,
 }: {
   score: News2View;
   values?: News2Values | null;
   testId?: string;
   /** The history shows the values and score only; the response is for the moment of the visit. */
   showResponse?: boolean;
+  contacts?: News2Contacts;
 }) {
   const t = useTranslations("VisitForm");
   const tv = useTranslations("Visits");
@@ -108,7 +115,58 @@ export function News2Panel({
           <p>{t("monitoring", { frequency: t(`responses.${score.response}.monitoring`) })}</p>
         </div>
       ) : null}
+      {showResponse ? <HomeResponse response={score.response} contacts={contacts} /> : null}
       <p className="text-sm">{t("safety")}</p>
+    </div>
+  );
+}
+
+/** Beside the RCP text: whom to call from the patient's home (lib/clinical news2HomeResponse). */
+function HomeResponse({ response, contacts }: { response: News2ResponseKey; contacts?: News2Contacts }) {
+  const t = useTranslations("Visits");
+  const home = news2HomeResponse(response);
+  const link = (phone: string) => (
+    <a href={tel(phone)} className="font-bold underline underline-offset-4">
+      {phone}
+    </a>
+  );
+  return (
+    <div className="rounded-lg border-2 border-current/40 bg-paper-raised/60 p-3" data-testid="news2-home">
+      <p className="font-bold">{t("home.title")}</p>
+      <p className="text-sm italic">{t("home.noSource")}</p>
+      <p data-testid="news2-home-text">{t(`home.text.${response}`)}</p>
+      {home.call.length ? (
+        <ul className="mt-1 flex flex-col gap-1">
+          {home.call.map((c) => (
+            <li key={c} data-contact={c}>
+              {c === "gp" ? t("home.gp") : null}
+              {c === "team"
+                ? (contacts?.team.filter((o) => o.phone) ?? []).map((o) => (
+                    <span key={o.name} className="block">
+                      {t("home.team", { name: o.name })} {link(o.phone!)}
+                    </span>
+                  ))
+                : null}
+              {c === "out-of-hours"
+                ? (contacts?.team.filter((o) => o.outOfHoursPhone) ?? []).map((o) => (
+                    <span key={o.name} className="block">
+                      {t("home.outOfHours", { name: o.name })} {link(o.outOfHoursPhone!)}
+                    </span>
+                  ))
+                : null}
+              {c === "emergency" ? (
+                contacts?.emergencyNumber ? (
+                  <span>
+                    {t("home.emergency")} {link(contacts.emergencyNumber)}
+                  </span>
+                ) : (
+                  <span>{t("home.emergencyUnset")}</span>
+                )
+              ) : null}
+            </li>
+          ))}
+        </ul>
+      ) : null}
     </div>
   );
 }

@@ -16,7 +16,7 @@ import { CONSCIOUSNESS_LEVELS, scoreNews2 } from "@/lib/clinical";
 import { Link } from "@/lib/i18n/navigation";
 import { observationsSchema, visitSchema } from "@/lib/validations/visit";
 import { fromLocalInputValue, toLocalInputValue } from "@/lib/browser/datetime-input";
-import { News2Panel, type News2Values, type News2View } from "./news2-panel";
+import { News2Panel, type News2Contacts, type News2Values, type News2View } from "./news2-panel";
 
 type Values = {
   occurredAt: string;
@@ -55,7 +55,7 @@ function liveScore(o: Values["observations"]): News2View | null {
   }
 }
 
-export function VisitForm({ patientId }: { patientId: string }) {
+export function VisitForm({ patientId, contacts }: { patientId: string; contacts: News2Contacts }) {
   const t = useTranslations("VisitForm");
   const tc = useTranslations("Common");
   const router = useRouter();
@@ -99,7 +99,7 @@ export function VisitForm({ patientId }: { patientId: string }) {
         <p role="status" className="text-xl font-bold">
           {t("saved")}
         </p>
-        {saved.observation ? <News2Panel score={saved.observation.news2} values={saved.observation.values} testId="news2-saved" /> : null}
+        {saved.observation ? <News2Panel score={saved.observation.news2} values={saved.observation.values} contacts={contacts} testId="news2-saved" /> : null}
         {saved.alerted > 0 ? (
           <p className="font-bold" data-testid="visit-alerted">
             {t("alerted")}
@@ -165,7 +165,7 @@ export function VisitForm({ patientId }: { patientId: string }) {
             errors={err("observations.consciousness")}
           />
           <div className="sm:col-span-2" aria-live="polite">
-            {score ? <News2Panel score={score} /> : <p className="text-ink-soft">{t("scoreIncomplete")}</p>}
+            {score ? <News2Panel score={score} contacts={contacts} /> : <p className="text-ink-soft">{t("scoreIncomplete")}</p>}
           </div>
         </Section>
       ) : null}
