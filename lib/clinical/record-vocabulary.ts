@@ -31,8 +31,11 @@ export const TWOC_FAILED_ACTIONS = ["re-catheterised", "intermittent-self-cathet
  * check-in, a NEWS2 that alerted, and a urine sample's result still to chase.
  */
 export const CASELOAD_ITEM_KINDS = ["check-in", "news2", "sample-result"] as const;
-export type CaseloadItemKind = (typeof CASELOAD_ITEM_KINDS)[number];
 
 /** What a nurse did about an alert when acknowledging it ("other" needs a note). */
 export const ACKNOWLEDGE_ACTIONS = ["phoned", "visited", "sent-to-gp", "advised-emergency", "other"] as const;
-export type AcknowledgeAction = (typeof ACKNOWLEDGE_ACTIONS)[number];
+
+/** What a community visit finds (the structured visit form). */
+export const URINE_APPEARANCES = ["clear", "cloudy", "blood", "debris"] as const;
+/** The meatus or the suprapubic site. */
+export const SITE_CONDITIONS = ["healthy", "red-or-sore", "discharge", "overgranulation", "other"] as const;

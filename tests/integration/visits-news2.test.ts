@@ -6,9 +6,10 @@ import { eq, like, sql } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { POST as postVisit } from "@/app/api/patients/[patientId]/visits/route";
 import { db } from "@/db";
-import { auditEvents, episodeEvents, observations, outboundMessages } from "@/db/schema";
+import { auditEvents, caseloadItems, episodeEvents, observations, outboundMessages } from "@/db/schema";
 import { getPatientHistory } from "@/db/queries/history";
-import { listObservations } from "@/db/queries/observations";
+import { getLastVisitFindings, listObservations } from "@/db/queries/observations";
+import { POST as closeItemPost } from "@/app/api/patients/[patientId]/caseload-items/[itemId]/route";
 import { patientIdByHrn } from "../support/fixtures";
 import { call, sessionFor } from "../support/http";
 
@@ -146,5 +147,47 @@ describe("POST /api/patients/[patientId]/visits", () => {
     });
     const [latest] = await listObservations({ patientId: arthur, limit: 5 });
     expect(latest!.id).toBe(body.observation.id);
+  });
+
+  it("stores a structured visit's findings; a sample sent leaves a result to chase until marked done; the next form starts from them", async () => {
+    const nextWeek = new Date(Date.now() + 7 * 86_400_000).toISOString().slice(0, 10);
+    const findings = {
+      draining: "true",
+      bypassing: "false",
+      urine: ["cloudy", "debris"],
+      site: "red-or-sore",
+      bagChanged: true,
+      valveChanged: false,
+      catheterChanged: true,
+      sampleSent: true,
+      advice: "Drink 2 litres a day; keep the bag below the bladder.",
+      nextVisitOn: nextWeek,
+    };
+    const res = await post({ occurredAt: minutesAgo(0.5), findings });
+    expect(res.status).toBe(201);
+    const body = await res.json();
+    expect(body).toMatchObject({ sampleToChase: true, catheterChanged: true, observation: null });
+    const [event] = await db.select().from(episodeEvents).where(eq(episodeEvents.id, body.eventId));
+    expect((event!.details as { findings: unknown }).findings).toEqual({ ...findings, draining: true, bypassing: false });
+    const [item] = await db.select().from(caseloadItems).where(eq(caseloadItems.eventId, body.eventId));
+    expect(item).toMatchObject({ kind: "sample-result", closedAt: null, dueAt: null });
+    // The next visit starts from these findings, without what was changed or the old date.
+    expect(await getLastVisitFindings({ patientId: arthur })).toMatchObject({ draining: true, urine: ["cloudy", "debris"], site: "red-or-sore", nextVisitOn: undefined });
+    // Marked done with the result (no action needed for a sample).
+    const done = await call(closeItemPost, `/api/patients/${arthur}/caseload-items/${item!.id}`, { cookie: nurse, params: { patientId: arthur, itemId: item!.id }, body: { note: "No growth." } });
+    expect(done.status).toBe(200);
+    expect((await db.select().from(caseloadItems).where(eq(caseloadItems.id, item!.id)))[0]).toMatchObject({ note: "No growth.", action: null, closedByName: "Grace Mensah" });
+  });
+
+  it("refuses bad findings with every field error and writes nothing", async () => {
+    const before = await counts();
+    const res = await post({
+      occurredAt: minutesAgo(0.2),
+      findings: { draining: "maybe", bypassing: "", urine: [], site: "purple", bagChanged: "x", nextVisitOn: "2001-01-01", extra: 1 },
+    });
+    expect(res.status).toBe(400);
+    const { error } = await res.json();
+    expect(Object.keys(error.fields)).toEqual(expect.arrayContaining(["findings.draining", "findings.bypassing", "findings.urine", "findings.site", "findings.bagChanged", "findings.nextVisitOn"]));
+    expect(await counts()).toEqual(before);
   });
 });

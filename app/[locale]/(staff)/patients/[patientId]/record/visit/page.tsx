@@ -3,7 +3,7 @@ import { notFound } from "next/navigation";
 import { News2Panel } from "@/components/visit-form/news2-panel";
 import { VisitForm } from "@/components/visit-form/visit-form";
 import { getRecordingContext } from "@/db/queries/episodes";
-import { listObservations } from "@/db/queries/observations";
+import { getLastVisitFindings, listObservations } from "@/db/queries/observations";
 import { getHelpContacts } from "@/db/queries/contacts";
 import { Link } from "@/lib/i18n/navigation";
 import { openRecordPage } from "@/lib/records/patient-record-page";
@@ -19,7 +19,12 @@ export async function generateMetadata() {
 export default async function RecordVisitPage({ params }: { params: Promise<Params> }) {
   const { locale, patientId } = await params;
   await openRecordPage({ locale, patientId, action: "visit.form" });
-  const [context, previous, contacts] = await Promise.all([getRecordingContext({ patientId }), listObservations({ patientId, limit: 5 }), getHelpContacts({ patientId })]);
+  const [context, previous, contacts, last] = await Promise.all([
+    getRecordingContext({ patientId }),
+    listObservations({ patientId, limit: 5 }),
+    getHelpContacts({ patientId }),
+    getLastVisitFindings({ patientId }),
+  ]);
   if (!context.patient) notFound();
   const t = await getTranslations("VisitForm");
   const format = await getFormatter();
@@ -27,7 +32,7 @@ export default async function RecordVisitPage({ params }: { params: Promise<Para
   let body;
   if (context.patient.closed) body = <p className="font-bold">{t("closed")}</p>;
   else if (!context.latest) body = <p className="font-bold" data-testid="visit-no-episode">{t("noEpisode")}</p>;
-  else body = <VisitForm patientId={patientId} contacts={contacts} />;
+  else body = <VisitForm patientId={patientId} contacts={contacts} last={last} />;
   return (
     <div className="flex flex-col gap-5">
       <div className="flex flex-col gap-1">
