@@ -6,7 +6,7 @@ export function FindingsSummary({ findings }: { findings: unknown }) {
   const t = useTranslations("Visits.findings");
   const format = useFormatter();
   // Stored as validated; read back loosely (a past next-visit date is still worth showing).
-  const parsed = visitFindingsSchema.omit({ nextVisitOn: true }).safeParse({ ...(findings as object), nextVisitOn: undefined });
+  const parsed = visitFindingsSchema.safeParse({ ...(findings as object), nextVisitOn: undefined });
   if (!parsed.success) return null;
   const f = parsed.data;
   const next = (findings as { nextVisitOn?: unknown }).nextVisitOn;

@@ -56,6 +56,15 @@ describe("visits and reports that close the loop", () => {
     await signInAs(page, demo.rowanNurse.email, demo.rowanNurse.password);
     await page.goto(`/en/patients/${arthur}/record/visit`);
     await page.getByTestId("visit-notes").fill(note);
+    // The structured visit: one screen, for a tablet.
+    await page.locator("fieldset", { hasText: "Draining well?" }).getByLabel("Yes").check();
+    await page.locator("fieldset", { hasText: "Bypassing" }).getByLabel("No").check();
+    await page.getByLabel("Clear", { exact: true }).check();
+    await page.getByLabel("Healthy", { exact: true }).check();
+    await page.getByLabel("Bag changed").check();
+    await page.getByTestId("finding-sample").check();
+    await page.getByTestId("finding-advice").fill("Drink 2 litres a day; keep the bag below the bladder.");
+    await page.getByTestId("finding-next-visit").fill(new Date(Date.now() + 7 * 86_400_000).toISOString().slice(0, 10));
     // Source: RCP NEWS2 (2017), chart 1: RR 21 → 2, SpO2 93 % (scale 1) → 2, air → 0, SBP 120 → 0,
     // pulse 95 → 1, alert → 0, 37.5 °C → 0: total 5, medium (chart 4: urgent response).
     await page.getByTestId("obs-respirationRate").fill("21");
@@ -73,6 +82,7 @@ describe("visits and reports that close the loop", () => {
     for (const v of ["21 /min", "93 % (scale 1)", "Air", "120 mmHg", "95 /min", "A · Alert", "37.5 °C"]) expect(values).toContain(v);
     expect(await saved.locator('tr[data-parameter="spo2"] td').last().textContent()).toBe("2");
     expect(await page.getByTestId("visit-alerted").textContent()).toContain("alerted");
+    expect(await page.getByTestId("visit-sample-chase").textContent()).toContain("result is on the caseload");
     // Earlier observations now holds the visit just saved (it said "none" before).
     await expect.poll(() => page.getByTestId("news2-previous").first().locator('tr[data-parameter="respirationRate"]').textContent()).toContain("21 /min");
     await screenshot(page, "visit-saved-en-820");
@@ -83,7 +93,21 @@ describe("visits and reports that close the loop", () => {
     expect(await inHistory.getAttribute("data-risk")).toBe("medium");
     expect(await inHistory.getByTestId("news2-values").textContent()).toContain("93 % (scale 1)");
     expect(await page.getByTestId("history-timeline").textContent()).toContain(note);
+    expect(await page.getByTestId("visit-findings").first().textContent()).toContain("Draining: Yes");
+    // The trend charts (recharts SVG) and their text equivalent.
+    await page.getByTestId("observation-trends").waitFor();
+    expect(await page.locator('[data-testid="trend-respirationRate"] .recharts-line').count()).toBeGreaterThan(0);
+    expect(await page.locator('[data-testid="trend-total"] .recharts-reference-area').count()).toBeGreaterThan(0);
+    const firstRow = page.getByTestId("observation-table").locator("tbody tr").first();
+    expect((await firstRow.textContent())?.replace(/\s+/g, " ")).toMatch(/5 · Medium.*21 \(2\).*93 % \(2\).*120 \(0\).*95 \(1\).*A \(0\).*37\.5 \(0\)/);
     await screenshot(page, "visit-history-en-820");
+    await page.goto(`/ar/patients/${arthur}/history`);
+    await page.getByTestId("observation-trends").waitFor();
+    expect(await page.locator("html").getAttribute("dir")).toBe("rtl");
+    await screenshot(page, "visit-history-ar-820");
+    await page.goto(`/ar/patients/${arthur}/record/visit`);
+    await page.getByTestId("visit-form").waitFor();
+    await screenshot(page, "visit-form-ar-820");
     await page.context().close();
   });
 
