@@ -9,6 +9,8 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { POST as acknowledgePost } from "@/app/api/patients/[patientId]/caseload-items/[itemId]/route";
 import { POST as checkInsPost } from "@/app/api/check-ins/route";
 import { POST as visitsPost } from "@/app/api/patients/[patientId]/visits/route";
+import { PATCH as settingsPatch } from "@/app/api/admin/settings/route";
+import { getAcknowledgePlan } from "@/lib/config/settings";
 import { db } from "@/db";
 import { listCheckInsWithAcknowledgement } from "@/db/queries/caseload-items";
 import { auditEvents, caseloadItems, outboundMessages, patients } from "@/db/schema";
@@ -186,5 +188,29 @@ describe("sending again what nobody acknowledged", () => {
     // Shown in red on the caseload.
     const grace = await getSessionViewerForTest(await sessionFor("communityNurse"));
     expect((await openItemsFor(grace)).find((i) => i.id === lateItem.id)).toMatchObject({ overdue: true });
+  });
+});
+
+describe("the acknowledgement time in Settings", () => {
+  it("an admin sets the minutes and the working day; a bad time is refused; new items are due by them", async () => {
+    const admin = await sessionFor("admin");
+    const patch = (body: unknown) => call(settingsPatch, "/api/admin/settings", { method: "PATCH", cookie: admin, body });
+    const bad = await patch({ acknowledgeWithinMinutes: 5, workingDayStart: "8am" });
+    expect(bad.status).toBe(400);
+    expect(Object.keys((await bad.json()).error.fields).sort()).toEqual(["acknowledgeWithinMinutes", "workingDayStart"]);
+    try {
+      expect((await patch({ acknowledgeWithinMinutes: 30, workingDayStart: "00:00", workingDayEnd: "23:59" })).status).toBe(200);
+      expect(await getAcknowledgePlan()).toMatchObject({ minutes: 30, hours: { start: 0, end: 23 * 60 + 59 } });
+      const before = Date.now();
+      const { checkIn: c } = await (await checkIn(await sessionFor("patient"), { ...fine, draining: "none" })).json();
+      const item = (await itemOf({ checkInId: c.id }))!;
+      const day = new Date(before).getUTCDay();
+      // On a weekday (in London) the item is due 30 minutes on; at a weekend, on Monday.
+      if (day >= 2 && day <= 5) expect(item.dueAt!.getTime() - before).toBeLessThan(32 * 60_000);
+      expect(item.dueAt!.getTime() - before).toBeGreaterThanOrEqual(30 * 60_000 - 1000);
+    } finally {
+      await patch({ acknowledgeWithinMinutes: null, workingDayStart: null, workingDayEnd: null });
+    }
+    expect(await getAcknowledgePlan()).toMatchObject({ minutes: 120, hours: { start: 480, end: 1080 } });
   });
 });
