@@ -36,10 +36,11 @@ export async function CaseloadItemsPanel({ items }: { items: CaseloadItemView[] 
           >
             <div className="flex flex-wrap items-baseline justify-between gap-2">
               <p className="text-lg font-bold">
-                <Link href={`/patients/${i.patientId}`} className="underline underline-offset-4">
-                  {i.patientName}
-                </Link>{" "}
-                <span className="tabular font-normal">· {i.healthRecordNumber}</span>
+                {i.patientName} <span className="tabular font-normal">· {i.healthRecordNumber}</span>{" "}
+                {/* Its own words, so the caseload table's link is the one named after the patient. */}
+                <Link href={`/patients/${i.patientId}`} className="text-base underline underline-offset-4">
+                  {t("openRecord")}
+                </Link>
               </p>
               <p className="font-bold">{t(`kind.${i.kind}`, { level: levelWord(i) })}</p>
             </div>
