@@ -20,6 +20,9 @@ export type SettingsInitial = {
   dueSoonDays: number | null;
   defaultMaxDwellDays: Partial<Record<Material, number>>;
   retentionDays: number | null;
+  acknowledgeWithinMinutes: number | null;
+  workingDayStart: string | null;
+  workingDayEnd: string | null;
 };
 
 const text = { setValueAs: (v: unknown) => (typeof v === "string" && v.trim() === "" ? null : v) };
@@ -129,6 +132,23 @@ export function SettingsForm({ initial }: { initial: SettingsInitial }) {
             ))}
           </div>
         </fieldset>
+      </fieldset>
+
+      <fieldset className="flex flex-col gap-4">
+        <legend className="mb-2 text-xl font-bold">{t("alertsHeading")}</legend>
+        <p className="text-ink-soft">{t("alertsIntro")}</p>
+        <div className="grid gap-4 md:grid-cols-3">
+          <Field
+            label={t("acknowledgeWithinMinutes")}
+            hint={t("acknowledgeDefault")}
+            inputMode="numeric"
+            errors={errorText.list(errors.acknowledgeWithinMinutes)}
+            {...register("acknowledgeWithinMinutes", num)}
+            data-testid="setting-acknowledge-minutes"
+          />
+          <Field label={t("workingDayStart")} hint={t("workingDayStartDefault")} inputMode="numeric" autoComplete="off" errors={errorText.list(errors.workingDayStart)} {...register("workingDayStart", text)} />
+          <Field label={t("workingDayEnd")} hint={t("workingDayEndDefault")} inputMode="numeric" autoComplete="off" errors={errorText.list(errors.workingDayEnd)} {...register("workingDayEnd", text)} />
+        </div>
       </fieldset>
 
       <fieldset className="flex flex-col gap-4">

@@ -2,24 +2,59 @@
 // Record a visit, with NEWS2 observations when taken. The score is shown as the clinician types
 // (lib/clinical, the same rule the server applies again when saving).
 import { useTranslations } from "next-intl";
+import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm, useWatch, type FieldPath } from "react-hook-form";
 import { Button } from "@/components/ui/button";
-import { Checkbox, RadioGroup } from "@/components/ui/choice";
+import { Checkbox, ChoiceGroup, RadioGroup } from "@/components/ui/choice";
 import { Field, TextArea } from "@/components/ui/field";
 import { ErrorAlert } from "@/components/ui/notice";
 import { Section } from "@/components/ui/section";
 import { useSubmitFailure } from "@/components/ui/use-error-text";
 import { apiFetch } from "@/lib/browser/api-client";
-import { CONSCIOUSNESS_LEVELS, scoreNews2 } from "@/lib/clinical";
+import { CONSCIOUSNESS_LEVELS, scoreNews2, SITE_CONDITIONS, URINE_APPEARANCES } from "@/lib/clinical";
 import { Link } from "@/lib/i18n/navigation";
-import { observationsSchema, visitSchema } from "@/lib/validations/visit";
+import { observationsSchema, visitSchema, type VisitFindings } from "@/lib/validations/visit";
 import { fromLocalInputValue, toLocalInputValue } from "@/lib/browser/datetime-input";
-import { News2Panel, type News2View } from "./news2-panel";
+import { News2Panel, type News2Contacts, type News2Values, type News2View } from "./news2-panel";
+
+type Findings = {
+  draining: string;
+  bypassing: string;
+  urine: string[];
+  site: string;
+  bagChanged: boolean;
+  valveChanged: boolean;
+  catheterChanged: boolean;
+  sampleSent: boolean;
+  advice: string;
+  nextVisitOn: string;
+};
+
+/** The last visit's findings as the starting point; what was changed or sent is never carried over. */
+function startingFindings(last: VisitFindings | null): Findings {
+  return {
+    draining: last ? String(last.draining) : "",
+    bypassing: last ? String(last.bypassing) : "",
+    urine: last?.urine ?? [],
+    site: last?.site ?? "",
+    bagChanged: false,
+    valveChanged: false,
+    catheterChanged: false,
+    sampleSent: false,
+    advice: last?.advice ?? "",
+    nextVisitOn: "",
+  };
+}
+
+function hasFindings(f: Findings) {
+  return Boolean(f.draining || f.bypassing || f.urine.length || f.site || f.bagChanged || f.valveChanged || f.catheterChanged || f.sampleSent || f.advice.trim() || f.nextVisitOn);
+}
 
 type Values = {
   occurredAt: string;
   notes: string;
+  findings: Findings;
   withObservations: boolean;
   observations: {
     respirationRate: string;
@@ -33,12 +68,14 @@ type Values = {
   };
 };
 
-type Saved = { eventId: string; observation: { news2: News2View } | null; alerted: number };
+type Saved = { eventId: string; observation: { news2: News2View; values: News2Values } | null; alerted: number; sampleToChase: boolean; catheterChanged: boolean };
 
 function payload(v: Values) {
   return {
     occurredAt: fromLocalInputValue(v.occurredAt),
     notes: v.notes,
+    // A visit for observations only (a clinician from another team) leaves the findings untouched.
+    ...(hasFindings(v.findings) ? { findings: v.findings } : {}),
     ...(v.withObservations ? { observations: v.observations } : {}),
   };
 }
@@ -54,14 +91,17 @@ function liveScore(o: Values["observations"]): News2View | null {
   }
 }
 
-export function VisitForm({ patientId }: { patientId: string }) {
+export function VisitForm({ patientId, contacts, last }: { patientId: string; contacts: News2Contacts; last: VisitFindings | null }) {
   const t = useTranslations("VisitForm");
   const tc = useTranslations("Common");
+  const tv = useTranslations("Visits");
+  const router = useRouter();
   const [saved, setSaved] = useState<Saved | null>(null);
   const { register, handleSubmit, setError, clearErrors, control, formState } = useForm<Values>({
     defaultValues: {
       occurredAt: toLocalInputValue(new Date().toISOString()),
       notes: "",
+      findings: startingFindings(last),
       withObservations: true,
       observations: { respirationRate: "", spo2: "", spo2Scale: "1", onOxygen: "false", systolicBp: "", pulse: "", consciousness: "A", temperatureC: "" },
     },
@@ -84,6 +124,8 @@ export function VisitForm({ patientId }: { patientId: string }) {
     }
     try {
       setSaved(await apiFetch<Saved>(`/api/patients/${patientId}/visits`, { method: "POST", body }));
+      // The page's own lists ("Earlier observations") were rendered before this visit existed.
+      router.refresh();
     } catch (e) {
       failure.fail(e, (error) => (error.code === "conflict" ? t("noEpisode") : error.code === "validation_failed" ? null : t("failed")));
     }
@@ -95,7 +137,17 @@ export function VisitForm({ patientId }: { patientId: string }) {
         <p role="status" className="text-xl font-bold">
           {t("saved")}
         </p>
-        {saved.observation ? <News2Panel score={saved.observation.news2} testId="news2-saved" /> : null}
+        {saved.observation ? <News2Panel score={saved.observation.news2} values={saved.observation.values} contacts={contacts} testId="news2-saved" /> : null}
+        {saved.catheterChanged ? (
+          <Link href={`/patients/${patientId}/record/change`} className="self-start rounded-lg bg-brand px-5 py-3 font-bold text-white" data-testid="visit-go-change">
+            {tv("findings.goToChange")}
+          </Link>
+        ) : null}
+        {saved.sampleToChase ? (
+          <p className="font-bold" data-testid="visit-sample-chase">
+            {tv("findings.sampleOnCaseload")}
+          </p>
+        ) : null}
         {saved.alerted > 0 ? (
           <p className="font-bold" data-testid="visit-alerted">
             {t("alerted")}
@@ -126,6 +178,51 @@ export function VisitForm({ patientId }: { patientId: string }) {
         <Field label={t("occurredAt")} type="datetime-local" max={toLocalInputValue(new Date().toISOString())} {...register("occurredAt")} errors={err("occurredAt")} />
         <TextArea className="sm:col-span-2" label={t("notes")} hint={t("notesHint")} {...register("notes")} errors={err("notes")} data-testid="visit-notes" />
         <Checkbox className="sm:col-span-2" label={t("withObservations")} {...register("withObservations")} data-testid="with-observations" />
+      </Section>
+      <Section title={tv("findings.title")}>
+        {last ? <p className="sm:col-span-2 text-sm text-ink-soft">{tv("findings.fromLast")}</p> : null}
+        <RadioGroup
+          legend={tv("findings.draining")}
+          options={[
+            { value: "true", label: tv("findings.yes") },
+            { value: "false", label: tv("findings.no") },
+          ]}
+          inputProps={register("findings.draining")}
+          errors={err("findings.draining")}
+        />
+        <RadioGroup
+          legend={tv("findings.bypassing")}
+          options={[
+            { value: "true", label: tv("findings.yes") },
+            { value: "false", label: tv("findings.no") },
+          ]}
+          inputProps={register("findings.bypassing")}
+          errors={err("findings.bypassing")}
+        />
+        <ChoiceGroup className="sm:col-span-2" legend={tv("findings.urine")} hint={tv("findings.urineHint")} errors={err("findings.urine")}>
+          <div className="flex flex-wrap gap-x-6">
+            {URINE_APPEARANCES.map((u) => (
+              <Checkbox key={u} label={tv(`findings.urineValues.${u}`)} value={u} {...register("findings.urine")} />
+            ))}
+          </div>
+        </ChoiceGroup>
+        <RadioGroup
+          className="sm:col-span-2"
+          legend={tv("findings.site")}
+          options={SITE_CONDITIONS.map((c) => ({ value: c, label: tv(`findings.siteValues.${c}`) }))}
+          inputProps={register("findings.site")}
+          errors={err("findings.site")}
+        />
+        <ChoiceGroup className="sm:col-span-2" legend={tv("findings.done")}>
+          <div className="grid sm:grid-cols-2">
+            <Checkbox label={tv("findings.bagChanged")} {...register("findings.bagChanged")} />
+            <Checkbox label={tv("findings.valveChanged")} {...register("findings.valveChanged")} />
+            <Checkbox label={tv("findings.catheterChanged")} hint={tv("findings.catheterChangedHint")} {...register("findings.catheterChanged")} />
+            <Checkbox label={tv("findings.sampleSent")} hint={tv("findings.sampleSentHint")} {...register("findings.sampleSent")} data-testid="finding-sample" />
+          </div>
+        </ChoiceGroup>
+        <TextArea className="sm:col-span-2" label={tv("findings.advice")} {...register("findings.advice")} errors={err("findings.advice")} data-testid="finding-advice" />
+        <Field label={tv("findings.nextVisitOn")} type="date" {...register("findings.nextVisitOn")} errors={err("findings.nextVisitOn")} data-testid="finding-next-visit" />
       </Section>
       {withObs ? (
         <Section title={t("scoreTitle")}>
@@ -161,7 +258,7 @@ export function VisitForm({ patientId }: { patientId: string }) {
             errors={err("observations.consciousness")}
           />
           <div className="sm:col-span-2" aria-live="polite">
-            {score ? <News2Panel score={score} /> : <p className="text-ink-soft">{t("scoreIncomplete")}</p>}
+            {score ? <News2Panel score={score} contacts={contacts} /> : <p className="text-ink-soft">{t("scoreIncomplete")}</p>}
           </div>
         </Section>
       ) : null}

@@ -1,11 +1,13 @@
 import "server-only";
 // What the FHIR export needs of one patient (access is checked by the caller).
-import { asc, eq } from "drizzle-orm";
+import { and, asc, eq } from "drizzle-orm";
 import { db, type Executor } from "@/db";
-import { catheterEpisodes, observations, patients } from "@/db/schema";
+import { catheterEpisodes, episodeEvents, observations, organisations, patients } from "@/db/schema";
+import { getCareTeamOrganisations } from "@/db/queries/mail-context";
+import { alertTeams } from "@/lib/records/alert-team";
 import type { FhirInput } from "@/lib/fhir/export";
 
-export async function getFhirExportData({ patientId }: { patientId: string }, tx: Executor = db): Promise<Omit<FhirInput, "base" | "now"> | null> {
+export async function getFhirExportData({ patientId }: { patientId: string }, tx: Executor = db): Promise<Omit<FhirInput, "identifierSystem" | "now"> | null> {
   const [p] = await tx
     .select({
       id: patients.id,
@@ -19,7 +21,7 @@ export async function getFhirExportData({ patientId }: { patientId: string }, tx
     .from(patients)
     .where(eq(patients.id, patientId));
   if (!p) return null;
-  const [episodes, obs] = await Promise.all([
+  const [episodes, obs, visits, team, lead] = await Promise.all([
     tx
       .select({
         id: catheterEpisodes.id,
@@ -43,12 +45,25 @@ export async function getFhirExportData({ patientId }: { patientId: string }, tx
       .where(eq(catheterEpisodes.patientId, patientId))
       .orderBy(asc(catheterEpisodes.insertedAt)),
     tx.select().from(observations).where(eq(observations.patientId, patientId)).orderBy(asc(observations.takenAt)),
+    tx
+      .select({ id: episodeEvents.id, occurredAt: episodeEvents.occurredAt, recordedByName: episodeEvents.recordedByName, organisationName: organisations.name })
+      .from(episodeEvents)
+      .leftJoin(organisations, eq(organisations.id, episodeEvents.organisationId))
+      .where(and(eq(episodeEvents.patientId, patientId), eq(episodeEvents.kind, "visit")))
+      .orderBy(asc(episodeEvents.occurredAt)),
+    getCareTeamOrganisations({ patientId }, tx),
+    // The lead team is the one alerts go to (lib/records/alert-team.ts).
+    alertTeams({ patientId }, tx),
   ]);
+  const leadIds = new Set(lead.map((o) => o.id));
   return {
     patient: p,
     episodes,
+    visits,
+    careTeam: team.map((o) => ({ id: o.id, name: o.name, lead: leadIds.has(o.id) })),
     observations: obs.map((o) => ({
       id: o.id,
+      eventId: o.eventId,
       takenAt: o.takenAt,
       total: o.news2Total,
       subscores: o.news2Subscores,

@@ -3,7 +3,8 @@ import "server-only";
 // it ended, and the blockage pattern computed from it by lib/clinical.
 import { asc, desc, eq } from "drizzle-orm";
 import { db, type Executor } from "@/db";
-import { catheterEpisodes, episodeEvents, organisations, type CatheterEpisode } from "@/db/schema";
+import { catheterEpisodes, episodeEvents, observations, organisations, type CatheterEpisode } from "@/db/schema";
+import { toObservationDto, type ObservationDto } from "./observations";
 import {
   blockagePattern,
   parseIsoDate,
@@ -24,6 +25,8 @@ export type HistoryEvent = {
   occurredAt: string;
   recordedByName: string;
   organisationName: string | null;
+  /** The NEWS2 observations taken on this visit, values and score. */
+  observation: ObservationDto | null;
 };
 
 export type HistoryEpisode = {
@@ -103,15 +106,16 @@ export async function getPatientHistory({ patientId, today = todayIso() }: { pat
       .where(eq(catheterEpisodes.patientId, patientId))
       .orderBy(asc(catheterEpisodes.insertedAt)),
     tx
-      .select({ v: episodeEvents, organisationName: organisations.name })
+      .select({ v: episodeEvents, organisationName: organisations.name, o: observations })
       .from(episodeEvents)
       .leftJoin(organisations, eq(organisations.id, episodeEvents.organisationId))
+      .leftJoin(observations, eq(observations.eventId, episodeEvents.id))
       .where(eq(episodeEvents.patientId, patientId))
       .orderBy(desc(episodeEvents.occurredAt), desc(episodeEvents.createdAt)),
   ]);
 
   const eventsByEpisode = new Map<string, HistoryEvent[]>();
-  for (const { v, organisationName } of eventRows) {
+  for (const { v, organisationName, o } of eventRows) {
     const list = eventsByEpisode.get(v.episodeId) ?? [];
     list.push({
       id: v.id,
@@ -123,6 +127,7 @@ export async function getPatientHistory({ patientId, today = todayIso() }: { pat
       occurredAt: v.occurredAt.toISOString(),
       recordedByName: v.recordedByName,
       organisationName,
+      observation: o ? toObservationDto(o) : null,
     });
     eventsByEpisode.set(v.episodeId, list);
   }

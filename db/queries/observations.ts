@@ -1,8 +1,9 @@
 import "server-only";
 // NEWS2 observations: the rows and what the record shows of them.
-import { desc, eq } from "drizzle-orm";
+import { and, desc, eq, sql } from "drizzle-orm";
 import { db, type Executor } from "@/db";
-import { observations, type NewObservation, type Observation } from "@/db/schema";
+import { episodeEvents, observations, type NewObservation, type Observation } from "@/db/schema";
+import { visitFindingsSchema, type VisitFindings } from "@/lib/validations/visit";
 
 export type ObservationDto = {
   id: string;
@@ -55,4 +56,18 @@ export async function listObservations({ patientId, limit = 20 }: { patientId: s
     .orderBy(desc(observations.takenAt), desc(observations.createdAt))
     .limit(limit);
   return rows.map(toObservationDto);
+}
+
+/** What the last structured visit found: the next visit form starts from it. */
+export async function getLastVisitFindings({ patientId }: { patientId: string }, tx: Executor = db): Promise<VisitFindings | null> {
+  const [row] = await tx
+    .select({ details: episodeEvents.details })
+    .from(episodeEvents)
+    .where(and(eq(episodeEvents.patientId, patientId), eq(episodeEvents.kind, "visit"), sql`${episodeEvents.details} ? 'findings'`))
+    .orderBy(desc(episodeEvents.occurredAt))
+    .limit(1);
+  const findings = (row?.details as { findings?: Record<string, unknown> } | undefined)?.findings;
+  // The next visit's date is not carried over (it is in the past by now).
+  const parsed = visitFindingsSchema.safeParse(findings ? { ...findings, nextVisitOn: undefined } : undefined);
+  return parsed.success ? parsed.data : null;
 }

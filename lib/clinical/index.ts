@@ -7,6 +7,7 @@ export * from "./errors";
 export * from "./sources";
 export * from "./dates";
 export * from "./news2";
+export * from "./news2-home";
 export * from "./gtin";
 export * from "./gs1";
 export * from "./size";

@@ -25,3 +25,17 @@ export const REMOVAL_REASONS = ["no-longer-needed", "trial-without-catheter", "p
 export const TWOC_OUTCOMES = ["passed", "failed"] as const;
 export type TwocOutcome = (typeof TWOC_OUTCOMES)[number];
 export const TWOC_FAILED_ACTIONS = ["re-catheterised", "intermittent-self-catheterisation", "referred", "other"] as const;
+
+/**
+ * What stays on the care team's caseload until someone deals with it: an urgent or emergency
+ * check-in, a NEWS2 that alerted, and a urine sample's result still to chase.
+ */
+export const CASELOAD_ITEM_KINDS = ["check-in", "news2", "sample-result"] as const;
+
+/** What a nurse did about an alert when acknowledging it ("other" needs a note). */
+export const ACKNOWLEDGE_ACTIONS = ["phoned", "visited", "sent-to-gp", "advised-emergency", "other"] as const;
+
+/** What a community visit finds (the structured visit form). */
+export const URINE_APPEARANCES = ["clear", "cloudy", "blood", "debris"] as const;
+/** The meatus or the suprapubic site. */
+export const SITE_CONDITIONS = ["healthy", "red-or-sore", "discharge", "overgranulation", "other"] as const;

@@ -6,6 +6,9 @@ import { z } from "zod";
 const schema = z.object({
   NODE_ENV: z.enum(["development", "production", "test"]).default("development"),
   APP_URL: z.url().default("http://localhost:3000"),
+  // The identifier system of the health record number in the FHIR export: the issuing
+  // organisation's namespace URI (e.g. an OID as urn:oid:…), never this app's own address.
+  FHIR_HRN_SYSTEM: z.url().default("https://fhir.eastmere.example/Id/health-record-number"),
   DATABASE_URL: z.string().min(1).default("postgres://postgres@127.0.0.1:5433/caddis"),
   DATABASE_POOL_MAX: z.coerce.number().int().min(1).max(100).default(10),
   BETTER_AUTH_SECRET: z.string().min(32).optional(),

@@ -3,7 +3,9 @@ import "server-only";
 // of the patient at once (in each organisation's language). Called inside the transaction that
 // stores the check-in or the observations, so the alert exists exactly when they do.
 import type { Executor } from "@/db";
-import { getActiveEpisode, getCareTeamOrganisations, getPatientForMail } from "@/db/queries/mail-context";
+import type { AlertReporter } from "@/db/schema";
+import { getActiveEpisode, getPatientForMail } from "@/db/queries/mail-context";
+import { alertTeams } from "@/lib/records/alert-team";
 import { env } from "@/lib/config/env";
 import { emailDates, emailLocale, emailTranslator, emailVocabulary } from "./i18n";
 import { queueMessage, type QueuedMessage } from "./outbox";
@@ -21,6 +23,11 @@ export type CareTeamAlertInput = {
   sourceId: string;
   /** For NEWS2: the total score, shown in the alert. */
   score?: number;
+  reporter?: AlertReporter;
+  /** The reporter's own notes (the visit's notes), escaped like the summary. */
+  notes?: string | null;
+  /** Sent again because nobody acknowledged it: when it was first raised. */
+  reminderOf?: Date;
 };
 
 export const ALERT_LEVELS: Record<CareTeamAlertKind, readonly string[]> = {
@@ -37,37 +44,48 @@ export function isAlertLevel(kind: CareTeamAlertKind, level: string) {
 
 type AlertLevel = "emergency" | "urgent" | "high" | "medium" | "low-medium";
 
+function reporterLine(t: ReturnType<typeof emailTranslator>, r: AlertReporter | undefined): string | null {
+  if (!r) return null;
+  if (r.kind === "patient") return t("alert.reporter.patient");
+  if (r.kind === "carer") return t("alert.reporter.carer", { name: r.name });
+  return t("alert.reporter.clinician", { details: [r.name, r.organisation, r.phone].filter(Boolean).join(", ") });
+}
+
+// The least identity the team needs: the health record number and a link that asks them to sign
+// in; never the patient's name, date of birth or phone number in an ordinary e-mail.
 function alertContent(
   input: CareTeamAlertInput & { level: AlertLevel },
-  ctx: { patientName: string; hrn: string; dateOfBirth: string; phone: string | null; device: string | null; plannedChangeOn: string | null; teamName: string },
+  ctx: { hrn: string; device: string | null; plannedChangeOn: string | null; teamName: string },
   locale: string,
 ): EmailContent {
   const t = emailTranslator(locale);
   const d = emailDates(locale);
   const levelWord = t(`enum.alertLevel.${input.level}`);
   const severe = input.level === "emergency" || input.level === "high";
-  const rows = [
-    { label: t("gp.name"), value: ctx.patientName },
-    { label: t("gp.healthRecordNumber"), value: ctx.hrn },
-    { label: t("gp.dateOfBirth"), value: d.short(ctx.dateOfBirth) },
-  ];
-  if (ctx.phone) rows.push({ label: t("alert.phone"), value: ctx.phone });
+  const rows = [{ label: t("gp.healthRecordNumber"), value: ctx.hrn }];
   if (ctx.device) rows.push({ label: t("alert.device"), value: ctx.device });
   if (ctx.plannedChangeOn) rows.push({ label: t("device.plannedChange"), value: d.day(ctx.plannedChangeOn) });
   if (input.kind === "news2" && typeof input.score === "number") rows.push({ label: t("alert.score"), value: String(input.score) });
+  const reporter = reporterLine(t, input.reporter);
   const blocks: Block[] = [
     { type: "notice", tone: severe ? "stop" : "warn", label: levelWord, text: t(`alert.action.${input.level}`) },
+    ...(input.reminderOf ? [{ type: "paragraph" as const, text: t("alert.reminderIntro", { date: d.at(input.reminderOf) }) }] : []),
+    ...(reporter ? [{ type: "heading" as const, text: t("alert.reportedBy") }, { type: "paragraph" as const, text: reporter }] : []),
     { type: "heading", text: t("alert.reported") },
     { type: "paragraph", text: input.summary },
+    ...(input.notes ? [{ type: "heading" as const, text: t("alert.notes") }, { type: "paragraph" as const, text: input.notes }] : []),
     { type: "heading", text: t("gp.patient") },
     { type: "facts", rows },
     { type: "action", href: `${new URL(env.APP_URL).origin}/${locale}/patients/${input.patientId}`, label: t("alert.open") },
+    { type: "paragraph", text: t("alert.signIn") },
+    { type: "paragraph", text: t("alert.acknowledge") },
   ];
+  const subject = t(`alert.subject.${input.kind}`, { level: levelWord, hrn: ctx.hrn });
   return {
     locale,
-    subject: t(`alert.subject.${input.kind}`, { level: levelWord, hrn: ctx.hrn }),
+    subject: input.reminderOf ? t("alert.reminderSubject", { subject }) : subject,
     title: t(`alert.title.${input.kind}`, { level: levelWord }),
-    intro: t(`alert.intro.${input.kind}`, { patient: ctx.patientName, date: d.at(new Date()) }),
+    intro: t(`alert.intro.${input.kind}`, { date: d.at(input.reminderOf ?? new Date()) }),
     blocks,
     footer: [t("alert.footerWhy", { team: ctx.teamName }), t("common.footerNoReply"), t("common.footerSafety")],
   };
@@ -84,7 +102,7 @@ export async function queueCareTeamAlert(tx: Executor, input: CareTeamAlertInput
   const patient = await getPatientForMail({ patientId: input.patientId }, tx);
   if (!patient) throw new Error(`care-team alert: patient ${input.patientId} not found`);
   const [teams, episode] = await Promise.all([
-    getCareTeamOrganisations({ patientId: input.patientId }, tx),
+    alertTeams({ patientId: input.patientId }, tx),
     getActiveEpisode({ patientId: input.patientId }, tx),
   ]);
   const out: QueuedMessage[] = [];
@@ -101,10 +119,7 @@ export async function queueCareTeamAlert(tx: Executor, input: CareTeamAlertInput
     const content = alertContent(
       { ...input, level: input.level as AlertLevel },
       {
-        patientName: `${patient.givenName} ${patient.familyName}`,
         hrn: patient.healthRecordNumber,
-        dateOfBirth: patient.dateOfBirth,
-        phone: patient.phone,
         device,
         plannedChangeOn: episode?.plannedChangeOn ?? null,
         teamName: team.name,
@@ -113,7 +128,7 @@ export async function queueCareTeamAlert(tx: Executor, input: CareTeamAlertInput
     );
     out.push(
       await queueMessage(tx, {
-        idempotencyKey: `care-team-alert:${input.kind}:${input.sourceId}:${team.id}`,
+        idempotencyKey: `care-team-alert:${input.kind}:${input.sourceId}:${team.id}${input.reminderOf ? ":reminder" : ""}`,
         kind: "care-team-alert",
         to: team.inboxEmail,
         ...renderEmail(content),

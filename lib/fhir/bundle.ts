@@ -9,5 +9,5 @@ import { buildFhirBundle } from "./export";
 export async function patientFhirBundle({ patientId }: { patientId: string }) {
   const data = await getFhirExportData({ patientId });
   if (!data) throw new AppError("not_found");
-  return buildFhirBundle({ ...data, base: new URL(env.APP_URL).origin });
+  return buildFhirBundle({ ...data, identifierSystem: env.FHIR_HRN_SYSTEM });
 }

@@ -1,7 +1,9 @@
 import "server-only";
-// A patient's record as a FHIR R4 Bundle (type "collection"): Patient, one Device and one
-// DeviceUseStatement per catheter, and one Observation per NEWS2 score. Pure: the caller loads
-// the rows and checks access. References are urn:uuid full URLs inside the Bundle.
+// A patient's record as a FHIR R4 Bundle (type "collection"): Patient, the CareTeam, one Device
+// and one DeviceUseStatement per catheter, one Encounter per visit, and per set of observations
+// one NEWS2 Observation derived from one vital-sign Observation per measurement (LOINC codes,
+// UCUM units). Pure: the caller loads the rows and checks access. References are urn:uuid full
+// URLs inside the Bundle.
 // Codes: SNOMED CT 23973005 "Indwelling urinary catheter, device" (HL7 FHIR R4, value set
 // device-kind) and the UK edition of SNOMED CT's 1104051000000101, the NEWS2 total score
 // (NHS England's UK Core FHIR implementation guide uses it for the NEWS2 observation).
@@ -35,8 +37,13 @@ export type FhirInput = {
     insertedAt: Date;
     removedAt: Date | null;
   }[];
+  /** Visits (episode events of kind visit): each an Encounter. */
+  visits: { id: string; occurredAt: Date; recordedByName: string; organisationName: string | null }[];
+  /** The care-team organisations; `lead` marks the team alerts go to. */
+  careTeam: { id: string; name: string; lead: boolean }[];
   observations: {
     id: string;
+    eventId: string | null;
     takenAt: Date;
     total: number;
     subscores: Record<string, number>;
@@ -51,12 +58,34 @@ export type FhirInput = {
     temperatureC: number;
     recordedByName: string;
   }[];
-  /** Deployment base for identifier systems, e.g. https://caddis.example.org */
-  base: string;
+  /** The health record number's identifier system (a namespace URI from configuration). */
+  identifierSystem: string;
   now?: Date;
 };
 
 const SNOMED = "http://snomed.info/sct";
+const LOINC = "http://loinc.org";
+const UCUM = "http://unitsofmeasure.org";
+const VITAL_SIGNS = [{ coding: [{ system: "http://terminology.hl7.org/CodeSystem/observation-category", code: "vital-signs", display: "Vital Signs" }] }];
+
+/** A stable id for the n-th vital sign of an observation: its last 12 hex digits shifted by n. */
+function childId(parent: string, n: number): string {
+  const tail = parent.slice(-12);
+  const mixed = ((parseInt(tail, 16) + n * 0x1000_0000_01) % 0x1_0000_0000_0000).toString(16).padStart(12, "0");
+  return `${parent.slice(0, -12)}${mixed}`;
+}
+
+// Source: LOINC vital-sign codes as the HL7 FHIR R4 vital signs profiles use them (9279-1
+// respiratory rate, 59408-5 SpO2 by pulse oximetry, 8480-6 systolic BP, 8867-4 heart rate,
+// 8310-5 body temperature); UCUM units /min, %, mm[Hg], Cel. ACVPU: LOINC 67775-7 level of
+// responsiveness (from memory).
+const VITALS = [
+  { key: "respirationRate", code: "9279-1", display: "Respiratory rate", unit: "/min", ucum: "/min" },
+  { key: "spo2", code: "59408-5", display: "Oxygen saturation in Arterial blood by Pulse oximetry", unit: "%", ucum: "%" },
+  { key: "systolicBp", code: "8480-6", display: "Systolic blood pressure", unit: "mmHg", ucum: "mm[Hg]" },
+  { key: "pulse", code: "8867-4", display: "Heart rate", unit: "/min", ucum: "/min" },
+  { key: "temperatureC", code: "8310-5", display: "Body temperature", unit: "°C", ucum: "Cel" },
+] as const;
 const urn = (id: string) => `urn:uuid:${id}`;
 
 const SUBSCORE_TEXT: Record<string, string> = {
@@ -78,7 +107,7 @@ export function buildFhirBundle(input: FhirInput) {
     resource: {
       resourceType: "Patient",
       id: p.id,
-      identifier: [{ use: "usual", system: `${input.base}/fhir/health-record-number`, value: p.healthRecordNumber }],
+      identifier: [{ use: "usual", system: input.identifierSystem, value: p.healthRecordNumber }],
       name: [{ use: "official", family: p.familyName, given: [p.givenName] }],
       gender: p.sex,
       birthDate: p.dateOfBirth,
@@ -95,7 +124,8 @@ export function buildFhirBundle(input: FhirInput) {
       type: { coding: [{ system: SNOMED, code: "23973005", display: "Indwelling urinary catheter, device" }], text: `${e.route} ${e.catheterType} catheter` },
       patient: patientRef,
       property: [
-        { type: { text: "Size (Charrière)" }, valueQuantity: [{ value: e.sizeCh, unit: "Ch" }] },
+        // Source: UCUM, [Ch] (Charrière, French) — a catheter's outer circumference in thirds of a millimetre.
+        { type: { text: "Size (Charrière)" }, valueQuantity: [{ value: e.sizeCh, unit: "Ch", system: UCUM, code: "[Ch]" }] },
         { type: { text: "Balloon volume" }, valueQuantity: [{ value: e.balloonMl, unit: "ml", system: "http://unitsofmeasure.org", code: "mL" }] },
         { type: { text: "Material" }, valueCode: [{ text: e.material }] },
       ],
@@ -121,7 +151,44 @@ export function buildFhirBundle(input: FhirInput) {
       },
     });
   }
+  if (input.careTeam.length) {
+    const lead = input.careTeam.find((t) => t.lead);
+    entries.push({
+      fullUrl: urn(careTeamId(p.id)),
+      resource: {
+        resourceType: "CareTeam",
+        id: careTeamId(p.id),
+        status: "active",
+        name: "Catheter care team",
+        subject: patientRef,
+        participant: input.careTeam.map((t) => ({
+          ...(t.lead ? { role: [{ text: "Lead team" }] } : {}),
+          member: { display: t.name },
+        })),
+        ...(lead ? { managingOrganization: [{ display: lead.name }] } : {}),
+      },
+    });
+  }
+  for (const v of input.visits) {
+    entries.push({
+      fullUrl: urn(v.id),
+      resource: {
+        resourceType: "Encounter",
+        id: v.id,
+        status: "finished",
+        // Source: HL7 v3 ActCode HH, home health.
+        class: { system: "http://terminology.hl7.org/CodeSystem/v3-ActCode", code: "HH", display: "home health" },
+        subject: patientRef,
+        participant: [{ individual: { display: v.recordedByName } }],
+        period: { start: v.occurredAt.toISOString() },
+        ...(v.organisationName ? { serviceProvider: { display: v.organisationName } } : {}),
+      },
+    });
+  }
+  const visitIds = new Set(input.visits.map((v) => v.id));
   for (const o of input.observations) {
+    const encounter = o.eventId && visitIds.has(o.eventId) ? { encounter: { reference: urn(o.eventId) } } : {};
+    const vitals = VITALS.map((vital, i) => ({ id: childId(o.id, i + 1), vital, value: o[vital.key] }));
     entries.push({
       fullUrl: urn(o.id),
       resource: {
@@ -136,7 +203,9 @@ export function buildFhirBundle(input: FhirInput) {
         subject: patientRef,
         effectiveDateTime: o.takenAt.toISOString(),
         performer: [{ display: o.recordedByName }],
+        ...encounter,
         valueInteger: o.total,
+        derivedFrom: vitals.map((v) => ({ reference: urn(v.id) })),
         interpretation: [{ text: `NEWS2 risk: ${o.risk}` }],
         note: [
           {
@@ -146,6 +215,40 @@ export function buildFhirBundle(input: FhirInput) {
         component: Object.entries(o.subscores).map(([k, v]) => ({ code: { text: SUBSCORE_TEXT[k] ?? k }, valueInteger: v })),
       },
     });
+    for (const v of vitals) {
+      entries.push({
+        fullUrl: urn(v.id),
+        resource: {
+          resourceType: "Observation",
+          id: v.id,
+          status: "final",
+          category: VITAL_SIGNS,
+          code: { coding: [{ system: LOINC, code: v.vital.code, display: v.vital.display }], text: v.vital.display },
+          subject: patientRef,
+          ...encounter,
+          effectiveDateTime: o.takenAt.toISOString(),
+          performer: [{ display: o.recordedByName }],
+          valueQuantity: { value: v.value, unit: v.vital.unit, system: UCUM, code: v.vital.ucum },
+          ...(v.vital.key === "spo2" ? { note: [{ text: `NEWS2 SpO2 scale ${o.spo2Scale}, on ${o.onOxygen ? "oxygen" : "air"}` }] } : {}),
+        },
+      });
+    }
+    const acvpuId = childId(o.id, VITALS.length + 1);
+    entries.push({
+      fullUrl: urn(acvpuId),
+      resource: {
+        resourceType: "Observation",
+        id: acvpuId,
+        status: "final",
+        category: VITAL_SIGNS,
+        code: { coding: [{ system: LOINC, code: "67775-7", display: "Level of responsiveness" }], text: "ACVPU" },
+        subject: patientRef,
+        ...encounter,
+        effectiveDateTime: o.takenAt.toISOString(),
+        performer: [{ display: o.recordedByName }],
+        valueCodeableConcept: { text: o.consciousness },
+      },
+    });
   }
   return {
     resourceType: "Bundle",
@@ -153,6 +256,12 @@ export function buildFhirBundle(input: FhirInput) {
     timestamp: (input.now ?? new Date()).toISOString(),
     entry: entries,
   };
+}
+
+/** The patient's one CareTeam: a stable id from the patient id (first hex digit flipped). */
+function careTeamId(patientId: string): string {
+  const first = ((parseInt(patientId[0]!, 16) ^ 0xf) >>> 0).toString(16);
+  return `${first}${patientId.slice(1)}`;
 }
 
 /** A stable id of the use statement, derived from the episode id (last hex digit flipped). */

@@ -9,8 +9,8 @@ export const clientNamespaces = {
   portal: ["Account", "CheckIn", "Common", "Diary", "More", "MyCatheter", "Password", "People", "Portal", "Sessions", "Today", "TwoFactor", "Uploads"],
   staff: [
     "Account", "Admin", "AdminOrganisations", "AdminPatients", "AdminSettings", "AdminStaff", "Caseload", "CaseloadState",
-    "Common", "EpisodeForm", "Letters", "Passport", "Password", "PatientDevice", "PatientForm", "PatientRecord",
-    "PortalInvite", "Scan", "Sessions", "Supplies", "TwoFactor", "Uploads", "VisitForm", "Vocabulary",
+    "CareLoop", "Common", "EpisodeForm", "Letters", "Passport", "Password", "PatientDevice", "PatientForm", "PatientRecord",
+    "PortalInvite", "Scan", "Sessions", "Supplies", "TwoFactor", "Uploads", "VisitForm", "Visits", "Vocabulary",
   ],
   /** The public device card and short-code pages, and the clinician's visit sign-in. */
   card: ["Password", "SignIn", "TwoFactor", "VisitAccess"],

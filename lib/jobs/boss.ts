@@ -11,7 +11,13 @@ import PgBoss from "pg-boss";
 import { db } from "@/db";
 import { env } from "@/lib/config/env";
 
-export const QUEUES = { digest: "care-team-digest", reminders: "change-reminders", sweep: "outbox-sweep", retention: "record-retention" } as const;
+export const QUEUES = {
+  digest: "care-team-digest",
+  reminders: "change-reminders",
+  sweep: "outbox-sweep",
+  retention: "record-retention",
+  acknowledge: "acknowledge-reminders",
+} as const;
 
 /** The schema version this pg-boss writes (its package's version.json). */
 const PG_BOSS_SCHEMA_VERSION = 24;
@@ -48,10 +54,13 @@ export async function startBoss({ onSweep, log }: { onSweep: () => Promise<void>
   await boss.createQueue(QUEUES.digest, { name: QUEUES.digest, retryLimit: 5, retryDelay: 60, retryBackoff: true, expireInSeconds: 900 });
   await boss.createQueue(QUEUES.reminders, { name: QUEUES.reminders, retryLimit: 5, retryDelay: 60, retryBackoff: true, expireInSeconds: 900 });
   await boss.createQueue(QUEUES.sweep, { name: QUEUES.sweep, retryLimit: 0, expireInSeconds: 300 });
+  await boss.createQueue(QUEUES.acknowledge, { name: QUEUES.acknowledge, retryLimit: 3, retryDelay: 60, expireInSeconds: 300 });
   await boss.createQueue(QUEUES.retention, { name: QUEUES.retention, retryLimit: 3, retryDelay: 300, retryBackoff: true, expireInSeconds: 3600 });
   await boss.schedule(QUEUES.digest, env.DIGEST_CRON, {}, { tz: env.CADDIS_TIME_ZONE });
   await boss.schedule(QUEUES.reminders, env.REMINDER_CRON, {}, { tz: env.CADDIS_TIME_ZONE });
   await boss.schedule(QUEUES.sweep, "* * * * *", {}, { tz: "UTC" });
+  // Alerts nobody acknowledged in time go to their team again (lib/records/caseload-items.ts).
+  await boss.schedule(QUEUES.acknowledge, "*/5 * * * *", {}, { tz: "UTC" });
   // Closed records past the retention period (Settings) are removed once a day.
   await boss.schedule(QUEUES.retention, env.RETENTION_CRON, {}, { tz: env.CADDIS_TIME_ZONE });
   await boss.work(QUEUES.digest, async () => {
@@ -67,6 +76,10 @@ export async function startBoss({ onSweep, log }: { onSweep: () => Promise<void>
   await boss.work(QUEUES.retention, async () => {
     const { removeExpiredRecords } = await import("@/lib/jobs/retention");
     await removeExpiredRecords({ log: (m) => log(`retention: ${m}`) });
+  });
+  await boss.work(QUEUES.acknowledge, async () => {
+    const { sendAcknowledgeReminders } = await import("@/lib/records/caseload-items");
+    await sendAcknowledgeReminders({ log });
   });
   await boss.work(QUEUES.sweep, async () => {
     await onSweep();

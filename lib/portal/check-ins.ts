@@ -10,7 +10,7 @@ import { TRIAGE_RULES, type TriageLevel } from "@/lib/clinical";
 import { scoreAnswers, type SubmittedAnswers } from "@/lib/shared/check-in-flow";
 import { audit } from "@/lib/records/audit";
 import { writeRecord } from "@/lib/records/record-state";
-import { queueCareTeamAlert } from "@/lib/email/care-team-alert";
+import { raiseAlert } from "@/lib/records/caseload-items";
 import type { Viewer } from "@/lib/auth/session";
 import { AppError } from "@/lib/http/errors";
 
@@ -108,7 +108,9 @@ export async function alertCareTeam(
     request,
   }: { patientId: string; level: Extract<TriageLevel, "urgent" | "emergency">; summary: string; sourceId: string; actor: Viewer; request: Request },
 ) {
-  const queued = await queueCareTeamAlert(tx, { patientId, kind: "check-in", level, summary, sourceId });
+  // The alert e-mail and the item to acknowledge on the team's caseload, together.
+  const reporter = actor.role === "carer" ? { kind: "carer" as const, name: actor.name } : { kind: "patient" as const };
+  const queued = await raiseAlert(tx, { patientId, kind: "check-in", level, summary, reporter, checkInId: sourceId });
   await audit(
     { action: "check-in.alert", actor, patientId, via: "system", request, details: { level, sourceId, messages: queued.map((m) => m.id) } },
     tx,

@@ -5,10 +5,12 @@ import "server-only";
 // the care-team alert in the outbox. Any error rolls everything back.
 import { db } from "@/db";
 import { getLatestEpisode, insertEpisodeEvent, organisationForRecord } from "@/db/queries/episodes";
+import { getOrganisation } from "@/db/queries/mail-context";
 import { insertObservation, toObservationDto, type ObservationDto } from "@/db/queries/observations";
 import type { Viewer } from "@/lib/auth/session";
 import { ClinicalInputError, scoreNews2 } from "@/lib/clinical";
-import { isAlertLevel, queueCareTeamAlert } from "@/lib/email/care-team-alert";
+import { isAlertLevel } from "@/lib/email/care-team-alert";
+import { raiseAlert, raiseSampleToChase } from "@/lib/records/caseload-items";
 import { AppError } from "@/lib/http/errors";
 import { openPatientRecord } from "@/lib/records/patient-record";
 import { assertRecordOpen } from "@/lib/records/record-state";
@@ -16,7 +18,7 @@ import type { ObservationsInput, VisitInput } from "@/lib/validations/visit";
 
 type Ctx = { viewer: Viewer; patientId: string; request: Request };
 
-export type RecordedVisit = { eventId: string; observation: ObservationDto | null; alerted: number };
+export type RecordedVisit = { eventId: string; observation: ObservationDto | null; alerted: number; sampleToChase: boolean; catheterChanged: boolean };
 
 /** The alert's plain-words summary (English: the outbox renders the rest in each team's language). */
 function summary(o: ObservationsInput) {
@@ -59,12 +61,20 @@ export async function recordVisit(ctx: Ctx, input: VisitInput): Promise<Recorded
           recordedByUserId: ctx.viewer.userId,
           recordedByName: ctx.viewer.name,
           organisationId,
-          details: { via, ...(score ? { news2Total: score.total, news2Risk: score.risk } : {}) },
+          details: { via, ...(score ? { news2Total: score.total, news2Risk: score.risk } : {}), ...(input.findings ? { findings: input.findings } : {}) },
         },
       },
       tx,
     );
-    if (!input.observations || !score) return { eventId, observation: null, alerted: 0 };
+    const org = organisationId ? await getOrganisation({ id: organisationId }, tx) : null;
+    const reporter = { kind: "clinician" as const, name: ctx.viewer.name, organisation: org?.name ?? null, phone: org?.phone ?? null };
+    // A sample sent stays on the caseload as a result to chase until someone marks it done.
+    const sampleToChase = Boolean(input.findings?.sampleSent);
+    if (sampleToChase) {
+      await raiseSampleToChase(tx, { patientId: ctx.patientId, eventId, summary: `Urine sample sent at the visit of ${occurredAt.toISOString().slice(0, 10)}.`, reporter });
+    }
+    const done = { sampleToChase, catheterChanged: Boolean(input.findings?.catheterChanged) };
+    if (!input.observations || !score) return { eventId, observation: null, alerted: 0, ...done };
     const o = input.observations;
     const row = await insertObservation(
       {
@@ -91,9 +101,21 @@ export async function recordVisit(ctx: Ctx, input: VisitInput): Promise<Recorded
       },
       tx,
     );
-    const alerts = isAlertLevel("news2", score.risk)
-      ? await queueCareTeamAlert(tx, { patientId: ctx.patientId, kind: "news2", level: score.risk, score: score.total, summary: summary(o), sourceId: row.id })
-      : [];
-    return { eventId, observation: toObservationDto(row), alerted: alerts.length };
+    let alerts: unknown[] = [];
+    if (isAlertLevel("news2", score.risk)) {
+      // Named in the alert so the team can call the visiting clinician back.
+      alerts = await raiseAlert(tx, {
+        patientId: ctx.patientId,
+        kind: "news2",
+        level: score.risk,
+        score: score.total,
+        summary: summary(o),
+        reporter,
+        notes: input.notes ?? null,
+        observationId: row.id,
+        eventId,
+      });
+    }
+    return { eventId, observation: toObservationDto(row), alerted: alerts.length, ...done };
   });
 }

@@ -10,7 +10,7 @@ export function parsePlainDecimal(text: string): number | undefined {
 }
 
 /** Units a range message may name (Errors.units.<unit>). */
-export const RANGE_UNITS = ["ml", "ch", "kg", "days", "hours", "celsius", "mmhg", "percent", "per_min", "items"] as const;
+export const RANGE_UNITS = ["ml", "ch", "kg", "days", "hours", "celsius", "mmhg", "percent", "per_min", "items", "minutes"] as const;
 export type RangeUnit = (typeof RANGE_UNITS)[number];
 
 /** The error code of a value outside [min, max]: "range:5:30:ml"; the screens say "between 5 and 30 ml". */

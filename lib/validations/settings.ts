@@ -9,6 +9,10 @@ import { numberIn, toNumber } from "./number";
 /** Digits only: what a patient dials (999, 112, 911, 000…). */
 export const emergencyNumberSchema = z.string().trim().regex(/^[0-9]{2,6}$/, { message: "emergency_digits" });
 
+const minutes = (min: number, max: number) => z.preprocess(toNumber, numberIn({ min, max, unit: "minutes", whole: true }));
+/** A time of day, "08:00" (the working hours an acknowledgement is counted in). */
+const clock = z.string().trim().regex(/^([01]\d|2[0-3]):[0-5]\d$/, { message: "clock_time" });
+
 const days = (min: number, max: number) => z.preprocess(toNumber, numberIn({ min, max, unit: "days", whole: true, missing: "whole_days" }));
 
 export const settingSchemas = {
@@ -18,6 +22,9 @@ export const settingSchemas = {
   dueSoonDays: days(0, 60),
   defaultMaxDwellDays: z.partialRecord(z.enum(MATERIALS), days(1, 365)),
   retentionDays: days(30, 100 * 365),
+  acknowledgeWithinMinutes: minutes(15, 24 * 60),
+  workingDayStart: clock,
+  workingDayEnd: clock,
 } as const;
 
 export type SettingKey = keyof typeof settingSchemas;
@@ -32,6 +39,9 @@ export const settingsPatchSchema = z
     dueSoonDays: settingSchemas.dueSoonDays.nullable(),
     defaultMaxDwellDays: settingSchemas.defaultMaxDwellDays.nullable(),
     retentionDays: settingSchemas.retentionDays.nullable(),
+    acknowledgeWithinMinutes: settingSchemas.acknowledgeWithinMinutes.nullable(),
+    workingDayStart: settingSchemas.workingDayStart.nullable(),
+    workingDayEnd: settingSchemas.workingDayEnd.nullable(),
   })
   .partial()
   .strict();

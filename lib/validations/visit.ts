@@ -6,7 +6,7 @@ import { multiLine } from "./text";
 import { NEWS2_BOUNDS } from "@/lib/clinical";
 import type { RangeUnit } from "@/lib/shared/numbers";
 import { pastInstant } from "./episode";
-import { CONSCIOUSNESS_LEVELS } from "@/lib/clinical";
+import { CONSCIOUSNESS_LEVELS, SITE_CONDITIONS, URINE_APPEARANCES } from "@/lib/clinical";
 import { numberIn, requiredNumber, toNumber } from "./number";
 
 const blank = (v: unknown) =>
@@ -29,9 +29,42 @@ export const observationsSchema = z.object({
 });
 export type ObservationsInput = z.infer<typeof observationsSchema>;
 
+const yesNo = z.preprocess((v) => (v === "true" ? true : v === "false" ? false : blank(v)), z.boolean({ error: "choose_one" }));
+const ticked = z.preprocess((v) => (v === "true" ? true : v === "false" || v === undefined ? false : v), z.boolean({ error: "choose_one" }));
+
+/** "2026-12-10": a calendar day from today to a year ahead (the next visit). */
+const nextDay = z.preprocess(
+  blank,
+  z
+    .string()
+    .regex(/^\d{4}-\d{2}-\d{2}$/, { error: "date" })
+    .refine((s) => !Number.isNaN(Date.parse(`${s}T12:00:00Z`)) && new Date(`${s}T12:00:00Z`).toISOString().startsWith(s), { error: "date" })
+    .refine((s) => Date.parse(`${s}T23:59:59Z`) >= Date.now() - 86_400_000, { error: "in_past" })
+    .refine((s) => Date.parse(`${s}T00:00:00Z`) <= Date.now() + 366 * 86_400_000, { error: "too_late" })
+    .optional(),
+);
+
+/** What the nurse found and did at a community visit: one screen, defaults from the last visit. */
+export const visitFindingsSchema = z
+  .object({
+    draining: yesNo,
+    bypassing: yesNo,
+    urine: z.array(z.enum(URINE_APPEARANCES, { error: "choose_one" })).min(1, { error: "choose_one" }).max(URINE_APPEARANCES.length),
+    site: z.preprocess(blank, z.enum(SITE_CONDITIONS, { error: "choose_one" })),
+    bagChanged: ticked,
+    valveChanged: ticked,
+    catheterChanged: ticked,
+    sampleSent: ticked,
+    advice: z.preprocess(blank, multiLine(z.string().trim().max(1000, { error: "too_long" })).optional()),
+    nextVisitOn: nextDay,
+  })
+  .strict();
+export type VisitFindings = z.infer<typeof visitFindingsSchema>;
+
 export const visitSchema = z.object({
   occurredAt: pastInstant,
   notes: z.preprocess(blank, multiLine(z.string({ error: "required" }).trim().max(2000, { error: "too_long" })).optional()),
   observations: observationsSchema.optional(),
+  findings: visitFindingsSchema.optional(),
 });
 export type VisitInput = z.infer<typeof visitSchema>;

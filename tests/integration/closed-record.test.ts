@@ -8,7 +8,7 @@ import { and, eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { POST as closeRecord } from "@/app/api/admin/patients/[patientId]/close/route";
 import { db } from "@/db";
-import { carerLinks, diaryEntries, outboundMessages, patientInvites, patients, uploads, user } from "@/db/schema";
+import { carerLinks, caseloadItems, diaryEntries, outboundMessages, patientInvites, patients, uploads, user } from "@/db/schema";
 import { hashActivationCode, hashInviteToken, newActivationCode, newInviteToken } from "@/lib/auth/secret-codes";
 import { changedTables, snapshot } from "../support/db-snapshot";
 import { demoDevice } from "../support/fixtures";
@@ -26,6 +26,7 @@ type Ids = {
   messageId: string;
   carerToken: string;
   activationCode: string;
+  caseloadItemId: string;
 };
 type Write = { who: Who; params?: (ids: Ids) => Record<string, string>; body?: (ids: Ids) => unknown; mayWrite?: string[] };
 type Plan = Write | { notARecordWrite: string };
@@ -57,6 +58,11 @@ const plans: Record<string, Plan> = {
   "POST /api/patients/[patientId]/episodes/twoc": { who: "communityNurse", params: patient, body: () => ({ occurredAt: hourAgo(), outcome: "passed", voids: [{ volumeMl: 250 }] }) },
   "POST /api/patients/[patientId]/episodes/check": { notARecordWrite: "a look-up: the findings for a draft, nothing stored but the audit event of the view" },
   "POST /api/patients/[patientId]/visits": { who: "communityNurse", params: patient, body: () => ({ occurredAt: hourAgo(), notes: "Visit after closing" }) },
+  "POST /api/patients/[patientId]/caseload-items/[itemId]": {
+    who: "communityNurse",
+    params: (i) => ({ patientId: i.patientId, itemId: i.caseloadItemId }),
+    body: () => ({ action: "phoned", note: "Called after closing" }),
+  },
   "PATCH /api/patients/[patientId]": { who: "communityNurse", params: patient, body: () => ({ familyName: "Changed" }) },
   "POST /api/patients/[patientId]/passport": { who: "communityNurse", params: patient, body: () => ({ reissue: true }) },
   "POST /api/patients/[patientId]/uploads": {
@@ -135,7 +141,21 @@ beforeAll(async () => {
     .insert(outboundMessages)
     .values({ kind: "gp-summary", patientId: arthur.id, toAddress: "inbox@millbrook.example", subject: "Before closing", html: "<p>x</p>", text: "x", idempotencyKey: `closed-test:${randomUUID()}`, messageId: `<${randomUUID()}@caddis.test>`, status: "failed" })
     .returning({ id: outboundMessages.id });
-  ids = { patientId: arthur.id, readyUploadId: ready.id, pendingUploadId: pending.id, diaryEntryId: entry.id, carerLinkId: link.id, messageId: message.id, carerToken, activationCode };
+  const [item] = await db
+    .insert(caseloadItems)
+    .values({ patientId: arthur.id, kind: "check-in", level: "urgent", summary: "Before closing", reporter: { kind: "patient" }, dueAt: new Date() })
+    .returning({ id: caseloadItems.id });
+  ids = {
+    patientId: arthur.id,
+    readyUploadId: ready.id,
+    pendingUploadId: pending.id,
+    diaryEntryId: entry.id,
+    carerLinkId: link.id,
+    messageId: message.id,
+    carerToken,
+    activationCode,
+    caseloadItemId: item.id,
+  };
   for (const who of ["admin", "communityNurse", "patient", "carer"] as const) cookies[who] = await sessionFor(who);
   const closed = await call(closeRecord, `/api/admin/patients/${arthur.id}/close`, {
     cookie: cookies.admin,

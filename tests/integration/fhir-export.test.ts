@@ -11,6 +11,7 @@ import { POST as postVisit } from "@/app/api/patients/[patientId]/visits/route";
 import { db } from "@/db";
 import { auditEvents } from "@/db/schema";
 import { buildFhirBundle } from "@/lib/fhir/export";
+import { env } from "@/lib/config/env";
 import { patientIdByHrn } from "../support/fixtures";
 import { call, sessionFor } from "../support/http";
 
@@ -94,6 +95,36 @@ describe("GET /api/patients/[patientId]/fhir", () => {
     expect((news2.component as unknown[]).length).toBe(7);
   });
 
+  it("carries each vital sign with its LOINC code and UCUM unit, the visit as an Encounter, the CareTeam with its lead team, Ch in [Ch], and the configured identifier system", () => {
+    const of = (t: string) => bundle.entry.map((e) => e.resource).filter((r) => r.resourceType === t);
+    const [patient] = of("Patient");
+    // A namespace URI from configuration (FHIR_HRN_SYSTEM), not the app's own address.
+    expect((patient!.identifier as { system: string }[])[0]!.system).toBe(env.FHIR_HRN_SYSTEM);
+    expect((patient!.identifier as { system: string }[])[0]!.system).not.toContain(new URL(env.APP_URL).host);
+    const observations = of("Observation");
+    const news2 = observations.find((o) => (o.code as { coding: { code: string }[] }).coding[0]!.code === "1104051000000101")!;
+    const byLoinc = (code: string) => observations.find((o) => (o.code as { coding: { system: string; code: string }[] }).coding[0]!.code === code && (o.code as { coding: { system: string }[] }).coding[0]!.system === "http://loinc.org");
+    // Source: LOINC 9279-1, 59408-5, 8480-6, 8867-4, 8310-5 (HL7 FHIR R4 vital signs); UCUM /min, %, mm[Hg], Cel.
+    // Values as posted above: RR 22, SpO2 95, SBP 105, pulse 95, 38.3 °C.
+    expect(byLoinc("9279-1")).toMatchObject({ valueQuantity: { value: 22, system: "http://unitsofmeasure.org", code: "/min" } });
+    expect(byLoinc("59408-5")).toMatchObject({ valueQuantity: { value: 95, code: "%" } });
+    expect(byLoinc("8480-6")).toMatchObject({ valueQuantity: { value: 105, code: "mm[Hg]" } });
+    expect(byLoinc("8867-4")).toMatchObject({ valueQuantity: { value: 95, code: "/min" } });
+    expect(byLoinc("8310-5")).toMatchObject({ valueQuantity: { value: 38.3, code: "Cel" } });
+    expect(byLoinc("67775-7")).toMatchObject({ valueCodeableConcept: { text: "A" } });
+    const fullUrls = new Set(bundle.entry.map((e) => e.fullUrl));
+    for (const ref of news2.derivedFrom as { reference: string }[]) expect(fullUrls.has(ref.reference)).toBe(true);
+    const [encounter] = of("Encounter");
+    expect(encounter).toMatchObject({ status: "finished", class: { code: "HH" }, participant: [{ individual: { display: "Grace Mensah" } }] });
+    expect((news2.encounter as { reference: string }).reference).toBe(`urn:uuid:${encounter!.id}`);
+    const [careTeam] = of("CareTeam");
+    expect(careTeam).toMatchObject({ status: "active", managingOrganization: [{ display: "Harbourside Community Nursing Team" }] });
+    // Source: UCUM [Ch], Charrière (French gauge).
+    const active = of("Device").find((d) => d.status === "active")!;
+    expect((active.property as { valueQuantity: { code?: string }[] }[])[0]!.valueQuantity[0]).toMatchObject({ value: 14, unit: "Ch", system: "http://unitsofmeasure.org", code: "[Ch]" });
+    expect(active.udiCarrier).toBeTruthy();
+  });
+
   it("writes an audit event for the export", async () => {
     const rows = await db.select().from(auditEvents).where(eq(auditEvents.action, "patient.export.fhir"));
     expect(rows.at(-1)).toMatchObject({ patientId: arthur, via: "care_team" });
@@ -111,7 +142,9 @@ describe("GET /api/patients/[patientId]/fhir", () => {
 
   it("leaves out what was not recorded rather than sending empty values", () => {
     const b = buildFhirBundle({
-      base: "https://caddis.example",
+      identifierSystem: "urn:oid:2.16.840.1.113883.2.1.4.1",
+      visits: [],
+      careTeam: [],
       patient: { id: "6f1c2d8e-4b8a-4a1e-9c7d-1a2b3c4d5e6f", givenName: "Test", familyName: "Person", healthRecordNumber: "T-1", dateOfBirth: "1950-01-01", sex: "female", preferredLocale: "pl" },
       episodes: [{ id: "7f1c2d8e-4b8a-4a1e-9c7d-1a2b3c4d5e60", route: "suprapubic", catheterType: "two-way", material: "all-silicone", sizeCh: 16, balloonMl: 10, maker: null, productName: null, lot: null, expiry: null, gtin: null, serial: null, udi: null, indication: "Retention", insertedAt: new Date("2026-11-01T10:00:00Z"), removedAt: null }],
       observations: [],

@@ -16,6 +16,7 @@ import {
   bagChanges,
   careTeam,
   carerLinks,
+  caseloadItems,
   checkIns,
   diaryEntries,
   observations,
@@ -84,6 +85,7 @@ async function addRowsFor(patientId: string, tag: string) {
     recordedByUserId: nurse,
     recordedByName: tag,
   });
+  await db.insert(caseloadItems).values({ patientId, kind: "sample-result", summary: `Sample ${tag}`, reporter: { kind: "clinician", name: tag, organisation: null, phone: null } });
   await audit({ action: "patient.view", actor: { userId: nurse, role: "clinician" }, patientId, via: "care_team", details: { tag } });
 }
 

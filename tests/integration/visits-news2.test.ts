@@ -6,7 +6,10 @@ import { eq, like, sql } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { POST as postVisit } from "@/app/api/patients/[patientId]/visits/route";
 import { db } from "@/db";
-import { auditEvents, episodeEvents, observations, outboundMessages } from "@/db/schema";
+import { auditEvents, caseloadItems, episodeEvents, observations, outboundMessages } from "@/db/schema";
+import { getPatientHistory } from "@/db/queries/history";
+import { getLastVisitFindings, listObservations } from "@/db/queries/observations";
+import { POST as closeItemPost } from "@/app/api/patients/[patientId]/caseload-items/[itemId]/route";
 import { patientIdByHrn } from "../support/fixtures";
 import { call, sessionFor } from "../support/http";
 
@@ -124,5 +127,67 @@ describe("POST /api/patients/[patientId]/visits", () => {
     const res = await post({ occurredAt: minutesAgo(5), notes: "Bag changed, no concerns" });
     expect(res.status).toBe(201);
     expect(await res.json()).toMatchObject({ observation: null, alerted: 0 });
+  });
+
+  it("shows the visit in History with its measured values beside the sub-scores, and first among earlier observations", async () => {
+    // Source: RCP NEWS2 (2017) chart 1: RR 21 → 2, SpO2 93 (scale 1) → 2, air → 0, SBP 120 → 0,
+    // pulse 95 → 1, alert → 0, 37.5 °C → 0: total 5, medium.
+    const res = await post({
+      occurredAt: minutesAgo(1),
+      notes: "History check",
+      observations: { respirationRate: 21, spo2: 93, spo2Scale: 1, onOxygen: false, systolicBp: 120, pulse: 95, consciousness: "A", temperatureC: 37.5 },
+    });
+    const body = await res.json();
+    const history = await getPatientHistory({ patientId: arthur });
+    const event = history.episodes.flatMap((e) => e.events).find((v) => v.id === body.eventId);
+    expect(event).toMatchObject({ kind: "visit", notes: "History check" });
+    expect(event!.observation).toMatchObject({
+      values: { respirationRate: 21, spo2: 93, spo2Scale: 1, onOxygen: false, systolicBp: 120, pulse: 95, consciousness: "A", temperatureC: 37.5 },
+      news2: { total: 5, risk: "medium", subscores: { respirationRate: 2, spo2: 2, air: 0, systolicBp: 0, pulse: 1, consciousness: 0, temperature: 0 } },
+    });
+    const [latest] = await listObservations({ patientId: arthur, limit: 5 });
+    expect(latest!.id).toBe(body.observation.id);
+  });
+
+  it("stores a structured visit's findings; a sample sent leaves a result to chase until marked done; the next form starts from them", async () => {
+    const nextWeek = new Date(Date.now() + 7 * 86_400_000).toISOString().slice(0, 10);
+    const findings = {
+      draining: "true",
+      bypassing: "false",
+      urine: ["cloudy", "debris"],
+      site: "red-or-sore",
+      bagChanged: true,
+      valveChanged: false,
+      catheterChanged: true,
+      sampleSent: true,
+      advice: "Drink 2 litres a day; keep the bag below the bladder.",
+      nextVisitOn: nextWeek,
+    };
+    const res = await post({ occurredAt: minutesAgo(0.5), findings });
+    expect(res.status).toBe(201);
+    const body = await res.json();
+    expect(body).toMatchObject({ sampleToChase: true, catheterChanged: true, observation: null });
+    const [event] = await db.select().from(episodeEvents).where(eq(episodeEvents.id, body.eventId));
+    expect((event!.details as { findings: unknown }).findings).toEqual({ ...findings, draining: true, bypassing: false });
+    const [item] = await db.select().from(caseloadItems).where(eq(caseloadItems.eventId, body.eventId));
+    expect(item).toMatchObject({ kind: "sample-result", closedAt: null, dueAt: null });
+    // The next visit starts from these findings, without what was changed or the old date.
+    expect(await getLastVisitFindings({ patientId: arthur })).toMatchObject({ draining: true, urine: ["cloudy", "debris"], site: "red-or-sore", nextVisitOn: undefined });
+    // Marked done with the result (no action needed for a sample).
+    const done = await call(closeItemPost, `/api/patients/${arthur}/caseload-items/${item!.id}`, { cookie: nurse, params: { patientId: arthur, itemId: item!.id }, body: { note: "No growth." } });
+    expect(done.status).toBe(200);
+    expect((await db.select().from(caseloadItems).where(eq(caseloadItems.id, item!.id)))[0]).toMatchObject({ note: "No growth.", action: null, closedByName: "Grace Mensah" });
+  });
+
+  it("refuses bad findings with every field error and writes nothing", async () => {
+    const before = await counts();
+    const res = await post({
+      occurredAt: minutesAgo(0.2),
+      findings: { draining: "maybe", bypassing: "", urine: [], site: "purple", bagChanged: "x", nextVisitOn: "2001-01-01", extra: 1 },
+    });
+    expect(res.status).toBe(400);
+    const { error } = await res.json();
+    expect(Object.keys(error.fields)).toEqual(expect.arrayContaining(["findings.draining", "findings.bypassing", "findings.urine", "findings.site", "findings.bagChanged", "findings.nextVisitOn"]));
+    expect(await counts()).toEqual(before);
   });
 });

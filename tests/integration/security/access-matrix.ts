@@ -30,6 +30,8 @@ export type Fixture = {
   adminUserId: string;
   /** Priya Sandhu (Rowan Ward, the admin manages it), who plays no persona: signing her out changes no other row. */
   bystanderStaffUserId: string;
+  /** An open NEWS2 alert to acknowledge on Arthur's record (an empty body is refused: it names no action). */
+  caseloadItemId: string;
 };
 
 export type Row =
@@ -181,4 +183,11 @@ export const matrix: Row[] = [
   // before and after a reason, is in visit-access-matrix.test.ts).
   { route: "POST /api/patients/[patientId]/visits", params: patient, expect: staffOnPatient },
   { route: "GET /api/patients/[patientId]/fhir", params: patient, expect: staffOnPatient },
+  // Acknowledging an alert: the care team only (visit access is not enough: 403, in
+  // caseload-items.test.ts), and then only the team the alert went to (lib/records/alert-team.ts).
+  {
+    route: "POST /api/patients/[patientId]/caseload-items/[itemId]",
+    params: (f) => ({ patientId: f.patientId, itemId: f.caseloadItemId }),
+    expect: staffOnPatient,
+  },
 ];

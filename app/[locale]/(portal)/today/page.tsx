@@ -3,6 +3,7 @@ import { DueWords } from "@/components/portal/due-words";
 import { LevelBadge } from "@/components/portal/level-badge";
 import { PatientSwitcher } from "@/components/portal/patient-switcher";
 import { BagChangeButtons } from "@/components/today/bag-change-buttons";
+import { RecentCheckIns } from "@/components/care-loop/recent-check-ins";
 import { Card } from "@/components/ui/card";
 import { getLastBagChanges } from "@/db/queries/bag-changes";
 import { getTodaySummary } from "@/db/queries/portal";
@@ -124,6 +125,8 @@ export default async function TodayPage({ params, searchParams }: { params: Prom
           <p>{t("noCheckIn")}</p>
         )}
       </Card>
+
+      <RecentCheckIns patientId={patient.id} />
 
       <Link href="/help" className="flex min-h-14 items-center justify-center rounded-lg border-2 border-level-emergency bg-level-emergency-soft px-4 text-lg font-bold text-level-emergency-ink">
         {t("getHelp")}

@@ -1,6 +1,8 @@
 import { headers } from "next/headers";
 import { getTranslations } from "next-intl/server";
 import { CaseloadView } from "@/components/caseload/caseload-view";
+import { CaseloadItemsPanel } from "@/components/caseload-items/caseload-items-panel";
+import { openItemsFor } from "@/lib/records/caseload-items";
 import { listCaseload } from "@/db/queries/caseload";
 import { getPlanDefaults } from "@/lib/config/settings";
 import { audit } from "@/lib/records/audit";
@@ -28,7 +30,7 @@ export default async function CaseloadPage({
   const parsed = caseloadQuerySchema.safeParse(raw);
   const query = parsed.success ? parsed.data : caseloadQuerySchema.parse({});
   const { dueSoonDays } = await getPlanDefaults();
-  const data = await listCaseload({ organisationIds: viewer.organisationIds, query, dueSoonDays });
+  const [data, items] = await Promise.all([listCaseload({ organisationIds: viewer.organisationIds, query, dueSoonDays }), openItemsFor(viewer)]);
   await audit({
     action: "caseload.view",
     actor: viewer,
@@ -47,6 +49,7 @@ export default async function CaseloadPage({
           {t("register")}
         </Link>
       </div>
+      <CaseloadItemsPanel items={items} />
       <CaseloadView initialQuery={query} initialData={data} />
     </div>
   );

@@ -1,6 +1,11 @@
 import { getFormatter, getTranslations } from "next-intl/server";
 import { Card } from "@/components/ui/card";
+import { News2Panel } from "@/components/visit-form/news2-panel";
+import { FindingsSummary } from "@/components/visit-form/findings-summary";
 import { getPatientHistory, type HistoryEpisode, type HistoryEvent } from "@/db/queries/history";
+import { listObservations } from "@/db/queries/observations";
+import { ObservationTable } from "@/components/observation-trends/observation-table";
+import { ObservationTrends } from "@/components/observation-trends/observation-trends";
 import { openRecordPage } from "@/lib/records/patient-record-page";
 
 export async function generateMetadata() {
@@ -11,7 +16,8 @@ export async function generateMetadata() {
 export default async function HistoryTab({ params }: { params: Promise<{ locale: string; patientId: string }> }) {
   const { locale, patientId } = await params;
   await openRecordPage({ locale, patientId, action: "patient.view.history" });
-  const history = await getPatientHistory({ patientId });
+  const [history, observations] = await Promise.all([getPatientHistory({ patientId }), listObservations({ patientId, limit: 30 })]);
+  const tv = await getTranslations("Visits.trends");
   const t = await getTranslations("PatientHistory");
   const vocab = await getTranslations("Vocabulary");
   const format = await getFormatter();
@@ -47,6 +53,28 @@ export default async function HistoryTab({ params }: { params: Promise<{ locale:
         )}
         <p className="text-sm font-bold text-ink-soft">{t("safety")}</p>
       </Card>
+
+      {observations.length ? (
+        <section aria-labelledby="trends-heading" className="flex flex-col gap-3" data-testid="observation-trends">
+          <h2 id="trends-heading" className="text-2xl font-bold">
+            {tv("title")}
+          </h2>
+          <p className="text-sm text-ink-soft">{tv("bandsKey")}</p>
+          <ObservationTrends
+            locale={locale}
+            points={[...observations].reverse().map((o) => ({
+              takenAt: o.takenAt,
+              respirationRate: o.values.respirationRate,
+              spo2: o.values.spo2,
+              systolicBp: o.values.systolicBp,
+              pulse: o.values.pulse,
+              temperatureC: o.values.temperatureC,
+              total: o.news2.total,
+            }))}
+          />
+          <ObservationTable observations={observations} />
+        </section>
+      ) : null}
 
       <section aria-labelledby="timeline-heading" className="flex flex-col gap-3">
         <h2 id="timeline-heading" className="text-2xl font-bold">
@@ -135,7 +163,13 @@ function EpisodeItem({ e, labels }: { e: HistoryEpisode; number: number; labels:
                   <li key={v.id} className="tabular">
                     <span className="font-bold">{line.what}</span> · {line.who}
                     {line.where ? ` · ${line.where}` : ""}
+                    {v.kind === "visit" && v.details.findings ? <FindingsSummary findings={v.details.findings} /> : null}
                     {v.notes ? <p className="text-sm text-ink-soft">{v.notes}</p> : null}
+                    {v.observation ? (
+                      <div className="mt-2">
+                        <News2Panel score={v.observation.news2} values={v.observation.values} testId="history-news2" showResponse={false} />
+                      </div>
+                    ) : null}
                   </li>
                 );
               })}

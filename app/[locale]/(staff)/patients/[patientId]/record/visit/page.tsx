@@ -3,7 +3,8 @@ import { notFound } from "next/navigation";
 import { News2Panel } from "@/components/visit-form/news2-panel";
 import { VisitForm } from "@/components/visit-form/visit-form";
 import { getRecordingContext } from "@/db/queries/episodes";
-import { listObservations } from "@/db/queries/observations";
+import { getLastVisitFindings, listObservations } from "@/db/queries/observations";
+import { getHelpContacts } from "@/db/queries/contacts";
 import { Link } from "@/lib/i18n/navigation";
 import { openRecordPage } from "@/lib/records/patient-record-page";
 
@@ -18,7 +19,12 @@ export async function generateMetadata() {
 export default async function RecordVisitPage({ params }: { params: Promise<Params> }) {
   const { locale, patientId } = await params;
   await openRecordPage({ locale, patientId, action: "visit.form" });
-  const [context, previous] = await Promise.all([getRecordingContext({ patientId }), listObservations({ patientId, limit: 5 })]);
+  const [context, previous, contacts, last] = await Promise.all([
+    getRecordingContext({ patientId }),
+    listObservations({ patientId, limit: 5 }),
+    getHelpContacts({ patientId }),
+    getLastVisitFindings({ patientId }),
+  ]);
   if (!context.patient) notFound();
   const t = await getTranslations("VisitForm");
   const format = await getFormatter();
@@ -26,7 +32,7 @@ export default async function RecordVisitPage({ params }: { params: Promise<Para
   let body;
   if (context.patient.closed) body = <p className="font-bold">{t("closed")}</p>;
   else if (!context.latest) body = <p className="font-bold" data-testid="visit-no-episode">{t("noEpisode")}</p>;
-  else body = <VisitForm patientId={patientId} />;
+  else body = <VisitForm patientId={patientId} contacts={contacts} last={last} />;
   return (
     <div className="flex flex-col gap-5">
       <div className="flex flex-col gap-1">
@@ -46,7 +52,7 @@ export default async function RecordVisitPage({ params }: { params: Promise<Para
             <p className="tabular font-bold">
               {format.dateTime(new Date(o.takenAt), { dateStyle: "medium", timeStyle: "short" })} · {t("by", { name: o.recordedByName })}
             </p>
-            <News2Panel score={o.news2} testId="news2-previous" />
+            <News2Panel score={o.news2} values={o.values} testId="news2-previous" showResponse={false} />
           </div>
         ))}
       </section>
