@@ -5,6 +5,7 @@ import "server-only";
 import type { Executor } from "@/db";
 import { readSettingRows, writeSettings } from "@/db/queries/settings";
 import { planDefaults, type Material, type PlanDatesOptions, type PlanDefaults } from "@/lib/clinical";
+import { DEFAULT_REFERRAL_REMINDER_HOURS } from "@/lib/shared/referrals";
 import { settingKeys, settingSchemas, type SettingsPatch } from "@/lib/validations/settings";
 
 export type DeploymentSettings = {
@@ -18,7 +19,13 @@ export type DeploymentSettings = {
   defaultMaxDwellDays: Partial<Record<Material, number>>;
   /** Days a closed record is kept, read-only, before the retention job removes it; null keeps it. */
   retentionDays: number | null;
+  /** The out-of-hours service's number, shown where the lead team has no out-of-hours number. */
+  outOfHoursPhone: string | null;
+  /** Hours before an unanswered referral is flagged and sent again; null means the default. */
+  referralReminderHours: number | null;
 };
+
+
 
 function parse<K extends keyof typeof settingSchemas>(key: K, value: unknown) {
   const r = settingSchemas[key].safeParse(value);
@@ -41,12 +48,19 @@ export async function getSettings(tx?: Executor): Promise<DeploymentSettings> {
     dueSoonDays: get("dueSoonDays") as number | null,
     defaultMaxDwellDays: (get("defaultMaxDwellDays") as Partial<Record<Material, number>> | null) ?? {},
     retentionDays: get("retentionDays") as number | null,
+    outOfHoursPhone: get("outOfHoursPhone") as string | null,
+    referralReminderHours: get("referralReminderHours") as number | null,
   };
 }
 
 /** The emergency number to show patients, or null when not configured. */
 export async function getEmergencyNumber(tx?: Executor): Promise<string | null> {
   return (await getSettings(tx)).emergencyNumber;
+}
+
+/** Hours a referral may stay unanswered before it is flagged and sent again to the receiving team. */
+export async function getReferralReminderHours(tx?: Executor): Promise<number> {
+  return (await getSettings(tx)).referralReminderHours ?? DEFAULT_REFERRAL_REMINDER_HOURS;
 }
 
 /** Options for lib/clinical `planDates` from the deployment settings. */

@@ -2,6 +2,7 @@ import { z } from "zod";
 import { singleLine } from "./text";
 import { MATERIALS } from "@/lib/clinical";
 import { numberIn, toNumber } from "./number";
+import { phoneSchema } from "./organisation";
 
 // Deployment settings (the `settings` table, key → JSON value). Messages are codes that the
 // settings form translates (AdminSettings.errors.<code>).
@@ -18,6 +19,10 @@ export const settingSchemas = {
   dueSoonDays: days(0, 60),
   defaultMaxDwellDays: z.partialRecord(z.enum(MATERIALS), days(1, 365)),
   retentionDays: days(30, 100 * 365),
+  // The deployment's out-of-hours service: the number shown where the lead team has none of its own.
+  outOfHoursPhone: phoneSchema.pipe(z.string()),
+  // Hours a referral may stay unanswered before it is flagged and sent again (default in settings.ts).
+  referralReminderHours: z.preprocess(toNumber, numberIn({ min: 1, max: 168, unit: "hours", whole: true })),
 } as const;
 
 export type SettingKey = keyof typeof settingSchemas;
@@ -32,6 +37,8 @@ export const settingsPatchSchema = z
     dueSoonDays: settingSchemas.dueSoonDays.nullable(),
     defaultMaxDwellDays: settingSchemas.defaultMaxDwellDays.nullable(),
     retentionDays: settingSchemas.retentionDays.nullable(),
+    outOfHoursPhone: settingSchemas.outOfHoursPhone.nullable(),
+    referralReminderHours: settingSchemas.referralReminderHours.nullable(),
   })
   .partial()
   .strict();
