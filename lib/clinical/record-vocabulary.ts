@@ -28,12 +28,9 @@ export const TWOC_FAILED_ACTIONS = ["re-catheterised", "intermittent-self-cathet
 
 /** What the discharging nurse taught before the patient went home (the discharge checklist). */
 export const DISCHARGE_TEACHING = ["emptying-bag", "changing-bags", "leg-and-night-bags", "washing", "drinks", "constipation", "when-to-get-help"] as const;
-export type DischargeTeaching = (typeof DISCHARGE_TEACHING)[number];
 
 /** How the catheter drains at home: through a valve, or freely into a bag. */
 export const DRAINAGE_KINDS = ["valve", "bag"] as const;
-export type DrainageKind = (typeof DRAINAGE_KINDS)[number];
 
 /** A referral from one care-team organisation to another. */
 export const REFERRAL_STATUSES = ["pending", "accepted", "declined", "withdrawn"] as const;
-export type ReferralStatus = (typeof REFERRAL_STATUSES)[number];

@@ -11,7 +11,7 @@ import PgBoss from "pg-boss";
 import { db } from "@/db";
 import { env } from "@/lib/config/env";
 
-export const QUEUES = { digest: "care-team-digest", reminders: "change-reminders", sweep: "outbox-sweep", retention: "record-retention" } as const;
+export const QUEUES = { digest: "care-team-digest", reminders: "change-reminders", sweep: "outbox-sweep", retention: "record-retention", referrals: "referral-reminders" } as const;
 
 /** The schema version this pg-boss writes (its package's version.json). */
 const PG_BOSS_SCHEMA_VERSION = 24;
@@ -49,11 +49,20 @@ export async function startBoss({ onSweep, log }: { onSweep: () => Promise<void>
   await boss.createQueue(QUEUES.reminders, { name: QUEUES.reminders, retryLimit: 5, retryDelay: 60, retryBackoff: true, expireInSeconds: 900 });
   await boss.createQueue(QUEUES.sweep, { name: QUEUES.sweep, retryLimit: 0, expireInSeconds: 300 });
   await boss.createQueue(QUEUES.retention, { name: QUEUES.retention, retryLimit: 3, retryDelay: 300, retryBackoff: true, expireInSeconds: 3600 });
+  await boss.createQueue(QUEUES.referrals, { name: QUEUES.referrals, retryLimit: 5, retryDelay: 60, retryBackoff: true, expireInSeconds: 900 });
   await boss.schedule(QUEUES.digest, env.DIGEST_CRON, {}, { tz: env.CADDIS_TIME_ZONE });
   await boss.schedule(QUEUES.reminders, env.REMINDER_CRON, {}, { tz: env.CADDIS_TIME_ZONE });
   await boss.schedule(QUEUES.sweep, "* * * * *", {}, { tz: "UTC" });
   // Closed records past the retention period (Settings) are removed once a day.
   await boss.schedule(QUEUES.retention, env.RETENTION_CRON, {}, { tz: env.CADDIS_TIME_ZONE });
+  // Unanswered referrals are sent again (and flagged to the referrer) within 15 minutes of the
+  // reminder time in Settings: no patient is left between two teams.
+  await boss.schedule(QUEUES.referrals, "*/15 * * * *", {}, { tz: "UTC" });
+  await boss.work(QUEUES.referrals, async () => {
+    const { sendReferralReminders } = await import("@/lib/email/referral-mail");
+    const r = await sendReferralReminders();
+    if (r.sent) log(`referral reminders: ${r.sent} sent again`);
+  });
   await boss.work(QUEUES.digest, async () => {
     const { queueWeeklyDigests } = await import("@/lib/email/digest");
     const r = await queueWeeklyDigests({});

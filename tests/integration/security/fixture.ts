@@ -4,7 +4,7 @@ import { randomUUID } from "node:crypto";
 import { eq } from "drizzle-orm";
 import { PNG } from "pngjs";
 import { db } from "@/db";
-import { organisations, patients, uploads, user } from "@/db/schema";
+import { organisations, patients, referrals, uploads, user } from "@/db/schema";
 import { putObject } from "@/lib/storage";
 import type { Fixture } from "./access-matrix";
 
@@ -21,5 +21,19 @@ export async function securityFixture(): Promise<Fixture> {
   const [harbourside] = await db.select({ id: organisations.id }).from(organisations).where(eq(organisations.name, "Harbourside Community Nursing Team"));
   const [admin] = await db.select({ id: user.id }).from(user).where(eq(user.email, "admin@eastmere.example"));
   const [priya] = await db.select({ id: user.id }).from(user).where(eq(user.email, "rowan.nurse@eastmere.example"));
-  return { patientId: arthur.id, otherPatientId: yusuf.id, uploadId: upload.id, organisationId: harbourside.id, staffUserId: grace.id, adminUserId: admin.id, bystanderStaffUserId: priya.id };
+  const [rowan] = await db.select({ id: organisations.id }).from(organisations).where(eq(organisations.name, "Rowan Ward"));
+  const [referral] = await db
+    .insert(referrals)
+    .values({ patientId: arthur.id, fromOrganisationId: harbourside.id, toOrganisationId: rowan.id, referredByUserId: grace.id, handoverNote: "Matrix fixture referral", referrerStays: true })
+    .returning({ id: referrals.id });
+  return {
+    patientId: arthur.id,
+    otherPatientId: yusuf.id,
+    uploadId: upload.id,
+    organisationId: harbourside.id,
+    staffUserId: grace.id,
+    adminUserId: admin.id,
+    bystanderStaffUserId: priya.id,
+    referralId: referral.id,
+  };
 }
