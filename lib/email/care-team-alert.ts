@@ -3,6 +3,7 @@ import "server-only";
 // of the patient at once (in each organisation's language). Called inside the transaction that
 // stores the check-in or the observations, so the alert exists exactly when they do.
 import type { Executor } from "@/db";
+import { getLeadTeamContact, type LeadTeamContact } from "@/db/queries/contacts";
 import { getActiveEpisode, getCareTeamOrganisations, getPatientForMail } from "@/db/queries/mail-context";
 import { env } from "@/lib/config/env";
 import { emailDates, emailLocale, emailTranslator, emailVocabulary } from "./i18n";
@@ -39,7 +40,16 @@ type AlertLevel = "emergency" | "urgent" | "high" | "medium" | "low-medium";
 
 function alertContent(
   input: CareTeamAlertInput & { level: AlertLevel },
-  ctx: { patientName: string; hrn: string; dateOfBirth: string; phone: string | null; device: string | null; plannedChangeOn: string | null; teamName: string },
+  ctx: {
+    patientName: string;
+    hrn: string;
+    dateOfBirth: string;
+    phone: string | null;
+    device: string | null;
+    plannedChangeOn: string | null;
+    teamName: string;
+    lead: LeadTeamContact | null;
+  },
   locale: string,
 ): EmailContent {
   const t = emailTranslator(locale);
@@ -55,6 +65,11 @@ function alertContent(
   if (ctx.device) rows.push({ label: t("alert.device"), value: ctx.device });
   if (ctx.plannedChangeOn) rows.push({ label: t("device.plannedChange"), value: d.day(ctx.plannedChangeOn) });
   if (input.kind === "news2" && typeof input.score === "number") rows.push({ label: t("alert.score"), value: String(input.score) });
+  // The lead team and its numbers: who the patient was told to call (getLeadTeamContact).
+  if (ctx.lead) {
+    const day = ctx.lead.phone ? t("common.teamLine", { name: ctx.lead.name, phone: ctx.lead.phone }) : ctx.lead.name;
+    rows.push({ label: t("alert.leadTeam"), value: ctx.lead.outOfHoursPhone ? `${day} ${t("common.outOfHours", { phone: ctx.lead.outOfHoursPhone })}` : day });
+  }
   const blocks: Block[] = [
     { type: "notice", tone: severe ? "stop" : "warn", label: levelWord, text: t(`alert.action.${input.level}`) },
     { type: "heading", text: t("alert.reported") },
@@ -83,9 +98,10 @@ export async function queueCareTeamAlert(tx: Executor, input: CareTeamAlertInput
   if (!isAlertLevel(input.kind, input.level)) return [];
   const patient = await getPatientForMail({ patientId: input.patientId }, tx);
   if (!patient) throw new Error(`care-team alert: patient ${input.patientId} not found`);
-  const [teams, episode] = await Promise.all([
+  const [teams, episode, lead] = await Promise.all([
     getCareTeamOrganisations({ patientId: input.patientId }, tx),
     getActiveEpisode({ patientId: input.patientId }, tx),
+    getLeadTeamContact({ patientId: input.patientId }, tx),
   ]);
   const out: QueuedMessage[] = [];
   // No care team at all: keep a failed row so the gap is visible rather than silent.
@@ -108,6 +124,7 @@ export async function queueCareTeamAlert(tx: Executor, input: CareTeamAlertInput
         device,
         plannedChangeOn: episode?.plannedChangeOn ?? null,
         teamName: team.name,
+        lead,
       },
       locale,
     );
