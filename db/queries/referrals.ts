@@ -3,7 +3,7 @@ import "server-only";
 // the lead, leave). Every write takes the caller's transaction, which holds the audit event.
 import { aliasedTable, and, asc, desc, eq, ilike, inArray, lt, ne, or, sql } from "drizzle-orm";
 import { db, type Executor } from "@/db";
-import { careTeam, dischargeChecklists, organisations, patients, referrals, user, type Referral } from "@/db/schema";
+import { auditEvents, careTeam, dischargeChecklists, organisations, patients, referrals, user, type Referral } from "@/db/schema";
 import type { DischargeChecklistValues } from "@/lib/validations/referrals";
 
 const teamKinds = ["hospital_ward", "community_team"] as const;
@@ -145,14 +145,23 @@ export async function listPatientReferrals({ patientId }: { patientId: string },
  * sent by them and still waiting (flagged once older than the reminder time), or declined in
  * the last 14 days so the referrer sees the reason. Open records only.
  */
-export async function listCaseloadReferrals({ organisationIds }: { organisationIds: string[] }, tx: Executor = db) {
+export async function listCaseloadReferrals({ organisationIds, hours }: { organisationIds: string[]; hours: number }, tx: Executor = db) {
   if (organisationIds.length === 0) return { incoming: [], outgoing: [] };
   const open = sql`${patients.closedAt} is null`;
+  // Unanswered past the reminder time: flagged on the referrer's caseload.
+  const overdue = sql<boolean>`${referrals.status} = 'pending' and ${referrals.createdAt} < now() - make_interval(hours => ${hours}::int)`;
   const [incoming, outgoing] = await Promise.all([
     referralQuery(tx)
       .where(and(inArray(referrals.toOrganisationId, organisationIds), eq(referrals.status, "pending"), open))
       .orderBy(asc(referrals.createdAt)),
-    referralQuery(tx)
+    tx
+      .select({ ...referralColumns, overdue })
+      .from(referrals)
+      .innerJoin(patients, eq(patients.id, referrals.patientId))
+      .innerJoin(fromOrg, eq(fromOrg.id, referrals.fromOrganisationId))
+      .innerJoin(toOrg, eq(toOrg.id, referrals.toOrganisationId))
+      .leftJoin(referrer, eq(referrer.id, referrals.referredByUserId))
+      .leftJoin(answerer, eq(answerer.id, referrals.answeredByUserId))
       .where(
         and(
           inArray(referrals.fromOrganisationId, organisationIds),
@@ -229,4 +238,30 @@ export async function getLatestDischargeChecklist({ patientId }: { patientId: st
     .orderBy(desc(dischargeChecklists.createdAt))
     .limit(1);
   return row ?? null;
+}
+
+export const TRANSFER_ACTIONS = [
+  "referral.create",
+  "referral.accept",
+  "referral.decline",
+  "referral.withdraw",
+  "referral.remind",
+  "care-team.add",
+  "care-team.lead",
+  "care-team.leave",
+  "discharge-checklist.record",
+] as const;
+export type TransferAction = (typeof TRANSFER_ACTIONS)[number];
+
+/** The record's transfer-of-care timeline: each referral step and care-team change, newest first, from the audit log. */
+export async function listTransferTimeline({ patientId }: { patientId: string }, tx: Executor = db) {
+  const rows = await tx
+    .select({ id: auditEvents.id, at: auditEvents.at, action: auditEvents.action, reason: auditEvents.reason, actorName: user.name, organisationName: organisations.name })
+    .from(auditEvents)
+    .leftJoin(user, eq(user.id, auditEvents.actorUserId))
+    .leftJoin(organisations, eq(organisations.id, auditEvents.organisationId))
+    .where(and(eq(auditEvents.patientId, patientId), inArray(auditEvents.action, [...TRANSFER_ACTIONS])))
+    .orderBy(desc(auditEvents.at), desc(auditEvents.id))
+    .limit(200);
+  return rows.map((r) => ({ ...r, action: r.action as TransferAction, at: r.at.toISOString() }));
 }

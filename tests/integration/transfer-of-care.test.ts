@@ -132,9 +132,9 @@ describe("referral, accepted", () => {
   });
 
   it("the community team sees it as referred to them; the ward sees it waiting", async () => {
-    const incoming = await listCaseloadReferrals({ organisationIds: [org["Harbourside Community Nursing Team"]] });
+    const incoming = await listCaseloadReferrals({ organisationIds: [org["Harbourside Community Nursing Team"]], hours: 24 });
     expect(incoming.incoming.map((r) => r.id)).toContain(referralId);
-    const outgoing = await listCaseloadReferrals({ organisationIds: [org["Larch Ward"]] });
+    const outgoing = await listCaseloadReferrals({ organisationIds: [org["Larch Ward"]], hours: 24 });
     expect(outgoing.outgoing.map((r) => r.id)).toContain(referralId);
   });
 
@@ -176,7 +176,7 @@ describe("referral, declined", () => {
     const r = await call(decline, `/api/referrals/${referralId}/decline`, { cookie: community, params: { referralId }, body: { reason: "Outside our area: refer to the Westside team" } });
     expect(r.status, await r.clone().text()).toBe(200);
     expect(await teamOf(patientId)).toEqual({ [org["Larch Ward"]]: true });
-    const { outgoing } = await listCaseloadReferrals({ organisationIds: [org["Larch Ward"]] });
+    const { outgoing } = await listCaseloadReferrals({ organisationIds: [org["Larch Ward"]], hours: 24 });
     expect(outgoing.find((x) => x.id === referralId)).toMatchObject({ status: "declined", declineReason: "Outside our area: refer to the Westside team" });
     const [mail] = await db.select().from(outboundMessages).where(eq(outboundMessages.idempotencyKey, `referral:declined:${referralId}`));
     expect(mail.toAddress).toBe("larch.ward@eastmere.example");
@@ -189,8 +189,14 @@ describe("referral, unanswered", () => {
     const patientId = await registerOnWard();
     const res = await refer(patientId, { toOrganisationId: org["Harbourside Community Nursing Team"], handoverNote: "Home today; nobody at home until 6 pm.", referrerStays: true });
     const referralId = (await res.json()).id;
-    // Not yet due: nothing sent.
+    // Not yet due: nothing sent, nothing flagged.
     expect((await sendReferralReminders()).sent).toBe(0);
+    const flag = async () => (await listCaseloadReferrals({ organisationIds: [org["Larch Ward"]], hours: 24 })).outgoing.find((r) => r.id === referralId)?.overdue;
+    expect(await flag()).toBe(false);
+    // Sent 25 hours ago: flagged on the ward's caseload.
+    await db.update(referrals).set({ createdAt: new Date(Date.now() - 25 * 3_600_000) }).where(eq(referrals.id, referralId));
+    expect(await flag()).toBe(true);
+    await db.update(referrals).set({ createdAt: new Date() }).where(eq(referrals.id, referralId));
     // 25 hours later (default reminder time 24 h).
     const later = new Date(Date.now() + 25 * 3_600_000);
     const first = await sendReferralReminders({ now: later });

@@ -1,6 +1,7 @@
 import { headers } from "next/headers";
 import { getTranslations } from "next-intl/server";
 import { CaseloadView } from "@/components/caseload/caseload-view";
+import { CaseloadReferrals } from "@/components/transfer/caseload-referrals";
 import { listCaseload } from "@/db/queries/caseload";
 import { getPlanDefaults } from "@/lib/config/settings";
 import { audit } from "@/lib/records/audit";
@@ -47,6 +48,7 @@ export default async function CaseloadPage({
           {t("register")}
         </Link>
       </div>
+      <CaseloadReferrals organisationIds={viewer.organisationIds} />
       <CaseloadView initialQuery={query} initialData={data} />
     </div>
   );
