@@ -22,6 +22,7 @@ import { auditEvents, careTeam, dischargeChecklists, organisations, outboundMess
 import { sendReferralReminders } from "@/lib/email/referral-mail";
 import { changedTables, snapshot } from "../support/db-snapshot";
 import { grantVisitAccess, userIdByEmail } from "../support/fixtures";
+import { insertEpisode } from "../support/mail";
 import { call, sessionFor } from "../support/http";
 
 let ward: string; // Tomasz Reid, Larch Ward (discharge nurse)
@@ -163,6 +164,34 @@ describe("referral, accepted", () => {
     expect((await call(decline, `/api/referrals/${referralId}/decline`, { cookie: community, params: { referralId }, body: { reason: "Changed our mind" } })).status).toBe(409);
     // The ward nurse left with her team: the record is no longer hers to see.
     expect((await call(listReferrals, `/api/patients/${patientId}/referrals`, { cookie: ward, params: { patientId } })).status).toBe(404);
+  });
+
+  it("the GP summary opens with the practice's action, names the nurse and the lead team, lists supplies to the TWOC; a reissue says what it replaces", async () => {
+    await insertEpisode(patientId);
+    const issue = async () => {
+      const res = await call(postPassport, `/api/patients/${patientId}/passport`, { cookie: community, params: { patientId }, body: { reissue: true } });
+      expect(res.status, await res.clone().text()).toBe(201);
+    };
+    await issue();
+    const summaries = async () =>
+      db.select().from(outboundMessages).where(and(eq(outboundMessages.patientId, patientId), eq(outboundMessages.kind, "gp-summary"))).orderBy(outboundMessages.createdAt);
+    const [first] = await summaries();
+    // The first thing said is what the practice needs to do: here, prescribe only until the trial.
+    const text = first.text.slice(first.text.indexOf("For the practice"));
+    expect(first.text.indexOf("For the practice")).toBeLessThan(first.text.indexOf("Patient"));
+    expect(text).toContain("Awaiting trial without catheter on Thursday, January 14, 2027");
+    expect(first.text).toContain("Responsible nurse");
+    expect(first.text).toContain("Grace Mensah");
+    expect(first.text).toContain("Harbourside Community Nursing Team, 01632 960 210 (out of hours 01632 960 299)");
+    expect(first.text).toMatch(/Supplies for \d+ days/);
+    expect(first.text).toContain("Not taught: washing around the catheter");
+    expect(first.text).toContain("Portal activation code not given");
+    expect(first.attachments[0].filename).toMatch(/-no1\.pdf$/);
+    await issue();
+    const [, second] = await summaries();
+    expect(second.text).toContain("This is summary no. 2 for this patient. It replaces the one of");
+    expect(second.attachments[0].filename).toMatch(/-no2\.pdf$/);
+    expect(second.idempotencyKey).not.toBe(first.idempotencyKey);
   });
 });
 
