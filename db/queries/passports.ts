@@ -6,6 +6,7 @@ import { db, type Executor } from "@/db";
 import type { AllergyAnswers } from "@/lib/clinical";
 import { getSettings } from "@/lib/config/settings";
 import { getLeadTeamContact } from "./contacts";
+import { getLatestDischargeChecklist } from "./referrals";
 import {
   careTeam,
   catheterEpisodes,
@@ -160,6 +161,7 @@ export type BookletRecord = {
   }[];
   careTeams: { name: string; phone: string | null; outOfHoursPhone: string | null }[];
   gp: { name: string; phone: string | null; outOfHoursPhone: string | null } | null;
+  checklist: Awaited<ReturnType<typeof getLatestDischargeChecklist>>;
   /** Null when an admin has not set it: the booklet is then refused, never printed without it. */
   settings: { emergencyNumber: string | null; outOfHoursServiceName: string | null };
 };
@@ -167,7 +169,7 @@ export type BookletRecord = {
 export async function getBookletRecord({ patientId }: { patientId: string }, tx: Executor = db): Promise<BookletRecord | null> {
   const [p] = await tx.select().from(patients).where(eq(patients.id, patientId));
   if (!p) return null;
-  const [current, episodes, events, teams, gpRows, deployment] = await Promise.all([
+  const [current, episodes, events, teams, gpRows, deployment, checklist] = await Promise.all([
     tx
       .select({ episode: catheterEpisodes, organisationName: organisations.name })
       .from(catheterEpisodes)
@@ -202,6 +204,7 @@ export async function getBookletRecord({ patientId }: { patientId: string }, tx:
           .where(eq(organisations.id, p.gpPracticeId))
       : Promise.resolve([]),
     getSettings(tx),
+    getLatestDischargeChecklist({ patientId }, tx),
   ]);
   return {
     patient: {
@@ -217,6 +220,7 @@ export async function getBookletRecord({ patientId }: { patientId: string }, tx:
     events: events.map((e) => ({ ...e, twocOutcome: e.twocOutcome ?? null })),
     careTeams: teams ? [{ name: teams.name, phone: teams.phone, outOfHoursPhone: teams.outOfHoursPhone }] : [],
     gp: gpRows[0] ?? null,
+    checklist,
     // The service's name goes beside its number only: a team's own out-of-hours line is the team's.
     settings: { emergencyNumber: deployment.emergencyNumber, outOfHoursServiceName: teams?.outOfHoursIsService ? deployment.outOfHoursServiceName : null },
   };
