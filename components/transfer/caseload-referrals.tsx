@@ -1,4 +1,5 @@
 import { getFormatter, getTranslations } from "next-intl/server";
+import { isolate } from "@/components/portal/call-buttons";
 import { Card } from "@/components/ui/card";
 import { listCaseloadReferrals } from "@/db/queries/referrals";
 import { getReferralReminderHours } from "@/lib/config/settings";
@@ -30,8 +31,8 @@ export async function CaseloadReferrals({ organisationIds }: { organisationIds: 
             return (
               <Card key={r.id} className="flex flex-col gap-2 border-4 border-brand" data-testid="incoming-referral">
                 <p className="text-xl font-bold">{name}</p>
-                <p className="tabular">{t("who", { hrn: r.healthRecordNumber, born: day(r.dateOfBirth) })}</p>
-                <p>{t("from", { team: r.fromName, name: r.referredByName ?? "", date: at(r.createdAt) })}</p>
+                <p className="tabular">{t("who", { hrn: isolate(r.healthRecordNumber), born: day(r.dateOfBirth) })}</p>
+                <p>{t("from", { team: isolate(r.fromName), name: isolate(r.referredByName ?? ""), date: at(r.createdAt) })}</p>
                 <p className="whitespace-pre-line rounded-lg bg-paper-sunk p-3">{r.handoverNote}</p>
                 <ReferralAnswer referralId={r.id} patientName={name} />
               </Card>
@@ -54,10 +55,10 @@ export async function CaseloadReferrals({ organisationIds }: { organisationIds: 
                     {r.givenName} {r.familyName}
                   </Link>{" "}
                   {r.status === "declined"
-                    ? t("declined", { team: r.toName, reason: r.declineReason ?? "" })
+                    ? t("declined", { team: isolate(r.toName), reason: isolate(r.declineReason ?? "") })
                     : late
-                      ? t("unanswered", { team: r.toName, date: at(r.createdAt), hours })
-                      : t("waiting", { team: r.toName, date: at(r.createdAt) })}
+                      ? t("unanswered", { team: isolate(r.toName), date: at(r.createdAt), hours })
+                      : t("waiting", { team: isolate(r.toName), date: at(r.createdAt) })}
                 </li>
               );
             })}

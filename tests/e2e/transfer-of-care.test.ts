@@ -25,6 +25,8 @@ const outDir = path.resolve(screenshotDir, "..");
 const tag = randomUUID().slice(0, 8);
 const gpInbox = `gp.toc.${tag}@eastmere.example`;
 const origin = new URL(baseUrl).origin;
+/** Text as read: phone numbers are isolated (U+2066…U+2069) with no-break spaces, for right-to-left pages. */
+const plain = (t: string) => t.replace(/[\u2066-\u2069]/g, "").replace(/\u00a0/g, " ");
 
 let browser: Browser;
 let ward: Page;
@@ -73,7 +75,7 @@ async function referThroughForm(patientId: string, { withChecklist }: { withChec
   await ward.goto(`/en/patients/${patientId}/care-team`);
   const form = ward.getByTestId("referral-form");
   await form.getByLabel("Search the directory").fill("Harbour");
-  await expect.poll(() => form.getByTestId("directory").locator("li").count()).toBe(1);
+  await expect.poll(() => form.getByTestId("directory").locator("li").count(), { timeout: 20_000 }).toBe(1);
   await form.getByLabel(/Harbourside Community Nursing Team/).check();
   await form.getByLabel("Handover note").fill("Home today with a long-term catheter (retention). Daughter helps in the mornings. First change due in 12 weeks.");
   await form.getByLabel("leaves the care team").check();
@@ -121,7 +123,7 @@ describe("transfer of care", () => {
     // The checklist is on the record with what was not taught said plainly.
     await ward.reload();
     await expect.poll(() => ward.getByTestId("checklist-summary").innerText()).toContain("Not taught: Washing around the catheter");
-    await expect.poll(() => ward.getByTestId("pending-referrals").innerText()).toContain("Waiting for Harbourside Community Nursing Team");
+    await expect.poll(async () => plain(await ward.getByTestId("pending-referrals").innerText())).toContain("Waiting for Harbourside Community Nursing Team");
     await screenshot(ward, "transfer-ward-care-team-en");
     // The ward issues the passport while it still leads: its GP summary is no. 1.
     await post(ward, `/api/patients/${patientId}/passport`, { reissue: true });
@@ -129,7 +131,7 @@ describe("transfer of care", () => {
     // The community nurse sees the referral on top of the caseload and accepts it.
     await community.goto("/en/caseload");
     const incoming = community.getByTestId("incoming-referral").filter({ hasText: `Hale${tag}` });
-    await expect.poll(() => incoming.innerText()).toContain("From Larch Ward, Tomasz Reid");
+    await expect.poll(async () => plain(await incoming.innerText())).toContain("From Larch Ward, Tomasz Reid");
     await screenshot(community, "transfer-caseload-referred-en");
     await incoming.getByTestId("referral-accept").click();
     await expect.poll(() => community.getByTestId("referral-answered").innerText()).toContain("your team now leads");
@@ -137,7 +139,7 @@ describe("transfer of care", () => {
     await community.goto(`/en/patients/${patientId}/care-team`);
     await expect.poll(() => community.getByTestId("care-team-list").innerText()).toContain("Harbourside Community Nursing Team");
     expect(await community.getByTestId("care-team-list").innerText()).not.toContain("Larch Ward");
-    expect(await community.getByTestId("lead-contact").innerText()).toContain("01632 960 299");
+    expect(plain(await community.getByTestId("lead-contact").innerText())).toContain("01632 960 299");
     await expect.poll(() => community.getByTestId("transfer-timeline").innerText()).toContain("Referral accepted");
     await screenshot(community, "transfer-community-care-team-en");
 
@@ -150,8 +152,8 @@ describe("transfer of care", () => {
     const card = await newPage(browser, PHONE);
     await card.goto(`/en/p/${token}`);
     expect(await card.getByTestId("card-team").innerText()).toBe("Harbourside Community Nursing Team");
-    expect(await card.getByTestId("card-phone").innerText()).toContain("01632 960 210");
-    expect(await card.getByTestId("card-out-of-hours").innerText()).toContain("01632 960 299");
+    expect(plain(await card.getByTestId("card-phone").innerText())).toContain("01632 960 210");
+    expect(plain(await card.getByTestId("card-out-of-hours").innerText())).toContain("01632 960 299");
     expect(await card.getByTestId("card-drainage").first().innerText()).toBe("Catheter valve");
     expect(await card.getByTestId("card-lot").first().innerText()).toBe("LW2231");
     expect(await card.getByTestId("card-insertion").first().innerText()).toContain("The last insertion was difficult");
@@ -189,7 +191,7 @@ describe("transfer of care", () => {
     });
     expect(activated.status(), await activated.text()).toBe(201);
     await patient.goto("/en/help");
-    const help = await patient.locator("main").innerText();
+    const help = plain(await patient.locator("main").innerText());
     expect(help).toContain("Harbourside Community Nursing Team");
     expect(help).toContain("01632 960 299");
     expect(help).not.toContain("Larch Ward");
@@ -197,16 +199,19 @@ describe("transfer of care", () => {
   }, 120_000);
 
   it("the GP summaries carry the action line, the supplies and the TWOC date; the second says what it replaces", async () => {
-    const mails = await waitForEmails(gpInbox, 2, { timeoutMs: 60_000 });
-    const byNumber = (n: number) => mails.find((m) => m.attachments?.some((a) => a.filename.endsWith(`-no${n}.pdf`)))!;
-    const first = { ...byNumber(1), text: byNumber(1).text ?? "" };
-    const second = { ...byNumber(2), text: byNumber(2).text ?? "", html: byNumber(2).html ?? "" };
+    // No. 1 is the insertion's, no. 2 the ward's passport, no. 3 the community team's reissue.
+    const mails = await waitForEmails(gpInbox, 3, { timeoutMs: 60_000 });
+    const byNumber = (n: number) => mails.find((m) => m.attachments?.some((a) => a.filename.endsWith(`-no${n}.pdf`)));
+    expect(byNumber(1)?.subject).toContain("catheter inserted");
+    const first = { ...byNumber(2)!, text: byNumber(2)?.text ?? "" };
+    const second = { ...byNumber(3)!, text: byNumber(3)?.text ?? "", html: byNumber(3)?.html ?? "" };
+    expect(first.subject).toContain("passport issued");
     expect(first.text.indexOf("For the practice")).toBeLessThan(first.text.indexOf("Patient"));
     expect(first.text).toContain("Awaiting trial without catheter on Thursday, January 14, 2027");
     expect(first.text).toMatch(/Supplies for \d+ days/);
     expect(first.text).toContain("Valve");
     expect(first.text).toContain("Larch Ward, 01632 960 101");
-    expect(second.text).toContain("This is summary no. 2 for this patient. It replaces the one of");
+    expect(second.text).toContain("This is summary no. 3 for this patient. It replaces the one of");
     expect(second.text).toContain("Referral accepted: a new lead team");
     expect(second.text).toContain("Harbourside Community Nursing Team, 01632 960 210 (out of hours 01632 960 299)");
     const page = await newPage(browser, { viewport: { width: 760, height: 1000 } });
@@ -241,7 +246,7 @@ describe("transfer of care", () => {
     await db.update(referrals).set({ createdAt: new Date(Date.now() - 25 * 3_600_000) }).where(eq(referrals.patientId, id));
     await ward.goto("/en/caseload");
     const flagged = ward.getByTestId("referral-unanswered").filter({ hasText: `Ash${tag}` });
-    await expect.poll(() => flagged.innerText()).toContain("not answered by Harbourside Community Nursing Team");
+    await expect.poll(async () => plain(await flagged.innerText())).toContain("not answered by Harbourside Community Nursing Team");
     await screenshot(ward, "transfer-caseload-unanswered-en");
     const phone = await newPage(browser, PHONE);
     await signInAs(phone, demo.wardNurse.email, demo.wardNurse.password, "ar");

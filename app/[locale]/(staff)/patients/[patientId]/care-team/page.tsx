@@ -3,6 +3,7 @@ import { ChecklistSummary } from "@/components/transfer/checklist-summary";
 import { CareTeamChanges } from "@/components/transfer/care-team-changes";
 import { ChecklistForm, ReferralForm } from "@/components/transfer/referral-form";
 import { WithdrawReferral } from "@/components/transfer/referral-answer";
+import { isolate, ltr } from "@/components/portal/call-buttons";
 import { Card } from "@/components/ui/card";
 import { getLeadTeamContact } from "@/db/queries/contacts";
 import { getLatestDischargeChecklist, listCareTeam, listPatientReferrals, listTransferTimeline, searchTeamDirectory } from "@/db/queries/referrals";
@@ -48,11 +49,11 @@ export default async function CareTeamTab({ params }: { params: Promise<{ locale
         </ul>
         {lead ? (
           <Card className="flex flex-col gap-1" data-testid="lead-contact">
-            <p className="font-bold">{t("patientCalls", { team: lead.name })}</p>
-            <p className="tabular">{lead.phone ? t("day", { phone: lead.phone }) : t("noPhone")}</p>
+            <p className="font-bold">{t("patientCalls", { team: isolate(lead.name) })}</p>
+            <p className="tabular">{lead.phone ? t("day", { phone: ltr(lead.phone) }) : t("noPhone")}</p>
             <p className="tabular">
               {lead.outOfHoursPhone
-                ? t(lead.outOfHoursIsService ? "oohService" : "oohTeam", { phone: lead.outOfHoursPhone, service: lead.outOfHoursServiceName ?? "" })
+                ? t(lead.outOfHoursIsService ? "oohService" : "oohTeam", { phone: ltr(lead.outOfHoursPhone), service: isolate(lead.outOfHoursServiceName ?? "") })
                 : t("noOutOfHours")}
             </p>
           </Card>
@@ -68,7 +69,7 @@ export default async function CareTeamTab({ params }: { params: Promise<{ locale
           </h2>
           {pending.map((r) => (
             <Card key={r.id} className="flex flex-col gap-2">
-              <p className="font-bold">{t("waitingFor", { team: r.toName, date: at(r.createdAt) })}</p>
+              <p className="font-bold">{t("waitingFor", { team: isolate(r.toName), date: at(r.createdAt) })}</p>
               {r.reminders ? <p>{t("sentAgain", { count: r.reminders })}</p> : null}
               {canAct ? <WithdrawReferral patientId={patientId} referralId={r.id} /> : null}
             </Card>
@@ -136,7 +137,7 @@ export default async function CareTeamTab({ params }: { params: Promise<{ locale
           .filter((r) => r.status === "declined")
           .map((r) => (
             <p key={r.id} className="rounded-lg border-2 border-level-urgent bg-level-urgent-soft p-3 text-level-urgent-ink" data-testid="declined-referral">
-              {t("declinedBy", { team: r.toName, reason: r.declineReason ?? "" })}
+              {t("declinedBy", { team: isolate(r.toName), reason: isolate(r.declineReason ?? "") })}
             </p>
           ))}
       </section>
