@@ -158,10 +158,10 @@ describe("transfer of care", () => {
     expect(await card.getByTestId("card-lot").first().innerText()).toBe("LW2231");
     expect(await card.getByTestId("card-insertion").first().innerText()).toContain("The last insertion was difficult");
     await screenshot(card, "transfer-device-card-en-phone");
+    // An English-speaking patient's card is in English alone, whatever the reader's language.
+    expect(await card.locator("section[lang]").first().getAttribute("lang")).toBe("en");
     for (const locale of ["pl", "ar"]) {
       await card.goto(`/${locale}/p/${token}`);
-      // The reader's language first: on /pl the Polish half, English after.
-      expect(await card.locator("section[lang]").first().getAttribute("lang")).toBe(locale === "pl" ? "pl" : "en");
       await screenshot(card, `transfer-device-card-${locale}-phone`);
     }
   }, 120_000);
@@ -209,7 +209,8 @@ describe("transfer of care", () => {
     expect(first.text.indexOf("For the practice")).toBeLessThan(first.text.indexOf("Patient"));
     expect(first.text).toContain("Awaiting trial without catheter on Thursday, January 14, 2027");
     expect(first.text).toMatch(/Supplies for \d+ days/);
-    expect(first.text).toContain("Valve");
+    expect(first.text).toMatch(/valve/i);
+    expect(first.text).toContain("Not taught: washing around the catheter");
     expect(first.text).toContain("Larch Ward, 01632 960 101");
     expect(second.text).toContain("This is summary no. 3 for this patient. It replaces the one of");
     expect(second.text).toContain("Referral accepted: a new lead team");
