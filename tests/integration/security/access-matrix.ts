@@ -32,6 +32,8 @@ export type Fixture = {
   bystanderStaffUserId: string;
   /** A pending referral of Arthur from Harbourside to Rowan Ward (no persona belongs to Rowan Ward). */
   referralId: string;
+  /** A pending referral of Arthur to Harbourside (for the bad-input suite's answering nurse). */
+  incomingReferralId: string;
 };
 
 export type Row =

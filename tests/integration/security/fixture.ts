@@ -26,6 +26,10 @@ export async function securityFixture(): Promise<Fixture> {
     .insert(referrals)
     .values({ patientId: arthur.id, fromOrganisationId: harbourside.id, toOrganisationId: rowan.id, referredByUserId: grace.id, handoverNote: "Matrix fixture referral", referrerStays: true })
     .returning({ id: referrals.id });
+  const [incoming] = await db
+    .insert(referrals)
+    .values({ patientId: arthur.id, fromOrganisationId: rowan.id, toOrganisationId: harbourside.id, referredByUserId: priya.id, handoverNote: "Bad-input fixture referral", referrerStays: true })
+    .returning({ id: referrals.id });
   return {
     patientId: arthur.id,
     otherPatientId: yusuf.id,
@@ -35,5 +39,6 @@ export async function securityFixture(): Promise<Fixture> {
     adminUserId: admin.id,
     bystanderStaffUserId: priya.id,
     referralId: referral.id,
+    incomingReferralId: incoming.id,
   };
 }
