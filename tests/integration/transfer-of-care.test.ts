@@ -14,6 +14,7 @@ import { POST as withdraw } from "@/app/api/patients/[patientId]/referrals/[refe
 import { POST as createPatient } from "@/app/api/patients/route";
 import { POST as accept } from "@/app/api/referrals/[referralId]/accept/route";
 import { POST as decline } from "@/app/api/referrals/[referralId]/decline/route";
+import { PATCH as settingsPatch } from "@/app/api/admin/settings/route";
 import { GET as directory } from "@/app/api/teams/route";
 import { db } from "@/db";
 import { getHelpContacts, getLeadTeamContact } from "@/db/queries/contacts";
@@ -247,6 +248,25 @@ describe("referral, unanswered", () => {
     const w = await call(withdraw, `/api/patients/${patientId}/referrals/${referralId}/withdraw`, { cookie: ward, params: { patientId, referralId } });
     expect(w.status).toBe(200);
     expect((await sendReferralReminders({ now: new Date(Date.now() + 100 * 3_600_000) })).sent).toBe(0);
+  });
+});
+
+describe("the admin's settings for transfers", () => {
+  it("keeps the out-of-hours service number and the reminder hours; refuses bad values and non-admins", async () => {
+    const patch = (cookie: string, body: unknown) => call(settingsPatch, "/api/admin/settings", { method: "PATCH", cookie, body });
+    const bad = await patch(admin, { outOfHoursPhone: "call us", referralReminderHours: 0 });
+    expect(bad.status).toBe(400);
+    expect(Object.keys((await bad.json()).error.fields).sort()).toEqual(["outOfHoursPhone", "referralReminderHours"]);
+    expect((await patch(ward, { referralReminderHours: 12 })).status).toBe(403);
+    const ok = await patch(admin, { outOfHoursPhone: "01632 960 998", referralReminderHours: 12 });
+    expect(ok.status, await ok.clone().text()).toBe(200);
+    const patientId = await registerOnWard();
+    // Larch Ward has no out-of-hours number of its own: the new service number stands in.
+    expect((await getLeadTeamContact({ patientId }))!.outOfHoursPhone).toBe("01632 960 998");
+    // Cleared, no team number and no service: none is shown rather than one made up.
+    expect((await patch(admin, { outOfHoursPhone: null, referralReminderHours: null })).status).toBe(200);
+    expect(await getLeadTeamContact({ patientId })).toMatchObject({ outOfHoursPhone: null, outOfHoursIsService: false });
+    await patch(admin, { outOfHoursPhone: "01632 960 999" });
   });
 });
 
