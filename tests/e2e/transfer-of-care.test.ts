@@ -233,6 +233,14 @@ describe("transfer of care", () => {
     const declined = ward.getByTestId("referral-declined").filter({ hasText: `Voss${tag}` });
     await expect.poll(() => declined.innerText()).toContain("Outside our area");
     await screenshot(ward, "transfer-caseload-declined-en");
+    // A Polish-speaking patient's card: on /en the English half comes first, on /pl the Polish.
+    const { url } = await post(ward, `/api/patients/${id}/passport`, { reissue: true });
+    const card = await newPage(browser, PHONE);
+    for (const [locale, first] of [["en", "en"], ["pl", "pl"]] as const) {
+      await card.goto(`/${locale}/p/${url.split("/p/")[1]}`);
+      expect(await card.locator("section[lang]").evaluateAll((s) => s.map((e) => e.getAttribute("lang")))).toEqual(first === "en" ? ["en", "pl"] : ["pl", "en"]);
+      await screenshot(card, `transfer-device-card-pl-patient-on-${locale}`);
+    }
     // The ward still leads: the patient keeps its numbers.
     await ward.goto(`/pl/patients/${id}/care-team`);
     await expect.poll(() => ward.getByTestId("care-team-list").innerText()).toContain("Larch Ward");
