@@ -352,6 +352,8 @@ export async function seed({ quiet = false }: { quiet?: boolean } = {}) {
       .values([
         { key: "emergencyNumber", value: "999" },
         { key: "outOfHoursServiceName", value: "Eastmere out-of-hours nursing line" },
+        // Invented, in the range set aside for drama; shown where a lead team has no out-of-hours number.
+        { key: "outOfHoursPhone", value: "01632 960 999" },
         // Adult records: 8 years after the end of care (from memory of the NHS England records code of practice).
         { key: "retentionDays", value: 8 * 365 },
       ])
@@ -380,8 +382,9 @@ export async function seed({ quiet = false }: { quiet?: boolean } = {}) {
         .returning({ id: patients.id });
       if (!inserted) continue; // already seeded
       const patientId = inserted.id;
-      for (const team of p.team) {
-        await tx.insert(careTeam).values({ patientId, organisationId: orgIds.get(team)! }).onConflictDoNothing();
+      // The first team named leads (its numbers are the patient's to call).
+      for (const [i, team] of p.team.entries()) {
+        await tx.insert(careTeam).values({ patientId, organisationId: orgIds.get(team)!, lead: i === 0 }).onConflictDoNothing();
       }
       let previous: string | null = null;
       let previousUnplanned: DemoPatient["episodes"][number]["unplannedReason"];

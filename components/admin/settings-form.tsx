@@ -11,6 +11,7 @@ import { useSubmitFailure } from "@/components/ui/use-error-text";
 import { apiFetch } from "@/lib/browser/api-client";
 import { MATERIALS, MATERIAL_SPECS, PLAN_DEFAULTS, type Material } from "@/lib/clinical";
 import { useRouter } from "@/lib/i18n/navigation";
+import { DEFAULT_REFERRAL_REMINDER_HOURS } from "@/lib/shared/referrals";
 import { settingsFormSchema, type SettingsFormOutput, type SettingsFormValues } from "@/lib/validations/settings";
 
 export type SettingsInitial = {
@@ -23,6 +24,8 @@ export type SettingsInitial = {
   acknowledgeWithinMinutes: number | null;
   workingDayStart: string | null;
   workingDayEnd: string | null;
+  outOfHoursPhone: string | null;
+  referralReminderHours: number | null;
 };
 
 const text = { setValueAs: (v: unknown) => (typeof v === "string" && v.trim() === "" ? null : v) };
@@ -87,6 +90,24 @@ export function SettingsForm({ initial }: { initial: SettingsInitial }) {
           autoComplete="off"
           errors={errorText.list(errors.outOfHoursServiceName)}
           {...register("outOfHoursServiceName", text)}
+        />
+        <Field
+          label={t("outOfHoursPhone")}
+          hint={t("outOfHoursPhoneHint")}
+          type="tel"
+          inputMode="tel"
+          autoComplete="off"
+          className="max-w-xs"
+          errors={errorText.list(errors.outOfHoursPhone)}
+          {...register("outOfHoursPhone", text)}
+        />
+        <Field
+          label={t("referralReminderHours")}
+          hint={t("referralReminderHoursHint", { hours: DEFAULT_REFERRAL_REMINDER_HOURS })}
+          inputMode="numeric"
+          className="max-w-xs"
+          errors={errorText.list(errors.referralReminderHours)}
+          {...register("referralReminderHours", num)}
         />
       </fieldset>
 

@@ -97,7 +97,22 @@ async function CardInLanguage({ card, locale, first }: { card: DeviceCard; local
             <dd>{v(`lengthCategory.${d.lengthCategory as LengthCategory}`)}</dd>
             <dt className="text-ink-soft">{t("gel")}</dt>
             <dd>{v(`gelKind.${d.gelKind as GelKind}`)}</dd>
+            <dt className="text-ink-soft">{t("drainage")}</dt>
+            <dd data-testid="card-drainage">{card.drainage ? t(`drainageKind.${card.drainage}`) : t("notRecorded")}</dd>
+            <dt className="text-ink-soft">{v("device.lot")}</dt>
+            <dd className="tabular" data-testid="card-lot">{d.lot ? <bdi dir="ltr">{d.lot}</bdi> : t("notRecorded")}</dd>
+            <dt className="text-ink-soft">{v("device.expiry")}</dt>
+            <dd className="tabular">{d.expiry ? calendarDay(d.expiry) : t("notRecorded")}</dd>
           </dl>
+          {/* Before recatheterising: was the last insertion difficult? */}
+          <div
+            role="note"
+            className={`rounded-lg p-3 ${d.difficult ? "border-4 border-level-urgent bg-level-urgent-soft text-level-urgent-ink" : "border-2 border-stone-faint"}`}
+            data-testid="card-insertion"
+          >
+            <p className="font-bold">{d.difficult ? t("difficultInsertion") : t("easyInsertion")}</p>
+            {d.difficulties ? <p>{d.difficulties}</p> : null}
+          </div>
         </>
       ) : (
         <p className="font-bold">{t("noDevice")}</p>
@@ -109,7 +124,8 @@ async function CardInLanguage({ card, locale, first }: { card: DeviceCard; local
 
 export async function DeviceCardView({ card, locale, visitHref }: { card: DeviceCard; locale: string; visitHref: string }) {
   const t = await getTranslations({ locale: isLocale(locale) ? locale : "en", namespace: "DeviceCard" });
-  const locales = cardLocales(card.patientLocale);
+  // The reader's language first (on /en the English half), then the patient's.
+  const locales = cardLocales(card.patientLocale).sort((a, b) => Number(b === locale) - Number(a === locale));
   const phone = card.careTeam?.phone ?? null;
   const ooh = card.careTeam?.outOfHoursPhone ?? null;
   return (
@@ -125,6 +141,7 @@ export async function DeviceCardView({ card, locale, visitHref }: { card: Device
       ))}
       <div className="flex flex-col gap-3">
         <h2 className="text-xl font-bold">{t("careTeam")}</h2>
+        {card.careTeam ? <p className="font-bold" data-testid="card-team">{card.careTeam.name}</p> : null}
         {phone ? (
           <a href={`tel:${phone.replace(/[^\d+]/g, "")}`} className={buttonClass("primary", "min-h-14 text-xl")} data-testid="card-phone">
             {t("call", { phone: isolate(phone) })}
@@ -133,8 +150,9 @@ export async function DeviceCardView({ card, locale, visitHref }: { card: Device
           <p>{t("noPhone")}</p>
         )}
         {ooh ? (
-          <a href={`tel:${ooh.replace(/[^\d+]/g, "")}`} className={buttonClass("secondary", "min-h-14 text-lg")}>
+          <a href={`tel:${ooh.replace(/[^\d+]/g, "")}`} className={buttonClass("secondary", "min-h-14 text-lg")} data-testid="card-out-of-hours">
             {t("callOutOfHours", { phone: isolate(ooh) })}
+            {card.careTeam?.outOfHoursServiceName ? ` · ${card.careTeam.outOfHoursServiceName}` : ""}
           </a>
         ) : null}
       </div>

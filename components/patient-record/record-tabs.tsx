@@ -5,6 +5,7 @@ import { Link, usePathname } from "@/lib/i18n/navigation";
 const tabs = [
   { key: "device", path: "" },
   { key: "history", path: "/history" },
+  { key: "careTeam", path: "/care-team" },
   { key: "passport", path: "/passport" },
   { key: "documents", path: "/documents" },
   { key: "checkIns", path: "/check-ins" },

@@ -17,16 +17,24 @@ import { useRouter } from "@/lib/i18n/navigation";
 import { DEFAULT_SUPPLY_PERIOD, supplyPeriodChoices, supplyRequestSchema, type SupplyRequestInput } from "@/lib/validations/supply-request";
 import { TableHead } from "@/components/ui/table-head";
 
-type Props = { patientId: string; changeIntervalDays: number; gpName: string | null; gpHasInbox: boolean };
+type Props = {
+  patientId: string;
+  changeIntervalDays: number;
+  gpName: string | null;
+  gpHasInbox: boolean;
+  /** From the discharge checklist: the period up to a planned trial without catheter, and a valve instead of a leg bag. */
+  initialPeriod?: number;
+  valve?: boolean;
+};
 
 const includeKeys = ["legBag", "valve", "nightBag", "gel"] as const;
 
-export function SupplyRequestForm({ patientId, changeIntervalDays, gpName, gpHasInbox }: Props) {
+export function SupplyRequestForm({ patientId, changeIntervalDays, gpName, gpHasInbox, initialPeriod = DEFAULT_SUPPLY_PERIOD, valve = false }: Props) {
   const t = useTranslations("Supplies");
   const v = useTranslations("Vocabulary");
   const router = useRouter();
   const [sent, setSent] = useState<string | null>(null);
-  const initialInclude = { legBag: true, valve: false, nightBag: true, gel: true };
+  const initialInclude = { legBag: !valve, valve, nightBag: true, gel: true };
   const suggest = (periodDays: number, include: SupplyRequestInput["include"]) => {
     try {
       return suppliesFor({ changeIntervalDays, ...include }, periodDays).lines;
@@ -44,9 +52,9 @@ export function SupplyRequestForm({ patientId, changeIntervalDays, gpName, gpHas
   } = useForm<z.input<typeof supplyRequestSchema>, unknown, SupplyRequestInput>({
     resolver: zodResolver(supplyRequestSchema),
     defaultValues: {
-      periodDays: DEFAULT_SUPPLY_PERIOD,
+      periodDays: initialPeriod,
       include: initialInclude,
-      items: suggest(DEFAULT_SUPPLY_PERIOD, initialInclude).map((l) => ({ item: l.item, quantity: l.quantity })),
+      items: suggest(initialPeriod, initialInclude).map((l) => ({ item: l.item, quantity: l.quantity })),
       note: "",
     },
   });

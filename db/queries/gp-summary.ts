@@ -2,7 +2,7 @@ import "server-only";
 // The facts a GP summary reports, read in the caller's transaction (so an event written a moment
 // ago in the same transaction is seen) and again at send time for the PDF: both read the same
 // rows, so the e-mail and its attachment agree.
-import { and, asc, eq, isNull } from "drizzle-orm";
+import { and, asc, count, eq, gt, isNull, max } from "drizzle-orm";
 import { db, type Executor } from "@/db";
 import type { AllergyAnswers } from "@/lib/clinical";
 import {
@@ -10,11 +10,14 @@ import {
   catheterEpisodes,
   episodeEvents,
   organisations,
+  outboundMessages,
   passports,
   patients,
   type CatheterEpisode,
 } from "@/db/schema";
 import { charriereToMm } from "@/lib/clinical";
+import { getLeadTeamContact } from "./contacts";
+import { getLatestDischargeChecklist, listTransferTimeline } from "./referrals";
 import type { TwocOutcome } from "@/lib/clinical";
 
 export const gpSummaryCauses = ["passport", "insertion", "change", "removal", "twoc"] as const;
@@ -60,6 +63,20 @@ export type GpSummaryFacts = {
   };
   gp: { id: string; name: string; inboxEmail: string | null; locale: string } | null;
   careTeam: { name: string; phone: string | null; outOfHoursPhone: string | null }[];
+  /** The lead team and its numbers (getLeadTeamContact): who the practice and the patient call. */
+  lead: { name: string; phone: string | null; outOfHoursPhone: string | null } | null;
+  /** The latest discharge checklist, when there is one. */
+  checklist: {
+    taught: string[];
+    suppliesGiven: boolean;
+    suppliesDays: number | null;
+    drainage: "valve" | "bag" | null;
+    plannedTwocOn: string | null;
+    firstVisitOn: string | null;
+    portalActivationGiven: boolean;
+  } | null;
+  /** This summary's number for the patient, and the one it replaces (with what happened since). */
+  sequence: { number: number; previousAt: string | null; changes: { at: string; kind: string }[] };
   /** The catheter in place after the event (none after a removal or a passed trial). */
   device: DeviceFacts | null;
   /** The catheter taken out (change, removal, trial without catheter). */
@@ -129,7 +146,10 @@ export async function loadGpSummaryFacts(
     cause,
     actorName,
     refused = [],
+    sequence,
   }: {
+    /** Fixed when the summary is queued (its number, the earlier one's time), so the PDF made at send time agrees. */
+    sequence?: { number: number; previousAt: string | null };
     patientId: string;
     eventId?: string | null;
     passportId?: string | null;
@@ -192,6 +212,22 @@ export async function loadGpSummaryFacts(
     }
   }
   const findingsFrom = cause === "insertion" || cause === "change" ? device : undefined;
+  const [lead, checklistRow] = await Promise.all([getLeadTeamContact({ patientId }, tx), getLatestDischargeChecklist({ patientId }, tx)]);
+  const seq = sequence ?? (await gpSummarySequence({ patientId }, tx));
+  const changes: { at: string; kind: string }[] = [];
+  if (seq.previousAt) {
+    const since = new Date(seq.previousAt);
+    const events = await tx
+      .select({ at: episodeEvents.occurredAt, kind: episodeEvents.kind })
+      .from(episodeEvents)
+      .where(and(eq(episodeEvents.patientId, patientId), gt(episodeEvents.occurredAt, since)))
+      .orderBy(asc(episodeEvents.occurredAt));
+    for (const e of events) changes.push({ at: e.at.toISOString(), kind: `event:${e.kind}` });
+    for (const e of (await listTransferTimeline({ patientId }, tx)).filter((x) => new Date(x.at) > since && x.action !== "referral.remind").reverse()) {
+      changes.push({ at: e.at, kind: `transfer:${e.action}` });
+    }
+    changes.sort((a, b) => a.at.localeCompare(b.at));
+  }
   return {
     cause,
     occurredAt: occurredAt.toISOString(),
@@ -206,6 +242,19 @@ export async function loadGpSummaryFacts(
     },
     gp: gpRow ? { id: gpRow.id, name: gpRow.name, inboxEmail: gpRow.inboxEmail, locale: gpRow.locale } : null,
     careTeam: team,
+    lead: lead ? { name: lead.name, phone: lead.phone, outOfHoursPhone: lead.outOfHoursPhone } : null,
+    checklist: checklistRow
+      ? {
+          taught: checklistRow.taught,
+          suppliesGiven: checklistRow.suppliesGiven,
+          suppliesDays: checklistRow.suppliesDays,
+          drainage: checklistRow.drainage,
+          plannedTwocOn: checklistRow.plannedTwocOn,
+          firstVisitOn: checklistRow.firstVisitOn,
+          portalActivationGiven: checklistRow.portalActivationGiven,
+        }
+      : null,
+    sequence: { number: seq.number, previousAt: seq.previousAt, changes },
     device: device ? deviceFacts(device) : null,
     previous: previous ? deviceFacts(previous) : null,
     event,
@@ -213,4 +262,16 @@ export async function loadGpSummaryFacts(
     findings: findingsFrom ? findingFacts(findingsFrom) : [],
     refused: refusedAll,
   };
+}
+
+/**
+ * The number the next GP summary of this patient takes (earlier summaries, not counting resends)
+ * and when the latest of them was written: a later summary says which one it replaces.
+ */
+export async function gpSummarySequence({ patientId }: { patientId: string }, tx: Executor = db) {
+  const [row] = await tx
+    .select({ n: count(), last: max(outboundMessages.createdAt) })
+    .from(outboundMessages)
+    .where(and(eq(outboundMessages.patientId, patientId), eq(outboundMessages.kind, "gp-summary"), isNull(outboundMessages.resendOfId)));
+  return { number: Number(row?.n ?? 0) + 1, previousAt: row?.last ? new Date(row.last).toISOString() : null };
 }

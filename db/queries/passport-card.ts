@@ -5,7 +5,8 @@ import "server-only";
 import { and, desc, eq, isNull, sql } from "drizzle-orm";
 import { db, type Executor } from "@/db";
 import type { AllergyAnswers } from "@/lib/clinical";
-import { careTeam, catheterEpisodes, organisations, patients, visitAccess } from "@/db/schema";
+import { catheterEpisodes, dischargeChecklists, patients, visitAccess } from "@/db/schema";
+import { getLeadTeamContact } from "./contacts";
 
 export type DeviceCard = {
   patientLocale: string;
@@ -19,10 +20,19 @@ export type DeviceCard = {
     gelKind: (typeof catheterEpisodes.$inferSelect)["gelKind"];
     insertedAt: string;
     plannedChangeOn: string;
+    /** What an out-of-hours nurse needs before recatheterising. */
+    lot: string | null;
+    expiry: string | null;
+    /** More than one attempt, or difficulties noted, at the last insertion. */
+    difficult: boolean;
+    difficulties: string | null;
   } | null;
+  /** Valve or free drainage into a bag, from the latest discharge checklist; null when not recorded. */
+  drainage: "valve" | "bag" | null;
   /** Only the allergies that matter for a catheter and its gel. */
   allergies: AllergyAnswers;
-  careTeam: { phone: string | null; outOfHoursPhone: string | null } | null;
+  /** The lead team's numbers (getLeadTeamContact: out of hours falls back to the deployment's service). */
+  careTeam: { name: string; phone: string | null; outOfHoursPhone: string | null; outOfHoursServiceName: string | null } | null;
 };
 
 export async function getDeviceCard({ patientId }: { patientId: string }, tx: Executor = db): Promise<DeviceCard | null> {
@@ -37,22 +47,26 @@ export async function getDeviceCard({ patientId }: { patientId: string }, tx: Ex
       gelKind: catheterEpisodes.gelKind,
       insertedAt: catheterEpisodes.insertedAt,
       plannedChangeOn: catheterEpisodes.plannedChangeOn,
+      lot: catheterEpisodes.lot,
+      expiry: catheterEpisodes.expiry,
+      attempts: catheterEpisodes.attempts,
+      difficulties: catheterEpisodes.difficulties,
     })
     .from(catheterEpisodes)
     .where(and(eq(catheterEpisodes.patientId, patientId), isNull(catheterEpisodes.removedAt)))
     .orderBy(desc(catheterEpisodes.insertedAt))
     .limit(1)
     .as("e");
-  // The care team with a phone first (a community team before a ward), by name.
-  const team = tx
-    .select({ phone: organisations.phone, outOfHoursPhone: organisations.outOfHoursPhone })
-    .from(careTeam)
-    .innerJoin(organisations, eq(organisations.id, careTeam.organisationId))
-    .where(eq(careTeam.patientId, patientId))
-    .orderBy(sql`${organisations.phone} is null`, sql`${organisations.kind} <> 'community_team'`, organisations.name)
+  const checklist = tx
+    .select({ drainage: dischargeChecklists.drainage })
+    .from(dischargeChecklists)
+    .where(eq(dischargeChecklists.patientId, patientId))
+    .orderBy(desc(dischargeChecklists.createdAt))
     .limit(1)
-    .as("t");
-  const [row] = await tx
+    .as("c");
+  // The lead team's numbers come from the one place (db/queries/contacts.ts), read alongside.
+  const [[row], lead] = await Promise.all([
+    tx
     .select({
       locale: patients.preferredLocale,
       latex: patients.allergyLatex,
@@ -68,13 +82,19 @@ export async function getDeviceCard({ patientId }: { patientId: string }, tx: Ex
         gelKind: episode.gelKind,
         insertedAt: episode.insertedAt,
         plannedChangeOn: episode.plannedChangeOn,
+        lot: episode.lot,
+        expiry: episode.expiry,
+        attempts: episode.attempts,
+        difficulties: episode.difficulties,
       },
-      t: { phone: team.phone, outOfHoursPhone: team.outOfHoursPhone },
+      drainage: checklist.drainage,
     })
     .from(patients)
     .leftJoinLateral(episode, sql`true`)
-    .leftJoinLateral(team, sql`true`)
-    .where(eq(patients.id, patientId));
+    .leftJoinLateral(checklist, sql`true`)
+    .where(eq(patients.id, patientId)),
+    getLeadTeamContact({ patientId }, tx),
+  ]);
   if (!row) return null;
   const e = row.e && row.e.sizeCh !== null ? row.e : null;
   return {
@@ -90,10 +110,18 @@ export async function getDeviceCard({ patientId }: { patientId: string }, tx: Ex
           gelKind: e.gelKind!,
           insertedAt: new Date(e.insertedAt!).toISOString(),
           plannedChangeOn: e.plannedChangeOn!,
+          lot: e.lot ?? null,
+          expiry: e.expiry ?? null,
+          difficult: (e.attempts ?? 1) > 1 || Boolean(e.difficulties?.trim()),
+          difficulties: e.difficulties?.trim() || null,
         }
       : null,
+    drainage: row.drainage ?? null,
     allergies: { latex: row.latex, chlorhexidine: row.chlorhexidine, lidocaine: row.lidocaine },
-    careTeam: row.t && (row.t.phone || row.t.outOfHoursPhone) ? { phone: row.t.phone, outOfHoursPhone: row.t.outOfHoursPhone } : null,
+    careTeam:
+      lead && (lead.phone || lead.outOfHoursPhone)
+        ? { name: lead.name, phone: lead.phone, outOfHoursPhone: lead.outOfHoursPhone, outOfHoursServiceName: lead.outOfHoursServiceName }
+        : null,
   };
 }
 

@@ -1,13 +1,16 @@
 import "server-only";
 // Passports: the rows (hashes only, never a plain token), the data the booklet prints, and the
 // one-transaction reissue. Access checks happen before these are called.
-import { and, asc, desc, eq, isNull, max, sql } from "drizzle-orm";
+import { and, desc, eq, isNull, max, sql } from "drizzle-orm";
 import { db, type Executor } from "@/db";
 import type { AllergyAnswers } from "@/lib/clinical";
 import { getSettings } from "@/lib/config/settings";
+import { getLeadTeamContact } from "./contacts";
+import { getLatestDischargeChecklist } from "./referrals";
 import {
   careTeam,
   catheterEpisodes,
+  dischargeChecklists,
   episodeEvents,
   organisations,
   passports,
@@ -41,13 +44,14 @@ function toSummary(row: { id: string; issuedAt: Date; issuedByName: string | nul
   };
 }
 
-/** The last change to anything the booklet prints (details, catheters, events). */
+/** The last change to anything the booklet prints (details, catheters, events, care team, discharge checklist). */
 async function lastRecordChange({ patientId }: { patientId: string }, tx: Executor): Promise<Date | null> {
   const [p] = await tx.select({ at: patients.updatedAt }).from(patients).where(eq(patients.id, patientId));
   const [e] = await tx.select({ at: max(catheterEpisodes.updatedAt) }).from(catheterEpisodes).where(eq(catheterEpisodes.patientId, patientId));
   const [v] = await tx.select({ at: max(episodeEvents.updatedAt) }).from(episodeEvents).where(eq(episodeEvents.patientId, patientId));
   const [c] = await tx.select({ at: max(careTeam.updatedAt) }).from(careTeam).where(eq(careTeam.patientId, patientId));
-  const times = [p?.at, e?.at, v?.at, c?.at].filter((d): d is Date => d instanceof Date);
+  const [d] = await tx.select({ at: max(dischargeChecklists.createdAt) }).from(dischargeChecklists).where(eq(dischargeChecklists.patientId, patientId));
+  const times = [p?.at, e?.at, v?.at, c?.at, d?.at].filter((d): d is Date => d instanceof Date);
   return times.length ? new Date(Math.max(...times.map((d) => d.getTime()))) : null;
 }
 
@@ -157,6 +161,7 @@ export type BookletRecord = {
   }[];
   careTeams: { name: string; phone: string | null; outOfHoursPhone: string | null }[];
   gp: { name: string; phone: string | null; outOfHoursPhone: string | null } | null;
+  checklist: Awaited<ReturnType<typeof getLatestDischargeChecklist>>;
   /** Null when an admin has not set it: the booklet is then refused, never printed without it. */
   settings: { emergencyNumber: string | null; outOfHoursServiceName: string | null };
 };
@@ -164,7 +169,7 @@ export type BookletRecord = {
 export async function getBookletRecord({ patientId }: { patientId: string }, tx: Executor = db): Promise<BookletRecord | null> {
   const [p] = await tx.select().from(patients).where(eq(patients.id, patientId));
   if (!p) return null;
-  const [current, episodes, events, teams, gpRows, deployment] = await Promise.all([
+  const [current, episodes, events, teams, gpRows, deployment, checklist] = await Promise.all([
     tx
       .select({ episode: catheterEpisodes, organisationName: organisations.name })
       .from(catheterEpisodes)
@@ -190,13 +195,8 @@ export async function getBookletRecord({ patientId }: { patientId: string }, tx:
       .leftJoin(organisations, eq(organisations.id, episodeEvents.organisationId))
       .where(eq(episodeEvents.patientId, patientId))
       .orderBy(desc(episodeEvents.occurredAt), desc(episodeEvents.createdAt)),
-    tx
-      .select({ name: organisations.name, phone: organisations.phone, outOfHoursPhone: organisations.outOfHoursPhone })
-      .from(careTeam)
-      .innerJoin(organisations, eq(organisations.id, careTeam.organisationId))
-      .where(eq(careTeam.patientId, patientId))
-      // Community teams first: they are the ones a patient at home calls.
-      .orderBy(sql`case when ${organisations.kind} = 'community_team' then 0 else 1 end`, asc(organisations.name)),
+    // The lead team alone, with its out-of-hours number or the deployment's service (one place: contacts.ts).
+    getLeadTeamContact({ patientId }, tx),
     p.gpPracticeId
       ? tx
           .select({ name: organisations.name, phone: organisations.phone, outOfHoursPhone: organisations.outOfHoursPhone })
@@ -204,6 +204,7 @@ export async function getBookletRecord({ patientId }: { patientId: string }, tx:
           .where(eq(organisations.id, p.gpPracticeId))
       : Promise.resolve([]),
     getSettings(tx),
+    getLatestDischargeChecklist({ patientId }, tx),
   ]);
   return {
     patient: {
@@ -217,8 +218,10 @@ export async function getBookletRecord({ patientId }: { patientId: string }, tx:
     currentEpisode: current[0] ? { ...current[0].episode, organisationName: current[0].organisationName } : null,
     episodes,
     events: events.map((e) => ({ ...e, twocOutcome: e.twocOutcome ?? null })),
-    careTeams: teams,
+    careTeams: teams ? [{ name: teams.name, phone: teams.phone, outOfHoursPhone: teams.outOfHoursPhone }] : [],
     gp: gpRows[0] ?? null,
-    settings: { emergencyNumber: deployment.emergencyNumber, outOfHoursServiceName: deployment.outOfHoursServiceName },
+    checklist,
+    // The service's name goes beside its number only: a team's own out-of-hours line is the team's.
+    settings: { emergencyNumber: deployment.emergencyNumber, outOfHoursServiceName: teams?.outOfHoursIsService ? deployment.outOfHoursServiceName : null },
   };
 }

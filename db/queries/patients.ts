@@ -169,7 +169,8 @@ export async function createPatient(
   } catch (error) {
     hrnConflict(error);
   }
-  await tx.insert(careTeam).values(teamIds.map((organisationId) => ({ patientId: id, organisationId })));
+  // The first team chosen leads until a referral or the care team says otherwise.
+  await tx.insert(careTeam).values(teamIds.map((organisationId, i) => ({ patientId: id, organisationId, lead: i === 0 })));
   return { id };
 }
 

@@ -8,3 +8,4 @@ export * from "./mail";
 export * from "./security";
 export * from "./visits";
 export * from "./settings";
+export * from "./transfers";

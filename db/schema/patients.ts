@@ -1,6 +1,6 @@
 // Patients, their care team, carers and portal invitation codes.
 import { sql } from "drizzle-orm";
-import { check, date, index, integer, numeric, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { boolean, check, date, index, integer, numeric, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { user } from "./auth";
 import { ALLERGY_ANSWERS } from "../../lib/clinical/allergies";
 import { timestamps } from "./columns";
@@ -60,9 +60,16 @@ export const careTeam = pgTable(
     organisationId: uuid("organisation_id")
       .notNull()
       .references(() => organisations.id, { onDelete: "cascade" }),
+    // The lead team: whose numbers the patient, the device card, the booklet and the alerts show.
+    // At most one per patient, and always one of its care team (it is a row of it).
+    lead: boolean("lead").notNull().default(false),
     ...timestamps,
   },
-  (t) => [primaryKey({ columns: [t.patientId, t.organisationId] }), index("care_team_org_idx").on(t.organisationId, t.patientId)],
+  (t) => [
+    primaryKey({ columns: [t.patientId, t.organisationId] }),
+    index("care_team_org_idx").on(t.organisationId, t.patientId),
+    uniqueIndex("care_team_one_lead_uq").on(t.patientId).where(sql`${t.lead}`),
+  ],
 );
 
 export const carerLinks = pgTable(

@@ -4,7 +4,7 @@ import "server-only";
 import { forbidden, redirect } from "next/navigation";
 import type { z } from "zod";
 import { findPatientAccess, isAdminOfPatient, type PatientAccessVia } from "@/db/queries/access";
-import type { DiaryEntry, Upload } from "@/db/schema";
+import type { DiaryEntry, Referral, Upload } from "@/db/schema";
 import { AppError } from "@/lib/http/errors";
 import { parseJsonBody } from "@/lib/http/validate";
 import { DIARY_DELETE_HOURS } from "@/lib/validations/diary";
@@ -136,6 +136,22 @@ export function canRemoveDiaryEntry(entry: Pick<DiaryEntry, "recordedByUserId" |
 export async function requireDiaryEntryRemover(viewer: Viewer, entry: Pick<DiaryEntry, "patientId" | "recordedByUserId" | "createdAt">) {
   const via = await requirePortalPatient(viewer, entry.patientId);
   if (!canRemoveDiaryEntry(entry, viewer.userId)) throw new AppError("forbidden", "Only entries you added in the last 24 hours can be removed.");
+  return via;
+}
+
+/**
+ * Answering a referral (accept, decline): a clinician of the receiving organisation. The team is
+ * not on the care team yet, so this is its only way to the referral; anyone else gets 404.
+ */
+export async function requireReferralReceiver(viewer: Viewer, referral: Pick<Referral, "toOrganisationId"> | null): Promise<void> {
+  assertRole(viewer, "clinician");
+  if (!referral || !viewer.organisationIds.includes(referral.toOrganisationId)) throw new AppError("not_found");
+}
+
+/** Taking one's own team off a care team: a clinician of the care team who belongs to that team (403 otherwise). */
+export async function requireOwnCareTeamOrganisation(viewer: Viewer, patientId: string, organisationId: string): Promise<"care_team"> {
+  const via = await requireCareTeam(viewer, patientId);
+  if (!viewer.organisationIds.includes(organisationId)) throw new AppError("forbidden", "You can take only your own team off the care team.");
   return via;
 }
 

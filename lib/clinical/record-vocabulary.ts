@@ -39,3 +39,11 @@ export const ACKNOWLEDGE_ACTIONS = ["phoned", "visited", "sent-to-gp", "advised-
 export const URINE_APPEARANCES = ["clear", "cloudy", "blood", "debris"] as const;
 /** The meatus or the suprapubic site. */
 export const SITE_CONDITIONS = ["healthy", "red-or-sore", "discharge", "overgranulation", "other"] as const;
+/** What the discharging nurse taught before the patient went home (the discharge checklist). */
+export const DISCHARGE_TEACHING = ["emptying-bag", "changing-bags", "leg-and-night-bags", "washing", "drinks", "constipation", "when-to-get-help"] as const;
+
+/** How the catheter drains at home: through a valve, or freely into a bag. */
+export const DRAINAGE_KINDS = ["valve", "bag"] as const;
+
+/** A referral from one care-team organisation to another. */
+export const REFERRAL_STATUSES = ["pending", "accepted", "declined", "withdrawn"] as const;

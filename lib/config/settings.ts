@@ -5,6 +5,7 @@ import "server-only";
 import type { Executor } from "@/db";
 import { readSettingRows, writeSettings } from "@/db/queries/settings";
 import { planDefaults, type Material, type PlanDatesOptions, type PlanDefaults } from "@/lib/clinical";
+import { DEFAULT_REFERRAL_REMINDER_HOURS } from "@/lib/shared/referrals";
 import { settingKeys, settingSchemas, type SettingsPatch } from "@/lib/validations/settings";
 import { DEFAULT_WORKING_HOURS, minutesOfClock, type WorkingHours } from "@/lib/shared/working-hours";
 
@@ -24,6 +25,10 @@ export type DeploymentSettings = {
   /** The working day those minutes are counted in ("08:00", "18:00"); null → DEFAULT_WORKING_HOURS. */
   workingDayStart: string | null;
   workingDayEnd: string | null;
+  /** The out-of-hours service's number, shown where the lead team has no out-of-hours number. */
+  outOfHoursPhone: string | null;
+  /** Hours before an unanswered referral is flagged and sent again; null means the default. */
+  referralReminderHours: number | null;
 };
 
 /** Two hours of working time (the default the care teams asked for; common practice, no source). */
@@ -53,6 +58,8 @@ export async function getSettings(tx?: Executor): Promise<DeploymentSettings> {
     acknowledgeWithinMinutes: get("acknowledgeWithinMinutes") as number | null,
     workingDayStart: get("workingDayStart") as string | null,
     workingDayEnd: get("workingDayEnd") as string | null,
+    outOfHoursPhone: get("outOfHoursPhone") as string | null,
+    referralReminderHours: get("referralReminderHours") as number | null,
   };
 }
 
@@ -73,6 +80,11 @@ export async function getAcknowledgePlan(tx?: Executor): Promise<{ minutes: numb
     return { minutes: s.acknowledgeWithinMinutes ?? DEFAULT_ACKNOWLEDGE_WITHIN_MINUTES, hours: DEFAULT_WORKING_HOURS };
   }
   return { minutes: s.acknowledgeWithinMinutes ?? DEFAULT_ACKNOWLEDGE_WITHIN_MINUTES, hours };
+}
+
+/** Hours a referral may stay unanswered before it is flagged and sent again to the receiving team. */
+export async function getReferralReminderHours(tx?: Executor): Promise<number> {
+  return (await getSettings(tx)).referralReminderHours ?? DEFAULT_REFERRAL_REMINDER_HOURS;
 }
 
 /** Options for lib/clinical `planDates` from the deployment settings. */

@@ -4,6 +4,7 @@ import "server-only";
 // stores the check-in or the observations, so the alert exists exactly when they do.
 import type { Executor } from "@/db";
 import type { AlertReporter } from "@/db/schema";
+import { getLeadTeamContact, type LeadTeamContact } from "@/db/queries/contacts";
 import { getActiveEpisode, getPatientForMail } from "@/db/queries/mail-context";
 import { alertTeams } from "@/lib/records/alert-team";
 import { env } from "@/lib/config/env";
@@ -55,7 +56,7 @@ function reporterLine(t: ReturnType<typeof emailTranslator>, r: AlertReporter | 
 // in; never the patient's name, date of birth or phone number in an ordinary e-mail.
 function alertContent(
   input: CareTeamAlertInput & { level: AlertLevel },
-  ctx: { hrn: string; device: string | null; plannedChangeOn: string | null; teamName: string },
+  ctx: { hrn: string; device: string | null; plannedChangeOn: string | null; teamName: string; lead: LeadTeamContact | null },
   locale: string,
 ): EmailContent {
   const t = emailTranslator(locale);
@@ -67,6 +68,11 @@ function alertContent(
   if (ctx.plannedChangeOn) rows.push({ label: t("device.plannedChange"), value: d.day(ctx.plannedChangeOn) });
   if (input.kind === "news2" && typeof input.score === "number") rows.push({ label: t("alert.score"), value: String(input.score) });
   const reporter = reporterLine(t, input.reporter);
+  // The lead team and its numbers: who the patient was told to call (getLeadTeamContact).
+  if (ctx.lead) {
+    const day = ctx.lead.phone ? t("common.teamLine", { name: ctx.lead.name, phone: ctx.lead.phone }) : ctx.lead.name;
+    rows.push({ label: t("alert.leadTeam"), value: ctx.lead.outOfHoursPhone ? `${day} ${t("common.outOfHours", { phone: ctx.lead.outOfHoursPhone })}` : day });
+  }
   const blocks: Block[] = [
     { type: "notice", tone: severe ? "stop" : "warn", label: levelWord, text: t(`alert.action.${input.level}`) },
     ...(input.reminderOf ? [{ type: "paragraph" as const, text: t("alert.reminderIntro", { date: d.at(input.reminderOf) }) }] : []),
@@ -101,9 +107,10 @@ export async function queueCareTeamAlert(tx: Executor, input: CareTeamAlertInput
   if (!isAlertLevel(input.kind, input.level)) return [];
   const patient = await getPatientForMail({ patientId: input.patientId }, tx);
   if (!patient) throw new Error(`care-team alert: patient ${input.patientId} not found`);
-  const [teams, episode] = await Promise.all([
+  const [teams, episode, lead] = await Promise.all([
     alertTeams({ patientId: input.patientId }, tx),
     getActiveEpisode({ patientId: input.patientId }, tx),
+    getLeadTeamContact({ patientId: input.patientId }, tx),
   ]);
   const out: QueuedMessage[] = [];
   // No care team at all: keep a failed row so the gap is visible rather than silent.
@@ -123,6 +130,7 @@ export async function queueCareTeamAlert(tx: Executor, input: CareTeamAlertInput
         device,
         plannedChangeOn: episode?.plannedChangeOn ?? null,
         teamName: team.name,
+        lead,
       },
       locale,
     );

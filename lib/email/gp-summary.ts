@@ -8,7 +8,7 @@ import { loadGpSummaryFacts, type DeviceFacts, type GpSummaryCause, type GpSumma
 import { emailDates, emailLocale, emailTranslator, emailVocabulary, type EmailT, type EmailV } from "./i18n";
 import { queueMessage, type QueuedMessage } from "./outbox";
 import { renderEmail, type Block, type EmailContent } from "./render";
-import { REMOVAL_REASONS } from "@/lib/clinical";
+import { DISCHARGE_TEACHING, REMOVAL_REASONS, suppliesFor, type SupplyList } from "@/lib/clinical";
 import { allergySummary } from "@/lib/clinical/allergies";
 
 export type { GpSummaryCause, GpSummaryFacts };
@@ -92,6 +92,32 @@ export function careTeamLines(t: EmailT, team: GpSummaryFacts["careTeam"]): stri
   });
 }
 
+/** A month's prescription: the usual period of a repeat prescription (common practice, no source). */
+export const GP_SUPPLY_DAYS = 28;
+
+const dayNumber = (ymd: string) => Math.floor(Date.parse(`${ymd.slice(0, 10)}T00:00:00Z`) / 86_400_000);
+
+/**
+ * What the practice is asked to prescribe: supplies (lib/clinical suppliesFor) for a month, or
+ * only until the planned trial without catheter. Null with no catheter in place.
+ */
+export function gpSupplies(facts: GpSummaryFacts): { list: SupplyList; twocOn: string | null } | null {
+  const dev = facts.device;
+  if (!dev) return null;
+  const today = dayNumber(facts.occurredAt);
+  const twocOn = facts.checklist?.plannedTwocOn && dayNumber(facts.checklist.plannedTwocOn) >= today ? facts.checklist.plannedTwocOn : null;
+  const days = twocOn ? Math.min(GP_SUPPLY_DAYS, Math.max(1, dayNumber(twocOn) - today)) : GP_SUPPLY_DAYS;
+  const changeIntervalDays = Math.min(366, Math.max(1, dayNumber(dev.plannedChangeOn) - dayNumber(dev.insertedAt)));
+  const valve = facts.checklist?.drainage === "valve";
+  return { list: suppliesFor({ changeIntervalDays, valve, legBag: !valve }, days), twocOn };
+}
+
+/** Language codes as names in the reader's language ("Polish", not "pl"). */
+export function languageNames(codes: readonly string[], locale: string): string {
+  const names = new Intl.DisplayNames([locale], { type: "language" });
+  return codes.map((c) => names.of(c) ?? c).join(", ");
+}
+
 /** The summary as one content model, for the e-mail (HTML and text) and the PDF alike. */
 export function gpSummaryContent(facts: GpSummaryFacts, locale: string): EmailContent {
   const t = emailTranslator(locale);
@@ -100,6 +126,40 @@ export function gpSummaryContent(facts: GpSummaryFacts, locale: string): EmailCo
   const c = facts.cause;
   const actor = facts.actorOrganisation ? t("common.actorAt", { name: facts.actorName, organisation: facts.actorOrganisation }) : facts.actorName;
   const blocks: Block[] = [];
+  const supplies = gpSupplies(facts);
+
+  // First, in one line: what the practice needs to do.
+  const action = !facts.device
+    ? t("gp.action.nothing")
+    : supplies?.twocOn
+      ? t("gp.action.twoc", { date: d.day(supplies.twocOn), days: supplies.list.days })
+      : t("gp.action.prescribe", { days: supplies?.list.days ?? GP_SUPPLY_DAYS });
+  blocks.push({ type: "notice", tone: "info", label: t("gp.action.label"), text: action });
+  if (facts.sequence.previousAt) {
+    blocks.push({ type: "notice", tone: "warn", label: t("gp.replaces.label"), text: t("gp.replaces.text", { number: facts.sequence.number, date: d.at(new Date(facts.sequence.previousAt)) }) });
+    blocks.push({ type: "heading", text: t("gp.replaces.changesHeading") });
+    blocks.push(
+      facts.sequence.changes.length
+        ? {
+            type: "list",
+            items: facts.sequence.changes.map((c) => {
+              const [source, kind] = c.kind.split(":");
+              const what = source === "event" ? v(`eventKind.${kind as "insertion"}`) : t(`gp.replaces.transfer.${kind as "referral.accept"}`);
+              return `${d.at(new Date(c.at))}: ${what}`;
+            }),
+          }
+        : { type: "paragraph", text: t("gp.replaces.noChanges") },
+    );
+  }
+
+  blocks.push({ type: "heading", text: t("gp.careHeading") });
+  const careRows = [{ label: t("gp.responsibleNurse"), value: actor }];
+  if (facts.lead) {
+    const day = facts.lead.phone ? t("common.teamLine", { name: facts.lead.name, phone: facts.lead.phone }) : facts.lead.name;
+    careRows.push({ label: t("gp.leadTeam"), value: facts.lead.outOfHoursPhone ? `${day} ${t("common.outOfHours", { phone: facts.lead.outOfHoursPhone })}` : day });
+  }
+  if (supplies?.twocOn) careRows.push({ label: t("gp.twocPlanned"), value: t("gp.awaitingTwoc", { date: d.day(supplies.twocOn) }) });
+  blocks.push({ type: "facts", rows: careRows });
 
   blocks.push({ type: "heading", text: t("gp.patient") });
   blocks.push({
@@ -131,7 +191,7 @@ export function gpSummaryContent(facts: GpSummaryFacts, locale: string): EmailCo
       type: "facts",
       rows: [
         { label: t("gp.issuedAt"), value: d.at(new Date(facts.passport.issuedAt)) },
-        { label: t("gp.languages"), value: facts.passport.languages.join(", ") },
+        { label: t("gp.languages"), value: languageNames(facts.passport.languages, locale) },
       ],
     });
   }
@@ -188,9 +248,30 @@ export function gpSummaryContent(facts: GpSummaryFacts, locale: string): EmailCo
     });
   }
 
-  if (facts.careTeam.length) {
-    blocks.push({ type: "heading", text: t("gp.careTeamHeading") });
-    blocks.push({ type: "list", items: careTeamLines(t, facts.careTeam) });
+  if (supplies) {
+    blocks.push({ type: "heading", text: t("supply.itemsHeading", { days: supplies.list.days }) });
+    blocks.push({
+      type: "table",
+      head: [t("supply.colItem"), t("supply.colQuantity")],
+      rows: supplies.list.lines.filter((l) => l.quantity > 0).map((l) => [v(`supplyItem.${l.item}`), String(l.quantity)]),
+    });
+    blocks.push({ type: "paragraph", text: t("gp.suppliesBasis") });
+  }
+
+  // The discharge checklist as recorded: what was not done is said, not left out.
+  if (facts.checklist) {
+    const c = facts.checklist;
+    blocks.push({ type: "heading", text: t("gp.checklist.heading") });
+    blocks.push({
+      type: "list",
+      items: [
+        ...DISCHARGE_TEACHING.map((i) => t(c.taught.includes(i) ? "gp.checklist.taught" : "gp.checklist.notTaught", { item: t(`gp.checklist.items.${i}`) })),
+        c.suppliesGiven ? t("gp.checklist.supplies", { days: c.suppliesDays ?? 0 }) : t("gp.checklist.noSupplies"),
+        c.drainage ? t(`gp.checklist.drainage.${c.drainage}`) : t("gp.checklist.drainage.none"),
+        c.firstVisitOn ? t("gp.checklist.firstVisit", { date: d.day(c.firstVisitOn) }) : t("gp.checklist.noFirstVisit"),
+        c.portalActivationGiven ? t("gp.checklist.portal") : t("gp.checklist.noPortal"),
+      ],
+    });
   }
 
   return {
@@ -203,9 +284,10 @@ export function gpSummaryContent(facts: GpSummaryFacts, locale: string): EmailCo
   };
 }
 
+/** The attachment's name tells the versions apart: its number for the patient is in it. */
 export function gpSummaryFilename(facts: GpSummaryFacts) {
   const safe = facts.patient.healthRecordNumber.replace(/[^A-Za-z0-9-]+/g, "-");
-  return `caddis-gp-summary-${safe}-${facts.occurredAt.slice(0, 10)}.pdf`;
+  return `caddis-gp-summary-${safe}-${facts.occurredAt.slice(0, 10)}-no${facts.sequence.number}.pdf`;
 }
 
 /**
@@ -226,6 +308,8 @@ export async function queueGpSummary(tx: Executor, input: QueueGpSummaryInput): 
     ...(input.eventId ? { eventId: input.eventId } : {}),
     ...(input.passportId ? { passportId: input.passportId } : {}),
     ...(input.refused?.length ? { refused: JSON.stringify(input.refused) } : {}),
+    sequence: String(facts.sequence.number),
+    ...(facts.sequence.previousAt ? { previousAt: facts.sequence.previousAt } : {}),
   };
   return queueMessage(tx, {
     idempotencyKey: gpSummaryKey(input),
@@ -250,6 +334,7 @@ export async function renderGpSummaryAttachment(params: Record<string, string>) 
       cause: params.cause as GpSummaryCause,
       actorName: params.actorName,
       refused: params.refused ? JSON.parse(params.refused) : [],
+      ...(params.sequence ? { sequence: { number: Number(params.sequence), previousAt: params.previousAt ?? null } } : {}),
     },
     db,
   );

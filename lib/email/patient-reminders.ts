@@ -4,7 +4,7 @@ import "server-only";
 // planned date (key `change-reminder:<episodeId>:<date>`), so a re-run or a second instance
 // sends nothing more, and a new planned date after a change gets its own reminder.
 import { db, type Executor } from "@/db";
-import { getCareTeamOrganisations } from "@/db/queries/mail-context";
+import { getLeadTeamContact } from "@/db/queries/contacts";
 import { listChangeReminders } from "@/db/queries/reminders";
 import { addDays, parseIsoDate } from "@/lib/clinical";
 import { env } from "@/lib/config/env";
@@ -29,10 +29,11 @@ export async function queueChangeReminder(tx: Executor, row: ReminderRow, today:
   const t = emailTranslator(locale);
   const d = emailDates(locale);
   const days = parseIsoDate("plannedChangeOn", row.plannedChangeOn) - parseIsoDate("today", today);
-  const team = (await getCareTeamOrganisations({ patientId: row.patientId }, tx)).find((o) => o.phone);
+  const lead = await getLeadTeamContact({ patientId: row.patientId }, tx);
+  const team = lead?.phone ? { name: lead.name, phone: lead.phone } : null;
   const blocks: Block[] = [
     { type: "paragraph", text: days < 0 ? t("reminder.overdue", { date: d.day(row.plannedChangeOn) }) : t("reminder.due", { date: d.day(row.plannedChangeOn), days }) },
-    { type: "paragraph", text: team ? t("reminder.callTeam", { team: team.name, phone: team.phone! }) : t("reminder.callTeamNoPhone") },
+    { type: "paragraph", text: team ? t("reminder.callTeam", { team: team.name, phone: team.phone }) : t("reminder.callTeamNoPhone") },
     { type: "paragraph", text: t("reminder.meanwhile") },
     { type: "action", href: `${new URL(env.APP_URL).origin}/${locale}/today`, label: t("reminder.open") },
   ];

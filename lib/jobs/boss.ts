@@ -17,6 +17,7 @@ export const QUEUES = {
   sweep: "outbox-sweep",
   retention: "record-retention",
   acknowledge: "acknowledge-reminders",
+  referrals: "referral-reminders",
 } as const;
 
 /** The schema version this pg-boss writes (its package's version.json). */
@@ -56,6 +57,7 @@ export async function startBoss({ onSweep, log }: { onSweep: () => Promise<void>
   await boss.createQueue(QUEUES.sweep, { name: QUEUES.sweep, retryLimit: 0, expireInSeconds: 300 });
   await boss.createQueue(QUEUES.acknowledge, { name: QUEUES.acknowledge, retryLimit: 3, retryDelay: 60, expireInSeconds: 300 });
   await boss.createQueue(QUEUES.retention, { name: QUEUES.retention, retryLimit: 3, retryDelay: 300, retryBackoff: true, expireInSeconds: 3600 });
+  await boss.createQueue(QUEUES.referrals, { name: QUEUES.referrals, retryLimit: 5, retryDelay: 60, retryBackoff: true, expireInSeconds: 900 });
   await boss.schedule(QUEUES.digest, env.DIGEST_CRON, {}, { tz: env.CADDIS_TIME_ZONE });
   await boss.schedule(QUEUES.reminders, env.REMINDER_CRON, {}, { tz: env.CADDIS_TIME_ZONE });
   await boss.schedule(QUEUES.sweep, "* * * * *", {}, { tz: "UTC" });
@@ -63,6 +65,14 @@ export async function startBoss({ onSweep, log }: { onSweep: () => Promise<void>
   await boss.schedule(QUEUES.acknowledge, "*/5 * * * *", {}, { tz: "UTC" });
   // Closed records past the retention period (Settings) are removed once a day.
   await boss.schedule(QUEUES.retention, env.RETENTION_CRON, {}, { tz: env.CADDIS_TIME_ZONE });
+  // Unanswered referrals are sent again (and flagged to the referrer) within 15 minutes of the
+  // reminder time in Settings: no patient is left between two teams.
+  await boss.schedule(QUEUES.referrals, "*/15 * * * *", {}, { tz: "UTC" });
+  await boss.work(QUEUES.referrals, async () => {
+    const { sendReferralReminders } = await import("@/lib/email/referral-mail");
+    const r = await sendReferralReminders();
+    if (r.sent) log(`referral reminders: ${r.sent} sent again`);
+  });
   await boss.work(QUEUES.digest, async () => {
     const { queueWeeklyDigests } = await import("@/lib/email/digest");
     const r = await queueWeeklyDigests({});

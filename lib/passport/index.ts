@@ -158,6 +158,17 @@ export function bookletData({
         lot: episode?.lot ?? null,
       };
     }),
+    checklist: record.checklist
+      ? {
+          taught: record.checklist.taught,
+          suppliesGiven: record.checklist.suppliesGiven,
+          suppliesDays: record.checklist.suppliesDays,
+          drainage: record.checklist.drainage,
+          plannedTwocOn: record.checklist.plannedTwocOn,
+          firstVisitOn: record.checklist.firstVisitOn,
+          portalActivationGiven: record.checklist.portalActivationGiven,
+        }
+      : null,
     contacts: {
       emergencyNumber: record.settings.emergencyNumber,
       outOfHoursServiceName: record.settings.outOfHoursServiceName,

@@ -9,7 +9,7 @@ export const organisationKinds = ["hospital_ward", "community_team", "gp_practic
 // Messages are codes the organisation form translates (AdminOrganisations.errors.<code>).
 const blankToNull = (v: unknown) => (typeof v === "string" && v.trim() === "" ? null : v);
 
-const phone = z.preprocess(
+export const phoneSchema = z.preprocess(
   blankToNull,
   z
     .string()
@@ -24,8 +24,8 @@ const organisationFields = z.object({
   name: singleLine(z.string().trim().min(2, { message: "name_length" }).max(120, { message: "name_length" })),
   kind: z.enum(organisationKinds, { message: "kind_required" }),
   parentName: z.preprocess(blankToNull, singleLine(z.string().trim().max(120, { message: "name_length" })).nullable()).optional(),
-  phone: phone.optional(),
-  outOfHoursPhone: phone.optional(),
+  phone: phoneSchema.optional(),
+  outOfHoursPhone: phoneSchema.optional(),
   inboxEmail: z.preprocess(blankToNull, z.email({ message: "email_invalid" }).max(254).nullable()).optional(),
   locale: z.enum(locales, { message: "locale_required" }),
   languages: z

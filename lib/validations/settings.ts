@@ -2,6 +2,7 @@ import { z } from "zod";
 import { singleLine } from "./text";
 import { MATERIALS } from "@/lib/clinical";
 import { numberIn, toNumber } from "./number";
+import { phoneSchema } from "./organisation";
 
 // Deployment settings (the `settings` table, key → JSON value). Messages are codes that the
 // settings form translates (AdminSettings.errors.<code>).
@@ -25,6 +26,10 @@ export const settingSchemas = {
   acknowledgeWithinMinutes: minutes(15, 24 * 60),
   workingDayStart: clock,
   workingDayEnd: clock,
+  // The deployment's out-of-hours service: the number shown where the lead team has none of its own.
+  outOfHoursPhone: phoneSchema.pipe(z.string()),
+  // Hours a referral may stay unanswered before it is flagged and sent again (default in settings.ts).
+  referralReminderHours: z.preprocess(toNumber, numberIn({ min: 1, max: 168, unit: "hours", whole: true })),
 } as const;
 
 export type SettingKey = keyof typeof settingSchemas;
@@ -42,6 +47,8 @@ export const settingsPatchSchema = z
     acknowledgeWithinMinutes: settingSchemas.acknowledgeWithinMinutes.nullable(),
     workingDayStart: settingSchemas.workingDayStart.nullable(),
     workingDayEnd: settingSchemas.workingDayEnd.nullable(),
+    outOfHoursPhone: settingSchemas.outOfHoursPhone.nullable(),
+    referralReminderHours: settingSchemas.referralReminderHours.nullable(),
   })
   .partial()
   .strict();

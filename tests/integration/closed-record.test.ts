@@ -8,7 +8,7 @@ import { and, eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { POST as closeRecord } from "@/app/api/admin/patients/[patientId]/close/route";
 import { db } from "@/db";
-import { carerLinks, caseloadItems, diaryEntries, outboundMessages, patientInvites, patients, uploads, user } from "@/db/schema";
+import { carerLinks, caseloadItems, diaryEntries, organisations, outboundMessages, patientInvites, patients, referrals, uploads, user } from "@/db/schema";
 import { hashActivationCode, hashInviteToken, newActivationCode, newInviteToken } from "@/lib/auth/secret-codes";
 import { changedTables, snapshot } from "../support/db-snapshot";
 import { demoDevice } from "../support/fixtures";
@@ -17,6 +17,7 @@ import { fillPattern, listRouteFiles, type Method } from "../support/routes";
 import { CLIENT_ADDRESS_HEADER } from "@/lib/http/client-ip";
 
 type Who = keyof typeof demo | "anonymous";
+const checklist = { taught: ["emptying-bag"], suppliesGiven: true, suppliesDays: 7, drainage: "bag", portalActivationGiven: false };
 type Ids = {
   patientId: string;
   readyUploadId: string;
@@ -27,6 +28,9 @@ type Ids = {
   carerToken: string;
   activationCode: string;
   caseloadItemId: string;
+  referralId: string;
+  harbourside: string;
+  rowan: string;
 };
 type Write = { who: Who; params?: (ids: Ids) => Record<string, string>; body?: (ids: Ids) => unknown; mayWrite?: string[] };
 type Plan = Write | { notARecordWrite: string };
@@ -79,6 +83,22 @@ const plans: Record<string, Plan> = {
   },
   "POST /api/patients/[patientId]/messages/[messageId]/resend": { who: "communityNurse", params: (i) => ({ patientId: i.patientId, messageId: i.messageId }) },
   "POST /api/patients/[patientId]/invite": { who: "communityNurse", params: patient, body: () => ({}) },
+  "POST /api/patients/[patientId]/referrals": {
+    who: "communityNurse",
+    params: patient,
+    body: (i) => ({ toOrganisationId: i.rowan, handoverNote: "Going to the ward for a week", referrerStays: true, checklist }),
+  },
+  "POST /api/referrals/[referralId]/accept": { who: "wardNurse", params: (i) => ({ referralId: i.referralId }) },
+  "POST /api/referrals/[referralId]/decline": { who: "wardNurse", params: (i) => ({ referralId: i.referralId }), body: () => ({ reason: "No beds this week" }) },
+  "POST /api/patients/[patientId]/referrals/[referralId]/withdraw": { who: "communityNurse", params: (i) => ({ patientId: i.patientId, referralId: i.referralId }) },
+  "POST /api/patients/[patientId]/care-team": { who: "communityNurse", params: patient, body: (i) => ({ organisationId: i.rowan, reason: "Shared care with the ward" }) },
+  "PATCH /api/patients/[patientId]/care-team": { who: "communityNurse", params: patient, body: (i) => ({ leadOrganisationId: i.harbourside, reason: "Harbourside leads again" }) },
+  "DELETE /api/patients/[patientId]/care-team/[organisationId]": {
+    who: "communityNurse",
+    params: (i) => ({ patientId: i.patientId, organisationId: i.harbourside }),
+    body: () => ({ reason: "Care passed to another team" }),
+  },
+  "POST /api/patients/[patientId]/discharge-checklist": { who: "communityNurse", params: patient, body: () => checklist },
   "POST /api/patients/[patientId]/carers": { who: "patient", params: patient, body: () => ({ email: "new.carer@eastmere.example" }) },
   "DELETE /api/patients/[patientId]/carers/[linkId]": {
     notARecordWrite:
@@ -145,6 +165,12 @@ beforeAll(async () => {
     .insert(caseloadItems)
     .values({ patientId: arthur.id, kind: "check-in", level: "urgent", summary: "Before closing", reporter: { kind: "patient" }, dueAt: new Date() })
     .returning({ id: caseloadItems.id });
+  const orgId = async (name: string) => (await db.select({ id: organisations.id }).from(organisations).where(eq(organisations.name, name)))[0].id;
+  const [harbourside, larch, rowan] = [await orgId("Harbourside Community Nursing Team"), await orgId("Larch Ward"), await orgId("Rowan Ward")];
+  const [referral] = await db
+    .insert(referrals)
+    .values({ patientId: arthur.id, fromOrganisationId: harbourside, toOrganisationId: larch, referredByUserId: grace.id, handoverNote: "Before closing", referrerStays: true })
+    .returning({ id: referrals.id });
   ids = {
     patientId: arthur.id,
     readyUploadId: ready.id,
@@ -155,8 +181,11 @@ beforeAll(async () => {
     carerToken,
     activationCode,
     caseloadItemId: item.id,
+    referralId: referral.id,
+    harbourside,
+    rowan,
   };
-  for (const who of ["admin", "communityNurse", "patient", "carer"] as const) cookies[who] = await sessionFor(who);
+  for (const who of ["admin", "communityNurse", "wardNurse", "patient", "carer"] as const) cookies[who] = await sessionFor(who);
   const closed = await call(closeRecord, `/api/admin/patients/${arthur.id}/close`, {
     cookie: cookies.admin,
     params: { patientId: arthur.id },

@@ -80,7 +80,8 @@ describe("GP summary", () => {
     const [row] = await db.select().from(outboundMessages).where(eq(outboundMessages.idempotencyKey, key));
     expect(mail.headers["message-id"]).toBe(row.messageId);
 
-    const filename = `caddis-gp-summary-${fx.hrn}-${event.occurredAt.toISOString().slice(0, 10)}.pdf`;
+    // The first summary of this patient: number 1 in the name, so later versions are told apart.
+    const filename = `caddis-gp-summary-${fx.hrn}-${event.occurredAt.toISOString().slice(0, 10)}-no1.pdf`;
     expect(mail.attachments?.map((a) => [a.filename, a.contentType])).toEqual([[filename, "application/pdf"]]);
     const pdf = await attachmentOf(mail, filename);
     expect(pdf.subarray(0, 5).toString()).toBe("%PDF-");
@@ -141,7 +142,8 @@ describe("GP summary", () => {
     await drainOutbox({ keyPrefix: "gp-summary:twoc:" + twoc.id, log: quiet });
     const mails = await waitForEmails(fx.gpInbox, 4);
     const passportMail = mails.find((m) => m.subject.includes("passport"))!;
-    expect(passportMail.text).toContain("en, pl");
+    // Languages as names, not codes.
+    expect(passportMail.text).toContain("English, Polish");
     expect(passportMail.text).toContain("Tomasz Reid");
     const twocMail = mails.find((m) => m.subject.includes("trial without catheter"))!;
     expect(twocMail.text).toContain("Passed: passing urine without a catheter");

@@ -44,8 +44,13 @@ describe("device card", () => {
     expect(r.card.device).toMatchObject({ sizeCh: expect.any(Number), balloonMl: expect.any(Number), route: expect.any(String), plannedChangeOn: expect.stringMatching(/^\d{4}-\d{2}-\d{2}$/) });
     // Arthur Pell is the seeded latex-allergic patient.
     expect(r.card.allergies.latex).toBe("yes");
-    expect(r.card.careTeam?.phone).toBeTruthy();
-    expect(Object.keys(r.card).sort()).toEqual(["allergies", "careTeam", "device", "patientLocale"]);
+    // The lead team's numbers (getLeadTeamContact): Harbourside, with its own out-of-hours line.
+    expect(r.card.careTeam).toMatchObject({ name: "Harbourside Community Nursing Team", phone: "01632 960 210", outOfHoursPhone: "01632 960 299" });
+    // Before recatheterising: lot, expiry, whether the last insertion was difficult, valve or bag.
+    expect(r.card.device).toHaveProperty("lot");
+    expect(r.card.device).toHaveProperty("expiry");
+    expect(typeof r.card.device?.difficult).toBe("boolean");
+    expect(Object.keys(r.card).sort()).toEqual(["allergies", "careTeam", "device", "drainage", "patientLocale"]);
     const text = JSON.stringify(r.card);
     expect(text).not.toMatch(/Arthur|Pell|EM-100-001|19\d\d-\d\d-\d\d/);
   });

@@ -19,11 +19,14 @@ import {
   caseloadItems,
   checkIns,
   diaryEntries,
+  dischargeChecklists,
   observations,
+  organisations,
   outboundMessages,
   passports,
   patientInvites,
   patients,
+  referrals,
   settings,
   supplyRequests,
   uploads,
@@ -67,6 +70,12 @@ async function addRowsFor(patientId: string, tag: string) {
   await db.insert(bagChanges).values({ patientId, kind: "leg-bag", changedOn: "2026-11-30", recordedByUserId: nurse });
   await db.insert(patientInvites).values({ patientId, codeHash: hashToken(randomUUID()), expiresAt: new Date(Date.now() + 86_400_000), usedAt: new Date() });
   await db.insert(supplyRequests).values({ patientId, periodDays: 28, items: [{ item: "leg-bag", computed: 4, quantity: 4, intervalDays: 7 }], requestedByName: tag });
+  const orgId = async (name: string) => (await db.select({ id: organisations.id }).from(organisations).where(eq(organisations.name, name)))[0].id;
+  const [referral] = await db
+    .insert(referrals)
+    .values({ patientId, fromOrganisationId: await orgId("Larch Ward"), toOrganisationId: await orgId("Rowan Ward"), handoverNote: tag, referrerStays: true })
+    .returning({ id: referrals.id });
+  await db.insert(dischargeChecklists).values({ patientId, referralId: referral.id, recordedByName: tag, taught: ["drinks"], suppliesGiven: false, portalActivationGiven: false });
   await db.insert(observations).values({
     patientId,
     takenAt: new Date(),

@@ -131,7 +131,7 @@ export async function mailPatient(
     .values({ givenName, familyName, healthRecordNumber: hrn, dateOfBirth: "1948-05-17", sex: "male", allergyLatex: "yes", allergyChlorhexidine: "no", allergyLidocaine: "no", gpPracticeId: gp.id })
     .returning({ id: patients.id });
   await db.insert(careTeam).values([
-    { patientId: p.id, organisationId: team.id },
+    { patientId: p.id, organisationId: team.id, lead: true },
     { patientId: p.id, organisationId: harbourside.id },
   ]);
   return {

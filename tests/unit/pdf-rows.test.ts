@@ -2,7 +2,7 @@
 // language, in what order, and how right-to-left columns keep Latin values whole.
 import { describe, expect, it } from "vitest";
 import { charriereToMm } from "@/lib/clinical";
-import { allergyList, contactRows, notRecordedLine, deviceRows, eventDetails, eventWhat, plannedDates } from "@/lib/pdf/booklet/rows";
+import { allergyList, checklistRows, contactRows, notRecordedLine, deviceRows, eventDetails, eventWhat, plannedDates } from "@/lib/pdf/booklet/rows";
 import type { BookletDevice, BookletEvent } from "@/lib/pdf/booklet/types";
 import { pdfStrings } from "@/lib/pdf/kit/strings";
 import { pdfText, withoutMarks } from "@/lib/pdf/kit/rtl";
@@ -136,5 +136,29 @@ describe("the one right-to-left fix", () => {
     expect(pdfText("يوسف حداد", true)).toBe("\u061Cيوسف \u061Cحداد");
     expect(pdfText(`${LRM}16 Ch${LRM} مم`, true)).toBe(`${LRM}16 Ch${LRM} \u061Cمم`);
     expect(pdfText("Grace Mensah", false)).toBe("Grace Mensah");
+  });
+});
+
+describe("discharge checklist rows", () => {
+  it("says what was not taught and not done, in each language", () => {
+    const rows = checklistRows(arEn, {
+      taught: ["emptying-bag", "when-to-get-help"],
+      suppliesGiven: false,
+      suppliesDays: null,
+      drainage: "valve",
+      plannedTwocOn: "2027-01-14",
+      firstVisitOn: null,
+      portalActivationGiven: false,
+    });
+    const en = rows.map((r) => `${r.labels[1]}: ${r.values[1]}`);
+    expect(en[0]).toBe("Shown how to: empty the bag, when to get help");
+    expect(en[1]).toContain("Not yet shown: change the bags");
+    expect(en).toContain("Supplies given: none given");
+    expect(en).toContain("Drains through: a catheter valve");
+    expect(en).toContain("First home visit: not arranged yet");
+    expect(en).toContain("Caddis app code: not given");
+    // Arabic first, every row in both languages.
+    expect(rows.every((r) => r.labels.length === 2 && r.values.length === 2)).toBe(true);
+    expect(rows[1].labels[0]).toBe("لم يُعلَّم بعد");
   });
 });

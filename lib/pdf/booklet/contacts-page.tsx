@@ -1,10 +1,10 @@
 import "server-only";
-// Who to call, then the catheter's history, most recent first, over as many pages as it needs.
+// Who to call, the discharge checklist, then the catheter's history, most recent first, over as many pages as it needs.
 import { Page, View } from "@react-pdf/renderer";
 import { palette as colour } from "../kit/palette";
 import type { PdfStrings } from "../kit/strings";
 import { Columns, FactTable, Footer, SectionTitle, styles, T } from "./parts";
-import { contactRows, eventDetails, eventWhat, iso } from "./rows";
+import { checklistRows, contactRows, eventDetails, eventWhat, iso } from "./rows";
 import type { PassportBookletData } from "./types";
 
 export function ContactsAndHistoryPage({ all, data }: { all: PdfStrings[]; data: PassportBookletData }) {
@@ -17,6 +17,12 @@ export function ContactsAndHistoryPage({ all, data }: { all: PdfStrings[]; data:
     <Page size="A5" style={styles.page} wrap>
       <SectionTitle all={all} k={(s) => s.t("contactsTitle")} />
       <FactTable all={all} rows={contactRows(all, c)} />
+      {data.checklist ? (
+        <View style={styles.section} wrap={false}>
+          <SectionTitle all={all} k={(s) => s.t("checklist.title")} />
+          <FactTable all={all} rows={checklistRows(all, data.checklist)} />
+        </View>
+      ) : null}
       <View style={styles.section} minPresenceAhead={80}>
         <SectionTitle all={all} k={(s) => s.t("historyTitle")} />
       </View>

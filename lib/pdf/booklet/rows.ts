@@ -1,10 +1,10 @@
 import "server-only";
 // The booklet's rows as data: every label and value in each language, built by pure functions
 // (tested without rendering, tests/unit/pdf-rows.test.ts); the pages only lay them out.
-import { allergySummary } from "@/lib/clinical";
+import { allergySummary, DISCHARGE_TEACHING } from "@/lib/clinical";
 import { ltrRun } from "../kit/rtl";
 import type { PdfStrings } from "../kit/strings";
-import type { BookletDevice, BookletEvent, PassportBookletData } from "./types";
+import type { BookletChecklist, BookletDevice, BookletEvent, PassportBookletData } from "./types";
 
 export type FactRow = {
   /** One label per language, patient's language first. */
@@ -104,4 +104,22 @@ export function eventDetails(s: PdfStrings, e: BookletEvent): string {
   if (e.material) parts.push(s.v(`material.${e.material}`));
   if (e.lot) parts.push(`${s.v("device.lot")} ${iso(s, e.lot)}`);
   return parts.join(s.rtl ? "، " : ", ") || "—";
+}
+
+/** The discharge checklist: every item, with what was not taught or not done said plainly. */
+export function checklistRows(all: PdfStrings[], c: BookletChecklist): FactRow[] {
+  const each = (f: (s: PdfStrings) => string) => all.map(f);
+  const items = (s: PdfStrings, taught: boolean) =>
+    DISCHARGE_TEACHING.filter((i) => c.taught.includes(i) === taught)
+      .map((i) => s.t(`checklist.items.${i}`))
+      .join(", ") || s.t("checklist.nothing");
+  return [
+    { labels: each((s) => s.t("checklist.taught")), values: each((s) => items(s, true)) },
+    { labels: each((s) => s.t("checklist.notTaught")), values: each((s) => items(s, false)) },
+    { labels: each((s) => s.t("checklist.supplies")), values: each((s) => (c.suppliesGiven ? s.t("checklist.suppliesDays", { days: c.suppliesDays ?? 0 }) : s.t("checklist.noSupplies"))) },
+    { labels: each((s) => s.t("checklist.drainage")), values: each((s) => (c.drainage ? s.t(`checklist.drainageKind.${c.drainage}`) : s.t("checklist.notRecorded"))) },
+    { labels: each((s) => s.t("checklist.twoc")), values: each((s) => (c.plannedTwocOn ? s.day(c.plannedTwocOn) : s.t("checklist.noTwoc"))) },
+    { labels: each((s) => s.t("checklist.firstVisit")), values: each((s) => (c.firstVisitOn ? s.day(c.firstVisitOn) : s.t("checklist.noFirstVisit"))) },
+    { labels: each((s) => s.t("checklist.portal")), values: each((s) => (c.portalActivationGiven ? s.t("checklist.given") : s.t("checklist.notGiven"))) },
+  ];
 }

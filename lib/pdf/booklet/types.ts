@@ -38,6 +38,16 @@ export type BookletEvent = {
   lot: string | null;
 };
 
+export type BookletChecklist = {
+  taught: string[];
+  suppliesGiven: boolean;
+  suppliesDays: number | null;
+  drainage: "valve" | "bag" | null;
+  plannedTwocOn: string | null;
+  firstVisitOn: string | null;
+  portalActivationGiven: boolean;
+};
+
 type BookletContact = { name: string; phone: string | null; outOfHoursPhone: string | null };
 
 export type PassportBookletData = {
@@ -64,6 +74,8 @@ export type PassportBookletData = {
     careTeams: BookletContact[];
     gp: BookletContact | null;
   };
+  /** The latest discharge checklist (null when none): printed with what was not done said plainly. */
+  checklist?: BookletChecklist | null;
   /** A one-time portal activation code, printed on its own page; never on the stored copy. */
   portalActivation?: { code: string; expiresAt: Date; activateUrl: string } | null;
 };

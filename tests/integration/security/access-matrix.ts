@@ -32,6 +32,10 @@ export type Fixture = {
   bystanderStaffUserId: string;
   /** An open NEWS2 alert to acknowledge on Arthur's record (an empty body is refused: it names no action). */
   caseloadItemId: string;
+  /** A pending referral of Arthur from Harbourside to Rowan Ward (no persona belongs to Rowan Ward). */
+  referralId: string;
+  /** A pending referral of Arthur to Harbourside (for the bad-input suite's answering nurse). */
+  incomingReferralId: string;
 };
 
 export type Row =
@@ -62,6 +66,12 @@ const anyoneSignedIn: Expectations = {
 };
 
 const patient = (f: Fixture) => ({ patientId: f.patientId });
+// Answering a referral is for the receiving team alone: the fixture's goes to Rowan Ward, which no
+// persona belongs to, so every clinician is refused as if it did not exist (the allowed case, the
+// receiving nurse, is in tests/integration/transfer-of-care.test.ts).
+const referralReceiverOnly: Expectations = {
+  anonymous: 401, admin: 403, careTeamClinician: 404, otherClinician: 404, patient: 403, otherPatient: 403, carer: 403,
+};
 const upload = (f: Fixture) => ({ patientId: f.patientId, uploadId: f.uploadId });
 
 export const matrix: Row[] = [
@@ -123,6 +133,19 @@ export const matrix: Row[] = [
   // Passport: issue/reissue, metadata, the stored booklet. The POST row comes first, so the
   // booklet row finds a passport to download (rows run in order).
   { route: "POST /api/patients/[patientId]/passport", params: patient, expect: staffOnPatient },
+  // Transfer of care: the directory, referrals, the care team's changes, the discharge checklist.
+  // The care team's own acts refuse visit access too (transfer-of-care.test.ts sends real bodies).
+  { route: "GET /api/teams", expect: clinicianOnly },
+  { route: "GET /api/patients/[patientId]/referrals", params: patient, expect: staffOnPatient },
+  { route: "POST /api/patients/[patientId]/referrals", params: patient, expect: staffOnPatient },
+  { route: "POST /api/referrals/[referralId]/accept", params: (f) => ({ referralId: f.referralId }), expect: referralReceiverOnly },
+  { route: "POST /api/referrals/[referralId]/decline", params: (f) => ({ referralId: f.referralId }), expect: referralReceiverOnly },
+  // After the answers' rows: the care team withdraws the fixture referral.
+  { route: "POST /api/patients/[patientId]/referrals/[referralId]/withdraw", params: (f) => ({ patientId: f.patientId, referralId: f.referralId }), expect: staffOnPatient },
+  { route: "POST /api/patients/[patientId]/care-team", params: patient, expect: staffOnPatient },
+  { route: "PATCH /api/patients/[patientId]/care-team", params: patient, expect: staffOnPatient },
+  { route: "DELETE /api/patients/[patientId]/care-team/[organisationId]", params: (f) => ({ patientId: f.patientId, organisationId: f.organisationId }), expect: staffOnPatient },
+  { route: "POST /api/patients/[patientId]/discharge-checklist", params: patient, expect: staffOnPatient },
   { route: "GET /api/patients/[patientId]/passport", params: patient, expect: staffOnPatient },
   { route: "GET /api/patients/[patientId]/passport/pdf", params: patient, expect: staffOnPatient },
   // Uploads: staff list and download; the patient and a linked carer may add site photos.

@@ -112,7 +112,7 @@ describe("bad input on every route that takes a body", () => {
     if (target.plan?.ownParser || target.plan?.noBody) continue;
     it(`${target.key} refuses a NUL or a control character in every field with a field error, and writes nothing`, async () => {
       const plan = target.plan!;
-      const params = plan.params ? plan.params({ patientId: fixture.patientId }) : {};
+      const params = plan.params ? plan.params({ patientId: fixture.patientId, incomingReferralId: fixture.incomingReferralId }) : {};
       const path = (plan.paths ?? [fillPattern(target.pattern, params)])[0];
       const cookie = plan.persona === "anonymous" ? undefined : await sessionFor(personaAccount[plan.persona]);
       const fields = schemaFieldNames();
@@ -135,7 +135,7 @@ describe("bad input on every route that takes a body", () => {
     it(`${key} refuses bad bodies with a 4xx, never a 5xx, and writes nothing`, { timeout: 240_000 }, async () => {
         expect(target.plan, target.why).toBeTruthy();
         const plan = target.plan!;
-        const params = plan.params ? plan.params({ patientId: fixture.patientId }) : {};
+        const params = plan.params ? plan.params({ patientId: fixture.patientId, incomingReferralId: fixture.incomingReferralId }) : {};
         const paths = plan.paths ?? [fillPattern(target.pattern, params)];
         const cookie = plan.persona === "anonymous" ? undefined : await sessionFor(personaAccount[plan.persona]);
         const fields = schemaFieldNames();

@@ -82,7 +82,7 @@ export function badBodies(fields: string[], ids: string[]): fc.Arbitrary<BadBody
  */
 export type BadInputOverride = {
   persona: Persona;
-  params?: (ids: { patientId: string }) => Record<string, string | string[]>;
+  params?: (ids: { patientId: string; incomingReferralId: string }) => Record<string, string | string[]>;
   /** Paths to send to (for a catch-all route); default: the pattern filled with params. */
   paths?: string[];
   /** Tables the route may write when it refuses, on purpose (e.g. a rate-limit counter). */
@@ -120,6 +120,22 @@ export const overrides: Record<string, BadInputOverride> = {
     persona: "admin",
     params: () => ({ userId: "no-such-user" }),
     noBody: "takes no body: the account is named in the path; a junk body must change nothing",
+  },
+  // Answering a referral is for the receiving team: the fixture's second referral goes to
+  // Harbourside, so the care-team clinician (Harbourside) answers it.
+  "POST /api/referrals/[referralId]/decline": {
+    persona: "careTeamClinician",
+    params: ({ incomingReferralId }) => ({ referralId: incomingReferralId }),
+  },
+  "POST /api/referrals/[referralId]/accept": {
+    persona: "careTeamClinician",
+    params: () => ({ referralId: "00000000-0000-4000-8000-000000000000" }),
+    noBody: "takes no body: the referral is named in the path; a junk body must change nothing",
+  },
+  "POST /api/patients/[patientId]/referrals/[referralId]/withdraw": {
+    persona: "careTeamClinician",
+    params: ({ patientId }) => ({ patientId, referralId: "00000000-0000-4000-8000-000000000000" }),
+    noBody: "takes no body: the referral is named in the path; a junk body must change nothing",
   },
   "POST /api/patients/[patientId]/uploads/[uploadId]/complete": {
     persona: "careTeamClinician",

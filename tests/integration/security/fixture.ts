@@ -4,7 +4,7 @@ import { randomUUID } from "node:crypto";
 import { eq } from "drizzle-orm";
 import { PNG } from "pngjs";
 import { db } from "@/db";
-import { caseloadItems, organisations, patients, uploads, user } from "@/db/schema";
+import { caseloadItems, organisations, patients, referrals, uploads, user } from "@/db/schema";
 import { putObject } from "@/lib/storage";
 import type { Fixture } from "./access-matrix";
 
@@ -25,6 +25,15 @@ export async function securityFixture(): Promise<Fixture> {
     .insert(caseloadItems)
     .values({ patientId: arthur.id, kind: "news2", level: "medium", summary: "Matrix fixture", reporter: { kind: "patient" }, dueAt: new Date(Date.now() + 3_600_000) })
     .returning({ id: caseloadItems.id });
+  const [rowan] = await db.select({ id: organisations.id }).from(organisations).where(eq(organisations.name, "Rowan Ward"));
+  const [referral] = await db
+    .insert(referrals)
+    .values({ patientId: arthur.id, fromOrganisationId: harbourside.id, toOrganisationId: rowan.id, referredByUserId: grace.id, handoverNote: "Matrix fixture referral", referrerStays: true })
+    .returning({ id: referrals.id });
+  const [incoming] = await db
+    .insert(referrals)
+    .values({ patientId: arthur.id, fromOrganisationId: rowan.id, toOrganisationId: harbourside.id, referredByUserId: priya.id, handoverNote: "Bad-input fixture referral", referrerStays: true })
+    .returning({ id: referrals.id });
   return {
     patientId: arthur.id,
     otherPatientId: yusuf.id,
@@ -34,5 +43,7 @@ export async function securityFixture(): Promise<Fixture> {
     adminUserId: admin.id,
     bystanderStaffUserId: priya.id,
     caseloadItemId: item.id,
+    referralId: referral.id,
+    incomingReferralId: incoming.id,
   };
 }

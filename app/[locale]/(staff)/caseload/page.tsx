@@ -3,6 +3,7 @@ import { getTranslations } from "next-intl/server";
 import { CaseloadView } from "@/components/caseload/caseload-view";
 import { CaseloadItemsPanel } from "@/components/caseload-items/caseload-items-panel";
 import { openItemsFor } from "@/lib/records/caseload-items";
+import { CaseloadReferrals } from "@/components/transfer/caseload-referrals";
 import { listCaseload } from "@/db/queries/caseload";
 import { getPlanDefaults } from "@/lib/config/settings";
 import { audit } from "@/lib/records/audit";
@@ -50,6 +51,7 @@ export default async function CaseloadPage({
         </Link>
       </div>
       <CaseloadItemsPanel items={items} />
+      <CaseloadReferrals organisationIds={viewer.organisationIds} />
       <CaseloadView initialQuery={query} initialData={data} />
     </div>
   );

@@ -1,5 +1,5 @@
 import { getCurrentPassport, getPassportOverview } from "@/db/queries/passports";
-import { requireRole, requireStaffPatientAccess } from "@/lib/auth/permissions";
+import { requireCareTeam, requireRole } from "@/lib/auth/permissions";
 import { AppError } from "@/lib/http/errors";
 import { handle, json } from "@/lib/http/handle";
 import { issuePassport } from "@/lib/passport";
@@ -26,7 +26,8 @@ export const GET = handle<Ctx>(async (request, { params }) => {
 export const POST = handle<Ctx>(async (request, { params }) => {
   const { patientId } = await params;
   const viewer = await requireRole(request, "clinician");
-  const via = await requireStaffPatientAccess(viewer, patientId);
+  // Only the care team: a clinician with visit access must not revoke the QR in the patient's booklet.
+  await requireCareTeam(viewer, patientId);
   const input = await parseJsonBody(request, passportIssueSchema);
   const current = await getCurrentPassport({ patientId });
   if (current && input.reissue !== true) {
@@ -37,7 +38,7 @@ export const POST = handle<Ctx>(async (request, { params }) => {
   const issued = await issuePassport({
     viewer,
     patientId,
-    via: via === "visit_access" ? "visit_access" : "care_team",
+    via: "care_team",
     request,
     withActivationCode: input.activationCode === true,
   });

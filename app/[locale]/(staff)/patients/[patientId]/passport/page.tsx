@@ -33,7 +33,8 @@ export default async function PassportTab({ params }: { params: Promise<{ locale
         languages={passportLanguages(record.patient.preferredLocale)}
         hasDevice={Boolean(record.currentEpisode)}
         canOfferActivation={canInvite}
-        readOnly={closed}
+        // Only the care team issues or reissues (the route refuses visit access too).
+        readOnly={closed || !isCareTeam(via)}
       />
       {canInvite ? <PortalInviteButton patientId={patientId} /> : null}
     </div>

@@ -3,12 +3,27 @@ import { getFormatter, getTranslations } from "next-intl/server";
 import { StatusBadge } from "@/components/letters/status-badge";
 import { SupplyRequestForm } from "@/components/supplies/supply-request-form";
 import { getSupplyContext, listSupplyRequests } from "@/db/queries/supply-requests";
+import { getLatestDischargeChecklist } from "@/db/queries/referrals";
 import { Link } from "@/lib/i18n/navigation";
+import { todayIso } from "@/lib/shared/time-zone";
+import { DEFAULT_SUPPLY_PERIOD, supplyPeriodChoices } from "@/lib/validations/supply-request";
 import { openRecordPage } from "@/lib/records/patient-record-page";
 
 export async function generateMetadata() {
   const t = await getTranslations("Supplies");
   return { title: t("title") };
+}
+
+/**
+ * Starting values from the discharge checklist: a valve instead of a leg bag, and before a
+ * planned trial without catheter only the period up to it (the longest choice that fits).
+ */
+function dischargeDefaults(c: Awaited<ReturnType<typeof getLatestDischargeChecklist>>) {
+  const today = Date.parse(`${todayIso()}T00:00:00Z`);
+  const untilTwoc = c?.plannedTwocOn ? Math.round((Date.parse(`${c.plannedTwocOn}T00:00:00Z`) - today) / 86_400_000) : null;
+  const period =
+    untilTwoc !== null && untilTwoc >= 0 ? ([...supplyPeriodChoices].reverse().find((d) => d <= untilTwoc) ?? supplyPeriodChoices[0]) : DEFAULT_SUPPLY_PERIOD;
+  return { initialPeriod: period, valve: c?.drainage === "valve" };
 }
 
 const items = ["catheter", "leg-bag", "night-bag", "valve", "gel"] as const;
@@ -26,6 +41,7 @@ export default async function SuppliesPage({ params }: { params: Promise<{ local
     getSupplyContext({ patientId }),
     listSupplyRequests({ patientId }),
   ]);
+  const checklist = await getLatestDischargeChecklist({ patientId });
   if (!ctx) notFound();
   const at = (iso: string) => format.dateTime(new Date(iso), { dateStyle: "medium", timeStyle: "short" });
   return (
@@ -58,6 +74,7 @@ export default async function SuppliesPage({ params }: { params: Promise<{ local
               changeIntervalDays={ctx.changeIntervalDays}
               gpName={ctx.gp?.name ?? null}
               gpHasInbox={Boolean(ctx.gp?.inboxEmail)}
+              {...dischargeDefaults(checklist)}
             />
           </>
         ) : (
