@@ -351,6 +351,8 @@ export async function seed({ quiet = false }: { quiet?: boolean } = {}) {
       .insert(settings)
       .values([
         { key: "emergencyNumber", value: "999" },
+        // Dates as written in the UK: 3 December 2026, 24-hour clock.
+        { key: "region", value: "GB" },
         { key: "outOfHoursServiceName", value: "Eastmere out-of-hours nursing line" },
         // Adult records: 8 years after the end of care (from memory of the NHS England records code of practice).
         { key: "retentionDays", value: 8 * 365 },

@@ -1,5 +1,6 @@
 "use client";
-import { useFormatter, useTranslations } from "next-intl";
+import { useTranslations } from "next-intl";
+import { useFormat } from "@/components/i18n/format";
 import type { FluidBalance } from "@/lib/clinical";
 
 /**
@@ -10,7 +11,7 @@ import type { FluidBalance } from "@/lib/clinical";
 export function WeekChart({ days }: { days: FluidBalance[] }) {
   const t = useTranslations("Diary.week");
   const tu = useTranslations("Diary");
-  const format = useFormatter();
+  const format = useFormat();
   const max = Math.max(1000, ...days.flatMap((d) => [d.inMl, d.outMl]));
   const w = 340;
   const h = 180;

@@ -2,7 +2,8 @@
 // Issuing the passport. The QR and the passport code come back once, in the answer to the
 // issue request; this component holds them only in memory and never stores them.
 import { useMutation } from "@tanstack/react-query";
-import { useFormatter, useTranslations } from "next-intl";
+import { useTranslations } from "next-intl";
+import { useFormat } from "@/components/i18n/format";
 import { useEffect, useRef, useState, useTransition } from "react";
 import { Button, buttonClass } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
@@ -61,7 +62,7 @@ export function PassportPanel({
   const t = useTranslations("Passport");
   const tc = useTranslations("Common");
   const tRecord = useTranslations("PatientRecord");
-  const format = useFormatter();
+  const format = useFormat();
   const router = useRouter();
   const [issued, setIssued] = useState<Issued | null>(null);
   const [confirming, setConfirming] = useState(false);

@@ -158,7 +158,7 @@ export type BookletRecord = {
   careTeams: { name: string; phone: string | null; outOfHoursPhone: string | null }[];
   gp: { name: string; phone: string | null; outOfHoursPhone: string | null } | null;
   /** Null when an admin has not set it: the booklet is then refused, never printed without it. */
-  settings: { emergencyNumber: string | null; outOfHoursServiceName: string | null };
+  settings: { emergencyNumber: string | null; outOfHoursServiceName: string | null; region: string | null };
 };
 
 export async function getBookletRecord({ patientId }: { patientId: string }, tx: Executor = db): Promise<BookletRecord | null> {
@@ -219,6 +219,6 @@ export async function getBookletRecord({ patientId }: { patientId: string }, tx:
     events: events.map((e) => ({ ...e, twocOutcome: e.twocOutcome ?? null })),
     careTeams: teams,
     gp: gpRows[0] ?? null,
-    settings: { emergencyNumber: deployment.emergencyNumber, outOfHoursServiceName: deployment.outOfHoursServiceName },
+    settings: { emergencyNumber: deployment.emergencyNumber, outOfHoursServiceName: deployment.outOfHoursServiceName, region: deployment.region },
   };
 }

@@ -10,6 +10,8 @@ import { settingKeys, settingSchemas, type SettingsPatch } from "@/lib/validatio
 export type DeploymentSettings = {
   /** Digits the portal shows and dials in an emergency; null when not configured. */
   emergencyNumber: string | null;
+  /** Two-letter region (GB) whose conventions dates and numbers follow; null: the language's own. */
+  region: string | null;
   /** The name of the out-of-hours service, e.g. shown beside a team's out-of-hours number. */
   outOfHoursServiceName: string | null;
   /** Starting values for lib/clinical `planDates`; null or missing means the rule's own default. */
@@ -36,6 +38,7 @@ export async function getSettings(tx?: Executor): Promise<DeploymentSettings> {
   const get = <K extends keyof typeof settingSchemas>(key: K) => (raw.has(key) ? parse(key, raw.get(key)) : null);
   return {
     emergencyNumber: get("emergencyNumber") as string | null,
+    region: get("region") as string | null,
     outOfHoursServiceName: get("outOfHoursServiceName") as string | null,
     reviewIntervalDays: get("reviewIntervalDays") as number | null,
     dueSoonDays: get("dueSoonDays") as number | null,
@@ -47,6 +50,11 @@ export async function getSettings(tx?: Executor): Promise<DeploymentSettings> {
 /** The emergency number to show patients, or null when not configured. */
 export async function getEmergencyNumber(tx?: Executor): Promise<string | null> {
   return (await getSettings(tx)).emergencyNumber;
+}
+
+/** The region dates and numbers are written for (lib/shared/formats), or null. */
+export async function getRegion(tx?: Executor): Promise<string | null> {
+  return (await getSettings(tx)).region;
 }
 
 /** Options for lib/clinical `planDates` from the deployment settings. */

@@ -3,6 +3,7 @@ import "server-only";
 // of the patient at once (in each organisation's language). Called inside the transaction that
 // stores the check-in or the observations, so the alert exists exactly when they do.
 import type { Executor } from "@/db";
+import { getRegion } from "@/lib/config/settings";
 import { getActiveEpisode, getCareTeamOrganisations, getPatientForMail } from "@/db/queries/mail-context";
 import { env } from "@/lib/config/env";
 import { emailDates, emailLocale, emailTranslator, emailVocabulary } from "./i18n";
@@ -41,9 +42,10 @@ function alertContent(
   input: CareTeamAlertInput & { level: AlertLevel },
   ctx: { patientName: string; hrn: string; dateOfBirth: string; phone: string | null; device: string | null; plannedChangeOn: string | null; teamName: string },
   locale: string,
+  region: string | null,
 ): EmailContent {
   const t = emailTranslator(locale);
-  const d = emailDates(locale);
+  const d = emailDates(locale, region);
   const levelWord = t(`enum.alertLevel.${input.level}`);
   const severe = input.level === "emergency" || input.level === "high";
   const rows = [
@@ -87,6 +89,7 @@ export async function queueCareTeamAlert(tx: Executor, input: CareTeamAlertInput
     getCareTeamOrganisations({ patientId: input.patientId }, tx),
     getActiveEpisode({ patientId: input.patientId }, tx),
   ]);
+  const region = await getRegion(tx);
   const out: QueuedMessage[] = [];
   // No care team at all: keep a failed row so the gap is visible rather than silent.
   const targets = teams.length
@@ -110,6 +113,7 @@ export async function queueCareTeamAlert(tx: Executor, input: CareTeamAlertInput
         teamName: team.name,
       },
       locale,
+      region,
     );
     out.push(
       await queueMessage(tx, {

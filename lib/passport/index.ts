@@ -109,6 +109,7 @@ export function bookletData({
   }
   return {
     locales: passportLanguages(record.patient.preferredLocale),
+    region: record.settings.region,
     url,
     shortCode,
     qrPngDataUrl: qr,

@@ -11,8 +11,12 @@ export const emergencyNumberSchema = z.string().trim().regex(/^[0-9]{2,6}$/, { m
 
 const days = (min: number, max: number) => z.preprocess(toNumber, numberIn({ min, max, unit: "days", whole: true, missing: "whole_days" }));
 
+/** ISO 3166 two-letter region whose conventions dates and numbers follow (GB: 3 December, 24-hour). */
+export const regionSchema = z.string().trim().toUpperCase().regex(/^[A-Z]{2}$/, { message: "region_code" });
+
 export const settingSchemas = {
   emergencyNumber: emergencyNumberSchema,
+  region: regionSchema,
   outOfHoursServiceName: singleLine(z.string().trim().min(2, { message: "name_length" }).max(120, { message: "name_length" })),
   reviewIntervalDays: days(1, 365),
   dueSoonDays: days(0, 60),
@@ -27,6 +31,7 @@ export const settingKeys = Object.keys(settingSchemas) as SettingKey[];
 export const settingsPatchSchema = z
   .object({
     emergencyNumber: settingSchemas.emergencyNumber.nullable(),
+    region: settingSchemas.region.nullable(),
     outOfHoursServiceName: settingSchemas.outOfHoursServiceName.nullable(),
     reviewIntervalDays: settingSchemas.reviewIntervalDays.nullable(),
     dueSoonDays: settingSchemas.dueSoonDays.nullable(),

@@ -12,7 +12,7 @@ import { GET as caseloadGet } from "@/app/api/caseload/route";
 import { POST as postInsertion } from "@/app/api/patients/[patientId]/episodes/route";
 import { POST as createPatient } from "@/app/api/patients/route";
 import { addDays } from "@/lib/clinical";
-import { getEmergencyNumber } from "@/lib/config/settings";
+import { getEmergencyNumber, getRegion } from "@/lib/config/settings";
 import { dayIn, deploymentTimeZone } from "@/lib/shared/time-zone";
 import { clinicianInNewTeam, demoDevice } from "../support/fixtures";
 import { call, demo, sessionFor, signIn } from "../support/http";
@@ -217,5 +217,17 @@ describe("deployment settings", () => {
       expect((await call(settingsPatch, "/api/admin/settings", { method: "PATCH", cookie, body: { emergencyNumber: "111" } })).status).toBe(403);
     }
     expect(await getEmergencyNumber()).toBe("999");
+  });
+
+  it("the region for dates is a setting: a two-letter code, kept upper-case; anything else is refused and changes nothing", async () => {
+    const bad = await call(settingsPatch, "/api/admin/settings", { method: "PATCH", cookie: admin, body: { region: "GBR" } });
+    expect(bad.status).toBe(400);
+    expect((await bad.json()).error.fields.region).toEqual(["region_code"]);
+    expect(await getRegion()).toBe("GB");
+    const ok = await call(settingsPatch, "/api/admin/settings", { method: "PATCH", cookie: admin, body: { region: "ie" } });
+    expect(ok.status).toBe(200);
+    expect(await getRegion()).toBe("IE");
+    await call(settingsPatch, "/api/admin/settings", { method: "PATCH", cookie: admin, body: { region: "GB" } });
+    expect(await getRegion()).toBe("GB");
   });
 });

@@ -151,6 +151,7 @@ describe("passport booklet (PDF)", () => {
     }));
     const pdf = await renderPassportPdf({
       locales: ["pl", "en"],
+      region: "GB",
       url,
       shortCode: "ABCD-EFGH-JKMN",
       qrPngDataUrl: await qrPngDataUrl(url),

@@ -3,13 +3,14 @@ import type { ReactNode } from "react";
 import { ClientMessages } from "@/components/i18n/client-messages";
 import { PortalShell } from "@/components/layout/portal-shell";
 import { requirePageRole } from "@/lib/auth/permissions";
+import { requestRegion } from "@/lib/i18n/format";
 
 export default async function PortalLayout({ children, params }: { children: ReactNode; params: Promise<{ locale: string }> }) {
   const { locale } = await params;
   setRequestLocale(locale as "en");
   await requirePageRole(locale, "patient", "carer");
   return (
-    <ClientMessages scope="portal">
+    <ClientMessages scope="portal" region={await requestRegion()}>
       <PortalShell>{children}</PortalShell>
     </ClientMessages>
   );

@@ -14,7 +14,7 @@ import type { PassportBookletData } from "./types";
 export type { PassportBookletData } from "./types";
 
 export function PassportBooklet({ data }: { data: PassportBookletData }) {
-  const all = data.locales.map((l) => pdfStrings(l));
+  const all = data.locales.map((l) => pdfStrings(l, data.region));
   return (
     <Document
       title={all.map((s) => s.t("documentTitle")).join(" / ")}

@@ -43,6 +43,8 @@ type BookletContact = { name: string; phone: string | null; outOfHoursPhone: str
 export type PassportBookletData = {
   /** [patient's language, "en"], or ["en"] alone. */
   locales: string[];
+  /** The deployment's region for dates and numbers (Settings), or null. */
+  region: string | null;
   url: string;
   shortCode: string;
   qrPngDataUrl: string;

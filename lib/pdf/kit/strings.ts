@@ -4,12 +4,12 @@ import { catalogueLocale, formatterFor, translatorFor } from "@/lib/i18n/catalog
 import { directionOf } from "@/lib/i18n/routing";
 
 /** The PassportPdf translator, formatter and writing direction for one locale. */
-export function pdfStrings(locale: string) {
+export function pdfStrings(locale: string, region: string | null) {
   const l = catalogueLocale(locale);
   const t = translatorFor(l, "PassportPdf");
   /** The record's words (routes, materials, reasons…), from the one Vocabulary namespace. */
   const v = translatorFor(l, "Vocabulary");
-  const format = formatterFor(l);
+  const format = formatterFor(l, region);
   const rtl = directionOf(l) === "rtl";
   /** Date-only values (YYYY-MM-DD) are calendar days: format them at noon UTC so no zone shifts them. */
   const day = (iso: string | null | undefined) =>

@@ -1,4 +1,5 @@
-import { getFormatter, getTranslations } from "next-intl/server";
+import { getTranslations } from "next-intl/server";
+import { getFormat } from "@/lib/i18n/format";
 import { Card } from "@/components/ui/card";
 import { getPatientHistory, type HistoryEpisode, type HistoryEvent } from "@/db/queries/history";
 import { openRecordPage } from "@/lib/records/patient-record-page";
@@ -14,7 +15,7 @@ export default async function HistoryTab({ params }: { params: Promise<{ locale:
   const history = await getPatientHistory({ patientId });
   const t = await getTranslations("PatientHistory");
   const vocab = await getTranslations("Vocabulary");
-  const format = await getFormatter();
+  const format = await getFormat();
   const dateTime = (iso: string) => format.dateTime(new Date(iso), { dateStyle: "medium", timeStyle: "short" });
   const date = (iso: string) => format.dateTime(new Date(`${iso}T12:00:00Z`), { dateStyle: "medium" });
   const b = history.blockage;
