@@ -3,6 +3,7 @@ import type { ReactNode } from "react";
 import { LifebuoyIcon } from "@/components/portal/nav-icons";
 import { OutboxSync } from "@/components/portal/outbox-sync";
 import { ServiceWorkerRegister } from "@/components/portal/service-worker-register";
+import { PatientTranslationNote } from "@/components/translation/translation-status";
 import { Wordmark } from "@/components/ui/logo";
 import { Link } from "@/lib/i18n/navigation";
 import { PortalNav } from "./portal-nav";
@@ -33,6 +34,7 @@ export async function PortalShell({ children }: { children: ReactNode }) {
       <main id="main" className="mx-auto w-full max-w-xl flex-1 px-4 pb-36 pt-5 max-[22em]:px-2 max-[22em]:pb-8">
         <OutboxSync />
         {children}
+        <PatientTranslationNote />
       </main>
       <PortalNav />
       <ServiceWorkerRegister />

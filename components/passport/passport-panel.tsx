@@ -4,7 +4,7 @@
 import { useMutation } from "@tanstack/react-query";
 import { useTranslations } from "next-intl";
 import { useFormat } from "@/components/i18n/format";
-import { useEffect, useRef, useState, useTransition } from "react";
+import { useEffect, useRef, useState, useTransition, type ReactNode } from "react";
 import { Button, buttonClass } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
 import { ErrorAlert } from "@/components/ui/notice";
@@ -49,6 +49,7 @@ export function PassportPanel({
   hasDevice,
   canOfferActivation,
   readOnly = false,
+  translationStatus = null,
 }: {
   patientId: string;
   overview: PassportOverview;
@@ -58,6 +59,8 @@ export function PassportPanel({
   canOfferActivation: boolean;
   /** A closed record: its passport history is shown, nothing can be issued. */
   readOnly?: boolean;
+  /** Whether each translated language's texts were reviewed (rendered on the server). */
+  translationStatus?: ReactNode;
 }) {
   const t = useTranslations("Passport");
   const tc = useTranslations("Common");
@@ -310,7 +313,7 @@ export function PassportPanel({
         </section>
       ) : null}
 
-      <p className="text-sm text-ink-soft">{t("translationNote")}</p>
+      {translationStatus}
     </div>
   );
 }

@@ -16,6 +16,7 @@ import {
   type Passport,
 } from "@/db/schema";
 import type { TwocOutcome } from "@/lib/clinical";
+import type { TranslationReview } from "@/lib/validations/settings";
 
 export type PassportSummary = {
   id: string;
@@ -158,7 +159,7 @@ export type BookletRecord = {
   careTeams: { name: string; phone: string | null; outOfHoursPhone: string | null }[];
   gp: { name: string; phone: string | null; outOfHoursPhone: string | null } | null;
   /** Null when an admin has not set it: the booklet is then refused, never printed without it. */
-  settings: { emergencyNumber: string | null; outOfHoursServiceName: string | null; region: string | null };
+  settings: { emergencyNumber: string | null; outOfHoursServiceName: string | null; region: string | null; translationReviews: Partial<Record<string, TranslationReview>> };
 };
 
 export async function getBookletRecord({ patientId }: { patientId: string }, tx: Executor = db): Promise<BookletRecord | null> {
@@ -219,6 +220,6 @@ export async function getBookletRecord({ patientId }: { patientId: string }, tx:
     events: events.map((e) => ({ ...e, twocOutcome: e.twocOutcome ?? null })),
     careTeams: teams,
     gp: gpRows[0] ?? null,
-    settings: { emergencyNumber: deployment.emergencyNumber, outOfHoursServiceName: deployment.outOfHoursServiceName, region: deployment.region },
+    settings: { emergencyNumber: deployment.emergencyNumber, outOfHoursServiceName: deployment.outOfHoursServiceName, region: deployment.region, translationReviews: deployment.translationReviews },
   };
 }

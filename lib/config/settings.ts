@@ -5,7 +5,7 @@ import "server-only";
 import type { Executor } from "@/db";
 import { readSettingRows, writeSettings } from "@/db/queries/settings";
 import { planDefaults, type Material, type PlanDatesOptions, type PlanDefaults } from "@/lib/clinical";
-import { settingKeys, settingSchemas, type SettingsPatch } from "@/lib/validations/settings";
+import { settingKeys, settingSchemas, type SettingsPatch, type TranslatedLocale, type TranslationReview } from "@/lib/validations/settings";
 
 export type DeploymentSettings = {
   /** Digits the portal shows and dials in an emergency; null when not configured. */
@@ -20,6 +20,8 @@ export type DeploymentSettings = {
   defaultMaxDwellDays: Partial<Record<Material, number>>;
   /** Days a closed record is kept, read-only, before the retention job removes it; null keeps it. */
   retentionDays: number | null;
+  /** Per translated language, who reviewed its patient texts and when; a missing language is not reviewed. */
+  translationReviews: Partial<Record<TranslatedLocale, TranslationReview>>;
 };
 
 function parse<K extends keyof typeof settingSchemas>(key: K, value: unknown) {
@@ -44,6 +46,7 @@ export async function getSettings(tx?: Executor): Promise<DeploymentSettings> {
     dueSoonDays: get("dueSoonDays") as number | null,
     defaultMaxDwellDays: (get("defaultMaxDwellDays") as Partial<Record<Material, number>> | null) ?? {},
     retentionDays: get("retentionDays") as number | null,
+    translationReviews: (get("translationReviews") as Partial<Record<TranslatedLocale, TranslationReview>> | null) ?? {},
   };
 }
 
@@ -55,6 +58,12 @@ export async function getEmergencyNumber(tx?: Executor): Promise<string | null> 
 /** The region dates and numbers are written for (lib/shared/formats), or null. */
 export async function getRegion(tx?: Executor): Promise<string | null> {
   return (await getSettings(tx)).region;
+}
+
+/** The medical translator's review of a language's patient texts, or null (not reviewed; English is the source). */
+export async function getTranslationReview(locale: string, tx?: Executor): Promise<TranslationReview | null> {
+  const reviews = (await getSettings(tx)).translationReviews;
+  return (reviews as Record<string, TranslationReview | undefined>)[locale] ?? null;
 }
 
 /** Options for lib/clinical `planDates` from the deployment settings. */

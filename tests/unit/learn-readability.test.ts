@@ -54,7 +54,7 @@ describe("Learn pages", () => {
       expect(page.title.length, `${locale} ${p.key}`).toBeGreaterThan(0);
       expect(page.sections.map((s) => s.points.length)).toEqual(en.pages[p.key].sections.map((s: LearnSection) => s.points.length));
     }
-    // The translation mark is shown on every non-English page (the page component renders it).
-    expect(load(locale).Learn.translationNote.length).toBeGreaterThan(20);
+    // The foot of every translated patient page says whether a medical translator reviewed it.
+    expect(load(locale).TranslationReview.notReviewedFooter.length).toBeGreaterThan(20);
   });
 });

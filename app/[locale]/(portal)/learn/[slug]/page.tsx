@@ -32,11 +32,6 @@ export default async function LearnPage({ params }: { params: Promise<{ locale: 
         {t("back")}
       </Link>
       <h1 className="text-3xl font-bold">{t(`pages.${page.key}.title`)}</h1>
-      {locale !== "en" ? (
-        <p className="rounded-lg border-2 border-level-soon bg-level-soon-soft p-3 font-bold text-level-soon-ink" data-testid="translation-note">
-          {t("translationNote")}
-        </p>
-      ) : null}
       <p className="text-xl">{t(`pages.${page.key}.summary`)}</p>
       {sections.map((s) => (
         <section key={s.heading} className="flex flex-col gap-2">

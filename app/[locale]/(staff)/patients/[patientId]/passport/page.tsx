@@ -1,6 +1,7 @@
 import { notFound } from "next/navigation";
 import { getTranslations } from "next-intl/server";
 import { PassportPanel } from "@/components/passport/passport-panel";
+import { StaffTranslationStatus } from "@/components/translation/translation-status";
 import { PortalInviteButton } from "@/components/portal-invite/portal-invite-button";
 import { getPatientForInvite } from "@/db/queries/invitations";
 import { getPassportOverview } from "@/db/queries/passports";
@@ -34,6 +35,7 @@ export default async function PassportTab({ params }: { params: Promise<{ locale
         hasDevice={Boolean(record.currentEpisode)}
         canOfferActivation={canInvite}
         readOnly={closed}
+        translationStatus={<StaffTranslationStatus locales={passportLanguages(record.patient.preferredLocale)} />}
       />
       {canInvite ? <PortalInviteButton patientId={patientId} /> : null}
     </div>
