@@ -1,10 +1,12 @@
 import { getTranslations } from "next-intl/server";
 import type { ReactNode } from "react";
+import { ListenControl } from "@/components/portal/listen";
 import { LifebuoyIcon } from "@/components/portal/nav-icons";
 import { OutboxSync } from "@/components/portal/outbox-sync";
 import { ServiceWorkerRegister } from "@/components/portal/service-worker-register";
 import { PatientTranslationNote } from "@/components/translation/translation-status";
 import { Wordmark } from "@/components/ui/logo";
+import { getEmergencyNumber } from "@/lib/config/settings";
 import { Link } from "@/lib/i18n/navigation";
 import { PortalNav } from "./portal-nav";
 
@@ -12,7 +14,7 @@ import { PortalNav } from "./portal-nav";
 export async function PortalShell({ children }: { children: ReactNode }) {
   const t = await getTranslations("Portal");
   return (
-    <div className="flex min-h-dvh flex-col text-body hyphens-auto [overflow-wrap:anywhere] max-[22em]:[&_.rounded-card]:p-3">
+    <div className="flex min-h-dvh flex-col text-body [overflow-wrap:break-word] max-[22em]:[&_.rounded-card]:p-3">
       <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:start-2 focus:top-2 focus:z-20 focus:bg-paper-raised focus:p-3">
         {t("skip")}
       </a>
@@ -23,7 +25,7 @@ export async function PortalShell({ children }: { children: ReactNode }) {
           </Link>
           <Link
             href="/help"
-            className="flex min-h-12 items-center gap-2 rounded-lg border-2 border-level-emergency bg-level-emergency-soft px-4 font-bold text-level-emergency-ink"
+            className="flex min-h-12 flex-wrap items-center gap-2 rounded-lg border-2 border-level-emergency bg-level-emergency-soft px-4 font-bold text-level-emergency-ink"
             data-testid="get-help"
           >
             <LifebuoyIcon />
@@ -33,6 +35,7 @@ export async function PortalShell({ children }: { children: ReactNode }) {
       </header>
       <main id="main" className="mx-auto w-full max-w-xl flex-1 px-4 pb-36 pt-5 max-[22em]:px-2 max-[22em]:pb-8">
         <OutboxSync />
+        <ListenControl emergencyNumber={await getEmergencyNumber()} />
         {children}
         <PatientTranslationNote />
       </main>

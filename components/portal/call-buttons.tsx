@@ -25,7 +25,8 @@ export function isolate(text: string) {
 }
 
 /**
- * The numbers to call as big tel: buttons. The emergency number comes from the deployment's
+ * The numbers to call as big tel: buttons. In large text the words wrap and the number (one
+ * piece, never split) goes under the phone mark rather than break. The emergency number comes from the deployment's
  * settings; when it is missing we say so rather than guess one.
  */
 export function CallButtons({ contacts, emergencyFirst = true, showEmergency = true }: { contacts: Contacts; emergencyFirst?: boolean; showEmergency?: boolean }) {
@@ -34,7 +35,7 @@ export function CallButtons({ contacts, emergencyFirst = true, showEmergency = t
     <a
       key="emergency"
       href={telHref(contacts.emergencyNumber)}
-      className="flex min-h-14 items-center gap-3 rounded-lg bg-level-emergency px-4 py-2 text-lg font-bold text-white"
+      className="flex min-h-14 flex-wrap items-center gap-x-3 gap-y-1 rounded-lg bg-level-emergency px-4 py-2 text-lg font-bold text-white"
       data-testid="call-emergency"
     >
       <PhoneIcon className="h-7 w-7 shrink-0" />
@@ -47,13 +48,13 @@ export function CallButtons({ contacts, emergencyFirst = true, showEmergency = t
   );
   const team = contacts.team.flatMap((o) => [
     o.phone ? (
-      <a key={`${o.name}-day`} href={telHref(o.phone)} className="flex min-h-14 items-center gap-3 rounded-lg border-2 border-brand bg-paper-raised px-4 py-2 font-bold text-brand" data-testid="call-team">
+      <a key={`${o.name}-day`} href={telHref(o.phone)} className="flex min-h-14 flex-wrap items-center gap-x-3 gap-y-1 rounded-lg border-2 border-brand bg-paper-raised px-4 py-2 font-bold text-brand" data-testid="call-team">
         <PhoneIcon className="h-7 w-7 shrink-0" />
         <span>{t("team", { team: isolate(o.name), number: ltr(o.phone) })}</span>
       </a>
     ) : null,
     o.outOfHoursPhone ? (
-      <a key={`${o.name}-ooh`} href={telHref(o.outOfHoursPhone)} className="flex min-h-14 items-center gap-3 rounded-lg border-2 border-brand bg-paper-raised px-4 py-2 font-bold text-brand">
+      <a key={`${o.name}-ooh`} href={telHref(o.outOfHoursPhone)} className="flex min-h-14 flex-wrap items-center gap-x-3 gap-y-1 rounded-lg border-2 border-brand bg-paper-raised px-4 py-2 font-bold text-brand">
         <PhoneIcon className="h-7 w-7 shrink-0" />
         <span>{t("outOfHours", { number: ltr(o.outOfHoursPhone) })}</span>
       </a>

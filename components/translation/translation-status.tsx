@@ -17,7 +17,7 @@ export async function PatientTranslationNote() {
   const [t, format, settings] = await Promise.all([getTranslations("TranslationReview"), getFormat(), getSettings()]);
   const review = (settings.translationReviews as Record<string, TranslationReview | undefined>)[locale];
   return (
-    <p className="mt-10 border-t border-stone-faint pt-3 text-sm text-ink-soft" data-testid="translation-note" data-reviewed={review ? "yes" : "no"}>
+    <p className="mt-10 border-t border-stone-faint pt-3 text-sm text-ink-soft" data-listen="skip" data-testid="translation-note" data-reviewed={review ? "yes" : "no"}>
       {review ? t("reviewedFooter", { date: reviewDay(format, review) }) : t("notReviewedFooter")}
     </p>
   );

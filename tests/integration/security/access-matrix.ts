@@ -77,6 +77,8 @@ export const matrix: Row[] = [
   { route: "GET /api/caseload", expect: clinicianOnly },
   { route: "GET /api/admin/organisations", expect: adminOnly },
   { route: "GET /api/portal/today", expect: portalOnly },
+  // Listen: speech for a sentence of a portal page, patients and carers only (tests/integration/speech.test.ts).
+  { route: "GET /api/speech", query: "lang=en&text=Drink%20water.", expect: portalOnly },
   // Portal (patients and carers); the data-level cases (other patient 404, revoked carer 404)
   // are in tests/integration/portal-api.test.ts, which sends real bodies.
   { route: "POST /api/check-ins", expect: portalOnly },
