@@ -7,14 +7,20 @@ import { ServiceWorkerRegister } from "@/components/portal/service-worker-regist
 import { PatientTranslationNote } from "@/components/translation/translation-status";
 import { Wordmark } from "@/components/ui/logo";
 import { getEmergencyNumber } from "@/lib/config/settings";
+import type { ReadingComfort } from "@/lib/validations/reading";
 import { Link } from "@/lib/i18n/navigation";
 import { PortalNav } from "./portal-nav";
 
 /** Patient and carer pages: phone first, one column, large type, "Get help" always one tap away. */
-export async function PortalShell({ children }: { children: ReactNode }) {
+export async function PortalShell({ children, reading }: { children: ReactNode; reading: ReadingComfort }) {
   const t = await getTranslations("Portal");
   return (
-    <div className="flex min-h-dvh flex-col text-body [overflow-wrap:break-word] max-[22em]:[&_.rounded-card]:p-3">
+    // The person's reading comfort: app/globals.css scales the page and strengthens the colours from these.
+    <div
+      className="flex min-h-dvh flex-col text-body [overflow-wrap:break-word] max-[22em]:[&_.rounded-card]:p-3"
+      data-text-size={reading.textSize}
+      data-contrast={reading.contrast}
+    >
       <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:start-2 focus:top-2 focus:z-20 focus:bg-paper-raised focus:p-3">
         {t("skip")}
       </a>

@@ -15,8 +15,8 @@ export function telHref(phone: string) {
  * "01632 960 210" is not shown as "210 960 01632" in Arabic or Urdu.
  */
 export function ltr(text: string) {
-  // No-break spaces: the number wraps as one piece when the text is large.
-  return `\u2066${text.replace(/ /g, "\u00a0")}\u2069`;
+  // In large text the number may wrap between its groups ("01632 960" / "101"), never inside one.
+  return `\u2066${text}\u2069`;
 }
 
 /** A name in its own direction (first strong character) inside the other language's text. */

@@ -18,6 +18,17 @@ afterAll(async () => {
   await closeDatabase();
 });
 
+/** Everything past the right edge, zero-sized boxes too (for the failure message). */
+function sticksOut(page: Page) {
+  return page.evaluate(() =>
+    Array.from(document.querySelectorAll<HTMLElement>("body *"))
+      .filter((el) => el.getBoundingClientRect().right > document.documentElement.clientWidth + 1 || el.getBoundingClientRect().left < -1)
+      .slice(-4)
+      .map((el) => `${el.tagName.toLowerCase()}.${String(el.className).slice(0, 60)} "${(el.textContent ?? "").trim().slice(0, 30)}"`)
+      .join(" | "),
+  );
+}
+
 const NARROW = { ...PHONE, viewport: { width: 320, height: 640 } };
 const pages = ["/today", "/check-in", "/diary", "/my-catheter", "/help", "/people", "/more", "/learn", "/learn/when-to-get-help"];
 const MONTHS = "January|February|March|April|May|June|July|August|September|October|November|December";
@@ -45,7 +56,7 @@ for (const locale of ["en", "ar"] as const) {
       it(`${path}: nothing sideways, no word or number broken inside itself`, async () => {
         await page.goto(`/${locale}${path}`);
         await settle(page, path);
-        expect(await overflowProblems(page), `${locale}${path}`).toEqual([]);
+        expect(await overflowProblems(page), `${locale}${path}: ${await sticksOut(page)}`).toEqual([]);
         expect(await brokenWords(page), `${locale}${path}`).toEqual([]);
         await screenshotAtTextSize(page, `reading${path.replace(/\//g, "-")}-${locale}-320-200`, 200);
         await page.setViewportSize(NARROW.viewport); // the screenshot helper leaves the phone's 390 px
@@ -158,6 +169,55 @@ for (const locale of ["en", "ar"] as const) {
   });
 }
 
+for (const locale of ["en", "ar"] as const) {
+  describe(`${locale}: easier reading, kept for the person`, () => {
+    it("each text size step lays out at 320 px with nothing sideways and no word broken; stronger contrast; the check-in too; remembered on another phone", async () => {
+      const who = locale === "en" ? demo.patient : demo.patientAr;
+      const page = await newPage(browser, NARROW);
+      await signInAs(page, who.email, who.password, locale);
+      const rootPx = () => page.evaluate(() => parseFloat(getComputedStyle(document.documentElement).fontSize));
+      const sizes: number[] = [];
+      for (const step of [0, 1, 2, 3]) {
+        await page.goto(`/${locale}/more`);
+        const saved = page.waitForResponse((r) => r.url().endsWith("/api/account/reading") && r.request().method() === "PUT");
+        await page.locator(`[data-text-step="${step}"]`).click();
+        expect((await saved).status()).toBe(200);
+        for (const path of ["/today", "/check-in", "/learn/leg-and-night-bags", "/more"]) {
+          await page.goto(`/${locale}${path}`);
+          await settle(page, path);
+          expect(await page.locator("[data-text-size]").getAttribute("data-text-size")).toBe(String(step));
+          expect(await overflowProblems(page), `${locale}${path} step ${step}: ${await sticksOut(page)}`).toEqual([]);
+          expect(await brokenWords(page), `${locale}${path} step ${step}`).toEqual([]);
+          if (path === "/today") sizes.push(await rootPx());
+          if (path === "/today" || path === "/check-in") await screenshot(page, `reading-size${step}${path.replace(/\//g, "-")}-${locale}-320`);
+        }
+      }
+      // Each step larger than the one before; the largest twice the first.
+      for (let i = 1; i < sizes.length; i++) expect(sizes[i]).toBeGreaterThan(sizes[i - 1]);
+      expect(sizes[3] / sizes[0]).toBeCloseTo(2, 1);
+
+      await page.goto(`/${locale}/more`);
+      await page.locator('[data-contrast-choice="high"]').click();
+      await page.waitForFunction(() => document.querySelector("[data-contrast]")?.getAttribute("data-contrast") === "high");
+      await page.goto(`/${locale}/today`);
+      expect(await page.evaluate(() => getComputedStyle(document.body).color)).toBe("rgb(0, 0, 0)");
+      await screenshot(page, `reading-contrast-today-${locale}-320`);
+
+      // Another phone, the same person: the same choice.
+      const other = await newPage(browser, PHONE);
+      await signInAs(other, who.email, who.password, locale);
+      await other.goto(`/${locale}/today`);
+      expect(await other.locator("[data-text-size]").getAttribute("data-text-size")).toBe("3");
+      expect(await other.locator("[data-contrast]").getAttribute("data-contrast")).toBe("high");
+      // Back to the usual for the other tests.
+      const reset = await other.request.put("/api/account/reading", { data: { textSize: 0, contrast: "standard" }, headers: { origin: new URL(other.url()).origin } });
+      expect(reset.status()).toBe(200);
+      await other.context().close();
+      await page.context().close();
+    });
+  });
+}
+
 describe("dates in the deployment's region", () => {
   it("English in this deployment reads day month year (Settings region GB)", async () => {
     const page = await newPage(browser, PHONE);
@@ -202,7 +262,7 @@ describe("right to left details", () => {
     const face = (variable: string) =>
       page.evaluate((v) => {
         const family = getComputedStyle(document.documentElement).getPropertyValue(v).split(",")[0].trim().replace(/^['"]|['"]$/g, "");
-        return { family, loaded: Array.from(document.fonts).some((f) => f.family.replace(/^['"]|['"]$/g, "") === family && f.status === "loaded") };
+        return document.fonts.load(`16px "${family}"`, "اردو عربي").then((faces) => ({ family, loaded: faces.length > 0 }));
       }, variable);
     const nastaliq = await face("--font-nastaliq");
     expect((await face("--font-arabic")).family).toBe(nastaliq.family);

@@ -68,6 +68,9 @@ export const matrix: Row[] = [
   { route: "GET /api/me", expect: anyoneSignedIn },
   // A person's own sessions (tests/integration/sessions.test.ts: another person's session is 404).
   { route: "GET /api/account/sessions", expect: anyoneSignedIn },
+  // Easier reading: a patient's or carer's own text size and contrast (tests/integration/reading-comfort.test.ts).
+  { route: "GET /api/account/reading", expect: portalOnly },
+  { route: "PUT /api/account/reading", expect: portalOnly },
   { route: "DELETE /api/account/sessions", expect: anyoneSignedIn },
   {
     route: "DELETE /api/account/sessions/[sessionId]",
