@@ -64,12 +64,6 @@ export function CheckInResult({ patientId, route, answers, idempotencyKey, conta
             <li key={a.key}>{t.has(`advice.${a.key}` as never) ? t(`advice.${a.key}` as never) : a.text}</li>
           ))}
         </ul>
-        {result.advice
-          .flatMap((a) => (ADVICE_PICTURES[a.key] ? [ADVICE_PICTURES[a.key]!] : []))
-          .slice(0, 2)
-          .map((name) => (
-            <Picture key={name} name={name} alt={tp(name)} />
-          ))}
       </div>
 
       <div className="flex flex-col gap-3">
@@ -89,6 +83,13 @@ export function CheckInResult({ patientId, route, answers, idempotencyKey, conta
       ) : (
         <p>{t("result.noProblems")}</p>
       )}
+      {/* The drawings come after who to call: in an emergency nothing stands before the numbers. */}
+      {level !== "emergency"
+        ? result.advice
+            .flatMap((a) => (ADVICE_PICTURES[a.key] ? [ADVICE_PICTURES[a.key]!] : []))
+            .slice(0, 2)
+            .map((name) => <Picture key={name} name={name} alt={tp(name)} />)
+        : null}
 
       <Link href="/today" className="flex min-h-14 items-center justify-center rounded-lg bg-brand px-4 text-xl font-bold text-white">
         {t("result.done")}

@@ -205,7 +205,7 @@ export function DiaryView({ patientId, weightKg, fluidLimitMl }: { patientId: st
           </h2>
           <ul className="flex flex-col gap-2">
             {todays.map((e) => (
-              <li key={e.id} className="flex items-center justify-between gap-3 rounded-lg border border-stone-faint bg-paper-raised p-3">
+              <li key={e.id} className="flex flex-wrap items-center justify-between gap-3 rounded-lg border border-stone-faint bg-paper-raised p-3">
                 <span className="tabular">
                   <span className="font-bold">{time(e.at)}</span> · {t(e.kind === "in" ? "drinkEntry" : "bagEntry", { ml: e.volumeMl })}
                   {e.waiting ? (

@@ -39,7 +39,7 @@ export function CallButtons({ contacts, emergencyFirst = true, showEmergency = t
       data-testid="call-emergency"
     >
       <PhoneIcon className="h-7 w-7 shrink-0" />
-      <span>{t("emergency", { number: ltr(contacts.emergencyNumber) })}</span>
+      <span className="flex-1 basis-48">{t("emergency", { number: ltr(contacts.emergencyNumber) })}</span>
     </a>
   ) : (
     <p key="emergency" className="rounded-lg border-2 border-level-emergency bg-level-emergency-soft p-3 font-bold text-level-emergency-ink" data-testid="emergency-not-configured">
@@ -50,13 +50,13 @@ export function CallButtons({ contacts, emergencyFirst = true, showEmergency = t
     o.phone ? (
       <a key={`${o.name}-day`} href={telHref(o.phone)} className="flex min-h-14 flex-wrap items-center gap-x-3 gap-y-1 rounded-lg border-2 border-brand bg-paper-raised px-4 py-2 font-bold text-brand" data-testid="call-team">
         <PhoneIcon className="h-7 w-7 shrink-0" />
-        <span>{t("team", { team: isolate(o.name), number: ltr(o.phone) })}</span>
+        <span className="flex-1 basis-48">{t("team", { team: isolate(o.name), number: ltr(o.phone) })}</span>
       </a>
     ) : null,
     o.outOfHoursPhone ? (
       <a key={`${o.name}-ooh`} href={telHref(o.outOfHoursPhone)} className="flex min-h-14 flex-wrap items-center gap-x-3 gap-y-1 rounded-lg border-2 border-brand bg-paper-raised px-4 py-2 font-bold text-brand">
         <PhoneIcon className="h-7 w-7 shrink-0" />
-        <span>{t("outOfHours", { number: ltr(o.outOfHoursPhone) })}</span>
+        <span className="flex-1 basis-48">{t("outOfHours", { number: ltr(o.outOfHoursPhone) })}</span>
       </a>
     ) : null,
   ]);

@@ -23,7 +23,10 @@ function sticksOut(page: Page) {
   return page.evaluate(() =>
     Array.from(document.querySelectorAll<HTMLElement>("body *"))
       .filter((el) => el.getBoundingClientRect().right > document.documentElement.clientWidth + 1 || el.getBoundingClientRect().left < -1)
-      .slice(-4)
+      // The widest boxes first: the one that pushes the page is among them.
+      .sort((a, b) => b.scrollWidth - a.scrollWidth)
+      .filter((el) => !el.querySelector("main, header, nav"))
+      .slice(0, 5)
       .map((el) => `${el.tagName.toLowerCase()}.${String(el.className).slice(0, 60)} "${(el.textContent ?? "").trim().slice(0, 30)}"`)
       .join(" | "),
   );
