@@ -65,7 +65,8 @@ export function WeekChart({ days }: { days: FluidBalance[] }) {
           {t("out")}
         </span>
       </figcaption>
-      <table className="w-full border-collapse text-start tabular">
+      <table className="relative w-full border-collapse text-start tabular">
+        {/* The table holds its visually hidden caption: in right-to-left pages it would otherwise widen the page. */}
         <caption className="sr-only">{t("tableCaption")}</caption>
         <thead>
           <tr className="border-b-2 border-stone-line">
