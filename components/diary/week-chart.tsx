@@ -65,8 +65,10 @@ export function WeekChart({ days }: { days: FluidBalance[] }) {
           {t("out")}
         </span>
       </figcaption>
-      <table className="relative w-full border-collapse text-start tabular">
-        {/* The table holds its visually hidden caption: in right-to-left pages it would otherwise widen the page. */}
+      {/* At the largest text in a narrow phone the three columns may not fit: the table then scrolls
+          inside its own box (focusable, named), never the page. The box also holds the hidden caption. */}
+      <div className="relative overflow-x-auto" tabIndex={0} role="region" aria-label={t("tableCaption")}>
+      <table className="w-full border-collapse text-start tabular">
         <caption className="sr-only">{t("tableCaption")}</caption>
         <thead>
           <tr className="border-b-2 border-stone-line">
@@ -94,6 +96,7 @@ export function WeekChart({ days }: { days: FluidBalance[] }) {
           ))}
         </tbody>
       </table>
+      </div>
     </figure>
   );
 }
