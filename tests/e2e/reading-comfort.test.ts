@@ -59,7 +59,7 @@ for (const locale of ["en", "ar"] as const) {
       it(`${path}: nothing sideways, no word or number broken inside itself`, async () => {
         await page.goto(`/${locale}${path}`);
         await settle(page, path);
-        expect(await overflowProblems(page), `${locale}${path}: ${await sticksOut(page)}`).toEqual([]);
+        expect(await overflowProblems(page, { tablesMayScroll: true }), `${locale}${path}: ${await sticksOut(page)}`).toEqual([]);
         expect(await brokenWords(page), `${locale}${path}`).toEqual([]);
         await screenshotAtTextSize(page, `reading${path.replace(/\//g, "-")}-${locale}-320-200`, 200);
         await page.setViewportSize(NARROW.viewport); // the screenshot helper leaves the phone's 390 px
@@ -189,7 +189,7 @@ for (const locale of ["en", "ar"] as const) {
           await page.goto(`/${locale}${path}`);
           await settle(page, path);
           expect(await page.locator("[data-text-size]").getAttribute("data-text-size")).toBe(String(step));
-          expect(await overflowProblems(page), `${locale}${path} step ${step}: ${await sticksOut(page)}`).toEqual([]);
+          expect(await overflowProblems(page, { tablesMayScroll: true }), `${locale}${path} step ${step}: ${await sticksOut(page)}`).toEqual([]);
           expect(await brokenWords(page), `${locale}${path} step ${step}`).toEqual([]);
           if (path === "/today") sizes.push(await rootPx());
           if (path === "/today" || path === "/check-in") await screenshot(page, `reading-size${step}${path.replace(/\//g, "-")}-${locale}-320`);

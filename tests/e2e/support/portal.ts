@@ -91,9 +91,13 @@ export async function setTextSize(page: Page, percent: number) {
   await cdp.send("Page.setFontSizes", { fontSizes: { standard: Math.round((16 * percent) / 100), fixed: Math.round((13 * percent) / 100) } });
 }
 
-/** Horizontal scrolling, and elements that stick out of the viewport sideways (clipped or off screen). */
-export async function overflowProblems(page: Page) {
-  return page.evaluate(() => {
+/**
+ * Horizontal scrolling, and elements that stick out of the viewport sideways (clipped or off screen).
+ * `tablesMayScroll`: a data table may scroll inside its own named, focusable box (WCAG 2.2, 1.4.10
+ * Reflow excepts data tables); the page itself still may not.
+ */
+export async function overflowProblems(page: Page, { tablesMayScroll = false } = {}) {
+  return page.evaluate((tablesMayScroll) => {
     const width = document.documentElement.clientWidth;
     const problems: string[] = [];
     if (document.documentElement.scrollWidth > width + 1) problems.push(`page scrolls sideways: ${document.documentElement.scrollWidth} > ${width}`);
@@ -102,12 +106,13 @@ export async function overflowProblems(page: Page) {
       if (r.width === 0 || r.height === 0) continue;
       const style = getComputedStyle(el);
       if (style.position === "absolute" && (r.width <= 2 || r.height <= 2)) continue; // sr-only
+      if (tablesMayScroll && el.closest('[role="region"][tabindex="0"]') && el.closest("[role=region]")!.querySelector("table")) continue;
       if (r.right > width + 1 || r.left < -1) problems.push(`${el.tagName.toLowerCase()}.${String(el.className).slice(0, 40)} ${Math.round(r.left)}–${Math.round(r.right)}`);
       // Text cut off inside its own box.
       if ((style.overflowX === "hidden" || style.overflowX === "clip") && el.scrollWidth > el.clientWidth + 1) problems.push(`clipped: ${el.tagName.toLowerCase()} "${(el.textContent ?? "").trim().slice(0, 30)}"`);
     }
     return [...new Set(problems)].slice(0, 10);
-  });
+  }, tablesMayScroll);
 }
 
 /**
