@@ -351,6 +351,8 @@ export async function seed({ quiet = false }: { quiet?: boolean } = {}) {
       .insert(settings)
       .values([
         { key: "emergencyNumber", value: "999" },
+        // Dates as written in the UK: 3 December 2026, 24-hour clock.
+        { key: "region", value: "GB" },
         { key: "outOfHoursServiceName", value: "Eastmere out-of-hours nursing line" },
         // Invented, in the range set aside for drama; shown where a lead team has no out-of-hours number.
         { key: "outOfHoursPhone", value: "01632 960 999" },

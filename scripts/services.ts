@@ -11,6 +11,7 @@ import net from "node:net";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
 import pg from "pg";
+import { ensureTools } from "./ensure-tools";
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
 const dataDir = path.resolve(root, process.env.CADDIS_DATA_DIR ?? ".data");
@@ -292,6 +293,8 @@ function fakeDown(f: Fake) {
 }
 
 export async function servicesUp() {
+  // The portal's Listen control speaks with espeak-ng where the browser has no voice (lib/speech).
+  ensureTools(["espeak-ng"]);
   await postgresUp();
   for (const f of fakes()) await fakeUp(f);
 }

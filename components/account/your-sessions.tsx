@@ -1,4 +1,5 @@
-import { getFormatter, getTranslations } from "next-intl/server";
+import { getTranslations } from "next-intl/server";
+import { getFormat } from "@/lib/i18n/format";
 import type { Viewer } from "@/lib/auth/session";
 import { listSessionsFor } from "@/lib/auth/sessions";
 import { Link } from "@/lib/i18n/navigation";
@@ -24,7 +25,7 @@ export async function YourSessions({ viewer, backHref, backLabel, large = false 
 /** Each device signed in to the account, this one first, with a way to end it. */
 async function SessionsList({ viewer, large }: { viewer: Viewer; large: boolean }) {
   const t = await getTranslations("Sessions");
-  const format = await getFormatter();
+  const format = await getFormat();
   const sessions = await listSessionsFor(viewer);
   const when = (iso: string) => format.dateTime(new Date(iso), { weekday: "short", day: "numeric", month: "short", hour: "numeric", minute: "2-digit" });
   const others = sessions.filter((s) => !s.current).length;

@@ -16,6 +16,7 @@ import { settingsFormSchema, type SettingsFormOutput, type SettingsFormValues } 
 
 export type SettingsInitial = {
   emergencyNumber: string | null;
+  region: string | null;
   outOfHoursServiceName: string | null;
   reviewIntervalDays: number | null;
   dueSoonDays: number | null;
@@ -83,6 +84,15 @@ export function SettingsForm({ initial }: { initial: SettingsInitial }) {
           className="max-w-xs"
           errors={errorText.list(errors.emergencyNumber)}
           {...register("emergencyNumber", text)}
+        />
+        <Field
+          label={t("region")}
+          hint={t("regionHint")}
+          autoComplete="off"
+          dir="ltr"
+          className="max-w-xs"
+          errors={errorText.list(errors.region)}
+          {...register("region", text)}
         />
         <Field
           label={t("outOfHoursServiceName")}

@@ -1,7 +1,8 @@
 // The patient's and carer's side of the loop: their latest check-ins and, for each that went to
 // the care team, "Your care team saw this at 10:42" or that it is waiting. An emergency still says
 // to call the emergency number now: Caddis is not an emergency service.
-import { getFormatter, getTranslations } from "next-intl/server";
+import { getTranslations } from "next-intl/server";
+import { getFormat } from "@/lib/i18n/format";
 import { LevelBadge } from "@/components/portal/level-badge";
 import { Card } from "@/components/ui/card";
 import { listCheckInsWithAcknowledgement } from "@/db/queries/caseload-items";
@@ -12,7 +13,7 @@ export async function RecentCheckIns({ patientId }: { patientId: string }) {
   const [rows, emergencyNumber] = await Promise.all([listCheckInsWithAcknowledgement({ patientId }), getEmergencyNumber()]);
   if (rows.length === 0) return null;
   const t = await getTranslations("CareLoopPortal");
-  const format = await getFormatter();
+  const format = await getFormat();
   const when = (d: Date) =>
     dayIn(d) === dayIn(new Date())
       ? format.dateTime(d, { hour: "2-digit", minute: "2-digit", hourCycle: "h23" })

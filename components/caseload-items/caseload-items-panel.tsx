@@ -1,6 +1,7 @@
 // The alerts to acknowledge and results to chase on the team's caseload, oldest first. Past its
 // time (or sent again) an item is red, with the words "overdue", never by colour alone.
-import { getFormatter, getTranslations } from "next-intl/server";
+import { getTranslations } from "next-intl/server";
+import { getFormat } from "@/lib/i18n/format";
 import type { CaseloadItemView } from "@/lib/records/caseload-items";
 import { Link } from "@/lib/i18n/navigation";
 import { AcknowledgeForm } from "./acknowledge-form";
@@ -15,7 +16,7 @@ export async function CaseloadItemsPanel({ items }: { items: CaseloadItemView[] 
       : i.kind === "news2" && (i.level === "low-medium" || i.level === "medium" || i.level === "high")
         ? visit(`bands.${i.level}`)
         : "";
-  const format = await getFormatter();
+  const format = await getFormat();
   const at = (iso: string) => format.dateTime(new Date(iso), { weekday: "short", day: "numeric", month: "short", hour: "2-digit", minute: "2-digit" });
   const reporter = (r: CaseloadItemView["reporter"]) =>
     !r ? null : r.kind === "patient" ? t("reporter.patient") : r.kind === "carer" ? t("reporter.carer", { name: r.name }) : t("reporter.clinician", { details: [r.name, r.organisation, r.phone].filter(Boolean).join(", ") });

@@ -2,7 +2,8 @@
 // The caseload table (cards on phones): search, one filter, sort and pages held in the address
 // bar, data from GET /api/caseload through TanStack Query (first page rendered on the server).
 import { keepPreviousData, useQuery } from "@tanstack/react-query";
-import { useFormatter, useLocale, useTranslations } from "next-intl";
+import { useLocale, useTranslations } from "next-intl";
+import { useFormat } from "@/components/i18n/format";
 import { useEffect, useId, useMemo, useRef, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { ErrorAlert } from "@/components/ui/notice";
@@ -237,7 +238,7 @@ export function CaseloadView({ initialQuery, initialData }: { initialQuery: Case
 function useCells() {
   const t = useTranslations("Caseload");
   const v = useTranslations("Vocabulary");
-  const format = useFormatter();
+  const format = useFormat();
   const date = (d: string | null) => (d ? format.dateTime(new Date(`${d}T12:00:00Z`), { dateStyle: "medium" }) : "—");
   const device = (r: CaseloadRow) => (r.route ? `${v(`route.${r.route}`)} · ${v("device.sizeCh", { ch: r.sizeCh ?? 0 })}` : t("noDevice"));
   const days = (r: CaseloadRow) => (r.daysSinceInsertion === null ? "—" : t("days", { count: r.daysSinceInsertion }));

@@ -19,6 +19,10 @@ import type { Contacts } from "@/components/portal/call-buttons";
 import { CheckInResult } from "./check-in-result";
 import { newKey } from "./outbox";
 import { FieldError } from "@/components/ui/field";
+import { Picture, type PictureKey } from "@/components/pictures/pictures";
+
+/** The drawing beside a question, where one helps to answer it. */
+const QUESTION_PICTURES: Partial<Record<string, PictureKey>> = { draining: "bagBelowBladder", hoursWithoutUrine: "kinkedTube", blood: "urineColours" };
 
 const answerButton =
   "flex min-h-16 w-full items-center justify-center rounded-lg border-2 border-brand bg-paper-raised px-4 py-3 text-center text-xl font-bold text-brand hover:bg-brand-soft";
@@ -36,6 +40,7 @@ function isChosen(question: Question, option: string, answers: SubmittedAnswers)
 /** "How am I?": one question per screen, big answers, red flags first, emergency straight to the result. */
 export function CheckInFlow({ patientId, route, contacts, patientName }: { patientId: string; route: Route | null; contacts: Contacts; patientName: string | null }) {
   const t = useTranslations("CheckIn");
+  const tp = useTranslations("Pictures");
   const questions = useMemo(() => questionsFor(route), [route]);
   const [answers, setAnswers] = useState<SubmittedAnswers>({});
   const [history, setHistory] = useState<number[]>([]);
@@ -85,6 +90,7 @@ export function CheckInFlow({ patientId, route, contacts, patientName }: { patie
         {t(`questions.${question.id}.${subject}`)}
       </h1>
       {t.has(`questions.${question.id}.hint` as never) ? <p>{t(`questions.${question.id}.hint` as never)}</p> : null}
+      {QUESTION_PICTURES[question.id] ? <Picture name={QUESTION_PICTURES[question.id]!} alt={tp(QUESTION_PICTURES[question.id]!)} /> : null}
       <QuestionAnswers key={question.id} question={question} answers={answers} onAnswer={answer} onDraft={(patch) => setAnswers(keepAsked(questions, { ...answers, ...patch }))} />
       {history.length ? (
         <button type="button" onClick={back} className="min-h-12 self-start rounded-lg px-3 font-bold text-brand underline underline-offset-4">

@@ -3,6 +3,10 @@ import { useTranslations } from "next-intl";
 import { useEffect, useMemo, useRef, useState } from "react";
 import { CallButtons, SafetyNotice, type Contacts } from "@/components/portal/call-buttons";
 import { LevelBadge } from "@/components/portal/level-badge";
+import { Picture, type PictureKey } from "@/components/pictures/pictures";
+
+/** Drawings that show an advice line (the first one in the result that has one). */
+const ADVICE_PICTURES: Partial<Record<string, PictureKey>> = { "check-tube": "kinkedTube", "bag-low": "bagBelowBladder", drink: "drinking" };
 import { scoreAnswers, type SubmittedAnswers } from "@/lib/shared/check-in-flow";
 import { compareTriageLevels, TRIAGE_LEVELS, type Route, type TriageLevel } from "@/lib/clinical";
 import { Link } from "@/lib/i18n/navigation";
@@ -18,6 +22,7 @@ type Delivery = "sending" | "sent" | "waiting" | "refused";
  */
 export function CheckInResult({ patientId, route, answers, idempotencyKey, contacts }: { patientId: string; route: Route | null; answers: SubmittedAnswers; idempotencyKey: string; contacts: Contacts }) {
   const t = useTranslations("CheckIn");
+  const tp = useTranslations("Pictures");
   const local = useMemo(() => scoreAnswers(answers, route), [answers, route]);
   const [delivery, setDelivery] = useState<Delivery>("sending");
   const [serverLevel, setServerLevel] = useState<TriageLevel | null>(null);
@@ -78,6 +83,13 @@ export function CheckInResult({ patientId, route, answers, idempotencyKey, conta
       ) : (
         <p>{t("result.noProblems")}</p>
       )}
+      {/* The drawings come after who to call: in an emergency nothing stands before the numbers. */}
+      {level !== "emergency"
+        ? result.advice
+            .flatMap((a) => (ADVICE_PICTURES[a.key] ? [ADVICE_PICTURES[a.key]!] : []))
+            .slice(0, 2)
+            .map((name) => <Picture key={name} name={name} alt={tp(name)} />)
+        : null}
 
       <Link href="/today" className="flex min-h-14 items-center justify-center rounded-lg bg-brand px-4 text-xl font-bold text-white">
         {t("result.done")}

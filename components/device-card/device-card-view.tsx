@@ -2,7 +2,8 @@
 // the patient's language and in English, the allergies that matter for a catheter and its gel in
 // a bordered warning box, and the care team's phone as a big tel: button. Nothing names the patient.
 // Phone numbers and Latin units are isolated left-to-right so Arabic and Urdu do not reorder them.
-import { getFormatter, getTranslations } from "next-intl/server";
+import { getTranslations } from "next-intl/server";
+import { getFormat } from "@/lib/i18n/format";
 import { WarningMark } from "@/components/ui/warning-mark";
 import { ErrorAlert } from "@/components/ui/notice";
 import { buttonClass } from "@/components/ui/button";
@@ -29,7 +30,7 @@ async function CardInLanguage({ card, locale, first }: { card: DeviceCard; local
   const t = await getTranslations({ locale, namespace: "DeviceCard" });
   const p = await getTranslations({ locale, namespace: "PassportPdf" });
   const v = await getTranslations({ locale, namespace: "Vocabulary" });
-  const format = await getFormatter({ locale });
+  const format = await getFormat({ locale });
   const timeZone = deploymentTimeZone();
   const d = card.device;
   const day = (iso: string) => format.dateTime(new Date(iso), { weekday: "short", day: "numeric", month: "short", year: "numeric", timeZone });

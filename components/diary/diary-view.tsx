@@ -1,7 +1,8 @@
 "use client";
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import { useFormatter, useTranslations } from "next-intl";
+import { useTranslations } from "next-intl";
+import { useFormat } from "@/components/i18n/format";
 import { useEffect, useMemo, useState } from "react";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
@@ -44,7 +45,7 @@ const quick = "flex min-h-14 items-center justify-center rounded-lg border-2 bor
  */
 export function DiaryView({ patientId, weightKg, fluidLimitMl }: { patientId: string; weightKg: number | null; fluidLimitMl: number | null }) {
   const t = useTranslations("Diary");
-  const format = useFormatter();
+  const format = useFormat();
   const client = useQueryClient();
   // A day older than the week so the 24-hour output check can see whether the diary covers it.
   const [from] = useState(() => startOfDay(7).toISOString());
@@ -204,7 +205,7 @@ export function DiaryView({ patientId, weightKg, fluidLimitMl }: { patientId: st
           </h2>
           <ul className="flex flex-col gap-2">
             {todays.map((e) => (
-              <li key={e.id} className="flex items-center justify-between gap-3 rounded-lg border border-stone-faint bg-paper-raised p-3">
+              <li key={e.id} className="flex flex-wrap items-center justify-between gap-3 rounded-lg border border-stone-faint bg-paper-raised p-3">
                 <span className="tabular">
                   <span className="font-bold">{time(e.at)}</span> · {t(e.kind === "in" ? "drinkEntry" : "bagEntry", { ml: e.volumeMl })}
                   {e.waiting ? (
@@ -242,7 +243,7 @@ export function DiaryView({ patientId, weightKg, fluidLimitMl }: { patientId: st
 
 function OutputNote({ output, weightKnown, limit }: { output: ReturnType<typeof urineOutputRate> | null; weightKnown: boolean; limit: boolean }) {
   const t = useTranslations("Diary.output");
-  const format = useFormatter();
+  const format = useFormat();
   if (!weightKnown || !output) return <p className="text-ink-soft">{t("noWeight")}</p>;
   if (!output.diaryCoversWindow) return <p className="text-ink-soft">{t("notEnough", { hours: OUTPUT_WINDOW_HOURS })}</p>;
   if (output.low) {

@@ -1,16 +1,20 @@
 "use client";
-import { useFormatter, useTranslations } from "next-intl";
+import { useLocale, useTranslations } from "next-intl";
+import { useFormat } from "@/components/i18n/format";
 import type { FluidBalance } from "@/lib/clinical";
+import { directionOf } from "@/lib/i18n/routing";
 
 /**
  * Seven days of drinks in and urine out as paired bars. Bars differ by fill pattern as well as
  * colour, with a legend; the table under it carries the same numbers for screen readers and
- * for anyone who prefers figures.
+ * for anyone who prefers figures. Right to left, the days run from the right, in the table's
+ * order as it is read (an SVG does not mirror itself).
  */
 export function WeekChart({ days }: { days: FluidBalance[] }) {
   const t = useTranslations("Diary.week");
   const tu = useTranslations("Diary");
-  const format = useFormatter();
+  const format = useFormat();
+  const rtl = directionOf(useLocale()) === "rtl";
   const max = Math.max(1000, ...days.flatMap((d) => [d.inMl, d.outMl]));
   const w = 340;
   const h = 180;
@@ -36,11 +40,13 @@ export function WeekChart({ days }: { days: FluidBalance[] }) {
         </defs>
         <line x1="0" x2={w} y1={base} y2={base} stroke="#5d6468" strokeWidth="1.5" />
         {days.map((d, i) => {
-          const cx = slot * i + slot / 2;
+          const cx = slot * (rtl ? days.length - 1 - i : i) + slot / 2;
+          // Drinks first, then urine, in reading order.
+          const [inX, outX] = rtl ? [cx + 1, cx - bar - 1] : [cx - bar - 1, cx + 1];
           return (
-            <g key={d.day}>
-              <rect x={cx - bar - 1} y={y(d.inMl)} width={bar} height={base - y(d.inMl)} fill="#0b5563" />
-              <rect x={cx + 1} y={y(d.outMl)} width={bar} height={base - y(d.outMl)} fill="url(#out-hatch)" stroke="#8a4b00" strokeWidth="1" />
+            <g key={d.day} data-day={d.day}>
+              <rect x={inX} y={y(d.inMl)} width={bar} height={base - y(d.inMl)} fill="#0b5563" />
+              <rect x={outX} y={y(d.outMl)} width={bar} height={base - y(d.outMl)} fill="url(#out-hatch)" stroke="#8a4b00" strokeWidth="1" />
               <text x={cx} y={h - 8} textAnchor="middle" fontSize="13" fill="#1c1f21">
                 {label(d.day)}
               </text>
@@ -59,6 +65,9 @@ export function WeekChart({ days }: { days: FluidBalance[] }) {
           {t("out")}
         </span>
       </figcaption>
+      {/* At the largest text in a narrow phone the three columns may not fit: the table then scrolls
+          inside its own box (focusable, named), never the page. The box also holds the hidden caption. */}
+      <div className="relative overflow-x-auto" tabIndex={0} role="region" aria-label={t("tableCaption")}>
       <table className="w-full border-collapse text-start tabular">
         <caption className="sr-only">{t("tableCaption")}</caption>
         <thead>
@@ -87,6 +96,7 @@ export function WeekChart({ days }: { days: FluidBalance[] }) {
           ))}
         </tbody>
       </table>
+      </div>
     </figure>
   );
 }

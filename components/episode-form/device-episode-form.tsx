@@ -2,7 +2,8 @@
 // Record an insertion, or a change (the old catheter out and the new one in): every
 // documentation field of an insertion in its fieldsets, the device checks live beside them
 // (use-device-episode-form holds the state; the server checks again when saving).
-import { useFormatter, useTranslations } from "next-intl";
+import { useTranslations } from "next-intl";
+import { useFormat } from "@/components/i18n/format";
 import { Button } from "@/components/ui/button";
 import { ErrorAlert } from "@/components/ui/notice";
 import type { PatientFacts } from "@/lib/shared/episode-checks";
@@ -38,7 +39,7 @@ export function DeviceEpisodeForm({
 }) {
   const t = useTranslations("EpisodeForm");
   const tc = useTranslations("Common");
-  const format = useFormatter();
+  const format = useFormat();
   const form = useDeviceEpisodeForm({ mode, patientId, patient, previous, timeZone, planDefaults });
   const dateOnly = (iso: string) => format.dateTime(new Date(`${iso}T12:00:00Z`), { dateStyle: "medium", timeZone: "UTC" });
 

@@ -2,7 +2,8 @@
 // Record the outcome of a trial without catheter: passed, or failed and what was done. A new
 // catheter after a failed trial is recorded next, on the insertion form.
 import { zodResolver } from "@hookform/resolvers/zod";
-import { useFormatter, useTranslations } from "next-intl";
+import { useTranslations } from "next-intl";
+import { useFormat } from "@/components/i18n/format";
 import { useState } from "react";
 import { useFieldArray, useForm, useWatch, type Resolver } from "react-hook-form";
 import type { z } from "zod";
@@ -25,7 +26,7 @@ type Values = z.input<typeof twocSchema>;
 export function TwocForm({ patientId, removedAt }: { patientId: string; removedAt: string }) {
   const t = useTranslations("EpisodeForm");
   const tc = useTranslations("Common");
-  const format = useFormatter();
+  const format = useFormat();
   const router = useRouter();
   const options = useEpisodeOptions();
   const [now] = useState(thisMinute);

@@ -30,7 +30,7 @@ export function PortalNav() {
               <Link
                 href={href}
                 aria-current={current ? "page" : undefined}
-                className={`flex min-h-16 flex-col items-center justify-center gap-0.5 px-1 py-1.5 text-center font-bold leading-tight [overflow-wrap:anywhere] ${
+                className={`flex min-h-16 flex-col items-center justify-center gap-0.5 px-1 py-1.5 text-center font-bold leading-tight [overflow-wrap:break-word] ${
                   current ? "bg-brand-soft text-brand-strong" : "text-brand"
                 }`}
               >

@@ -1,17 +1,26 @@
 import { getTranslations } from "next-intl/server";
 import type { ReactNode } from "react";
+import { ListenControl } from "@/components/portal/listen";
 import { LifebuoyIcon } from "@/components/portal/nav-icons";
 import { OutboxSync } from "@/components/portal/outbox-sync";
 import { ServiceWorkerRegister } from "@/components/portal/service-worker-register";
+import { PatientTranslationNote } from "@/components/translation/translation-status";
 import { Wordmark } from "@/components/ui/logo";
+import { getEmergencyNumber } from "@/lib/config/settings";
+import type { ReadingComfort } from "@/lib/validations/reading";
 import { Link } from "@/lib/i18n/navigation";
 import { PortalNav } from "./portal-nav";
 
 /** Patient and carer pages: phone first, one column, large type, "Get help" always one tap away. */
-export async function PortalShell({ children }: { children: ReactNode }) {
+export async function PortalShell({ children, reading }: { children: ReactNode; reading: ReadingComfort }) {
   const t = await getTranslations("Portal");
   return (
-    <div className="flex min-h-dvh flex-col text-body hyphens-auto [overflow-wrap:anywhere] max-[22em]:[&_.rounded-card]:p-3">
+    // The person's reading comfort: app/globals.css scales the page and strengthens the colours from these.
+    <div
+      className="flex min-h-dvh flex-col text-body [overflow-wrap:break-word] max-[22em]:[&_.rounded-card]:p-3"
+      data-text-size={reading.textSize}
+      data-contrast={reading.contrast}
+    >
       <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:start-2 focus:top-2 focus:z-20 focus:bg-paper-raised focus:p-3">
         {t("skip")}
       </a>
@@ -22,7 +31,7 @@ export async function PortalShell({ children }: { children: ReactNode }) {
           </Link>
           <Link
             href="/help"
-            className="flex min-h-12 items-center gap-2 rounded-lg border-2 border-level-emergency bg-level-emergency-soft px-4 font-bold text-level-emergency-ink"
+            className="flex min-h-12 flex-wrap items-center gap-2 rounded-lg border-2 border-level-emergency bg-level-emergency-soft px-4 font-bold text-level-emergency-ink"
             data-testid="get-help"
           >
             <LifebuoyIcon />
@@ -32,7 +41,9 @@ export async function PortalShell({ children }: { children: ReactNode }) {
       </header>
       <main id="main" className="mx-auto w-full max-w-xl flex-1 px-4 pb-36 pt-5 max-[22em]:px-2 max-[22em]:pb-8">
         <OutboxSync />
+        <ListenControl emergencyNumber={await getEmergencyNumber()} />
         {children}
+        <PatientTranslationNote />
       </main>
       <PortalNav />
       <ServiceWorkerRegister />

@@ -1,12 +1,13 @@
 // The trend charts' text equivalent: every visit's observations and their NEWS2 sub-scores in
 // one table, newest first, so a screen reader (or anyone) gets the same numbers as the charts.
-import { getFormatter, getTranslations } from "next-intl/server";
+import { getTranslations } from "next-intl/server";
+import { getFormat } from "@/lib/i18n/format";
 import type { ObservationDto } from "@/db/queries/observations";
 
 export async function ObservationTable({ observations }: { observations: ObservationDto[] }) {
   const t = await getTranslations("Visits.trends");
   const v = await getTranslations("VisitForm");
-  const format = await getFormatter();
+  const format = await getFormat();
   const cell = (value: string, score: number | undefined) => (
     <td className="p-2 text-end tabular">
       {value} <span className="text-ink-soft">({score ?? 0})</span>

@@ -4,6 +4,7 @@
 // its risk bands. The charts are pictures for the eye; the table under them (ObservationTable)
 // holds the same numbers for a screen reader.
 import { useTranslations } from "next-intl";
+import { useFormat } from "@/components/i18n/format";
 import { CartesianGrid, Line, LineChart, ReferenceArea, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
 import { NEWS2_BANDS } from "@/lib/clinical";
 import { palette } from "@/tailwind.config";
@@ -61,10 +62,10 @@ function bandsOf(param: Param): { y1: number; y2: number; score: number }[] {
     .filter((b) => b.y2 > b.y1);
 }
 
-export function ObservationTrends({ points, locale }: { points: TrendPoint[]; locale: string }) {
+export function ObservationTrends({ points }: { points: TrendPoint[] }) {
   const t = useTranslations("Visits.trends");
-  const day = new Intl.DateTimeFormat(locale, { day: "numeric", month: "short" });
-  const data = points.map((p) => ({ ...p, label: day.format(new Date(p.takenAt)) }));
+  const format = useFormat();
+  const data = points.map((p) => ({ ...p, label: format.dateTime(new Date(p.takenAt), { day: "numeric", month: "short" }) }));
   const params: Param[] = ["total", "respirationRate", "spo2", "systolicBp", "pulse", "temperatureC"];
   return (
     <div className="grid gap-4 md:grid-cols-2" aria-hidden="true" data-testid="observation-charts">

@@ -2,8 +2,9 @@
 // Issuing the passport. The QR and the passport code come back once, in the answer to the
 // issue request; this component holds them only in memory and never stores them.
 import { useMutation } from "@tanstack/react-query";
-import { useFormatter, useTranslations } from "next-intl";
-import { useEffect, useRef, useState, useTransition } from "react";
+import { useTranslations } from "next-intl";
+import { useFormat } from "@/components/i18n/format";
+import { useEffect, useRef, useState, useTransition, type ReactNode } from "react";
 import { Button, buttonClass } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
 import { ErrorAlert } from "@/components/ui/notice";
@@ -48,6 +49,7 @@ export function PassportPanel({
   hasDevice,
   canOfferActivation,
   readOnly = false,
+  translationStatus = null,
 }: {
   patientId: string;
   overview: PassportOverview;
@@ -57,11 +59,13 @@ export function PassportPanel({
   canOfferActivation: boolean;
   /** A closed record: its passport history is shown, nothing can be issued. */
   readOnly?: boolean;
+  /** Whether each translated language's texts were reviewed (rendered on the server). */
+  translationStatus?: ReactNode;
 }) {
   const t = useTranslations("Passport");
   const tc = useTranslations("Common");
   const tRecord = useTranslations("PatientRecord");
-  const format = useFormatter();
+  const format = useFormat();
   const router = useRouter();
   const [issued, setIssued] = useState<Issued | null>(null);
   const [confirming, setConfirming] = useState(false);
@@ -309,7 +313,7 @@ export function PassportPanel({
         </section>
       ) : null}
 
-      <p className="text-sm text-ink-soft">{t("translationNote")}</p>
+      {translationStatus}
     </div>
   );
 }

@@ -1,6 +1,7 @@
 "use client";
 // The patient's details with an "Edit details" form in place (PATCH /api/patients/[id]).
-import { useFormatter, useTranslations } from "next-intl";
+import { useTranslations } from "next-intl";
+import { useFormat } from "@/components/i18n/format";
 import { useState } from "react";
 import { PatientForm, type GpPractice } from "@/components/patient-form/patient-form";
 import { Button } from "@/components/ui/button";
@@ -12,7 +13,7 @@ export function PatientDetailsPanel({ patient, gpPractices, canEdit }: { patient
   const t = useTranslations("PatientDevice");
   const tf = useTranslations("PatientForm");
   const v = useTranslations("Vocabulary");
-  const format = useFormatter();
+  const format = useFormat();
   const [editing, setEditing] = useState(false);
 
   if (editing) {

@@ -1,6 +1,7 @@
 "use client";
 import { zodResolver } from "@hookform/resolvers/zod";
-import { useFormatter, useTranslations } from "next-intl";
+import { useTranslations } from "next-intl";
+import { useFormat } from "@/components/i18n/format";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
@@ -20,7 +21,7 @@ type Invite = { code: string; expiresAt: string; activateUrl: string; emailed: b
  */
 export function PortalInviteButton({ patientId }: { patientId: string }) {
   const t = useTranslations("PortalInvite");
-  const format = useFormatter();
+  const format = useFormat();
   const [invite, setInvite] = useState<Invite | null>(null);
   const {
     register,

@@ -15,8 +15,8 @@ export function telHref(phone: string) {
  * "01632 960 210" is not shown as "210 960 01632" in Arabic or Urdu.
  */
 export function ltr(text: string) {
-  // No-break spaces: the number wraps as one piece when the text is large.
-  return `\u2066${text.replace(/ /g, "\u00a0")}\u2069`;
+  // In large text the number may wrap between its groups ("01632 960" / "101"), never inside one.
+  return `\u2066${text}\u2069`;
 }
 
 /** A name in its own direction (first strong character) inside the other language's text. */
@@ -25,7 +25,8 @@ export function isolate(text: string) {
 }
 
 /**
- * The numbers to call as big tel: buttons. The emergency number comes from the deployment's
+ * The numbers to call as big tel: buttons. In large text the words wrap and the number (one
+ * piece, never split) goes under the phone mark rather than break. The emergency number comes from the deployment's
  * settings; when it is missing we say so rather than guess one.
  */
 export function CallButtons({ contacts, emergencyFirst = true, showEmergency = true }: { contacts: Contacts; emergencyFirst?: boolean; showEmergency?: boolean }) {
@@ -34,11 +35,11 @@ export function CallButtons({ contacts, emergencyFirst = true, showEmergency = t
     <a
       key="emergency"
       href={telHref(contacts.emergencyNumber)}
-      className="flex min-h-14 items-center gap-3 rounded-lg bg-level-emergency px-4 py-2 text-lg font-bold text-white"
+      className="flex min-h-14 flex-wrap items-center gap-x-3 gap-y-1 rounded-lg bg-level-emergency px-4 py-2 text-lg font-bold text-white"
       data-testid="call-emergency"
     >
       <PhoneIcon className="h-7 w-7 shrink-0" />
-      <span>{t("emergency", { number: ltr(contacts.emergencyNumber) })}</span>
+      <span className="flex-1 basis-48">{t("emergency", { number: ltr(contacts.emergencyNumber) })}</span>
     </a>
   ) : (
     <p key="emergency" className="rounded-lg border-2 border-level-emergency bg-level-emergency-soft p-3 font-bold text-level-emergency-ink" data-testid="emergency-not-configured">
@@ -47,15 +48,15 @@ export function CallButtons({ contacts, emergencyFirst = true, showEmergency = t
   );
   const team = contacts.team.flatMap((o) => [
     o.phone ? (
-      <a key={`${o.name}-day`} href={telHref(o.phone)} className="flex min-h-14 items-center gap-3 rounded-lg border-2 border-brand bg-paper-raised px-4 py-2 font-bold text-brand" data-testid="call-team">
+      <a key={`${o.name}-day`} href={telHref(o.phone)} className="flex min-h-14 flex-wrap items-center gap-x-3 gap-y-1 rounded-lg border-2 border-brand bg-paper-raised px-4 py-2 font-bold text-brand" data-testid="call-team">
         <PhoneIcon className="h-7 w-7 shrink-0" />
-        <span>{t("team", { team: isolate(o.name), number: ltr(o.phone) })}</span>
+        <span className="flex-1 basis-48">{t("team", { team: isolate(o.name), number: ltr(o.phone) })}</span>
       </a>
     ) : null,
     o.outOfHoursPhone ? (
-      <a key={`${o.name}-ooh`} href={telHref(o.outOfHoursPhone)} className="flex min-h-14 items-center gap-3 rounded-lg border-2 border-brand bg-paper-raised px-4 py-2 font-bold text-brand">
+      <a key={`${o.name}-ooh`} href={telHref(o.outOfHoursPhone)} className="flex min-h-14 flex-wrap items-center gap-x-3 gap-y-1 rounded-lg border-2 border-brand bg-paper-raised px-4 py-2 font-bold text-brand">
         <PhoneIcon className="h-7 w-7 shrink-0" />
-        <span>{t("outOfHours", { number: ltr(o.outOfHoursPhone) })}</span>
+        <span className="flex-1 basis-48">{t("outOfHours", { number: ltr(o.outOfHoursPhone) })}</span>
       </a>
     ) : null,
   ]);

@@ -9,10 +9,10 @@ export function LevelBadge({ level, size = "large", as: Tag = "p" }: { level: Tr
   const s = LEVEL_STYLE[level];
   return (
     <Tag
-      className={`flex items-center gap-3 rounded-card border-4 ${s.box} ${s.text} ${size === "large" ? "p-4 text-2xl" : "p-2 text-lg"} font-bold`}
+      className={`flex flex-wrap items-center gap-3 rounded-card border-4 ${s.box} ${s.text} ${size === "large" ? "p-4 text-2xl" : "p-2 text-lg"} font-bold`}
       data-level={level}
     >
-      <span className={s.mark}>
+      <span className={`shrink-0 ${s.mark}`}>
         <Icon className={size === "large" ? "h-12 w-12 shrink-0" : "h-8 w-8 shrink-0"} />
       </span>
       <span>{t(level)}</span>

@@ -46,7 +46,7 @@ export function OutboxSync() {
   }, []);
   if (!count) return null;
   return (
-    <p role="status" className="mb-4 rounded-lg border-2 border-level-urgent bg-level-urgent-soft p-3 font-bold text-level-urgent-ink" data-testid="waiting-to-send">
+    <p role="status" className="mb-4 rounded-lg border-2 border-level-urgent bg-level-urgent-soft p-3 font-bold text-level-urgent-ink" data-testid="waiting-to-send" data-listen="skip">
       {t("waitingToSend", { count })}
     </p>
   );

@@ -1,4 +1,5 @@
-import { getFormatter, getTranslations } from "next-intl/server";
+import { getTranslations } from "next-intl/server";
+import { getFormat } from "@/lib/i18n/format";
 import { isolate } from "@/components/portal/call-buttons";
 import { Card } from "@/components/ui/card";
 import { listCaseloadReferrals } from "@/db/queries/referrals";
@@ -16,7 +17,7 @@ export async function CaseloadReferrals({ organisationIds }: { organisationIds: 
   const { incoming, outgoing } = await listCaseloadReferrals({ organisationIds, hours });
   if (!incoming.length && !outgoing.length) return null;
   const t = await getTranslations("Transfer.caseload");
-  const format = await getFormatter();
+  const format = await getFormat();
   const at = (d: Date) => format.dateTime(d, { dateStyle: "medium", timeStyle: "short" });
   const day = (d: string) => format.dateTime(new Date(`${d}T12:00:00Z`), { dateStyle: "medium", timeZone: "UTC" });
   return (

@@ -1,4 +1,5 @@
-import { getFormatter, getTranslations } from "next-intl/server";
+import { getTranslations } from "next-intl/server";
+import { getFormat } from "@/lib/i18n/format";
 import { Card } from "@/components/ui/card";
 import type { DischargeChecklist } from "@/db/schema";
 import { DISCHARGE_TEACHING } from "@/lib/clinical";
@@ -6,7 +7,7 @@ import { DISCHARGE_TEACHING } from "@/lib/clinical";
 /** The latest discharge checklist as recorded: every item, those not done said plainly. */
 export async function ChecklistSummary({ checklist: c }: { checklist: DischargeChecklist }) {
   const t = await getTranslations("Transfer.checklist");
-  const format = await getFormatter();
+  const format = await getFormat();
   const day = (d: string) => format.dateTime(new Date(`${d}T12:00:00Z`), { dateStyle: "medium", timeZone: "UTC" });
   return (
     <Card className="flex flex-col gap-2" data-testid="checklist-summary">

@@ -43,12 +43,27 @@ function Labelled({ id, label, hint, errors, className = "", children }: FieldPr
   );
 }
 
+/**
+ * E-mail addresses, phone numbers, numbers and codes are written left to right in every language:
+ * inside an Arabic or Urdu page, "yusuf.haddad@" must not show as "@yusuf.haddad".
+ */
+export function inputDirection(input: Pick<ComponentProps<"input">, "dir" | "type" | "inputMode" | "autoComplete">): string | undefined {
+  if (input.dir) return input.dir;
+  const ltr =
+    ["email", "tel", "url", "date", "time", "datetime-local", "number"].includes(input.type ?? "") ||
+    ["email", "tel", "url", "numeric", "decimal"].includes(input.inputMode ?? "") ||
+    /\b(one-time-code|email|username|tel)\b/.test(input.autoComplete ?? "");
+  return ltr ? "ltr" : undefined;
+}
+
 /** A text, number, date or e-mail input; `unit` is shown after the box (and not read twice). */
 export function Field({ label, hint, errors, className, unit, ...input }: FieldProps & { unit?: ReactNode } & ComponentProps<"input">) {
   const auto = useId();
   const id = input.id ?? auto;
   const invalid = Boolean(errors?.length);
-  const control = <input id={id} aria-invalid={invalid || undefined} aria-describedby={describedBy(id, hint, errors)} className={box(invalid)} {...input} />;
+  const control = (
+    <input id={id} aria-invalid={invalid || undefined} aria-describedby={describedBy(id, hint, errors)} className={box(invalid)} {...input} dir={inputDirection(input)} />
+  );
   return (
     <Labelled id={id} label={label} hint={hint} errors={errors} className={className}>
       {unit ? (

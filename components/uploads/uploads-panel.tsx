@@ -2,7 +2,8 @@
 // The record's photos and documents: add one (presigned upload, checked again from its bytes
 // on the server), see them as thumbnails or file rows, download, remove with a confirmation.
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import { useFormatter, useTranslations } from "next-intl";
+import { useTranslations } from "next-intl";
+import { useFormat } from "@/components/i18n/format";
 import { useEffect, useRef, useState } from "react";
 import { useErrorText } from "@/components/ui/use-error-text";
 import { Button, buttonClass } from "@/components/ui/button";
@@ -32,7 +33,7 @@ const failureKey: Record<UploadFailure, "tooLarge" | "badType" | "failed"> = {
 export function UploadsPanel({ patientId, initial, canRemove, readOnly = false }: { patientId: string; initial: UploadDto[]; canRemove: boolean; readOnly?: boolean }) {
   const t = useTranslations("Uploads");
   const tc = useTranslations("Common");
-  const format = useFormatter();
+  const format = useFormat();
   const queryClient = useQueryClient();
   const list = useQuery({ queryKey: uploadKeys.list(patientId), queryFn: () => fetchUploads(patientId), initialData: initial });
 

@@ -1,10 +1,11 @@
 // A structured visit's findings in one line each, for the History timeline.
-import { useFormatter, useTranslations } from "next-intl";
+import { useTranslations } from "next-intl";
+import { useFormat } from "@/components/i18n/format";
 import { visitFindingsSchema } from "@/lib/validations/visit";
 
 export function FindingsSummary({ findings }: { findings: unknown }) {
   const t = useTranslations("Visits.findings");
-  const format = useFormatter();
+  const format = useFormat();
   // Stored as validated; read back loosely (a past next-visit date is still worth showing).
   const parsed = visitFindingsSchema.safeParse({ ...(findings as object), nextVisitOn: undefined });
   if (!parsed.success) return null;

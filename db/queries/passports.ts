@@ -19,6 +19,7 @@ import {
   type Passport,
 } from "@/db/schema";
 import type { TwocOutcome } from "@/lib/clinical";
+import type { TranslationReview } from "@/lib/validations/settings";
 
 export type PassportSummary = {
   id: string;
@@ -163,7 +164,7 @@ export type BookletRecord = {
   gp: { name: string; phone: string | null; outOfHoursPhone: string | null } | null;
   checklist: Awaited<ReturnType<typeof getLatestDischargeChecklist>>;
   /** Null when an admin has not set it: the booklet is then refused, never printed without it. */
-  settings: { emergencyNumber: string | null; outOfHoursServiceName: string | null };
+  settings: { emergencyNumber: string | null; outOfHoursServiceName: string | null; region: string | null; translationReviews: Partial<Record<string, TranslationReview>> };
 };
 
 export async function getBookletRecord({ patientId }: { patientId: string }, tx: Executor = db): Promise<BookletRecord | null> {
@@ -222,6 +223,11 @@ export async function getBookletRecord({ patientId }: { patientId: string }, tx:
     gp: gpRows[0] ?? null,
     checklist,
     // The service's name goes beside its number only: a team's own out-of-hours line is the team's.
-    settings: { emergencyNumber: deployment.emergencyNumber, outOfHoursServiceName: teams?.outOfHoursIsService ? deployment.outOfHoursServiceName : null },
+    settings: {
+      emergencyNumber: deployment.emergencyNumber,
+      outOfHoursServiceName: teams?.outOfHoursIsService ? deployment.outOfHoursServiceName : null,
+      region: deployment.region,
+      translationReviews: deployment.translationReviews,
+    },
   };
 }

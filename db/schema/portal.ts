@@ -5,6 +5,7 @@ import { user } from "./auth";
 import { timestamps } from "./columns";
 import { patients } from "./patients";
 import { TRIAGE_LEVELS } from "@/lib/clinical";
+import { CONTRASTS } from "@/lib/validations/reading";
 
 
 export const checkIns = pgTable(
@@ -76,3 +77,18 @@ export const uploads = pgTable(
 export type CheckIn = typeof checkIns.$inferSelect;
 export type DiaryEntry = typeof diaryEntries.$inferSelect;
 export type Upload = typeof uploads.$inferSelect;
+
+// Reading comfort, per person (patient or carer), on every phone they use: a text size step
+// (lib/validations/reading TEXT_SIZES) and the contrast.
+export const readingPreferences = pgTable(
+  "reading_preferences",
+  {
+    userId: text("user_id")
+      .primaryKey()
+      .references(() => user.id, { onDelete: "cascade" }),
+    textSize: integer("text_size").notNull().default(0),
+    contrast: text("contrast", { enum: CONTRASTS }).notNull().default("standard"),
+    ...timestamps,
+  },
+  (t) => [check("reading_preferences_text_size", sql`${t.textSize} between 0 and 3`)],
+);

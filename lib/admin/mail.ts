@@ -6,6 +6,7 @@ import "server-only";
 import { createHash } from "node:crypto";
 import { eq } from "drizzle-orm";
 import { db, type Executor } from "@/db";
+import { getRegion } from "@/lib/config/settings";
 import { accountMailContext, PASSWORD_RESET_KIND, SIGN_IN_ATTEMPTS_KIND, STAFF_INVITE_KIND } from "@/db/queries/admin-mail";
 import { user } from "@/db/schema";
 import { env } from "@/lib/config/env";
@@ -39,7 +40,7 @@ export async function sendStaffInvitation(tx: Executor, mail: StaffInvitationMai
   const locale = emailLocale(mail.locale);
   const t = adminMailTranslator(locale);
   const common = emailTranslator(locale);
-  const d = emailDates(locale);
+  const d = emailDates(locale, await getRegion(tx));
   const content = {
     locale,
     subject: t("staffInvite.subject"),
@@ -86,7 +87,7 @@ export async function sendPasswordReset(
   const locale = emailLocale(context.locale);
   const t = adminMailTranslator(locale);
   const common = emailTranslator(locale);
-  const d = emailDates(locale);
+  const d = emailDates(locale, await getRegion(tx));
   const link = new URL(url);
   // The page that sets the new password opens in the e-mail's language.
   link.searchParams.set("callbackURL", `/${locale}/reset-password`);
@@ -140,7 +141,7 @@ export async function sendSignInAttemptsNotice(
   const locale = emailLocale(context.locale);
   const t = adminMailTranslator(locale);
   const common = emailTranslator(locale);
-  const d = emailDates(locale);
+  const d = emailDates(locale, await getRegion(tx));
   const patientFacing = context.patientId !== null;
   const content = {
     locale,

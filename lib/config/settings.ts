@@ -6,12 +6,14 @@ import type { Executor } from "@/db";
 import { readSettingRows, writeSettings } from "@/db/queries/settings";
 import { planDefaults, type Material, type PlanDatesOptions, type PlanDefaults } from "@/lib/clinical";
 import { DEFAULT_REFERRAL_REMINDER_HOURS } from "@/lib/shared/referrals";
-import { settingKeys, settingSchemas, type SettingsPatch } from "@/lib/validations/settings";
+import { settingKeys, settingSchemas, type SettingsPatch, type TranslatedLocale, type TranslationReview } from "@/lib/validations/settings";
 import { DEFAULT_WORKING_HOURS, minutesOfClock, type WorkingHours } from "@/lib/shared/working-hours";
 
 export type DeploymentSettings = {
   /** Digits the portal shows and dials in an emergency; null when not configured. */
   emergencyNumber: string | null;
+  /** Two-letter region (GB) whose conventions dates and numbers follow; null: the language's own. */
+  region: string | null;
   /** The name of the out-of-hours service, e.g. shown beside a team's out-of-hours number. */
   outOfHoursServiceName: string | null;
   /** Starting values for lib/clinical `planDates`; null or missing means the rule's own default. */
@@ -29,6 +31,8 @@ export type DeploymentSettings = {
   outOfHoursPhone: string | null;
   /** Hours before an unanswered referral is flagged and sent again; null means the default. */
   referralReminderHours: number | null;
+  /** Per translated language, who reviewed its patient texts and when; a missing language is not reviewed. */
+  translationReviews: Partial<Record<TranslatedLocale, TranslationReview>>;
 };
 
 /** Two hours of working time (the default the care teams asked for; common practice, no source). */
@@ -50,6 +54,7 @@ export async function getSettings(tx?: Executor): Promise<DeploymentSettings> {
   const get = <K extends keyof typeof settingSchemas>(key: K) => (raw.has(key) ? parse(key, raw.get(key)) : null);
   return {
     emergencyNumber: get("emergencyNumber") as string | null,
+    region: get("region") as string | null,
     outOfHoursServiceName: get("outOfHoursServiceName") as string | null,
     reviewIntervalDays: get("reviewIntervalDays") as number | null,
     dueSoonDays: get("dueSoonDays") as number | null,
@@ -60,6 +65,7 @@ export async function getSettings(tx?: Executor): Promise<DeploymentSettings> {
     workingDayEnd: get("workingDayEnd") as string | null,
     outOfHoursPhone: get("outOfHoursPhone") as string | null,
     referralReminderHours: get("referralReminderHours") as number | null,
+    translationReviews: (get("translationReviews") as Partial<Record<TranslatedLocale, TranslationReview>> | null) ?? {},
   };
 }
 
@@ -85,6 +91,17 @@ export async function getAcknowledgePlan(tx?: Executor): Promise<{ minutes: numb
 /** Hours a referral may stay unanswered before it is flagged and sent again to the receiving team. */
 export async function getReferralReminderHours(tx?: Executor): Promise<number> {
   return (await getSettings(tx)).referralReminderHours ?? DEFAULT_REFERRAL_REMINDER_HOURS;
+}
+
+/** The region dates and numbers are written for (lib/shared/formats), or null. */
+export async function getRegion(tx?: Executor): Promise<string | null> {
+  return (await getSettings(tx)).region;
+}
+
+/** The medical translator's review of a language's patient texts, or null (not reviewed; English is the source). */
+export async function getTranslationReview(locale: string, tx?: Executor): Promise<TranslationReview | null> {
+  const reviews = (await getSettings(tx)).translationReviews;
+  return (reviews as Record<string, TranslationReview | undefined>)[locale] ?? null;
 }
 
 /** Options for lib/clinical `planDates` from the deployment settings. */

@@ -7,6 +7,7 @@ import type { AlertReporter } from "@/db/schema";
 import { getLeadTeamContact, type LeadTeamContact } from "@/db/queries/contacts";
 import { getActiveEpisode, getPatientForMail } from "@/db/queries/mail-context";
 import { alertTeams } from "@/lib/records/alert-team";
+import { getRegion } from "@/lib/config/settings";
 import { env } from "@/lib/config/env";
 import { emailDates, emailLocale, emailTranslator, emailVocabulary } from "./i18n";
 import { queueMessage, type QueuedMessage } from "./outbox";
@@ -58,9 +59,10 @@ function alertContent(
   input: CareTeamAlertInput & { level: AlertLevel },
   ctx: { hrn: string; device: string | null; plannedChangeOn: string | null; teamName: string; lead: LeadTeamContact | null },
   locale: string,
+  region: string | null,
 ): EmailContent {
   const t = emailTranslator(locale);
-  const d = emailDates(locale);
+  const d = emailDates(locale, region);
   const levelWord = t(`enum.alertLevel.${input.level}`);
   const severe = input.level === "emergency" || input.level === "high";
   const rows = [{ label: t("gp.healthRecordNumber"), value: ctx.hrn }];
@@ -112,6 +114,7 @@ export async function queueCareTeamAlert(tx: Executor, input: CareTeamAlertInput
     getActiveEpisode({ patientId: input.patientId }, tx),
     getLeadTeamContact({ patientId: input.patientId }, tx),
   ]);
+  const region = await getRegion(tx);
   const out: QueuedMessage[] = [];
   // No care team at all: keep a failed row so the gap is visible rather than silent.
   const targets = teams.length
@@ -133,6 +136,7 @@ export async function queueCareTeamAlert(tx: Executor, input: CareTeamAlertInput
         lead,
       },
       locale,
+      region,
     );
     out.push(
       await queueMessage(tx, {

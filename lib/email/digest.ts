@@ -5,7 +5,7 @@ import "server-only";
 import { db, type Executor } from "@/db";
 import { listDigestOrganisations, listDueEpisodes, listFailedMessages } from "@/db/queries/digest";
 import { addDays, parseIsoDate, stateFor } from "@/lib/clinical";
-import { getPlanDefaults } from "@/lib/config/settings";
+import { getPlanDefaults, getRegion } from "@/lib/config/settings";
 import { env } from "@/lib/config/env";
 import { dayIn } from "@/lib/shared/time-zone";
 import { emailDates, emailLocale, emailTranslator } from "./i18n";
@@ -43,9 +43,10 @@ function digestContent(
   lines: Awaited<ReturnType<typeof digestLines>>,
   failed: Awaited<ReturnType<typeof listFailedMessages>>,
   locale: string,
+  region: string | null,
 ): EmailContent {
   const t = emailTranslator(locale);
-  const d = emailDates(locale);
+  const d = emailDates(locale, region);
   const head = [t("digest.colPatient"), t("gp.healthRecordNumber"), t("digest.colWhat"), t("digest.colDate"), t("digest.colWhen")];
   const row = (l: DigestLine) => [
     l.name,
@@ -90,7 +91,7 @@ export async function queueDigestFor(
     idempotencyKey: `digest:${organisation.id}:${today}${keySuffix}`,
     kind: "digest",
     to: organisation.inboxEmail,
-    ...renderEmail(digestContent(organisation, today, lines, failed, locale)),
+    ...renderEmail(digestContent(organisation, today, lines, failed, locale, await getRegion(tx))),
     organisationId: organisation.id,
     locale,
     sourceId: today,

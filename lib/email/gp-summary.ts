@@ -4,6 +4,7 @@ import "server-only";
 // PDF of the same content attached (rendered at send time from the same rows).
 import type { Executor } from "@/db";
 import { db } from "@/db";
+import { getRegion } from "@/lib/config/settings";
 import { loadGpSummaryFacts, type DeviceFacts, type GpSummaryCause, type GpSummaryFacts } from "@/db/queries/gp-summary";
 import { emailDates, emailLocale, emailTranslator, emailVocabulary, type EmailT, type EmailV } from "./i18n";
 import { queueMessage, type QueuedMessage } from "./outbox";
@@ -119,10 +120,10 @@ export function languageNames(codes: readonly string[], locale: string): string 
 }
 
 /** The summary as one content model, for the e-mail (HTML and text) and the PDF alike. */
-export function gpSummaryContent(facts: GpSummaryFacts, locale: string): EmailContent {
+export function gpSummaryContent(facts: GpSummaryFacts, locale: string, region: string | null): EmailContent {
   const t = emailTranslator(locale);
   const v = emailVocabulary(locale);
-  const d = emailDates(locale);
+  const d = emailDates(locale, region);
   const c = facts.cause;
   const actor = facts.actorOrganisation ? t("common.actorAt", { name: facts.actorName, organisation: facts.actorOrganisation }) : facts.actorName;
   const blocks: Block[] = [];
@@ -298,7 +299,7 @@ export function gpSummaryFilename(facts: GpSummaryFacts) {
 export async function queueGpSummary(tx: Executor, input: QueueGpSummaryInput): Promise<QueuedMessage> {
   const facts = await loadGpSummaryFacts(input, tx);
   const locale = emailLocale(facts.gp?.locale);
-  const content = gpSummaryContent(facts, locale);
+  const content = gpSummaryContent(facts, locale, await getRegion(tx));
   const rendered = renderEmail(content);
   const params: Record<string, string> = {
     patientId: input.patientId,
@@ -340,6 +341,7 @@ export async function renderGpSummaryAttachment(params: Record<string, string>) 
   );
   const { renderContentPdf } = await import("@/lib/pdf/gp-summary");
   const locale = emailLocale(params.locale);
-  const content = await renderContentPdf(gpSummaryContent(facts, locale), { generatedAt: new Date() });
+  const region = await getRegion();
+  const content = await renderContentPdf(gpSummaryContent(facts, locale, region), { generatedAt: new Date(), region });
   return { content, contentType: "application/pdf" };
 }

@@ -17,9 +17,9 @@ export function emailVocabulary(locale: string) {
 }
 export type EmailV = ReturnType<typeof emailVocabulary>;
 
-/** Formats a YYYY-MM-DD calendar date (no time zone shift) or a timestamp. */
-export function emailDates(locale: string) {
-  const f = formatterFor(locale);
+/** Formats a YYYY-MM-DD calendar date (no time zone shift) or a timestamp, in the deployment's region. */
+export function emailDates(locale: string, region: string | null) {
+  const f = formatterFor(locale, region);
   return {
     day: (d: string | null | undefined) => (d ? f.dateTime(new Date(`${d}T12:00:00Z`), { dateStyle: "full", timeZone: "UTC" }) : ""),
     at: (d: Date | null | undefined) => (d ? f.dateTime(d, { dateStyle: "medium", timeStyle: "short" }) : ""),

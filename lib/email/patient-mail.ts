@@ -2,6 +2,7 @@ import "server-only";
 // E-mails to patients and the people they invite, in the patient's language (patients.
 // preferred_locale). They hold a one-time code or link, so the body is blanked once sent.
 import type { Executor } from "@/db";
+import { getRegion } from "@/lib/config/settings";
 import { getPatientForMail } from "@/db/queries/mail-context";
 import { emailDates, emailLocale, emailTranslator } from "./i18n";
 import { queueMessage, type QueuedMessage } from "./outbox";
@@ -16,7 +17,7 @@ export async function queuePatientInvitation(
   if (!patient) throw new Error(`invitation: patient ${patientId} not found`);
   const locale = emailLocale(patient.preferredLocale);
   const t = emailTranslator(locale);
-  const d = emailDates(locale);
+  const d = emailDates(locale, await getRegion(tx));
   const content = {
     locale,
     subject: t("invite.subject"),
@@ -51,7 +52,7 @@ export async function queueCarerInvitation(
   if (!patient) throw new Error(`carer invitation: patient ${patientId} not found`);
   const locale = emailLocale(patient.preferredLocale);
   const t = emailTranslator(locale);
-  const d = emailDates(locale);
+  const d = emailDates(locale, await getRegion(tx));
   const content = {
     locale,
     subject: t("carerInvite.subject", { name: patient.givenName }),

@@ -8,7 +8,7 @@ import { getLeadTeamContact } from "@/db/queries/contacts";
 import { listChangeReminders } from "@/db/queries/reminders";
 import { addDays, parseIsoDate } from "@/lib/clinical";
 import { env } from "@/lib/config/env";
-import { getPlanDefaults } from "@/lib/config/settings";
+import { getPlanDefaults, getRegion } from "@/lib/config/settings";
 import { localToday } from "./digest";
 import { emailDates, emailLocale, emailTranslator } from "./i18n";
 import { queueMessage, type QueuedMessage } from "./outbox";
@@ -27,7 +27,7 @@ type ReminderRow = Awaited<ReturnType<typeof listChangeReminders>>[number];
 export async function queueChangeReminder(tx: Executor, row: ReminderRow, today: string): Promise<QueuedMessage> {
   const locale = emailLocale(row.preferredLocale);
   const t = emailTranslator(locale);
-  const d = emailDates(locale);
+  const d = emailDates(locale, await getRegion(tx));
   const days = parseIsoDate("plannedChangeOn", row.plannedChangeOn) - parseIsoDate("today", today);
   const lead = await getLeadTeamContact({ patientId: row.patientId }, tx);
   const team = lead?.phone ? { name: lead.name, phone: lead.phone } : null;

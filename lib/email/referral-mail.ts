@@ -6,7 +6,7 @@ import { db, type Executor } from "@/db";
 import { getReferral, getTeamOrganisation, listOverdueReferrals, markReminded } from "@/db/queries/referrals";
 import { getPatientForMail } from "@/db/queries/mail-context";
 import { env } from "@/lib/config/env";
-import { getReferralReminderHours } from "@/lib/config/settings";
+import { getReferralReminderHours, getRegion } from "@/lib/config/settings";
 import { audit } from "@/lib/records/audit";
 import { emailDates, emailLocale, emailTranslator } from "./i18n";
 import { queueMessage, type QueuedMessage } from "./outbox";
@@ -26,7 +26,7 @@ export async function queueReferralMail(tx: Executor, { referralId, event, remin
   const recipient = event === "declined" ? from : to;
   const locale = emailLocale(recipient.locale);
   const t = emailTranslator(locale);
-  const d = emailDates(locale);
+  const d = emailDates(locale, await getRegion(tx));
   const name = `${patient.givenName} ${patient.familyName}`;
   const origin = new URL(env.APP_URL).origin;
   const rows = [

@@ -72,8 +72,10 @@ export function renderHtml(content: EmailContent): string {
   const dir = directionOf(content.locale);
   const start = dir === "rtl" ? "right" : "left";
   const font =
-    dir === "rtl"
-      ? "'Noto Sans Arabic', Tahoma, Arial, sans-serif"
+    content.locale === "ur"
+      ? "'Noto Nastaliq Urdu', 'Noto Naskh Arabic', Tahoma, Arial, sans-serif"
+      : dir === "rtl"
+      ? "'Noto Naskh Arabic', Tahoma, Arial, sans-serif"
       : "'Atkinson Hyperlegible', 'Noto Sans', Arial, sans-serif";
   return html`<!doctype html>
 <html lang="${content.locale}" dir="${dir}">

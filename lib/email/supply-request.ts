@@ -2,6 +2,7 @@ import "server-only";
 // The request to the GP practice to prescribe a period's catheter supplies, in the practice's
 // language, with the catheter's specification so the right product is prescribed.
 import type { Executor } from "@/db";
+import { getRegion } from "@/lib/config/settings";
 import { getCareTeamOrganisations } from "@/db/queries/mail-context";
 import type { CatheterEpisode, Organisation, Patient, SupplyRequest } from "@/db/schema";
 import { allergyText, careTeamLines } from "./gp-summary";
@@ -30,7 +31,7 @@ export async function queueSupplyRequestEmail(
   const locale = emailLocale(gp?.locale);
   const t = emailTranslator(locale);
   const v = emailVocabulary(locale);
-  const d = emailDates(locale);
+  const d = emailDates(locale, await getRegion(tx));
   const team = await getCareTeamOrganisations({ patientId: patient.id }, tx);
   const basis = (item: string, interval: number) => {
     if (item === "catheter") return t("supply.basisCatheter", { days: interval });

@@ -17,6 +17,8 @@ export const LIMITS = {
   // A clinician at the door scans once or twice; 30 a minute leaves room for a shared NAT
   // (a care home, a hospital) while making token guessing pointless (256-bit tokens anyway).
   passportCard: { name: "card", max: 30, windowSeconds: 60 },
+  // Speech made anew (lib/speech): a long page is some 60 sentences; cached speech is not counted.
+  speech: { name: "speech", max: 240, windowSeconds: 60 },
 } as const satisfies Record<string, LimitRule>;
 
 /** Counts one attempt; returns how many were made in the current window. */

@@ -1,8 +1,9 @@
 import "server-only";
 // The one loader of the message catalogues for server code: e-mails, PDFs, CSV, the card's 429
 // page and each request's messages (lib/i18n/request.ts). A locale Caddis does not have falls
-// back to English. Dates and numbers are formatted in the deployment's time zone.
-import { createFormatter, createTranslator, type NamespaceKeys, type NestedKeyOf } from "next-intl";
+// back to English. Dates and numbers are formatted in the deployment's time zone and region.
+import { createTranslator, type NamespaceKeys, type NestedKeyOf } from "next-intl";
+import { makeFormat } from "@/lib/shared/formats";
 import { deploymentTimeZone } from "@/lib/shared/time-zone";
 import ar from "@/messages/ar.json";
 import en from "@/messages/en.json";
@@ -31,6 +32,7 @@ export function translatorFor<N extends NamespaceKeys<Messages, NestedKeyOf<Mess
   return createTranslator({ locale: l, messages: catalogues[l], namespace });
 }
 
-export function formatterFor(locale: string) {
-  return createFormatter({ locale: catalogueLocale(locale), timeZone: deploymentTimeZone() });
+/** Dates and numbers (lib/shared/formats) in a locale and the deployment's region (Settings `region`). */
+export function formatterFor(locale: string, region: string | null) {
+  return makeFormat({ locale: catalogueLocale(locale), region, timeZone: deploymentTimeZone() });
 }

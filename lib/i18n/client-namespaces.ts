@@ -6,11 +6,11 @@ export const clientNamespaces = {
   /** Every page: the root error boundary. */
   root: ["Errors"],
   auth: ["AcceptInvite", "Activate", "CarerInvite", "Common", "Password", "PasswordReset", "SignIn", "SignOut", "TwoFactor"],
-  portal: ["Account", "CheckIn", "Common", "Diary", "More", "MyCatheter", "Password", "People", "Portal", "Sessions", "Today", "TwoFactor", "Uploads"],
+  portal: ["Account", "CheckIn", "Common", "Diary", "Listen", "More", "MyCatheter", "Password", "People", "Pictures", "Portal", "Reading", "Sessions", "Today", "TwoFactor", "Uploads"],
   staff: [
     "Account", "Admin", "AdminOrganisations", "AdminPatients", "AdminSettings", "AdminStaff", "Caseload", "CaseloadState",
     "CareLoop", "Common", "EpisodeForm", "Letters", "Passport", "Password", "PatientDevice", "PatientForm", "PatientRecord",
-    "PortalInvite", "Scan", "Sessions", "Supplies", "Transfer", "TwoFactor", "Uploads", "VisitForm", "Visits", "Vocabulary",
+    "PortalInvite", "Scan", "Sessions", "Supplies", "Transfer", "TranslationReview", "TwoFactor", "Uploads", "VisitForm", "Visits", "Vocabulary",
   ],
   /** The public device card and short-code pages, and the clinician's visit sign-in. */
   card: ["Password", "SignIn", "TwoFactor", "VisitAccess"],

@@ -23,14 +23,26 @@ export const latinExt = localFont({
   preload: false,
 });
 
+// Arabic in Naskh; Urdu in Nastaliq, the hand Urdu readers expect (app/globals.css swaps it in
+// for lang="ur").
 export const arabic = localFont({
   src: [
-    { path: "../../fonts/noto-sans-arabic/noto-sans-arabic-arabic-400-normal.woff2", weight: "400" },
-    { path: "../../fonts/noto-sans-arabic/noto-sans-arabic-arabic-700-normal.woff2", weight: "700" },
+    { path: "../../fonts/noto-naskh-arabic/noto-naskh-arabic-arabic-400-normal.woff2", weight: "400" },
+    { path: "../../fonts/noto-naskh-arabic/noto-naskh-arabic-arabic-700-normal.woff2", weight: "700" },
   ],
   variable: "--font-arabic",
   display: "swap",
   preload: false,
 });
 
-export const fontVariables = `${latin.variable} ${latinExt.variable} ${arabic.variable}`;
+export const nastaliq = localFont({
+  src: [
+    { path: "../../fonts/noto-nastaliq-urdu/noto-nastaliq-urdu-arabic-400-normal.woff2", weight: "400" },
+    { path: "../../fonts/noto-nastaliq-urdu/noto-nastaliq-urdu-arabic-700-normal.woff2", weight: "700" },
+  ],
+  variable: "--font-nastaliq",
+  display: "swap",
+  preload: false,
+});
+
+export const fontVariables = `${latin.variable} ${latinExt.variable} ${arabic.variable} ${nastaliq.variable}`;

@@ -109,6 +109,8 @@ export function bookletData({
   }
   return {
     locales: passportLanguages(record.patient.preferredLocale),
+    region: record.settings.region,
+    translationReviews: record.settings.translationReviews,
     url,
     shortCode,
     qrPngDataUrl: qr,

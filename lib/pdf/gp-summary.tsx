@@ -137,7 +137,7 @@ function BlockView({ pdf, block, s, rtl }: { pdf: Pdf; block: Block; s: ReturnTy
   }
 }
 
-export async function renderContentPdf(raw: EmailContent, meta: { generatedAt: Date }): Promise<Buffer> {
+export async function renderContentPdf(raw: EmailContent, meta: { generatedAt: Date; region: string | null }): Promise<Buffer> {
   const plain = cleaner(directionOf(raw.locale) === "rtl");
   const content: EmailContent = {
     ...raw,
@@ -152,7 +152,7 @@ export async function renderContentPdf(raw: EmailContent, meta: { generatedAt: D
   const rtl = directionOf(content.locale) === "rtl";
   const s = styles(rtl);
   const t = emailTranslator(content.locale);
-  const d = emailDates(content.locale);
+  const d = emailDates(content.locale, meta.region);
   const doc = (
     <Document title={content.title} author="Caddis" subject={content.subject} creator="Caddis" producer="Caddis" language={content.locale}>
       <Page size="A4" style={s.page}>

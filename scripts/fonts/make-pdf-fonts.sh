@@ -6,17 +6,14 @@
 #   to the second (a Polish or Romanian letter) embedded a subset of its own.
 # - Saved as plain TrueType: fontkit inflates a WOFF table again on every read, which was most of
 #   a booklet's render time.
-# Usage: scripts/fonts/make-pdf-fonts.sh <latin-400> <latin-ext-400> <latin-700> <latin-ext-700> <arabic-400> <arabic-700>
+# Arabic (Noto Naskh Arabic) comes from the @fontsource package's
+# WOFF files, made TrueType with scripts/fonts/woff-to-ttf.py (standard library only).
+# Usage: scripts/fonts/make-pdf-fonts.sh <latin-400> <latin-ext-400> <latin-700> <latin-ext-700>
 set -eu
 out="$(cd "$(dirname "$0")/../../fonts" && pwd)"
 py=/usr/bin/python3
 merge() {
   $py -m fontTools.merge --output-file="$out/atkinson-hyperlegible/atkinson-hyperlegible-latin-all-$3-normal.ttf" "$1" "$2"
 }
-plain() {
-  $py -c "from fontTools.ttLib import TTFont; f = TTFont('$1'); f.flavor = None; f.save('$2')"
-}
 merge "$1" "$2" 400
 merge "$3" "$4" 700
-plain "$5" "$out/noto-sans-arabic/noto-sans-arabic-arabic-400-normal.ttf"
-plain "$6" "$out/noto-sans-arabic/noto-sans-arabic-arabic-700-normal.ttf"

@@ -1,6 +1,6 @@
 // Organisations (create, read, edit; 404 across organisations) and deployment settings (the
 // emergency number with no default hidden in code; intervals passed to lib/clinical planDates).
-import { eq } from "drizzle-orm";
+import { desc, eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { GET as orgList, POST as orgCreate } from "@/app/api/admin/organisations/route";
 import { GET as orgGet, PATCH as orgPatch } from "@/app/api/admin/organisations/[organisationId]/route";
@@ -12,7 +12,7 @@ import { GET as caseloadGet } from "@/app/api/caseload/route";
 import { POST as postInsertion } from "@/app/api/patients/[patientId]/episodes/route";
 import { POST as createPatient } from "@/app/api/patients/route";
 import { addDays } from "@/lib/clinical";
-import { getEmergencyNumber } from "@/lib/config/settings";
+import { getEmergencyNumber, getRegion, getSettings, getTranslationReview } from "@/lib/config/settings";
 import { dayIn, deploymentTimeZone } from "@/lib/shared/time-zone";
 import { clinicianInNewTeam, demoDevice } from "../support/fixtures";
 import { call, demo, sessionFor, signIn } from "../support/http";
@@ -217,5 +217,45 @@ describe("deployment settings", () => {
       expect((await call(settingsPatch, "/api/admin/settings", { method: "PATCH", cookie, body: { emergencyNumber: "111" } })).status).toBe(403);
     }
     expect(await getEmergencyNumber()).toBe("999");
+  });
+
+  it("the region for dates is a setting: a two-letter code, kept upper-case; anything else is refused and changes nothing", async () => {
+    const bad = await call(settingsPatch, "/api/admin/settings", { method: "PATCH", cookie: admin, body: { region: "GBR" } });
+    expect(bad.status).toBe(400);
+    expect((await bad.json()).error.fields.region).toEqual(["region_code"]);
+    expect(await getRegion()).toBe("GB");
+    const ok = await call(settingsPatch, "/api/admin/settings", { method: "PATCH", cookie: admin, body: { region: "ie" } });
+    expect(ok.status).toBe(200);
+    expect(await getRegion()).toBe("IE");
+    await call(settingsPatch, "/api/admin/settings", { method: "PATCH", cookie: admin, body: { region: "GB" } });
+    expect(await getRegion()).toBe("GB");
+  });
+
+  it("an admin records who reviewed a language's patient texts and when; bad input is refused and writes nothing", async () => {
+    const bad = await call(settingsPatch, "/api/admin/settings", {
+      method: "PATCH",
+      cookie: admin,
+      body: { translationReviews: { pl: { reviewerName: "A", reviewedOn: "2999-01-01" }, en: { reviewerName: "Nobody", reviewedOn: "2026-01-01" } } },
+    });
+    expect(bad.status).toBe(400);
+    expect((await getSettings()).translationReviews).toEqual({});
+    const ok = await call(settingsPatch, "/api/admin/settings", {
+      method: "PATCH",
+      cookie: admin,
+      body: { translationReviews: { pl: { reviewerName: "Anna Test-Reviewer", reviewedOn: "2026-11-20" } } },
+    });
+    expect(ok.status).toBe(200);
+    expect(await getTranslationReview("pl")).toEqual({ reviewerName: "Anna Test-Reviewer", reviewedOn: "2026-11-20" });
+    expect(await getTranslationReview("ar")).toBeNull();
+    const [event] = await db
+      .select()
+      .from(auditEvents)
+      .where(eq(auditEvents.action, "admin.settings.update"))
+      .orderBy(desc(auditEvents.at))
+      .limit(1);
+    expect(JSON.stringify(event.details)).toContain("Anna Test-Reviewer");
+    // Withdrawn (e.g. after the texts change): the caution comes back.
+    await call(settingsPatch, "/api/admin/settings", { method: "PATCH", cookie: admin, body: { translationReviews: null } });
+    expect(await getTranslationReview("pl")).toBeNull();
   });
 });

@@ -123,6 +123,7 @@ const plans: Record<string, Plan> = {
   "POST /api/staff-invitations/accept": { notARecordWrite: "staff accounts" },
   "POST /api/admin/staff/[userId]/sign-out": { notARecordWrite: "staff accounts: ends a member of staff's sessions" },
   "DELETE /api/account/sessions": { notARecordWrite: "the viewer's own sign-in sessions" },
+  "PUT /api/account/reading": { notARecordWrite: "the viewer's own text size and contrast" },
   "DELETE /api/account/sessions/[sessionId]": { notARecordWrite: "the viewer's own sign-in sessions" },
 };
 

@@ -66,8 +66,8 @@ describe("GP summary", () => {
       expect(body).toContain("14 Ch (4.7 mm)"); // Source: ISO 20696:2018 5.5.2, 14 Ch → 4.7 mm
       expect(body).toContain("10 ml sterile water");
       expect(body).toContain("Grace Mensah, Harbourside Community Nursing Team");
-      expect(body).toContain("Monday, February 22, 2027"); // planned change (next-intl "en": US order)
-      expect(body).toContain("Tuesday, December 29, 2026"); // review of need
+      expect(body).toContain("Monday, 22 February 2027"); // planned change (the demo's region is GB: day month year)
+      expect(body).toContain("Tuesday, 29 December 2026"); // review of need
       expect(body).toContain("Latex allergy and a latex-containing catheter");
       expect(body).toContain("Checked with the patient: contact rash only, silicone-coated");
       expect(body).toContain("The device was past its expiry date: the device was not used (lot EXP1, expired 2026-10-31).");
@@ -90,7 +90,7 @@ describe("GP summary", () => {
     expect(text).toContain("Catheter changed");
     expect(text).toContain("14 Ch (4.7 mm)");
     expect(text).toContain("Grace Mensah");
-    expect(text).toContain("February 22, 2027");
+    expect(text).toContain("22 February 2027");
     expect(text).toContain("Løvgren");
   });
 

@@ -151,6 +151,8 @@ describe("passport booklet (PDF)", () => {
     }));
     const pdf = await renderPassportPdf({
       locales: ["pl", "en"],
+      region: "GB",
+      translationReviews: { pl: { reviewerName: "Test Reviewer", reviewedOn: "2026-11-20" } },
       url,
       shortCode: "ABCD-EFGH-JKMN",
       qrPngDataUrl: await qrPngDataUrl(url),
@@ -167,5 +169,9 @@ describe("passport booklet (PDF)", () => {
     expect(text.indexOf("LOT000")).toBeLessThan(text.indexOf("LOT069"));
     expect(text).toContain(pdfWords("pl").noDevice);
     expect(text).toContain("Lateks");
+    // Polish reviewed by a medical translator: its foot says so, and no caution is left in either language.
+    expect(text).toContain("Sprawdzone przez tłumacza medycznego dnia 20 listopada 2026");
+    expect(text).not.toContain(pdfWords("pl").translationNote);
+    expect(text).not.toContain(pdfWords("en").translationNote);
   });
 });

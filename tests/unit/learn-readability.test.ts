@@ -54,7 +54,30 @@ describe("Learn pages", () => {
       expect(page.title.length, `${locale} ${p.key}`).toBeGreaterThan(0);
       expect(page.sections.map((s) => s.points.length)).toEqual(en.pages[p.key].sections.map((s: LearnSection) => s.points.length));
     }
-    // The translation mark is shown on every non-English page (the page component renders it).
-    expect(load(locale).Learn.translationNote.length).toBeGreaterThan(20);
+    // The foot of every translated patient page says whether a medical translator reviewed it.
+    expect(load(locale).TranslationReview.notReviewedFooter.length).toBeGreaterThan(20);
+  });
+});
+
+describe("check-in questions and results", () => {
+  const ci = load("en").CheckIn as {
+    questions: Record<string, { self: string; carer: string; hint?: string; options?: Record<string, string> }>;
+    reason: Record<string, string>;
+    advice: Record<string, string>;
+  };
+
+  it.each(Object.keys(ci.questions).map((k) => [k]))("English question %s (with its hint and answers) scores grade ≤ 6", (key) => {
+    const q = ci.questions[key];
+    for (const who of [q.self, q.carer]) {
+      const g = grade([who, ...(q.hint ? [q.hint] : []), ...Object.values(q.options ?? {})]);
+      expect(g, `${key}: grade ${g.toFixed(2)}`).toBeLessThanOrEqual(6);
+    }
+  });
+
+  it("the results' reasons and advice, read together as a result shows them, score grade ≤ 6", () => {
+    const reasons = grade(Object.values(ci.reason));
+    const advice = grade(Object.values(ci.advice));
+    expect(reasons, `reasons: grade ${reasons.toFixed(2)}`).toBeLessThanOrEqual(6);
+    expect(advice, `advice: grade ${advice.toFixed(2)}`).toBeLessThanOrEqual(6);
   });
 });

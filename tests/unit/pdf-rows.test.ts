@@ -12,8 +12,8 @@ const words = en.PassportPdf;
 const vocab = en.Vocabulary;
 const dev = en.Vocabulary.device;
 const LRM = "\u200E";
-const enOnly = [pdfStrings("en")];
-const arEn = [pdfStrings("ar"), pdfStrings("en")];
+const enOnly = [pdfStrings("en", "GB")];
+const arEn = [pdfStrings("ar", "GB"), pdfStrings("en", "GB")];
 
 const device: BookletDevice = {
   route: "suprapubic",
@@ -103,7 +103,7 @@ describe("contact rows", () => {
 
 describe("allergies and history", () => {
   it("lists the allergies a patient has in a fixed order, the free-text one last with its label", () => {
-    const s = pdfStrings("en");
+    const s = pdfStrings("en", "GB");
     expect(allergyList(s, { latex: "yes", chlorhexidine: "no", lidocaine: "yes", other: " plasters " })).toEqual([
       vocab.allergen.latex, vocab.allergen.lidocaine, `${words.allergy.other}: plasters`,
     ]);
@@ -112,18 +112,18 @@ describe("allergies and history", () => {
   });
 
   it("names the allergens nobody has asked about, to ask first", () => {
-    const s = pdfStrings("en");
+    const s = pdfStrings("en", "GB");
     const line = notRecordedLine(s, { latex: "not-asked", chlorhexidine: "no", lidocaine: "not-asked", other: null });
     expect(line).toBe(words.allergyNotRecorded.replace("{allergens}", `${vocab.allergen.latex}, ${vocab.allergen.lidocaine}`));
   });
 
   it("says what happened, why, and which catheter went in", () => {
-    const s = pdfStrings("en");
+    const s = pdfStrings("en", "GB");
     const e: BookletEvent = { at: new Date(), kind: "unplanned_change", reason: "blockage", twocOutcome: null, byName: "Grace Mensah", organisationName: null, sizeCh: 16, material: "all-silicone", lot: "YH5520" };
     expect(eventWhat(s, e)).toBe(`${vocab.eventKind.unplanned_change} (${vocab.unplannedReason.blockage})`);
     expect(eventDetails(s, e)).toBe(`16 Ch, ${vocab.material["all-silicone"]}, ${dev.lot} YH5520`);
     expect(eventDetails(s, { ...e, sizeCh: null, material: null, lot: null })).toBe("—");
-    expect(eventDetails(pdfStrings("ar"), e)).toContain("، ");
+    expect(eventDetails(pdfStrings("ar", "GB"), e)).toContain("، ");
   });
 });
 

@@ -8,7 +8,7 @@ export default async function AuthLayout({ children }: { children: ReactNode }) 
   const t = await getTranslations("Common");
   return (
     <ClientMessages scope="auth">
-      <div className="flex min-h-dvh flex-col [overflow-wrap:anywhere]">
+      <div className="words-whole flex min-h-dvh flex-col [overflow-wrap:break-word]">
         <header className="flex flex-wrap items-center justify-between gap-4 px-5 py-4">
           <Wordmark size="lg" />
           <LanguageSwitcher />

@@ -20,7 +20,7 @@ export default async function OfflinePage({ params }: { params: Promise<{ locale
   const t = await getTranslations("Offline");
   const emergency = await getEmergencyNumber();
   return (
-    <main className="mx-auto flex min-h-dvh max-w-xl flex-col gap-5 p-5 text-body [overflow-wrap:anywhere]" data-testid="offline-page">
+    <main className="words-whole mx-auto flex min-h-dvh max-w-xl flex-col gap-5 p-5 text-body [overflow-wrap:break-word]" data-testid="offline-page">
       <Wordmark size="lg" />
       <h1 className="text-3xl font-bold">{t("title")}</h1>
       <p>{t("body")}</p>

@@ -10,7 +10,7 @@ export default async function PassportLayout({ children, params }: { children: R
   const t = await getTranslations("DeviceCard");
   return (
     <ClientMessages scope="card">
-      <div className="flex min-h-dvh flex-col text-body [overflow-wrap:anywhere]">
+      <div className="words-whole flex min-h-dvh flex-col text-body [overflow-wrap:break-word]">
         <header className="px-5 py-4">
           <Wordmark size="lg" />
         </header>

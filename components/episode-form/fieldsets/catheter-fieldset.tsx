@@ -1,7 +1,8 @@
 "use client";
 // The catheter itself: route, type, material, length, size (with millimetres) and balloon, and
 // the reason for a size above the routine maximum.
-import { useFormatter, useTranslations } from "next-intl";
+import { useTranslations } from "next-intl";
+import { useFormat } from "@/components/i18n/format";
 import { RadioGroup } from "@/components/ui/choice";
 import { Field, SelectField, TextArea } from "@/components/ui/field";
 import { Section } from "@/components/ui/section";
@@ -11,7 +12,7 @@ import { useEpisodeOptions } from "./words";
 
 export function CatheterFieldset({ fields: { register, errorsOf, draft } }: { fields: EpisodeFields }) {
   const t = useTranslations("EpisodeForm");
-  const format = useFormatter();
+  const format = useFormat();
   const options = useEpisodeOptions();
   const sizeCh = Number(draft.sizeCh);
   const routineMax = draft.route === "suprapubic" ? DEVICE_RULES.routineMaxChSuprapubic.value : DEVICE_RULES.routineMaxChUrethral.value;

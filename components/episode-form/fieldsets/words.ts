@@ -1,4 +1,5 @@
-import { useFormatter, useTranslations } from "next-intl";
+import { useTranslations } from "next-intl";
+import { useFormat } from "@/components/i18n/format";
 
 type Group = "route" | "catheterType" | "material" | "lengthCategory" | "gelKind" | "unplannedReason" | "removalReason" | "twocOutcome" | "failedAction";
 
@@ -11,7 +12,7 @@ export function useEpisodeOptions() {
 /** The catheter in place in a sentence's words: size, balloon, material and when it went in. */
 export function useDeviceSummary() {
   const t = useTranslations("Vocabulary");
-  const format = useFormatter();
+  const format = useFormat();
   return (d: { sizeCh: number; balloonMl: number; material: string; insertedAt: string }) => ({
     size: d.sizeCh,
     balloon: d.balloonMl,

@@ -9,12 +9,13 @@ import { Cover } from "./cover";
 import { DevicePage } from "./device-page";
 import { HelpPage } from "./help-page";
 import { PortalPage } from "./portal-page";
+import type { TranslationReview } from "@/lib/validations/settings";
 import type { PassportBookletData } from "./types";
 
 export type { PassportBookletData } from "./types";
 
 export function PassportBooklet({ data }: { data: PassportBookletData }) {
-  const all = data.locales.map((l) => pdfStrings(l));
+  const all = data.locales.map((l) => pdfStrings(l, data.region, (data.translationReviews as Record<string, TranslationReview | undefined>)[l] ?? null));
   return (
     <Document
       title={all.map((s) => s.t("documentTitle")).join(" / ")}

@@ -101,11 +101,17 @@ export function Mark() {
 
 export function Footer({ all }: { all: PdfStrings[] }) {
   const first = all[0];
+  // A translated language says whether a medical translator reviewed it; English (the source)
+  // carries the caution only while a language beside it is not reviewed.
+  const unreviewed = all.some((s) => s.locale !== "en" && !s.review);
+  const lines = all.flatMap((s) =>
+    s.review ? [{ s, text: s.t("translationReviewed", { date: s.day(s.review.reviewedOn) }) }] : s.locale !== "en" || unreviewed ? [{ s, text: s.t("translationNote") }] : [],
+  );
   return (
     <View style={styles.footer} fixed>
-      {all.map((s) => (
+      {lines.map(({ s, text }) => (
         <T key={s.locale} s={s} style={{ fontSize: 7.5, color: colour.inkSoft, lineHeight: 1.3 }}>
-          {s.t("translationNote")}
+          {text}
         </T>
       ))}
       <Text

@@ -1,5 +1,6 @@
 import "server-only";
 // What the passport booklet prints: loaded by lib/passport from the record, never more.
+import type { TranslationReview } from "@/lib/validations/settings";
 import type { AllergyAnswers, CatheterType, EpisodeEventKind, LengthCategory, Material, Route, TwocOutcome, UnplannedReason } from "@/lib/clinical";
 
 export type BookletDevice = {
@@ -53,6 +54,10 @@ type BookletContact = { name: string; phone: string | null; outOfHoursPhone: str
 export type PassportBookletData = {
   /** [patient's language, "en"], or ["en"] alone. */
   locales: string[];
+  /** The deployment's region for dates and numbers (Settings), or null. */
+  region: string | null;
+  /** Per translated language, the medical translator's review (Settings); missing: not reviewed. */
+  translationReviews: Partial<Record<string, TranslationReview>>;
   url: string;
   shortCode: string;
   qrPngDataUrl: string;

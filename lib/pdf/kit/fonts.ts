@@ -3,7 +3,9 @@ import "server-only";
 // Plain TrueType (scripts/fonts/make-pdf-fonts.sh): woff2 crashes fontkit, and WOFF tables are
 // inflated again on every read. Latin and Latin Extended (Polish, Romanian) are one merged font:
 // as two, every run of text that fell back to the second embedded a subset of its own — 150
-// fonts, 225 KiB and a second for a Polish booklet. Arabic script (ar, ur) is the fallback.
+// fonts, 225 KiB and a second for a Polish booklet. Arabic script is the fallback, in Naskh.
+// Urdu stays in Naskh here: fontkit 2 stops on Noto Nastaliq Urdu's empty mark anchors (null
+// anchor in a mark-to-base record) and the booklet fails; pages use Nastaliq (lib/i18n/fonts.ts).
 // No static import of @react-pdf here: the worker loads it dynamically (see lib/pdf/gp-summary.tsx).
 import path from "node:path";
 import type { Font as PdfFont } from "@react-pdf/renderer";
@@ -12,7 +14,7 @@ export const PDF_FONT_FAMILY = ["CaddisLatin", "CaddisArabic"];
 
 const faces: [family: string, folder: string, stem: string][] = [
   ["CaddisLatin", "atkinson-hyperlegible", "atkinson-hyperlegible-latin-all"],
-  ["CaddisArabic", "noto-sans-arabic", "noto-sans-arabic-arabic"],
+  ["CaddisArabic", "noto-naskh-arabic", "noto-naskh-arabic-arabic"],
 ];
 
 let registered = false;

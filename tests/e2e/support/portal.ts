@@ -77,6 +77,8 @@ export async function smallTargets(page: Page, min = 44) {
       // Visually hidden controls (skip link, the file input inside its big label) are not targets.
       if (r.width <= 2 || r.height <= 2 || style.visibility === "hidden" || style.display === "none") continue;
       if (el.closest("[hidden]")) continue;
+      // A glossary word inside a sentence: WCAG 2.2's inline exception (2.5.8).
+      if (el.closest("[data-term], [data-term-close]")) continue;
       if (r.width < minSize || r.height < minSize) out.push(`${el.tagName.toLowerCase()} "${(el.textContent || el.getAttribute("aria-label") || "").trim().slice(0, 40)}" ${Math.round(r.width)}×${Math.round(r.height)}`);
     }
     return out;
@@ -89,9 +91,13 @@ export async function setTextSize(page: Page, percent: number) {
   await cdp.send("Page.setFontSizes", { fontSizes: { standard: Math.round((16 * percent) / 100), fixed: Math.round((13 * percent) / 100) } });
 }
 
-/** Horizontal scrolling, and elements that stick out of the viewport sideways (clipped or off screen). */
-export async function overflowProblems(page: Page) {
-  return page.evaluate(() => {
+/**
+ * Horizontal scrolling, and elements that stick out of the viewport sideways (clipped or off screen).
+ * `tablesMayScroll`: a data table may scroll inside its own named, focusable box (WCAG 2.2, 1.4.10
+ * Reflow excepts data tables); the page itself still may not.
+ */
+export async function overflowProblems(page: Page, { tablesMayScroll = false } = {}) {
+  return page.evaluate((tablesMayScroll) => {
     const width = document.documentElement.clientWidth;
     const problems: string[] = [];
     if (document.documentElement.scrollWidth > width + 1) problems.push(`page scrolls sideways: ${document.documentElement.scrollWidth} > ${width}`);
@@ -100,12 +106,13 @@ export async function overflowProblems(page: Page) {
       if (r.width === 0 || r.height === 0) continue;
       const style = getComputedStyle(el);
       if (style.position === "absolute" && (r.width <= 2 || r.height <= 2)) continue; // sr-only
+      if (tablesMayScroll && el.closest('[role="region"][tabindex="0"]') && el.closest("[role=region]")!.querySelector("table")) continue;
       if (r.right > width + 1 || r.left < -1) problems.push(`${el.tagName.toLowerCase()}.${String(el.className).slice(0, 40)} ${Math.round(r.left)}–${Math.round(r.right)}`);
       // Text cut off inside its own box.
       if ((style.overflowX === "hidden" || style.overflowX === "clip") && el.scrollWidth > el.clientWidth + 1) problems.push(`clipped: ${el.tagName.toLowerCase()} "${(el.textContent ?? "").trim().slice(0, 30)}"`);
     }
     return [...new Set(problems)].slice(0, 10);
-  });
+  }, tablesMayScroll);
 }
 
 /**
@@ -123,4 +130,38 @@ export async function screenshotAtTextSize(page: Page, name: string, percent: nu
   await page.screenshot({ path: path.join(screenshotDir, `${name}.png`) });
   await page.setViewportSize(PHONE.viewport);
   await setTextSize(page, percent);
+}
+
+/**
+ * Words and numbers broken inside themselves: a word whose pieces sit on more than one line
+ * although it is narrower than its block (so it would have fitted on a line of its own). Long
+ * e-mail addresses wider than the screen may break; "14 Ch", "01632 960 101", a date may not.
+ */
+export async function brokenWords(page: Page) {
+  return page.evaluate(() => {
+    const out: string[] = [];
+    const walker = document.createTreeWalker(document.body, NodeFilter.SHOW_TEXT);
+    for (let node = walker.nextNode(); node; node = walker.nextNode()) {
+      const parent = node.parentElement;
+      if (!parent || parent.closest("script, style, svg, [hidden], .sr-only, title")) continue;
+      const text = node.textContent ?? "";
+      const block = parent.closest<HTMLElement>("p, li, h1, h2, h3, h4, dd, dt, td, th, label, legend, button, a, div, span") ?? parent;
+      const room = block.clientWidth;
+      for (const m of text.matchAll(/\S+/g)) {
+        if (m[0].length < 2) continue;
+        const range = document.createRange();
+        range.setStart(node, m.index!);
+        range.setEnd(node, m.index! + m[0].length);
+        const rects = Array.from(range.getClientRects()).filter((r) => r.width > 0);
+        // A new line starts where a piece sits below half the height of the one before.
+        rects.sort((a, b) => a.top - b.top);
+        let lines = rects.length ? 1 : 0;
+        for (let i = 1; i < rects.length; i++) if (rects[i].top > rects[i - 1].top + rects[i - 1].height / 2) lines++;
+        if (lines <= 1) continue;
+        const width = rects.reduce((sum, r) => sum + r.width, 0);
+        if (width <= room) out.push(`"${m[0]}" on ${lines} lines (${Math.round(width)} ≤ ${room} px) in ${block.tagName.toLowerCase()}`);
+      }
+    }
+    return [...new Set(out)].slice(0, 15);
+  });
 }

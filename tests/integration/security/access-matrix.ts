@@ -80,6 +80,9 @@ export const matrix: Row[] = [
   { route: "GET /api/me", expect: anyoneSignedIn },
   // A person's own sessions (tests/integration/sessions.test.ts: another person's session is 404).
   { route: "GET /api/account/sessions", expect: anyoneSignedIn },
+  // Easier reading: a patient's or carer's own text size and contrast (tests/integration/reading-comfort.test.ts).
+  { route: "GET /api/account/reading", expect: portalOnly },
+  { route: "PUT /api/account/reading", expect: portalOnly },
   { route: "DELETE /api/account/sessions", expect: anyoneSignedIn },
   {
     route: "DELETE /api/account/sessions/[sessionId]",
@@ -89,6 +92,8 @@ export const matrix: Row[] = [
   { route: "GET /api/caseload", expect: clinicianOnly },
   { route: "GET /api/admin/organisations", expect: adminOnly },
   { route: "GET /api/portal/today", expect: portalOnly },
+  // Listen: speech for a sentence of a portal page, patients and carers only (tests/integration/speech.test.ts).
+  { route: "GET /api/speech", query: "lang=en&text=Drink%20water.", expect: portalOnly },
   // Portal (patients and carers); the data-level cases (other patient 404, revoked carer 404)
   // are in tests/integration/portal-api.test.ts, which sends real bodies.
   { route: "POST /api/check-ins", expect: portalOnly },

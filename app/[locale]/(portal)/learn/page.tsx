@@ -12,7 +12,7 @@ export async function generateMetadata() {
 export default async function LearnIndex({ params }: { params: Promise<{ locale: string }> }) {
   const { locale } = await params;
   await requirePageRole(locale, "patient", "carer");
-  const t = await getTranslations("Learn");
+  const [t, tg] = await Promise.all([getTranslations("Learn"), getTranslations("Glossary")]);
   return (
     <div className="flex flex-col gap-5">
       <h1 className="text-3xl font-bold">{t("title")}</h1>
@@ -29,6 +29,15 @@ export default async function LearnIndex({ params }: { params: Promise<{ locale:
             </Link>
           </li>
         ))}
+        <li>
+          <Link href="/learn/words" className="flex min-h-16 items-center gap-4 rounded-lg border-2 border-brand bg-paper-raised px-4 py-3 hover:bg-brand-soft" data-testid="glossary-link">
+            <BookIcon className="h-7 w-7 shrink-0 text-brand" />
+            <span className="flex flex-col">
+              <span className="text-xl font-bold text-brand">{tg("title")}</span>
+              <span className="text-ink">{tg("intro")}</span>
+            </span>
+          </Link>
+        </li>
       </ul>
     </div>
   );

@@ -1,6 +1,8 @@
 import { getTranslations } from "next-intl/server";
 import type { ReactNode } from "react";
+import { ReadingComfortForm } from "@/components/account/reading-comfort";
 import { PendingCheckInWarning } from "@/components/check-in/pending-warning";
+import { getReadingComfort } from "@/db/queries/reading";
 import { LanguageSwitcher } from "@/components/layout/language-switcher";
 import { BookIcon, ExitIcon, GlobeIcon, KeyIcon, LifebuoyIcon, PeopleIcon, TubeIcon } from "@/components/portal/nav-icons";
 import { buttonClass } from "@/components/ui/button";
@@ -52,6 +54,7 @@ export default async function MorePage({ params }: { params: Promise<{ locale: s
           </a>
         </section>
       ) : null}
+      <ReadingComfortForm initial={await getReadingComfort({ userId: viewer.userId })} />
       <div className="flex items-center gap-3 rounded-lg border border-stone-faint bg-paper-raised p-4">
         <GlobeIcon className="h-8 w-8 shrink-0 text-brand" />
         <LanguageSwitcher />

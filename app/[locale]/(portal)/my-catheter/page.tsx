@@ -1,4 +1,5 @@
-import { getFormatter, getTranslations } from "next-intl/server";
+import { getTranslations } from "next-intl/server";
+import { getFormat } from "@/lib/i18n/format";
 import { SitePhotoUpload } from "@/components/my-catheter/site-photo-upload";
 import { PatientSwitcher } from "@/components/portal/patient-switcher";
 import { Card } from "@/components/ui/card";
@@ -21,7 +22,7 @@ export default async function MyCatheterPage({ params, searchParams }: { params:
   const viewer = await requirePageRole(locale, "patient", "carer");
   const v = await getTranslations("Vocabulary");
   const t = await getTranslations("MyCatheter");
-  const format = await getFormatter();
+  const format = await getFormat();
   const patient = await portalPatient(viewer, (await searchParams).patient);
   if (!patient) return <p>{(await getTranslations("Today"))("noPatient")}</p>;
   const { episode, allergies } = await getMyCatheter({ patientId: patient.id });

@@ -1,4 +1,5 @@
-import { getFormatter, getTranslations } from "next-intl/server";
+import { getTranslations } from "next-intl/server";
+import { getFormat } from "@/lib/i18n/format";
 import { InviteCarerForm } from "@/components/people/invite-carer-form";
 import { RemoveCarerButton } from "@/components/people/remove-carer-button";
 import { Card } from "@/components/ui/card";
@@ -15,7 +16,7 @@ export default async function PeoplePage({ params }: { params: Promise<{ locale:
   const { locale } = await params;
   const viewer = await requirePageRole(locale, "patient", "carer");
   const t = await getTranslations("People");
-  const format = await getFormatter();
+  const format = await getFormat();
 
   if (viewer.role === "carer") {
     const helping = await portalPatients(viewer);

@@ -1,4 +1,5 @@
-import { getFormatter, getTranslations } from "next-intl/server";
+import { getTranslations } from "next-intl/server";
+import { getFormat } from "@/lib/i18n/format";
 import { DueWords } from "@/components/portal/due-words";
 import { LevelBadge } from "@/components/portal/level-badge";
 import { PatientSwitcher } from "@/components/portal/patient-switcher";
@@ -32,7 +33,7 @@ export default async function TodayPage({ params, searchParams }: { params: Prom
   const viewer = await requirePageRole(locale, "patient", "carer");
   const t = await getTranslations("Today");
   const tc = await getTranslations("CheckIn");
-  const format = await getFormatter();
+  const format = await getFormat();
   const all = await portalPatients(viewer);
   const patient = await portalPatient(viewer, (await searchParams).patient);
   if (!patient) {

@@ -1,4 +1,5 @@
-import { getFormatter, getTranslations } from "next-intl/server";
+import { getTranslations } from "next-intl/server";
+import { getFormat } from "@/lib/i18n/format";
 import { actionMessageKey } from "@/lib/shared/audit-actions";
 import { auditVia } from "@/db/schema/security";
 import { buttonClass } from "@/components/ui/button";
@@ -29,7 +30,7 @@ export default async function AuditPage({
   const t = await getTranslations("AdminAudit");
   const tl = await getTranslations("PatientAccessLog");
   const vocab = await getTranslations("Vocabulary");
-  const format = await getFormatter();
+  const format = await getFormat();
   // The action in words (the code stays beside it, small, for the action filter).
   const actionWords = (a: string) => {
     const key = actionMessageKey(a);

@@ -1,4 +1,5 @@
-import { getFormatter, getTranslations } from "next-intl/server";
+import { getTranslations } from "next-intl/server";
+import { getFormat } from "@/lib/i18n/format";
 import { CloseRecordForm } from "@/components/admin/close-record-form";
 import { buttonClass } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
@@ -24,7 +25,7 @@ export default async function AdminPatientsPage({
   const { q } = await searchParams;
   const query = typeof q === "string" ? q.trim().slice(0, 120) : "";
   const t = await getTranslations("AdminPatients");
-  const format = await getFormatter();
+  const format = await getFormat();
   const patients = await listPatientsForAdmin({ organisationIds: viewer.organisationIds, q: query || undefined });
   return (
     <div className="flex flex-col gap-6">

@@ -1,5 +1,6 @@
 import { getTranslations } from "next-intl/server";
 import { SettingsForm } from "@/components/admin/settings-form";
+import { TranslationReviewsForm } from "@/components/admin/translation-reviews-form";
 import { requirePageRole } from "@/lib/auth/permissions";
 import { getSettings } from "@/lib/config/settings";
 
@@ -12,7 +13,7 @@ export default async function SettingsPage({ params }: { params: Promise<{ local
   const { locale } = await params;
   await requirePageRole(locale, "admin");
   const t = await getTranslations("AdminSettings");
-  const settings = await getSettings();
+  const { translationReviews, ...settings } = await getSettings();
   return (
     <div className="flex flex-col gap-6">
       <div>
@@ -20,6 +21,7 @@ export default async function SettingsPage({ params }: { params: Promise<{ local
         <p className="text-ink-soft">{t("intro")}</p>
       </div>
       <SettingsForm initial={settings} />
+      <TranslationReviewsForm initial={translationReviews} />
     </div>
   );
 }

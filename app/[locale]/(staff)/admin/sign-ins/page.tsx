@@ -1,4 +1,5 @@
-import { getFormatter, getTranslations } from "next-intl/server";
+import { getTranslations } from "next-intl/server";
+import { getFormat } from "@/lib/i18n/format";
 import { Card } from "@/components/ui/card";
 import { Notice } from "@/components/ui/notice";
 import { accountsUnderAttack, attemptsOnUnknownAccounts, UNDER_ATTACK_ATTEMPTS } from "@/db/queries/sign-in-attempts";
@@ -17,7 +18,7 @@ export default async function SignInAttemptsPage({ params }: { params: Promise<{
   const viewer = await requirePageRole(locale, "admin");
   const t = await getTranslations("AdminSignIns");
   const v = await getTranslations("Vocabulary");
-  const format = await getFormatter();
+  const format = await getFormat();
   const [accounts, unknown] = await Promise.all([accountsUnderAttack({ organisationIds: viewer.organisationIds }), attemptsOnUnknownAccounts()]);
   const when = (d: Date) => format.dateTime(d, { weekday: "short", day: "numeric", month: "short", hour: "numeric", minute: "2-digit" });
   return (

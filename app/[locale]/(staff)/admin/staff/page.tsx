@@ -1,4 +1,5 @@
-import { getFormatter, getTranslations } from "next-intl/server";
+import { getTranslations } from "next-intl/server";
+import { getFormat } from "@/lib/i18n/format";
 import { InviteStaffForm } from "@/components/admin/invite-staff-form";
 import { WithdrawInvitationButton } from "@/components/admin/withdraw-invitation-button";
 import { Card } from "@/components/ui/card";
@@ -18,7 +19,7 @@ export default async function StaffPage({ params }: { params: Promise<{ locale: 
   const viewer = await requirePageRole(locale, "admin");
   const t = await getTranslations("AdminStaff");
   const v = await getTranslations("Vocabulary");
-  const format = await getFormatter();
+  const format = await getFormat();
   const [staff, invitations, orgs] = await Promise.all([
     listStaff({ organisationIds: viewer.organisationIds }),
     listPendingInvitations({ organisationIds: viewer.organisationIds }),

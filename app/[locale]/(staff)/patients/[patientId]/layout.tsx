@@ -1,5 +1,6 @@
 import { notFound } from "next/navigation";
-import { getFormatter, getTranslations } from "next-intl/server";
+import { getTranslations } from "next-intl/server";
+import { getFormat } from "@/lib/i18n/format";
 import type { ReactNode } from "react";
 import { AllergyBox } from "@/components/patient-record/allergy-box";
 import { RecordTabs } from "@/components/patient-record/record-tabs";
@@ -14,7 +15,7 @@ export default async function PatientRecordLayout({ children, params }: { childr
   if (!record) notFound();
   const t = await getTranslations("PatientRecord");
   const v = await getTranslations("Vocabulary");
-  const format = await getFormatter();
+  const format = await getFormat();
   const { patient, currentEpisode: e } = record;
   return (
     <div className="flex flex-col gap-5">

@@ -1,5 +1,6 @@
 import { notFound } from "next/navigation";
-import { getFormatter, getTranslations } from "next-intl/server";
+import { getTranslations } from "next-intl/server";
+import { getFormat } from "@/lib/i18n/format";
 import type { ReactNode } from "react";
 import { StateBadge } from "@/components/caseload/state-badge";
 import { FindingBadge, type FindingSeverity } from "@/components/patient-record/finding-badge";
@@ -28,7 +29,7 @@ export default async function DeviceTab({ params }: { params: Promise<{ locale: 
   const t = await getTranslations("PatientDevice");
   const v = await getTranslations("Vocabulary");
   const tVisit = await getTranslations("VisitForm");
-  const format = await getFormatter();
+  const format = await getFormat();
   const e = record.currentEpisode;
   const today = todayIso();
   const date = (d: string | null | undefined) => (d ? format.dateTime(new Date(`${d}T12:00:00Z`), { dateStyle: "medium" }) : t("notRecorded"));

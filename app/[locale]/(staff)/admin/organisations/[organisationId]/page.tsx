@@ -1,4 +1,5 @@
-import { getFormatter, getTranslations } from "next-intl/server";
+import { getTranslations } from "next-intl/server";
+import { getFormat } from "@/lib/i18n/format";
 import { notFound } from "next/navigation";
 import { OrganisationForm } from "@/components/admin/organisation-form";
 import { Notice } from "@/components/ui/notice";
@@ -18,7 +19,7 @@ export default async function EditOrganisationPage({ params }: { params: Promise
   const org = isUuid(organisationId) ? await getManagedOrganisation({ id: organisationId, organisationIds: viewer.organisationIds }) : null;
   if (!org) notFound();
   const t = await getTranslations("AdminOrganisations");
-  const format = await getFormatter();
+  const format = await getFormat();
   return (
     <div className="flex flex-col gap-6">
       <Link href="/admin/organisations" className="text-brand underline underline-offset-4">

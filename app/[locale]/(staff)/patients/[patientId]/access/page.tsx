@@ -1,5 +1,6 @@
 import { forbidden } from "next/navigation";
-import { getFormatter, getTranslations } from "next-intl/server";
+import { getTranslations } from "next-intl/server";
+import { getFormat } from "@/lib/i18n/format";
 import { auditVia } from "@/db/schema/security";
 import { listAccessLog } from "@/db/queries/audit-log";
 import { Link } from "@/lib/i18n/navigation";
@@ -37,7 +38,7 @@ export default async function AccessTab({
   const log = await listAccessLog({ patientId, page, pageSize: PAGE_SIZE, filter: who });
   const t = await getTranslations("PatientAccessLog");
   const v = await getTranslations("Vocabulary");
-  const format = await getFormatter();
+  const format = await getFormat();
   const pages = Math.max(1, Math.ceil(log.total / PAGE_SIZE));
   // Action codes use dots, which next-intl reads as nesting: look them up with underscores.
   const action = (a: string) => {

@@ -1,4 +1,5 @@
-import { getFormatter, getTranslations } from "next-intl/server";
+import { getTranslations } from "next-intl/server";
+import { getFormat } from "@/lib/i18n/format";
 import { ChecklistSummary } from "@/components/transfer/checklist-summary";
 import { CareTeamChanges } from "@/components/transfer/care-team-changes";
 import { ChecklistForm, ReferralForm } from "@/components/transfer/referral-form";
@@ -28,7 +29,7 @@ export default async function CareTeamTab({ params }: { params: Promise<{ locale
     searchTeamDirectory({}),
   ]);
   const t = await getTranslations("Transfer");
-  const format = await getFormatter();
+  const format = await getFormat();
   const at = (d: Date | string) => format.dateTime(new Date(d), { dateStyle: "medium", timeStyle: "short" });
   const canAct = isCareTeam(via) && !closed;
   const ownTeams = team.filter((m) => viewer.organisationIds.includes(m.organisationId)).map((m) => ({ id: m.organisationId, name: m.name }));

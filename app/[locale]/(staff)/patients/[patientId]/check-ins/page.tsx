@@ -1,4 +1,5 @@
-import { getFormatter, getTranslations } from "next-intl/server";
+import { getTranslations } from "next-intl/server";
+import { getFormat } from "@/lib/i18n/format";
 import { LevelBadge } from "@/components/caseload/level-badge";
 import { Card } from "@/components/ui/card";
 import { listDiaryDays, listRecentCheckIns } from "@/db/queries/check-in-review";
@@ -35,7 +36,7 @@ export default async function CheckInsTab({ params }: { params: Promise<{ locale
   await openRecordPage({ locale, patientId, action: "patient.view.check-ins" });
   const [checkIns, days] = await Promise.all([listRecentCheckIns({ patientId }), listDiaryDays({ patientId, days: 7 })]);
   const t = await getTranslations("PatientCheckIns");
-  const format = await getFormatter();
+  const format = await getFormat();
   const dateTime = (iso: string) => format.dateTime(new Date(iso), { dateStyle: "medium", timeStyle: "short" });
   const time = (iso: string) => format.dateTime(new Date(iso), { timeStyle: "short" });
   const day = (iso: string) => format.dateTime(new Date(`${iso}T12:00:00Z`), { weekday: "short", day: "numeric", month: "short" });

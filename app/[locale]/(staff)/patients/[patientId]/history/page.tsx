@@ -1,4 +1,5 @@
-import { getFormatter, getTranslations } from "next-intl/server";
+import { getTranslations } from "next-intl/server";
+import { getFormat } from "@/lib/i18n/format";
 import { Card } from "@/components/ui/card";
 import { News2Panel } from "@/components/visit-form/news2-panel";
 import { FindingsSummary } from "@/components/visit-form/findings-summary";
@@ -20,7 +21,7 @@ export default async function HistoryTab({ params }: { params: Promise<{ locale:
   const tv = await getTranslations("Visits.trends");
   const t = await getTranslations("PatientHistory");
   const vocab = await getTranslations("Vocabulary");
-  const format = await getFormatter();
+  const format = await getFormat();
   const dateTime = (iso: string) => format.dateTime(new Date(iso), { dateStyle: "medium", timeStyle: "short" });
   const date = (iso: string) => format.dateTime(new Date(`${iso}T12:00:00Z`), { dateStyle: "medium" });
   const b = history.blockage;
@@ -61,7 +62,6 @@ export default async function HistoryTab({ params }: { params: Promise<{ locale:
           </h2>
           <p className="text-sm text-ink-soft">{tv("bandsKey")}</p>
           <ObservationTrends
-            locale={locale}
             points={[...observations].reverse().map((o) => ({
               takenAt: o.takenAt,
               respirationRate: o.values.respirationRate,

@@ -1,5 +1,6 @@
 import { notFound } from "next/navigation";
-import { getFormatter, getTranslations } from "next-intl/server";
+import { getTranslations } from "next-intl/server";
+import { getFormat } from "@/lib/i18n/format";
 import { ResendButton } from "@/components/letters/resend-button";
 import { StatusBadge } from "@/components/letters/status-badge";
 import { getPatientForMail } from "@/db/queries/mail-context";
@@ -21,7 +22,7 @@ export default async function LettersPage({ params }: { params: Promise<{ locale
   const { closed } = await openRecordPage({ locale, patientId, action: "patient.view.letters" });
   const [t, format, patient, messages] = await Promise.all([
     getTranslations("Letters"),
-    getFormatter(),
+    getFormat(),
     getPatientForMail({ patientId }),
     listPatientMessages({ patientId }),
   ]);

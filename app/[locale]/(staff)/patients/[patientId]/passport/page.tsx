@@ -1,6 +1,7 @@
 import { notFound } from "next/navigation";
 import { getTranslations } from "next-intl/server";
 import { PassportPanel } from "@/components/passport/passport-panel";
+import { StaffTranslationStatus } from "@/components/translation/translation-status";
 import { PortalInviteButton } from "@/components/portal-invite/portal-invite-button";
 import { getPatientForInvite } from "@/db/queries/invitations";
 import { getPassportOverview } from "@/db/queries/passports";
@@ -35,6 +36,7 @@ export default async function PassportTab({ params }: { params: Promise<{ locale
         canOfferActivation={canInvite}
         // Only the care team issues or reissues (the route refuses visit access too).
         readOnly={closed || !isCareTeam(via)}
+        translationStatus={<StaffTranslationStatus locales={passportLanguages(record.patient.preferredLocale)} />}
       />
       {canInvite ? <PortalInviteButton patientId={patientId} /> : null}
     </div>

@@ -1,5 +1,6 @@
 import { notFound } from "next/navigation";
-import { getFormatter, getTranslations } from "next-intl/server";
+import { getTranslations } from "next-intl/server";
+import { getFormat } from "@/lib/i18n/format";
 import { StatusBadge } from "@/components/letters/status-badge";
 import { SupplyRequestForm } from "@/components/supplies/supply-request-form";
 import { getSupplyContext, listSupplyRequests } from "@/db/queries/supply-requests";
@@ -37,7 +38,7 @@ export default async function SuppliesPage({ params }: { params: Promise<{ local
     getTranslations("Vocabulary"),
     getTranslations("Letters"),
     getTranslations("PatientRecord"),
-    getFormatter(),
+    getFormat(),
     getSupplyContext({ patientId }),
     listSupplyRequests({ patientId }),
   ]);

@@ -1,4 +1,5 @@
-import { getFormatter, getTranslations } from "next-intl/server";
+import { getTranslations } from "next-intl/server";
+import { getFormat } from "@/lib/i18n/format";
 import { notFound } from "next/navigation";
 import { News2Panel } from "@/components/visit-form/news2-panel";
 import { VisitForm } from "@/components/visit-form/visit-form";
@@ -27,7 +28,7 @@ export default async function RecordVisitPage({ params }: { params: Promise<Para
   ]);
   if (!context.patient) notFound();
   const t = await getTranslations("VisitForm");
-  const format = await getFormatter();
+  const format = await getFormat();
   const record = `/patients/${patientId}`;
   let body;
   if (context.patient.closed) body = <p className="font-bold">{t("closed")}</p>;
