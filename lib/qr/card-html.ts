@@ -153,7 +153,7 @@ export function typoCardDocument(locale: string): string {
 export function shortCodeDocument({ locale, typed, notice }: { locale: string; typed: string; notice: "invalid" | "typo" | null }): string {
   const t = translatorFor(locale, "DeviceCard");
   const l = isLocale(locale) ? locale : "en";
-  const body = html`${notice === "invalid" ? invalidBlock(l) : notice === "typo" ? typoBlock(l) : ""}<form method="get" action="/${l}/p" class="col">${
+  const body = html`${notice === "invalid" ? invalidBlock(l) : notice === "typo" ? typoBlock(l) : ""}<form method="get" action="/${l}/p/code" class="col">${
     notice ? "" : html`<h1>${t("codeTitle")}</h1>`
   }<div class="col tight"><label for="code">${t("codeLabel")}</label><p id="code-hint" class="soft">${t("codeHint")}</p><input id="code" name="code" value="${typed}" autocomplete="off" autocapitalize="characters" spellcheck="false" maxlength="40" dir="ltr" aria-describedby="code-hint" class="num" data-testid="code-input"></div><button type="submit" class="btn primary">${t("codeSubmit")}</button></form>`;
   return cardDocument({ locale, title: t("codeTitle"), body });

@@ -1,8 +1,7 @@
 import "server-only";
-// The per-address limit on the public device card and the short-code page, applied in proxy.ts
-// so the answer can be a real 429 (a page cannot choose its status). PostgreSQL-backed
-// (lib/http/rate-limit.ts), so it holds across app instances. The proxy loads this module only
-// on the card's paths (lib/http/secret-headers isCardPath).
+// The per-address limit on the public device card and the typed passport code, counted by their
+// route handlers before anything else, with a real 429. PostgreSQL-backed
+// (lib/http/rate-limit.ts), so it holds across app instances.
 import { limitedPage } from "@/lib/qr/card-html";
 import { checkAddress, LIMITS } from "@/lib/http/rate-limit";
 

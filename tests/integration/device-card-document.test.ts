@@ -4,13 +4,15 @@
 import { and, desc, eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { GET as cardGet } from "@/app/[locale]/p/[token]/route";
-import { GET as codeGet } from "@/app/[locale]/p/route";
+import { GET as codeGet } from "@/app/[locale]/p/code/route";
+import { GET as formGet } from "@/app/[locale]/p/route";
 import { db } from "@/db";
 import { auditEvents } from "@/db/schema";
 import { getViewerFromHeaders } from "@/lib/auth/session";
 import { CLIENT_ADDRESS_HEADER } from "@/lib/http/client-ip";
 import { issuePassport, type IssuedPassport } from "@/lib/passport";
 import { html } from "@/lib/qr/card-html";
+import { CARD_LIMIT } from "@/lib/qr/card-limit";
 import { patientIdByHrn } from "../support/fixtures";
 import { call, sessionFor } from "../support/http";
 
@@ -81,11 +83,12 @@ describe("the device card document", () => {
 
 describe("the short-code page", () => {
   const code = (locale: string, typed?: string) =>
-    call(codeGet, `/${locale}/p${typed === undefined ? "" : `?code=${encodeURIComponent(typed)}`}`, { headers, params: { locale } }).then((r) => r.text());
+    call(codeGet, `/${locale}/p/code${typed === undefined ? "" : `?code=${encodeURIComponent(typed)}`}`, { headers, params: { locale } }).then((r) => r.text());
 
-  it("is a GET form that works without script; the right code shows the card", async () => {
-    const form = await code("en");
-    expect(form).toMatch(/<form method="get" action="\/en\/p"/);
+  it("is a GET form, the same for everyone (prerendered), that works without script; the right code shows the card", async () => {
+    const form = await (await call(formGet, "/pl/p", { params: { locale: "pl" } })).text();
+    expect(form).toMatch(/<form method="get" action="\/pl\/p\/code"/);
+    expect(form).toMatch(/<html lang="pl" dir="ltr">/);
     expect(form).not.toMatch(/<script/i);
     const shown = await code("en", passport.shortCode);
     expect(shown).toContain('data-testid="card-size"');
@@ -97,6 +100,24 @@ describe("the short-code page", () => {
     expect(body).toContain('data-testid="card-typo"');
     expect(body).toContain('value="&#34;&#62;&#60;b&#62;x"');
     expect(body).not.toContain("<b>x");
+  });
+});
+
+describe("the per-address limit, counted by the handlers", () => {
+  it("answers the card and the typed code with a real 429 page once an address is over the limit", async () => {
+    const from = { [CLIENT_ADDRESS_HEADER]: "10.61.9.9" };
+    const statuses: number[] = [];
+    for (let i = 0; i < CARD_LIMIT.max; i++) {
+      statuses.push((await call(cardGet, `/en/p/${tokenOf(passport)}`, { headers: from, params: { locale: "en", token: tokenOf(passport) } })).status);
+    }
+    expect(statuses.every((s) => s === 200)).toBe(true);
+    const card = await call(cardGet, `/ar/p/${tokenOf(passport)}`, { headers: from, params: { locale: "ar", token: tokenOf(passport) } });
+    expect(card.status).toBe(429);
+    expect(Number(card.headers.get("retry-after"))).toBeGreaterThan(0);
+    expect(await card.text()).toMatch(/<html lang="ar" dir="rtl">/);
+    const typed = await call(codeGet, `/en/p/code?code=${passport.shortCode}`, { headers: from, params: { locale: "en" } });
+    expect(typed.status).toBe(429);
+    expect((await call(cardGet, `/en/p/${tokenOf(passport)}`, { headers: { [CLIENT_ADDRESS_HEADER]: "10.61.9.10" }, params: { locale: "en", token: tokenOf(passport) } })).status).toBe(200);
   });
 });
 
