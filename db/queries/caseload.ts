@@ -92,7 +92,7 @@ function orderBy(sort: CaseloadSort, dir: "asc" | "desc"): SQL {
   }
 }
 
-function caseloadStatement({
+export function caseloadStatement({
   organisationIds,
   view,
   today,
