@@ -197,7 +197,7 @@ async function caseload(client: pg.Client, nurse: string, label: string) {
 
 /** EXPLAIN ANALYZE of the caseload's one statement, as the API sends it for the bench nurse. */
 async function explainCaseload(client: pg.Client) {
-  const { caseloadStatement } = await import("../../db/queries/caseload");
+  const { caseloadStatement, COUNT_CAP } = await import("../../db/queries/caseload");
   const { PgDialect } = await import("drizzle-orm/pg-core");
   const orgs = await client.query("select organisation_id from memberships m join \"user\" u on u.id = m.user_id where u.email = 'community.nurse@eastmere.example'");
   const statement = caseloadStatement({
@@ -208,6 +208,7 @@ async function explainCaseload(client: pg.Client) {
     timeZone: "Europe/London",
     limit: 50,
     offset: 100,
+    countCap: COUNT_CAP + 1,
   });
   const query = new PgDialect().sqlToQuery(statement);
   const plan = await client.query(`explain (analyze, buffers) ${query.sql}`, query.params as unknown[]);
