@@ -1,12 +1,12 @@
 // Kept cheap on purpose: locale routing, a per-request CSP nonce, a redirect to sign-in when
-// no session cookie is present, the secret-URL pages' headers, and the per-address limit of the
-// public device card (one statement, and only on those paths, so its 429 is a real status). It
-// never decides authorisation: pages and handlers do.
+// no session cookie is present, and the secret-URL pages' headers. No database: the device
+// card's per-address limit is counted by its route handlers. It never decides authorisation:
+// pages and handlers do.
 import createMiddleware from "next-intl/middleware";
 import { NextResponse, type NextRequest } from "next/server";
 import { sessionCookieNameFor } from "@/lib/auth/cookies";
 import { locales, routing } from "@/lib/i18n/routing";
-import { isCardPath, withSecretUrlHeaders } from "@/lib/http/secret-headers";
+import { withSecretUrlHeaders } from "@/lib/http/secret-headers";
 
 const intl = createMiddleware(routing);
 const sessionCookieName = sessionCookieNameFor(process.env.APP_URL ?? "http://localhost:3000");
@@ -35,12 +35,6 @@ function contentSecurityPolicy(nonce: string) {
 
 export default async function proxy(request: NextRequest) {
   const { pathname } = request.nextUrl;
-  if ((request.method === "GET" || request.method === "HEAD") && isCardPath(pathname)) {
-    // The database client and the catalogues are loaded for the card's paths only.
-    const { limitCardRequest } = await import("@/lib/qr/card-limit");
-    const limited = await limitCardRequest(request, pathname.split("/")[1]!);
-    if (limited) return withSecretUrlHeaders(pathname, limited);
-  }
   const hasSession = request.cookies.has(sessionCookieName);
   const nonce = Buffer.from(crypto.getRandomValues(new Uint8Array(16))).toString("base64");
   const csp = contentSecurityPolicy(nonce);

@@ -175,7 +175,7 @@ export function CaseloadView({ initialQuery, initialData }: { initialQuery: Case
       </div>
 
       <p className="tabular text-ink-soft" aria-live="polite" data-testid="caseload-count">
-        {isFetching ? t("updating") : t("count", { count: page.total })}
+        {isFetching ? t("updating") : page.totalIsAtLeast ? t("countAtLeast", { count: page.total }) : t("count", { count: page.total })}
       </p>
 
       {isError ? (
@@ -206,10 +206,10 @@ export function CaseloadView({ initialQuery, initialData }: { initialQuery: Case
         >
           {t("previous")}
         </button>
-        <span className="tabular">{t("pageOf", { page: query.page, pages })}</span>
+        <span className="tabular">{t(page.totalIsAtLeast ? "pageOfAtLeast" : "pageOf", { page: query.page, pages })}</span>
         <button
           type="button"
-          disabled={query.page >= pages}
+          disabled={query.page >= pages && !page.totalIsAtLeast}
           onClick={() => setQuery((q) => ({ ...q, page: q.page + 1 }))}
           className="min-h-11 rounded-lg border-2 border-brand px-4 font-bold text-brand disabled:border-stone-faint disabled:text-stone"
         >

@@ -2,6 +2,10 @@ import "server-only";
 // The caseload: patients whose care team includes one of the viewer's organisations, with the
 // catheter in place. One SQL statement per page — the filtered set, its total and the page —
 // whatever the page size (tests/integration/caseload-scale.test.ts counts the queries).
+// Built to stay quick at 100,000 patients in one team (docs/performance.md has the plan): the
+// care-team check is a per-row index lookup, not a hash of the whole team; the page walks the
+// sort column's index and stops after its rows; and the total is counted exactly up to
+// COUNT_CAP rows past the page, beyond which the page says "more than".
 import { sql, type SQL } from "drizzle-orm";
 import { db, type Executor } from "@/db";
 import { parseIsoDate, stateFor, worseState, type CaseloadState } from "@/lib/clinical";
@@ -33,7 +37,11 @@ export type CaseloadRow = {
   awaitingTwoc: boolean;
 };
 
-export type CaseloadPage = { rows: CaseloadRow[]; total: number; page: number; pageSize: number; today: string; dueSoonDays: number };
+/** `totalIsAtLeast`: the view holds more than `total` patients (counting stopped there). */
+export type CaseloadPage = { rows: CaseloadRow[]; total: number; totalIsAtLeast: boolean; page: number; pageSize: number; today: string; dueSoonDays: number };
+
+/** Rows counted beyond the current page before the total is given as "more than". */
+export const COUNT_CAP = 1000;
 
 type RawRow = {
   total: number;
@@ -92,7 +100,7 @@ function orderBy(sort: CaseloadSort, dir: "asc" | "desc"): SQL {
   }
 }
 
-function caseloadStatement({
+export function caseloadStatement({
   organisationIds,
   view,
   today,
@@ -100,6 +108,7 @@ function caseloadStatement({
   timeZone,
   limit,
   offset,
+  countCap,
 }: {
   organisationIds: string[];
   view: CaseloadView;
@@ -108,6 +117,8 @@ function caseloadStatement({
   timeZone: string;
   limit: number | null;
   offset: number;
+  /** Count at most this many rows (null: count them all). */
+  countCap: number | null;
 }): SQL {
   const orgs = sql`array[${sql.join(
     organisationIds.map((id) => sql`${id}`),
@@ -118,21 +129,22 @@ function caseloadStatement({
         or lower(f.family_name || ' ' || f.given_name) like lower(${likePattern(view.q)})
         or f.health_record_number like upper(${likePattern(view.q)}))`
     : sql``;
+  // Not materialised: the count and the page each take the view with their own limit.
   return sql`
-    with f as (
+    with f as not materialized (
       select p.id as patient_id, p.given_name, p.family_name, p.health_record_number,
              p.latest_check_in_level, p.latest_check_in_at,
              e.route, e.size_ch, e.inserted_at, e.planned_change_on, e.review_due_on, e.awaiting_twoc
       from patients p
       left join catheter_episodes e on e.patient_id = p.id and e.removed_at is null
       where p.closed_at is null
-        and exists (select 1 from care_team ct where ct.patient_id = p.id and ct.organisation_id = any(${orgs}))
+        and (select true from care_team ct where ct.patient_id = p.id and ct.organisation_id = any(${orgs}) limit 1)
     ),
-    filtered as (
+    filtered as not materialized (
       select f.* from f where true ${search} ${filterCondition(view.filter, today, dueSoonDays)}
-    ),
-    counted as (select count(*)::int as total from filtered)
-    select counted.total, pg.* from counted
+    )
+    select (select count(*)::int from (select 1 from filtered ${countCap === null ? sql`` : sql`limit ${countCap}`}) c) as total, pg.*
+    from (select 1) one
     left join lateral (
       select f.patient_id, f.given_name, f.family_name, f.health_record_number,
              f.latest_check_in_level,
@@ -174,24 +186,36 @@ function toRow(r: RawRow, today: string, dueSoonDays: number): CaseloadRow {
   };
 }
 
-async function run(statement: SQL, today: string, dueSoonDays: number, tx: Executor) {
+async function run(statement: SQL, today: string, dueSoonDays: number, countCap: number | null, tx: Executor) {
   const result = await tx.execute<RawRow>(statement);
-  const total = result.rows[0]?.total ?? 0;
+  const counted = result.rows[0]?.total ?? 0;
   const rows = result.rows.filter((r) => r.patient_id !== null).map((r) => toRow(r, today, dueSoonDays));
-  return { rows, total };
+  // Counting stopped at the cap: there is at least one more than the cap less one.
+  const totalIsAtLeast = countCap !== null && counted >= countCap;
+  return { rows, total: totalIsAtLeast ? countCap - 1 : counted, totalIsAtLeast };
 }
 
 /**
- * One page of the caseload, with the total of the filtered set. One query. `dueSoonDays` is the
- * deployment's window (lib/config/settings getPlanDefaults), passed in so the page stays one query.
+ * One page of the caseload, with the total of the filtered set (exact up to `countCap` past the
+ * page). One query. `dueSoonDays` is the deployment's window (lib/config/settings
+ * getPlanDefaults), passed in so the page stays one query.
  */
 export async function listCaseload(
-  { organisationIds, query, dueSoonDays, today = todayIso() }: { organisationIds: string[]; query: CaseloadQuery; dueSoonDays: number; today?: string },
+  {
+    organisationIds,
+    query,
+    dueSoonDays,
+    today = todayIso(),
+    countCap = COUNT_CAP,
+  }: { organisationIds: string[]; query: CaseloadQuery; dueSoonDays: number; today?: string; countCap?: number },
   tx: Executor = db,
 ): Promise<CaseloadPage> {
   const base = { page: query.page, pageSize: query.pageSize, today, dueSoonDays };
-  if (organisationIds.length === 0) return { rows: [], total: 0, ...base };
-  const { rows, total } = await run(
+  if (organisationIds.length === 0) return { rows: [], total: 0, totalIsAtLeast: false, ...base };
+  const offset = (query.page - 1) * query.pageSize;
+  // Enough to know the pages up to this one and that another follows; plus one to tell "more".
+  const cap = Math.max(countCap, offset + query.pageSize) + 1;
+  const { rows, total, totalIsAtLeast } = await run(
     caseloadStatement({
       organisationIds,
       view: query,
@@ -199,13 +223,15 @@ export async function listCaseload(
       dueSoonDays,
       timeZone: deploymentTimeZone(),
       limit: query.pageSize,
-      offset: (query.page - 1) * query.pageSize,
+      offset,
+      countCap: cap,
     }),
     today,
     dueSoonDays,
+    cap,
     tx,
   );
-  return { rows, total, ...base };
+  return { rows, total, totalIsAtLeast, ...base };
 }
 
 /** Every row of the filtered view, in the same order (for the CSV export). One query. */
@@ -221,9 +247,10 @@ export async function listCaseloadAll(
 ): Promise<{ rows: CaseloadRow[]; total: number; today: string }> {
   if (organisationIds.length === 0) return { rows: [], total: 0, today };
   const { rows, total } = await run(
-    caseloadStatement({ organisationIds, view, today, dueSoonDays, timeZone: deploymentTimeZone(), limit: max, offset: 0 }),
+    caseloadStatement({ organisationIds, view, today, dueSoonDays, timeZone: deploymentTimeZone(), limit: max, offset: 0, countCap: null }),
     today,
     dueSoonDays,
+    null,
     tx,
   );
   return { rows, total, today };

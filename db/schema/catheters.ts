@@ -70,7 +70,9 @@ export const catheterEpisodes = pgTable(
     index("episodes_patient_idx").on(t.patientId, t.insertedAt),
     // At most one catheter in place per patient.
     uniqueIndex("episodes_one_active_uq").on(t.patientId).where(sql`${t.removedAt} is null`),
-    index("episodes_active_change_idx").on(t.plannedChangeOn).where(sql`${t.removedAt} is null`),
+    // The caseload walks this in change-date order and tests "due soon" by either date inside
+    // the index, so a page of 50 at 100,000 patients reads only its own rows.
+    index("episodes_active_change_review_idx").on(t.plannedChangeOn, t.reviewDueOn).where(sql`${t.removedAt} is null`),
     index("episodes_active_review_idx").on(t.reviewDueOn).where(sql`${t.removedAt} is null`),
     check("episodes_size_ck", sql`${t.sizeCh} between 6 and 30`),
     check("episodes_balloon_ck", sql`${t.balloonMl} > 0 and ${t.balloonMl} <= 30`),

@@ -26,10 +26,22 @@ export function messagesFor(locale: string): Messages {
   return catalogues[catalogueLocale(locale)];
 }
 
-/** next-intl's translator for one namespace, outside a React request. */
+const translators = new Map<string, unknown>();
+
+/**
+ * next-intl's translator for one namespace, outside a React request. Kept per locale and
+ * namespace: a translator keeps each message it has parsed, so the device card (a few dozen
+ * messages in two languages on every view) parses them once per process, not per request.
+ */
 export function translatorFor<N extends NamespaceKeys<Messages, NestedKeyOf<Messages>>>(locale: string, namespace: N) {
   const l = catalogueLocale(locale);
-  return createTranslator({ locale: l, messages: catalogues[l], namespace });
+  const key = `${l}:${namespace}`;
+  let t = translators.get(key) as ReturnType<typeof createTranslator<Messages, N>> | undefined;
+  if (!t) {
+    t = createTranslator({ locale: l, messages: catalogues[l], namespace });
+    translators.set(key, t);
+  }
+  return t;
 }
 
 /** Dates and numbers (lib/shared/formats) in a locale and the deployment's region (Settings `region`). */

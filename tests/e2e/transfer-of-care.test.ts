@@ -207,7 +207,7 @@ describe("transfer of care", () => {
     const second = { ...byNumber(3)!, text: byNumber(3)?.text ?? "", html: byNumber(3)?.html ?? "" };
     expect(first.subject).toContain("passport issued");
     expect(first.text.indexOf("For the practice")).toBeLessThan(first.text.indexOf("Patient"));
-    expect(first.text).toContain("Awaiting trial without catheter on Thursday, January 14, 2027");
+    expect(first.text).toContain("Awaiting trial without catheter on Thursday, 14 January 2027");
     expect(first.text).toMatch(/Supplies for \d+ days/);
     expect(first.text).toMatch(/valve/i);
     expect(first.text).toContain("Not taught: washing around the catheter");

@@ -81,7 +81,7 @@ describe("visiting clinician from the passport", () => {
     await page.context().setExtraHTTPHeaders({ "x-forwarded-for": "10.88.0.1" });
     await page.goto("/en/p");
     await page.getByTestId("code-input").fill(passport.shortCode.toLowerCase());
-    const [card] = await Promise.all([page.waitForResponse((r) => r.url().includes("/en/p?code=")), page.getByRole("button", { name: "Show the device card" }).click()]);
+    const [card] = await Promise.all([page.waitForResponse((r) => r.url().includes("/en/p/code?code=")), page.getByRole("button", { name: "Show the device card" }).click()]);
     expect(card.status()).toBe(200);
     const headers = card.headers();
     expect(headers["referrer-policy"]).toBe("no-referrer");

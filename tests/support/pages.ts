@@ -1,5 +1,7 @@
 // Every page under app/[locale], found on disk, with the roles its page and layouts ask for
 // (requirePageRole), so a suite over pages covers a page added later without being edited.
+// A route handler there (route.ts) answers a whole HTML document, such as the device card, and
+// counts as a page.
 import fs from "node:fs";
 import path from "node:path";
 
@@ -33,7 +35,7 @@ export function listPages(dir = pagesRoot, inherited: string[] | null = null): P
   for (const entry of fs.readdirSync(dir, { withFileTypes: true })) {
     const full = path.join(dir, entry.name);
     if (entry.isDirectory() && !entry.name.startsWith("_")) out.push(...listPages(full, roles));
-    else if (entry.name === "page.tsx") {
+    else if (entry.name === "page.tsx" || entry.name === "route.ts") {
       const rel = path.relative(path.dirname(pagesRoot), dir).split(path.sep).filter((s) => !/^\(.*\)$/.test(s));
       out.push({ pattern: `/${rel.join("/")}`, file: full, roles: intersect(roles, rolesIn(full)) });
     }

@@ -1,6 +1,7 @@
+import { headers } from "next/headers";
+import { redirect } from "next/navigation";
 import { getTranslations, setRequestLocale } from "next-intl/server";
 import { SignInForm } from "@/components/auth/sign-in-form";
-import { InvalidPassport } from "@/components/device-card/device-card-view";
 import { buttonClass } from "@/components/ui/button";
 import { VisitAccessForm } from "@/components/visit-access/visit-access-form";
 import { findPatientAccess } from "@/db/queries/access";
@@ -22,7 +23,7 @@ export default async function VisitAccessPage({ params }: { params: Promise<Para
   setRequestLocale(locale as "en");
   const token = decodeURIComponent(raw);
   const t = await getTranslations("VisitAccess");
-  const { viewer } = await cardRequest();
+  const { viewer } = await cardRequest(await headers());
   const heading = <h1 className="text-3xl font-bold">{t("title")}</h1>;
   if (!viewer) {
     return (
@@ -42,7 +43,8 @@ export default async function VisitAccessPage({ params }: { params: Promise<Para
     );
   }
   const passport = await findPassport(token);
-  if (!passport) return <InvalidPassport locale={locale} />;
+  // The card's own address says "no longer valid" (one place for that answer).
+  if (!passport) redirect(`/${locale}/p/${encodeURIComponent(token)}`);
   const via = await findPatientAccess({ userId: viewer.userId, role: viewer.role, patientId: passport.patientId });
   if (via) {
     return (

@@ -1,0 +1,2 @@
+DROP INDEX "episodes_active_change_idx";--> statement-breakpoint
+CREATE INDEX "episodes_active_change_review_idx" ON "catheter_episodes" USING btree ("planned_change_on","review_due_on") WHERE "catheter_episodes"."removed_at" is null;
