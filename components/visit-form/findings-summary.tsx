@@ -1,3 +1,4 @@
+"use client";
 // A structured visit's findings in one line each, for the History timeline.
 import { useTranslations } from "next-intl";
 import { useFormat } from "@/components/i18n/format";
