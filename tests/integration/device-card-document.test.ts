@@ -2,7 +2,8 @@
 // script of any kind, no font file, at most 30 KB in all, both languages with the page's first,
 // the same audit as before, and every value escaped. Through the route handlers themselves.
 import { and, desc, eq } from "drizzle-orm";
-import { beforeAll, describe, expect, it } from "vitest";
+import pg from "pg";
+import { beforeAll, describe, expect, it, vi } from "vitest";
 import { GET as cardGet } from "@/app/[locale]/p/[token]/route";
 import { GET as codeGet } from "@/app/[locale]/p/code/route";
 import { GET as formGet } from "@/app/[locale]/p/route";
@@ -78,6 +79,39 @@ describe("the device card document", () => {
     expect(subresources(body)).toEqual([]);
     const bad = await call(cardGet, `/xx/p/${tokenOf(passport)}`, { headers, params: { locale: "xx", token: tokenOf(passport) } });
     expect(bad.status).toBe(404);
+  });
+});
+
+describe("one round trip", () => {
+  async function statements<T>(fn: () => Promise<T>) {
+    const spy = vi.spyOn(pg.Client.prototype, "query");
+    try {
+      const result = await fn();
+      return { result, count: spy.mock.calls.length };
+    } finally {
+      spy.mockRestore();
+    }
+  }
+  const audits = async (action: string) => (await db.select().from(auditEvents).where(eq(auditEvents.action, action))).length;
+
+  it("an anonymous QR view costs one statement: limit, lookup, card and audit together", async () => {
+    const views = await audits("passport.card.view");
+    const { result, count } = await statements(() => card("en", tokenOf(passport)));
+    expect(result.res.status).toBe(200);
+    expect(result.body).toContain('data-testid="card-size"');
+    expect(count).toBe(1);
+    expect(await audits("passport.card.view")).toBe(views + 1);
+  });
+
+  it("an unknown token costs one statement too, and its miss is audited without a patient", async () => {
+    const misses = await audits("passport.card.invalid");
+    const { result, count } = await statements(() => card("en", "B".repeat(43)));
+    expect(result.body).toContain('data-testid="card-invalid"');
+    expect(count).toBe(1);
+    const rows = await db.select().from(auditEvents).where(eq(auditEvents.action, "passport.card.invalid")).orderBy(desc(auditEvents.id));
+    expect(rows.length).toBe(misses + 1);
+    expect(rows[0]!.patientId).toBeNull();
+    expect(rows[0]!.via).toBe("qr");
   });
 });
 
