@@ -44,6 +44,12 @@ describe("the device card document", () => {
       const { res, body } = await card(locale, tokenOf(passport));
       expect(res.status).toBe(200);
       expect(res.headers.get("content-type")).toBe("text/html; charset=utf-8");
+      // Its own headers: the card's paths skip proxy.ts.
+      expect(res.headers.get("content-security-policy")).toContain("script-src 'none'");
+      expect(res.headers.get("content-security-policy")).toContain("frame-ancestors 'none'");
+      expect(res.headers.get("referrer-policy")).toBe("no-referrer");
+      expect(res.headers.get("cache-control")).toBe("no-store");
+      expect(res.headers.get("x-robots-tag")).toBe("noindex");
       expect(body).not.toMatch(/<script|javascript:|\son[a-z]+=/i);
       expect(body).not.toMatch(/@font-face|\.woff|_next\//);
       expect(subresources(body)).toEqual([]);
@@ -147,6 +153,8 @@ describe("the per-address limit, counted by the handlers", () => {
     expect(statuses.every((s) => s === 200)).toBe(true);
     const card = await call(cardGet, `/ar/p/${tokenOf(passport)}`, { headers: from, params: { locale: "ar", token: tokenOf(passport) } });
     expect(card.status).toBe(429);
+    expect(card.headers.get("referrer-policy")).toBe("no-referrer");
+    expect(card.headers.get("content-security-policy")).toContain("script-src 'none'");
     expect(Number(card.headers.get("retry-after"))).toBeGreaterThan(0);
     expect(await card.text()).toMatch(/<html lang="ar" dir="rtl">/);
     const typed = await call(codeGet, `/en/p/code?code=${passport.shortCode}`, { headers: from, params: { locale: "en" } });

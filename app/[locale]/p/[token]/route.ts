@@ -5,12 +5,12 @@
 // from proxy.ts.
 import { isLocale } from "@/lib/i18n/routing";
 import { cardRequest } from "@/lib/qr/card-page";
-import { deviceCardDocument, htmlResponse, invalidCardDocument, limitedPage, typoCardDocument } from "@/lib/qr/card-html";
+import { cardAnswer, deviceCardDocument, htmlResponse, invalidCardDocument, limitedPage, typoCardDocument } from "@/lib/qr/card-html";
 import { openCardAtAddress } from "@/lib/qr/device-card";
 
 export const dynamic = "force-dynamic";
 
-export async function GET(incoming: Request, { params }: { params: Promise<{ locale: string; token: string }> }) {
+async function answer(incoming: Request, { params }: { params: Promise<{ locale: string; token: string }> }) {
   const { locale, token } = await params;
   if (!isLocale(locale)) return new Response("Not found", { status: 404 });
   const { request, viewer } = await cardRequest(incoming.headers);
@@ -19,4 +19,8 @@ export async function GET(incoming: Request, { params }: { params: Promise<{ loc
   if (result.kind === "invalid") return htmlResponse(invalidCardDocument(locale));
   if (result.kind === "typo") return htmlResponse(typoCardDocument(locale));
   return htmlResponse(deviceCardDocument({ card: result.card, locale, region: result.region, visitHref: `/${locale}/p/${encodeURIComponent(token)}/visit` }));
+}
+
+export async function GET(incoming: Request, context: Parameters<typeof answer>[1]) {
+  return cardAnswer(new URL(incoming.url).pathname, await answer(incoming, context));
 }
