@@ -28,7 +28,10 @@ const nextConfig: NextConfig = {
       },
       // The portal's service worker: always revalidated, so a fix reaches phones at once.
       { source: "/sw.js", headers: [{ key: "Cache-Control", value: "no-cache" }, { key: "Service-Worker-Allowed", value: "/" }] },
-      // Pages with a secret in their address get their headers in proxy.ts (lib/http/secret-headers).
+      // Pages with a secret in their address get their headers in proxy.ts (lib/http/secret-headers);
+      // the device card's paths skip the proxy and set them in their handlers, but the policy
+      // above would win over a handler's own Referrer-Policy, so the card's is set here, last.
+      { source: "/:locale/p/:path*", headers: [{ key: "Referrer-Policy", value: "no-referrer" }] },
     ];
   },
 };

@@ -56,6 +56,9 @@ export default async function proxy(request: NextRequest) {
   return withSecretUrlHeaders(pathname, response);
 }
 
+// Not the device card (/<locale>/p, /<locale>/p/<token>, /<locale>/p/code): those route
+// handlers answer plain documents with their own headers (lib/qr/card-html cardAnswer), so a
+// doorstep scan costs no middleware. The visit-access page under the card stays here.
 export const config = {
-  matcher: ["/((?!api|_next|.*\\..*).*)"],
+  matcher: ["/((?!api|_next|.*\\..*|[a-z]{2}/p(?:/[^/]+)?/?$).*)"],
 };

@@ -1,7 +1,6 @@
 import "server-only";
-import { and, asc, desc, eq, inArray } from "drizzle-orm";
+import { sql, type SQL } from "drizzle-orm";
 import { db, type Executor } from "@/db";
-import { careTeam, organisations } from "@/db/schema";
 import { getEmergencyNumber, getSettings } from "@/lib/config/settings";
 
 /** A phone number as typed by an admin, reduced to what a tel: link takes. */
@@ -32,35 +31,41 @@ export type LeadTeamContact = {
 
 const teamKinds = ["hospital_ward", "community_team"] as const;
 
-export async function getLeadTeamContact({ patientId }: { patientId: string }, tx: Executor = db): Promise<LeadTeamContact | null> {
-  const [[row], settings] = await Promise.all([
-    tx
-      .select({
-        organisationId: organisations.id,
-        name: organisations.name,
-        kind: organisations.kind,
-        phone: organisations.phone,
-        outOfHoursPhone: organisations.outOfHoursPhone,
-        inboxEmail: organisations.inboxEmail,
-        locale: organisations.locale,
-      })
-      .from(careTeam)
-      .innerJoin(organisations, eq(organisations.id, careTeam.organisationId))
-      .where(and(eq(careTeam.patientId, patientId), inArray(organisations.kind, [...teamKinds])))
-      // The lead first; a record from before leads were kept falls back to its first team by name.
-      .orderBy(desc(careTeam.lead), asc(organisations.name))
-      .limit(1),
-    getSettings(tx),
-  ]);
-  if (!row) return null;
-  const own = row.outOfHoursPhone;
+/**
+ * The lead team's row: the lead first; a record from before leads were kept falls back to its
+ * first ward or community team by name. The one statement of that choice, also read inside the
+ * device card's single round trip (db/queries/passport-card.ts).
+ */
+export function leadTeamQuery(patientId: SQL) {
+  return sql`select o.id as organisation_id, o.name, o.kind, o.phone, o.out_of_hours_phone, o.inbox_email, o.locale
+    from care_team ct join organisations o on o.id = ct.organisation_id
+    where ct.patient_id = ${patientId} and o.kind in (${sql.join(teamKinds.map((k) => sql`${k}`), sql`, `)})
+    order by ct.lead desc, o.name asc
+    limit 1`;
+}
+
+type LeadTeamRow = { organisation_id: string; name: string; kind: string; phone: string | null; out_of_hours_phone: string | null; inbox_email: string | null; locale: string };
+
+/** The lead team's numbers, the deployment's out-of-hours service standing in for a team with none. */
+export function leadTeamContact(row: LeadTeamRow, service: { outOfHoursPhone: string | null; outOfHoursServiceName: string | null }): LeadTeamContact {
+  const own = row.out_of_hours_phone;
   return {
-    ...row,
+    organisationId: row.organisation_id,
+    name: row.name,
     kind: row.kind as LeadTeamContact["kind"],
-    outOfHoursPhone: own ?? settings.outOfHoursPhone,
-    outOfHoursIsService: !own && settings.outOfHoursPhone !== null,
-    outOfHoursServiceName: own ? null : settings.outOfHoursServiceName,
+    phone: row.phone,
+    inboxEmail: row.inbox_email,
+    locale: row.locale,
+    outOfHoursPhone: own ?? service.outOfHoursPhone,
+    outOfHoursIsService: !own && service.outOfHoursPhone !== null,
+    outOfHoursServiceName: own ? null : service.outOfHoursServiceName,
   };
+}
+
+export async function getLeadTeamContact({ patientId }: { patientId: string }, tx: Executor = db): Promise<LeadTeamContact | null> {
+  const [result, settings] = await Promise.all([tx.execute<LeadTeamRow>(leadTeamQuery(sql`${patientId}::uuid`)), getSettings(tx)]);
+  const row = result.rows[0];
+  return row ? leadTeamContact(row, settings) : null;
 }
 
 /** What the portal's call buttons show: the emergency number and the lead team (none, or one). */

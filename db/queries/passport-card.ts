@@ -2,11 +2,13 @@ import "server-only";
 // The passport's device card: what a stranger holding the QR may see, and nothing that names the
 // patient (no name, date of birth, address or record number). One round trip, so the public card
 // stays quick under load.
-import { and, desc, eq, isNull, sql } from "drizzle-orm";
+import { sql, type SQL } from "drizzle-orm";
 import { db, type Executor } from "@/db";
 import type { AllergyAnswers } from "@/lib/clinical";
-import { catheterEpisodes, dischargeChecklists, patients, visitAccess } from "@/db/schema";
-import { getLeadTeamContact } from "./contacts";
+import { catheterEpisodes, visitAccess } from "@/db/schema";
+import { settingFromJson } from "@/lib/config/settings";
+import { countAttemptQuery } from "./attempt-counters";
+import { leadTeamContact, leadTeamQuery } from "./contacts";
 
 export type DeviceCard = {
   patientLocale: string;
@@ -35,94 +37,163 @@ export type DeviceCard = {
   careTeam: { name: string; phone: string | null; outOfHoursPhone: string | null; outOfHoursServiceName: string | null } | null;
 };
 
-export async function getDeviceCard({ patientId }: { patientId: string }, tx: Executor = db): Promise<DeviceCard | null> {
-  const episode = tx
-    .select({
-      route: catheterEpisodes.route,
-      catheterType: catheterEpisodes.catheterType,
-      material: catheterEpisodes.material,
-      lengthCategory: catheterEpisodes.lengthCategory,
-      sizeCh: catheterEpisodes.sizeCh,
-      balloonMl: catheterEpisodes.balloonMl,
-      gelKind: catheterEpisodes.gelKind,
-      insertedAt: catheterEpisodes.insertedAt,
-      plannedChangeOn: catheterEpisodes.plannedChangeOn,
-      lot: catheterEpisodes.lot,
-      expiry: catheterEpisodes.expiry,
-      attempts: catheterEpisodes.attempts,
-      difficulties: catheterEpisodes.difficulties,
-    })
-    .from(catheterEpisodes)
-    .where(and(eq(catheterEpisodes.patientId, patientId), isNull(catheterEpisodes.removedAt)))
-    .orderBy(desc(catheterEpisodes.insertedAt))
-    .limit(1)
-    .as("e");
-  const checklist = tx
-    .select({ drainage: dischargeChecklists.drainage })
-    .from(dischargeChecklists)
-    .where(eq(dischargeChecklists.patientId, patientId))
-    .orderBy(desc(dischargeChecklists.createdAt))
-    .limit(1)
-    .as("c");
-  // The lead team's numbers come from the one place (db/queries/contacts.ts), read alongside.
-  const [[row], lead] = await Promise.all([
-    tx
-    .select({
-      locale: patients.preferredLocale,
-      latex: patients.allergyLatex,
-      chlorhexidine: patients.allergyChlorhexidine,
-      lidocaine: patients.allergyLidocaine,
-      e: {
-        route: episode.route,
-        catheterType: episode.catheterType,
-        material: episode.material,
-        lengthCategory: episode.lengthCategory,
-        sizeCh: episode.sizeCh,
-        balloonMl: episode.balloonMl,
-        gelKind: episode.gelKind,
-        insertedAt: episode.insertedAt,
-        plannedChangeOn: episode.plannedChangeOn,
-        lot: episode.lot,
-        expiry: episode.expiry,
-        attempts: episode.attempts,
-        difficulties: episode.difficulties,
-      },
-      drainage: checklist.drainage,
-    })
-    .from(patients)
-    .leftJoinLateral(episode, sql`true`)
-    .leftJoinLateral(checklist, sql`true`)
-    .where(eq(patients.id, patientId)),
-    getLeadTeamContact({ patientId }, tx),
-  ]);
-  if (!row) return null;
-  const e = row.e && row.e.sizeCh !== null ? row.e : null;
-  return {
-    patientLocale: row.locale,
-    device: e
-      ? {
-          route: e.route!,
-          catheterType: e.catheterType!,
-          material: e.material!,
-          lengthCategory: e.lengthCategory!,
-          sizeCh: e.sizeCh!,
-          balloonMl: e.balloonMl!,
-          gelKind: e.gelKind!,
-          insertedAt: new Date(e.insertedAt!).toISOString(),
-          plannedChangeOn: e.plannedChangeOn!,
-          lot: e.lot ?? null,
-          expiry: e.expiry ?? null,
-          difficult: (e.attempts ?? 1) > 1 || Boolean(e.difficulties?.trim()),
-          difficulties: e.difficulties?.trim() || null,
-        }
-      : null,
-    drainage: row.drainage ?? null,
-    allergies: { latex: row.latex, chlorhexidine: row.chlorhexidine, lidocaine: row.lidocaine },
-    careTeam:
-      lead && (lead.phone || lead.outOfHoursPhone)
-        ? { name: lead.name, phone: lead.phone, outOfHoursPhone: lead.outOfHoursPhone, outOfHoursServiceName: lead.outOfHoursServiceName }
-        : null,
+type CardRow = {
+  preferred_locale: string;
+  allergy_latex: AllergyAnswers["latex"];
+  allergy_chlorhexidine: AllergyAnswers["chlorhexidine"];
+  allergy_lidocaine: AllergyAnswers["lidocaine"];
+  route: NonNullable<DeviceCard["device"]>["route"] | null;
+  catheter_type: NonNullable<DeviceCard["device"]>["catheterType"] | null;
+  material: NonNullable<DeviceCard["device"]>["material"] | null;
+  length_category: NonNullable<DeviceCard["device"]>["lengthCategory"] | null;
+  size_ch: number | null;
+  balloon_ml: number | null;
+  gel_kind: NonNullable<DeviceCard["device"]>["gelKind"] | null;
+  inserted_at: string | null;
+  planned_change_on: string | null;
+  lot: string | null;
+  expiry: string | null;
+  attempts: number | null;
+  difficulties: string | null;
+  drainage: "valve" | "bag" | null;
+  organisation_id: string | null;
+  name: string | null;
+  kind: string | null;
+  phone: string | null;
+  out_of_hours_phone: string | null;
+  inbox_email: string | null;
+  locale: string | null;
+  s_out_of_hours_phone: string | null;
+  s_out_of_hours_service_name: string | null;
+  s_region: string | null;
+};
+
+/**
+ * The card's one statement for a patient id expression: the patient, the catheter in place, the
+ * latest discharge checklist's drainage, the lead team (leadTeamQuery) and the three settings the
+ * card shows (as JSON text, validated by settingFromJson).
+ */
+function cardQuery(patientId: SQL) {
+  const setting = (key: string) => sql`(select value::text from settings where key = ${key})`;
+  return sql`select p.preferred_locale, p.allergy_latex, p.allergy_chlorhexidine, p.allergy_lidocaine,
+      e.route, e.catheter_type, e.material, e.length_category, e.size_ch, e.balloon_ml, e.gel_kind,
+      to_char(e.inserted_at at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"') as inserted_at,
+      e.planned_change_on::text as planned_change_on, e.lot, e.expiry::text as expiry, e.attempts, e.difficulties,
+      c.drainage, t.organisation_id, t.name, t.kind, t.phone, t.out_of_hours_phone, t.inbox_email, t.locale,
+      ${setting("outOfHoursPhone")} as s_out_of_hours_phone,
+      ${setting("outOfHoursServiceName")} as s_out_of_hours_service_name,
+      ${setting("region")} as s_region
+    from patients p
+    left join lateral (
+      select * from catheter_episodes where patient_id = p.id and removed_at is null order by inserted_at desc limit 1
+    ) e on true
+    left join lateral (
+      select drainage from discharge_checklists where patient_id = p.id order by created_at desc limit 1
+    ) c on true
+    left join lateral (${leadTeamQuery(sql`p.id`)}) t on true
+    where p.id = ${patientId}`;
+}
+
+/** The card and the deployment's region (for its dates) from one row of cardQuery. */
+function toDeviceCard(row: CardRow): { card: DeviceCard; region: string | null } {
+  const service = {
+    outOfHoursPhone: settingFromJson("outOfHoursPhone", row.s_out_of_hours_phone) as string | null,
+    outOfHoursServiceName: settingFromJson("outOfHoursServiceName", row.s_out_of_hours_service_name) as string | null,
   };
+  const lead = row.organisation_id
+    ? leadTeamContact(
+        { organisation_id: row.organisation_id, name: row.name!, kind: row.kind!, phone: row.phone, out_of_hours_phone: row.out_of_hours_phone, inbox_email: row.inbox_email, locale: row.locale! },
+        service,
+      )
+    : null;
+  const inPlace = row.size_ch !== null;
+  return {
+    region: settingFromJson("region", row.s_region) as string | null,
+    card: {
+      patientLocale: row.preferred_locale,
+      device: inPlace
+        ? {
+            route: row.route!,
+            catheterType: row.catheter_type!,
+            material: row.material!,
+            lengthCategory: row.length_category!,
+            sizeCh: row.size_ch!,
+            balloonMl: row.balloon_ml!,
+            gelKind: row.gel_kind!,
+            insertedAt: row.inserted_at!,
+            plannedChangeOn: row.planned_change_on!,
+            lot: row.lot ?? null,
+            expiry: row.expiry ?? null,
+            difficult: (row.attempts ?? 1) > 1 || Boolean(row.difficulties?.trim()),
+            difficulties: row.difficulties?.trim() || null,
+          }
+        : null,
+      drainage: row.drainage ?? null,
+      allergies: { latex: row.allergy_latex, chlorhexidine: row.allergy_chlorhexidine, lidocaine: row.allergy_lidocaine },
+      careTeam:
+        lead && (lead.phone || lead.outOfHoursPhone)
+          ? { name: lead.name, phone: lead.phone, outOfHoursPhone: lead.outOfHoursPhone, outOfHoursServiceName: lead.outOfHoursServiceName }
+          : null,
+    },
+  };
+}
+
+export async function getDeviceCard({ patientId }: { patientId: string }, tx: Executor = db): Promise<DeviceCard | null> {
+  const result = await tx.execute<CardRow>(cardQuery(sql`${patientId}::uuid`));
+  return result.rows[0] ? toDeviceCard(result.rows[0]).card : null;
+}
+
+/** What opening a card by QR token came to, from the one statement below. */
+export type CardByToken =
+  | { kind: "limited"; retryAfterSeconds: number }
+  | { kind: "invalid" }
+  | { kind: "ok"; card: DeviceCard; region: string | null; patientId: string; passportId: string };
+
+/**
+ * A QR token's card in one round trip: the address's attempt counted (the card limit), the
+ * current passport found by the token's hash, its card read, and the view audited — or the miss
+ * audited without a patient — all in one statement, so the audit is neither an extra wait nor
+ * ever lost. Over the limit, nothing is looked up and nothing audited.
+ */
+export async function openCardByTokenHash(
+  input: {
+    tokenHash: string;
+    limit: { key: string; max: number; windowSeconds: number };
+    actor: { userId: string; role: string } | null;
+    ipHash: string | null;
+  },
+  tx: Executor = db,
+): Promise<CardByToken> {
+  const { key, max, windowSeconds } = input.limit;
+  const result = await tx.execute<CardRow & { count: number; window_started_at: string; patient_id: string | null; passport_id: string | null }>(sql`
+    with lim as (${countAttemptQuery({ key, windowSeconds })}),
+    pp as (
+      select id as passport_id, patient_id from passports
+      where token_hash = ${input.tokenHash} and revoked_at is null and (select count from lim) <= ${max}
+    ),
+    card as (${cardQuery(sql`(select patient_id from pp)`)}),
+    aud as (
+      insert into audit_events (action, actor_user_id, actor_role, patient_id, via, ip_hash, details)
+      select case when c.preferred_locale is null then 'passport.card.invalid' else 'passport.card.view' end,
+             ${input.actor?.userId ?? null}, ${input.actor?.role ?? null},
+             case when c.preferred_locale is null then null else pp.patient_id end,
+             'qr', ${input.ipHash},
+             case when c.preferred_locale is null then '{}'::jsonb
+                  else jsonb_build_object('passportId', pp.passport_id, 'by', 'token') end
+      from (select 1) one left join pp on true left join card c on true
+      where (select count from lim) <= ${max}
+      returning 1
+    )
+    select lim.count, lim.window_started_at, pp.patient_id, pp.passport_id, card.*, (select count(*) from aud) as audited
+    from lim left join pp on true left join card on true`);
+  const row = result.rows[0]!;
+  if (Number(row.count) > max) {
+    const started = new Date(row.window_started_at).getTime();
+    return { kind: "limited", retryAfterSeconds: Math.max(1, Math.ceil((started + windowSeconds * 1000 - Date.now()) / 1000)) };
+  }
+  if (!row.passport_id || row.preferred_locale === null) return { kind: "invalid" };
+  const { card, region } = toDeviceCard(row);
+  return { kind: "ok", card, region, patientId: row.patient_id!, passportId: row.passport_id };
 }
 
 export async function grantVisitAccess(

@@ -48,6 +48,14 @@ function parse<K extends keyof typeof settingSchemas>(key: K, value: unknown) {
   return r.data;
 }
 
+/**
+ * One stored setting read as JSON text inside another statement (the device card reads its
+ * three in the same round trip): validated like getSettings, null when unset or not valid.
+ */
+export function settingFromJson<K extends keyof typeof settingSchemas>(key: K, json: string | null): DeploymentSettings[K & keyof DeploymentSettings] | null {
+  return json === null ? null : (parse(key, JSON.parse(json)) as DeploymentSettings[K & keyof DeploymentSettings] | null);
+}
+
 export async function getSettings(tx?: Executor): Promise<DeploymentSettings> {
   const rows = await readSettingRows(tx);
   const raw = new Map(rows.map((r) => [r.key, r.value]));

@@ -6,6 +6,7 @@ import "server-only";
 // so nobody can lock a patient out of their account by guessing from elsewhere (ASVS 6.1.1, 2.4.1).
 import { sql } from "drizzle-orm";
 import { db, type Executor } from "@/db";
+import { countAttemptQuery } from "@/db/queries/attempt-counters";
 import { clientIp, hashIp, limiterAddress } from "@/lib/http/client-ip";
 import { AppError } from "@/lib/http/errors";
 
@@ -23,14 +24,7 @@ export const LIMITS = {
 
 /** Counts one attempt; returns how many were made in the current window. */
 export async function countAttempt({ key, windowSeconds }: { key: string; windowSeconds: number }, tx: Executor = db) {
-  const result = await tx.execute<{ count: number; window_started_at: Date | string }>(sql`
-    insert into attempt_counters (key, count, window_started_at) values (${key}, 1, now())
-    on conflict (key) do update set
-      count = case when attempt_counters.window_started_at <= now() - make_interval(secs => ${windowSeconds})
-                   then 1 else attempt_counters.count + 1 end,
-      window_started_at = case when attempt_counters.window_started_at <= now() - make_interval(secs => ${windowSeconds})
-                   then now() else attempt_counters.window_started_at end
-    returning count, window_started_at`);
+  const result = await tx.execute<{ count: number; window_started_at: Date | string }>(countAttemptQuery({ key, windowSeconds }));
   const row = result.rows[0];
   return { count: Number(row.count), windowStartedAt: new Date(row.window_started_at) };
 }
@@ -46,8 +40,13 @@ export async function currentCount({ key, windowSeconds }: { key: string; window
 export type LimitResult = { allowed: boolean; count: number; retryAfterSeconds: number };
 
 /** Counts an attempt from this request's address and says whether it is within the rule. */
+/** The counter's key for this request's address under a rule (the address only as a keyed hash). */
+export function limitKey(request: Request | { headers: Headers }, rule: LimitRule): string {
+  return `${rule.name}:${hashIp(limiterAddress(clientIp(request.headers)))}`;
+}
+
 export async function checkAddress(request: Request | { headers: Headers }, rule: LimitRule): Promise<LimitResult> {
-  const key = `${rule.name}:${hashIp(limiterAddress(clientIp(request.headers)))}`;
+  const key = limitKey(request, rule);
   const { count, windowStartedAt } = await countAttempt({ key, windowSeconds: rule.windowSeconds });
   const retryAfterSeconds = Math.max(1, Math.ceil((windowStartedAt.getTime() + rule.windowSeconds * 1000 - Date.now()) / 1000));
   return { allowed: count <= rule.max, count, retryAfterSeconds };

@@ -12,6 +12,7 @@ import { allergySummary, charriereToMm, type CatheterType, type GelKind, type Le
 import { formatterFor, translatorFor } from "@/lib/i18n/catalogues";
 import { directionOf, isLocale, type Locale } from "@/lib/i18n/routing";
 import { deploymentTimeZone } from "@/lib/shared/time-zone";
+import { withSecretUrlHeaders } from "@/lib/http/secret-headers";
 
 /** Markup that is already safe; everything else put in `html` is escaped. */
 class Safe {
@@ -172,7 +173,32 @@ export function limitedPage(locale: string, retryAfterSeconds: number): Response
   });
 }
 
-/** A card document as the answer; the proxy adds the secret-URL headers and the CSP. */
+/**
+ * The card's own policy: these documents carry no script, so none may run; styles are inline.
+ * (Pages get a per-request nonce from proxy.ts; the card's paths skip the proxy altogether.)
+ */
+export const CARD_CSP = [
+  "default-src 'none'",
+  "script-src 'none'",
+  "style-src 'unsafe-inline'",
+  "img-src 'self' data:",
+  "form-action 'self'",
+  "base-uri 'none'",
+  "object-src 'none'",
+  "frame-ancestors 'none'",
+].join("; ");
+
+/**
+ * Every answer on the card's paths, 429s included: the card's policy and the secret-URL headers
+ * (no-referrer, no-store, noindex). Set here because proxy.ts does not run on these paths: the
+ * card's every request skips the middleware (its matcher in proxy.ts).
+ */
+export function cardAnswer(pathname: string, response: Response): Response {
+  response.headers.set("Content-Security-Policy", CARD_CSP);
+  return withSecretUrlHeaders(pathname, response);
+}
+
+/** A card document as the answer. */
 export function htmlResponse(document: string, status = 200): Response {
   return new Response(document, { status, headers: { "content-type": "text/html; charset=utf-8" } });
 }

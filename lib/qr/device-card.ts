@@ -3,11 +3,15 @@ import "server-only";
 // constant-time compare, in lib/passport), the card, and an audit event for every view.
 // Unknown and revoked passports give one and the same answer. The per-address limit is applied
 // before this, in proxy.ts (lib/qr/card-limit.ts), so a limited request costs one statement.
-import { getDeviceCard, type DeviceCard } from "@/db/queries/passport-card";
+import { getDeviceCard, openCardByTokenHash, type CardByToken, type DeviceCard } from "@/db/queries/passport-card";
+import { getRegion } from "@/lib/config/settings";
+import { clientIp, hashIp } from "@/lib/http/client-ip";
+import { checkAddress, limitKey } from "@/lib/http/rate-limit";
+import { CARD_LIMIT } from "@/lib/qr/card-limit";
 import { audit } from "@/lib/records/audit";
 import type { Viewer } from "@/lib/auth/session";
 import { findPassportByShortCode, findPassportByToken, type FoundPassport } from "@/lib/passport";
-import { readShortCode } from "@/lib/passport/tokens";
+import { hashToken, isWellFormedToken, readShortCode } from "@/lib/passport/tokens";
 
 /**
  * "typo": a typed code that cannot be any code (its check symbol is wrong, or it has the wrong
@@ -59,4 +63,33 @@ export async function openDeviceCard({
     details: { passportId: passport.passportId, by: isToken(credential) ? "token" : "short-code" },
   });
   return { kind: "ok", card, passport };
+}
+
+/**
+ * The card at its QR address: a well-formed token in one round trip (limit, lookup, card and
+ * audit together: db/queries/passport-card.ts openCardByTokenHash); anything else typed into the
+ * address (a short code, a mistake) the longer way, with the same limit first.
+ */
+export async function openCardAtAddress({
+  credential,
+  request,
+  viewer,
+}: {
+  credential: string;
+  request: { headers: Headers };
+  viewer: Viewer | null;
+}): Promise<CardByToken | { kind: "typo" }> {
+  if (isToken(credential) && isWellFormedToken(credential)) {
+    return openCardByTokenHash({
+      tokenHash: hashToken(credential),
+      limit: { key: limitKey(request, CARD_LIMIT), max: CARD_LIMIT.max, windowSeconds: CARD_LIMIT.windowSeconds },
+      actor: viewer ? { userId: viewer.userId, role: viewer.role } : null,
+      ipHash: hashIp(clientIp(request.headers)),
+    });
+  }
+  const limit = await checkAddress(request, CARD_LIMIT);
+  if (!limit.allowed) return { kind: "limited", retryAfterSeconds: limit.retryAfterSeconds };
+  const result = await openDeviceCard({ credential, request, viewer });
+  if (result.kind !== "ok") return result;
+  return { kind: "ok", card: result.card, region: await getRegion(), patientId: result.passport.patientId, passportId: result.passport.passportId };
 }

@@ -2,7 +2,8 @@
 // script of any kind, no font file, at most 30 KB in all, both languages with the page's first,
 // the same audit as before, and every value escaped. Through the route handlers themselves.
 import { and, desc, eq } from "drizzle-orm";
-import { beforeAll, describe, expect, it } from "vitest";
+import pg from "pg";
+import { beforeAll, describe, expect, it, vi } from "vitest";
 import { GET as cardGet } from "@/app/[locale]/p/[token]/route";
 import { GET as codeGet } from "@/app/[locale]/p/code/route";
 import { GET as formGet } from "@/app/[locale]/p/route";
@@ -43,6 +44,12 @@ describe("the device card document", () => {
       const { res, body } = await card(locale, tokenOf(passport));
       expect(res.status).toBe(200);
       expect(res.headers.get("content-type")).toBe("text/html; charset=utf-8");
+      // Its own headers: the card's paths skip proxy.ts.
+      expect(res.headers.get("content-security-policy")).toContain("script-src 'none'");
+      expect(res.headers.get("content-security-policy")).toContain("frame-ancestors 'none'");
+      expect(res.headers.get("referrer-policy")).toBe("no-referrer");
+      expect(res.headers.get("cache-control")).toBe("no-store");
+      expect(res.headers.get("x-robots-tag")).toBe("noindex");
       expect(body).not.toMatch(/<script|javascript:|\son[a-z]+=/i);
       expect(body).not.toMatch(/@font-face|\.woff|_next\//);
       expect(subresources(body)).toEqual([]);
@@ -81,6 +88,39 @@ describe("the device card document", () => {
   });
 });
 
+describe("one round trip", () => {
+  async function statements<T>(fn: () => Promise<T>) {
+    const spy = vi.spyOn(pg.Client.prototype, "query");
+    try {
+      const result = await fn();
+      return { result, count: spy.mock.calls.length };
+    } finally {
+      spy.mockRestore();
+    }
+  }
+  const audits = async (action: string) => (await db.select().from(auditEvents).where(eq(auditEvents.action, action))).length;
+
+  it("an anonymous QR view costs one statement: limit, lookup, card and audit together", async () => {
+    const views = await audits("passport.card.view");
+    const { result, count } = await statements(() => card("en", tokenOf(passport)));
+    expect(result.res.status).toBe(200);
+    expect(result.body).toContain('data-testid="card-size"');
+    expect(count).toBe(1);
+    expect(await audits("passport.card.view")).toBe(views + 1);
+  });
+
+  it("an unknown token costs one statement too, and its miss is audited without a patient", async () => {
+    const misses = await audits("passport.card.invalid");
+    const { result, count } = await statements(() => card("en", "B".repeat(43)));
+    expect(result.body).toContain('data-testid="card-invalid"');
+    expect(count).toBe(1);
+    const rows = await db.select().from(auditEvents).where(eq(auditEvents.action, "passport.card.invalid")).orderBy(desc(auditEvents.id));
+    expect(rows.length).toBe(misses + 1);
+    expect(rows[0]!.patientId).toBeNull();
+    expect(rows[0]!.via).toBe("qr");
+  });
+});
+
 describe("the short-code page", () => {
   const code = (locale: string, typed?: string) =>
     call(codeGet, `/${locale}/p/code${typed === undefined ? "" : `?code=${encodeURIComponent(typed)}`}`, { headers, params: { locale } }).then((r) => r.text());
@@ -113,6 +153,8 @@ describe("the per-address limit, counted by the handlers", () => {
     expect(statuses.every((s) => s === 200)).toBe(true);
     const card = await call(cardGet, `/ar/p/${tokenOf(passport)}`, { headers: from, params: { locale: "ar", token: tokenOf(passport) } });
     expect(card.status).toBe(429);
+    expect(card.headers.get("referrer-policy")).toBe("no-referrer");
+    expect(card.headers.get("content-security-policy")).toContain("script-src 'none'");
     expect(Number(card.headers.get("retry-after"))).toBeGreaterThan(0);
     expect(await card.text()).toMatch(/<html lang="ar" dir="rtl">/);
     const typed = await call(codeGet, `/en/p/code?code=${passport.shortCode}`, { headers: from, params: { locale: "en" } });

@@ -56,8 +56,9 @@ describe("catheter change reminders", () => {
     expect(msg).toMatchObject({ toAddress: emails[soon.patientId], locale: "es", status: "queued" });
     expect(msg.subject).toMatch(/^El cambio de su sonda es el /);
     expect(msg.text).toContain("dentro de 2 días");
-    // The care team's phone is in it (Harbourside sorts before the test team).
-    expect(msg.text).toMatch(/Harbourside Community Nursing Team/);
+    // The lead team's name and phone are in it (getLeadTeamContact: the fixture's team leads).
+    expect(msg.text).toContain(`Test Team ${soon.tag}`);
+    expect(msg.text).toContain("01632 960 778");
 
     // The job runs every day and on every instance: nothing more for the same planned date.
     await queueChangeReminders({ today });

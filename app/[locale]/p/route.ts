@@ -2,7 +2,7 @@
 // build time for each language and served as a file (no script, no database). The typed code
 // goes to /p/code.
 import { locales } from "@/lib/i18n/routing";
-import { htmlResponse, shortCodeDocument } from "@/lib/qr/card-html";
+import { cardAnswer, htmlResponse, shortCodeDocument } from "@/lib/qr/card-html";
 
 export const dynamic = "force-static";
 
@@ -10,7 +10,11 @@ export function generateStaticParams() {
   return locales.map((locale) => ({ locale }));
 }
 
-export async function GET(_request: Request, { params }: { params: Promise<{ locale: string }> }) {
+async function answer(_request: Request, { params }: { params: Promise<{ locale: string }> }) {
   const { locale } = await params;
   return htmlResponse(shortCodeDocument({ locale, typed: "", notice: null }));
+}
+
+export async function GET(incoming: Request, context: Parameters<typeof answer>[1]) {
+  return cardAnswer(new URL(incoming.url).pathname, await answer(incoming, context));
 }

@@ -5,13 +5,13 @@ import { getRegion } from "@/lib/config/settings";
 import { isLocale } from "@/lib/i18n/routing";
 import { normaliseShortCode } from "@/lib/passport";
 import { cardRequest } from "@/lib/qr/card-page";
-import { deviceCardDocument, htmlResponse, shortCodeDocument } from "@/lib/qr/card-html";
+import { cardAnswer, deviceCardDocument, htmlResponse, shortCodeDocument } from "@/lib/qr/card-html";
 import { limitCardRequest } from "@/lib/qr/card-limit";
 import { openDeviceCard } from "@/lib/qr/device-card";
 
 export const dynamic = "force-dynamic";
 
-export async function GET(incoming: Request, { params }: { params: Promise<{ locale: string }> }) {
+async function answer(incoming: Request, { params }: { params: Promise<{ locale: string }> }) {
   const { locale } = await params;
   if (!isLocale(locale)) return new Response("Not found", { status: 404 });
   const limited = await limitCardRequest(incoming, locale);
@@ -24,4 +24,8 @@ export async function GET(incoming: Request, { params }: { params: Promise<{ loc
     return htmlResponse(deviceCardDocument({ card: result.card, locale, region: await getRegion(), visitHref: `/${locale}/p/${normaliseShortCode(typed)}/visit` }));
   }
   return htmlResponse(shortCodeDocument({ locale, typed, notice: result.kind }));
+}
+
+export async function GET(incoming: Request, context: Parameters<typeof answer>[1]) {
+  return cardAnswer(new URL(incoming.url).pathname, await answer(incoming, context));
 }
