@@ -1,7 +1,7 @@
 import "server-only";
 // Reads and writes of catheter episodes and their events. Callers pass the transaction they
 // opened with the access check, so a record and its audit event commit or fail together.
-import { and, desc, eq, inArray, isNull } from "drizzle-orm";
+import { and, desc, eq, inArray, isNull, sql } from "drizzle-orm";
 import { db, type Executor } from "@/db";
 import type { AllergyAnswers } from "@/lib/clinical";
 import {
@@ -233,4 +233,21 @@ export async function getRecordingContext({ patientId }: { patientId: string }, 
     latest: latest ? toEpisodeDto(latest) : null,
     endings: endings.map((e) => ({ insertedAt: e.insertedAt, removedAt: e.removedAt, removalReason: e.removalReason })),
   };
+}
+
+/**
+ * Trials without catheter still under way whose window closed by `due` (removed at or before it)
+ * and whose lead team has not been told yet (no alert from that episode in the outbox), in open
+ * records. Two workers at once queue the same idempotency key, so the team is told once.
+ */
+export async function listOverdueTrials({ removedBy }: { removedBy: Date }, tx: Executor = db) {
+  const result = await tx.execute<{ id: string; patient_id: string; removed_at: Date | string }>(sql`
+    select e.id, e.patient_id, e.removed_at
+    from catheter_episodes e
+    join patients p on p.id = e.patient_id and p.closed_at is null
+    where e.awaiting_twoc and e.removed_at is not null and e.removed_at <= ${removedBy.toISOString()}::timestamptz
+      and not exists (select 1 from outbound_messages m where m.kind = 'care-team-alert' and m.source_id = e.id::text)
+    order by e.removed_at
+    limit 200`);
+  return result.rows.map((r) => ({ episodeId: r.id, patientId: r.patient_id, removedAt: new Date(r.removed_at) }));
 }

@@ -4,7 +4,7 @@ import "server-only";
 // says so (e.g. the portal says the emergency number is not configured).
 import type { Executor } from "@/db";
 import { readSettingRows, writeSettings } from "@/db/queries/settings";
-import { planDefaults, type Material, type PlanDatesOptions, type PlanDefaults } from "@/lib/clinical";
+import { planDefaults, TWOC_DEFAULTS, type Material, type PlanDatesOptions, type PlanDefaults } from "@/lib/clinical";
 import { DEFAULT_REFERRAL_REMINDER_HOURS } from "@/lib/shared/referrals";
 import { settingKeys, settingSchemas, type SettingsPatch } from "@/lib/validations/settings";
 import { DEFAULT_WORKING_HOURS, minutesOfClock, type WorkingHours } from "@/lib/shared/working-hours";
@@ -29,6 +29,8 @@ export type DeploymentSettings = {
   outOfHoursPhone: string | null;
   /** Hours before an unanswered referral is flagged and sent again; null means the default. */
   referralReminderHours: number | null;
+  /** Hours after a removal for a trial by which the patient should have passed urine; null → the default. */
+  twocVoidWindowHours: number | null;
 };
 
 /** Two hours of working time (the default the care teams asked for; common practice, no source). */
@@ -60,6 +62,7 @@ export async function getSettings(tx?: Executor): Promise<DeploymentSettings> {
     workingDayEnd: get("workingDayEnd") as string | null,
     outOfHoursPhone: get("outOfHoursPhone") as string | null,
     referralReminderHours: get("referralReminderHours") as number | null,
+    twocVoidWindowHours: get("twocVoidWindowHours") as number | null,
   };
 }
 
@@ -85,6 +88,11 @@ export async function getAcknowledgePlan(tx?: Executor): Promise<{ minutes: numb
 /** Hours a referral may stay unanswered before it is flagged and sent again to the receiving team. */
 export async function getReferralReminderHours(tx?: Executor): Promise<number> {
   return (await getSettings(tx)).referralReminderHours ?? DEFAULT_REFERRAL_REMINDER_HOURS;
+}
+
+/** Hours a trial without catheter may run before it is overdue (setting, else lib/clinical's default). */
+export async function getTwocVoidWindowHours(tx?: Executor): Promise<number> {
+  return (await getSettings(tx)).twocVoidWindowHours ?? TWOC_DEFAULTS.voidWindowHours.value;
 }
 
 /** Options for lib/clinical `planDates` from the deployment settings. */

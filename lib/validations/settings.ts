@@ -30,6 +30,8 @@ export const settingSchemas = {
   outOfHoursPhone: phoneSchema.pipe(z.string()),
   // Hours a referral may stay unanswered before it is flagged and sent again (default in settings.ts).
   referralReminderHours: z.preprocess(toNumber, numberIn({ min: 1, max: 168, unit: "hours", whole: true })),
+  // Hours after a removal for a trial without catheter by which the patient should have passed urine.
+  twocVoidWindowHours: z.preprocess(toNumber, numberIn({ min: 1, max: 24, unit: "hours", whole: true })),
 } as const;
 
 export type SettingKey = keyof typeof settingSchemas;
@@ -49,6 +51,7 @@ export const settingsPatchSchema = z
     workingDayEnd: settingSchemas.workingDayEnd.nullable(),
     outOfHoursPhone: settingSchemas.outOfHoursPhone.nullable(),
     referralReminderHours: settingSchemas.referralReminderHours.nullable(),
+    twocVoidWindowHours: settingSchemas.twocVoidWindowHours.nullable(),
   })
   .partial()
   .strict();
