@@ -29,6 +29,7 @@ async function CardInLanguage({ card, locale, first }: { card: DeviceCard; local
   const t = await getTranslations({ locale, namespace: "DeviceCard" });
   const p = await getTranslations({ locale, namespace: "PassportPdf" });
   const v = await getTranslations({ locale, namespace: "Vocabulary" });
+  const tw = await getTranslations({ locale, namespace: "Twoc" });
   const format = await getFormatter({ locale });
   const timeZone = deploymentTimeZone();
   const d = card.device;
@@ -41,7 +42,7 @@ async function CardInLanguage({ card, locale, first }: { card: DeviceCard; local
   const H = first ? "h2" : "h3";
   return (
     <section lang={locale} dir={directionOf(locale)} className="flex flex-col gap-4" data-testid={`card-${locale}`}>
-      <H className="text-xl font-bold">{t("sectionTitle")}</H>
+      <H className="text-xl font-bold">{d || !card.removal ? t("sectionTitle") : tw("card.title")}</H>
       {allergies.length || unknown ? (
         // A known allergy is a stop (red, heavy border); only "not recorded" is a warning (amber).
         <div
@@ -115,7 +116,11 @@ async function CardInLanguage({ card, locale, first }: { card: DeviceCard; local
           </div>
         </>
       ) : (
-        <p className="font-bold">{t("noDevice")}</p>
+        <p className="font-bold" data-testid="card-removed">
+          {card.removal
+            ? tw(card.removal.trial === "passed" ? "card.removedPassed" : card.removal.trial === "under-way" ? "card.removedTrial" : "card.removed", { date: day(card.removal.removedAt) })
+            : t("noDevice")}
+        </p>
       )}
       <p className="text-base text-ink-soft">{t("safety")}</p>
     </section>

@@ -26,6 +26,7 @@ const hoursAgo = (h: number) => new Date(Date.now() - h * 3_600_000).toISOString
 let browser: Browser;
 let nurse: Page;
 let harbourside: string;
+let gp: string;
 
 async function post(page: Page, url: string, data: unknown) {
   const res = await page.request.post(url, { data, headers: { origin } });
@@ -45,6 +46,7 @@ async function patientOnTrial(familyName: string, removedHoursAgo: number) {
     preferredLocale: "en",
     allergies: { latex: "no", chlorhexidine: "no", lidocaine: "no", other: "" },
     careTeamOrganisationIds: [harbourside],
+    gpPracticeId: gp,
   });
   await post(nurse, `/api/patients/${patient.id}/episodes`, {
     ...demoDevice,
@@ -65,6 +67,8 @@ beforeAll(async () => {
   browser = await launch();
   const [o] = await db.select({ id: organisations.id }).from(organisations).where(eq(organisations.name, "Harbourside Community Nursing Team"));
   harbourside = o.id;
+  const [g] = await db.select({ id: organisations.id }).from(organisations).where(eq(organisations.name, "Millbrook Surgery"));
+  gp = g.id;
   nurse = await newPage(browser, { viewport: { width: 1280, height: 900 } });
   await signInAs(nurse, demo.communityNurse.email, demo.communityNurse.password);
 }, 120_000);

@@ -10,6 +10,7 @@ import { POST as postRemoval } from "@/app/api/patients/[patientId]/episodes/rem
 import { POST as postTwoc } from "@/app/api/patients/[patientId]/episodes/twoc/route";
 import { db } from "@/db";
 import { listCaseload } from "@/db/queries/caseload";
+import { getDeviceCard } from "@/db/queries/passport-card";
 import { auditEvents, careTeam, organisations, outboundMessages, patients, settings } from "@/db/schema";
 import { caseloadQuerySchema } from "@/lib/validations/caseload";
 import { sendOverdueTrialAlerts } from "@/lib/records/twoc-overdue";
@@ -28,7 +29,7 @@ async function post(handler: unknown, patientId: string, suffix: string, body: u
 }
 
 /** A patient of our own with a catheter in place; Harbourside leads, Larch is in the care team too. */
-async function patientWithCatheter() {
+async function patientWithCatheter({ gp }: { gp?: string } = {}) {
   const [p] = await db
     .insert(patients)
     .values({
@@ -40,6 +41,7 @@ async function patientWithCatheter() {
       allergyLatex: "no",
       allergyChlorhexidine: "no",
       allergyLidocaine: "no",
+      gpPracticeId: gp ?? null,
     })
     .returning({ id: patients.id, hrn: patients.healthRecordNumber });
   created.push(p.id);
@@ -91,9 +93,14 @@ describe("a trial without catheter under way", () => {
     // A 2-hour window (the deployment's setting) has passed: overdue.
     expect((await twocRows(new Date(), 2)).find((r) => r.patientId === patientId)).toMatchObject({ trialOverdue: true });
 
+    // The device card no longer shows a catheter in place: when it came out, trial under way…
+    expect((await getDeviceCard({ patientId }))).toMatchObject({ device: null, removal: { removedAt: removal.body.episode.removedAt, trial: "under-way" } });
     const outcome = await post(postTwoc, patientId, "/twoc", { occurredAt: minutesAgo(5), outcome: "passed", voids: [{ at: "10:40", volumeMl: 250 }], postVoidResidualMl: 80 });
     expect(outcome.status).toBe(201);
     expect((await twocRows()).some((r) => r.patientId === patientId)).toBe(false);
+    // …then passed, with the lead team's numbers still on it.
+    const card = await getDeviceCard({ patientId });
+    expect(card).toMatchObject({ device: null, removal: { trial: "passed" }, careTeam: { name: "Harbourside Community Nursing Team" } });
   });
 
   it("refuses a void time that is not a time of day, and writes nothing", async () => {
@@ -141,4 +148,27 @@ describe("a trial without catheter under way", () => {
     expect((await db.select().from(outboundMessages).where(and(eq(outboundMessages.patientId, closed.patientId), eq(outboundMessages.kind, "care-team-alert"))))).toHaveLength(0);
     await db.delete(settings).where(eq(settings.key, "twocVoidWindowHours"));
   });
+
+  it("the voids with their times, the total, the residual and what was done reach the GP summary (and its PDF, drawn from the same rows)", async () => {
+    const [millbrook] = await db.select({ id: organisations.id }).from(organisations).where(eq(organisations.name, "Millbrook Surgery"));
+    const { patientId } = await patientWithCatheter({ gp: millbrook.id });
+    await post(postRemoval, patientId, "/removal", { removedAt: minutesAgo(400), reason: "trial-without-catheter" });
+    const res = await post(postTwoc, patientId, "/twoc", {
+      occurredAt: minutesAgo(10),
+      outcome: "failed",
+      failedAction: "re-catheterised",
+      voids: [{ at: "09:15", volumeMl: 40 }, { volumeMl: 25 }],
+      postVoidResidualMl: 650,
+      notes: "Bladder palpable, uncomfortable",
+    });
+    expect(res.status).toBe(201);
+    const [mail] = await db.select().from(outboundMessages).where(and(eq(outboundMessages.patientId, patientId), eq(outboundMessages.sourceId, res.body.eventId)));
+    expect(mail.kind).toBe("gp-summary");
+    expect(mail.text).toContain("09:15 40 ml, 25 ml (total 65 ml)");
+    expect(mail.text).toContain("Residual after voiding (bladder scan)");
+    expect(mail.text).toContain("650 ml");
+    expect(mail.text).toContain("Re-catheterised");
+    expect(mail.text).toContain("Bladder palpable, uncomfortable");
+  });
 });
+
