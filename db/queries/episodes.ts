@@ -251,3 +251,23 @@ export async function listOverdueTrials({ removedBy }: { removedBy: Date }, tx: 
     limit 200`);
   return result.rows.map((r) => ({ episodeId: r.id, patientId: r.patient_id, removedAt: new Date(r.removed_at) }));
 }
+
+export type LastRemoval = { removedAt: string; trial: "passed" | "failed" | "under-way" | null };
+
+/** With no catheter in place, the last one's removal and its trial's outcome (device card, portal). */
+export async function getLastRemoval({ patientId }: { patientId: string }, tx: Executor = db): Promise<LastRemoval | null> {
+  const [last] = await tx
+    .select({ id: catheterEpisodes.id, removedAt: catheterEpisodes.removedAt, awaitingTwoc: catheterEpisodes.awaitingTwoc })
+    .from(catheterEpisodes)
+    .where(eq(catheterEpisodes.patientId, patientId))
+    .orderBy(desc(catheterEpisodes.insertedAt))
+    .limit(1);
+  if (!last?.removedAt) return null;
+  const [outcome] = await tx
+    .select({ outcome: episodeEvents.twocOutcome })
+    .from(episodeEvents)
+    .where(and(eq(episodeEvents.episodeId, last.id), eq(episodeEvents.kind, "twoc_outcome")))
+    .orderBy(desc(episodeEvents.occurredAt))
+    .limit(1);
+  return { removedAt: last.removedAt.toISOString(), trial: last.awaitingTwoc ? "under-way" : (outcome?.outcome ?? null) };
+}

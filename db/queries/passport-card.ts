@@ -5,8 +5,9 @@ import "server-only";
 import { and, desc, eq, isNull, sql } from "drizzle-orm";
 import { db, type Executor } from "@/db";
 import type { AllergyAnswers } from "@/lib/clinical";
-import { catheterEpisodes, dischargeChecklists, episodeEvents, patients, visitAccess } from "@/db/schema";
+import { catheterEpisodes, dischargeChecklists, patients, visitAccess } from "@/db/schema";
 import { getLeadTeamContact } from "./contacts";
+import { getLastRemoval, type LastRemoval } from "./episodes";
 
 export type DeviceCard = {
   patientLocale: string;
@@ -34,26 +35,9 @@ export type DeviceCard = {
   /** The lead team's numbers (getLeadTeamContact: out of hours falls back to the deployment's service). */
   careTeam: { name: string; phone: string | null; outOfHoursPhone: string | null; outOfHoursServiceName: string | null } | null;
   /** With no catheter in place: when the last one came out, and how its trial without catheter went. */
-  removal: { removedAt: string; trial: "passed" | "failed" | "under-way" | null } | null;
+  removal: LastRemoval | null;
 };
 
-/** The last catheter's removal and its trial's outcome, for a card with no catheter in place. */
-async function lastRemoval(patientId: string, tx: Executor): Promise<DeviceCard["removal"]> {
-  const [last] = await tx
-    .select({ id: catheterEpisodes.id, removedAt: catheterEpisodes.removedAt, awaitingTwoc: catheterEpisodes.awaitingTwoc })
-    .from(catheterEpisodes)
-    .where(eq(catheterEpisodes.patientId, patientId))
-    .orderBy(desc(catheterEpisodes.insertedAt))
-    .limit(1);
-  if (!last?.removedAt) return null;
-  const [outcome] = await tx
-    .select({ outcome: episodeEvents.twocOutcome })
-    .from(episodeEvents)
-    .where(and(eq(episodeEvents.episodeId, last.id), eq(episodeEvents.kind, "twoc_outcome")))
-    .orderBy(desc(episodeEvents.occurredAt))
-    .limit(1);
-  return { removedAt: last.removedAt.toISOString(), trial: last.awaitingTwoc ? "under-way" : (outcome?.outcome ?? null) };
-}
 
 export async function getDeviceCard({ patientId }: { patientId: string }, tx: Executor = db): Promise<DeviceCard | null> {
   const episode = tx
@@ -114,7 +98,7 @@ export async function getDeviceCard({ patientId }: { patientId: string }, tx: Ex
     .leftJoinLateral(checklist, sql`true`)
     .where(eq(patients.id, patientId)),
     getLeadTeamContact({ patientId }, tx),
-    lastRemoval(patientId, tx),
+    getLastRemoval({ patientId }, tx),
   ]);
   if (!row) return null;
   const e = row.e && row.e.sizeCh !== null ? row.e : null;
