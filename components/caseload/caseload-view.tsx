@@ -18,6 +18,7 @@ import {
   type CaseloadQuery,
   type CaseloadSort,
 } from "@/lib/validations/caseload";
+import { TrialUnderWay } from "@/components/twoc/trial-under-way";
 import { LevelBadge } from "./level-badge";
 import { caseloadKeys } from "./query-keys";
 import { StateBadge, StateIcon } from "./state-badge";
@@ -298,6 +299,7 @@ function CaseloadTable({ rows, query, onSort }: { rows: CaseloadRow[]; query: Ca
                 </Link>
                 <div className="tabular whitespace-nowrap text-sm text-ink-soft">{r.healthRecordNumber}</div>
                 {r.awaitingTwoc ? <div className="text-sm font-bold text-level-soon-ink">{t("awaitingTwoc")}</div> : null}
+                <TrialUnderWay row={r} />
               </td>
               <td className="tabular whitespace-nowrap px-2.5 py-3">
                 {r.route ? (
@@ -358,6 +360,7 @@ function CaseloadCards({ rows }: { rows: CaseloadRow[] }) {
             <dd>{r.latestCheckInLevel ? <LevelBadge level={r.latestCheckInLevel} /> : t("noCheckIn")}</dd>
           </dl>
           {r.awaitingTwoc ? <p className="mt-2 text-sm font-bold text-level-soon-ink">{t("awaitingTwoc")}</p> : null}
+          <TrialUnderWay row={r} />
         </li>
       ))}
     </ul>

@@ -38,7 +38,10 @@ export function TwocForm({ patientId, removedAt }: { patientId: string; removedA
     formState: { errors, isSubmitting },
   } = useForm<Values>({
     resolver: zodResolver(twocSchema) as unknown as Resolver<Values>,
-    mode: "onTouched",
+    // Checked on save, then as the nurse types: never on leaving a box, where an error appearing
+    // moved "Add a voided volume" away under the pointer and the click was lost.
+    mode: "onSubmit",
+    reValidateMode: "onChange",
     defaultValues: {
       occurredAt: now,
       outcome: "",
@@ -82,9 +85,16 @@ export function TwocForm({ patientId, removedAt }: { patientId: string; removedA
         />
         <ChoiceGroup className="sm:col-span-2" legend={t("field.voids")} hint={t("hint.voids")}>
           {voids.fields.map((f, i) => (
-            <div key={f.id} className="flex items-end gap-2">
+            <div key={f.id} className="flex flex-wrap items-end gap-2" data-testid="void-row">
               <Field
-                className="flex-1"
+                className="w-32"
+                label={t("field.voidAtN", { n: i + 1 })}
+                type="time"
+                {...register(`voids.${i}.at` as never)}
+                errors={err(`voids.${i}.at`)}
+              />
+              <Field
+                className="min-w-32 flex-1"
                 label={t("field.voidN", { n: i + 1 })}
                 unit={t("unit.ml")}
                 inputMode="numeric"
@@ -97,7 +107,7 @@ export function TwocForm({ patientId, removedAt }: { patientId: string; removedA
             </div>
           ))}
           <div className="flex flex-wrap items-center gap-4">
-            <Button variant="secondary" onClick={() => voids.append({ volumeMl: "" } as never)}>
+            <Button variant="secondary" data-testid="add-void" onClick={() => voids.append({ at: "", volumeMl: "" } as never)}>
               {t("twoc.addVoid")}
             </Button>
             <p className="tabular font-bold" aria-live="polite">

@@ -8,7 +8,7 @@ import "server-only";
 // COUNT_CAP rows past the page, beyond which the page says "more than".
 import { sql, type SQL } from "drizzle-orm";
 import { db, type Executor } from "@/db";
-import { parseIsoDate, stateFor, worseState, type CaseloadState } from "@/lib/clinical";
+import { parseIsoDate, stateFor, trialClock, TWOC_DEFAULTS, worseState, type CaseloadState } from "@/lib/clinical";
 import { deploymentTimeZone, todayIso } from "@/lib/shared/time-zone";
 import type { CaseloadFilter, CaseloadQuery, CaseloadSort, CaseloadView } from "@/lib/validations/caseload";
 import type { Route, TriageLevel } from "@/lib/clinical";
@@ -35,6 +35,11 @@ export type CaseloadRow = {
   latestCheckInLevel: CheckInLevel | null;
   latestCheckInAt: string | null;
   awaitingTwoc: boolean;
+  /** The catheter came out for a trial without catheter at this time and no outcome is recorded yet. */
+  trialRemovedAt: string | null;
+  /** When the patient is expected to have passed urine (the deployment's window), and whether it passed. */
+  trialVoidBy: string | null;
+  trialOverdue: boolean;
 };
 
 /** `totalIsAtLeast`: the view holds more than `total` patients (counting stopped there). */
@@ -57,6 +62,7 @@ type RawRow = {
   planned_change_on: string | null;
   review_due_on: string | null;
   awaiting_twoc: boolean | null;
+  trial_removed_at: string | null;
 };
 
 // Escapes LIKE wildcards so a search for "50%" or "A_B" means those characters.
@@ -76,7 +82,8 @@ function filterCondition(filter: CaseloadFilter | undefined, today: string, dueS
     case "urgent":
       return sql`and f.latest_check_in_level in ('urgent', 'emergency')`;
     case "twoc":
-      return sql`and f.awaiting_twoc`;
+      // Planned, or under way: the catheter is out for the trial and no outcome is recorded.
+      return sql`and (f.awaiting_twoc or f.trial_removed_at is not null)`;
     default:
       return sql``;
   }
@@ -134,9 +141,15 @@ export function caseloadStatement({
     with f as not materialized (
       select p.id as patient_id, p.given_name, p.family_name, p.health_record_number,
              p.latest_check_in_level, p.latest_check_in_at,
-             e.route, e.size_ch, e.inserted_at, e.planned_change_on, e.review_due_on, e.awaiting_twoc
+             e.route, e.size_ch, e.inserted_at, e.planned_change_on, e.review_due_on, e.awaiting_twoc,
+             tr.removed_at as trial_removed_at
       from patients p
       left join catheter_episodes e on e.patient_id = p.id and e.removed_at is null
+      left join lateral (
+        select t.removed_at from catheter_episodes t
+        where t.patient_id = p.id and t.awaiting_twoc and t.removed_at is not null and e.id is null
+        order by t.removed_at desc limit 1
+      ) tr on true
       where p.closed_at is null
         and (select true from care_team ct where ct.patient_id = p.id and ct.organisation_id = any(${orgs}) limit 1)
     ),
@@ -153,14 +166,18 @@ export function caseloadStatement({
              ((f.inserted_at at time zone ${timeZone})::date)::text as inserted_on,
              f.planned_change_on::text as planned_change_on,
              f.review_due_on::text as review_due_on,
-             f.awaiting_twoc
+             f.awaiting_twoc,
+             to_char(f.trial_removed_at at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS"Z"') as trial_removed_at
       from filtered f
       ${orderBy(view.sort, view.dir)}
       ${limit === null ? sql`` : sql`limit ${limit}`} offset ${offset}
     ) pg on true`;
 }
 
-function toRow(r: RawRow, today: string, dueSoonDays: number): CaseloadRow {
+type TrialWindow = { hours: number; now: Date };
+
+function toRow(r: RawRow, today: string, dueSoonDays: number, window: TrialWindow): CaseloadRow {
+  const clock = r.trial_removed_at ? trialClock(new Date(r.trial_removed_at), window.now, window.hours) : null;
   const todayDay = parseIsoDate("today", today);
   const dateState = (d: string | null) => (d ? stateFor(parseIsoDate("date", d) - todayDay, dueSoonDays) : null);
   const changeState = dateState(r.planned_change_on);
@@ -183,13 +200,16 @@ function toRow(r: RawRow, today: string, dueSoonDays: number): CaseloadRow {
     latestCheckInLevel: r.latest_check_in_level,
     latestCheckInAt: r.latest_check_in_at,
     awaitingTwoc: Boolean(r.awaiting_twoc),
+    trialRemovedAt: r.trial_removed_at,
+    trialVoidBy: clock ? clock.voidBy.toISOString() : null,
+    trialOverdue: clock?.overdue ?? false,
   };
 }
 
-async function run(statement: SQL, today: string, dueSoonDays: number, countCap: number | null, tx: Executor) {
+async function run(statement: SQL, today: string, dueSoonDays: number, window: TrialWindow, countCap: number | null, tx: Executor) {
   const result = await tx.execute<RawRow>(statement);
   const counted = result.rows[0]?.total ?? 0;
-  const rows = result.rows.filter((r) => r.patient_id !== null).map((r) => toRow(r, today, dueSoonDays));
+  const rows = result.rows.filter((r) => r.patient_id !== null).map((r) => toRow(r, today, dueSoonDays, window));
   // Counting stopped at the cap: there is at least one more than the cap less one.
   const totalIsAtLeast = countCap !== null && counted >= countCap;
   return { rows, total: totalIsAtLeast ? countCap - 1 : counted, totalIsAtLeast };
@@ -207,7 +227,9 @@ export async function listCaseload(
     dueSoonDays,
     today = todayIso(),
     countCap = COUNT_CAP,
-  }: { organisationIds: string[]; query: CaseloadQuery; dueSoonDays: number; today?: string; countCap?: number },
+    twocWindowHours = TWOC_DEFAULTS.voidWindowHours.value,
+    now = new Date(),
+  }: { organisationIds: string[]; query: CaseloadQuery; dueSoonDays: number; today?: string; countCap?: number; twocWindowHours?: number; now?: Date },
   tx: Executor = db,
 ): Promise<CaseloadPage> {
   const base = { page: query.page, pageSize: query.pageSize, today, dueSoonDays };
@@ -228,6 +250,7 @@ export async function listCaseload(
     }),
     today,
     dueSoonDays,
+    { hours: twocWindowHours, now },
     cap,
     tx,
   );
@@ -242,7 +265,9 @@ export async function listCaseloadAll(
     dueSoonDays,
     today = todayIso(),
     max = 50_000,
-  }: { organisationIds: string[]; view: CaseloadView; dueSoonDays: number; today?: string; max?: number },
+    twocWindowHours = TWOC_DEFAULTS.voidWindowHours.value,
+    now = new Date(),
+  }: { organisationIds: string[]; view: CaseloadView; dueSoonDays: number; today?: string; max?: number; twocWindowHours?: number; now?: Date },
   tx: Executor = db,
 ): Promise<{ rows: CaseloadRow[]; total: number; today: string }> {
   if (organisationIds.length === 0) return { rows: [], total: 0, today };
@@ -250,6 +275,7 @@ export async function listCaseloadAll(
     caseloadStatement({ organisationIds, view, today, dueSoonDays, timeZone: deploymentTimeZone(), limit: max, offset: 0, countCap: null }),
     today,
     dueSoonDays,
+    { hours: twocWindowHours, now },
     null,
     tx,
   );

@@ -1,7 +1,7 @@
 import "server-only";
 // Reads and writes of catheter episodes and their events. Callers pass the transaction they
 // opened with the access check, so a record and its audit event commit or fail together.
-import { and, desc, eq, inArray, isNull } from "drizzle-orm";
+import { and, desc, eq, inArray, isNull, sql, type SQL } from "drizzle-orm";
 import { db, type Executor } from "@/db";
 import type { AllergyAnswers } from "@/lib/clinical";
 import {
@@ -233,4 +233,48 @@ export async function getRecordingContext({ patientId }: { patientId: string }, 
     latest: latest ? toEpisodeDto(latest) : null,
     endings: endings.map((e) => ({ insertedAt: e.insertedAt, removedAt: e.removedAt, removalReason: e.removalReason })),
   };
+}
+
+/**
+ * Trials without catheter still under way whose window closed by `due` (removed at or before it)
+ * and whose lead team has not been told yet (no alert from that episode in the outbox), in open
+ * records. Two workers at once queue the same idempotency key, so the team is told once.
+ */
+export async function listOverdueTrials({ removedBy }: { removedBy: Date }, tx: Executor = db) {
+  const result = await tx.execute<{ id: string; patient_id: string; removed_at: Date | string }>(sql`
+    select e.id, e.patient_id, e.removed_at
+    from catheter_episodes e
+    join patients p on p.id = e.patient_id and p.closed_at is null
+    where e.awaiting_twoc and e.removed_at is not null and e.removed_at <= ${removedBy.toISOString()}::timestamptz
+      and not exists (select 1 from outbound_messages m where m.kind = 'care-team-alert' and m.source_id = e.id::text)
+    order by e.removed_at
+    limit 200`);
+  return result.rows.map((r) => ({ episodeId: r.id, patientId: r.patient_id, removedAt: new Date(r.removed_at) }));
+}
+
+export type LastRemoval = { removedAt: string; trial: "passed" | "failed" | "under-way" | null };
+
+type LastRemovalRow = { removed_at: string | Date | null; awaiting_twoc: boolean | null; twoc_outcome: "passed" | "failed" | null };
+
+/**
+ * The patient's last catheter (in place or not) with its removal time and its trial's latest
+ * outcome: one SQL fragment, also read inside the device card's single statement.
+ */
+export function lastRemovalQuery(patientId: SQL) {
+  return sql`select l.removed_at as last_removed_at, l.awaiting_twoc as last_awaiting_twoc,
+      (select ev.twoc_outcome from episode_events ev where ev.episode_id = l.id and ev.kind = 'twoc_outcome' order by ev.occurred_at desc limit 1) as last_twoc_outcome
+    from catheter_episodes l where l.patient_id = ${patientId} order by l.inserted_at desc limit 1`;
+}
+
+/** The removal from a row of lastRemovalQuery; null when the last catheter is still in (or none). */
+export function toLastRemoval(row: LastRemovalRow | undefined): LastRemoval | null {
+  if (!row?.removed_at) return null;
+  return { removedAt: new Date(row.removed_at).toISOString(), trial: row.awaiting_twoc ? "under-way" : (row.twoc_outcome ?? null) };
+}
+
+/** With no catheter in place, the last one's removal and its trial's outcome (device card, portal). */
+export async function getLastRemoval({ patientId }: { patientId: string }, tx: Executor = db): Promise<LastRemoval | null> {
+  const result = await tx.execute<{ last_removed_at: string | null; last_awaiting_twoc: boolean | null; last_twoc_outcome: "passed" | "failed" | null }>(lastRemovalQuery(sql`${patientId}::uuid`));
+  const row = result.rows[0];
+  return row ? toLastRemoval({ removed_at: row.last_removed_at, awaiting_twoc: row.last_awaiting_twoc, twoc_outcome: row.last_twoc_outcome }) : null;
 }

@@ -81,7 +81,7 @@ export type GpSummaryFacts = {
   device: DeviceFacts | null;
   /** The catheter taken out (change, removal, trial without catheter). */
   previous: DeviceFacts | null;
-  event: { kind: string; reason: string | null; twocOutcome: TwocOutcome | null; notes: string | null } | null;
+  event: { kind: string; reason: string | null; twocOutcome: TwocOutcome | null; notes: string | null; details: Record<string, unknown> } | null;
   passport: { issuedAt: string; languages: string[] } | null;
   findings: FindingFact[];
   refused: { code: string; detail: string | null }[];
@@ -192,7 +192,7 @@ export async function loadGpSummaryFacts(
     const [ev] = await tx.select().from(episodeEvents).where(and(eq(episodeEvents.id, eventId), eq(episodeEvents.patientId, patientId)));
     if (!ev) throw new Error(`GP summary: event ${eventId} not found`);
     occurredAt = ev.occurredAt;
-    event = { kind: ev.kind, reason: ev.reason, twocOutcome: ev.twocOutcome, notes: ev.notes };
+    event = { kind: ev.kind, reason: ev.reason, twocOutcome: ev.twocOutcome, notes: ev.notes, details: ev.details };
     refusedAll.push(...refusedFrom(ev.details));
     if (ev.organisationId) {
       const [org] = await tx.select({ name: organisations.name }).from(organisations).where(eq(organisations.id, ev.organisationId));

@@ -9,6 +9,7 @@ import { catheterEpisodes, visitAccess } from "@/db/schema";
 import { settingFromJson } from "@/lib/config/settings";
 import { countAttemptQuery } from "./attempt-counters";
 import { leadTeamContact, leadTeamQuery } from "./contacts";
+import { lastRemovalQuery, toLastRemoval, type LastRemoval } from "./episodes";
 
 export type DeviceCard = {
   patientLocale: string;
@@ -35,6 +36,8 @@ export type DeviceCard = {
   allergies: AllergyAnswers;
   /** The lead team's numbers (getLeadTeamContact: out of hours falls back to the deployment's service). */
   careTeam: { name: string; phone: string | null; outOfHoursPhone: string | null; outOfHoursServiceName: string | null } | null;
+  /** With no catheter in place: when the last one came out, and how its trial without catheter went. */
+  removal: LastRemoval | null;
 };
 
 type CardRow = {
@@ -66,6 +69,9 @@ type CardRow = {
   s_out_of_hours_phone: string | null;
   s_out_of_hours_service_name: string | null;
   s_region: string | null;
+  last_removed_at: string | null;
+  last_awaiting_twoc: boolean | null;
+  last_twoc_outcome: "passed" | "failed" | null;
 };
 
 /**
@@ -82,7 +88,8 @@ function cardQuery(patientId: SQL) {
       c.drainage, t.organisation_id, t.name, t.kind, t.phone, t.out_of_hours_phone, t.inbox_email, t.locale,
       ${setting("outOfHoursPhone")} as s_out_of_hours_phone,
       ${setting("outOfHoursServiceName")} as s_out_of_hours_service_name,
-      ${setting("region")} as s_region
+      ${setting("region")} as s_region,
+      r.last_removed_at, r.last_awaiting_twoc, r.last_twoc_outcome
     from patients p
     left join lateral (
       select * from catheter_episodes where patient_id = p.id and removed_at is null order by inserted_at desc limit 1
@@ -91,6 +98,7 @@ function cardQuery(patientId: SQL) {
       select drainage from discharge_checklists where patient_id = p.id order by created_at desc limit 1
     ) c on true
     left join lateral (${leadTeamQuery(sql`p.id`)}) t on true
+    left join lateral (${lastRemovalQuery(sql`p.id`)}) r on true
     where p.id = ${patientId}`;
 }
 
@@ -129,6 +137,7 @@ function toDeviceCard(row: CardRow): { card: DeviceCard; region: string | null }
           }
         : null,
       drainage: row.drainage ?? null,
+      removal: inPlace ? null : toLastRemoval({ removed_at: row.last_removed_at, awaiting_twoc: row.last_awaiting_twoc, twoc_outcome: row.last_twoc_outcome }),
       allergies: { latex: row.allergy_latex, chlorhexidine: row.allergy_chlorhexidine, lidocaine: row.allergy_lidocaine },
       careTeam:
         lead && (lead.phone || lead.outOfHoursPhone)

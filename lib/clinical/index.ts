@@ -20,3 +20,4 @@ export * from "./blockage";
 export * from "./supplies";
 export * from "./fluid";
 export * from "./triage";
+export * from "./twoc";

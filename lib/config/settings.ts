@@ -4,7 +4,7 @@ import "server-only";
 // says so (e.g. the portal says the emergency number is not configured).
 import type { Executor } from "@/db";
 import { readSettingRows, writeSettings } from "@/db/queries/settings";
-import { planDefaults, type Material, type PlanDatesOptions, type PlanDefaults } from "@/lib/clinical";
+import { planDefaults, TWOC_DEFAULTS, type Material, type PlanDatesOptions, type PlanDefaults } from "@/lib/clinical";
 import { DEFAULT_REFERRAL_REMINDER_HOURS } from "@/lib/shared/referrals";
 import { settingKeys, settingSchemas, type SettingsPatch, type TranslatedLocale, type TranslationReview } from "@/lib/validations/settings";
 import { DEFAULT_WORKING_HOURS, minutesOfClock, type WorkingHours } from "@/lib/shared/working-hours";
@@ -33,6 +33,8 @@ export type DeploymentSettings = {
   referralReminderHours: number | null;
   /** Per translated language, who reviewed its patient texts and when; a missing language is not reviewed. */
   translationReviews: Partial<Record<TranslatedLocale, TranslationReview>>;
+  /** Hours after a removal for a trial by which the patient should have passed urine; null → the default. */
+  twocVoidWindowHours: number | null;
 };
 
 /** Two hours of working time (the default the care teams asked for; common practice, no source). */
@@ -74,6 +76,7 @@ export async function getSettings(tx?: Executor): Promise<DeploymentSettings> {
     outOfHoursPhone: get("outOfHoursPhone") as string | null,
     referralReminderHours: get("referralReminderHours") as number | null,
     translationReviews: (get("translationReviews") as Partial<Record<TranslatedLocale, TranslationReview>> | null) ?? {},
+    twocVoidWindowHours: get("twocVoidWindowHours") as number | null,
   };
 }
 
@@ -110,6 +113,11 @@ export async function getRegion(tx?: Executor): Promise<string | null> {
 export async function getTranslationReview(locale: string, tx?: Executor): Promise<TranslationReview | null> {
   const reviews = (await getSettings(tx)).translationReviews;
   return (reviews as Record<string, TranslationReview | undefined>)[locale] ?? null;
+}
+
+/** Hours a trial without catheter may run before it is overdue (setting, else lib/clinical's default). */
+export async function getTwocVoidWindowHours(tx?: Executor): Promise<number> {
+  return (await getSettings(tx)).twocVoidWindowHours ?? TWOC_DEFAULTS.voidWindowHours.value;
 }
 
 /** Options for lib/clinical `planDates` from the deployment settings. */

@@ -13,7 +13,7 @@ import { emailDates, emailLocale, emailTranslator, emailVocabulary } from "./i18
 import { queueMessage, type QueuedMessage } from "./outbox";
 import { renderEmail, type Block, type EmailContent } from "./render";
 
-export type CareTeamAlertKind = "check-in" | "news2";
+export type CareTeamAlertKind = "check-in" | "news2" | "twoc-overdue";
 export type CareTeamAlertInput = {
   patientId: string;
   kind: CareTeamAlertKind;
@@ -30,6 +30,8 @@ export type CareTeamAlertInput = {
   notes?: string | null;
   /** Sent again because nobody acknowledged it: when it was first raised. */
   reminderOf?: Date;
+  /** A trial without catheter past its window: when the catheter came out and the void was expected. */
+  trial?: { removedAt: Date; voidBy: Date };
 };
 
 export const ALERT_LEVELS: Record<CareTeamAlertKind, readonly string[]> = {
@@ -38,13 +40,15 @@ export const ALERT_LEVELS: Record<CareTeamAlertKind, readonly string[]> = {
   // medical team informed and reviewing, and a visiting clinician may leave before anyone reads
   // the screen.
   news2: ["high", "medium", "low-medium"],
+  // A trial without catheter whose window passed with no outcome: the patient may be in retention.
+  "twoc-overdue": ["overdue"],
 };
 
 export function isAlertLevel(kind: CareTeamAlertKind, level: string) {
   return ALERT_LEVELS[kind].includes(level);
 }
 
-type AlertLevel = "emergency" | "urgent" | "high" | "medium" | "low-medium";
+type AlertLevel = "emergency" | "urgent" | "high" | "medium" | "low-medium" | "overdue";
 
 function reporterLine(t: ReturnType<typeof emailTranslator>, r: AlertReporter | undefined): string | null {
   if (!r) return null;
@@ -69,6 +73,10 @@ function alertContent(
   if (ctx.device) rows.push({ label: t("alert.device"), value: ctx.device });
   if (ctx.plannedChangeOn) rows.push({ label: t("device.plannedChange"), value: d.day(ctx.plannedChangeOn) });
   if (input.kind === "news2" && typeof input.score === "number") rows.push({ label: t("alert.score"), value: String(input.score) });
+  if (input.trial) {
+    rows.push({ label: t("alert.twocRemovedAt"), value: d.at(input.trial.removedAt) });
+    rows.push({ label: t("alert.twocVoidBy"), value: d.at(input.trial.voidBy) });
+  }
   const reporter = reporterLine(t, input.reporter);
   // The lead team and its numbers: who the patient was told to call (getLeadTeamContact).
   if (ctx.lead) {
@@ -80,13 +88,13 @@ function alertContent(
     ...(input.reminderOf ? [{ type: "paragraph" as const, text: t("alert.reminderIntro", { date: d.at(input.reminderOf) }) }] : []),
     ...(reporter ? [{ type: "heading" as const, text: t("alert.reportedBy") }, { type: "paragraph" as const, text: reporter }] : []),
     { type: "heading", text: t("alert.reported") },
-    { type: "paragraph", text: input.summary },
+    { type: "paragraph", text: input.trial ? t("alert.twocSummary") : input.summary },
     ...(input.notes ? [{ type: "heading" as const, text: t("alert.notes") }, { type: "paragraph" as const, text: input.notes }] : []),
     { type: "heading", text: t("gp.patient") },
     { type: "facts", rows },
     { type: "action", href: `${new URL(env.APP_URL).origin}/${locale}/patients/${input.patientId}`, label: t("alert.open") },
     { type: "paragraph", text: t("alert.signIn") },
-    { type: "paragraph", text: t("alert.acknowledge") },
+    { type: "paragraph", text: input.trial ? t("alert.twocRecord") : t("alert.acknowledge") },
   ];
   const subject = t(`alert.subject.${input.kind}`, { level: levelWord, hrn: ctx.hrn });
   return {

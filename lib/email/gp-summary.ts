@@ -10,6 +10,7 @@ import { emailDates, emailLocale, emailTranslator, emailVocabulary, type EmailT,
 import { queueMessage, type QueuedMessage } from "./outbox";
 import { renderEmail, type Block, type EmailContent } from "./render";
 import { DISCHARGE_TEACHING, REMOVAL_REASONS, suppliesFor, type SupplyList } from "@/lib/clinical";
+import { twocResult, voidsText } from "@/lib/shared/twoc-result";
 import { allergySummary } from "@/lib/clinical/allergies";
 
 export type { GpSummaryCause, GpSummaryFacts };
@@ -176,7 +177,14 @@ export function gpSummaryContent(facts: GpSummaryFacts, locale: string, region: 
   if (c === "removal" || c === "twoc") {
     blocks.push({ type: "heading", text: c === "twoc" ? t("gp.twocHeading") : t("gp.removalHeading") });
     const rows: { label: string; value: string }[] = [{ label: t("gp.when"), value: d.at(new Date(facts.occurredAt)) }];
-    if (c === "twoc" && facts.event?.twocOutcome) rows.push({ label: t("gp.twocOutcome"), value: v(`twocOutcome.${facts.event.twocOutcome}`) });
+    if (c === "twoc" && facts.event?.twocOutcome) {
+      rows.push({ label: t("gp.twocOutcome"), value: v(`twocOutcome.${facts.event.twocOutcome}`) });
+      // The voids, the residual and what was done (the same reading as History's).
+      const result = twocResult(facts.event.details);
+      rows.push({ label: t("gp.twocVoids"), value: result.voids.length ? t("gp.twocVoidsValue", { list: voidsText(result, (n) => `${n} ml`), total: result.totalVoidedMl }) : t("gp.twocNoVoids") });
+      if (result.postVoidResidualMl !== null) rows.push({ label: t("gp.twocResidual"), value: `${result.postVoidResidualMl} ml` });
+      if (result.failedAction) rows.push({ label: t("gp.twocAction"), value: v(`failedAction.${result.failedAction}`) });
+    }
     const reason = facts.previous?.removalReason;
     if (c === "removal" && reason) {
       const known = (REMOVAL_REASONS as readonly string[]).includes(reason);

@@ -10,7 +10,7 @@ export const clientNamespaces = {
   staff: [
     "Account", "Admin", "AdminOrganisations", "AdminPatients", "AdminSettings", "AdminStaff", "Caseload", "CaseloadState",
     "CareLoop", "Common", "EpisodeForm", "Letters", "Passport", "Password", "PatientDevice", "PatientForm", "PatientRecord",
-    "PortalInvite", "Scan", "Sessions", "Supplies", "Transfer", "TranslationReview", "TwoFactor", "Uploads", "VisitForm", "Visits", "Vocabulary",
+    "PortalInvite", "Scan", "Sessions", "Supplies", "Transfer", "TranslationReview", "Twoc", "TwoFactor", "Uploads", "VisitForm", "Visits", "Vocabulary",
   ],
   /** The public device card and short-code pages, and the clinician's visit sign-in. */
   card: ["Password", "SignIn", "TwoFactor", "VisitAccess"],

@@ -18,6 +18,7 @@ export const QUEUES = {
   retention: "record-retention",
   acknowledge: "acknowledge-reminders",
   referrals: "referral-reminders",
+  twocOverdue: "twoc-overdue",
 } as const;
 
 /** The schema version this pg-boss writes (its package's version.json). */
@@ -58,6 +59,7 @@ export async function startBoss({ onSweep, log }: { onSweep: () => Promise<void>
   await boss.createQueue(QUEUES.acknowledge, { name: QUEUES.acknowledge, retryLimit: 3, retryDelay: 60, expireInSeconds: 300 });
   await boss.createQueue(QUEUES.retention, { name: QUEUES.retention, retryLimit: 3, retryDelay: 300, retryBackoff: true, expireInSeconds: 3600 });
   await boss.createQueue(QUEUES.referrals, { name: QUEUES.referrals, retryLimit: 5, retryDelay: 60, retryBackoff: true, expireInSeconds: 900 });
+  await boss.createQueue(QUEUES.twocOverdue, { name: QUEUES.twocOverdue, retryLimit: 3, retryDelay: 60, expireInSeconds: 300 });
   await boss.schedule(QUEUES.digest, env.DIGEST_CRON, {}, { tz: env.CADDIS_TIME_ZONE });
   await boss.schedule(QUEUES.reminders, env.REMINDER_CRON, {}, { tz: env.CADDIS_TIME_ZONE });
   await boss.schedule(QUEUES.sweep, "* * * * *", {}, { tz: "UTC" });
@@ -68,6 +70,12 @@ export async function startBoss({ onSweep, log }: { onSweep: () => Promise<void>
   // Unanswered referrals are sent again (and flagged to the referrer) within 15 minutes of the
   // reminder time in Settings: no patient is left between two teams.
   await boss.schedule(QUEUES.referrals, "*/15 * * * *", {}, { tz: "UTC" });
+  // A trial without catheter past its window with no outcome: the lead team is told within 5 minutes.
+  await boss.schedule(QUEUES.twocOverdue, "*/5 * * * *", {}, { tz: "UTC" });
+  await boss.work(QUEUES.twocOverdue, async () => {
+    const { sendOverdueTrialAlerts } = await import("@/lib/records/twoc-overdue");
+    await sendOverdueTrialAlerts({ log });
+  });
   await boss.work(QUEUES.referrals, async () => {
     const { sendReferralReminders } = await import("@/lib/email/referral-mail");
     const r = await sendReferralReminders();

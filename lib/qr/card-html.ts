@@ -100,6 +100,7 @@ function cardInLanguage(card: DeviceCard, locale: Locale, first: boolean, region
   const { present, notRecorded } = allergySummary(card.allergies);
   const allergies = present.map((a) => v(`allergen.${a}`));
   const unknown = notRecorded.length ? p("allergyNotRecorded", { allergens: notRecorded.map((a) => v(`allergen.${a}`)).join(" · ") }) : null;
+  const tw = translatorFor(locale, "Twoc");
   const H = new Safe(first ? "h2" : "h3");
   // A known allergy is a stop (red, heavy border); only "not recorded" is a warning (amber).
   const allergyBox =
@@ -110,8 +111,12 @@ function cardInLanguage(card: DeviceCard, locale: Locale, first: boolean, region
       : html`<p class="note plain">${t("noDeviceAllergies")}</p>`;
   const device = d
     ? html`<div class="tiles"><div class="tile"><p class="soft">${v("device.size")}</p><p class="big num" data-testid="card-size"><bdi dir="ltr">${v("device.sizeCh", { ch: d.sizeCh })}</bdi></p><p class="num">${t("mm", { mm: charriereToMm(d.sizeCh) })}</p></div><div class="tile"><p class="soft">${v("device.balloon")}</p><p class="big num" data-testid="card-balloon">${t("mlValue", { ml: d.balloonMl })}</p><p>${t("sterileWater")}</p></div></div><dl><dt>${p("insertedOn")}</dt><dd class="b num">${day(d.insertedAt)}</dd><dt>${p("nextChange")}</dt><dd class="b num" data-testid="card-next-change">${calendarDay(d.plannedChangeOn)}</dd><dt>${v("device.route")}</dt><dd>${v(`route.${d.route as Route}`)}</dd><dt>${v("device.type")}</dt><dd>${v(`catheterType.${d.catheterType as CatheterType}`)}</dd><dt>${v("device.material")}</dt><dd>${v(`material.${d.material as Material}`)}</dd><dt>${v("device.length")}</dt><dd>${v(`lengthCategory.${d.lengthCategory as LengthCategory}`)}</dd><dt>${t("gel")}</dt><dd>${v(`gelKind.${d.gelKind as GelKind}`)}</dd><dt>${t("drainage")}</dt><dd data-testid="card-drainage">${card.drainage ? t(`drainageKind.${card.drainage}`) : t("notRecorded")}</dd><dt>${v("device.lot")}</dt><dd class="num" data-testid="card-lot">${d.lot ? html`<bdi dir="ltr">${d.lot}</bdi>` : t("notRecorded")}</dd><dt>${v("device.expiry")}</dt><dd class="num">${d.expiry ? calendarDay(d.expiry) : t("notRecorded")}</dd></dl><div role="note" class="note ${d.difficult ? "warn" : "plain"}" data-testid="card-insertion"><div><p class="b">${d.difficult ? t("difficultInsertion") : t("easyInsertion")}</p>${d.difficulties ? html`<p>${d.difficulties}</p>` : ""}</div></div>`
-    : html`<p class="b">${t("noDevice")}</p>`;
-  return html`<section lang="${locale}" dir="${directionOf(locale)}" class="col lang" data-testid="card-${locale}"><${H}>${t("sectionTitle")}</${H}>${allergyBox}${device}<p class="soft">${t("safety")}</p></section>`;
+    : html`<p class="b" data-testid="card-removed">${
+        card.removal
+          ? tw(card.removal.trial === "passed" ? "card.removedPassed" : card.removal.trial === "under-way" ? "card.removedTrial" : "card.removed", { date: day(card.removal.removedAt) })
+          : t("noDevice")
+      }</p>`;
+  return html`<section lang="${locale}" dir="${directionOf(locale)}" class="col lang" data-testid="card-${locale}"><${H}>${d || !card.removal ? t("sectionTitle") : tw("card.title")}</${H}>${allergyBox}${device}<p class="soft">${t("safety")}</p></section>`;
 }
 
 /** The device card: device facts in the patient's language and English, the care team's phone. */

@@ -20,7 +20,7 @@ import { writeRecord } from "./record-state";
 
 export type AlertItemInput = {
   patientId: string;
-  kind: CareTeamAlertKind;
+  kind: Exclude<CareTeamAlertKind, "twoc-overdue">;
   level: string;
   summary: string;
   reporter: AlertReporter;

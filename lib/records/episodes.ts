@@ -308,6 +308,7 @@ export async function recordTwoc(ctx: Ctx, input: TwocInput): Promise<RecordedTw
           organisationId,
           details: {
             voidsMl: input.voids.map((v) => v.volumeMl),
+            voids: input.voids.map((v) => ({ at: v.at ?? null, volumeMl: v.volumeMl })),
             totalVoidedMl,
             postVoidResidualMl: input.postVoidResidualMl ?? null,
             failedAction: input.failedAction ?? null,

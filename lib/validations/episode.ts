@@ -182,6 +182,8 @@ export const removalSchema = z
 export type RemovalInput = z.infer<typeof removalSchema>;
 
 export const voidSchema = z.object({
+  /** The time of day the patient passed urine ("14:05"), when the nurse has it. */
+  at: z.preprocess(blankToUndefined, z.string({ error: "text" }).regex(/^([01]\d|2[0-3]):[0-5]\d$/, { error: "clock_time" }).optional()),
   volumeMl: requiredInt(1, 2000, "ml"),
 });
 

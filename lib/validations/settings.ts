@@ -53,6 +53,8 @@ export const settingSchemas = {
   referralReminderHours: z.preprocess(toNumber, numberIn({ min: 1, max: 168, unit: "hours", whole: true })),
   /** Per translated language: the medical translator's review of the patient texts. */
   translationReviews: z.partialRecord(z.enum(TRANSLATED_LOCALES), translationReviewSchema),
+  // Hours after a removal for a trial without catheter by which the patient should have passed urine.
+  twocVoidWindowHours: z.preprocess(toNumber, numberIn({ min: 1, max: 24, unit: "hours", whole: true })),
 } as const;
 
 export type SettingKey = keyof typeof settingSchemas;
@@ -74,6 +76,7 @@ export const settingsPatchSchema = z
     outOfHoursPhone: settingSchemas.outOfHoursPhone.nullable(),
     referralReminderHours: settingSchemas.referralReminderHours.nullable(),
     translationReviews: settingSchemas.translationReviews.nullable(),
+    twocVoidWindowHours: settingSchemas.twocVoidWindowHours.nullable(),
   })
   .partial()
   .strict();

@@ -50,7 +50,7 @@ describe("device card", () => {
     expect(r.card.device).toHaveProperty("lot");
     expect(r.card.device).toHaveProperty("expiry");
     expect(typeof r.card.device?.difficult).toBe("boolean");
-    expect(Object.keys(r.card).sort()).toEqual(["allergies", "careTeam", "device", "drainage", "patientLocale"]);
+    expect(Object.keys(r.card).sort()).toEqual(["allergies", "careTeam", "device", "drainage", "patientLocale", "removal"]);
     const text = JSON.stringify(r.card);
     expect(text).not.toMatch(/Arthur|Pell|EM-100-001|19\d\d-\d\d-\d\d/);
   });

@@ -8,6 +8,9 @@ import { RecentCheckIns } from "@/components/care-loop/recent-check-ins";
 import { Card } from "@/components/ui/card";
 import { getLastBagChanges } from "@/db/queries/bag-changes";
 import { getTodaySummary } from "@/db/queries/portal";
+import { getHelpContacts } from "@/db/queries/contacts";
+import { getLastRemoval } from "@/db/queries/episodes";
+import { AfterCatheter } from "@/components/twoc/after-catheter";
 import { requirePageRole } from "@/lib/auth/permissions";
 import { LEVEL_STEP_KEY } from "@/lib/shared/check-in-flow";
 import { BAG_INTERVALS, bagSchedule, parseIsoDate } from "@/lib/clinical";
@@ -44,7 +47,13 @@ export default async function TodayPage({ params, searchParams }: { params: Prom
       </div>
     );
   }
-  const [summary, bags] = await Promise.all([getTodaySummary({ patientId: patient.id }), getLastBagChanges({ patientId: patient.id })]);
+  const [summary, bags, removal] = await Promise.all([
+    getTodaySummary({ patientId: patient.id }),
+    getLastBagChanges({ patientId: patient.id }),
+    getLastRemoval({ patientId: patient.id }),
+  ]);
+  // No catheter in place after a removal: guidance for after the catheter, no bag or valve buttons.
+  const after = !summary?.episode && removal ? { removal, contacts: await getHelpContacts({ patientId: patient.id }) } : null;
   const today = todayIso();
   const day = (d: string) => format.dateTime(new Date(`${d}T12:00:00Z`), { weekday: "long", day: "numeric", month: "long", timeZone: "UTC" });
   const daysUntil = (d: string) => parseIsoDate("date", d) - parseIsoDate("today", today);
@@ -66,6 +75,7 @@ export default async function TodayPage({ params, searchParams }: { params: Prom
         {t("startCheckIn")}
       </Link>
 
+      {after ? <AfterCatheter removal={after.removal} contacts={after.contacts} /> : (<>
       <Card className="flex flex-col gap-2">
         <h2 className="text-xl font-bold">{t("nextChange")}</h2>
         {summary?.episode ? (
@@ -101,6 +111,7 @@ export default async function TodayPage({ params, searchParams }: { params: Prom
         <BagChangeButtons patientId={patient.id} />
         <p className="text-ink-soft">{t("bags.nightBag")}</p>
       </Card>
+      </>)}
 
       <Card className="flex flex-col gap-3">
         <h2 className="text-xl font-bold">{t("lastCheckInTitle")}</h2>

@@ -8,7 +8,10 @@ import { PatientDetailsPanel } from "@/components/patient-record/patient-details
 import { Card } from "@/components/ui/card";
 import { getPatientRecord, listGpPracticeDirectory } from "@/db/queries/patients";
 import { charriereToMm, parseIsoDate, stateFor } from "@/lib/clinical";
-import { getPlanDefaults } from "@/lib/config/settings";
+import { getPlanDefaults, getTwocVoidWindowHours } from "@/lib/config/settings";
+import { getLatestEpisode } from "@/db/queries/episodes";
+import { TrialPanel } from "@/components/twoc/trial-panel";
+import { trialInProgress } from "@/lib/records/episodes";
 import { Link } from "@/lib/i18n/navigation";
 import { openRecordPage } from "@/lib/records/patient-record-page";
 import { todayIso } from "@/lib/shared/time-zone";
@@ -24,13 +27,21 @@ const severities: FindingSeverity[] = ["stop", "warn", "info"];
 export default async function DeviceTab({ params }: { params: Promise<{ locale: string; patientId: string }> }) {
   const { locale, patientId } = await params;
   const { via, closed } = await openRecordPage({ locale, patientId, action: "patient.view.device" });
-  const [record, gpPractices, planning] = await Promise.all([getPatientRecord({ patientId }), listGpPracticeDirectory(), getPlanDefaults()]);
+  const [record, gpPractices, planning, latest, windowHours] = await Promise.all([
+    getPatientRecord({ patientId }),
+    listGpPracticeDirectory(),
+    getPlanDefaults(),
+    getLatestEpisode({ patientId }),
+    getTwocVoidWindowHours(),
+  ]);
   if (!record) notFound();
   const t = await getTranslations("PatientDevice");
   const v = await getTranslations("Vocabulary");
   const tVisit = await getTranslations("VisitForm");
   const format = await getFormat();
   const e = record.currentEpisode;
+  // The catheter came out for a trial and no outcome is recorded yet.
+  const trial = !e ? trialInProgress(latest) : null;
   const today = todayIso();
   const date = (d: string | null | undefined) => (d ? format.dateTime(new Date(`${d}T12:00:00Z`), { dateStyle: "medium" }) : t("notRecorded"));
   const dateTime = (d: string) => format.dateTime(new Date(d), { dateStyle: "medium", timeStyle: "short" });
@@ -165,6 +176,8 @@ export default async function DeviceTab({ params }: { params: Promise<{ locale: 
               <p className="text-sm text-ink-soft">{t("safety")}</p>
             </Card>
           </>
+        ) : trial ? (
+          <TrialPanel patientId={patientId} removedAt={trial.removedAt!.toISOString()} windowHours={windowHours} closed={closed} />
         ) : (
           <Card>
             <p>{t("noneInPlaceBody")}</p>

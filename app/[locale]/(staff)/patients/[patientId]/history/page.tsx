@@ -8,6 +8,7 @@ import { listObservations } from "@/db/queries/observations";
 import { ObservationTable } from "@/components/observation-trends/observation-table";
 import { ObservationTrends } from "@/components/observation-trends/observation-trends";
 import { openRecordPage } from "@/lib/records/patient-record-page";
+import { twocResult, twocResultLines } from "@/lib/shared/twoc-result";
 
 export async function generateMetadata() {
   const t = await getTranslations("PatientRecord.tabs");
@@ -21,6 +22,7 @@ export default async function HistoryTab({ params }: { params: Promise<{ locale:
   const tv = await getTranslations("Visits.trends");
   const t = await getTranslations("PatientHistory");
   const vocab = await getTranslations("Vocabulary");
+  const tw = await getTranslations("Twoc.result");
   const format = await getFormat();
   const dateTime = (iso: string) => format.dateTime(new Date(iso), { dateStyle: "medium", timeStyle: "short" });
   const date = (iso: string) => format.dateTime(new Date(`${iso}T12:00:00Z`), { dateStyle: "medium" });
@@ -108,6 +110,11 @@ export default async function HistoryTab({ params }: { params: Promise<{ locale:
                     what: eventLine(v),
                     who: t("byWhen", { who: v.recordedByName, when: dateTime(v.occurredAt) }),
                     where: v.organisationName,
+                    // The trial's voids, residual and what was done, as the GP summary gives them.
+                    result:
+                      v.kind === "twoc_outcome"
+                        ? twocResultLines(twocResult(v.details), (key, values) => tw(key, values as never), (a) => vocab(`failedAction.${a}`)).join(" · ")
+                        : null,
                   }),
                 }}
               />
@@ -132,7 +139,7 @@ type Labels = {
   eventsTitle: string;
   overridesTitle: string;
   overrideLine: (code: string, reason: string) => string;
-  event: (v: HistoryEvent) => { what: string; who: string; where: string | null };
+  event: (v: HistoryEvent) => { what: string; who: string; where: string | null; result: string | null };
 };
 
 function EpisodeItem({ e, labels }: { e: HistoryEpisode; number: number; labels: Labels }) {
@@ -164,6 +171,11 @@ function EpisodeItem({ e, labels }: { e: HistoryEpisode; number: number; labels:
                     <span className="font-bold">{line.what}</span> · {line.who}
                     {line.where ? ` · ${line.where}` : ""}
                     {v.kind === "visit" && v.details.findings ? <FindingsSummary findings={v.details.findings} /> : null}
+                    {line.result ? (
+                      <p className="tabular" data-testid="twoc-result">
+                        {line.result}
+                      </p>
+                    ) : null}
                     {v.notes ? <p className="text-sm text-ink-soft">{v.notes}</p> : null}
                     {v.observation ? (
                       <div className="mt-2">

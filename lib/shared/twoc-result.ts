@@ -1,0 +1,51 @@
+// What a trial-without-catheter outcome event holds (episode_events.details), read the same way
+// by History, the GP summary and its PDF: each void (time of day when known, volume), the total,
+// the residual after voiding and what was done after a failed trial. Events saved before void
+// times were kept hold only `voidsMl`.
+import { TWOC_FAILED_ACTIONS } from "@/lib/clinical";
+
+type TwocFailedAction = (typeof TWOC_FAILED_ACTIONS)[number];
+
+export type TwocResult = {
+  voids: { at: string | null; volumeMl: number }[];
+  totalVoidedMl: number;
+  postVoidResidualMl: number | null;
+  failedAction: TwocFailedAction | null;
+};
+
+const num = (v: unknown) => (typeof v === "number" && Number.isFinite(v) ? v : null);
+
+export function twocResult(details: Record<string, unknown> | null | undefined): TwocResult {
+  const d = details ?? {};
+  const rich = Array.isArray(d.voids) ? (d.voids as { at?: unknown; volumeMl?: unknown }[]) : null;
+  const voids = rich
+    ? rich.flatMap((v) => (num(v?.volumeMl) === null ? [] : [{ at: typeof v.at === "string" ? v.at : null, volumeMl: num(v.volumeMl)! }]))
+    : Array.isArray(d.voidsMl)
+      ? (d.voidsMl as unknown[]).flatMap((ml) => (num(ml) === null ? [] : [{ at: null, volumeMl: num(ml)! }]))
+      : [];
+  const action = typeof d.failedAction === "string" && (TWOC_FAILED_ACTIONS as readonly string[]).includes(d.failedAction) ? (d.failedAction as TwocFailedAction) : null;
+  return {
+    voids,
+    totalVoidedMl: voids.reduce((s, v) => s + v.volumeMl, 0),
+    postVoidResidualMl: num(d.postVoidResidualMl),
+    failedAction: action,
+  };
+}
+
+/** "10:40 240 ml, 310 ml" — each void with its time when known, in the caller's words for ml. */
+export function voidsText(result: TwocResult, ml: (n: number) => string): string {
+  return result.voids.map((v) => (v.at ? `${v.at} ${ml(v.volumeMl)}` : ml(v.volumeMl))).join(", ");
+}
+
+type Say = (key: "voids" | "noVoids" | "residual" | "action", values?: Record<string, string | number>) => string;
+
+/**
+ * The result in short lines, worded by the caller's catalogue (Twoc.result.* on screens,
+ * Email gp.twoc* in the GP summary): voids with the total, the residual, what was done.
+ */
+export function twocResultLines(result: TwocResult, say: Say, action: (a: TwocFailedAction) => string): string[] {
+  const lines = [result.voids.length ? say("voids", { list: voidsText(result, (n) => `${n} ml`), total: result.totalVoidedMl }) : say("noVoids")];
+  if (result.postVoidResidualMl !== null) lines.push(say("residual", { ml: result.postVoidResidualMl }));
+  if (result.failedAction) lines.push(say("action", { action: action(result.failedAction) }));
+  return lines;
+}

@@ -1,0 +1,174 @@
+// A trial without catheter from the removal on: the caseload's TWOC filter keeps the patient in
+// view while the catheter is out for the trial (with the time left, then overdue), and a trial past
+// its window with no outcome tells the lead team once, through the outbox
+// (hazard H-TWOC-001 "patient in retention after a trial, not seen").
+import { randomUUID } from "node:crypto";
+import { and, eq, inArray } from "drizzle-orm";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { POST as postInsertion } from "@/app/api/patients/[patientId]/episodes/route";
+import { POST as postRemoval } from "@/app/api/patients/[patientId]/episodes/removal/route";
+import { POST as postTwoc } from "@/app/api/patients/[patientId]/episodes/twoc/route";
+import { db } from "@/db";
+import { listCaseload } from "@/db/queries/caseload";
+import { getDeviceCard } from "@/db/queries/passport-card";
+import { auditEvents, careTeam, organisations, outboundMessages, patients, settings } from "@/db/schema";
+import { caseloadQuerySchema } from "@/lib/validations/caseload";
+import { sendOverdueTrialAlerts } from "@/lib/records/twoc-overdue";
+import { call, sessionFor } from "../support/http";
+import { demoDevice } from "../support/fixtures";
+
+const h = (fn: unknown) => fn as Parameters<typeof call>[0];
+const minutesAgo = (m: number) => new Date(Date.now() - m * 60_000).toISOString();
+let harbourside: string;
+let larch: string;
+const created: string[] = [];
+
+async function post(handler: unknown, patientId: string, suffix: string, body: unknown) {
+  const res = await call(h(handler), `/api/patients/${patientId}/episodes${suffix}`, { body, cookie: await sessionFor("communityNurse"), params: { patientId } });
+  return { status: res.status, body: await res.json() };
+}
+
+/** A patient of our own with a catheter in place; Harbourside leads, Larch is in the care team too. */
+async function patientWithCatheter({ gp }: { gp?: string } = {}) {
+  const [p] = await db
+    .insert(patients)
+    .values({
+      givenName: "Trial",
+      familyName: `Twoc-${randomUUID().slice(0, 8)}`,
+      healthRecordNumber: `TW-${randomUUID()}`,
+      dateOfBirth: "1948-02-02",
+      sex: "male",
+      allergyLatex: "no",
+      allergyChlorhexidine: "no",
+      allergyLidocaine: "no",
+      gpPracticeId: gp ?? null,
+    })
+    .returning({ id: patients.id, hrn: patients.healthRecordNumber });
+  created.push(p.id);
+  await db.insert(careTeam).values([
+    { patientId: p.id, organisationId: harbourside, lead: true },
+    { patientId: p.id, organisationId: larch },
+  ]);
+  const ins = await post(postInsertion, p.id, "", {
+    ...demoDevice,
+    indication: "Acute retention",
+    insertedAt: minutesAgo(60 * 24 * 5),
+    gelKind: "plain",
+    gelVolumeMl: 11,
+    attempts: 1,
+    overrides: [],
+  });
+  expect(ins.status).toBe(201);
+  return { patientId: p.id, hrn: p.hrn, episodeId: ins.body.episode.id as string };
+}
+
+const twocRows = async (now = new Date(), hours?: number) =>
+  (await listCaseload({ organisationIds: [harbourside], dueSoonDays: 7, query: caseloadQuerySchema.parse({ filter: "twoc", pageSize: 100 }), now, twocWindowHours: hours })).rows;
+
+beforeAll(async () => {
+  const orgs = await db.select({ id: organisations.id, name: organisations.name }).from(organisations);
+  harbourside = orgs.find((o) => o.name === "Harbourside Community Nursing Team")!.id;
+  larch = orgs.find((o) => o.name === "Larch Ward")!.id;
+});
+
+afterAll(async () => {
+  await db.delete(settings).where(eq(settings.key, "twocVoidWindowHours"));
+  if (created.length) {
+    await db.delete(outboundMessages).where(inArray(outboundMessages.patientId, created));
+    await db.delete(patients).where(inArray(patients.id, created));
+  }
+});
+
+describe("a trial without catheter under way", () => {
+  it("stays in the caseload's TWOC filter with the time left, overdue once the window passes, gone once the outcome is in", async () => {
+    const { patientId } = await patientWithCatheter();
+    expect((await twocRows()).some((r) => r.patientId === patientId)).toBe(false);
+    const removal = await post(postRemoval, patientId, "/removal", { removedAt: minutesAgo(120), reason: "trial-without-catheter", startTwoc: true });
+    expect(removal.status).toBe(201);
+
+    // Removed 2 hours ago, 6-hour window (common practice, no source): 4 hours left.
+    const row = (await twocRows()).find((r) => r.patientId === patientId)!;
+    expect(row).toMatchObject({ route: null, trialOverdue: false });
+    expect(Date.parse(row.trialVoidBy!) - Date.parse(row.trialRemovedAt!)).toBe(6 * 3_600_000);
+    // A 2-hour window (the deployment's setting) has passed: overdue.
+    expect((await twocRows(new Date(), 2)).find((r) => r.patientId === patientId)).toMatchObject({ trialOverdue: true });
+
+    // The device card no longer shows a catheter in place: when it came out, trial under way…
+    expect((await getDeviceCard({ patientId }))).toMatchObject({ device: null, removal: { removedAt: removal.body.episode.removedAt, trial: "under-way" } });
+    const outcome = await post(postTwoc, patientId, "/twoc", { occurredAt: minutesAgo(5), outcome: "passed", voids: [{ at: "10:40", volumeMl: 250 }], postVoidResidualMl: 80 });
+    expect(outcome.status).toBe(201);
+    expect((await twocRows()).some((r) => r.patientId === patientId)).toBe(false);
+    // …then passed, with the lead team's numbers still on it.
+    const card = await getDeviceCard({ patientId });
+    expect(card).toMatchObject({ device: null, removal: { trial: "passed" }, careTeam: { name: "Harbourside Community Nursing Team" } });
+  });
+
+  it("refuses a void time that is not a time of day, and writes nothing", async () => {
+    const { patientId } = await patientWithCatheter();
+    await post(postRemoval, patientId, "/removal", { removedAt: minutesAgo(60), reason: "trial-without-catheter" });
+    const bad = await post(postTwoc, patientId, "/twoc", { occurredAt: minutesAgo(5), outcome: "passed", voids: [{ at: "25:00", volumeMl: 250 }] });
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.fields["voids.0.at"]).toEqual(["clock_time"]);
+    expect((await twocRows()).some((r) => r.patientId === patientId)).toBe(true);
+  });
+
+  it("tells the lead team once through the outbox when the window passes with no outcome; a closed record is left alone", async () => {
+    const { patientId, hrn, episodeId } = await patientWithCatheter();
+    await post(postRemoval, patientId, "/removal", { removedAt: minutesAgo(5 * 60), reason: "trial-without-catheter" });
+    const mine = () => db.select().from(outboundMessages).where(and(eq(outboundMessages.patientId, patientId), eq(outboundMessages.kind, "care-team-alert")));
+
+    // 5 hours in, 6-hour window: nothing yet.
+    await sendOverdueTrialAlerts();
+    expect(await mine()).toHaveLength(0);
+
+    // An hour later the window has passed: one e-mail, to the lead team only (not Larch Ward).
+    const later = new Date(Date.now() + 61 * 60_000);
+    await sendOverdueTrialAlerts({ now: later });
+    const sent = await mine();
+    expect(sent).toHaveLength(1);
+    expect(sent[0]).toMatchObject({ organisationId: harbourside, sourceId: episodeId });
+    expect(sent[0].subject).toContain(hrn);
+    expect(sent[0].subject).toContain("trial without catheter");
+    // Every run after that: still one.
+    await sendOverdueTrialAlerts({ now: new Date(later.getTime() + 10 * 60_000) });
+    expect(await mine()).toHaveLength(1);
+    const events = await db.select().from(auditEvents).where(and(eq(auditEvents.patientId, patientId), eq(auditEvents.action, "twoc.overdue-alert")));
+    expect(events).toHaveLength(1);
+
+    // The window is a setting: 2 hours makes a trial removed 3 hours ago overdue now.
+    const other = await patientWithCatheter();
+    await post(postRemoval, other.patientId, "/removal", { removedAt: minutesAgo(180), reason: "trial-without-catheter" });
+    await db.insert(settings).values({ key: "twocVoidWindowHours", value: 2 }).onConflictDoUpdate({ target: settings.key, set: { value: 2 } });
+    // A closed record is read-only and nobody's caseload: no alert.
+    const closed = await patientWithCatheter();
+    await post(postRemoval, closed.patientId, "/removal", { removedAt: minutesAgo(180), reason: "trial-without-catheter" });
+    await db.update(patients).set({ closedAt: new Date() }).where(eq(patients.id, closed.patientId));
+    await sendOverdueTrialAlerts();
+    expect(await db.select().from(outboundMessages).where(and(eq(outboundMessages.patientId, other.patientId), eq(outboundMessages.kind, "care-team-alert")))).toHaveLength(1);
+    expect((await db.select().from(outboundMessages).where(and(eq(outboundMessages.patientId, closed.patientId), eq(outboundMessages.kind, "care-team-alert"))))).toHaveLength(0);
+    await db.delete(settings).where(eq(settings.key, "twocVoidWindowHours"));
+  });
+
+  it("the voids with their times, the total, the residual and what was done reach the GP summary (and its PDF, drawn from the same rows)", async () => {
+    const [millbrook] = await db.select({ id: organisations.id }).from(organisations).where(eq(organisations.name, "Millbrook Surgery"));
+    const { patientId } = await patientWithCatheter({ gp: millbrook.id });
+    await post(postRemoval, patientId, "/removal", { removedAt: minutesAgo(400), reason: "trial-without-catheter" });
+    const res = await post(postTwoc, patientId, "/twoc", {
+      occurredAt: minutesAgo(10),
+      outcome: "failed",
+      failedAction: "re-catheterised",
+      voids: [{ at: "09:15", volumeMl: 40 }, { volumeMl: 25 }],
+      postVoidResidualMl: 650,
+      notes: "Bladder palpable, uncomfortable",
+    });
+    expect(res.status).toBe(201);
+    const [mail] = await db.select().from(outboundMessages).where(and(eq(outboundMessages.patientId, patientId), eq(outboundMessages.sourceId, res.body.eventId)));
+    expect(mail.kind).toBe("gp-summary");
+    expect(mail.text).toContain("09:15 40 ml, 25 ml (total 65 ml)");
+    expect(mail.text).toContain("Residual after voiding (bladder scan)");
+    expect(mail.text).toContain("650 ml");
+    expect(mail.text).toContain("Re-catheterised");
+    expect(mail.text).toContain("Bladder palpable, uncomfortable");
+  });
+});
+
