@@ -129,7 +129,12 @@ export const matrix: Row[] = [
   { route: "GET /api/patients/[patientId]", params: patient, expect: staffOnPatient },
   { route: "PATCH /api/patients/[patientId]", params: patient, expect: staffOnPatient },
   { route: "GET /api/patients/[patientId]/history", params: patient, expect: staffOnPatient },
-  { route: "GET /api/patients/[patientId]/access-log", params: patient, expect: staffOnPatient },
+  // Who looked at the record: the care team and the patient themselves; carers and admins 403.
+  {
+    route: "GET /api/patients/[patientId]/access-log",
+    params: patient,
+    expect: { anonymous: 401, admin: 403, careTeamClinician: "allowed", otherClinician: 404, patient: "allowed", otherPatient: 404, carer: 403 },
+  },
   // Passport: issue/reissue, metadata, the stored booklet. The POST row comes first, so the
   // booklet row finds a passport to download (rows run in order).
   { route: "POST /api/patients/[patientId]/passport", params: patient, expect: staffOnPatient },

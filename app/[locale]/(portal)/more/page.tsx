@@ -17,6 +17,7 @@ export default async function MorePage({ params }: { params: Promise<{ locale: s
   const { locale } = await params;
   const viewer = await requirePageRole(locale, "patient", "carer");
   const t = await getTranslations("More");
+  const tr = await getTranslations("PortalReach");
   // Only the patient downloads their own data (a carer cannot; an admin does it on request).
   const ownPatient = viewer.role === "patient" ? await portalPatient(viewer, undefined) : null;
   const item = (href: string, icon: ReactNode, label: string) => (
@@ -36,6 +37,8 @@ export default async function MorePage({ params }: { params: Promise<{ locale: s
         {item("/learn", <BookIcon className="h-8 w-8 shrink-0" />, t("learn"))}
         {item("/people", <PeopleIcon className="h-8 w-8 shrink-0" />, t("people"))}
         {item("/help", <LifebuoyIcon className="h-8 w-8 shrink-0" />, t("help"))}
+        {item("/more/check-ins", <TubeIcon className="h-8 w-8 shrink-0" />, tr("history.link"))}
+        {viewer.role === "patient" ? item("/more/access", <KeyIcon className="h-8 w-8 shrink-0" />, tr("access.link")) : null}
         {item("/more/security", <KeyIcon className="h-8 w-8 shrink-0" />, t("security.title"))}
       </ul>
       {ownPatient ? (

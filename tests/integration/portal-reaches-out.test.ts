@@ -1,0 +1,81 @@
+// Issue 17: the patient sees who looked at their record (the access-log route, the data download in
+// words) and the check-in history with who answered and whether the care team saw it. Carers are
+// refused the log (ASVS 8.2.1; the matrix row is in security/access-matrix.ts).
+import { beforeAll, describe, expect, it } from "vitest";
+import { GET as accessLog } from "@/app/api/patients/[patientId]/access-log/route";
+import { GET as exportData } from "@/app/api/patients/[patientId]/export/route";
+import { db } from "@/db";
+import { auditEvents, checkIns } from "@/db/schema";
+import { listCheckInsWithAcknowledgement } from "@/db/queries/caseload-items";
+import { patientIdByHrn, userIdByEmail } from "../support/fixtures";
+import { call, demo, sessionFor } from "../support/http";
+
+let arthur: string;
+let priya: string;
+let joan: string;
+const REASON = "Night visit: catheter not draining (issue 17 test)";
+
+beforeAll(async () => {
+  arthur = await patientIdByHrn("EM-100-001");
+  priya = await userIdByEmail(demo.rowanNurse.email);
+  joan = await userIdByEmail(demo.carer.email);
+  const longAgo = new Date(Date.UTC(2026, 0, 14, 10, 0));
+  await db.insert(auditEvents).values([
+    // A visiting clinician: the grant with the reason, then the card by QR; one view long ago.
+    { action: "visit-access.grant", actorUserId: priya, actorRole: "clinician", patientId: arthur, via: "visit_access" as const, reason: REASON, at: new Date(Date.now() - 60_000) },
+    { action: "passport.card.view", actorUserId: priya, actorRole: "clinician", patientId: arthur, via: "qr" as const, at: new Date(Date.now() - 120_000) },
+    { action: "patient.view.details", actorUserId: priya, actorRole: "clinician", patientId: arthur, via: "visit_access" as const, at: longAgo },
+  ]);
+});
+
+describe("who looked at my record", () => {
+  it("the patient reads their own log: the visiting clinician by name, how (QR, visit access) and the reason", async () => {
+    const res = await call(accessLog, `/api/patients/${arthur}/access-log?who=outside&pageSize=100`, { cookie: await sessionFor("patient"), params: { patientId: arthur } });
+    expect(res.status).toBe(200);
+    const body = await res.json();
+    expect(body.entries).toEqual(
+      expect.arrayContaining([
+        expect.objectContaining({ action: "visit-access.grant", actorName: "Priya Sandhu", via: "visit_access", reason: REASON }),
+        expect.objectContaining({ action: "passport.card.view", actorName: "Priya Sandhu", via: "qr" }),
+      ]),
+    );
+    expect(body.entries.every((e: { via: string | null }) => e.via !== "care_team")).toBe(true);
+  });
+
+  it("filters by calendar month; a malformed month is 400", async () => {
+    const cookie = await sessionFor("patient");
+    const jan = await (await call(accessLog, `/api/patients/${arthur}/access-log?month=2026-01`, { cookie, params: { patientId: arthur } })).json();
+    expect(jan.month).toBe("2026-01");
+    expect(jan.entries.some((e: { action: string }) => e.action === "patient.view.details")).toBe(true);
+    expect(jan.entries.every((e: { at: string }) => e.at.startsWith("2026-01"))).toBe(true);
+    const bad = await call(accessLog, `/api/patients/${arthur}/access-log?month=2026-13`, { cookie, params: { patientId: arthur } });
+    expect(bad.status).toBe(400);
+  });
+
+  it("the patient reading their own log adds nothing to it", async () => {
+    const cookie = await sessionFor("patient");
+    const before = (await (await call(accessLog, `/api/patients/${arthur}/access-log`, { cookie, params: { patientId: arthur } })).json()).total;
+    const after = (await (await call(accessLog, `/api/patients/${arthur}/access-log`, { cookie, params: { patientId: arthur } })).json()).total;
+    expect(after).toBe(before);
+  });
+
+  it("a carer is refused (403); the data download says the same in words, with names and no ids", async () => {
+    expect((await call(accessLog, `/api/patients/${arthur}/access-log`, { cookie: await sessionFor("carer"), params: { patientId: arthur } })).status).toBe(403);
+    const res = await call(exportData, `/api/patients/${arthur}/export`, { cookie: await sessionFor("patient"), params: { patientId: arthur } });
+    expect(res.status).toBe(200);
+    const data = await res.json();
+    const grant = data.accessLog.find((l: { reason: string | null }) => l.reason === REASON);
+    expect(grant).toMatchObject({ who: "Priya Sandhu", role: "Clinician", how: "With visit access (not your usual care team)", what: "Was given visit access" });
+    const qr = data.accessLog.find((l: { how: string; who: string }) => l.who === "Priya Sandhu" && l.how.includes("QR"));
+    expect(qr).toBeDefined();
+    expect(JSON.stringify(data.accessLog)).not.toContain(priya);
+  });
+});
+
+describe("check-in history", () => {
+  it("says who answered each check-in", async () => {
+    await db.insert(checkIns).values({ patientId: arthur, reportedByUserId: joan, answers: { draining: "yes", pain: "none" }, level: "self-care", ruleIds: [], idempotencyKey: `i17-history-${Date.now()}` });
+    const rows = await listCheckInsWithAcknowledgement({ patientId: arthur, limit: 200 });
+    expect(rows.find((r) => r.reportedByUserId === joan)).toMatchObject({ reporterName: "Joan Pell", alerted: false });
+  });
+});
