@@ -8,7 +8,8 @@ import { listCheckInsWithAcknowledgement } from "@/db/queries/caseload-items";
 import { getEmergencyNumber } from "@/lib/config/settings";
 import { dayIn } from "@/lib/shared/time-zone";
 
-export async function RecentCheckIns({ patientId }: { patientId: string }) {
+/** `carerOf`: the patient's first name when a carer reads it ("Arthur's recent check-ins"). */
+export async function RecentCheckIns({ patientId, carerOf = null }: { patientId: string; carerOf?: string | null }) {
   const [rows, emergencyNumber] = await Promise.all([listCheckInsWithAcknowledgement({ patientId }), getEmergencyNumber()]);
   if (rows.length === 0) return null;
   const t = await getTranslations("CareLoopPortal");
@@ -19,7 +20,7 @@ export async function RecentCheckIns({ patientId }: { patientId: string }) {
       : format.dateTime(d, { weekday: "long", day: "numeric", month: "long", hour: "2-digit", minute: "2-digit", hourCycle: "h23" });
   return (
     <Card className="flex flex-col gap-3" data-testid="recent-check-ins">
-      <h2 className="text-xl font-bold">{t("title")}</h2>
+      <h2 className="text-xl font-bold">{carerOf ? (await getTranslations("PortalReach.carers"))("carerRecent", { name: carerOf }) : t("title")}</h2>
       <ul className="flex flex-col gap-4">
         {rows.map((r) => (
           <li key={r.id} className="flex flex-col gap-1" data-testid="recent-check-in" data-level={r.level}>

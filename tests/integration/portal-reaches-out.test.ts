@@ -1,11 +1,16 @@
 // Issue 17: the patient sees who looked at their record (the access-log route, the data download in
 // words) and the check-in history with who answered and whether the care team saw it. Carers are
 // refused the log (ASVS 8.2.1; the matrix row is in security/access-matrix.ts).
+import { randomUUID } from "node:crypto";
+import { and, eq, like } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
+import { POST as checkInsPost } from "@/app/api/check-ins/route";
+import { PUT as carerAlerts } from "@/app/api/portal/carer-alerts/route";
+import { DELETE as removeCarer } from "@/app/api/patients/[patientId]/carers/[linkId]/route";
 import { GET as accessLog } from "@/app/api/patients/[patientId]/access-log/route";
 import { GET as exportData } from "@/app/api/patients/[patientId]/export/route";
 import { db } from "@/db";
-import { auditEvents, checkIns } from "@/db/schema";
+import { auditEvents, carerLinks, checkIns, outboundMessages, user } from "@/db/schema";
 import { listCheckInsWithAcknowledgement } from "@/db/queries/caseload-items";
 import { patientIdByHrn, userIdByEmail } from "../support/fixtures";
 import { call, demo, sessionFor } from "../support/http";
@@ -77,5 +82,52 @@ describe("check-in history", () => {
     await db.insert(checkIns).values({ patientId: arthur, reportedByUserId: joan, answers: { draining: "yes", pain: "none" }, level: "self-care", ruleIds: [], idempotencyKey: `i17-history-${Date.now()}` });
     const rows = await listCheckInsWithAcknowledgement({ patientId: arthur, limit: 200 });
     expect(rows.find((r) => r.reportedByUserId === joan)).toMatchObject({ reporterName: "Joan Pell", alerted: false });
+  });
+});
+
+const fine = { newConfusion: false, breathless: false, feelsVeryUnwell: false, shivering: false, catheterOut: false, draining: "yes", pain: "none", blood: "none" };
+
+describe("carers told in time", () => {
+  it("a carer turns alerts on; the patient's urgent check-in e-mails her through the outbox, once; the patient may not set it (403)", async () => {
+    const carer = await sessionFor("carer");
+    expect((await call(carerAlerts, "/api/portal/carer-alerts", { method: "PUT", cookie: await sessionFor("patient"), body: { patientId: arthur, on: true } })).status).toBe(403);
+    expect((await call(carerAlerts, "/api/portal/carer-alerts", { method: "PUT", cookie: carer, body: { patientId: arthur, on: "yes" } })).status).toBe(400);
+    const on = await call(carerAlerts, "/api/portal/carer-alerts", { method: "PUT", cookie: carer, body: { patientId: arthur, on: true } });
+    expect(on.status).toBe(200);
+    const key = randomUUID();
+    const patient = await sessionFor("patient");
+    const first = await call(checkInsPost, "/api/check-ins", { cookie: patient, body: { patientId: arthur, answers: { ...fine, draining: "none" }, idempotencyKey: key } });
+    const { checkIn } = await first.json();
+    expect(checkIn.level).toBe("urgent");
+    // The same check-in sent again (an offline phone) sends nothing more.
+    await call(checkInsPost, "/api/check-ins", { cookie: patient, body: { patientId: arthur, answers: { ...fine, draining: "none" }, idempotencyKey: key } });
+    const mails = await db.select().from(outboundMessages).where(like(outboundMessages.idempotencyKey, `carer-alert:${checkIn.id}:%`));
+    expect(mails).toHaveLength(1);
+    expect(mails[0]).toMatchObject({ toAddress: demo.carer.email, kind: "carer-alert" });
+    expect(mails[0].subject).toBe("Arthur reported an urgent problem");
+    expect(mails[0].text).toContain("The care team has been told");
+  });
+
+  it("with alerts off she is not e-mailed; a check-in she answered herself does not e-mail her", async () => {
+    const carer = await sessionFor("carer");
+    const own = await call(checkInsPost, "/api/check-ins", { cookie: carer, body: { patientId: arthur, answers: { ...fine, draining: "none" }, idempotencyKey: randomUUID() } });
+    const ownId = (await own.json()).checkIn.id;
+    expect(await db.select().from(outboundMessages).where(like(outboundMessages.idempotencyKey, `carer-alert:${ownId}:%`))).toHaveLength(0);
+    await call(carerAlerts, "/api/portal/carer-alerts", { method: "PUT", cookie: carer, body: { patientId: arthur, on: false } });
+    const res = await call(checkInsPost, "/api/check-ins", { cookie: await sessionFor("patient"), body: { patientId: arthur, answers: { ...fine, draining: "none" }, idempotencyKey: randomUUID() } });
+    const id = (await res.json()).checkIn.id;
+    expect(await db.select().from(outboundMessages).where(like(outboundMessages.idempotencyKey, `carer-alert:${id}:%`))).toHaveLength(0);
+  });
+
+  it("a removed carer is told by e-mail and the patient gets a confirmation; her portal has no patient any more", async () => {
+    const email = `carer.removed.${randomUUID().slice(0, 8)}@testwick.example`;
+    const [u] = await db.insert(user).values({ id: randomUUID(), name: "Rhoda Leaver", email, role: "carer" }).returning({ id: user.id });
+    const [link] = await db.insert(carerLinks).values({ patientId: arthur, carerUserId: u.id, invitedEmail: email, status: "active", acceptedAt: new Date() }).returning({ id: carerLinks.id });
+    const res = await call(removeCarer, `/api/patients/${arthur}/carers/${link.id}`, { method: "DELETE", cookie: await sessionFor("patient"), params: { patientId: arthur, linkId: link.id } });
+    expect(res.status).toBe(204);
+    const [told] = await db.select().from(outboundMessages).where(eq(outboundMessages.idempotencyKey, `carer-removed:${link.id}`));
+    expect(told).toMatchObject({ toAddress: email, subject: "You no longer help Arthur on Caddis" });
+    const [confirm] = await db.select().from(outboundMessages).where(and(eq(outboundMessages.idempotencyKey, `carer-removed-confirm:${link.id}`), eq(outboundMessages.toAddress, demo.patient.email)));
+    expect(confirm.text).toContain("Rhoda Leaver can no longer see your record");
   });
 });

@@ -100,6 +100,11 @@ export const matrix: Row[] = [
     expect: { anonymous: 401, admin: 403, careTeamClinician: 403, otherClinician: 403, patient: 404, otherPatient: 404, carer: 404 },
   },
   { route: "POST /api/bag-changes", expect: portalOnly },
+  // A carer's own choice to be told of urgent check-ins: carers only.
+  {
+    route: "PUT /api/portal/carer-alerts",
+    expect: { anonymous: 401, admin: 403, careTeamClinician: 403, otherClinician: 403, patient: 403, otherPatient: 403, carer: "allowed" },
+  },
   // Public by design: a code or token is the proof; limited per address (lib/http/rate-limit.ts).
   { route: "POST /api/activate", expect: { anonymous: "allowed", admin: "allowed", careTeamClinician: "allowed", otherClinician: "allowed", patient: "allowed", otherPatient: "allowed", carer: "allowed" } },
   { route: "POST /api/carer-invites/accept", expect: { anonymous: "allowed", admin: "allowed", careTeamClinician: "allowed", otherClinician: "allowed", patient: "allowed", otherPatient: "allowed", carer: "allowed" } },
