@@ -82,7 +82,11 @@ export async function listAccessLog(
       from g
       group by g.actor_user_id, g.via, g.is_view, g.grp
     )
-    select l.id, l.at, l.first_at, l.n, l.action, u.name as actor_name, l.actor_role, l.via, l.reason, o.name as organisation_name,
+    select l.id, l.at, l.first_at, l.n, l.action, u.name as actor_name, l.actor_role, l.via, l.reason,
+           -- The event's organisation, else the member of staff's organisations now (a visit
+           -- access event names none): the patient asks "who, from where".
+           coalesce(o.name, (select string_agg(o2.name, ', ' order by o2.name) from memberships m join organisations o2 on o2.id = m.organisation_id
+                             where m.user_id = l.actor_user_id and l.actor_role in ('clinician', 'admin'))) as organisation_name,
            count(*) over ()::int as total
     from lines l
     left join "user" u on u.id = l.actor_user_id

@@ -70,7 +70,7 @@ describe("who looked at my record", () => {
     expect(res.status).toBe(200);
     const data = await res.json();
     const grant = data.accessLog.find((l: { reason: string | null }) => l.reason === REASON);
-    expect(grant).toMatchObject({ who: "Priya Sandhu", role: "Clinician", how: "With visit access (not your usual care team)", what: "Was given visit access" });
+    expect(grant).toMatchObject({ who: "Priya Sandhu", role: "Clinician", organisation: "Rowan Ward", how: "With visit access (not your usual care team)", what: "Was given visit access" });
     const qr = data.accessLog.find((l: { how: string; who: string }) => l.who === "Priya Sandhu" && l.how.includes("QR"));
     expect(qr).toBeDefined();
     expect(JSON.stringify(data.accessLog)).not.toContain(priya);

@@ -99,11 +99,10 @@ export default async function WhoLookedPage({ params, searchParams }: { params: 
           <li key={l.id}>
             <Card className="flex flex-col gap-1 [overflow-wrap:break-word]" data-testid="access-line" data-via={l.how}>
               <p className="tabular font-bold">{when(l.at)}</p>
-              <p>
-                <span className="font-bold">{l.name ?? (l.role ? t("removedAccount") : t("notSignedIn"))}</span>
-                {l.role ? <span>{`, ${v(`role.${l.role}`)}`}</span> : null}
-                {l.organisation ? <span>{`, ${l.organisation}`}</span> : null}
-              </p>
+              <p className="font-bold">{l.name ?? (l.role ? t("removedAccount") : t("notSignedIn"))}</p>
+              {l.role || l.organisation ? (
+                <p data-testid="access-role">{format.list([l.role ? v(`role.${l.role}`) : null, l.organisation].filter((x): x is string => Boolean(x)), { type: "unit" })}</p>
+              ) : null}
               <p data-testid="access-how">{t(`how.${l.how}`)}</p>
               {l.reason ? <p data-testid="access-reason">{t("reason", { reason: l.reason })}</p> : null}
               <p data-testid="access-what">
