@@ -6,6 +6,7 @@ import { LevelBadge } from "@/components/portal/level-badge";
 import { Card } from "@/components/ui/card";
 import { listCheckInsWithAcknowledgement } from "@/db/queries/caseload-items";
 import { getEmergencyNumber } from "@/lib/config/settings";
+import { Link } from "@/lib/i18n/navigation";
 import { dayIn } from "@/lib/shared/time-zone";
 
 /** `carerOf`: the patient's first name when a carer reads it ("Arthur's recent check-ins"). */
@@ -40,6 +41,9 @@ export async function RecentCheckIns({ patientId, carerOf = null }: { patientId:
           </li>
         ))}
       </ul>
+      <Link href={{ pathname: "/more/check-ins", query: { patient: patientId } }} className="inline-flex min-h-11 items-center font-bold text-brand underline" data-testid="history-link">
+        {(await getTranslations("PortalReach.history"))("seeAll")}
+      </Link>
     </Card>
   );
 }

@@ -101,7 +101,7 @@ export default async function WhoLookedPage({ params, searchParams }: { params: 
               <p className="tabular font-bold">{when(l.at)}</p>
               <p className="font-bold">{l.name ?? (l.role ? t("removedAccount") : t("notSignedIn"))}</p>
               {l.role || l.organisation ? (
-                <p data-testid="access-role">{format.list([l.role ? v(`role.${l.role}`) : null, l.organisation].filter((x): x is string => Boolean(x)), { type: "unit" })}</p>
+                <p data-testid="access-role">{[l.role ? v(`role.${l.role}`) : null, l.organisation].filter(Boolean).join(" · ")}</p>
               ) : null}
               <p data-testid="access-how">{t(`how.${l.how}`)}</p>
               {l.reason ? <p data-testid="access-reason">{t("reason", { reason: l.reason })}</p> : null}
