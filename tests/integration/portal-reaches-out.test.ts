@@ -5,6 +5,7 @@ import { randomUUID } from "node:crypto";
 import { and, eq, like } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { POST as checkInsPost } from "@/app/api/check-ins/route";
+import { GET as diaryGet, POST as diaryPost } from "@/app/api/diary/route";
 import { PUT as carerAlerts } from "@/app/api/portal/carer-alerts/route";
 import { DELETE as removeCarer } from "@/app/api/patients/[patientId]/carers/[linkId]/route";
 import { GET as accessLog } from "@/app/api/patients/[patientId]/access-log/route";
@@ -74,6 +75,19 @@ describe("who looked at my record", () => {
     const qr = data.accessLog.find((l: { how: string; who: string }) => l.who === "Priya Sandhu" && l.how.includes("QR"));
     expect(qr).toBeDefined();
     expect(JSON.stringify(data.accessLog)).not.toContain(priya);
+  });
+});
+
+describe("who made each entry", () => {
+  it("the patient's diary names the carer who added a drink; her own entries need no name", async () => {
+    const clientKey = randomUUID();
+    const added = await call(diaryPost, "/api/diary", { cookie: await sessionFor("carer"), body: { patientId: arthur, kind: "in", volumeMl: 150, clientKey } });
+    expect(added.status).toBe(201);
+    expect((await added.json()).entry).toMatchObject({ byYou: true, byName: null });
+    const range = `from=${encodeURIComponent(new Date(Date.now() - 3_600_000).toISOString())}&to=${encodeURIComponent(new Date(Date.now() + 60_000).toISOString())}`;
+    const res = await call(diaryGet, `/api/diary?patientId=${arthur}&${range}`, { cookie: await sessionFor("patient") });
+    const entry = (await res.json()).entries.find((e: { clientKey: string }) => e.clientKey === clientKey);
+    expect(entry).toMatchObject({ byYou: false, byName: "Joan Pell" });
   });
 });
 
