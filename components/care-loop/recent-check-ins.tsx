@@ -7,9 +7,11 @@ import { LevelBadge } from "@/components/portal/level-badge";
 import { Card } from "@/components/ui/card";
 import { listCheckInsWithAcknowledgement } from "@/db/queries/caseload-items";
 import { getEmergencyNumber } from "@/lib/config/settings";
+import { Link } from "@/lib/i18n/navigation";
 import { dayIn } from "@/lib/shared/time-zone";
 
-export async function RecentCheckIns({ patientId }: { patientId: string }) {
+/** `carerOf`: the patient's first name when a carer reads it ("Arthur's recent check-ins"). */
+export async function RecentCheckIns({ patientId, carerOf = null }: { patientId: string; carerOf?: string | null }) {
   const [rows, emergencyNumber] = await Promise.all([listCheckInsWithAcknowledgement({ patientId }), getEmergencyNumber()]);
   if (rows.length === 0) return null;
   const t = await getTranslations("CareLoopPortal");
@@ -20,7 +22,7 @@ export async function RecentCheckIns({ patientId }: { patientId: string }) {
       : format.dateTime(d, { weekday: "long", day: "numeric", month: "long", hour: "2-digit", minute: "2-digit", hourCycle: "h23" });
   return (
     <Card className="flex flex-col gap-3" data-testid="recent-check-ins">
-      <h2 className="text-xl font-bold">{t("title")}</h2>
+      <h2 className="text-xl font-bold">{carerOf ? (await getTranslations("PortalReach.carers"))("carerRecent", { name: carerOf }) : t("title")}</h2>
       <ul className="flex flex-col gap-4">
         {rows.map((r) => (
           <li key={r.id} className="flex flex-col gap-1" data-testid="recent-check-in" data-level={r.level}>
@@ -40,6 +42,9 @@ export async function RecentCheckIns({ patientId }: { patientId: string }) {
           </li>
         ))}
       </ul>
+      <Link href={{ pathname: "/more/check-ins", query: { patient: patientId } }} className="inline-flex min-h-11 items-center font-bold text-brand underline" data-testid="history-link">
+        {(await getTranslations("PortalReach.history"))("seeAll")}
+      </Link>
     </Card>
   );
 }

@@ -18,7 +18,7 @@ import { WeekChart } from "./week-chart";
 
 const asEntry = (p: PendingDiaryEntry): Entry => ({ id: p.clientKey, kind: p.kind, volumeMl: p.volumeMl, at: p.at, removable: true, clientKey: p.clientKey, waiting: true });
 
-type Entry = { id: string; kind: "in" | "out"; volumeMl: number; at: string; removable: boolean; clientKey?: string | null; waiting?: boolean };
+type Entry = { id: string; kind: "in" | "out"; volumeMl: number; at: string; removable: boolean; clientKey?: string | null; waiting?: boolean; byName?: string | null };
 
 export const diaryKeys = {
   all: ["diary"] as const,
@@ -45,6 +45,7 @@ const quick = "flex min-h-14 items-center justify-center rounded-lg border-2 bor
  */
 export function DiaryView({ patientId, weightKg, fluidLimitMl }: { patientId: string; weightKg: number | null; fluidLimitMl: number | null }) {
   const t = useTranslations("Diary");
+  const tr = useTranslations("PortalReach.diary");
   const format = useFormat();
   const client = useQueryClient();
   // A day older than the week so the 24-hour output check can see whether the diary covers it.
@@ -208,6 +209,11 @@ export function DiaryView({ patientId, weightKg, fluidLimitMl }: { patientId: st
               <li key={e.id} className="flex flex-wrap items-center justify-between gap-3 rounded-lg border border-stone-faint bg-paper-raised p-3">
                 <span className="tabular">
                   <span className="font-bold">{time(e.at)}</span> · {t(e.kind === "in" ? "drinkEntry" : "bagEntry", { ml: e.volumeMl })}
+                  {e.byName ? (
+                    <span className="block text-sm text-ink-soft" data-testid="diary-by">
+                      {tr("addedBy", { name: e.byName })}
+                    </span>
+                  ) : null}
                   {e.waiting ? (
                     <span className="ms-2 inline-block rounded border border-level-urgent px-1 text-sm font-bold text-level-urgent-ink" data-testid="diary-waiting">
                       {t("waiting")}

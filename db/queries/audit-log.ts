@@ -6,6 +6,7 @@ import "server-only";
 import { sql } from "drizzle-orm";
 import { db, type Executor } from "@/db";
 import type { auditEvents } from "@/db/schema";
+import { deploymentTimeZone } from "@/lib/shared/time-zone";
 
 export type AccessLogEntry = {
   id: number;
@@ -24,7 +25,7 @@ export type AccessLogEntry = {
 };
 
 export type AccessLogFilter = "all" | "outside";
-export type AccessLogPage = { entries: AccessLogEntry[]; total: number; page: number; pageSize: number; filter: AccessLogFilter };
+export type AccessLogPage = { entries: AccessLogEntry[]; total: number; page: number; pageSize: number; filter: AccessLogFilter; month: string | null };
 
 /** Views run together into one line when the next comes within this many minutes. */
 export const VIEW_GROUP_MINUTES = 30;
@@ -44,19 +45,29 @@ type Row = {
 };
 
 export async function listAccessLog(
-  { patientId, page, pageSize, filter = "all" }: { patientId: string; page: number; pageSize: number; filter?: AccessLogFilter },
+  {
+    patientId,
+    page,
+    pageSize,
+    filter = "all",
+    month = null,
+  }: { patientId: string; page: number; pageSize: number; filter?: AccessLogFilter; /** "YYYY-MM", a calendar month in the deployment's time zone. */ month?: string | null },
   tx: Executor = db,
 ): Promise<AccessLogPage> {
   // "outside": anyone not acting as the care team (visiting clinicians, the device card by QR or
   // code, the patient and carers, admins); the system's own work is left out.
   const outside = filter === "outside" ? sql`and (a.via is null or a.via not in ('care_team', 'system'))` : sql``;
+  const zone = deploymentTimeZone();
+  const inMonth = month
+    ? sql`and (a.at at time zone ${zone}) >= ${`${month}-01`}::timestamp and (a.at at time zone ${zone}) < (${`${month}-01`}::timestamp + interval '1 month')`
+    : sql``;
   const result = await tx.execute<Row>(sql`
     with e as (
       select a.*,
              (a.action like 'patient.view.%' or a.action = 'passport.card.view') as is_view,
              lag(a.at) over (partition by a.actor_user_id, a.via, (a.action like 'patient.view.%' or a.action = 'passport.card.view') order by a.at, a.id) as prev_at
       from audit_events a
-      where a.patient_id = ${patientId} ${outside}
+      where a.patient_id = ${patientId} ${outside} ${inMonth}
     ),
     g as (
       select e.*,
@@ -71,7 +82,11 @@ export async function listAccessLog(
       from g
       group by g.actor_user_id, g.via, g.is_view, g.grp
     )
-    select l.id, l.at, l.first_at, l.n, l.action, u.name as actor_name, l.actor_role, l.via, l.reason, o.name as organisation_name,
+    select l.id, l.at, l.first_at, l.n, l.action, u.name as actor_name, l.actor_role, l.via, l.reason,
+           -- The event's organisation, else the member of staff's organisations now (a visit
+           -- access event names none): the patient asks "who, from where".
+           coalesce(o.name, (select string_agg(o2.name, ', ' order by o2.name) from memberships m join organisations o2 on o2.id = m.organisation_id
+                             where m.user_id = l.actor_user_id and l.actor_role in ('clinician', 'admin'))) as organisation_name,
            count(*) over ()::int as total
     from lines l
     left join "user" u on u.id = l.actor_user_id
@@ -82,7 +97,7 @@ export async function listAccessLog(
   let total = result.rows[0]?.total ?? 0;
   if (result.rows.length === 0 && page > 1) {
     // Past the last page: count the lines on their own.
-    const again = await listAccessLog({ patientId, page: 1, pageSize: 1, filter }, tx);
+    const again = await listAccessLog({ patientId, page: 1, pageSize: 1, filter, month }, tx);
     total = again.total;
   }
   const iso = (d: Date | string) => new Date(d).toISOString();
@@ -103,5 +118,6 @@ export async function listAccessLog(
     page,
     pageSize,
     filter,
+    month,
   };
 }

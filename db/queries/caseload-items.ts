@@ -3,7 +3,7 @@ import "server-only";
 // see or close them is decided in lib/records/caseload-items.ts.
 import { and, asc, desc, eq, inArray, isNotNull, isNull, lte, sql } from "drizzle-orm";
 import { db, type Executor } from "@/db";
-import { careTeam, caseloadItems, checkIns, patients, type CaseloadItem } from "@/db/schema";
+import { careTeam, caseloadItems, checkIns, patients, user, type CaseloadItem } from "@/db/schema";
 
 export type NewCaseloadItem = typeof caseloadItems.$inferInsert;
 
@@ -77,14 +77,35 @@ export async function markItemResent({ itemId, at }: { itemId: string; at: Date 
   return Boolean(row);
 }
 
-/** The patient's latest check-ins with, for those that alerted, whether and when the team saw it. */
+/**
+ * The patient's check-ins, newest first, with who answered and, for those that alerted, whether and
+ * when the team saw it: Today's latest few and the portal's check-in history.
+ */
 export async function listCheckInsWithAcknowledgement({ patientId, limit = 5 }: { patientId: string; limit?: number }, tx: Executor = db) {
   const rows = await tx
-    .select({ id: checkIns.id, level: checkIns.level, answeredAt: checkIns.answeredAt, createdAt: checkIns.createdAt, itemId: caseloadItems.id, closedAt: caseloadItems.closedAt })
+    .select({
+      id: checkIns.id,
+      level: checkIns.level,
+      answeredAt: checkIns.answeredAt,
+      createdAt: checkIns.createdAt,
+      reportedByUserId: checkIns.reportedByUserId,
+      reporterName: user.name,
+      itemId: caseloadItems.id,
+      closedAt: caseloadItems.closedAt,
+    })
     .from(checkIns)
     .leftJoin(caseloadItems, eq(caseloadItems.checkInId, checkIns.id))
+    .leftJoin(user, eq(user.id, checkIns.reportedByUserId))
     .where(eq(checkIns.patientId, patientId))
     .orderBy(desc(sql`coalesce(${checkIns.answeredAt}, ${checkIns.createdAt})`))
     .limit(limit);
-  return rows.map((r) => ({ id: r.id, level: r.level, at: r.answeredAt ?? r.createdAt, alerted: r.itemId !== null, seenAt: r.closedAt }));
+  return rows.map((r) => ({
+    id: r.id,
+    level: r.level,
+    at: r.answeredAt ?? r.createdAt,
+    reportedByUserId: r.reportedByUserId,
+    reporterName: r.reporterName,
+    alerted: r.itemId !== null,
+    seenAt: r.closedAt,
+  }));
 }

@@ -1,7 +1,7 @@
 import "server-only";
-import { and, asc, eq, gte, lt } from "drizzle-orm";
+import { and, asc, eq, getTableColumns, gte, lt } from "drizzle-orm";
 import { db, type Executor } from "@/db";
-import { diaryEntries, type DiaryEntry } from "@/db/schema";
+import { diaryEntries, user, type DiaryEntry } from "@/db/schema";
 
 export type DiaryEntryDto = {
   id: string;
@@ -12,11 +12,15 @@ export type DiaryEntryDto = {
   clientKey: string | null;
   /** Added by the viewer and still within the time it may be removed. */
   removable: boolean;
+  /** Who added it: the viewer, else that person's name (null once their account is gone). */
+  byYou: boolean;
+  byName: string | null;
 };
 
 /** `removable`: whether this viewer may still remove it (lib/auth/permissions canRemoveDiaryEntry). */
-export function toDiaryDto(row: DiaryEntry, removable: boolean): DiaryEntryDto {
-  return { id: row.id, kind: row.kind, volumeMl: row.volumeMl, at: row.at.toISOString(), clientKey: row.clientKey, removable };
+export function toDiaryDto(row: DiaryEntry & { recorderName?: string | null }, removable: boolean, viewerUserId: string): DiaryEntryDto {
+  const byYou = row.recordedByUserId === viewerUserId;
+  return { id: row.id, kind: row.kind, volumeMl: row.volumeMl, at: row.at.toISOString(), clientKey: row.clientKey, removable, byYou, byName: byYou ? null : (row.recorderName ?? null) };
 }
 
 /** Adds the entry; with a client key already used, adds nothing and answers null. */
@@ -33,10 +37,12 @@ export async function getDiaryEntryByClientKey({ clientKey }: { clientKey: strin
   return row ?? null;
 }
 
+/** The entries in a time range, with the name of whoever added each. */
 export async function listDiaryEntries({ patientId, from, to }: { patientId: string; from: Date; to: Date }, tx: Executor = db) {
   return tx
-    .select()
+    .select({ ...getTableColumns(diaryEntries), recorderName: user.name })
     .from(diaryEntries)
+    .leftJoin(user, eq(user.id, diaryEntries.recordedByUserId))
     .where(and(eq(diaryEntries.patientId, patientId), gte(diaryEntries.at, from), lt(diaryEntries.at, to)))
     .orderBy(asc(diaryEntries.at));
 }

@@ -162,3 +162,32 @@ export async function activateCarerLink({ id, carerUserId }: { id: string; carer
     .returning({ id: carerLinks.id });
   return rows.length === 1;
 }
+
+/** The carer's own active link to the patient: whether she is told of urgent check-ins. */
+export async function getCarerAlert({ patientId, carerUserId }: { patientId: string; carerUserId: string }, tx: Executor = db) {
+  const [row] = await tx
+    .select({ on: carerLinks.alertOnUrgent })
+    .from(carerLinks)
+    .where(and(eq(carerLinks.patientId, patientId), eq(carerLinks.carerUserId, carerUserId), eq(carerLinks.status, "active")));
+  return row ? row.on : null;
+}
+
+export async function setCarerAlert({ patientId, carerUserId, on }: { patientId: string; carerUserId: string; on: boolean }, tx: Executor) {
+  const rows = await tx
+    .update(carerLinks)
+    .set({ alertOnUrgent: on, updatedAt: new Date() })
+    .where(and(eq(carerLinks.patientId, patientId), eq(carerLinks.carerUserId, carerUserId), eq(carerLinks.status, "active")))
+    .returning({ id: carerLinks.id });
+  return rows.length > 0;
+}
+
+/** A carer's links that were removed, newest first, with the patient's first name: the screen that tells her why. */
+export async function listRemovedCarerLinks({ carerUserId }: { carerUserId: string }, tx: Executor = db) {
+  return tx
+    .select({ givenName: patients.givenName, revokedAt: carerLinks.revokedAt })
+    .from(carerLinks)
+    .innerJoin(patients, eq(patients.id, carerLinks.patientId))
+    .where(and(eq(carerLinks.carerUserId, carerUserId), eq(carerLinks.status, "revoked")))
+    .orderBy(desc(carerLinks.revokedAt))
+    .limit(5);
+}

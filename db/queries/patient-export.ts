@@ -3,6 +3,8 @@ import { eq, getTableColumns, getTableName, is } from "drizzle-orm";
 import { PgTable, type PgColumn } from "drizzle-orm/pg-core";
 import { db, type Executor } from "@/db";
 import * as schema from "@/db/schema";
+import { translatorFor } from "@/lib/i18n/catalogues";
+import { allAccessLines } from "@/lib/portal/access-words";
 
 // Columns never exported: hashes of tokens and passwords, secrets, session tokens.
 const SECRET_COLUMN = /(password|token|secret|hash|backup_codes)/i;
@@ -42,8 +44,40 @@ export type PatientExport = {
   patientId: string;
   /** Table name → that table's rows for this patient, secrets left out. */
   tables: Record<string, Record<string, unknown>[]>;
+  /** Who looked at the record, as the portal's "who looked" page says it: names, not ids. */
+  accessLog: ExportAccessLine[];
   omittedColumns: string[];
 };
+
+export type ExportAccessLine = {
+  at: string;
+  firstAt: string;
+  times: number;
+  who: string;
+  role: string | null;
+  organisation: string | null;
+  how: string;
+  reason: string | null;
+  what: string;
+};
+
+/** The access log in the patient's language, the same words as the portal page. */
+async function accessLogInWords(patientId: string, locale: string, tx: Executor): Promise<ExportAccessLine[]> {
+  const reach = translatorFor(locale, "PortalReach.access");
+  const log = translatorFor(locale, "PatientAccessLog");
+  const vocab = translatorFor(locale, "Vocabulary");
+  return (await allAccessLines({ patientId }, tx)).map((l) => ({
+    at: l.at,
+    firstAt: l.firstAt,
+    times: l.count,
+    who: l.name ?? (l.role ? reach("removedAccount") : reach("notSignedIn")),
+    role: l.role ? vocab(`role.${l.role}`) : null,
+    organisation: l.organisation,
+    how: reach(`how.${l.how}`),
+    reason: l.reason,
+    what: log.has(`actions.${l.actionKey}` as "actions.patient_create") ? log(`actions.${l.actionKey}` as "actions.patient_create") : l.action,
+  }));
+}
 
 export async function exportPatientData({ patientId }: { patientId: string }, tx: Executor = db): Promise<PatientExport | null> {
   const [patient] = await tx.select().from(schema.patients).where(eq(schema.patients.id, patientId));
@@ -66,5 +100,12 @@ export async function exportPatientData({ patientId }: { patientId: string }, tx
       .filter((c) => SECRET_COLUMN.test(c.name))
       .map((c) => `${getTableName(t)}.${c.name}`),
   );
-  return { format: "caddis-patient-export/1", exportedAt: new Date().toISOString(), patientId, tables, omittedColumns: [...new Set(omittedColumns)].sort() };
+  return {
+    format: "caddis-patient-export/1",
+    exportedAt: new Date().toISOString(),
+    patientId,
+    tables,
+    accessLog: await accessLogInWords(patientId, patient.preferredLocale, tx),
+    omittedColumns: [...new Set(omittedColumns)].sort(),
+  };
 }

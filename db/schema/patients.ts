@@ -87,6 +87,8 @@ export const carerLinks = pgTable(
     status: text("status", { enum: ["pending", "active", "revoked"] }).notNull().default("pending"),
     acceptedAt: timestamp("accepted_at", { withTimezone: true }),
     revokedAt: timestamp("revoked_at", { withTimezone: true }),
+    // The carer chose to be told (by e-mail) when the patient reports an urgent or emergency problem.
+    alertOnUrgent: boolean("alert_on_urgent").notNull().default(false),
     ...timestamps,
   },
   (t) => [index("carer_links_patient_idx").on(t.patientId), index("carer_links_carer_idx").on(t.carerUserId, t.status)],

@@ -62,6 +62,17 @@ export async function requireCareTeam(viewer: Viewer, patientId: string): Promis
   return "care_team";
 }
 
+/**
+ * Who may read a record's access log: its care team, and the patient themselves ("who looked at my
+ * record"). Carers, admins and visiting clinicians are refused (403); another patient's record 404.
+ */
+export async function requireAccessLogReader(viewer: Viewer, patientId: string): Promise<"care_team" | "self"> {
+  if (viewer.role === "clinician") return requireCareTeam(viewer, patientId);
+  if (viewer.role !== "patient") throw new AppError("forbidden", "Only the patient and their care team can see who looked at the record.");
+  if ((await requirePortalPatient(viewer, patientId)) !== "self") throw new AppError("not_found");
+  return "self";
+}
+
 /** For pages that offer the care team's acts: whether the way in is the care team. */
 export function isCareTeam(via: PatientAccessVia | null | undefined): via is "care_team" {
   return via === "care_team";

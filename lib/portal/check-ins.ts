@@ -110,7 +110,7 @@ export async function alertCareTeam(
 ) {
   // The alert e-mail and the item to acknowledge on the team's caseload, together.
   const reporter = actor.role === "carer" ? { kind: "carer" as const, name: actor.name } : { kind: "patient" as const };
-  const queued = await raiseAlert(tx, { patientId, kind: "check-in", level, summary, reporter, checkInId: sourceId });
+  const queued = await raiseAlert(tx, { patientId, kind: "check-in", level, summary, reporter, checkInId: sourceId, reporterUserId: actor.userId });
   await audit(
     { action: "check-in.alert", actor, patientId, via: "system", request, details: { level, sourceId, messages: queued.map((m) => m.id) } },
     tx,

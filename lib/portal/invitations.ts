@@ -20,6 +20,7 @@ import {
 import { audit } from "@/lib/records/audit";
 import { assertRecordOpen, writeRecord } from "@/lib/records/record-state";
 import { queueCarerInvitation, queuePatientInvitation } from "@/lib/email/patient-mail";
+import { queueCarerRemoved } from "@/lib/email/carer-mail";
 import { auth } from "@/lib/auth";
 import { hashPassword, passwordProblem } from "@/lib/auth/password";
 import type { Viewer } from "@/lib/auth/session";
@@ -209,6 +210,8 @@ export async function removeCarer({ viewer, via, patientId, linkId, request }: {
     const revoked = await revokeCarerLink({ id: linkId, patientId }, tx);
     if (!revoked) throw new AppError("not_found");
     await audit({ action: "carer.revoke", actor: viewer, patientId, via, request, details: { linkId, carerUserId: revoked.carerUserId, was: revoked.status } }, tx);
+    // She is told, and the patient gets a confirmation, through the outbox with the change.
+    await queueCarerRemoved(tx, { patientId, linkId, carerUserId: revoked.carerUserId, at: new Date() });
   });
 }
 

@@ -11,6 +11,7 @@ import type { AlertReporter, CaseloadItem } from "@/db/schema";
 import type { Viewer } from "@/lib/auth/session";
 import { getAcknowledgePlan } from "@/lib/config/settings";
 import { queueCareTeamAlert, type CareTeamAlertKind } from "@/lib/email/care-team-alert";
+import { queueCarerAlerts } from "@/lib/email/carer-mail";
 import { AppError } from "@/lib/http/errors";
 import { addWorkingMinutes } from "@/lib/shared/working-hours";
 import type { AcknowledgeInput } from "@/lib/validations/caseload-item";
@@ -30,6 +31,8 @@ export type AlertItemInput = {
   eventId?: string;
   /** For NEWS2: the total, for the e-mail. */
   score?: number;
+  /** Who answered a check-in: a carer who answered is not also e-mailed about it. */
+  reporterUserId?: string | null;
   now?: Date;
 };
 
@@ -49,6 +52,10 @@ export async function raiseAlert(tx: Executor, input: AlertItemInput) {
     reporter: input.reporter,
     notes: input.notes,
   });
+  // The patient's carers who chose to be told hear of an urgent or emergency check-in too.
+  if (input.kind === "check-in" && input.checkInId && (input.level === "urgent" || input.level === "emergency")) {
+    await queueCarerAlerts(tx, { patientId: input.patientId, checkInId: input.checkInId, level: input.level, reporterUserId: input.reporterUserId });
+  }
   if (queued.length === 0) return queued;
   const plan = await getAcknowledgePlan(tx);
   await insertCaseloadItem(

@@ -21,7 +21,8 @@ export const auditQuerySchema = z
   .refine((q) => !q.from || !q.to || q.from <= q.to, { message: "range_invalid", path: ["to"] });
 export type AuditQuery = z.infer<typeof auditQuerySchema>;
 
-/** A patient's access log: a page, and everyone or only people outside the care team. */
+/** A patient's access log: a page, everyone or only people outside the care team, and a calendar month. */
 export const accessLogQuerySchema = pageQuerySchema.extend({
   who: z.preprocess(blank, z.enum(["all", "outside"]).default("all")),
+  month: z.preprocess(blank, z.string().regex(/^\d{4}-(0[1-9]|1[0-2])$/, { message: "month_invalid" }).optional()),
 });

@@ -30,3 +30,9 @@ export const carerInviteFormSchemas = {
   "sign-in": z.object({ password: z.string().min(1, { message: "password_required" }).max(256) }),
   create: z.object({ name: singleLine(z.string().trim().min(1, { message: "name_required" }).max(120, { message: "invalid" })), password: newPasswordSchema }),
 } as const;
+
+/** A carer's choice to be told when the patient reports an urgent or emergency problem. */
+export const carerAlertSchema = z.strictObject({
+  patientId: z.uuid(),
+  on: z.boolean(),
+});

@@ -122,7 +122,8 @@ describe("carers", () => {
     });
     expect(post.status()).toBe(404);
     await carer.goto("/en/today");
-    expect(await carer.textContent("main")).toMatch(/not linked yet/);
+    // Told why (issue 17), not "not linked yet".
+    expect(await carer.getByTestId("carer-removed").textContent()).toMatch(/You no longer help Arthur/);
     await carer.context().close();
     await patient.context().close();
   }, 180_000);

@@ -56,6 +56,7 @@ const plans: Record<string, Plan> = {
   "POST /api/diary": { who: "patient", body: (i) => ({ patientId: i.patientId, kind: "in", volumeMl: 200 }) },
   "DELETE /api/diary/[id]": { who: "patient", params: (i) => ({ id: i.diaryEntryId }) },
   "POST /api/bag-changes": { who: "carer", body: (i) => ({ patientId: i.patientId, kind: "leg-bag" }) },
+  "PUT /api/portal/carer-alerts": { who: "carer", body: (i) => ({ patientId: i.patientId, on: true }) },
   "POST /api/patients/[patientId]/episodes": { who: "communityNurse", params: patient, body: () => device },
   "POST /api/patients/[patientId]/episodes/change": { who: "communityNurse", params: patient, body: () => ({ ...device, changeKind: "planned", needReviewed: true }) },
   "POST /api/patients/[patientId]/episodes/removal": { who: "communityNurse", params: patient, body: () => ({ removedAt: hourAgo(), reason: "no-longer-needed" }) },

@@ -131,11 +131,12 @@ describe("GET /api/patients/[patientId]/access-log", () => {
     expect(outside.total).toBeLessThan(log.total);
   });
 
-  it("401 anonymous; 403 patient, carer, admin", async () => {
+  it("401 anonymous; 403 carer and admin; another patient's record is 404 to a patient", async () => {
     const path = `/api/patients/${halina}/access-log`;
     expect((await call(accessLog, path, { params: { patientId: halina } })).status).toBe(401);
-    for (const who of ["patient", "carer", "admin"] as const) {
+    for (const who of ["carer", "admin"] as const) {
       expect((await call(accessLog, path, { cookie: await sessionFor(who), params: { patientId: halina } })).status, who).toBe(403);
     }
+    expect((await call(accessLog, path, { cookie: await sessionFor("patient"), params: { patientId: halina } })).status).toBe(404);
   });
 });

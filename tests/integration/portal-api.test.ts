@@ -283,7 +283,7 @@ describe("diary", () => {
     expect(res.status).toBe(200);
     const body = await res.json();
     expect(body.entries.length).toBeGreaterThanOrEqual(2);
-    expect(Object.keys(body.entries[0]).sort()).toEqual(["at", "clientKey", "id", "kind", "removable", "volumeMl"]);
+    expect(Object.keys(body.entries[0]).sort()).toEqual(["at", "byName", "byYou", "clientKey", "id", "kind", "removable", "volumeMl"]);
     expect((await call(diaryGet, q(ids.yusuf), { cookie: await sessionFor("patient") })).status).toBe(404);
     expect((await call(diaryGet, q(ids.arthur), { cookie: await sessionFor("communityNurse") })).status).toBe(403);
     expect((await call(diaryGet, q(ids.arthur))).status).toBe(401);

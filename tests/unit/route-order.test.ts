@@ -5,7 +5,7 @@ import { relative } from "node:path";
 import { describe, expect, it } from "vitest";
 import { repoRoot, sourceFiles, sourceText } from "../support/source-files";
 
-const ACCESS = /\b(require(StaffPatientAccess|PatientAccess|CareTeam|CarerManager|AdminOfPatient|UploadAccess|PortalPatient|DiaryEntryRemover)|open(EpisodeRequest|PortalBody|PatientRecord))\(/;
+const ACCESS = /\b(require(StaffPatientAccess|PatientAccess|CareTeam|CarerManager|AdminOfPatient|UploadAccess|PortalPatient|DiaryEntryRemover|AccessLogReader)|open(EpisodeRequest|PortalBody|PatientRecord))\(/;
 const PARSE = /\b(parseJsonBody|parseInput)\(/;
 
 const handlers = sourceFiles(`${repoRoot}/app/api`)

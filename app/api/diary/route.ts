@@ -13,7 +13,7 @@ export const GET = handle(async (request) => {
   await requirePortalPatient(viewer, patientIdIn(query));
   const input = parseInput(diaryRangeSchema, query);
   const rows = await listDiaryEntries({ patientId: input.patientId, from: new Date(input.from), to: new Date(input.to) });
-  return json({ entries: rows.map((r) => toDiaryDto(r, canRemoveDiaryEntry(r, viewer.userId))) });
+  return json({ entries: rows.map((r) => toDiaryDto(r, canRemoveDiaryEntry(r, viewer.userId), viewer.userId)) });
 });
 
 export const POST = handle(async (request) => {
@@ -34,5 +34,5 @@ export const POST = handle(async (request) => {
     await audit({ action: "diary.add", actor: viewer, patientId: input.patientId, via, request, details: { entryId: entry.id, kind: entry.kind, delayed: Date.now() - at.getTime() > 5 * 60_000 } }, tx);
     return { row: entry, created: true };
   });
-  return json({ entry: toDiaryDto(row, canRemoveDiaryEntry(row, viewer.userId)) }, { status: created ? 201 : 200 });
+  return json({ entry: toDiaryDto(row, canRemoveDiaryEntry(row, viewer.userId), viewer.userId) }, { status: created ? 201 : 200 });
 });

@@ -105,6 +105,11 @@ export const matrix: Row[] = [
     expect: { anonymous: 401, admin: 403, careTeamClinician: 403, otherClinician: 403, patient: 404, otherPatient: 404, carer: 404 },
   },
   { route: "POST /api/bag-changes", expect: portalOnly },
+  // A carer's own choice to be told of urgent check-ins: carers only.
+  {
+    route: "PUT /api/portal/carer-alerts",
+    expect: { anonymous: 401, admin: 403, careTeamClinician: 403, otherClinician: 403, patient: 403, otherPatient: 403, carer: "allowed" },
+  },
   // Public by design: a code or token is the proof; limited per address (lib/http/rate-limit.ts).
   { route: "POST /api/activate", expect: { anonymous: "allowed", admin: "allowed", careTeamClinician: "allowed", otherClinician: "allowed", patient: "allowed", otherPatient: "allowed", carer: "allowed" } },
   { route: "POST /api/carer-invites/accept", expect: { anonymous: "allowed", admin: "allowed", careTeamClinician: "allowed", otherClinician: "allowed", patient: "allowed", otherPatient: "allowed", carer: "allowed" } },
@@ -134,7 +139,12 @@ export const matrix: Row[] = [
   { route: "GET /api/patients/[patientId]", params: patient, expect: staffOnPatient },
   { route: "PATCH /api/patients/[patientId]", params: patient, expect: staffOnPatient },
   { route: "GET /api/patients/[patientId]/history", params: patient, expect: staffOnPatient },
-  { route: "GET /api/patients/[patientId]/access-log", params: patient, expect: staffOnPatient },
+  // Who looked at the record: the care team and the patient themselves; carers and admins 403.
+  {
+    route: "GET /api/patients/[patientId]/access-log",
+    params: patient,
+    expect: { anonymous: 401, admin: 403, careTeamClinician: "allowed", otherClinician: 404, patient: "allowed", otherPatient: 404, carer: 403 },
+  },
   // Passport: issue/reissue, metadata, the stored booklet. The POST row comes first, so the
   // booklet row finds a passport to download (rows run in order).
   { route: "POST /api/patients/[patientId]/passport", params: patient, expect: staffOnPatient },

@@ -44,7 +44,7 @@ export default async function MyCatheterPage({ params, searchParams }: { params:
   );
   return (
     <div className="flex flex-col gap-5">
-      <h1 className="text-3xl font-bold">{t("title")}</h1>
+      <h1 className="text-3xl font-bold">{carerOf ? (await getTranslations("PortalReach.carers"))("carerMyCatheter", { name: patient.givenName }) : t("title")}</h1>
       <PatientSwitcher patients={await portalPatients(viewer)} currentId={patient.id} path="/my-catheter" />
       {carerOf ? <p className="text-lg">{(await getTranslations("Today"))("caringFor", { name: carerOf })}</p> : null}
       {episode ? (

@@ -7,6 +7,7 @@ import { BagChangeButtons } from "@/components/today/bag-change-buttons";
 import { RecentCheckIns } from "@/components/care-loop/recent-check-ins";
 import { Card } from "@/components/ui/card";
 import { getLastBagChanges } from "@/db/queries/bag-changes";
+import { listRemovedCarerLinks } from "@/db/queries/invitations";
 import { getTodaySummary } from "@/db/queries/portal";
 import { getHelpContacts } from "@/db/queries/contacts";
 import { getLastRemoval } from "@/db/queries/episodes";
@@ -40,10 +41,20 @@ export default async function TodayPage({ params, searchParams }: { params: Prom
   const all = await portalPatients(viewer);
   const patient = await portalPatient(viewer, (await searchParams).patient);
   if (!patient) {
+    // A carer whose link was removed is told so, not "not linked yet".
+    const removed = viewer.role === "carer" ? (await listRemovedCarerLinks({ carerUserId: viewer.userId }))[0] : undefined;
+    const tr = await getTranslations("PortalReach.carers");
     return (
       <div className="flex flex-col gap-5">
         <h1 className="text-3xl font-bold">{t("title")}</h1>
-        <p>{t("noPatient")}</p>
+        {removed ? (
+          <Card className="flex flex-col gap-2" data-testid="carer-removed">
+            <h2 className="text-xl font-bold">{tr("removedTitle", { name: removed.givenName })}</h2>
+            <p>{tr("removedBody", { name: removed.givenName, date: format.dateTime(removed.revokedAt ?? new Date(), { day: "numeric", month: "long", year: "numeric" }) })}</p>
+          </Card>
+        ) : (
+          <p>{t("noPatient")}</p>
+        )}
       </div>
     );
   }
@@ -59,6 +70,7 @@ export default async function TodayPage({ params, searchParams }: { params: Prom
   const daysUntil = (d: string) => parseIsoDate("date", d) - parseIsoDate("today", today);
   const schedule = bagSchedule(bags, today);
   const carerOf = subjectName(viewer, patient);
+  const tr = await getTranslations("PortalReach.carers");
   const change = summary?.episode ? daysUntil(summary.episode.plannedChangeOn) : null;
 
   return (
@@ -114,7 +126,7 @@ export default async function TodayPage({ params, searchParams }: { params: Prom
       </>)}
 
       <Card className="flex flex-col gap-3">
-        <h2 className="text-xl font-bold">{t("lastCheckInTitle")}</h2>
+        <h2 className="text-xl font-bold">{carerOf ? tr("carerLastCheckIn", { name: patient.givenName }) : t("lastCheckInTitle")}</h2>
         {summary?.lastCheckIn ? (
           <>
             <LevelBadge level={summary.lastCheckIn.level} size="small" />
@@ -138,7 +150,7 @@ export default async function TodayPage({ params, searchParams }: { params: Prom
         )}
       </Card>
 
-      <RecentCheckIns patientId={patient.id} />
+      <RecentCheckIns patientId={patient.id} carerOf={carerOf ? patient.givenName : null} />
 
       <Link href="/help" className="flex min-h-14 items-center justify-center rounded-lg border-2 border-level-emergency bg-level-emergency-soft px-4 text-lg font-bold text-level-emergency-ink">
         {t("getHelp")}

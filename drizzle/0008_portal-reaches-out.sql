@@ -1,0 +1,1 @@
+ALTER TABLE "carer_links" ADD COLUMN "alert_on_urgent" boolean DEFAULT false NOT NULL;
