@@ -178,6 +178,9 @@ for (const locale of ["en", "ar"] as const) {
       const who = locale === "en" ? demo.patient : demo.patientAr;
       const page = await newPage(browser, NARROW);
       await signInAs(page, who.email, who.password, locale);
+      // The choice is kept for the person: put it back even when a check below fails, so the
+      // files after this one see the usual text size.
+      try {
       const rootPx = () => page.evaluate(() => parseFloat(getComputedStyle(document.documentElement).fontSize));
       const sizes: number[] = [];
       for (const step of [0, 1, 2, 3]) {
@@ -216,7 +219,10 @@ for (const locale of ["en", "ar"] as const) {
       const reset = await other.request.put("/api/account/reading", { data: { textSize: 0, contrast: "standard" }, headers: { origin: new URL(other.url()).origin } });
       expect(reset.status()).toBe(200);
       await other.context().close();
-      await page.context().close();
+      } finally {
+        await page.request.put("/api/account/reading", { data: { textSize: 0, contrast: "standard" }, headers: { origin: new URL(page.url()).origin } }).catch(() => undefined);
+        await page.context().close();
+      }
     });
   });
 }

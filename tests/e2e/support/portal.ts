@@ -147,7 +147,9 @@ export async function brokenWords(page: Page) {
       const text = node.textContent ?? "";
       const block = parent.closest<HTMLElement>("p, li, h1, h2, h3, h4, dd, dt, td, th, label, legend, button, a, div, span") ?? parent;
       const room = block.clientWidth;
-      for (const m of text.matchAll(/\S+/g)) {
+      // A compound's hard hyphen is a break point of the language ("check-|ins"), as a space is:
+      // its parts are the words.
+      for (const m of text.matchAll(/[^\s-]+/g)) {
         if (m[0].length < 2) continue;
         const range = document.createRange();
         range.setStart(node, m.index!);
