@@ -29,12 +29,13 @@ describe("the portal reaches out", () => {
     const { rows } = await db.query<{ id: string }>("select id from \"user\" where email = $1", [demo.rowanNurse.email]);
     const priya = rows[0].id;
     // What the passport flow writes (tests/e2e/visit-access.test.ts drives it on screen): the card
-    // opened by QR, then visit access with the reason.
+    // opened by QR, then visit access with the reason. Stamped seconds ago, not minutes: the page
+    // lists newest first, and earlier files' events of the last minutes would push these to page 2.
     for (const p of [arthur, yusuf]) {
       await db.query(
         `insert into audit_events (action, actor_user_id, actor_role, patient_id, via, reason, at) values
-         ('passport.card.view', $1, 'clinician', $2, 'qr', null, now() - interval '3 minutes'),
-         ('visit-access.grant', $1, 'clinician', $2, 'visit_access', $3, now() - interval '2 minutes')`,
+         ('passport.card.view', $1, 'clinician', $2, 'qr', null, now() - interval '2 seconds'),
+         ('visit-access.grant', $1, 'clinician', $2, 'visit_access', $3, now() - interval '1 second')`,
         [priya, p, REASON],
       );
     }
@@ -45,13 +46,14 @@ describe("the portal reaches out", () => {
     await page.waitForURL(/\/en\/more\/access$/);
     const lines = page.getByTestId("access-line");
     const qr = lines.filter({ hasText: "By scanning the QR code on your device card" }).filter({ hasText: "Priya Sandhu" });
-    expect(await qr.count()).toBeGreaterThan(0);
     const visit = lines.filter({ hasText: `Reason they gave: ${REASON}` });
     expect(await visit.first().textContent()).toMatch(/Priya Sandhu.*Clinician · Rowan Ward.*With visit access/);
+    expect(await qr.count()).toBeGreaterThan(0);
     // Outside my care team only.
     await page.getByLabel("Only people outside my care team").check();
     await page.getByRole("button", { name: "Show" }).click();
     await page.waitForURL(/who=outside/);
+    expect(await qr.count()).toBeGreaterThan(0);
     expect(await page.locator('[data-via="care_team"]').count()).toBe(0);
     expect(await lines.filter({ hasText: REASON }).count()).toBeGreaterThan(0);
     await screenshot(page, "portal-who-looked-en");
