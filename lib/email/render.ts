@@ -1,8 +1,8 @@
 import "server-only";
-// One content model, two renderings: the HTML part (escaped by lib/email/html.ts) and the plain
+// One content model, two renderings: the HTML part (escaped by lib/shared/html.ts) and the plain
 // text part, so both always say the same thing.
 import { directionOf } from "@/lib/i18n/routing";
-import { html, safeUrl, type SafeHtml } from "./html";
+import { html, safeUrl, type SafeHtml } from "@/lib/shared/html";
 
 export type Tone = "stop" | "warn" | "info";
 

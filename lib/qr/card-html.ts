@@ -13,28 +13,7 @@ import { formatterFor, translatorFor } from "@/lib/i18n/catalogues";
 import { directionOf, isLocale, type Locale } from "@/lib/i18n/routing";
 import { deploymentTimeZone } from "@/lib/shared/time-zone";
 import { withSecretUrlHeaders } from "@/lib/http/secret-headers";
-
-/** Markup that is already safe; everything else put in `html` is escaped. */
-class Safe {
-  constructor(readonly value: string) {}
-  toString() {
-    return this.value;
-  }
-}
-
-const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
-
-function part(v: unknown): string {
-  if (v === null || v === undefined || v === false) return "";
-  if (Array.isArray(v)) return v.map(part).join("");
-  if (v instanceof Safe) return v.value;
-  return escapeHtml(String(v));
-}
-
-/** A tagged template that escapes every value unless it is markup made by `html` itself. */
-export function html(strings: TemplateStringsArray, ...values: unknown[]): Safe {
-  return new Safe(strings.reduce((out, s, i) => out + s + (i < values.length ? part(values[i]) : ""), ""));
-}
+import { html, SafeHtml as Safe } from "@/lib/shared/html";
 
 /**
  * A left-to-right isolate (U+2066 … U+2069) keeps a phone number in its own order inside RTL

@@ -12,7 +12,7 @@ import { auditEvents } from "@/db/schema";
 import { getViewerFromHeaders } from "@/lib/auth/session";
 import { CLIENT_ADDRESS_HEADER } from "@/lib/http/client-ip";
 import { issuePassport, type IssuedPassport } from "@/lib/passport";
-import { html } from "@/lib/qr/card-html";
+import { html } from "@/lib/shared/html";
 import { CARD_LIMIT } from "@/lib/qr/card-limit";
 import { patientIdByHrn } from "../support/fixtures";
 import { call, sessionFor } from "../support/http";
@@ -138,7 +138,7 @@ describe("the short-code page", () => {
     const typed = `"><b>x`;
     const body = await code("ar", typed);
     expect(body).toContain('data-testid="card-typo"');
-    expect(body).toContain('value="&#34;&#62;&#60;b&#62;x"');
+    expect(body).toContain('value="&quot;&gt;&lt;b&gt;x"');
     expect(body).not.toContain("<b>x");
   });
 });
@@ -166,7 +166,7 @@ describe("the per-address limit, counted by the handlers", () => {
 describe("html", () => {
   it("escapes every value and keeps its own markup", () => {
     expect(html`<p title="${`"'<>&`}">${"<script>"}${html`<i>ok</i>`}${[null, false, undefined, "a"]}</p>`.value).toBe(
-      '<p title="&#34;&#39;&#60;&#62;&#38;">&#60;script&#62;<i>ok</i>a</p>',
+      '<p title="&quot;&#39;&lt;&gt;&amp;">&lt;script&gt;<i>ok</i>a</p>',
     );
   });
 });
