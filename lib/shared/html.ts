@@ -1,8 +1,8 @@
 // Auto-escaping HTML for e-mail bodies and the plain device-card documents (lib/qr/card-html.ts).
 // Every interpolated value is entity-encoded (OWASP XSS prevention, rule 1: & < > " ') unless
-// it is SafeHtml made by this same tag, so text a patient typed can never become markup. Why not React's renderToStaticMarkup: e-mails are composed
-// inside route handlers' transactions, and Next.js refuses react-dom/server in App Router
-// route handlers ("You're importing a component that imports react-dom/server").
+// it is SafeHtml made by this same tag, so text a patient typed can never become markup.
+// Why not React's renderToStaticMarkup: e-mails are composed inside route handlers'
+// transactions, and Next.js refuses react-dom/server in App Router route handlers.
 // Interpolate only into element content and double-quoted attribute values.
 
 export class SafeHtml {
