@@ -120,6 +120,12 @@ export async function getTwocVoidWindowHours(tx?: Executor): Promise<number> {
   return (await getSettings(tx)).twocVoidWindowHours ?? TWOC_DEFAULTS.voidWindowHours.value;
 }
 
+/** The caseload's two windows (due soon, trial overdue) from one read of the settings. */
+export async function getCaseloadWindows(tx?: Executor): Promise<{ dueSoonDays: number; twocWindowHours: number }> {
+  const s = await getSettings(tx);
+  return { dueSoonDays: planDefaults(planDatesOptions(s)).dueSoonDays, twocWindowHours: s.twocVoidWindowHours ?? TWOC_DEFAULTS.voidWindowHours.value };
+}
+
 /** Options for lib/clinical `planDates` from the deployment settings. */
 export function planDatesOptions(s: DeploymentSettings, extra: PlanDatesOptions = {}): PlanDatesOptions {
   return {

@@ -1,7 +1,7 @@
 import { listCaseload } from "@/db/queries/caseload";
 import { requireRole } from "@/lib/auth/permissions";
 import { audit } from "@/lib/records/audit";
-import { getPlanDefaults, getTwocVoidWindowHours } from "@/lib/config/settings";
+import { getCaseloadWindows } from "@/lib/config/settings";
 import { handle, json } from "@/lib/http/handle";
 import { parseInput, searchParamsObject } from "@/lib/http/validate";
 import { caseloadQuerySchema } from "@/lib/validations/caseload";
@@ -10,7 +10,7 @@ import { caseloadQuerySchema } from "@/lib/validations/caseload";
 export const GET = handle(async (request) => {
   const viewer = await requireRole(request, "clinician");
   const query = parseInput(caseloadQuerySchema, searchParamsObject(request.url));
-  const [{ dueSoonDays }, twocWindowHours] = await Promise.all([getPlanDefaults(), getTwocVoidWindowHours()]);
+  const { dueSoonDays, twocWindowHours } = await getCaseloadWindows();
   const result = await listCaseload({ organisationIds: viewer.organisationIds, query, dueSoonDays, twocWindowHours });
   await audit({
     action: "caseload.view",

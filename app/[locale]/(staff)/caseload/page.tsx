@@ -5,7 +5,7 @@ import { CaseloadItemsPanel } from "@/components/caseload-items/caseload-items-p
 import { openItemsFor } from "@/lib/records/caseload-items";
 import { CaseloadReferrals } from "@/components/transfer/caseload-referrals";
 import { listCaseload } from "@/db/queries/caseload";
-import { getPlanDefaults, getTwocVoidWindowHours } from "@/lib/config/settings";
+import { getCaseloadWindows } from "@/lib/config/settings";
 import { audit } from "@/lib/records/audit";
 import { requirePageRole } from "@/lib/auth/permissions";
 import { Link } from "@/lib/i18n/navigation";
@@ -30,7 +30,7 @@ export default async function CaseloadPage({
   // A hand-edited address with a bad value falls back to the default view rather than an error.
   const parsed = caseloadQuerySchema.safeParse(raw);
   const query = parsed.success ? parsed.data : caseloadQuerySchema.parse({});
-  const [{ dueSoonDays }, twocWindowHours] = await Promise.all([getPlanDefaults(), getTwocVoidWindowHours()]);
+  const { dueSoonDays, twocWindowHours } = await getCaseloadWindows();
   const [data, items] = await Promise.all([listCaseload({ organisationIds: viewer.organisationIds, query, dueSoonDays, twocWindowHours }), openItemsFor(viewer)]);
   await audit({
     action: "caseload.view",

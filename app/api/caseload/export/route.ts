@@ -1,7 +1,7 @@
 import { listCaseloadAll } from "@/db/queries/caseload";
 import { requireRole } from "@/lib/auth/permissions";
 import { audit } from "@/lib/records/audit";
-import { getPlanDefaults, getTwocVoidWindowHours } from "@/lib/config/settings";
+import { getCaseloadWindows } from "@/lib/config/settings";
 import { toCsv } from "@/lib/http/csv";
 import { handle } from "@/lib/http/handle";
 import { translatorFor } from "@/lib/i18n/catalogues";
@@ -17,7 +17,7 @@ export const GET = handle(async (request) => {
   const locale = params.locale && isLocale(params.locale) ? params.locale : viewer.locale && isLocale(viewer.locale) ? viewer.locale : "en";
   const t = translatorFor(locale, "CaseloadExport");
   const v = translatorFor(locale, "Vocabulary");
-  const [{ dueSoonDays }, twocWindowHours] = await Promise.all([getPlanDefaults(), getTwocVoidWindowHours()]);
+  const { dueSoonDays, twocWindowHours } = await getCaseloadWindows();
   const { rows, today } = await listCaseloadAll({ organisationIds: viewer.organisationIds, view, dueSoonDays, twocWindowHours });
   const csv = toCsv([
     [
