@@ -118,8 +118,10 @@ export function ListenControl({ emergencyNumber }: { emergencyNumber: string | n
           setFailed(true);
           stop();
         };
-        a.play().catch(() => {
+        a.play().catch((e: unknown) => {
           if (token !== run.current) return;
+          // A pause while the sound still loads interrupts play(): the person's choice, not a failure.
+          if (e instanceof DOMException && e.name === "AbortError") return;
           setFailed(true);
           stop();
         });

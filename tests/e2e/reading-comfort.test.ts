@@ -99,6 +99,37 @@ describe("Listen, in a browser with no voice (headless Chromium has none)", () =
   }
 });
 
+describe("Listen, paused while the next sentence is still being made", () => {
+  it("pausing while the sound loads is a pause, not a failure; going on plays it", async () => {
+    const page = await newPage(browser, PHONE);
+    await signInAs(page, demo.patient.email, demo.patient.password, "en");
+    // The first sentence comes at once; every later one is held back 2 s, as on a busy server.
+    let served = 0;
+    let secondAsked = () => {};
+    const asked = new Promise<void>((r) => (secondAsked = r));
+    await page.route("**/api/speech?**", async (route) => {
+      if (++served > 1) {
+        secondAsked();
+        await new Promise((r) => setTimeout(r, 2000));
+      }
+      await route.continue();
+    });
+    await page.goto("/en/learn/when-to-get-help");
+    await page.getByTestId("listen-start").click();
+    await asked;
+    await page.getByTestId("listen-pause").click();
+    await page.getByTestId("listen-resume").waitFor();
+    await page.waitForTimeout(2500);
+    expect(await page.getByText("Reading aloud did not work").count()).toBe(0);
+    expect(await page.getByTestId("listen-resume").isVisible()).toBe(true);
+    await page.getByTestId("listen-resume").click();
+    await page.getByTestId("listen-pause").waitFor();
+    expect(await page.evaluate(() => (CSS as unknown as { highlights: Map<string, unknown> }).highlights.has("listen"))).toBe(true);
+    await page.getByTestId("listen-stop").click();
+    await page.context().close();
+  });
+});
+
 /** Every axe finding (WCAG 2.0 A to 2.2 AA, and best practice), whatever its impact. */
 async function axeFindings(page: Page) {
   const result = await new AxeBuilder({ page }).withTags(["wcag2a", "wcag2aa", "wcag21a", "wcag21aa", "wcag22aa", "best-practice"]).analyze();
