@@ -3,7 +3,7 @@ import "server-only";
 // opened with the access check, so a record and its audit event commit or fail together.
 import { and, desc, eq, inArray, isNull, sql, type SQL } from "drizzle-orm";
 import { db, type Executor } from "@/db";
-import type { AllergyAnswers } from "@/lib/clinical";
+import type { AllergyAnswers, TwocOutcome } from "@/lib/clinical";
 import {
   careTeam,
   catheterEpisodes,
@@ -252,9 +252,9 @@ export async function listOverdueTrials({ removedBy }: { removedBy: Date }, tx: 
   return result.rows.map((r) => ({ episodeId: r.id, patientId: r.patient_id, removedAt: new Date(r.removed_at) }));
 }
 
-export type LastRemoval = { removedAt: string; trial: "passed" | "failed" | "under-way" | null };
+export type LastRemoval = { removedAt: string; trial: TwocOutcome | "under-way" | null };
 
-type LastRemovalRow = { removed_at: string | Date | null; awaiting_twoc: boolean | null; twoc_outcome: "passed" | "failed" | null };
+type LastRemovalRow = { removed_at: string | Date | null; awaiting_twoc: boolean | null; twoc_outcome: TwocOutcome | null };
 
 /**
  * The patient's last catheter (in place or not) with its removal time and its trial's latest
@@ -274,7 +274,7 @@ export function toLastRemoval(row: LastRemovalRow | undefined): LastRemoval | nu
 
 /** With no catheter in place, the last one's removal and its trial's outcome (device card, portal). */
 export async function getLastRemoval({ patientId }: { patientId: string }, tx: Executor = db): Promise<LastRemoval | null> {
-  const result = await tx.execute<{ last_removed_at: string | null; last_awaiting_twoc: boolean | null; last_twoc_outcome: "passed" | "failed" | null }>(lastRemovalQuery(sql`${patientId}::uuid`));
+  const result = await tx.execute<{ last_removed_at: string | null; last_awaiting_twoc: boolean | null; last_twoc_outcome: TwocOutcome | null }>(lastRemovalQuery(sql`${patientId}::uuid`));
   const row = result.rows[0];
   return row ? toLastRemoval({ removed_at: row.last_removed_at, awaiting_twoc: row.last_awaiting_twoc, twoc_outcome: row.last_twoc_outcome }) : null;
 }

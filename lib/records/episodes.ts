@@ -311,6 +311,8 @@ export async function recordTwoc(ctx: Ctx, input: TwocInput): Promise<RecordedTw
             voids: input.voids.map((v) => ({ at: v.at ?? null, volumeMl: v.volumeMl })),
             totalVoidedMl,
             postVoidResidualMl: input.postVoidResidualMl ?? null,
+            symptoms: input.symptoms,
+            reason: input.reason ?? null,
             failedAction: input.failedAction ?? null,
           },
         },
@@ -324,7 +326,7 @@ export async function recordTwoc(ctx: Ctx, input: TwocInput): Promise<RecordedTw
       eventId,
       outcome: input.outcome,
       totalVoidedMl,
-      next: input.outcome === "failed" && input.failedAction === "re-catheterised" ? "insertion" : null,
+      next: input.outcome !== "passed" && input.failedAction === "re-catheterised" ? "insertion" : null,
     };
   });
 }

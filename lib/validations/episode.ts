@@ -15,6 +15,7 @@ import {
   ROUTES,
   TWOC_FAILED_ACTIONS,
   TWOC_OUTCOMES,
+  TWOC_SYMPTOMS,
   UNPLANNED_REASONS,
 } from "@/lib/clinical";
 
@@ -193,6 +194,16 @@ export const twocSchema = z
     outcome: choice(TWOC_OUTCOMES),
     voids: z.array(voidSchema).max(20, { error: "too_many" }).default([]),
     postVoidResidualMl: optionalInt(0, 5000, "ml"),
+    /** What the patient felt; a checkbox group sends false when nothing is ticked. */
+    symptoms: z.preprocess(
+      (v) => (v === false || v === null || v === undefined ? [] : typeof v === "string" ? [v] : v),
+      z
+        .array(z.enum(TWOC_SYMPTOMS, { error: "choose_one" }))
+        .max(TWOC_SYMPTOMS.length)
+        .refine((l) => new Set(l).size === l.length, { error: "choose_one" }),
+    ),
+    /** Why the trial failed or was abandoned (required for those). */
+    reason: optionalText(1000),
     failedAction: optionalChoice(TWOC_FAILED_ACTIONS),
     notes: optionalText(1000),
   })
@@ -203,6 +214,7 @@ export const twocSchema = z
     if (v.outcome === "passed" && v.failedAction) {
       ctx.addIssue({ code: "custom", path: ["failedAction"], message: "passed_no_action" });
     }
+    if (v.outcome === "abandoned" && !v.reason) ctx.addIssue({ code: "custom", path: ["reason"], message: "required" });
     if (v.failedAction === "other" && !v.notes) ctx.addIssue({ code: "custom", path: ["notes"], message: "notes_required" });
   }, always);
 export type TwocInput = z.infer<typeof twocSchema>;

@@ -14,6 +14,8 @@ import { getDeviceCard } from "@/db/queries/passport-card";
 import { auditEvents, careTeam, organisations, outboundMessages, patients, settings } from "@/db/schema";
 import { caseloadQuerySchema } from "@/lib/validations/caseload";
 import { sendOverdueTrialAlerts } from "@/lib/records/twoc-overdue";
+import { patientFhirBundle } from "@/lib/fhir/bundle";
+import { Fhir } from "fhir";
 import { call, sessionFor } from "../support/http";
 import { demoDevice } from "../support/fixtures";
 
@@ -159,6 +161,8 @@ describe("a trial without catheter under way", () => {
       failedAction: "re-catheterised",
       voids: [{ at: "09:15", volumeMl: 40 }, { volumeMl: 25 }],
       postVoidResidualMl: 650,
+      symptoms: ["lower-tummy-pain", "feels-not-empty"],
+      reason: "Retention: could pass only small amounts",
       notes: "Bladder palpable, uncomfortable",
     });
     expect(res.status).toBe(201);
@@ -169,6 +173,49 @@ describe("a trial without catheter under way", () => {
     expect(mail.text).toContain("650 ml");
     expect(mail.text).toContain("Re-catheterised");
     expect(mail.text).toContain("Bladder palpable, uncomfortable");
+    expect(mail.text).toContain("Lower tummy pain or swelling, Feels the bladder is not empty");
+    expect(mail.text).toContain("Retention: could pass only small amounts");
+  });
+
+  it("an abandoned trial needs its reason; once saved it ends the trial, may go on to an insertion, and the FHIR export holds the voids and residual", async () => {
+    const { patientId, episodeId } = await patientWithCatheter();
+    await post(postRemoval, patientId, "/removal", { removedAt: minutesAgo(180), reason: "trial-without-catheter" });
+    const noReason = await post(postTwoc, patientId, "/twoc", { occurredAt: minutesAgo(5), outcome: "abandoned" });
+    expect(noReason.status).toBe(400);
+    expect(noReason.body.error.fields.reason).toEqual(["required"]);
+    const badSymptom = await post(postTwoc, patientId, "/twoc", { occurredAt: minutesAgo(5), outcome: "abandoned", reason: "Unwell", symptoms: ["made-up"] });
+    expect(badSymptom.status).toBe(400);
+    expect((await twocRows()).some((r) => r.patientId === patientId)).toBe(true);
+
+    const saved = await post(postTwoc, patientId, "/twoc", {
+      occurredAt: minutesAgo(5),
+      outcome: "abandoned",
+      reason: "Became unwell with a fever; trial stopped",
+      symptoms: ["fever"],
+      failedAction: "re-catheterised",
+      voids: [{ at: "08:30", volumeMl: 90 }],
+      postVoidResidualMl: 320,
+    });
+    expect(saved.status).toBe(201);
+    expect(saved.body).toMatchObject({ outcome: "abandoned", next: "insertion" });
+    expect((await twocRows()).some((r) => r.patientId === patientId)).toBe(false);
+    expect(await getDeviceCard({ patientId })).toMatchObject({ device: null, removal: { trial: "abandoned" } });
+
+    const bundle = (await patientFhirBundle({ patientId })) as { entry: { resource: Record<string, unknown> }[] };
+    const trial = bundle.entry.map((e) => e.resource).find((r) => r.id === saved.body.eventId)!;
+    expect(trial).toMatchObject({
+      resourceType: "Observation",
+      focus: [{ reference: `urn:uuid:${episodeId}` }],
+      valueCodeableConcept: { text: "Abandoned" },
+      component: [{ valueString: "fever" }],
+      note: [{ text: "Reason: Became unwell with a fever; trial stopped" }, { text: "What was done: re-catheterised" }],
+    });
+    const members = (trial.hasMember as { reference: string }[]).map((m) => bundle.entry.find((e) => `urn:uuid:${e.resource.id}` === m.reference)!.resource);
+    // Source: LOINC 9187-6 "Urine output" (from memory); UCUM mL.
+    expect(members[0]).toMatchObject({ code: { coding: [{ system: "http://loinc.org", code: "9187-6" }] }, valueQuantity: { value: 90, system: "http://unitsofmeasure.org", code: "mL" } });
+    expect(members[1]).toMatchObject({ code: { text: "Post-void residual urine volume (bladder scan)" }, valueQuantity: { value: 320, code: "mL" } });
+    const result = new Fhir().validate(bundle, { errorOnUnexpected: true });
+    expect((result.messages ?? []).filter((m: { severity?: string }) => m.severity === "error")).toEqual([]);
   });
 });
 
