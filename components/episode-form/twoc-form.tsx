@@ -52,12 +52,15 @@ export function TwocForm({ patientId, removedAt }: { patientId: string; removedA
       reason: "",
       failedAction: "",
       notes: "",
+      discharge: false,
+      followUpReviewOn: "",
     },
   });
   const failure = useSubmitFailure("EpisodeForm", setError);
   const voids = useFieldArray({ control, name: "voids" as never });
   const outcome = useWatch({ control, name: "outcome" });
   const failedAction = useWatch({ control, name: "failedAction" });
+  const discharge = useWatch({ control, name: "discharge" });
   const volumes = (useWatch({ control, name: "voids" }) as { volumeMl?: unknown }[] | undefined) ?? [];
   const total = volumes.reduce<number>((sum, v) => sum + (Number(v?.volumeMl) > 0 ? Number(v.volumeMl) : 0), 0);
   const err = (name: string) => failure.text.at(errors, name);
@@ -135,6 +138,14 @@ export function TwocForm({ patientId, removedAt }: { patientId: string; removedA
           <p className="rounded-lg border-2 border-finding-info bg-finding-info-soft p-3 sm:col-span-2">{t("twoc.recatheterisedNext")}</p>
         ) : null}
         <TextArea className="sm:col-span-2" label={t("field.notes")} {...register("notes")} errors={err("notes")} />
+        {outcome === "passed" ? (
+          <div className="flex flex-col gap-2 sm:col-span-2" data-testid="twoc-discharge">
+            <Checkbox label={t("field.discharge")} hint={t("hint.discharge")} {...register("discharge", { shouldUnregister: true })} errors={err("discharge")} />
+            {discharge ? (
+              <Field className="sm:max-w-xs" type="date" label={t("field.followUpReviewOn")} {...register("followUpReviewOn", { shouldUnregister: true })} errors={err("followUpReviewOn")} />
+            ) : null}
+          </div>
+        ) : null}
       </Section>
       <ErrorAlert message={failure.message} />
       <Button type="submit" disabled={isSubmitting} className="w-full text-lg sm:w-auto sm:self-start" data-testid="save">

@@ -214,6 +214,17 @@ export async function closeTrialWithoutCatheter({ episodeId }: { episodeId: stri
   await tx.update(catheterEpisodes).set({ awaitingTwoc: false }).where(eq(catheterEpisodes.id, episodeId));
 }
 
+/**
+ * Discharge from the catheter caseload after a passed trial (the follow-up review day), or back
+ * on it (both null) when a catheter goes in again.
+ */
+export async function setCatheterDischarge(
+  { patientId, dischargedAt, followUpReviewOn }: { patientId: string; dischargedAt: Date | null; followUpReviewOn: string | null },
+  tx: Executor,
+) {
+  await tx.update(patients).set({ catheterDischargedAt: dischargedAt, followUpReviewOn }).where(eq(patients.id, patientId));
+}
+
 export async function insertEpisodeEvent({ values }: { values: NewEpisodeEvent }, tx: Executor) {
   const [row] = await tx.insert(episodeEvents).values(values).returning({ id: episodeEvents.id });
   return row.id;

@@ -13,6 +13,7 @@ import {
   insertEpisode,
   insertEpisodeEvent,
   organisationForRecord,
+  setCatheterDischarge,
   toEpisodeDto,
   type EpisodeDto,
   type PatientForRecording,
@@ -153,8 +154,10 @@ export async function recordInsertion(ctx: Ctx, input: InsertionInput): Promise<
       { values: episodeValues(input, ctx, { organisationId, previousEpisodeId: latest?.id ?? null, findings, overrides, timeZone, planning: await getPlanDefaults(tx) }) },
       tx,
     );
-    // A catheter that went back in after a trial without catheter ends that trial.
+    // A catheter that went back in after a trial without catheter ends that trial, and puts a
+    // patient discharged after an earlier trial back on the catheter caseload.
     if (latest?.awaitingTwoc) await closeTrialWithoutCatheter({ episodeId: latest.id }, tx);
+    await setCatheterDischarge({ patientId: ctx.patientId, dischargedAt: null, followUpReviewOn: null }, tx);
     const eventId = await insertEpisodeEvent(
       {
         values: {
@@ -291,7 +294,16 @@ export async function recordTwoc(ctx: Ctx, input: TwocInput): Promise<RecordedTw
     if (occurredAt < trial.removedAt!) {
       throw new AppError("validation_failed", undefined, { fields: { occurredAt: ["before_removal"] } });
     }
+    if (input.followUpReviewOn) {
+      const today = dayIn(new Date(), deploymentTimeZone());
+      // The review is today or later, within a year (plain ISO dates compare as strings).
+      const yearOn = `${Number(today.slice(0, 4)) + 1}${today.slice(4)}`;
+      if (input.followUpReviewOn < today || input.followUpReviewOn > yearOn) {
+        throw new AppError("validation_failed", undefined, { fields: { followUpReviewOn: ["follow_up_range"] } });
+      }
+    }
     await closeTrialWithoutCatheter({ episodeId: trial.id }, tx);
+    if (input.discharge) await setCatheterDischarge({ patientId: ctx.patientId, dischargedAt: occurredAt, followUpReviewOn: input.followUpReviewOn! }, tx);
     const totalVoidedMl = input.voids.reduce((sum, v) => sum + v.volumeMl, 0);
     const organisationId = await organisationForRecord({ patientId: ctx.patientId, organisationIds: ctx.viewer.organisationIds }, tx);
     const eventId = await insertEpisodeEvent(
@@ -314,6 +326,7 @@ export async function recordTwoc(ctx: Ctx, input: TwocInput): Promise<RecordedTw
             symptoms: input.symptoms,
             reason: input.reason ?? null,
             failedAction: input.failedAction ?? null,
+            followUpReviewOn: input.followUpReviewOn ?? null,
           },
         },
       },

@@ -206,8 +206,14 @@ export const twocSchema = z
     reason: optionalText(1000),
     failedAction: optionalChoice(TWOC_FAILED_ACTIONS),
     notes: optionalText(1000),
+    /** After a passed trial: the patient leaves the catheter caseload until the follow-up review. */
+    discharge: z.boolean({ error: "choose_one" }).default(false),
+    followUpReviewOn: isoDate,
   })
   .superRefine((v, ctx) => {
+    if (v.discharge && v.outcome !== "passed") ctx.addIssue({ code: "custom", path: ["discharge"], message: "discharge_passed_only" });
+    if (v.discharge && !v.followUpReviewOn) ctx.addIssue({ code: "custom", path: ["followUpReviewOn"], message: "required" });
+    if (!v.discharge && v.followUpReviewOn) ctx.addIssue({ code: "custom", path: ["followUpReviewOn"], message: "discharge_passed_only" });
     if (v.outcome === "failed" && !v.failedAction) {
       ctx.addIssue({ code: "custom", path: ["failedAction"], message: "failed_action_required" });
     }

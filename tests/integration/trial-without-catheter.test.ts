@@ -16,6 +16,7 @@ import { caseloadQuerySchema } from "@/lib/validations/caseload";
 import { sendOverdueTrialAlerts } from "@/lib/records/twoc-overdue";
 import { patientFhirBundle } from "@/lib/fhir/bundle";
 import { Fhir } from "fhir";
+import { dayIn } from "@/lib/shared/time-zone";
 import { call, sessionFor } from "../support/http";
 import { demoDevice } from "../support/fixtures";
 
@@ -66,6 +67,9 @@ async function patientWithCatheter({ gp }: { gp?: string } = {}) {
 
 const twocRows = async (now = new Date(), hours?: number) =>
   (await listCaseload({ organisationIds: [harbourside], dueSoonDays: 7, query: caseloadQuerySchema.parse({ filter: "twoc", pageSize: 100 }), now, twocWindowHours: hours })).rows;
+const rowsOf = async (filter: string | undefined, patientId: string) =>
+  (await listCaseload({ organisationIds: [harbourside], dueSoonDays: 7, query: caseloadQuerySchema.parse({ filter, pageSize: 100 }) })).rows.filter((r) => r.patientId === patientId);
+const dayFromToday = (n: number) => dayIn(new Date(Date.now() + n * 86_400_000));
 
 beforeAll(async () => {
   const orgs = await db.select({ id: organisations.id, name: organisations.name }).from(organisations);
@@ -217,5 +221,35 @@ describe("a trial without catheter under way", () => {
     const result = new Fhir().validate(bundle, { errorOnUnexpected: true });
     expect((result.messages ?? []).filter((m: { severity?: string }) => m.severity === "error")).toEqual([]);
   });
-});
 
+  it("a passed trial may discharge the patient from the catheter caseload until the follow-up review; a new catheter brings them back", async () => {
+    const { patientId } = await patientWithCatheter();
+    await post(postRemoval, patientId, "/removal", { removedAt: minutesAgo(300), reason: "trial-without-catheter" });
+    const base = { occurredAt: minutesAgo(5), voids: [{ volumeMl: 300 }], postVoidResidualMl: 40 };
+    // The discharge needs its review day (today to a year ahead), and only follows a passed trial.
+    expect((await post(postTwoc, patientId, "/twoc", { ...base, outcome: "passed", discharge: true })).body.error.fields.followUpReviewOn).toEqual(["required"]);
+    expect((await post(postTwoc, patientId, "/twoc", { ...base, outcome: "passed", discharge: true, followUpReviewOn: dayFromToday(-1) })).body.error.fields.followUpReviewOn).toEqual(["follow_up_range"]);
+    expect((await post(postTwoc, patientId, "/twoc", { ...base, outcome: "passed", discharge: true, followUpReviewOn: dayFromToday(400) })).body.error.fields.followUpReviewOn).toEqual(["follow_up_range"]);
+    const notPassed = await post(postTwoc, patientId, "/twoc", { ...base, outcome: "abandoned", reason: "Declined", discharge: true, followUpReviewOn: dayFromToday(14) });
+    expect(notPassed.body.error.fields.discharge).toEqual(["discharge_passed_only"]);
+    expect((await rowsOf(undefined, patientId)).length).toBe(1);
+
+    const review = dayFromToday(14);
+    const saved = await post(postTwoc, patientId, "/twoc", { ...base, outcome: "passed", discharge: true, followUpReviewOn: review });
+    expect(saved.status).toBe(201);
+    // Off the caseload and every other filter; listed under "follow-up" with the review day.
+    expect(await rowsOf(undefined, patientId)).toEqual([]);
+    expect(await rowsOf("twoc", patientId)).toEqual([]);
+    const [row] = await rowsOf("follow-up", patientId);
+    expect(row).toMatchObject({ patientId, followUp: true, route: null, reviewDueOn: review, reviewState: "ok" });
+    const [p] = await db.select().from(patients).where(eq(patients.id, patientId));
+    expect(p.followUpReviewOn).toBe(review);
+    expect(p.catheterDischargedAt).not.toBeNull();
+
+    // A catheter back in: on the caseload again, no longer under follow-up.
+    const again = await post(postInsertion, patientId, "", { ...demoDevice, indication: "Retention again", insertedAt: minutesAgo(1), gelKind: "plain", gelVolumeMl: 11, attempts: 1, overrides: [] });
+    expect(again.status).toBe(201);
+    expect(await rowsOf("follow-up", patientId)).toEqual([]);
+    expect((await rowsOf(undefined, patientId)).map((r) => r.followUp)).toEqual([false]);
+  });
+});

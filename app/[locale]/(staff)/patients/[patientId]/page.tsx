@@ -180,6 +180,11 @@ export default async function DeviceTab({ params }: { params: Promise<{ locale: 
           <TrialPanel patientId={patientId} removedAt={trial.removedAt!.toISOString()} windowHours={windowHours} closed={closed} />
         ) : (
           <Card>
+            {record.patient.catheterDischargedAt ? (
+              <p className="font-bold" data-testid="catheter-discharged">
+                {t("discharged", { date: dateTime(record.patient.catheterDischargedAt), review: date(record.patient.followUpReviewOn) })}
+              </p>
+            ) : null}
             <p>{t("noneInPlaceBody")}</p>
           </Card>
         )}
