@@ -17,7 +17,10 @@ import { sendOverdueTrialAlerts } from "@/lib/records/twoc-overdue";
 import { patientFhirBundle } from "@/lib/fhir/bundle";
 import { Fhir } from "fhir";
 import { dayIn } from "@/lib/shared/time-zone";
-import { call, sessionFor } from "../support/http";
+import { POST as postCheckIn } from "@/app/api/check-ins/route";
+import { account, user } from "@/db/schema";
+import { hashPassword } from "@/lib/auth/password";
+import { call, sessionFor, signIn } from "../support/http";
 import { demoDevice } from "../support/fixtures";
 
 const h = (fn: unknown) => fn as Parameters<typeof call>[0];
@@ -251,5 +254,32 @@ describe("a trial without catheter under way", () => {
     expect(again.status).toBe(201);
     expect(await rowsOf("follow-up", patientId)).toEqual([]);
     expect((await rowsOf(undefined, patientId)).map((r) => r.followUp)).toEqual([false]);
+  });
+
+  it("after the catheter the portal's check-in is scored on passing urine: unable to pass urine → urgent, the lead team told (the server decides it is after the catheter, not the phone)", async () => {
+    const { patientId } = await patientWithCatheter();
+    await post(postRemoval, patientId, "/removal", { removedAt: minutesAgo(240), reason: "trial-without-catheter" });
+    const email = `after.${randomUUID().slice(0, 8)}@testwick.example`;
+    const userId = randomUUID();
+    await db.insert(user).values({ id: userId, name: "Trial Patient", email, role: "patient", emailVerified: true });
+    await db.insert(account).values({ id: randomUUID(), userId, accountId: userId, providerId: "credential", password: await hashPassword("After-catheter-pass-2026") });
+    await db.update(patients).set({ userId }).where(eq(patients.id, patientId));
+    const cookie = await signIn(email, "After-catheter-pass-2026");
+    const checkIn = (answers: Record<string, unknown>) =>
+      call(h(postCheckIn), "/api/check-ins", { cookie, body: { patientId, answers, idempotencyKey: randomUUID() } }).then(async (r) => ({ status: r.status, body: await r.json() }));
+
+    // Passing urine is required after the catheter; "draining" alone is not a finished check-in.
+    expect((await checkIn({ draining: "yes", pain: "none" })).status).toBe(400);
+    // common practice, no source: unable to pass urine after the catheter came out → same-day help.
+    const none = await checkIn({ passingUrine: "none", pain: "none" });
+    expect(none.status).toBe(201);
+    expect(none.body.checkIn.level).toBe("urgent");
+    expect(none.body.reasons.map((r: { ruleId: string }) => r.ruleId)).toContain("TRIAGE-AFTER-NO-URINE");
+    const alerts = await db.select().from(outboundMessages).where(and(eq(outboundMessages.patientId, patientId), eq(outboundMessages.kind, "care-team-alert")));
+    expect(alerts.map((m) => m.organisationId)).toContain(harbourside);
+    // common practice, no source: escalate when in doubt.
+    expect((await checkIn({ passingUrine: "not-sure", pain: "none" })).body.checkIn.level).toBe("urgent");
+    expect((await checkIn({ passingUrine: "yes", pain: "none" })).body.checkIn.level).toBe("self-care");
+    await db.delete(user).where(eq(user.id, userId));
   });
 });
