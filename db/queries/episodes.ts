@@ -214,6 +214,14 @@ export async function closeTrialWithoutCatheter({ episodeId }: { episodeId: stri
   await tx.update(catheterEpisodes).set({ awaitingTwoc: false }).where(eq(catheterEpisodes.id, episodeId));
 }
 
+/** The trial planned for a catheter in place (day and medicine note); a null day clears the plan. */
+export async function setTwocPlan({ episodeId, plannedOn, medicineNote }: { episodeId: string; plannedOn: string | null; medicineNote: string | null }, tx: Executor) {
+  await tx
+    .update(catheterEpisodes)
+    .set({ twocPlannedOn: plannedOn, twocMedicineNote: plannedOn ? medicineNote : null, awaitingTwoc: plannedOn !== null })
+    .where(eq(catheterEpisodes.id, episodeId));
+}
+
 /**
  * Discharge from the catheter caseload after a passed trial (the follow-up review day), or back
  * on it (both null) when a catheter goes in again.

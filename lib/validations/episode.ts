@@ -225,3 +225,20 @@ export const twocSchema = z
   }, always);
 export type TwocInput = z.infer<typeof twocSchema>;
 
+/**
+ * The trial without catheter planned for the catheter in place: its day (today to a year ahead,
+ * checked on the server in the deployment's zone) and any medicine given before it, as the nurse
+ * writes it. `clear` (and no day) removes the plan.
+ */
+export const twocPlanSchema = z
+  .object({
+    plannedOn: isoDate,
+    medicineNote: optionalText(300),
+    clear: z.boolean({ error: "choose_one" }).default(false),
+  })
+  .superRefine((v, ctx) => {
+    if (!v.clear && !v.plannedOn) ctx.addIssue({ code: "custom", path: ["plannedOn"], message: "required" });
+    if (v.clear && v.plannedOn) ctx.addIssue({ code: "custom", path: ["clear"], message: "choose_one" });
+  }, always);
+export type TwocPlanInput = z.infer<typeof twocPlanSchema>;
+

@@ -18,6 +18,9 @@ import { patientFhirBundle } from "@/lib/fhir/bundle";
 import { Fhir } from "fhir";
 import { dayIn } from "@/lib/shared/time-zone";
 import { POST as postCheckIn } from "@/app/api/check-ins/route";
+import { POST as postPlan } from "@/app/api/patients/[patientId]/episodes/twoc-plan/route";
+import { GET as getCaseload } from "@/app/api/caseload/route";
+import { GET as getSettingsRoute, PATCH as patchSettings } from "@/app/api/admin/settings/route";
 import { account, user } from "@/db/schema";
 import { hashPassword } from "@/lib/auth/password";
 import { call, sessionFor, signIn } from "../support/http";
@@ -281,5 +284,51 @@ describe("a trial without catheter under way", () => {
     expect((await checkIn({ passingUrine: "not-sure", pain: "none" })).body.checkIn.level).toBe("urgent");
     expect((await checkIn({ passingUrine: "yes", pain: "none" })).body.checkIn.level).toBe("self-care");
     await db.delete(user).where(eq(user.id, userId));
+  });
+
+  it("plans a trial for the catheter in place (day and medicine note), shown under 'Awaiting trial without catheter'; clearing it is asked for; bad input writes nothing", async () => {
+    const { patientId } = await patientWithCatheter();
+    const plannedOn = dayFromToday(10);
+    expect((await post(postPlan, patientId, "/twoc-plan", { plannedOn: dayFromToday(-2) })).body.error.fields.plannedOn).toEqual(["plan_range"]);
+    expect((await post(postPlan, patientId, "/twoc-plan", { plannedOn: "2026-02-30" })).body.error.fields.plannedOn).toEqual(["date"]);
+    expect(await rowsOf("twoc", patientId)).toEqual([]);
+    const saved = await post(postPlan, patientId, "/twoc-plan", { plannedOn, medicineNote: "Tamsulosin 400 micrograms daily from 3 days before, as prescribed" });
+    expect(saved).toMatchObject({ status: 200, body: { plannedOn } });
+    const [row] = await rowsOf("twoc", patientId);
+    expect(row).toMatchObject({ awaitingTwoc: true, twocPlannedOn: plannedOn, twocMedicineNote: "Tamsulosin 400 micrograms daily from 3 days before, as prescribed" });
+    // The removal for the trial keeps the patient in the same filter, now under way.
+    await post(postRemoval, patientId, "/removal", { removedAt: minutesAgo(30), reason: "trial-without-catheter" });
+    expect((await rowsOf("twoc", patientId))[0]).toMatchObject({ route: null, trialOverdue: false });
+    // With no catheter in place there is nothing to plan.
+    expect((await post(postPlan, patientId, "/twoc-plan", { plannedOn })).status).toBe(409);
+
+    const other = await patientWithCatheter();
+    await post(postPlan, other.patientId, "/twoc-plan", { plannedOn, medicineNote: "None" });
+    expect((await post(postPlan, other.patientId, "/twoc-plan", { plannedOn: "" })).body.error.fields.plannedOn).toEqual(["required"]);
+    expect((await rowsOf("twoc", other.patientId)).length).toBe(1);
+    const cleared = await post(postPlan, other.patientId, "/twoc-plan", { clear: true });
+    expect(cleared.body).toEqual({ plannedOn: null, medicineNote: null });
+    expect(await rowsOf("twoc", other.patientId)).toEqual([]);
+  });
+
+  it("the trial window setting is saved by the admin route and read by the caseload route (3 hours: a trial removed 4 hours ago is overdue)", async () => {
+    const admin = await sessionFor("admin");
+    const set = (body: Record<string, unknown>) => call(h(patchSettings), "/api/admin/settings", { method: "PATCH", cookie: admin, body });
+    try {
+      for (const bad of [0, 25, 2.5, "6h"]) expect((await set({ twocVoidWindowHours: bad })).status, String(bad)).toBe(400);
+      expect((await set({ twocVoidWindowHours: 3 })).status).toBe(200);
+      const read = await call(h(getSettingsRoute), "/api/admin/settings", { cookie: admin });
+      expect((await read.json()).settings.twocVoidWindowHours).toBe(3);
+
+      const { patientId } = await patientWithCatheter();
+      await post(postRemoval, patientId, "/removal", { removedAt: minutesAgo(240), reason: "trial-without-catheter" });
+      const page = await call(h(getCaseload), "/api/caseload?filter=twoc&pageSize=100", { cookie: await sessionFor("communityNurse") });
+      const row = ((await page.json()).rows as { patientId: string; trialVoidBy: string; trialRemovedAt: string; trialOverdue: boolean }[]).find((r) => r.patientId === patientId)!;
+      // common practice, no source: the window is each deployment's setting (default 6 hours).
+      expect(Date.parse(row.trialVoidBy) - Date.parse(row.trialRemovedAt)).toBe(3 * 3_600_000);
+      expect(row.trialOverdue).toBe(true);
+    } finally {
+      await set({ twocVoidWindowHours: null });
+    }
   });
 });
