@@ -146,12 +146,14 @@ describe("supply requests", () => {
     const [row] = await db.select().from(supplyRequests).where(eq(supplyRequests.id, supplyRequest.id));
     expect(row.periodDays).toBe(28);
     expect(row.requestedByName).toBe("Grace Mensah");
-    // 28 days: 1 catheter + 1 spare, 4 leg bags (nurse asked 5), 28 night bags, 2 gel.
+    // 28 days with the next change in 84 days (common practice, no source): no change falls in
+    // the period, so the spare catheter and its gel only (the nurse asked 2 of each); 4 leg bags
+    // (nurse asked 5), 28 night bags.
     expect(row.items).toEqual([
-      { item: "catheter", computed: 2, quantity: 2, intervalDays: 84 },
+      { item: "catheter", computed: 1, quantity: 2, intervalDays: 84 },
       { item: "leg-bag", computed: 4, quantity: 5, intervalDays: 7 },
       { item: "night-bag", computed: 28, quantity: 28, intervalDays: 1 },
-      { item: "gel", computed: 2, quantity: 2, intervalDays: 84 },
+      { item: "gel", computed: 1, quantity: 2, intervalDays: 84 },
     ]);
     const [msg] = await db.select().from(outboundMessages).where(eq(outboundMessages.id, row.messageId!));
     expect(msg).toMatchObject({ kind: "supply-request", toAddress: fx.gpInbox, status: "queued", idempotencyKey: `supply-request:${row.id}` });
@@ -207,4 +209,19 @@ describe("supply requests", () => {
       expect(res.status).toBe(status);
     });
   }
+});
+
+describe("supplies follow the real change day and the blockage history", () => {
+  it("Halina (demo), whose catheters blocked after 21 days four times, is planned on the blockage interval, not 84 days", async () => {
+    const { getSupplyContext } = await import("@/db/queries/supply-requests");
+    const { patientIdByHrn } = await import("../support/fixtures");
+    const ctx = (await getSupplyContext({ patientId: await patientIdByHrn("EM-100-002") }))!;
+    // common practice, no source: blockagePattern's typical dwell 21 days less a 3-day margin = 18.
+    expect(ctx.plannedIntervalDays).toBe(84);
+    expect(ctx.changeIntervalDays).toBe(18);
+    // Inserted 36 days ago: 18 days from insertion has passed (the planned day is in 48 days), so
+    // the next change is counted from today: 28 days → days 0 and 18 → 2 catheters + 1 spare.
+    expect(ctx.firstChangeInDays).toBe(0);
+    expect(suppliesFor({ changeIntervalDays: ctx.changeIntervalDays!, firstChangeInDays: ctx.firstChangeInDays! }, 28).lines[0]).toMatchObject({ item: "catheter", quantity: 3 });
+  });
 });

@@ -70,9 +70,16 @@ export default async function SuppliesPage({ params }: { params: Promise<{ local
             <p className="mb-4 text-ink-soft">
               {t("device", { ch: ctx.episode.sizeCh, ml: ctx.episode.balloonMl, days: ctx.changeIntervalDays })}
             </p>
+            {ctx.plannedIntervalDays && ctx.changeIntervalDays < ctx.plannedIntervalDays ? (
+              <p className="mb-4 font-bold" data-testid="supplies-blockage">
+                {t("blockageInterval", { days: ctx.changeIntervalDays, planned: ctx.plannedIntervalDays })}
+              </p>
+            ) : null}
+            {ctx.firstChangeInDays !== null ? <p className="mb-4 text-ink-soft">{t("nextChange", { days: ctx.firstChangeInDays })}</p> : null}
             <SupplyRequestForm
               patientId={patientId}
               changeIntervalDays={ctx.changeIntervalDays}
+              firstChangeInDays={ctx.firstChangeInDays ?? undefined}
               gpName={ctx.gp?.name ?? null}
               gpHasInbox={Boolean(ctx.gp?.inboxEmail)}
               {...dischargeDefaults(checklist)}
