@@ -22,6 +22,8 @@ type Props = {
   changeIntervalDays: number;
   /** Days to the catheter's next planned change (catheters are counted on the real change days). */
   firstChangeInDays?: number;
+  /** Spare catheters (Settings, default one). */
+  spareCatheters?: number;
   gpName: string | null;
   gpHasInbox: boolean;
   /** From the discharge checklist: the period up to a planned trial without catheter, and a valve instead of a leg bag. */
@@ -31,7 +33,7 @@ type Props = {
 
 const includeKeys = ["legBag", "valve", "nightBag", "gel"] as const;
 
-export function SupplyRequestForm({ patientId, changeIntervalDays, firstChangeInDays, gpName, gpHasInbox, initialPeriod = DEFAULT_SUPPLY_PERIOD, valve = false }: Props) {
+export function SupplyRequestForm({ patientId, changeIntervalDays, firstChangeInDays, spareCatheters, gpName, gpHasInbox, initialPeriod = DEFAULT_SUPPLY_PERIOD, valve = false }: Props) {
   const t = useTranslations("Supplies");
   const v = useTranslations("Vocabulary");
   const router = useRouter();
@@ -39,7 +41,7 @@ export function SupplyRequestForm({ patientId, changeIntervalDays, firstChangeIn
   const initialInclude = { legBag: !valve, valve, nightBag: true, gel: true };
   const suggest = (periodDays: number, include: SupplyRequestInput["include"]) => {
     try {
-      return suppliesFor({ changeIntervalDays, firstChangeInDays, ...include }, periodDays).lines;
+      return suppliesFor({ changeIntervalDays, firstChangeInDays, spareCatheters, ...include }, periodDays).lines;
     } catch {
       return [];
     }

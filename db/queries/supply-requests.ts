@@ -6,6 +6,7 @@ import { parseIsoDate, supplyChangeInterval } from "@/lib/clinical";
 import { blockagePatternOf } from "@/lib/shared/blockage-interval";
 import { deploymentTimeZone, todayIso } from "@/lib/shared/time-zone";
 import { listEpisodeEndings } from "./episodes";
+import { getSpareCatheters } from "@/lib/config/settings";
 import { getActiveEpisode, getOrganisation, getPatientForMail } from "./mail-context";
 
 /** What a supply request starts from: the catheter in place, its planned change interval, the GP. */
@@ -29,7 +30,7 @@ export async function getSupplyContext({ patientId }: { patientId: string }, tx:
     const next = Math.min(parseIsoDate("plannedChangeOn", episode.plannedChangeOn), inserted + changeIntervalDays);
     firstChangeInDays = Math.min(366, Math.max(0, next - today));
   }
-  return { patient, episode, gp, changeIntervalDays, plannedIntervalDays, firstChangeInDays };
+  return { patient, episode, gp, changeIntervalDays, plannedIntervalDays, firstChangeInDays, spareCatheters: await getSpareCatheters(tx) };
 }
 
 export async function insertSupplyRequest({ values }: { values: NewSupplyRequest }, tx: Executor = db) {

@@ -224,4 +224,28 @@ describe("supplies follow the real change day and the blockage history", () => {
     expect(ctx.firstChangeInDays).toBe(0);
     expect(suppliesFor({ changeIntervalDays: ctx.changeIntervalDays!, firstChangeInDays: ctx.firstChangeInDays! }, 28).lines[0]).toMatchObject({ item: "catheter", quantity: 3 });
   });
+
+  it("spare catheters are a setting (default one): saved by the admin route, read by the supply request", async () => {
+    const { PATCH: patchSettings } = await import("@/app/api/admin/settings/route");
+    const admin = await sessionFor("admin");
+    const set = (body: Record<string, unknown>) => call(patchSettings, "/api/admin/settings", { method: "PATCH", cookie: admin, body });
+    try {
+      expect((await set({ spareCatheters: 6 })).status).toBe(400);
+      expect((await set({ spareCatheters: 2 })).status).toBe(200);
+      const cookie = await sessionFor("communityNurse");
+      const lines = suppliesFor({ changeIntervalDays: 84, spareCatheters: 2 }, 28).lines;
+      const res = await call(createSupply, `/api/patients/${fx.patientId}/supply-requests`, {
+        cookie,
+        params: { patientId: fx.patientId },
+        body: { periodDays: 28, include: { legBag: true, valve: false, nightBag: true, gel: true }, items: lines.map((l) => ({ item: l.item, quantity: l.quantity })) },
+      });
+      expect(res.status).toBe(201);
+      // No change in the 28 days (next in 84), two spares: 2 catheters and 2 gels (common practice, no source).
+      const { supplyRequest } = await res.json();
+      expect(supplyRequest.items.find((i: { item: string }) => i.item === "catheter")).toMatchObject({ computed: 2 });
+      expect(supplyRequest.items.find((i: { item: string }) => i.item === "gel")).toMatchObject({ computed: 2 });
+    } finally {
+      await set({ spareCatheters: null });
+    }
+  });
 });

@@ -80,6 +80,7 @@ export default async function SuppliesPage({ params }: { params: Promise<{ local
               patientId={patientId}
               changeIntervalDays={ctx.changeIntervalDays}
               firstChangeInDays={ctx.firstChangeInDays ?? undefined}
+              spareCatheters={ctx.spareCatheters}
               gpName={ctx.gp?.name ?? null}
               gpHasInbox={Boolean(ctx.gp?.inboxEmail)}
               {...dischargeDefaults(checklist)}
