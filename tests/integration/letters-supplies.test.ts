@@ -1,6 +1,6 @@
 // The Letters tab's resend route (role matrix, new row per resend, audited) and supply requests
 // (computed and adjusted quantities kept, e-mail to the GP, bad input writes nothing).
-import { and, count, eq } from "drizzle-orm";
+import { and, count, eq, isNull } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { POST as resendRoute } from "@/app/api/patients/[patientId]/messages/[messageId]/resend/route";
 import { GET as listMessagesRoute } from "@/app/api/patients/[patientId]/messages/route";
@@ -246,6 +246,27 @@ describe("supplies follow the real change day and the blockage history", () => {
       expect(supplyRequest.items.find((i: { item: string }) => i.item === "gel")).toMatchObject({ computed: 2 });
     } finally {
       await set({ spareCatheters: null });
+    }
+  });
+
+  it("the e-mail names the gel used and, before a planned trial without catheter, says what the trial would make unnecessary", async () => {
+    const [active] = await db.select().from(catheterEpisodes).where(and(eq(catheterEpisodes.patientId, fx.patientId), isNull(catheterEpisodes.removedAt)));
+    await db.update(catheterEpisodes).set({ gelKind: "lidocaine-chlorhexidine", twocPlannedOn: "2030-01-15" }).where(eq(catheterEpisodes.id, active.id));
+    try {
+      const lines = suppliesFor({ changeIntervalDays: 84 }, 28).lines;
+      const res = await call(createSupply, `/api/patients/${fx.patientId}/supply-requests`, {
+        cookie: await sessionFor("communityNurse"),
+        params: { patientId: fx.patientId },
+        body: { periodDays: 28, include: { legBag: true, valve: false, nightBag: true, gel: true }, items: lines.map((l) => ({ item: l.item, quantity: l.quantity })) },
+      });
+      expect(res.status).toBe(201);
+      const { supplyRequest } = await res.json();
+      const [msg] = await db.select().from(outboundMessages).where(eq(outboundMessages.id, supplyRequest.message.id));
+      expect(msg.text).toContain("Gel syringes: Lidocaine and chlorhexidine gel");
+      expect(msg.text).toContain("A trial without catheter is planned for");
+      expect(msg.text).toContain("no catheters, leg or night bags, valves or gel are needed after that day");
+    } finally {
+      await db.update(catheterEpisodes).set({ gelKind: active.gelKind, twocPlannedOn: null }).where(eq(catheterEpisodes.id, active.id));
     }
   });
 });
