@@ -19,6 +19,7 @@ import { Fhir } from "fhir";
 import { dayIn } from "@/lib/shared/time-zone";
 import { POST as postCheckIn } from "@/app/api/check-ins/route";
 import { POST as postPlan } from "@/app/api/patients/[patientId]/episodes/twoc-plan/route";
+import { POST as postChecklist } from "@/app/api/patients/[patientId]/discharge-checklist/route";
 import { GET as getCaseload } from "@/app/api/caseload/route";
 import { GET as getSettingsRoute, PATCH as patchSettings } from "@/app/api/admin/settings/route";
 import { account, user } from "@/db/schema";
@@ -330,5 +331,18 @@ describe("a trial without catheter under way", () => {
     } finally {
       await set({ twocVoidWindowHours: null });
     }
+  });
+
+  it("the discharge checklist's planned trial day becomes the plan of the catheter in place, keeping its medicine note", async () => {
+    const { patientId } = await patientWithCatheter();
+    await post(postPlan, patientId, "/twoc-plan", { plannedOn: dayFromToday(20), medicineNote: "Alpha-blocker started" });
+    const day = dayFromToday(12);
+    const res = await call(h(postChecklist), `/api/patients/${patientId}/discharge-checklist`, {
+      cookie: await sessionFor("communityNurse"),
+      params: { patientId },
+      body: { taught: ["when-to-get-help"], suppliesGiven: true, suppliesDays: 7, drainage: "bag", plannedTwocOn: day, portalActivationGiven: false },
+    });
+    expect(res.status).toBe(201);
+    expect((await rowsOf("twoc", patientId))[0]).toMatchObject({ twocPlannedOn: day, twocMedicineNote: "Alpha-blocker started" });
   });
 });
