@@ -245,7 +245,7 @@ export const demoPatients: DemoPatient[] = [
     // ("not recorded: ask first") and every record, card and letter says "not recorded".
     allergies: { latex: "not-asked" },
     episodes: [
-      { ...silicone14, lengthCategory: "female", gelVolumeMl: 6, material: "ptfe-coated-latex", lot: "MP1180", expiry: isoDate(daysFromToday(200)), insertedDaysAgo: 12, dwellDays: 28, awaitingTwoc: true, indication: "Acute urinary retention after surgery", by: "Tomasz Reid", org: "Larch Ward" },
+      { ...silicone14, lengthCategory: "female", gelVolumeMl: 6, material: "ptfe-coated-latex", lot: "MP1180", expiry: isoDate(daysFromToday(200)), insertedDaysAgo: 12, dwellDays: 28, awaitingTwoc: true, twocPlannedOn: isoDate(daysFromToday(9)), twocMedicineNote: "Tamsulosin 400 micrograms daily from 3 days before the trial, as prescribed (demo)", indication: "Acute urinary retention after surgery", by: "Tomasz Reid", org: "Larch Ward" },
     ],
   },
   {

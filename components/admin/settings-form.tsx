@@ -9,7 +9,7 @@ import { Field } from "@/components/ui/field";
 import { DoneStatus, ErrorAlert, Notice } from "@/components/ui/notice";
 import { useSubmitFailure } from "@/components/ui/use-error-text";
 import { apiFetch } from "@/lib/browser/api-client";
-import { MATERIALS, MATERIAL_SPECS, PLAN_DEFAULTS, TWOC_DEFAULTS, type Material } from "@/lib/clinical";
+import { BAG_INTERVALS, MATERIALS, MATERIAL_SPECS, PLAN_DEFAULTS, TWOC_DEFAULTS, type Material } from "@/lib/clinical";
 import { useRouter } from "@/lib/i18n/navigation";
 import { DEFAULT_REFERRAL_REMINDER_HOURS } from "@/lib/shared/referrals";
 import { settingsFormSchema, type SettingsFormOutput, type SettingsFormValues } from "@/lib/validations/settings";
@@ -28,6 +28,7 @@ export type SettingsInitial = {
   outOfHoursPhone: string | null;
   referralReminderHours: number | null;
   twocVoidWindowHours: number | null;
+  spareCatheters: number | null;
 };
 
 const text = { setValueAs: (v: unknown) => (typeof v === "string" && v.trim() === "" ? null : v) };
@@ -127,6 +128,14 @@ export function SettingsForm({ initial }: { initial: SettingsInitial }) {
           className="max-w-xs"
           errors={errorText.list(errors.twocVoidWindowHours)}
           {...register("twocVoidWindowHours", num)}
+        />
+        <Field
+          label={t("spareCatheters")}
+          hint={t("spareCathetersHint", { count: BAG_INTERVALS.spareCatheters.value })}
+          inputMode="numeric"
+          className="max-w-xs"
+          errors={errorText.list(errors.spareCatheters)}
+          {...register("spareCatheters", num)}
         />
       </fieldset>
 

@@ -95,6 +95,7 @@ export function CaseloadView({ initialQuery, initialData }: { initialQuery: Case
     "due-soon": t("filters.due-soon", { days: page.dueSoonDays }),
     urgent: t("filters.urgent"),
     twoc: t("filters.twoc"),
+    "follow-up": t("filters.follow-up"),
   };
 
   return (
@@ -246,6 +247,25 @@ function useCells() {
   return { t, v, date, device, days };
 }
 
+/** A trial planned (its day and the medicine given before it), or the follow-up after a passed one. */
+function TwocPlanLines({ row: r }: { row: CaseloadRow }) {
+  const { t, date } = useCells();
+  if (r.followUp) {
+    return (
+      <div className="text-sm font-bold text-brand" data-testid="follow-up">
+        {t("followUp")}
+      </div>
+    );
+  }
+  if (!r.awaitingTwoc && !r.twocPlannedOn) return null;
+  return (
+    <div className="text-sm text-level-soon-ink" data-testid="twoc-planned">
+      <div className="font-bold">{r.twocPlannedOn ? t("twocPlanned", { date: date(r.twocPlannedOn) }) : t("awaitingTwoc")}</div>
+      {r.twocMedicineNote ? <div className="[overflow-wrap:break-word]">{t("twocMedicine", { note: r.twocMedicineNote })}</div> : null}
+    </div>
+  );
+}
+
 function DateWithState({ date, state }: { date: string; state: CaseloadRow["changeState"] }) {
   const t = useTranslations("CaseloadState");
   return (
@@ -298,7 +318,7 @@ function CaseloadTable({ rows, query, onSort }: { rows: CaseloadRow[]; query: Ca
                   {r.name}
                 </Link>
                 <div className="tabular whitespace-nowrap text-sm text-ink-soft">{r.healthRecordNumber}</div>
-                {r.awaitingTwoc ? <div className="text-sm font-bold text-level-soon-ink">{t("awaitingTwoc")}</div> : null}
+                <TwocPlanLines row={r} />
                 <TrialUnderWay row={r} />
               </td>
               <td className="tabular whitespace-nowrap px-2.5 py-3">
@@ -359,7 +379,9 @@ function CaseloadCards({ rows }: { rows: CaseloadRow[] }) {
             <dt className="text-ink-soft">{t("checkIn")}</dt>
             <dd>{r.latestCheckInLevel ? <LevelBadge level={r.latestCheckInLevel} /> : t("noCheckIn")}</dd>
           </dl>
-          {r.awaitingTwoc ? <p className="mt-2 text-sm font-bold text-level-soon-ink">{t("awaitingTwoc")}</p> : null}
+          <div className="mt-2">
+            <TwocPlanLines row={r} />
+          </div>
           <TrialUnderWay row={r} />
         </li>
       ))}

@@ -38,10 +38,23 @@ function isChosen(question: Question, option: string, answers: SubmittedAnswers)
 }
 
 /** "How am I?": one question per screen, big answers, red flags first, emergency straight to the result. */
-export function CheckInFlow({ patientId, route, contacts, patientName }: { patientId: string; route: Route | null; contacts: Contacts; patientName: string | null }) {
+export function CheckInFlow({
+  patientId,
+  route,
+  afterCatheter = false,
+  contacts,
+  patientName,
+}: {
+  patientId: string;
+  route: Route | null;
+  /** No catheter in place since one came out: the check-in asks how urine passes instead. */
+  afterCatheter?: boolean;
+  contacts: Contacts;
+  patientName: string | null;
+}) {
   const t = useTranslations("CheckIn");
   const tp = useTranslations("Pictures");
-  const questions = useMemo(() => questionsFor(route), [route]);
+  const questions = useMemo(() => questionsFor(route, afterCatheter), [route, afterCatheter]);
   const [answers, setAnswers] = useState<SubmittedAnswers>({});
   const [history, setHistory] = useState<number[]>([]);
   const [index, setIndex] = useState(0);
@@ -54,7 +67,7 @@ export function CheckInFlow({ patientId, route, contacts, patientName }: { patie
     headingRef.current?.focus();
   }, [index, done]);
 
-  if (done) return <CheckInResult patientId={patientId} route={route} answers={answers} idempotencyKey={idempotencyKey} contacts={contacts} />;
+  if (done) return <CheckInResult patientId={patientId} route={route} afterCatheter={afterCatheter} answers={answers} idempotencyKey={idempotencyKey} contacts={contacts} />;
 
   const question = questions[index];
   const visible = questions.filter((q) => isAsked(q, answers));
@@ -64,7 +77,7 @@ export function CheckInFlow({ patientId, route, contacts, patientName }: { patie
     const next = keepAsked(questions, { ...answers, ...patch });
     setAnswers(next);
     setHistory([...history, index]);
-    if (reachesEmergency(next, route)) return setDone(true);
+    if (reachesEmergency(next, route, afterCatheter)) return setDone(true);
     let i = index + 1;
     while (i < questions.length && !isAsked(questions[i], next)) i++;
     if (i >= questions.length) return setDone(true);
@@ -87,7 +100,8 @@ export function CheckInFlow({ patientId, route, contacts, patientName }: { patie
       </p>
       {patientName ? <p className="font-bold">{t("aboutPatient", { name: patientName })}</p> : null}
       <h1 id="question" ref={headingRef} tabIndex={-1} className="text-3xl font-bold leading-snug outline-none">
-        {t(`questions.${question.id}.${subject}`)}
+        {/* After the catheter, pain is asked without "where the catheter goes in". */}
+        {afterCatheter && question.id === "pain" ? t(`questions.painAfter.${subject}`) : t(`questions.${question.id}.${subject}`)}
       </h1>
       {t.has(`questions.${question.id}.hint` as never) ? <p>{t(`questions.${question.id}.hint` as never)}</p> : null}
       {QUESTION_PICTURES[question.id] ? <Picture name={QUESTION_PICTURES[question.id]!} alt={tp(QUESTION_PICTURES[question.id]!)} /> : null}

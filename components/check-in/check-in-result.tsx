@@ -20,10 +20,24 @@ type Delivery = "sending" | "sent" | "waiting" | "refused";
  * worked out on the phone with lib/clinical so it shows at once, online or not; the check-in is
  * put in the phone's outbox first and sent from there, so it is never lost.
  */
-export function CheckInResult({ patientId, route, answers, idempotencyKey, contacts }: { patientId: string; route: Route | null; answers: SubmittedAnswers; idempotencyKey: string; contacts: Contacts }) {
+export function CheckInResult({
+  patientId,
+  route,
+  afterCatheter,
+  answers,
+  idempotencyKey,
+  contacts,
+}: {
+  patientId: string;
+  route: Route | null;
+  afterCatheter: boolean;
+  answers: SubmittedAnswers;
+  idempotencyKey: string;
+  contacts: Contacts;
+}) {
   const t = useTranslations("CheckIn");
   const tp = useTranslations("Pictures");
-  const local = useMemo(() => scoreAnswers(answers, route), [answers, route]);
+  const local = useMemo(() => scoreAnswers(answers, route, afterCatheter), [answers, route, afterCatheter]);
   const [delivery, setDelivery] = useState<Delivery>("sending");
   const [serverLevel, setServerLevel] = useState<TriageLevel | null>(null);
   const headingRef = useRef<HTMLHeadingElement>(null);

@@ -20,6 +20,12 @@ import { TableHead } from "@/components/ui/table-head";
 type Props = {
   patientId: string;
   changeIntervalDays: number;
+  /** Days to the catheter's next planned change (catheters are counted on the real change days). */
+  firstChangeInDays?: number;
+  /** Spare catheters (Settings, default one). */
+  spareCatheters?: number;
+  /** The gel used at the last insertion or change, in words, named on the gel line. */
+  gelName?: string | null;
   gpName: string | null;
   gpHasInbox: boolean;
   /** From the discharge checklist: the period up to a planned trial without catheter, and a valve instead of a leg bag. */
@@ -29,7 +35,7 @@ type Props = {
 
 const includeKeys = ["legBag", "valve", "nightBag", "gel"] as const;
 
-export function SupplyRequestForm({ patientId, changeIntervalDays, gpName, gpHasInbox, initialPeriod = DEFAULT_SUPPLY_PERIOD, valve = false }: Props) {
+export function SupplyRequestForm({ patientId, changeIntervalDays, firstChangeInDays, spareCatheters, gelName, gpName, gpHasInbox, initialPeriod = DEFAULT_SUPPLY_PERIOD, valve = false }: Props) {
   const t = useTranslations("Supplies");
   const v = useTranslations("Vocabulary");
   const router = useRouter();
@@ -37,7 +43,7 @@ export function SupplyRequestForm({ patientId, changeIntervalDays, gpName, gpHas
   const initialInclude = { legBag: !valve, valve, nightBag: true, gel: true };
   const suggest = (periodDays: number, include: SupplyRequestInput["include"]) => {
     try {
-      return suppliesFor({ changeIntervalDays, ...include }, periodDays).lines;
+      return suppliesFor({ changeIntervalDays, firstChangeInDays, spareCatheters, ...include }, periodDays).lines;
     } catch {
       return [];
     }
@@ -111,7 +117,7 @@ export function SupplyRequestForm({ patientId, changeIntervalDays, gpName, gpHas
               return (
                 <tr key={f.id} className="border-t border-stone-faint">
                   <th scope="row" className="p-3 text-start font-bold">
-                    <label htmlFor={`qty-${f.item}`}>{v(`supplyItem.${f.item}`)}</label>
+                    <label htmlFor={`qty-${f.item}`}>{f.item === "gel" && gelName ? `${v("supplyItem.gel")}: ${gelName}` : v(`supplyItem.${f.item}`)}</label>
                   </th>
                   <td className="tabular p-3">{line?.quantity ?? "—"}</td>
                   <td className="p-3">

@@ -40,6 +40,14 @@ export type CaseloadRow = {
   /** When the patient is expected to have passed urine (the deployment's window), and whether it passed. */
   trialVoidBy: string | null;
   trialOverdue: boolean;
+  /** The trial planned for the catheter in place (day and any medicine given before it). */
+  twocPlannedOn: string | null;
+  twocMedicineNote: string | null;
+  /**
+   * Discharged from the catheter caseload after a passed trial: shown only under the
+   * "follow-up" filter, with the follow-up review day as its review date.
+   */
+  followUp: boolean;
 };
 
 /** `totalIsAtLeast`: the view holds more than `total` patients (counting stopped there). */
@@ -63,6 +71,10 @@ type RawRow = {
   review_due_on: string | null;
   awaiting_twoc: boolean | null;
   trial_removed_at: string | null;
+  twoc_planned_on: string | null;
+  twoc_medicine_note: string | null;
+  discharged: boolean | null;
+  follow_up_review_on: string | null;
 };
 
 // Escapes LIKE wildcards so a search for "50%" or "A_B" means those characters.
@@ -71,6 +83,13 @@ function likePattern(q: string): string {
 }
 
 function filterCondition(filter: CaseloadFilter | undefined, today: string, dueSoonDays: number): SQL {
+  // A patient discharged from the catheter caseload (after a passed trial, no catheter back in)
+  // shows only under "follow-up", until a catheter goes in again.
+  if (filter === "follow-up") return sql`and f.catheter_discharged_at is not null and f.episode_id is null`;
+  return sql`and (f.catheter_discharged_at is null or f.episode_id is not null) ${dateFilter(filter, today, dueSoonDays)}`;
+}
+
+function dateFilter(filter: CaseloadFilter | undefined, today: string, dueSoonDays: number): SQL {
   // The states compare the stored planDates dates with today, as stateFor does: overdue once a
   // date has passed; due soon from today to today + dueSoonDays (either date).
   switch (filter) {
@@ -82,8 +101,9 @@ function filterCondition(filter: CaseloadFilter | undefined, today: string, dueS
     case "urgent":
       return sql`and f.latest_check_in_level in ('urgent', 'emergency')`;
     case "twoc":
-      // Planned, or under way: the catheter is out for the trial and no outcome is recorded.
-      return sql`and (f.awaiting_twoc or f.trial_removed_at is not null)`;
+      // Awaiting a trial: planned (a day set or the catheter marked for one), or under way (the
+      // catheter is out for the trial and no outcome is recorded).
+      return sql`and (f.awaiting_twoc or f.twoc_planned_on is not null or f.trial_removed_at is not null)`;
     default:
       return sql``;
   }
@@ -141,7 +161,9 @@ export function caseloadStatement({
     with f as not materialized (
       select p.id as patient_id, p.given_name, p.family_name, p.health_record_number,
              p.latest_check_in_level, p.latest_check_in_at,
-             e.route, e.size_ch, e.inserted_at, e.planned_change_on, e.review_due_on, e.awaiting_twoc,
+             e.id as episode_id, e.route, e.size_ch, e.inserted_at, e.planned_change_on, e.review_due_on, e.awaiting_twoc,
+             e.twoc_planned_on, e.twoc_medicine_note,
+             p.catheter_discharged_at, p.follow_up_review_on,
              tr.removed_at as trial_removed_at
       from patients p
       left join catheter_episodes e on e.patient_id = p.id and e.removed_at is null
@@ -167,6 +189,9 @@ export function caseloadStatement({
              f.planned_change_on::text as planned_change_on,
              f.review_due_on::text as review_due_on,
              f.awaiting_twoc,
+             f.twoc_planned_on::text as twoc_planned_on, f.twoc_medicine_note,
+             (f.catheter_discharged_at is not null and f.episode_id is null) as discharged,
+             f.follow_up_review_on::text as follow_up_review_on,
              to_char(f.trial_removed_at at time zone 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS"Z"') as trial_removed_at
       from filtered f
       ${orderBy(view.sort, view.dir)}
@@ -180,8 +205,10 @@ function toRow(r: RawRow, today: string, dueSoonDays: number, window: TrialWindo
   const clock = r.trial_removed_at ? trialClock(new Date(r.trial_removed_at), window.now, window.hours) : null;
   const todayDay = parseIsoDate("today", today);
   const dateState = (d: string | null) => (d ? stateFor(parseIsoDate("date", d) - todayDay, dueSoonDays) : null);
+  const followUp = Boolean(r.discharged);
+  const reviewDueOn = followUp ? r.follow_up_review_on : r.review_due_on;
   const changeState = dateState(r.planned_change_on);
-  const reviewState = dateState(r.review_due_on);
+  const reviewState = dateState(reviewDueOn);
   return {
     patientId: r.patient_id!,
     name: `${r.given_name} ${r.family_name}`,
@@ -193,7 +220,7 @@ function toRow(r: RawRow, today: string, dueSoonDays: number, window: TrialWindo
     insertedOn: r.inserted_on,
     daysSinceInsertion: r.inserted_on ? todayDay - parseIsoDate("insertedOn", r.inserted_on) : null,
     plannedChangeOn: r.planned_change_on,
-    reviewDueOn: r.review_due_on,
+    reviewDueOn,
     changeState,
     reviewState,
     state: changeState && reviewState ? worseState(changeState, reviewState) : (changeState ?? reviewState),
@@ -203,6 +230,9 @@ function toRow(r: RawRow, today: string, dueSoonDays: number, window: TrialWindo
     trialRemovedAt: r.trial_removed_at,
     trialVoidBy: clock ? clock.voidBy.toISOString() : null,
     trialOverdue: clock?.overdue ?? false,
+    twocPlannedOn: r.twoc_planned_on,
+    twocMedicineNote: r.twoc_medicine_note,
+    followUp,
   };
 }
 

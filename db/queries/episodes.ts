@@ -3,7 +3,7 @@ import "server-only";
 // opened with the access check, so a record and its audit event commit or fail together.
 import { and, desc, eq, inArray, isNull, sql, type SQL } from "drizzle-orm";
 import { db, type Executor } from "@/db";
-import type { AllergyAnswers } from "@/lib/clinical";
+import type { AllergyAnswers, TwocOutcome } from "@/lib/clinical";
 import {
   careTeam,
   catheterEpisodes,
@@ -214,6 +214,25 @@ export async function closeTrialWithoutCatheter({ episodeId }: { episodeId: stri
   await tx.update(catheterEpisodes).set({ awaitingTwoc: false }).where(eq(catheterEpisodes.id, episodeId));
 }
 
+/** The trial planned for a catheter in place (day and medicine note); a null day clears the plan. */
+export async function setTwocPlan({ episodeId, plannedOn, medicineNote }: { episodeId: string; plannedOn: string | null; medicineNote: string | null }, tx: Executor) {
+  await tx
+    .update(catheterEpisodes)
+    .set({ twocPlannedOn: plannedOn, twocMedicineNote: plannedOn ? medicineNote : null, awaitingTwoc: plannedOn !== null })
+    .where(eq(catheterEpisodes.id, episodeId));
+}
+
+/**
+ * Discharge from the catheter caseload after a passed trial (the follow-up review day), or back
+ * on it (both null) when a catheter goes in again.
+ */
+export async function setCatheterDischarge(
+  { patientId, dischargedAt, followUpReviewOn }: { patientId: string; dischargedAt: Date | null; followUpReviewOn: string | null },
+  tx: Executor,
+) {
+  await tx.update(patients).set({ catheterDischargedAt: dischargedAt, followUpReviewOn }).where(eq(patients.id, patientId));
+}
+
 export async function insertEpisodeEvent({ values }: { values: NewEpisodeEvent }, tx: Executor) {
   const [row] = await tx.insert(episodeEvents).values(values).returning({ id: episodeEvents.id });
   return row.id;
@@ -252,9 +271,9 @@ export async function listOverdueTrials({ removedBy }: { removedBy: Date }, tx: 
   return result.rows.map((r) => ({ episodeId: r.id, patientId: r.patient_id, removedAt: new Date(r.removed_at) }));
 }
 
-export type LastRemoval = { removedAt: string; trial: "passed" | "failed" | "under-way" | null };
+export type LastRemoval = { removedAt: string; trial: TwocOutcome | "under-way" | null };
 
-type LastRemovalRow = { removed_at: string | Date | null; awaiting_twoc: boolean | null; twoc_outcome: "passed" | "failed" | null };
+type LastRemovalRow = { removed_at: string | Date | null; awaiting_twoc: boolean | null; twoc_outcome: TwocOutcome | null };
 
 /**
  * The patient's last catheter (in place or not) with its removal time and its trial's latest
@@ -274,7 +293,7 @@ export function toLastRemoval(row: LastRemovalRow | undefined): LastRemoval | nu
 
 /** With no catheter in place, the last one's removal and its trial's outcome (device card, portal). */
 export async function getLastRemoval({ patientId }: { patientId: string }, tx: Executor = db): Promise<LastRemoval | null> {
-  const result = await tx.execute<{ last_removed_at: string | null; last_awaiting_twoc: boolean | null; last_twoc_outcome: "passed" | "failed" | null }>(lastRemovalQuery(sql`${patientId}::uuid`));
+  const result = await tx.execute<{ last_removed_at: string | null; last_awaiting_twoc: boolean | null; last_twoc_outcome: TwocOutcome | null }>(lastRemovalQuery(sql`${patientId}::uuid`));
   const row = result.rows[0];
   return row ? toLastRemoval({ removed_at: row.last_removed_at, awaiting_twoc: row.last_awaiting_twoc, twoc_outcome: row.last_twoc_outcome }) : null;
 }

@@ -6,6 +6,7 @@ import { catheterEpisodes, episodeEvents, observations, organisations, patients 
 import { getCareTeamOrganisations } from "@/db/queries/mail-context";
 import { alertTeams } from "@/lib/records/alert-team";
 import type { FhirInput } from "@/lib/fhir/export";
+import { twocResult } from "@/lib/shared/twoc-result";
 
 export async function getFhirExportData({ patientId }: { patientId: string }, tx: Executor = db): Promise<Omit<FhirInput, "identifierSystem" | "now"> | null> {
   const [p] = await tx
@@ -21,7 +22,7 @@ export async function getFhirExportData({ patientId }: { patientId: string }, tx
     .from(patients)
     .where(eq(patients.id, patientId));
   if (!p) return null;
-  const [episodes, obs, visits, team, lead] = await Promise.all([
+  const [episodes, obs, visits, team, lead, trials] = await Promise.all([
     tx
       .select({
         id: catheterEpisodes.id,
@@ -54,12 +55,27 @@ export async function getFhirExportData({ patientId }: { patientId: string }, tx
     getCareTeamOrganisations({ patientId }, tx),
     // The lead team is the one alerts go to (lib/records/alert-team.ts).
     alertTeams({ patientId }, tx),
+    tx
+      .select({
+        id: episodeEvents.id,
+        episodeId: episodeEvents.episodeId,
+        occurredAt: episodeEvents.occurredAt,
+        outcome: episodeEvents.twocOutcome,
+        details: episodeEvents.details,
+        recordedByName: episodeEvents.recordedByName,
+      })
+      .from(episodeEvents)
+      .where(and(eq(episodeEvents.patientId, patientId), eq(episodeEvents.kind, "twoc_outcome")))
+      .orderBy(asc(episodeEvents.occurredAt)),
   ]);
   const leadIds = new Set(lead.map((o) => o.id));
   return {
     patient: p,
     episodes,
     visits,
+    trials: trials.flatMap((t) =>
+      t.outcome ? [{ id: t.id, episodeId: t.episodeId, occurredAt: t.occurredAt, outcome: t.outcome, result: twocResult(t.details), recordedByName: t.recordedByName }] : [],
+    ),
     careTeam: team.map((o) => ({ id: o.id, name: o.name, lead: leadIds.has(o.id) })),
     observations: obs.map((o) => ({
       id: o.id,

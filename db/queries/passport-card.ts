@@ -4,7 +4,7 @@ import "server-only";
 // stays quick under load.
 import { sql, type SQL } from "drizzle-orm";
 import { db, type Executor } from "@/db";
-import type { AllergyAnswers } from "@/lib/clinical";
+import type { AllergyAnswers, TwocOutcome } from "@/lib/clinical";
 import { catheterEpisodes, visitAccess } from "@/db/schema";
 import { settingFromJson } from "@/lib/config/settings";
 import { countAttemptQuery } from "./attempt-counters";
@@ -71,7 +71,7 @@ type CardRow = {
   s_region: string | null;
   last_removed_at: string | null;
   last_awaiting_twoc: boolean | null;
-  last_twoc_outcome: "passed" | "failed" | null;
+  last_twoc_outcome: TwocOutcome | null;
 };
 
 /**

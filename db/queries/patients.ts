@@ -24,6 +24,9 @@ export type PatientDetails = {
   latestCheckInLevel: Patient["latestCheckInLevel"];
   latestCheckInAt: string | null;
   hasPortalAccount: boolean;
+  /** Discharged from the catheter caseload after a passed trial, with the follow-up review day. */
+  catheterDischargedAt: string | null;
+  followUpReviewOn: string | null;
 };
 
 export type CurrentEpisode = Omit<
@@ -66,6 +69,8 @@ function toDetails(
     latestCheckInLevel: p.latestCheckInLevel ?? null,
     latestCheckInAt: p.latestCheckInAt ? p.latestCheckInAt.toISOString() : null,
     hasPortalAccount: Boolean(p.userId),
+    catheterDischargedAt: p.catheterDischargedAt ? p.catheterDischargedAt.toISOString() : null,
+    followUpReviewOn: p.followUpReviewOn ?? null,
   };
 }
 

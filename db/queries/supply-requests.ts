@@ -2,7 +2,11 @@ import "server-only";
 import { desc, eq } from "drizzle-orm";
 import { db, type Executor } from "@/db";
 import { outboundMessages, supplyRequests, type NewSupplyRequest } from "@/db/schema";
-import { parseIsoDate } from "@/lib/clinical";
+import { parseIsoDate, supplyChangeInterval } from "@/lib/clinical";
+import { blockagePatternOf } from "@/lib/shared/blockage-interval";
+import { deploymentTimeZone, todayIso } from "@/lib/shared/time-zone";
+import { listEpisodeEndings } from "./episodes";
+import { getSpareCatheters } from "@/lib/config/settings";
 import { getActiveEpisode, getOrganisation, getPatientForMail } from "./mail-context";
 
 /** What a supply request starts from: the catheter in place, its planned change interval, the GP. */
@@ -12,11 +16,21 @@ export async function getSupplyContext({ patientId }: { patientId: string }, tx:
   const episode = await getActiveEpisode({ patientId }, tx);
   const gp = patient.gpPracticeId ? await getOrganisation({ id: patient.gpPracticeId }, tx) : null;
   let changeIntervalDays: number | null = null;
+  let plannedIntervalDays: number | null = null;
+  let firstChangeInDays: number | null = null;
   if (episode) {
     const inserted = parseIsoDate("insertedOn", episode.insertedAt.toISOString().slice(0, 10));
-    changeIntervalDays = Math.max(1, parseIsoDate("plannedChangeOn", episode.plannedChangeOn) - inserted);
+    plannedIntervalDays = Math.max(1, parseIsoDate("plannedChangeOn", episode.plannedChangeOn) - inserted);
+    // Supplies follow the real next change day and, when the catheters block sooner, the
+    // blockage pattern's interval (lib/clinical supplyChangeInterval).
+    const pattern = blockagePatternOf(await listEpisodeEndings({ patientId }, tx), deploymentTimeZone(), episode.maxDwellDays ?? undefined);
+    changeIntervalDays = supplyChangeInterval(plannedIntervalDays, pattern?.suggestedIntervalDays);
+    // The next change: the planned day, or sooner when the blockage interval from insertion comes first.
+    const today = parseIsoDate("today", todayIso());
+    const next = Math.min(parseIsoDate("plannedChangeOn", episode.plannedChangeOn), inserted + changeIntervalDays);
+    firstChangeInDays = Math.min(366, Math.max(0, next - today));
   }
-  return { patient, episode, gp, changeIntervalDays };
+  return { patient, episode, gp, changeIntervalDays, plannedIntervalDays, firstChangeInDays, spareCatheters: await getSpareCatheters(tx) };
 }
 
 export async function insertSupplyRequest({ values }: { values: NewSupplyRequest }, tx: Executor = db) {

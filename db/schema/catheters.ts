@@ -62,6 +62,10 @@ export const catheterEpisodes = pgTable(
     findings: jsonb("findings").$type<unknown[]>().notNull().default(sql`'[]'::jsonb`),
     overrides: jsonb("overrides").$type<{ code: string; reason: string }[]>().notNull().default(sql`'[]'::jsonb`),
     awaitingTwoc: boolean("awaiting_twoc").notNull().default(false),
+    // The trial without catheter planned for this catheter: the day, and any medicine given
+    // before it (for example an alpha-blocker), as the nurse wrote it.
+    twocPlannedOn: date("twoc_planned_on"),
+    twocMedicineNote: text("twoc_medicine_note"),
     removedAt: timestamp("removed_at", { withTimezone: true }),
     removalReason: text("removal_reason"),
     ...timestamps,

@@ -36,6 +36,10 @@ export const patients = pgTable(
     latestCheckInLevel: text("latest_check_in_level", { enum: ["emergency", "urgent", "soon", "self-care"] }),
     latestCheckInAt: timestamp("latest_check_in_at", { withTimezone: true }),
     closedAt: timestamp("closed_at", { withTimezone: true }),
+    // Discharged from the catheter caseload after a passed trial without catheter, to be seen
+    // again on the follow-up review day; cleared when a catheter goes back in.
+    catheterDischargedAt: timestamp("catheter_discharged_at", { withTimezone: true }),
+    followUpReviewOn: date("follow_up_review_on"),
     ...timestamps,
   },
   (t) => [
@@ -43,6 +47,7 @@ export const patients = pgTable(
     index("patients_family_name_idx").on(sql`lower(${t.familyName})`),
     index("patients_gp_idx").on(t.gpPracticeId),
     check("patients_weight_ck", sql`${t.weightKg} is null or (${t.weightKg} > 0 and ${t.weightKg} < 500)`),
+    check("patients_follow_up_ck", sql`${t.followUpReviewOn} is null or ${t.catheterDischargedAt} is not null`),
     check("patients_fluid_limit_ck", sql`${t.fluidLimitMl} is null or ${t.fluidLimitMl} > 0`),
     check(
       "patients_allergy_answers_ck",

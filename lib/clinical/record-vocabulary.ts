@@ -21,10 +21,16 @@ export type UnplannedReason = (typeof UNPLANNED_REASONS)[number];
 
 export const REMOVAL_REASONS = ["no-longer-needed", "trial-without-catheter", "problem", "patient-choice", "other"] as const;
 
-/** A trial without catheter (TWOC): passed, or failed and what was done. */
-export const TWOC_OUTCOMES = ["passed", "failed"] as const;
+/**
+ * A trial without catheter (TWOC): passed, failed, or abandoned before it could be judged (the
+ * patient unwell, declined to go on, had to leave); a failed or abandoned trial says what was done.
+ */
+export const TWOC_OUTCOMES = ["passed", "failed", "abandoned"] as const;
 export type TwocOutcome = (typeof TWOC_OUTCOMES)[number];
 export const TWOC_FAILED_ACTIONS = ["re-catheterised", "intermittent-self-catheterisation", "referred", "other"] as const;
+/** What the patient felt during the trial (none ticked: none reported). */
+export const TWOC_SYMPTOMS = ["urgency", "frequency", "pain-passing-urine", "lower-tummy-pain", "feels-not-empty", "leaking", "blood-in-urine", "fever"] as const;
+export type TwocSymptom = (typeof TWOC_SYMPTOMS)[number];
 
 /**
  * What stays on the care team's caseload until someone deals with it: an urgent or emergency

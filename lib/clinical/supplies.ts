@@ -15,6 +15,12 @@ export const BAG_INTERVALS = {
 export interface SupplyPlan {
   /** Planned catheter change interval in days (from planDates or blockagePattern). */
   changeIntervalDays: number;
+  /**
+   * Days from the start of the period to the catheter's next planned change (0: today). When
+   * given, catheters are counted on the real change days (that day, then every interval)
+   * instead of as if the catheter had just gone in.
+   */
+  firstChangeInDays?: number;
   /** Defaults: leg bag yes, valve no, night bag yes, gel yes, 1 spare catheter. */
   legBag?: boolean;
   valve?: boolean;
@@ -45,6 +51,17 @@ export interface SupplyList {
 }
 
 /**
+ * The change interval to plan supplies on: the planned interval, or the blockage pattern's
+ * shorter one when the patient's catheters block sooner (a patient who blocks every three weeks
+ * needs a catheter every three weeks, not every 84 days). Common practice, no source.
+ */
+export function supplyChangeInterval(plannedIntervalDays: number, blockageIntervalDays?: number | null): number {
+  const planned = requireNumber("plannedIntervalDays", plannedIntervalDays, 1, 366);
+  const blockage = blockageIntervalDays === null ? undefined : optionalNumber("blockageIntervalDays", blockageIntervalDays, 1, 366);
+  return blockage !== undefined && blockage < planned ? blockage : planned;
+}
+
+/**
  * Supplies for `days` days: catheters per planned change plus spares (common practice),
  * one gel per catheter, leg bags and valves every 7 days, one night bag per night.
  * Local policy, the maker's instructions and clinical judgement come first.
@@ -62,8 +79,12 @@ export function suppliesFor(plan: SupplyPlan, days: number): SupplyList {
   const useNightBag = optionalBoolean("nightBag", plan.nightBag) ?? true;
   const useGel = optionalBoolean("gel", plan.gel) ?? true;
 
+  const first = optionalNumber("firstChangeInDays", plan.firstChangeInDays, 0, 366);
+  if (first !== undefined && !Number.isInteger(first)) throw new ClinicalInputError("firstChangeInDays", "invalid", "must be whole days");
+
   const lines: SupplyLine[] = [];
-  const catheters = Math.ceil(days / change);
+  // Changes on days first, first + change, … that fall inside the period (days 0 to days − 1).
+  const catheters = first === undefined ? Math.ceil(days / change) : first < days ? 1 + Math.floor((days - 1 - first) / change) : 0;
   lines.push({ item: "catheter", quantity: catheters + spares, intervalDays: change, spares, source: "common-practice" });
   if (useLegBag) {
     lines.push({ item: "leg-bag", quantity: Math.ceil(days / legBagDays), intervalDays: legBagDays, spares: 0, source: BAG_INTERVALS.legBagDays.source });

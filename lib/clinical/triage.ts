@@ -24,6 +24,13 @@ export interface CheckInAnswers {
   suprapubicSiteRed?: boolean;
   /** Not a symptom: lets the rules add route-specific reasons (suprapubic catheter out). */
   route?: Route;
+  /**
+   * Not a symptom: the catheter has been taken out (a trial without catheter, or a removal) and
+   * none is in place; the check-in then asks how the person passes urine instead of how it drains.
+   */
+  afterCatheter?: boolean;
+  /** After the catheter: passing urine as usual, only a little at a time, not at all, or not sure. */
+  passingUrine?: "yes" | "little" | "none" | "not-sure";
 }
 
 /** A stable key plus plain English (reading grade ≤ 6, addressed to "you"). Translate by key. */
@@ -77,6 +84,7 @@ const ADVICE = {
   noReinsert: { key: "no-reinsert", text: "Do not try to put the catheter back in." },
   bowels: { key: "bowels", text: "Eat fibre and drink well. Ask about a laxative." },
   notAlone: { key: "not-alone", text: "Do not stay on your own if you can help it." },
+  noWait: { key: "no-wait", text: "Do not wait until tomorrow." },
 } as const satisfies Record<string, Phrase>;
 
 const LEVEL_ADVICE: Record<TriageLevel, Phrase> = {
@@ -135,6 +143,24 @@ export const TRIAGE_RULES: readonly TriageRule[] = [
     reason: { key: "less-drainage-severe-pain", text: "Less urine is draining and you have bad pain." },
     advice: [ADVICE.checkTube, ADVICE.bagLow], when: (a) => a.draining === "less" && a.pain === "severe",
   },
+  // After the catheter came out, retention is the danger: not passing urine needs help the same
+  // day, and an answer of "not sure" is treated the same way (escalate when in doubt). Common
+  // practice, no source (NHS trusts' trial-without-catheter leaflets give the same advice).
+  {
+    id: "TRIAGE-AFTER-NO-URINE", level: "urgent", source: "common-practice",
+    reason: { key: "after-no-urine", text: "You cannot pass urine since the catheter came out." },
+    advice: [ADVICE.noWait], when: (a) => a.afterCatheter === true && a.passingUrine === "none",
+  },
+  {
+    id: "TRIAGE-AFTER-NOT-SURE", level: "urgent", source: "common-practice",
+    reason: { key: "after-not-sure", text: "You are not sure you are passing urine." },
+    advice: [ADVICE.noWait], when: (a) => a.afterCatheter === true && a.passingUrine === "not-sure",
+  },
+  {
+    id: "TRIAGE-AFTER-LITTLE-PAIN", level: "urgent", source: "common-practice",
+    reason: { key: "after-little-pain", text: "You pass only a little urine and you have pain." },
+    advice: [ADVICE.noWait], when: (a) => a.afterCatheter === true && a.passingUrine === "little" && a.pain !== "none",
+  },
   {
     id: "TRIAGE-CATHETER-OUT-SUPRAPUBIC", level: "urgent", source: "common-practice",
     reason: { key: "suprapubic-out", text: "Your tummy catheter came out. The hole starts to close within hours. A nurse must put in a new one soon." },
@@ -174,6 +200,11 @@ export const TRIAGE_RULES: readonly TriageRule[] = [
     id: "TRIAGE-LESS-DRAINAGE", level: "soon", source: "common-practice",
     reason: { key: "less-drainage", text: "Less urine is draining than usual." },
     advice: [ADVICE.checkTube, ADVICE.bagLow, ADVICE.drink], when: (a) => a.draining === "less",
+  },
+  {
+    id: "TRIAGE-AFTER-LITTLE", level: "soon", source: "common-practice",
+    reason: { key: "after-little", text: "You pass only a little urine at a time." },
+    advice: [ADVICE.drink], when: (a) => a.afterCatheter === true && a.passingUrine === "little",
   },
   {
     id: "TRIAGE-MILD-PAIN", level: "soon", source: "common-practice",
@@ -227,8 +258,10 @@ function validate(answers: CheckInAnswers): CheckInAnswers {
     temperatureC: optionalNumber("temperatureC", answers.temperatureC, 25, 45),
     blood: optionalOneOf("blood", answers.blood, ["none", "pink", "red", "clots"] as const),
     route: optionalOneOf("route", answers.route, ROUTES),
+    passingUrine: optionalOneOf("passingUrine", answers.passingUrine, ["yes", "little", "none", "not-sure"] as const),
   };
   for (const field of [
+    "afterCatheter",
     "shivering", "newConfusion", "feelsVeryUnwell", "breathless", "leaking",
     "catheterOut", "cloudyOrSmelly", "sediment", "constipated", "suprapubicSiteRed",
   ] as const) {

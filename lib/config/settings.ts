@@ -4,7 +4,7 @@ import "server-only";
 // says so (e.g. the portal says the emergency number is not configured).
 import type { Executor } from "@/db";
 import { readSettingRows, writeSettings } from "@/db/queries/settings";
-import { planDefaults, TWOC_DEFAULTS, type Material, type PlanDatesOptions, type PlanDefaults } from "@/lib/clinical";
+import { BAG_INTERVALS, planDefaults, TWOC_DEFAULTS, type Material, type PlanDatesOptions, type PlanDefaults } from "@/lib/clinical";
 import { DEFAULT_REFERRAL_REMINDER_HOURS } from "@/lib/shared/referrals";
 import { settingKeys, settingSchemas, type SettingsPatch, type TranslatedLocale, type TranslationReview } from "@/lib/validations/settings";
 import { DEFAULT_WORKING_HOURS, minutesOfClock, type WorkingHours } from "@/lib/shared/working-hours";
@@ -35,6 +35,7 @@ export type DeploymentSettings = {
   translationReviews: Partial<Record<TranslatedLocale, TranslationReview>>;
   /** Hours after a removal for a trial by which the patient should have passed urine; null → the default. */
   twocVoidWindowHours: number | null;
+  spareCatheters: number | null;
 };
 
 /** Two hours of working time (the default the care teams asked for; common practice, no source). */
@@ -77,6 +78,7 @@ export async function getSettings(tx?: Executor): Promise<DeploymentSettings> {
     referralReminderHours: get("referralReminderHours") as number | null,
     translationReviews: (get("translationReviews") as Partial<Record<TranslatedLocale, TranslationReview>> | null) ?? {},
     twocVoidWindowHours: get("twocVoidWindowHours") as number | null,
+    spareCatheters: get("spareCatheters") as number | null,
   };
 }
 
@@ -124,6 +126,11 @@ export async function getTwocVoidWindowHours(tx?: Executor): Promise<number> {
 export async function getCaseloadWindows(tx?: Executor): Promise<{ dueSoonDays: number; twocWindowHours: number }> {
   const s = await getSettings(tx);
   return { dueSoonDays: planDefaults(planDatesOptions(s)).dueSoonDays, twocWindowHours: s.twocVoidWindowHours ?? TWOC_DEFAULTS.voidWindowHours.value };
+}
+
+/** Spare catheters in a supply request (setting, else lib/clinical's default of one, common practice). */
+export async function getSpareCatheters(tx?: Executor): Promise<number> {
+  return (await getSettings(tx)).spareCatheters ?? BAG_INTERVALS.spareCatheters.value;
 }
 
 /** Options for lib/clinical `planDates` from the deployment settings. */

@@ -183,6 +183,8 @@ export function gpSummaryContent(facts: GpSummaryFacts, locale: string, region: 
       const result = twocResult(facts.event.details);
       rows.push({ label: t("gp.twocVoids"), value: result.voids.length ? t("gp.twocVoidsValue", { list: voidsText(result, (n) => `${n} ml`), total: result.totalVoidedMl }) : t("gp.twocNoVoids") });
       if (result.postVoidResidualMl !== null) rows.push({ label: t("gp.twocResidual"), value: `${result.postVoidResidualMl} ml` });
+      if (result.symptoms.length) rows.push({ label: t("gp.twocSymptoms"), value: result.symptoms.map((s) => v(`twocSymptom.${s}`)).join(", ") });
+      if (result.reason) rows.push({ label: t("gp.twocReason"), value: result.reason });
       if (result.failedAction) rows.push({ label: t("gp.twocAction"), value: v(`failedAction.${result.failedAction}`) });
     }
     const reason = facts.previous?.removalReason;

@@ -33,6 +33,9 @@ export async function queueSupplyRequestEmail(
   const v = emailVocabulary(locale);
   const d = emailDates(locale, await getRegion(tx));
   const team = await getCareTeamOrganisations({ patientId: patient.id }, tx);
+  // The gel named is the one used at the last insertion or change.
+  const itemName = (item: string) =>
+    item === "gel" && episode.gelKind !== "none" ? `${v("supplyItem.gel")}: ${v(`gelKind.${episode.gelKind}`)}` : v(`supplyItem.${item as "gel"}`);
   const basis = (item: string, interval: number) => {
     if (item === "catheter") return t("supply.basisCatheter", { days: interval });
     if (item === "gel") return t("supply.basisGel");
@@ -67,8 +70,12 @@ export async function queueSupplyRequestEmail(
       head: [t("supply.colItem"), t("supply.colQuantity"), t("supply.colBasis")],
       rows: request.items
         .filter((i) => i.quantity > 0)
-        .map((i) => [v(`supplyItem.${i.item}`), String(i.quantity), basis(i.item, i.intervalDays)]),
+        .map((i) => [itemName(i.item), String(i.quantity), basis(i.item, i.intervalDays)]),
     },
+    // What a planned trial without catheter in the period would make unnecessary if it passes.
+    ...(episode.twocPlannedOn
+      ? [{ type: "paragraph" as const, text: t("supply.afterTrial", { date: d.day(episode.twocPlannedOn) }) }]
+      : []),
     { type: "heading", text: t("supply.specHeading") },
     {
       type: "facts",

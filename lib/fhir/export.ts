@@ -7,7 +7,10 @@ import "server-only";
 // Codes: SNOMED CT 23973005 "Indwelling urinary catheter, device" (HL7 FHIR R4, value set
 // device-kind) and the UK edition of SNOMED CT's 1104051000000101, the NEWS2 total score
 // (NHS England's UK Core FHIR implementation guide uses it for the NEWS2 observation).
-import type { Sex } from "@/lib/clinical";
+// A trial without catheter: one Observation of its outcome (symptoms as components, the reason as
+// a note) with a member Observation per voided volume and one for the post-void residual.
+import type { Sex, TwocOutcome } from "@/lib/clinical";
+import type { TwocResult } from "@/lib/shared/twoc-result";
 
 export type FhirInput = {
   patient: {
@@ -58,6 +61,8 @@ export type FhirInput = {
     temperatureC: number;
     recordedByName: string;
   }[];
+  /** Outcomes of trials without catheter, read with twocResult (lib/shared/twoc-result.ts). */
+  trials?: { id: string; episodeId: string; occurredAt: Date; outcome: TwocOutcome; result: TwocResult; recordedByName: string }[];
   /** The health record number's identifier system (a namespace URI from configuration). */
   identifierSystem: string;
   now?: Date;
@@ -87,6 +92,13 @@ const VITALS = [
   { key: "temperatureC", code: "8310-5", display: "Body temperature", unit: "°C", ucum: "Cel" },
 ] as const;
 const urn = (id: string) => `urn:uuid:${id}`;
+
+// Source: LOINC 9187-6 "Urine output" (volume of urine, in mL), from memory; UCUM mL. No LOINC
+// code for a post-void residual measured by bladder scan could be confirmed, so that one is coded
+// by text only (FHIR allows a CodeableConcept with text alone).
+const URINE_VOLUME = { system: LOINC, code: "9187-6", display: "Urine output" } as const;
+const ML = (value: number) => ({ value, unit: "ml", system: UCUM, code: "mL" });
+const TWOC_OUTCOME_TEXT: Record<TwocOutcome, string> = { passed: "Passed", failed: "Failed", abandoned: "Abandoned" };
 
 const SUBSCORE_TEXT: Record<string, string> = {
   respirationRate: "NEWS2 respiration rate score",
@@ -247,6 +259,60 @@ export function buildFhirBundle(input: FhirInput) {
         effectiveDateTime: o.takenAt.toISOString(),
         performer: [{ display: o.recordedByName }],
         valueCodeableConcept: { text: o.consciousness },
+      },
+    });
+  }
+  for (const trial of input.trials ?? []) {
+    const r = trial.result;
+    const base = {
+      status: "final",
+      subject: patientRef,
+      focus: [{ reference: urn(trial.episodeId) }],
+      effectiveDateTime: trial.occurredAt.toISOString(),
+      performer: [{ display: trial.recordedByName }],
+    };
+    const members: string[] = [];
+    r.voids.forEach((v, i) => {
+      const id = childId(trial.id, i + 1);
+      members.push(id);
+      entries.push({
+        fullUrl: urn(id),
+        resource: {
+          resourceType: "Observation",
+          id,
+          ...base,
+          code: { coding: [URINE_VOLUME], text: `Voided volume ${i + 1} (trial without catheter)` },
+          valueQuantity: ML(v.volumeMl),
+          ...(v.at ? { note: [{ text: `Passed at ${v.at} (local time)` }] } : {}),
+        },
+      });
+    });
+    if (r.postVoidResidualMl !== null) {
+      const id = childId(trial.id, 30);
+      members.push(id);
+      entries.push({
+        fullUrl: urn(id),
+        resource: {
+          resourceType: "Observation",
+          id,
+          ...base,
+          code: { text: "Post-void residual urine volume (bladder scan)" },
+          valueQuantity: ML(r.postVoidResidualMl),
+        },
+      });
+    }
+    const notes = [r.reason ? `Reason: ${r.reason}` : null, r.failedAction ? `What was done: ${r.failedAction}` : null].filter((n): n is string => n !== null);
+    entries.push({
+      fullUrl: urn(trial.id),
+      resource: {
+        resourceType: "Observation",
+        id: trial.id,
+        ...base,
+        code: { text: "Trial without catheter (TWOC) outcome" },
+        valueCodeableConcept: { text: TWOC_OUTCOME_TEXT[trial.outcome] },
+        ...(members.length ? { hasMember: members.map((id) => ({ reference: urn(id) })) } : {}),
+        ...(r.symptoms.length ? { component: r.symptoms.map((s) => ({ code: { text: "Symptom during the trial" }, valueString: s })) } : {}),
+        ...(notes.length ? { note: notes.map((text) => ({ text })) } : {}),
       },
     });
   }

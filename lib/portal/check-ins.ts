@@ -3,6 +3,7 @@ import "server-only";
 // never trusted), stores the rule ids, keeps the caseload's latest level, and for urgent or
 // emergency results alerts the care team, all in one transaction. The idempotency key makes a
 // resend (an offline phone, a double tap) return the first result without a second row.
+import { getLastRemoval } from "@/db/queries/episodes";
 import { getActiveRoute, getCheckInByKey, insertCheckIn, setLatestCheckIn, toCheckInDto, type CheckInDto } from "@/db/queries/check-ins";
 import type { Executor } from "@/db";
 import type { PatientAccessVia } from "@/db/queries/access";
@@ -38,7 +39,9 @@ export async function submitCheckIn({
   const answered: Date | null = answeredAt ? new Date(answeredAt) : null;
 
   const route = await getActiveRoute({ patientId });
-  const scored = scoreAnswers(answers, route);
+  // No catheter in place and one has come out: the check-in after the catheter (the record decides, not the phone).
+  const afterCatheter = route === null && (await getLastRemoval({ patientId })) !== null;
+  const scored = scoreAnswers(answers, route, afterCatheter);
   if (!scored) {
     throw new AppError("validation_failed", "Please answer every question.", {
       fields: { answers: ["The check-in is not finished: how the catheter drains and pain are needed."] },

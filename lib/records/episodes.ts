@@ -13,6 +13,8 @@ import {
   insertEpisode,
   insertEpisodeEvent,
   organisationForRecord,
+  setCatheterDischarge,
+  setTwocPlan,
   toEpisodeDto,
   type EpisodeDto,
   type PatientForRecording,
@@ -25,7 +27,7 @@ import { reconcileOverrides, runDeviceCheck } from "@/lib/shared/episode-checks"
 import { AppError } from "@/lib/http/errors";
 import { openPatientRecord } from "@/lib/records/patient-record";
 import { assertRecordOpen } from "@/lib/records/record-state";
-import type { ChangeInput, DeviceCheckInput, InsertionInput, RemovalInput, TwocInput } from "@/lib/validations/episode";
+import type { ChangeInput, DeviceCheckInput, InsertionInput, RemovalInput, TwocInput, TwocPlanInput } from "@/lib/validations/episode";
 import { dayIn, deploymentTimeZone } from "@/lib/shared/time-zone";
 
 type Ctx = { viewer: Viewer; patientId: string; request: Request };
@@ -153,8 +155,10 @@ export async function recordInsertion(ctx: Ctx, input: InsertionInput): Promise<
       { values: episodeValues(input, ctx, { organisationId, previousEpisodeId: latest?.id ?? null, findings, overrides, timeZone, planning: await getPlanDefaults(tx) }) },
       tx,
     );
-    // A catheter that went back in after a trial without catheter ends that trial.
+    // A catheter that went back in after a trial without catheter ends that trial, and puts a
+    // patient discharged after an earlier trial back on the catheter caseload.
     if (latest?.awaitingTwoc) await closeTrialWithoutCatheter({ episodeId: latest.id }, tx);
+    await setCatheterDischarge({ patientId: ctx.patientId, dischargedAt: null, followUpReviewOn: null }, tx);
     const eventId = await insertEpisodeEvent(
       {
         values: {
@@ -291,7 +295,9 @@ export async function recordTwoc(ctx: Ctx, input: TwocInput): Promise<RecordedTw
     if (occurredAt < trial.removedAt!) {
       throw new AppError("validation_failed", undefined, { fields: { occurredAt: ["before_removal"] } });
     }
+    if (input.followUpReviewOn) assertWithinYear(input.followUpReviewOn, "followUpReviewOn", "follow_up_range");
     await closeTrialWithoutCatheter({ episodeId: trial.id }, tx);
+    if (input.discharge) await setCatheterDischarge({ patientId: ctx.patientId, dischargedAt: occurredAt, followUpReviewOn: input.followUpReviewOn! }, tx);
     const totalVoidedMl = input.voids.reduce((sum, v) => sum + v.volumeMl, 0);
     const organisationId = await organisationForRecord({ patientId: ctx.patientId, organisationIds: ctx.viewer.organisationIds }, tx);
     const eventId = await insertEpisodeEvent(
@@ -311,7 +317,10 @@ export async function recordTwoc(ctx: Ctx, input: TwocInput): Promise<RecordedTw
             voids: input.voids.map((v) => ({ at: v.at ?? null, volumeMl: v.volumeMl })),
             totalVoidedMl,
             postVoidResidualMl: input.postVoidResidualMl ?? null,
+            symptoms: input.symptoms,
+            reason: input.reason ?? null,
             failedAction: input.failedAction ?? null,
+            followUpReviewOn: input.followUpReviewOn ?? null,
           },
         },
       },
@@ -324,8 +333,28 @@ export async function recordTwoc(ctx: Ctx, input: TwocInput): Promise<RecordedTw
       eventId,
       outcome: input.outcome,
       totalVoidedMl,
-      next: input.outcome === "failed" && input.failedAction === "re-catheterised" ? "insertion" : null,
+      next: input.outcome !== "passed" && input.failedAction === "re-catheterised" ? "insertion" : null,
     };
+  });
+}
+
+/** A day from today to a year ahead in the deployment's zone, else the field's error (plain ISO dates compare as strings). */
+function assertWithinYear(day: string, field: string, code: string) {
+  const today = dayIn(new Date(), deploymentTimeZone());
+  const yearOn = `${Number(today.slice(0, 4)) + 1}${today.slice(4)}`;
+  if (day < today || day > yearOn) throw new AppError("validation_failed", undefined, { fields: { [field]: [code] } });
+}
+
+/** Plan (or clear) the trial without catheter of the catheter in place: its day and any medicine given before it. */
+export async function planTwoc(ctx: Ctx, input: TwocPlanInput): Promise<{ plannedOn: string | null; medicineNote: string | null }> {
+  return db.transaction(async (tx) => {
+    await openForWrite(ctx, "episode.twoc-plan", tx);
+    const active = await getActiveEpisode({ patientId: ctx.patientId }, tx);
+    if (!active) throw new AppError("conflict", "No catheter is in place to plan a trial for.");
+    if (input.plannedOn) assertWithinYear(input.plannedOn, "plannedOn", "plan_range");
+    const plan = { plannedOn: input.plannedOn ?? null, medicineNote: input.plannedOn ? (input.medicineNote ?? null) : null };
+    await setTwocPlan({ episodeId: active.id, ...plan }, tx);
+    return plan;
   });
 }
 

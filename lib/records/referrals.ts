@@ -17,6 +17,7 @@ import {
   setLead,
 } from "@/db/queries/referrals";
 import type { Transaction } from "@/db";
+import { getActiveEpisode, setTwocPlan } from "@/db/queries/episodes";
 import type { Viewer } from "@/lib/auth/session";
 import { queueReferralMail } from "@/lib/email/referral-mail";
 import { AppError, pgConstraint } from "@/lib/http/errors";
@@ -45,6 +46,11 @@ export async function recordDischargeChecklist(
   tx: Transaction,
 ) {
   const row = await insertDischargeChecklist({ patientId, referralId, userId: viewer.userId, userName: viewer.name, organisationId, values }, tx);
+  // The checklist's planned trial becomes the plan of the catheter in place (its medicine note kept).
+  if (values.plannedTwocOn) {
+    const active = await getActiveEpisode({ patientId }, tx);
+    if (active) await setTwocPlan({ episodeId: active.id, plannedOn: values.plannedTwocOn, medicineNote: active.twocMedicineNote }, tx);
+  }
   const notDone = { taughtMissing: values.taught.length, suppliesGiven: values.suppliesGiven, portalActivationGiven: values.portalActivationGiven };
   await audit({ action: "discharge-checklist.record", actor: viewer, patientId, via: "care_team", request, details: { checklistId: row.id, referralId, ...notDone } }, tx);
   return row;

@@ -4,8 +4,8 @@
 // the order of the questions and what an unfinished check-in may be scored as.
 import { triageCheckIn, type CheckInAnswers, type Route, type TriageResult } from "@/lib/clinical";
 
-/** What the phone sends: triageCheckIn's answers, without `route` (the server takes it from the record). */
-export type SubmittedAnswers = Partial<Omit<CheckInAnswers, "route">>;
+/** What the phone sends: triageCheckIn's answers, without `route` and `afterCatheter` (the server takes them from the record). */
+export type SubmittedAnswers = Partial<Omit<CheckInAnswers, "route" | "afterCatheter">>;
 
 export type OtherSymptom = "leaking" | "cloudyOrSmelly" | "sediment" | "constipated" | "suprapubicSiteRed";
 
@@ -14,6 +14,7 @@ export type Question =
   | { id: "temperatureC"; kind: "temperature" }
   | { id: "draining"; kind: "choice"; options: readonly ["yes", "less", "none"] }
   | { id: "hoursWithoutUrine"; kind: "choice"; options: readonly HoursBand[] }
+  | { id: "passingUrine"; kind: "choice"; options: readonly ["yes", "little", "none", "not-sure"] }
   | { id: "pain"; kind: "choice"; options: readonly ["none", "mild", "severe"] }
   | { id: "blood"; kind: "choice"; options: readonly ["none", "pink", "red", "clots"] }
   | { id: "other"; kind: "many"; options: readonly OtherSymptom[] };
@@ -38,7 +39,21 @@ export const TEMPERATURE_RANGE = { min: 30, max: 44 } as const;
  * The screens in order. Red flags first (NICE NG51 signs that mean "emergency"), so that an
  * emergency answer goes straight to the result; then drainage, pain, blood and the rest.
  */
-export function questionsFor(route: Route | null): Question[] {
+export function questionsFor(route: Route | null, afterCatheter = false): Question[] {
+  // After the catheter: how the person passes urine replaces the catheter's questions; the
+  // catheter's other symptoms (leaking around it, bits in the bag, the tummy site) do not apply.
+  if (afterCatheter) {
+    return [
+      { id: "newConfusion", kind: "yes-no" },
+      { id: "breathless", kind: "yes-no" },
+      { id: "feelsVeryUnwell", kind: "yes-no" },
+      { id: "shivering", kind: "yes-no" },
+      { id: "temperatureC", kind: "temperature" },
+      { id: "passingUrine", kind: "choice", options: ["yes", "little", "none", "not-sure"] as const },
+      { id: "pain", kind: "choice", options: ["none", "mild", "severe"] as const },
+      { id: "blood", kind: "choice", options: ["none", "pink", "red", "clots"] as const },
+    ];
+  }
   const other: OtherSymptom[] = ["leaking", "cloudyOrSmelly", "sediment", "constipated"];
   if (route === "suprapubic") other.push("suprapubicSiteRed");
   return [
@@ -72,8 +87,9 @@ export function keepAsked(questions: readonly Question[], answers: SubmittedAnsw
   return Object.fromEntries(Object.entries(answers).filter(([k]) => !dropped.has(k))) as SubmittedAnswers;
 }
 
-/** Pain always; how it drains unless the catheter came out. */
-export function isComplete(answers: SubmittedAnswers): boolean {
+/** Pain always; how it drains unless the catheter came out; after the catheter, how urine passes. */
+export function isComplete(answers: SubmittedAnswers, afterCatheter = false): boolean {
+  if (afterCatheter) return answers.pain !== undefined && answers.passingUrine !== undefined;
   return answers.pain !== undefined && (answers.draining !== undefined || answers.catheterOut === true);
 }
 
@@ -83,12 +99,16 @@ export function isComplete(answers: SubmittedAnswers): boolean {
  * for scoring only: triageCheckIn never lowers the level for a worse answer, so if the mildest
  * fill already scores "emergency", every fill does. Anything else unfinished is not a result.
  */
-export function scoreAnswers(answers: SubmittedAnswers, route: Route | null): { result: TriageResult; complete: boolean } | null {
-  const complete = isComplete(answers);
+export function scoreAnswers(answers: SubmittedAnswers, route: Route | null, afterCatheter = false): { result: TriageResult; complete: boolean } | null {
+  const complete = isComplete(answers, afterCatheter);
+  // After the catheter there is no drainage to score: the catheter's answers are dropped and
+  // "draining" is filled as its mildest value; passing urine is scored instead.
+  const given = afterCatheter ? stripUndefined({ ...answers, draining: undefined, hoursWithoutUrine: undefined, catheterOut: undefined }) : stripUndefined(answers);
   const filled: CheckInAnswers = {
     draining: answers.draining ?? "yes",
     pain: answers.pain ?? "none",
-    ...stripUndefined(answers),
+    ...given,
+    ...(afterCatheter ? { draining: "yes" as const, afterCatheter: true } : {}),
     ...(route ? { route } : {}),
   };
   const result = triageCheckIn(filled);
@@ -97,8 +117,8 @@ export function scoreAnswers(answers: SubmittedAnswers, route: Route | null): { 
 }
 
 /** True when the check-in should stop and show the result now. */
-export function reachesEmergency(answers: SubmittedAnswers, route: Route | null): boolean {
-  return scoreAnswers(answers, route)?.result.level === "emergency";
+export function reachesEmergency(answers: SubmittedAnswers, route: Route | null, afterCatheter = false): boolean {
+  return scoreAnswers(answers, route, afterCatheter)?.result.level === "emergency";
 }
 
 function stripUndefined<T extends object>(o: T): Partial<T> {

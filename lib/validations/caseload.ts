@@ -2,7 +2,7 @@
 import { z } from "zod";
 import { queryInt } from "./number";
 
-export const caseloadFilters = ["overdue", "due-soon", "urgent", "twoc"] as const;
+export const caseloadFilters = ["overdue", "due-soon", "urgent", "twoc", "follow-up"] as const;
 export type CaseloadFilter = (typeof caseloadFilters)[number];
 export const caseloadSorts = ["name", "next-change", "review", "days-inserted"] as const;
 export type CaseloadSort = (typeof caseloadSorts)[number];

@@ -20,6 +20,7 @@ export const checkInAnswersSchema = z.strictObject({
   sediment: z.boolean().optional(),
   constipated: z.boolean().optional(),
   suprapubicSiteRed: z.boolean().optional(),
+  passingUrine: z.enum(["yes", "little", "none", "not-sure"]).optional(),
 });
 
 export const checkInSchema = z.strictObject({

@@ -15,6 +15,7 @@ import {
   ROUTES,
   TWOC_FAILED_ACTIONS,
   TWOC_OUTCOMES,
+  TWOC_SYMPTOMS,
   UNPLANNED_REASONS,
 } from "@/lib/clinical";
 
@@ -193,17 +194,51 @@ export const twocSchema = z
     outcome: choice(TWOC_OUTCOMES),
     voids: z.array(voidSchema).max(20, { error: "too_many" }).default([]),
     postVoidResidualMl: optionalInt(0, 5000, "ml"),
+    /** What the patient felt; a checkbox group sends false when nothing is ticked. */
+    symptoms: z.preprocess(
+      (v) => (v === false || v === null || v === undefined ? [] : typeof v === "string" ? [v] : v),
+      z
+        .array(z.enum(TWOC_SYMPTOMS, { error: "choose_one" }))
+        .max(TWOC_SYMPTOMS.length)
+        .refine((l) => new Set(l).size === l.length, { error: "choose_one" }),
+    ),
+    /** Why the trial failed or was abandoned (required for those). */
+    reason: optionalText(1000),
     failedAction: optionalChoice(TWOC_FAILED_ACTIONS),
     notes: optionalText(1000),
+    /** After a passed trial: the patient leaves the catheter caseload until the follow-up review. */
+    discharge: z.boolean({ error: "choose_one" }).default(false),
+    followUpReviewOn: isoDate,
   })
   .superRefine((v, ctx) => {
+    if (v.discharge && v.outcome !== "passed") ctx.addIssue({ code: "custom", path: ["discharge"], message: "discharge_passed_only" });
+    if (v.discharge && !v.followUpReviewOn) ctx.addIssue({ code: "custom", path: ["followUpReviewOn"], message: "required" });
+    if (!v.discharge && v.followUpReviewOn) ctx.addIssue({ code: "custom", path: ["followUpReviewOn"], message: "discharge_passed_only" });
     if (v.outcome === "failed" && !v.failedAction) {
       ctx.addIssue({ code: "custom", path: ["failedAction"], message: "failed_action_required" });
     }
     if (v.outcome === "passed" && v.failedAction) {
       ctx.addIssue({ code: "custom", path: ["failedAction"], message: "passed_no_action" });
     }
+    if (v.outcome === "abandoned" && !v.reason) ctx.addIssue({ code: "custom", path: ["reason"], message: "required" });
     if (v.failedAction === "other" && !v.notes) ctx.addIssue({ code: "custom", path: ["notes"], message: "notes_required" });
   }, always);
 export type TwocInput = z.infer<typeof twocSchema>;
+
+/**
+ * The trial without catheter planned for the catheter in place: its day (today to a year ahead,
+ * checked on the server in the deployment's zone) and any medicine given before it, as the nurse
+ * writes it. `clear` (and no day) removes the plan.
+ */
+export const twocPlanSchema = z
+  .object({
+    plannedOn: isoDate,
+    medicineNote: optionalText(300),
+    clear: z.boolean({ error: "choose_one" }).default(false),
+  })
+  .superRefine((v, ctx) => {
+    if (!v.clear && !v.plannedOn) ctx.addIssue({ code: "custom", path: ["plannedOn"], message: "required" });
+    if (v.clear && v.plannedOn) ctx.addIssue({ code: "custom", path: ["clear"], message: "choose_one" });
+  }, always);
+export type TwocPlanInput = z.infer<typeof twocPlanSchema>;
 

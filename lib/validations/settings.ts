@@ -55,6 +55,8 @@ export const settingSchemas = {
   translationReviews: z.partialRecord(z.enum(TRANSLATED_LOCALES), translationReviewSchema),
   // Hours after a removal for a trial without catheter by which the patient should have passed urine.
   twocVoidWindowHours: z.preprocess(toNumber, numberIn({ min: 1, max: 24, unit: "hours", whole: true })),
+  // Spare catheters (each with its gel) on top of the planned changes in a supply request.
+  spareCatheters: z.preprocess(toNumber, numberIn({ min: 0, max: 5, unit: "items", whole: true })),
 } as const;
 
 export type SettingKey = keyof typeof settingSchemas;
@@ -77,6 +79,7 @@ export const settingsPatchSchema = z
     referralReminderHours: settingSchemas.referralReminderHours.nullable(),
     translationReviews: settingSchemas.translationReviews.nullable(),
     twocVoidWindowHours: settingSchemas.twocVoidWindowHours.nullable(),
+    spareCatheters: settingSchemas.spareCatheters.nullable(),
   })
   .partial()
   .strict();

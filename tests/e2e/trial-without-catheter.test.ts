@@ -16,7 +16,7 @@ import { sendOverdueTrialAlerts } from "@/lib/records/twoc-overdue";
 import { demoDevice } from "../support/fixtures";
 import { demo } from "../support/http";
 import { emailsTo } from "../support/mail";
-import { PHONE } from "./support/portal";
+import { PHONE, runCheckIn } from "./support/portal";
 import { baseUrl, launch, newPage, screenshot, signInAs } from "./support/browser";
 
 const tag = randomUUID().slice(0, 6).toUpperCase();
@@ -136,10 +136,23 @@ describe("trial without catheter", () => {
     expect(await volume(1).inputValue()).toBe("310");
     await expect.poll(() => form.innerText()).toContain("Total voided: 550 ml");
     await form.getByLabel("Residual after voiding (bladder scan)").fill("80");
+    // Passed: discharged from the catheter caseload with a follow-up review in two weeks.
+    await form.getByLabel("Discharge from the catheter caseload").check();
+    const review = new Date(Date.now() + 14 * 86_400_000).toISOString().slice(0, 10);
+    await form.getByLabel("Follow-up review on").fill(review);
     await screenshot(nurse, "twoc-outcome-form-en");
     await nurse.getByTestId("save").click();
     await nurse.waitForURL(new RegExp(`/patients/${overdue.id}$`));
     await expect.poll(() => nurse.getByTestId("trial-panel").count()).toBe(0);
+    await expect.poll(() => nurse.getByTestId("catheter-discharged").innerText()).toContain("Follow-up review on");
+    // Off the caseload; under "Follow-up review" with its day.
+    await nurse.goto(`/en/caseload?q=${tag}`);
+    await expect.poll(() => nurse.getByTestId("caseload-table").innerText()).toContain(`Marsh${tag}`);
+    expect(await nurse.locator("table tr").filter({ hasText: `Kettle${tag}` }).count()).toBe(0);
+    await nurse.goto("/en/caseload?filter=follow-up");
+    const followUp = nurse.locator("table tr").filter({ hasText: `Kettle${tag}` });
+    await expect.poll(() => followUp.getByTestId("follow-up").count()).toBe(1);
+    await screenshot(nurse, "twoc-caseload-follow-up-en");
     // The patient's portal (390 × 844): after-the-catheter guidance with the numbers, no bag or valve buttons.
     const patientEmail = `kettle.${tag.toLowerCase()}@testwick.example`;
     const userId = randomUUID();
@@ -155,6 +168,20 @@ describe("trial without catheter", () => {
     expect(await portal.getByTestId("next-leg-bag").count()).toBe(0);
     expect(await portal.getByText("I changed my leg bag").count()).toBe(0);
     await screenshot(portal, "twoc-portal-after-phone-en");
+    // The check-in after the catheter asks how urine passes; unable to pass urine → call the team today.
+    const no4 = ["no", "no", "no", "no"];
+    const result = await runCheckIn(portal, [...no4, "not-taken", "none", "none", "none"]);
+    await expect.poll(() => result.innerText()).toContain("You cannot pass urine since the catheter came out.");
+    expect(await result.innerText()).toContain("Call your care team now.");
+    await screenshot(portal, "twoc-portal-check-in-after-phone-en");
+    await portal.goto("/ar/check-in");
+    for (const a of [...no4, "not-taken"]) {
+      const question = await portal.locator("[data-question]").getAttribute("data-question");
+      await portal.locator(`[data-question="${question}"] [data-answer="${a}"]`).click();
+      await portal.waitForFunction((q) => document.querySelector("[data-question]")?.getAttribute("data-question") !== q, question);
+    }
+    await expect.poll(() => portal.locator("[data-question]").getAttribute("data-question")).toBe("passingUrine");
+    await screenshot(portal, "twoc-portal-check-in-after-phone-ar");
     await portal.goto("/ar/today");
     await expect.poll(() => portal.getByTestId("after-catheter").isVisible()).toBe(true);
     await screenshot(portal, "twoc-portal-after-phone-ar");
@@ -193,5 +220,38 @@ describe("trial without catheter", () => {
     // The previous catheter's details are offered.
     await expect.poll(() => nurse.locator('input[name="maker"]').inputValue()).toBe(demoDevice.maker);
     await screenshot(nurse, "twoc-failed-insertion-en");
+  });
+
+  it("abandoned: the reason and symptoms are kept and shown in History; a planned trial shows on the caseload with its medicine note", { timeout: 120_000 }, async () => {
+    const p = await patientOnTrial(`Abbot${tag}`, 3);
+    await nurse.goto(`/en/patients/${p.id}/record/twoc`);
+    const form = nurse.getByTestId("twoc-form");
+    await form.getByLabel("Abandoned: stopped before it could be judged").check();
+    await form.getByLabel("Fever or shivering").check();
+    await form.getByLabel("Reason").fill("Felt unwell with a temperature; trial stopped");
+    await form.getByLabel("What was done").selectOption("referred");
+    await screenshot(nurse, "twoc-abandoned-form-en");
+    await nurse.getByTestId("save").click();
+    await nurse.waitForURL(new RegExp(`/patients/${p.id}$`));
+    await nurse.goto(`/en/patients/${p.id}/history`);
+    await expect.poll(() => nurse.locator("main").innerText()).toContain("Reason: Felt unwell with a temperature; trial stopped");
+    expect(await nurse.locator("main").innerText()).toContain("Symptoms: Fever or shivering");
+    await screenshot(nurse, "twoc-abandoned-history-en");
+
+    // A new catheter, then a trial planned for it with the medicine given before.
+    await post(nurse, `/api/patients/${p.id}/episodes`, { ...demoDevice, indication: "Retention", insertedAt: hoursAgo(1), gelKind: "plain", gelVolumeMl: 11, attempts: 1, overrides: [] });
+    await nurse.goto(`/en/patients/${p.id}`);
+    const plan = nurse.getByTestId("twoc-plan-form");
+    await plan.getByLabel("Planned for").fill(new Date(Date.now() + 7 * 86_400_000).toISOString().slice(0, 10));
+    await plan.getByLabel("Medicine given before the trial (optional)").fill("Tamsulosin from 3 days before, as prescribed");
+    await plan.getByTestId("twoc-plan-save").click();
+    await expect.poll(() => nurse.getByTestId("twoc-plan-saved").count()).toBe(1);
+    await nurse.goto("/en/caseload?filter=twoc");
+    const row = nurse.locator("table tr").filter({ hasText: `Abbot${tag}` }).getByTestId("twoc-planned");
+    await expect.poll(() => row.innerText()).toContain("Before the trial: Tamsulosin from 3 days before, as prescribed");
+    await screenshot(nurse, "twoc-caseload-planned-en");
+    await nurse.goto("/ar/caseload?filter=twoc");
+    await expect.poll(() => nurse.locator("table tr").filter({ hasText: `Abbot${tag}` }).getByTestId("twoc-planned").count()).toBe(1);
+    await screenshot(nurse, "twoc-caseload-planned-ar");
   });
 });

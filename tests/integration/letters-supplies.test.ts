@@ -1,6 +1,6 @@
 // The Letters tab's resend route (role matrix, new row per resend, audited) and supply requests
 // (computed and adjusted quantities kept, e-mail to the GP, bad input writes nothing).
-import { and, count, eq } from "drizzle-orm";
+import { and, count, eq, isNull } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { POST as resendRoute } from "@/app/api/patients/[patientId]/messages/[messageId]/resend/route";
 import { GET as listMessagesRoute } from "@/app/api/patients/[patientId]/messages/route";
@@ -146,12 +146,14 @@ describe("supply requests", () => {
     const [row] = await db.select().from(supplyRequests).where(eq(supplyRequests.id, supplyRequest.id));
     expect(row.periodDays).toBe(28);
     expect(row.requestedByName).toBe("Grace Mensah");
-    // 28 days: 1 catheter + 1 spare, 4 leg bags (nurse asked 5), 28 night bags, 2 gel.
+    // 28 days with the next change in 84 days (common practice, no source): no change falls in
+    // the period, so the spare catheter and its gel only (the nurse asked 2 of each); 4 leg bags
+    // (nurse asked 5), 28 night bags.
     expect(row.items).toEqual([
-      { item: "catheter", computed: 2, quantity: 2, intervalDays: 84 },
+      { item: "catheter", computed: 1, quantity: 2, intervalDays: 84 },
       { item: "leg-bag", computed: 4, quantity: 5, intervalDays: 7 },
       { item: "night-bag", computed: 28, quantity: 28, intervalDays: 1 },
-      { item: "gel", computed: 2, quantity: 2, intervalDays: 84 },
+      { item: "gel", computed: 1, quantity: 2, intervalDays: 84 },
     ]);
     const [msg] = await db.select().from(outboundMessages).where(eq(outboundMessages.id, row.messageId!));
     expect(msg).toMatchObject({ kind: "supply-request", toAddress: fx.gpInbox, status: "queued", idempotencyKey: `supply-request:${row.id}` });
@@ -207,4 +209,64 @@ describe("supply requests", () => {
       expect(res.status).toBe(status);
     });
   }
+});
+
+describe("supplies follow the real change day and the blockage history", () => {
+  it("Halina (demo), whose catheters blocked after 21 days four times, is planned on the blockage interval, not 84 days", async () => {
+    const { getSupplyContext } = await import("@/db/queries/supply-requests");
+    const { patientIdByHrn } = await import("../support/fixtures");
+    const ctx = (await getSupplyContext({ patientId: await patientIdByHrn("EM-100-002") }))!;
+    // common practice, no source: blockagePattern's typical dwell 21 days less a 3-day margin = 18.
+    expect(ctx.plannedIntervalDays).toBe(84);
+    expect(ctx.changeIntervalDays).toBe(18);
+    // Inserted 36 days ago: 18 days from insertion has passed (the planned day is in 48 days), so
+    // the next change is counted from today: 28 days → days 0 and 18 → 2 catheters + 1 spare.
+    expect(ctx.firstChangeInDays).toBe(0);
+    expect(suppliesFor({ changeIntervalDays: ctx.changeIntervalDays!, firstChangeInDays: ctx.firstChangeInDays! }, 28).lines[0]).toMatchObject({ item: "catheter", quantity: 3 });
+  });
+
+  it("spare catheters are a setting (default one): saved by the admin route, read by the supply request", async () => {
+    const { PATCH: patchSettings } = await import("@/app/api/admin/settings/route");
+    const admin = await sessionFor("admin");
+    const set = (body: Record<string, unknown>) => call(patchSettings, "/api/admin/settings", { method: "PATCH", cookie: admin, body });
+    try {
+      expect((await set({ spareCatheters: 6 })).status).toBe(400);
+      expect((await set({ spareCatheters: 2 })).status).toBe(200);
+      const cookie = await sessionFor("communityNurse");
+      const lines = suppliesFor({ changeIntervalDays: 84, spareCatheters: 2 }, 28).lines;
+      const res = await call(createSupply, `/api/patients/${fx.patientId}/supply-requests`, {
+        cookie,
+        params: { patientId: fx.patientId },
+        body: { periodDays: 28, include: { legBag: true, valve: false, nightBag: true, gel: true }, items: lines.map((l) => ({ item: l.item, quantity: l.quantity })) },
+      });
+      expect(res.status).toBe(201);
+      // No change in the 28 days (next in 84), two spares: 2 catheters and 2 gels (common practice, no source).
+      const { supplyRequest } = await res.json();
+      expect(supplyRequest.items.find((i: { item: string }) => i.item === "catheter")).toMatchObject({ computed: 2 });
+      expect(supplyRequest.items.find((i: { item: string }) => i.item === "gel")).toMatchObject({ computed: 2 });
+    } finally {
+      await set({ spareCatheters: null });
+    }
+  });
+
+  it("the e-mail names the gel used and, before a planned trial without catheter, says what the trial would make unnecessary", async () => {
+    const [active] = await db.select().from(catheterEpisodes).where(and(eq(catheterEpisodes.patientId, fx.patientId), isNull(catheterEpisodes.removedAt)));
+    await db.update(catheterEpisodes).set({ gelKind: "lidocaine-chlorhexidine", twocPlannedOn: "2030-01-15" }).where(eq(catheterEpisodes.id, active.id));
+    try {
+      const lines = suppliesFor({ changeIntervalDays: 84 }, 28).lines;
+      const res = await call(createSupply, `/api/patients/${fx.patientId}/supply-requests`, {
+        cookie: await sessionFor("communityNurse"),
+        params: { patientId: fx.patientId },
+        body: { periodDays: 28, include: { legBag: true, valve: false, nightBag: true, gel: true }, items: lines.map((l) => ({ item: l.item, quantity: l.quantity })) },
+      });
+      expect(res.status).toBe(201);
+      const { supplyRequest } = await res.json();
+      const [msg] = await db.select().from(outboundMessages).where(eq(outboundMessages.id, supplyRequest.message.id));
+      expect(msg.text).toContain("Gel syringes: Lidocaine and chlorhexidine gel");
+      expect(msg.text).toContain("A trial without catheter is planned for");
+      expect(msg.text).toContain("no catheters, leg or night bags, valves or gel are needed after that day");
+    } finally {
+      await db.update(catheterEpisodes).set({ gelKind: active.gelKind, twocPlannedOn: null }).where(eq(catheterEpisodes.id, active.id));
+    }
+  });
 });

@@ -14,7 +14,17 @@ import { getDeviceCard } from "@/db/queries/passport-card";
 import { auditEvents, careTeam, organisations, outboundMessages, patients, settings } from "@/db/schema";
 import { caseloadQuerySchema } from "@/lib/validations/caseload";
 import { sendOverdueTrialAlerts } from "@/lib/records/twoc-overdue";
-import { call, sessionFor } from "../support/http";
+import { patientFhirBundle } from "@/lib/fhir/bundle";
+import { Fhir } from "fhir";
+import { dayIn } from "@/lib/shared/time-zone";
+import { POST as postCheckIn } from "@/app/api/check-ins/route";
+import { POST as postPlan } from "@/app/api/patients/[patientId]/episodes/twoc-plan/route";
+import { POST as postChecklist } from "@/app/api/patients/[patientId]/discharge-checklist/route";
+import { GET as getCaseload } from "@/app/api/caseload/route";
+import { GET as getSettingsRoute, PATCH as patchSettings } from "@/app/api/admin/settings/route";
+import { account, user } from "@/db/schema";
+import { hashPassword } from "@/lib/auth/password";
+import { call, sessionFor, signIn } from "../support/http";
 import { demoDevice } from "../support/fixtures";
 
 const h = (fn: unknown) => fn as Parameters<typeof call>[0];
@@ -64,6 +74,9 @@ async function patientWithCatheter({ gp }: { gp?: string } = {}) {
 
 const twocRows = async (now = new Date(), hours?: number) =>
   (await listCaseload({ organisationIds: [harbourside], dueSoonDays: 7, query: caseloadQuerySchema.parse({ filter: "twoc", pageSize: 100 }), now, twocWindowHours: hours })).rows;
+const rowsOf = async (filter: string | undefined, patientId: string) =>
+  (await listCaseload({ organisationIds: [harbourside], dueSoonDays: 7, query: caseloadQuerySchema.parse({ filter, pageSize: 100 }) })).rows.filter((r) => r.patientId === patientId);
+const dayFromToday = (n: number) => dayIn(new Date(Date.now() + n * 86_400_000));
 
 beforeAll(async () => {
   const orgs = await db.select({ id: organisations.id, name: organisations.name }).from(organisations);
@@ -159,6 +172,8 @@ describe("a trial without catheter under way", () => {
       failedAction: "re-catheterised",
       voids: [{ at: "09:15", volumeMl: 40 }, { volumeMl: 25 }],
       postVoidResidualMl: 650,
+      symptoms: ["lower-tummy-pain", "feels-not-empty"],
+      reason: "Retention: could pass only small amounts",
       notes: "Bladder palpable, uncomfortable",
     });
     expect(res.status).toBe(201);
@@ -169,6 +184,165 @@ describe("a trial without catheter under way", () => {
     expect(mail.text).toContain("650 ml");
     expect(mail.text).toContain("Re-catheterised");
     expect(mail.text).toContain("Bladder palpable, uncomfortable");
+    expect(mail.text).toContain("Lower tummy pain or swelling, Feels the bladder is not empty");
+    expect(mail.text).toContain("Retention: could pass only small amounts");
+  });
+
+  it("an abandoned trial needs its reason; once saved it ends the trial, may go on to an insertion, and the FHIR export holds the voids and residual", async () => {
+    const { patientId, episodeId } = await patientWithCatheter();
+    await post(postRemoval, patientId, "/removal", { removedAt: minutesAgo(180), reason: "trial-without-catheter" });
+    const noReason = await post(postTwoc, patientId, "/twoc", { occurredAt: minutesAgo(5), outcome: "abandoned" });
+    expect(noReason.status).toBe(400);
+    expect(noReason.body.error.fields.reason).toEqual(["required"]);
+    const badSymptom = await post(postTwoc, patientId, "/twoc", { occurredAt: minutesAgo(5), outcome: "abandoned", reason: "Unwell", symptoms: ["made-up"] });
+    expect(badSymptom.status).toBe(400);
+    expect((await twocRows()).some((r) => r.patientId === patientId)).toBe(true);
+
+    const saved = await post(postTwoc, patientId, "/twoc", {
+      occurredAt: minutesAgo(5),
+      outcome: "abandoned",
+      reason: "Became unwell with a fever; trial stopped",
+      symptoms: ["fever"],
+      failedAction: "re-catheterised",
+      voids: [{ at: "08:30", volumeMl: 90 }],
+      postVoidResidualMl: 320,
+    });
+    expect(saved.status).toBe(201);
+    expect(saved.body).toMatchObject({ outcome: "abandoned", next: "insertion" });
+    expect((await twocRows()).some((r) => r.patientId === patientId)).toBe(false);
+    expect(await getDeviceCard({ patientId })).toMatchObject({ device: null, removal: { trial: "abandoned" } });
+
+    const bundle = (await patientFhirBundle({ patientId })) as { entry: { resource: Record<string, unknown> }[] };
+    const trial = bundle.entry.map((e) => e.resource).find((r) => r.id === saved.body.eventId)!;
+    expect(trial).toMatchObject({
+      resourceType: "Observation",
+      focus: [{ reference: `urn:uuid:${episodeId}` }],
+      valueCodeableConcept: { text: "Abandoned" },
+      component: [{ valueString: "fever" }],
+      note: [{ text: "Reason: Became unwell with a fever; trial stopped" }, { text: "What was done: re-catheterised" }],
+    });
+    const members = (trial.hasMember as { reference: string }[]).map((m) => bundle.entry.find((e) => `urn:uuid:${e.resource.id}` === m.reference)!.resource);
+    // Source: LOINC 9187-6 "Urine output" (from memory); UCUM mL.
+    expect(members[0]).toMatchObject({ code: { coding: [{ system: "http://loinc.org", code: "9187-6" }] }, valueQuantity: { value: 90, system: "http://unitsofmeasure.org", code: "mL" } });
+    expect(members[1]).toMatchObject({ code: { text: "Post-void residual urine volume (bladder scan)" }, valueQuantity: { value: 320, code: "mL" } });
+    const result = new Fhir().validate(bundle, { errorOnUnexpected: true });
+    expect((result.messages ?? []).filter((m: { severity?: string }) => m.severity === "error")).toEqual([]);
+  });
+
+  it("a passed trial may discharge the patient from the catheter caseload until the follow-up review; a new catheter brings them back", async () => {
+    const { patientId } = await patientWithCatheter();
+    await post(postRemoval, patientId, "/removal", { removedAt: minutesAgo(300), reason: "trial-without-catheter" });
+    const base = { occurredAt: minutesAgo(5), voids: [{ volumeMl: 300 }], postVoidResidualMl: 40 };
+    // The discharge needs its review day (today to a year ahead), and only follows a passed trial.
+    expect((await post(postTwoc, patientId, "/twoc", { ...base, outcome: "passed", discharge: true })).body.error.fields.followUpReviewOn).toEqual(["required"]);
+    expect((await post(postTwoc, patientId, "/twoc", { ...base, outcome: "passed", discharge: true, followUpReviewOn: dayFromToday(-1) })).body.error.fields.followUpReviewOn).toEqual(["follow_up_range"]);
+    expect((await post(postTwoc, patientId, "/twoc", { ...base, outcome: "passed", discharge: true, followUpReviewOn: dayFromToday(400) })).body.error.fields.followUpReviewOn).toEqual(["follow_up_range"]);
+    const notPassed = await post(postTwoc, patientId, "/twoc", { ...base, outcome: "abandoned", reason: "Declined", discharge: true, followUpReviewOn: dayFromToday(14) });
+    expect(notPassed.body.error.fields.discharge).toEqual(["discharge_passed_only"]);
+    expect((await rowsOf(undefined, patientId)).length).toBe(1);
+
+    const review = dayFromToday(14);
+    const saved = await post(postTwoc, patientId, "/twoc", { ...base, outcome: "passed", discharge: true, followUpReviewOn: review });
+    expect(saved.status).toBe(201);
+    // Off the caseload and every other filter; listed under "follow-up" with the review day.
+    expect(await rowsOf(undefined, patientId)).toEqual([]);
+    expect(await rowsOf("twoc", patientId)).toEqual([]);
+    const [row] = await rowsOf("follow-up", patientId);
+    expect(row).toMatchObject({ patientId, followUp: true, route: null, reviewDueOn: review, reviewState: "ok" });
+    const [p] = await db.select().from(patients).where(eq(patients.id, patientId));
+    expect(p.followUpReviewOn).toBe(review);
+    expect(p.catheterDischargedAt).not.toBeNull();
+
+    // A catheter back in: on the caseload again, no longer under follow-up.
+    const again = await post(postInsertion, patientId, "", { ...demoDevice, indication: "Retention again", insertedAt: minutesAgo(1), gelKind: "plain", gelVolumeMl: 11, attempts: 1, overrides: [] });
+    expect(again.status).toBe(201);
+    expect(await rowsOf("follow-up", patientId)).toEqual([]);
+    expect((await rowsOf(undefined, patientId)).map((r) => r.followUp)).toEqual([false]);
+  });
+
+  it("after the catheter the portal's check-in is scored on passing urine: unable to pass urine → urgent, the lead team told (the server decides it is after the catheter, not the phone)", async () => {
+    const { patientId } = await patientWithCatheter();
+    await post(postRemoval, patientId, "/removal", { removedAt: minutesAgo(240), reason: "trial-without-catheter" });
+    const email = `after.${randomUUID().slice(0, 8)}@testwick.example`;
+    const userId = randomUUID();
+    await db.insert(user).values({ id: userId, name: "Trial Patient", email, role: "patient", emailVerified: true });
+    await db.insert(account).values({ id: randomUUID(), userId, accountId: userId, providerId: "credential", password: await hashPassword("After-catheter-pass-2026") });
+    await db.update(patients).set({ userId }).where(eq(patients.id, patientId));
+    const cookie = await signIn(email, "After-catheter-pass-2026");
+    const checkIn = (answers: Record<string, unknown>) =>
+      call(h(postCheckIn), "/api/check-ins", { cookie, body: { patientId, answers, idempotencyKey: randomUUID() } }).then(async (r) => ({ status: r.status, body: await r.json() }));
+
+    // Passing urine is required after the catheter; "draining" alone is not a finished check-in.
+    expect((await checkIn({ draining: "yes", pain: "none" })).status).toBe(400);
+    // common practice, no source: unable to pass urine after the catheter came out → same-day help.
+    const none = await checkIn({ passingUrine: "none", pain: "none" });
+    expect(none.status).toBe(201);
+    expect(none.body.checkIn.level).toBe("urgent");
+    expect(none.body.reasons.map((r: { ruleId: string }) => r.ruleId)).toContain("TRIAGE-AFTER-NO-URINE");
+    const alerts = await db.select().from(outboundMessages).where(and(eq(outboundMessages.patientId, patientId), eq(outboundMessages.kind, "care-team-alert")));
+    expect(alerts.map((m) => m.organisationId)).toContain(harbourside);
+    // common practice, no source: escalate when in doubt.
+    expect((await checkIn({ passingUrine: "not-sure", pain: "none" })).body.checkIn.level).toBe("urgent");
+    expect((await checkIn({ passingUrine: "yes", pain: "none" })).body.checkIn.level).toBe("self-care");
+    await db.delete(user).where(eq(user.id, userId));
+  });
+
+  it("plans a trial for the catheter in place (day and medicine note), shown under 'Awaiting trial without catheter'; clearing it is asked for; bad input writes nothing", async () => {
+    const { patientId } = await patientWithCatheter();
+    const plannedOn = dayFromToday(10);
+    expect((await post(postPlan, patientId, "/twoc-plan", { plannedOn: dayFromToday(-2) })).body.error.fields.plannedOn).toEqual(["plan_range"]);
+    expect((await post(postPlan, patientId, "/twoc-plan", { plannedOn: "2026-02-30" })).body.error.fields.plannedOn).toEqual(["date"]);
+    expect(await rowsOf("twoc", patientId)).toEqual([]);
+    const saved = await post(postPlan, patientId, "/twoc-plan", { plannedOn, medicineNote: "Tamsulosin 400 micrograms daily from 3 days before, as prescribed" });
+    expect(saved).toMatchObject({ status: 200, body: { plannedOn } });
+    const [row] = await rowsOf("twoc", patientId);
+    expect(row).toMatchObject({ awaitingTwoc: true, twocPlannedOn: plannedOn, twocMedicineNote: "Tamsulosin 400 micrograms daily from 3 days before, as prescribed" });
+    // The removal for the trial keeps the patient in the same filter, now under way.
+    await post(postRemoval, patientId, "/removal", { removedAt: minutesAgo(30), reason: "trial-without-catheter" });
+    expect((await rowsOf("twoc", patientId))[0]).toMatchObject({ route: null, trialOverdue: false });
+    // With no catheter in place there is nothing to plan.
+    expect((await post(postPlan, patientId, "/twoc-plan", { plannedOn })).status).toBe(409);
+
+    const other = await patientWithCatheter();
+    await post(postPlan, other.patientId, "/twoc-plan", { plannedOn, medicineNote: "None" });
+    expect((await post(postPlan, other.patientId, "/twoc-plan", { plannedOn: "" })).body.error.fields.plannedOn).toEqual(["required"]);
+    expect((await rowsOf("twoc", other.patientId)).length).toBe(1);
+    const cleared = await post(postPlan, other.patientId, "/twoc-plan", { clear: true });
+    expect(cleared.body).toEqual({ plannedOn: null, medicineNote: null });
+    expect(await rowsOf("twoc", other.patientId)).toEqual([]);
+  });
+
+  it("the trial window setting is saved by the admin route and read by the caseload route (3 hours: a trial removed 4 hours ago is overdue)", async () => {
+    const admin = await sessionFor("admin");
+    const set = (body: Record<string, unknown>) => call(h(patchSettings), "/api/admin/settings", { method: "PATCH", cookie: admin, body });
+    try {
+      for (const bad of [0, 25, 2.5, "6h"]) expect((await set({ twocVoidWindowHours: bad })).status, String(bad)).toBe(400);
+      expect((await set({ twocVoidWindowHours: 3 })).status).toBe(200);
+      const read = await call(h(getSettingsRoute), "/api/admin/settings", { cookie: admin });
+      expect((await read.json()).settings.twocVoidWindowHours).toBe(3);
+
+      const { patientId } = await patientWithCatheter();
+      await post(postRemoval, patientId, "/removal", { removedAt: minutesAgo(240), reason: "trial-without-catheter" });
+      const page = await call(h(getCaseload), "/api/caseload?filter=twoc&pageSize=100", { cookie: await sessionFor("communityNurse") });
+      const row = ((await page.json()).rows as { patientId: string; trialVoidBy: string; trialRemovedAt: string; trialOverdue: boolean }[]).find((r) => r.patientId === patientId)!;
+      // common practice, no source: the window is each deployment's setting (default 6 hours).
+      expect(Date.parse(row.trialVoidBy) - Date.parse(row.trialRemovedAt)).toBe(3 * 3_600_000);
+      expect(row.trialOverdue).toBe(true);
+    } finally {
+      await set({ twocVoidWindowHours: null });
+    }
+  });
+
+  it("the discharge checklist's planned trial day becomes the plan of the catheter in place, keeping its medicine note", async () => {
+    const { patientId } = await patientWithCatheter();
+    await post(postPlan, patientId, "/twoc-plan", { plannedOn: dayFromToday(20), medicineNote: "Alpha-blocker started" });
+    const day = dayFromToday(12);
+    const res = await call(h(postChecklist), `/api/patients/${patientId}/discharge-checklist`, {
+      cookie: await sessionFor("communityNurse"),
+      params: { patientId },
+      body: { taught: ["when-to-get-help"], suppliesGiven: true, suppliesDays: 7, drainage: "bag", plannedTwocOn: day, portalActivationGiven: false },
+    });
+    expect(res.status).toBe(201);
+    expect((await rowsOf("twoc", patientId))[0]).toMatchObject({ twocPlannedOn: day, twocMedicineNote: "Alpha-blocker started" });
   });
 });
-

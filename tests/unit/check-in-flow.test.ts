@@ -174,3 +174,59 @@ describe("catheter out, and answers kept when going back", () => {
     expect(keepAsked(questions, { catheterOut: true, draining: "none", pain: "none" })).toEqual({ catheterOut: true, pain: "none" });
   });
 });
+
+describe("after the catheter (no catheter in place since one came out)", () => {
+  const after = (a: SubmittedAnswers) => scoreAnswers(a, null, true);
+  it("asks how urine passes instead of the catheter's questions, red flags still first", () => {
+    const ids = questionsFor(null, true).map((q) => q.id);
+    expect(ids.slice(0, 4)).toEqual(["newConfusion", "breathless", "feelsVeryUnwell", "shivering"]);
+    expect(ids).toContain("passingUrine");
+    for (const gone of ["catheterOut", "draining", "hoursWithoutUrine", "other"]) expect(ids).not.toContain(gone);
+    expect(isComplete({ pain: "none" }, true)).toBe(false);
+    expect(isComplete({ pain: "none", passingUrine: "yes" }, true)).toBe(true);
+  });
+
+  it.each<[string, SubmittedAnswers, string, string?]>([
+    // common practice, no source (NHS trusts' TWOC leaflets): passing urine as usual, no other symptom
+    ["passing urine as usual", { passingUrine: "yes", pain: "none" }, "self-care"],
+    // common practice, no source: unable to pass urine after removal (retention) → help the same day
+    ["unable to pass urine", { passingUrine: "none", pain: "none" }, "urgent", "TRIAGE-AFTER-NO-URINE"],
+    // common practice, no source: triage escalates when in doubt
+    ["not sure", { passingUrine: "not-sure", pain: "none" }, "urgent", "TRIAGE-AFTER-NOT-SURE"],
+    // common practice, no source: small amounts with pain may be retention with overflow
+    ["a little at a time with some pain", { passingUrine: "little", pain: "mild" }, "urgent", "TRIAGE-AFTER-LITTLE-PAIN"],
+    // common practice, no source
+    ["a little at a time, no pain", { passingUrine: "little", pain: "none" }, "soon", "TRIAGE-AFTER-LITTLE"],
+    // Source: IDSA CA-UTI guideline 2010 (severe pain, fever) — the same rules as with a catheter
+    ["severe pain", { passingUrine: "yes", pain: "severe" }, "urgent", "TRIAGE-SEVERE-PAIN"],
+    // Source: IDSA CA-UTI guideline 2010 (new or worse fever ≥ 38 °C)
+    ["fever 38.2 °C", { passingUrine: "yes", pain: "none", temperatureC: 38.2 }, "urgent", "TRIAGE-FEVER"],
+    // Source: NICE NG51 (new altered mental state)
+    ["new confusion", { newConfusion: true }, "emergency", "TRIAGE-NEW-CONFUSION"],
+  ])("%s → %s", (_, answers, level, rule) => {
+    const scored = after(answers);
+    expect(scored?.result.level).toBe(level);
+    if (rule) expect(scored?.result.ruleIds).toContain(rule);
+  });
+
+  it("never scores the catheter's drainage: a stale 'not draining' answer is ignored after the catheter", () => {
+    const scored = after({ passingUrine: "yes", pain: "none", draining: "none", hoursWithoutUrine: 18 });
+    expect(scored?.result.level).toBe("self-care");
+    expect(scored?.result.ruleIds).toEqual([]);
+  });
+
+  it("without the after-catheter context the passing-urine rules never fire", () => {
+    expect(triageCheckIn({ draining: "yes", pain: "none", passingUrine: "none" }).ruleIds).toEqual([]);
+  });
+
+  it("has words for the new question in every locale, for the patient and a carer", () => {
+    for (const l of locales) {
+      const q = load(l).CheckIn.questions;
+      for (const who of ["self", "carer"]) {
+        expect(q.passingUrine[who], l).toBeTruthy();
+        expect(q.painAfter[who], l).toBeTruthy();
+      }
+      for (const o of ["yes", "little", "none", "not-sure"]) expect(q.passingUrine.options[o], `${l} ${o}`).toBeTruthy();
+    }
+  });
+});

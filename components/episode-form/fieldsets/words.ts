@@ -1,7 +1,7 @@
 import { useTranslations } from "next-intl";
 import { useFormat } from "@/components/i18n/format";
 
-type Group = "route" | "catheterType" | "material" | "lengthCategory" | "gelKind" | "unplannedReason" | "removalReason" | "twocOutcome" | "failedAction";
+type Group = "route" | "catheterType" | "material" | "lengthCategory" | "gelKind" | "unplannedReason" | "removalReason" | "twocOutcome" | "failedAction" | "twocSymptom";
 
 /** The choices of one enum with their labels (Vocabulary), for a select or a radio group. */
 export function useEpisodeOptions() {

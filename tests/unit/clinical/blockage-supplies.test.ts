@@ -5,6 +5,7 @@ import {
   ClinicalInputError,
   nextBagChange,
   suppliesFor,
+  supplyChangeInterval,
   type CatheterHistoryEntry,
 } from "@/lib/clinical";
 
@@ -76,6 +77,44 @@ describe("suppliesFor", () => {
     expect(() => suppliesFor(null as never, 28)).toThrow(ClinicalInputError);
     expect(() => suppliesFor({ changeIntervalDays: 0 }, 28)).toThrow(ClinicalInputError);
     expect(() => suppliesFor({ changeIntervalDays: 28 }, 2.5)).toThrow(/whole days/);
+  });
+});
+
+describe("suppliesFor on the real next change day, and the blockage interval (worked examples)", () => {
+  const catheters = (s: ReturnType<typeof suppliesFor>) => s.lines.find((l) => l.item === "catheter")!;
+  it("84-day catheter changed 60 days ago (next change in 24 days), 28 days of supplies: one change + one spare = 2", () => {
+    // common practice, no source: days 24 falls inside days 0–27; spare 1 (setting default)
+    expect(catheters(suppliesFor({ changeIntervalDays: 84, firstChangeInDays: 24 }, 28)).quantity).toBe(2);
+  });
+  it("84-day catheter changed last week (next change in 77 days), 28 days: no change in the period, the spare only = 1", () => {
+    // common practice, no source
+    expect(catheters(suppliesFor({ changeIntervalDays: 84, firstChangeInDays: 77 }, 28)).quantity).toBe(1);
+  });
+  it("change due today (day 0), 28-day interval, 56 days: days 0 and 28 → 2 changes + 1 spare = 3; gel the same", () => {
+    // common practice, no source
+    const s = suppliesFor({ changeIntervalDays: 28, firstChangeInDays: 0 }, 56);
+    expect(catheters(s).quantity).toBe(3);
+    expect(s.lines.find((l) => l.item === "gel")!.quantity).toBe(3);
+  });
+  it("a change on the period's last day counts; one day later does not", () => {
+    // common practice, no source: days 0–27 are the 28 days
+    expect(catheters(suppliesFor({ changeIntervalDays: 84, firstChangeInDays: 27, spareCatheters: 0 }, 28)).quantity).toBe(1);
+    expect(catheters(suppliesFor({ changeIntervalDays: 84, firstChangeInDays: 28, spareCatheters: 0 }, 28)).quantity).toBe(0);
+  });
+  it("a patient who blocks every three weeks: planned on the blockage interval, not 84 days", () => {
+    // common practice, no source: blockagePattern suggests 18 days (typical dwell 21 − 3 margin)
+    const interval = supplyChangeInterval(84, 18);
+    expect(interval).toBe(18);
+    // Next change in 5 days, 90 days: days 5, 23, 41, 59, 77 → 5 changes + 1 spare = 6.
+    expect(catheters(suppliesFor({ changeIntervalDays: interval, firstChangeInDays: 5 }, 90)).quantity).toBe(6);
+    // A blockage interval longer than the planned one never lengthens it; none known keeps it.
+    expect(supplyChangeInterval(28, 40)).toBe(28);
+    expect(supplyChangeInterval(84, null)).toBe(84);
+  });
+  it("refuses a first change that is not whole days or out of range", () => {
+    expect(() => suppliesFor({ changeIntervalDays: 28, firstChangeInDays: 1.5 }, 28)).toThrow(ClinicalInputError);
+    expect(() => suppliesFor({ changeIntervalDays: 28, firstChangeInDays: -1 }, 28)).toThrow(ClinicalInputError);
+    expect(() => supplyChangeInterval(0)).toThrow(ClinicalInputError);
   });
 });
 

@@ -11,6 +11,7 @@ import { charriereToMm, parseIsoDate, stateFor } from "@/lib/clinical";
 import { getPlanDefaults, getTwocVoidWindowHours } from "@/lib/config/settings";
 import { getLatestEpisode } from "@/db/queries/episodes";
 import { TrialPanel } from "@/components/twoc/trial-panel";
+import { TwocPlanForm } from "@/components/twoc/twoc-plan-form";
 import { trialInProgress } from "@/lib/records/episodes";
 import { Link } from "@/lib/i18n/navigation";
 import { openRecordPage } from "@/lib/records/patient-record-page";
@@ -175,11 +176,21 @@ export default async function DeviceTab({ params }: { params: Promise<{ locale: 
               ) : null}
               <p className="text-sm text-ink-soft">{t("safety")}</p>
             </Card>
+            {closed ? null : (
+              <Card>
+                <TwocPlanForm patientId={patientId} plannedOn={e.twocPlannedOn ?? null} medicineNote={e.twocMedicineNote ?? null} />
+              </Card>
+            )}
           </>
         ) : trial ? (
           <TrialPanel patientId={patientId} removedAt={trial.removedAt!.toISOString()} windowHours={windowHours} closed={closed} />
         ) : (
           <Card>
+            {record.patient.catheterDischargedAt ? (
+              <p className="font-bold" data-testid="catheter-discharged">
+                {t("discharged", { date: dateTime(record.patient.catheterDischargedAt), review: date(record.patient.followUpReviewOn) })}
+              </p>
+            ) : null}
             <p>{t("noneInPlaceBody")}</p>
           </Card>
         )}

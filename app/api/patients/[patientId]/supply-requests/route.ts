@@ -34,7 +34,7 @@ export const POST = handle<Ctx>(async (request, { params }) => {
     const ctx = await getSupplyContext({ patientId }, tx);
     if (!ctx) throw new AppError("not_found");
     if (!ctx.episode || !ctx.changeIntervalDays) throw new AppError("conflict", "There is no catheter in place to request supplies for.");
-    const plan = { changeIntervalDays: ctx.changeIntervalDays, ...input.include };
+    const plan = { changeIntervalDays: ctx.changeIntervalDays, firstChangeInDays: ctx.firstChangeInDays ?? undefined, spareCatheters: ctx.spareCatheters, ...input.include };
     const computed = suppliesFor(plan, input.periodDays);
     const asked = new Map(input.items.map((i) => [i.item, i.quantity]));
     if (computed.lines.length !== asked.size || computed.lines.some((l) => !asked.has(l.item))) {

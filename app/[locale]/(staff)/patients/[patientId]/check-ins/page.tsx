@@ -28,8 +28,9 @@ const answerKeys = [
   "sediment",
   "constipated",
   "suprapubicSiteRed",
+  "passingUrine",
 ] as const;
-const enumValues = ["yes", "less", "none", "mild", "severe", "pink", "red", "clots"] as const;
+const enumValues = ["yes", "less", "none", "mild", "severe", "pink", "red", "clots", "little", "not-sure"] as const;
 
 export default async function CheckInsTab({ params }: { params: Promise<{ locale: string; patientId: string }> }) {
   const { locale, patientId } = await params;

@@ -113,7 +113,12 @@ export default async function HistoryTab({ params }: { params: Promise<{ locale:
                     // The trial's voids, residual and what was done, as the GP summary gives them.
                     result:
                       v.kind === "twoc_outcome"
-                        ? twocResultLines(twocResult(v.details), (key, values) => tw(key, values as never), (a) => vocab(`failedAction.${a}`)).join(" · ")
+                        ? twocResultLines(
+                            twocResult(v.details),
+                            (key, values) => tw(key, values as never),
+                            (a) => vocab(`failedAction.${a}`),
+                            (s) => vocab(`twocSymptom.${s}`),
+                          ).join(" · ")
                         : null,
                   }),
                 }}

@@ -70,9 +70,23 @@ export default async function SuppliesPage({ params }: { params: Promise<{ local
             <p className="mb-4 text-ink-soft">
               {t("device", { ch: ctx.episode.sizeCh, ml: ctx.episode.balloonMl, days: ctx.changeIntervalDays })}
             </p>
+            {ctx.plannedIntervalDays && ctx.changeIntervalDays < ctx.plannedIntervalDays ? (
+              <p className="mb-4 font-bold" data-testid="supplies-blockage">
+                {t("blockageInterval", { days: ctx.changeIntervalDays, planned: ctx.plannedIntervalDays })}
+              </p>
+            ) : null}
+            {ctx.firstChangeInDays !== null ? <p className="mb-4 text-ink-soft">{t("nextChange", { days: ctx.firstChangeInDays })}</p> : null}
+            {ctx.episode.twocPlannedOn ? (
+              <p className="mb-4 rounded-lg border-2 border-finding-info bg-finding-info-soft p-3" data-testid="supplies-after-trial">
+                {t("afterTrial", { date: format.dateTime(new Date(`${ctx.episode.twocPlannedOn}T12:00:00Z`), { dateStyle: "medium" }) })}
+              </p>
+            ) : null}
             <SupplyRequestForm
               patientId={patientId}
               changeIntervalDays={ctx.changeIntervalDays}
+              firstChangeInDays={ctx.firstChangeInDays ?? undefined}
+              spareCatheters={ctx.spareCatheters}
+              gelName={ctx.episode.gelKind !== "none" ? v(`gelKind.${ctx.episode.gelKind}`) : null}
               gpName={ctx.gp?.name ?? null}
               gpHasInbox={Boolean(ctx.gp?.inboxEmail)}
               {...dischargeDefaults(checklist)}

@@ -5,12 +5,12 @@ import { RemovalForm } from "@/components/episode-form/removal-form";
 import { TwocForm } from "@/components/episode-form/twoc-form";
 import { buttonClass } from "@/components/ui/button";
 import { getRecordingContext, type EpisodeDto } from "@/db/queries/episodes";
-import { blockagePattern, type EndReason } from "@/lib/clinical";
 import { getPlanDefaults } from "@/lib/config/settings";
 import { Link } from "@/lib/i18n/navigation";
 import { openRecordPage } from "@/lib/records/patient-record-page";
 import { RECORD_KINDS, type RecordKind } from "@/lib/validations/episode";
-import { dayIn, deploymentTimeZone } from "@/lib/shared/time-zone";
+import { deploymentTimeZone } from "@/lib/shared/time-zone";
+import { blockagePatternOf } from "@/lib/shared/blockage-interval";
 
 type Params = { locale: string; patientId: string; kind: string };
 
@@ -43,9 +43,6 @@ function previousDevice(e: EpisodeDto | null): PreviousDevice | null {
   };
 }
 
-const endReason = (r: string | null): EndReason | undefined =>
-  r === null ? undefined : r === "planned change" ? "planned" : r === "blockage" || r === "bypassing" || r === "expelled" ? r : "other";
-
 export default async function RecordEpisodePage({ params }: { params: Promise<Params> }) {
   const { locale, patientId, kind } = await params;
   if (!isKind(kind)) notFound();
@@ -62,21 +59,8 @@ export default async function RecordEpisodePage({ params }: { params: Promise<Pa
 
   let blockage: BlockageHint = null;
   if (kind === "change") {
-    try {
-      const pattern = blockagePattern(
-        context.endings.map((e) => ({
-          insertedOn: dayIn(e.insertedAt, timeZone),
-          removedOn: e.removedAt ? dayIn(e.removedAt, timeZone) : undefined,
-          endReason: endReason(e.removalReason),
-        })),
-        { maxDwellDays: active ? (active.maxDwellDays ?? planning.maxDwellDays[active.material]) : undefined },
-      );
-      if (pattern.status === "pattern") {
-        blockage = { typicalDwellDays: pattern.typicalDwellDays, suggestedIntervalDays: pattern.suggestedIntervalDays, blockageEpisodes: pattern.blockageEpisodes };
-      }
-    } catch {
-      blockage = null;
-    }
+    const pattern = blockagePatternOf(context.endings, timeZone, active ? (active.maxDwellDays ?? planning.maxDwellDays[active.material]) : undefined);
+    if (pattern) blockage = { typicalDwellDays: pattern.typicalDwellDays, suggestedIntervalDays: pattern.suggestedIntervalDays, blockageEpisodes: pattern.blockageEpisodes };
   }
 
   const record = `/patients/${patientId}`;
