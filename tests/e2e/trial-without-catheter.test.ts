@@ -153,6 +153,16 @@ describe("trial without catheter", () => {
     const followUp = nurse.locator("table tr").filter({ hasText: `Kettle${tag}` });
     await expect.poll(() => followUp.getByTestId("follow-up").count()).toBe(1);
     await screenshot(nurse, "twoc-caseload-follow-up-en");
+    // The device card a visiting clinician scans: removed on the day, trial passed, the team's number.
+    const issued = await post(nurse, `/api/patients/${overdue.id}/passport`, { reissue: true });
+    const card = await newPage(browser, PHONE);
+    await card.goto(`/en/p/${issued.url.split("/p/")[1]}`);
+    const cardText = await card.locator("main").innerText();
+    expect(cardText).toMatch(/Catheter removed on .+ \(trial passed\)/);
+    expect(cardText).not.toContain("The catheter in place");
+    expect(cardText).toContain("Harbourside Community Nursing Team");
+    await screenshot(card, "twoc-card-after-passed-phone-en");
+    await card.context().close();
     // The patient's portal (390 × 844): after-the-catheter guidance with the numbers, no bag or valve buttons.
     const patientEmail = `kettle.${tag.toLowerCase()}@testwick.example`;
     const userId = randomUUID();
