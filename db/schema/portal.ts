@@ -111,8 +111,8 @@ export const pushSubscriptions = pgTable(
 );
 export type PushSubscriptionRow = typeof pushSubscriptions.$inferSelect;
 
-/** One reminder the person chose: on or off, the times of day ("HH:MM"), and how it comes. */
-export type ReminderChoice = { on: boolean; times: string[]; channel: "push" | "sms" | "email" };
+/** One reminder the person chose: on or off, the times of day ("HH:MM"), the weekday of a weekly one (0 = Sunday), and how it comes. */
+export type ReminderChoice = { on: boolean; times: string[]; day?: number; channel: "push" | "sms" | "email" };
 
 // How the portal reaches a person (patient or carer): the mobile number for texts (E.164) and
 // when they agreed to texts, quiet hours, and the reminders they chose (lib/portal/reach.ts).
