@@ -4,7 +4,7 @@
 import { and, eq, isNull, like } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db";
-import { setReach } from "@/db/queries/reach";
+import { setReach, type ReachDto } from "@/db/queries/reach";
 import { catheterEpisodes, outboundMessages, patients } from "@/db/schema";
 import type { MailTransport } from "@/lib/email/transport";
 import { translatorFor } from "@/lib/i18n/catalogues";
@@ -28,7 +28,7 @@ afterAll(() => sms?.close());
 
 const rows = (userId: string) => db.select().from(outboundMessages).where(like(outboundMessages.idempotencyKey, `reminder:${userId}:%`));
 const deliver = (userId: string) => drainOutbox({ transport: noMail, sms: createSmsSender({ apiUrl: `http://127.0.0.1:${port}` }), keyPrefix: `reminder:${userId}:`, log: () => {} });
-const reach = (reminders: Record<string, unknown>, phone = "+447700900111") => ({ phone, smsConsent: true, quietStart: "22:00", quietEnd: "07:00", reminders });
+const reach = (reminders: ReachDto["reminders"], phone = "+447700900111") => ({ phone, smsConsent: true, quietStart: "22:00", quietEnd: "07:00", reminders });
 
 describe("chosen reminders", () => {
   it("a bag reminder by text is queued at its time on its day, once, and reaches the SMS service", async () => {
