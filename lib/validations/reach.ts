@@ -78,4 +78,3 @@ export const reachSchema = z
     if (wantsText && !v.phone) ctx.addIssue({ code: "custom", path: ["phone"], message: "required" });
     if (wantsText && !v.smsConsent) ctx.addIssue({ code: "custom", path: ["smsConsent"], message: "sms_consent" });
   });
-export type ReachInput = z.infer<typeof reachSchema>;
