@@ -8,7 +8,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { queueDueReminders } from "@/lib/portal/reminders";
 import { inQuietHours } from "@/lib/shared/reminder-schedule";
 import { demo } from "../support/http";
-import { launch, screenshot, signInAs } from "./support/browser";
+import { launch, newPage, screenshot, signInAs } from "./support/browser";
 import { closeDatabase, phonePage } from "./support/portal";
 
 const SMS_URL = process.env.SMS_API_URL ?? "http://127.0.0.1:4590";
@@ -99,6 +99,17 @@ describe("reminders the patient chooses", () => {
     // The number box stays left to right.
     expect(await page.getByLabel("رقم الجوال").evaluate((el) => getComputedStyle(el).direction)).toBe("ltr");
     await screenshot(page, "reminders-ar-390");
+    await page.context().close();
+  });
+
+  it("ar on a desktop screen: the phone hint keeps the number in order", async () => {
+    const page = await newPage(browser, { viewport: { width: 1280, height: 900 } });
+    await signInAs(page, demo.patientAr.email, demo.patientAr.password, "ar");
+    await page.goto("/ar/more/reminders");
+    await page.getByRole("heading", { name: "التذكيرات", level: 1 }).waitFor();
+    // The example number is isolated left to right inside the Arabic hint (U+2066 … U+2069).
+    expect(await page.getByText("ابدأ بعلامة +").first().textContent()).toContain("\u2066+44 7700 900123\u2069");
+    await screenshot(page, "reminders-ar-desktop");
     await page.context().close();
   });
 });
