@@ -9,7 +9,7 @@ import { queueDueReminders } from "@/lib/portal/reminders";
 import { inQuietHours } from "@/lib/shared/reminder-schedule";
 import { demo } from "../support/http";
 import { launch, newPage, screenshot, signInAs } from "./support/browser";
-import { closeDatabase, phonePage } from "./support/portal";
+import { closeDatabase, phonePage, runCheckIn, type Step } from "./support/portal";
 
 const SMS_URL = process.env.SMS_API_URL ?? "http://127.0.0.1:4590";
 const TZ = process.env.CADDIS_TIME_ZONE ?? "Europe/London";
@@ -111,5 +111,44 @@ describe("reminders the patient chooses", () => {
     expect(await page.getByText("ابدأ بعلامة +").first().textContent()).toContain("\u2066+44 7700 900123\u2069");
     await screenshot(page, "reminders-ar-desktop");
     await page.context().close();
+  });
+
+  it("a carer chooses to be told by text; the patient's urgent check-in reaches her phone number", async () => {
+    const carer = await phonePage(browser);
+    await signInAs(carer, demo.carer.email, demo.carer.password);
+    // Her number and consent, on the same page (no reminders for a carer).
+    await carer.goto("/en/more/reminders");
+    expect(await carer.locator("[data-reminder]").count()).toBe(0);
+    const number = `+4477008${String(Math.floor(Math.random() * 100_000)).padStart(5, "0")}`;
+    await carer.getByLabel("Mobile number").fill(number);
+    await carer.getByLabel(/I agree to get text messages/).check();
+    await carer.getByRole("button", { name: "Save reminders" }).click();
+    await carer.getByText("Your reminders are saved.").waitFor();
+    await carer.goto("/en/more");
+    const toggle = carer.getByTestId("carer-alert-toggle");
+    if (!(await toggle.isChecked())) {
+      await toggle.check();
+      await carer.getByTestId("carer-alert-saved").waitFor();
+    }
+    await carer.getByTestId("carer-alert-channel").selectOption("sms");
+    await carer.getByTestId("carer-alert-saved").waitFor();
+    await screenshot(carer, "carer-alert-by-text-en-390");
+
+    const patient = await phonePage(browser);
+    await signInAs(patient, demo.patient.email, demo.patient.password);
+    // common practice, no source — a catheter that does not drain is urgent.
+    const no4: Step[] = ["no", "no", "no", "no"];
+    const result = await runCheckIn(patient, [...no4, "not-taken", "no", "none", "under-12", "none", "none", "done"]);
+    expect(await result.getAttribute("data-level")).toBe("urgent");
+    const to = number.slice(1);
+    let texts: { text: string }[] = [];
+    for (let i = 0; i < 90 && texts.length === 0; i++) {
+      texts = (await (await fetch(`${SMS_URL}/api/messages?to=${to}`)).json()) as { text: string }[];
+      if (!texts.length) await new Promise((res) => setTimeout(res, 500));
+    }
+    expect(texts).toHaveLength(1);
+    expect(texts[0].text).toMatch(/^Arthur reported an urgent problem\./);
+    await carer.context().close();
+    await patient.context().close();
   });
 });
