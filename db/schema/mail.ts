@@ -67,6 +67,7 @@ export const outboundMessages = pgTable(
     check("outbox_sent_ck", sql`${t.status} <> 'sent' or ${t.sentAt} is not null`),
     check("outbox_sending_ck", sql`${t.status} <> 'sending' or (${t.leaseUntil} is not null and ${t.claimToken} is not null)`),
     check("outbox_to_ck", sql`${t.toAddress} <> '' or ${t.status} = 'failed'`),
+    check("outbox_channel_ck", sql`${t.channel} in ('email', 'sms', 'push')`),
   ],
 );
 

@@ -93,7 +93,11 @@ export const carerLinks = pgTable(
     alertChannel: text("alert_channel", { enum: ["email", "push", "sms"] }).notNull().default("email"),
     ...timestamps,
   },
-  (t) => [index("carer_links_patient_idx").on(t.patientId), index("carer_links_carer_idx").on(t.carerUserId, t.status)],
+  (t) => [
+    index("carer_links_patient_idx").on(t.patientId),
+    index("carer_links_carer_idx").on(t.carerUserId, t.status),
+    check("carer_links_alert_channel_ck", sql`${t.alertChannel} in ('email', 'push', 'sms')`),
+  ],
 );
 
 // One-time codes a clinician gives a patient to open their portal account. Only an HMAC of the

@@ -129,6 +129,9 @@ export const reachSettings = pgTable(
     reminders: jsonb("reminders").$type<Partial<Record<string, ReminderChoice>>>().notNull().default(sql`'{}'::jsonb`),
     ...timestamps,
   },
-  (t) => [check("reach_settings_phone_ck", sql`${t.phone} is null or ${t.phone} ~ '^\\+[1-9][0-9]{6,14}$'`)],
+  (t) => [
+    check("reach_settings_phone_ck", sql`${t.phone} is null or ${t.phone} ~ '^\\+[1-9][0-9]{6,14}$'`),
+    check("reach_settings_quiet_ck", sql`${t.quietStart} ~ '^([01][0-9]|2[0-3]):[0-5][0-9]$' and ${t.quietEnd} ~ '^([01][0-9]|2[0-3]):[0-5][0-9]$'`),
+  ],
 );
 export type ReachSettings = typeof reachSettings.$inferSelect;

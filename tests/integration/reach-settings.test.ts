@@ -5,7 +5,7 @@ import { describe, expect, it } from "vitest";
 import { DELETE as unsubscribe, GET as pushKey, POST as subscribe } from "@/app/api/account/push/route";
 import { GET as getReach, PUT as putReach } from "@/app/api/account/reach/route";
 import { db } from "@/db";
-import { pushSubscriptions, reachSettings } from "@/db/schema";
+import { carerLinks, pushSubscriptions, reachSettings } from "@/db/schema";
 import { userIdByEmail } from "../support/fixtures";
 import { call, demo, sessionFor } from "../support/http";
 import { browserKeys } from "../support/push-endpoint";
@@ -75,5 +75,14 @@ describe("number, consent to texts, quiet hours and reminders", () => {
     for (const body of [{ ...base, quietStart: "25:00" }, { ...base, reminders: { bag: { on: true, times: ["8am"], channel: "push" } } }, { ...base, reminders: { lunch: { on: true, times: ["12:00"], channel: "push" } } }]) {
       expect((await call(putReach, "/api/account/reach", { method: "PUT", cookie: patient, body })).status, JSON.stringify(body)).toBe(400);
     }
+  });
+});
+
+describe("rules the database holds", () => {
+  it("refuses a number that is not E.164, quiet hours that are not HH:MM, and an unknown alert channel", async () => {
+    const userId = await userIdByEmail(demo.carer.email);
+    await expect(db.insert(reachSettings).values({ userId, phone: "07700900123" }).onConflictDoUpdate({ target: reachSettings.userId, set: { phone: "07700900123" } })).rejects.toThrow();
+    await expect(db.insert(reachSettings).values({ userId, quietStart: "7am" }).onConflictDoUpdate({ target: reachSettings.userId, set: { quietStart: "7am" } })).rejects.toThrow();
+    await expect(db.update(carerLinks).set({ alertChannel: "pigeon" as "email" }).where(eq(carerLinks.carerUserId, userId))).rejects.toThrow();
   });
 });
