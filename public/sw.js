@@ -70,3 +70,36 @@ self.addEventListener("fetch", (event) => {
     );
   }
 });
+
+// A reminder or an alert sent by Web Push (lib/push): show it, and open its page on a tap. The
+// payload holds only the words of the notification and a path in this app; nothing is cached.
+self.addEventListener("push", (event) => {
+  let data = {};
+  try {
+    data = event.data ? event.data.json() : {};
+  } catch {
+    data = { body: event.data ? event.data.text() : "" };
+  }
+  const url = typeof data.url === "string" && data.url.startsWith("/") && !data.url.startsWith("//") ? data.url : "/";
+  event.waitUntil(
+    self.registration.showNotification(data.title || "Caddis", {
+      body: data.body || "",
+      tag: data.tag || undefined,
+      icon: "/icon-192.png",
+      badge: "/icon-192.png",
+      data: { url },
+    }),
+  );
+});
+
+self.addEventListener("notificationclick", (event) => {
+  event.notification.close();
+  const target = new URL(event.notification.data?.url ?? "/", self.location.origin).href;
+  event.waitUntil(
+    self.clients.matchAll({ type: "window", includeUncontrolled: true }).then((windows) => {
+      const open = windows.find((w) => w.url === target);
+      if (open) return open.focus();
+      return self.clients.openWindow(target);
+    }),
+  );
+});

@@ -23,6 +23,7 @@ export const defaults = {
   inboxUrl: process.env.MAIL_INBOX_URL ?? "http://127.0.0.1:1080",
   s3Endpoint: process.env.S3_ENDPOINT ?? "http://127.0.0.1:4569",
   s3Bucket: process.env.S3_BUCKET ?? "caddis-uploads",
+  smsApiUrl: process.env.SMS_API_URL ?? "http://127.0.0.1:4590",
 };
 
 function log(msg: string) {
@@ -231,7 +232,7 @@ function postgresDown() {
 
 // ---------------------------------------------------------------- node-based fakes
 
-type Fake = { name: string; port: number; script: string; args: string[] };
+type Fake = { name: string; port: number; script: string; args: string[]; nodeArgs?: string[] };
 
 function fakes(): Fake[] {
   const smtp = new URL(defaults.smtpUrl);
@@ -262,14 +263,36 @@ function fakes(): Fake[] {
       ],
     });
   }
+  const sms = new URL(defaults.smsApiUrl);
+  if (isLoopback(sms.hostname)) {
+    // The fake SMS service (scripts/fake-sms.ts): texts listed at its web page, JSON at /api/messages.
+    list.push({
+      name: "fake-sms",
+      port: Number(sms.port || 80),
+      script: path.join(root, "scripts/fake-sms.ts"),
+      args: ["--port", sms.port || "80"],
+      nodeArgs: ["--import", "tsx"],
+    });
+  }
   return list;
+}
+
+/** The Web Push (VAPID) key pair, made once and kept in .data/vapid.json (read by lib/config/push.ts). */
+export async function ensureVapidKeys() {
+  const file = path.join(dataDir, "vapid.json");
+  if (fs.existsSync(file)) return;
+  const { default: webpush } = await import("web-push");
+  fs.mkdirSync(dataDir, { recursive: true });
+  fs.writeFileSync(file, JSON.stringify(webpush.generateVAPIDKeys()), { mode: 0o600 });
+  log("made the Web Push key pair in .data/vapid.json");
 }
 
 async function fakeUp(f: Fake) {
   if (await portOpen(f.port)) return;
   fs.mkdirSync(dataDir, { recursive: true });
   const out = fs.openSync(path.join(dataDir, `${f.name}.log`), "a");
-  const child = spawn(process.execPath, [f.script, ...f.args], {
+  const child = spawn(process.execPath, [...(f.nodeArgs ?? []), f.script, ...f.args], {
+    cwd: root,
     detached: true,
     stdio: ["ignore", out, out],
   });
@@ -297,6 +320,7 @@ export async function servicesUp() {
   ensureTools(["espeak-ng"]);
   await postgresUp();
   for (const f of fakes()) await fakeUp(f);
+  await ensureVapidKeys();
 }
 
 export function servicesDown() {

@@ -98,3 +98,10 @@ export function KeyIcon({ className = "h-6 w-6" }: P) {
     </svg>
   );
 }
+export function BellIcon({ className = "h-6 w-6" }: P) {
+  return (
+    <svg {...base} className={className}>
+      <path d="M6 16V11a6 6 0 0 1 12 0v5l2 2H4l2-2M10 20a2 2 0 0 0 4 0" />
+    </svg>
+  );
+}

@@ -59,6 +59,8 @@ export async function listFailedMessages({ organisationId, since }: { organisati
     .where(
       and(
         eq(outboundMessages.status, "failed"),
+        // E-mails only: the care team cannot resend a person's own reminder texts and pushes.
+        eq(outboundMessages.channel, "email"),
         gte(outboundMessages.createdAt, since),
         // Not once a resend of it is on its way or delivered.
         sql`not exists (select 1 from outbound_messages r where r.resend_of_id = ${outboundMessages.id} and r.status <> 'failed')`,

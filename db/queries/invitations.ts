@@ -166,16 +166,19 @@ export async function activateCarerLink({ id, carerUserId }: { id: string; carer
 /** The carer's own active link to the patient: whether she is told of urgent check-ins. */
 export async function getCarerAlert({ patientId, carerUserId }: { patientId: string; carerUserId: string }, tx: Executor = db) {
   const [row] = await tx
-    .select({ on: carerLinks.alertOnUrgent })
+    .select({ on: carerLinks.alertOnUrgent, channel: carerLinks.alertChannel })
     .from(carerLinks)
     .where(and(eq(carerLinks.patientId, patientId), eq(carerLinks.carerUserId, carerUserId), eq(carerLinks.status, "active")));
-  return row ? row.on : null;
+  return row ?? null;
 }
 
-export async function setCarerAlert({ patientId, carerUserId, on }: { patientId: string; carerUserId: string; on: boolean }, tx: Executor) {
+export async function setCarerAlert(
+  { patientId, carerUserId, on, channel }: { patientId: string; carerUserId: string; on: boolean; channel?: "email" | "push" | "sms" },
+  tx: Executor,
+) {
   const rows = await tx
     .update(carerLinks)
-    .set({ alertOnUrgent: on, updatedAt: new Date() })
+    .set({ alertOnUrgent: on, ...(channel ? { alertChannel: channel } : {}), updatedAt: new Date() })
     .where(and(eq(carerLinks.patientId, patientId), eq(carerLinks.carerUserId, carerUserId), eq(carerLinks.status, "active")))
     .returning({ id: carerLinks.id });
   return rows.length > 0;

@@ -153,7 +153,8 @@ export async function listPatientMessages({ patientId }: { patientId: string }, 
   const rows = await tx
     .select()
     .from(outboundMessages)
-    .where(eq(outboundMessages.patientId, patientId))
+    // The Letters tab lists e-mails; texts and pushes are the person's own reminders.
+    .where(and(eq(outboundMessages.patientId, patientId), eq(outboundMessages.channel, "email")))
     .orderBy(desc(outboundMessages.createdAt), desc(outboundMessages.id));
   return rows.map(toMessageDto);
 }
@@ -162,7 +163,7 @@ export async function getPatientMessage({ patientId, messageId }: { patientId: s
   const [row] = await tx
     .select()
     .from(outboundMessages)
-    .where(and(eq(outboundMessages.id, messageId), eq(outboundMessages.patientId, patientId)));
+    .where(and(eq(outboundMessages.id, messageId), eq(outboundMessages.patientId, patientId), eq(outboundMessages.channel, "email")));
   return row ?? null;
 }
 

@@ -9,6 +9,9 @@ import { catheterEpisodes } from "./catheters";
 import type { SupplyItemKind } from "@/lib/clinical";
 
 export const outboundStatuses = ["queued", "sending", "sent", "failed"] as const;
+/** How a message leaves: e-mail (to an address), a text (to an E.164 number), a push (to one stored subscription's id). */
+export const outboundChannels = ["email", "sms", "push"] as const;
+export type OutboundChannel = (typeof outboundChannels)[number];
 export type OutboundStatus = (typeof outboundStatuses)[number];
 /** Rendered at send time from its descriptor, so the outbox row stays small. */
 export type AttachmentDescriptor = { kind: string; filename: string; params: Record<string, string> };
@@ -23,10 +26,13 @@ export const outboundMessages = pgTable(
     // killed after the server accepted it) carries the same id and is recognisable.
     messageId: text("message_id").notNull(),
     kind: text("kind").notNull(),
+    channel: text("channel", { enum: outboundChannels }).notNull().default("email"),
     toAddress: text("to_address").notNull(),
     subject: text("subject").notNull(),
     html: text("html").notNull(),
     text: text("text").notNull(),
+    // A push: the page its notification opens (a path in the app).
+    link: text("link"),
     attachments: jsonb("attachments").$type<AttachmentDescriptor[]>()
       .notNull()
       .default(sql`'[]'::jsonb`),
@@ -61,6 +67,7 @@ export const outboundMessages = pgTable(
     check("outbox_sent_ck", sql`${t.status} <> 'sent' or ${t.sentAt} is not null`),
     check("outbox_sending_ck", sql`${t.status} <> 'sending' or (${t.leaseUntil} is not null and ${t.claimToken} is not null)`),
     check("outbox_to_ck", sql`${t.toAddress} <> '' or ${t.status} = 'failed'`),
+    check("outbox_channel_ck", sql`${t.channel} in ('email', 'sms', 'push')`),
   ],
 );
 

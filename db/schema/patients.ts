@@ -94,9 +94,15 @@ export const carerLinks = pgTable(
     revokedAt: timestamp("revoked_at", { withTimezone: true }),
     // The carer chose to be told (by e-mail) when the patient reports an urgent or emergency problem.
     alertOnUrgent: boolean("alert_on_urgent").notNull().default(false),
+    // How she is told: e-mail, a push to her phones, or a text (lib/portal/reach.ts).
+    alertChannel: text("alert_channel", { enum: ["email", "push", "sms"] }).notNull().default("email"),
     ...timestamps,
   },
-  (t) => [index("carer_links_patient_idx").on(t.patientId), index("carer_links_carer_idx").on(t.carerUserId, t.status)],
+  (t) => [
+    index("carer_links_patient_idx").on(t.patientId),
+    index("carer_links_carer_idx").on(t.carerUserId, t.status),
+    check("carer_links_alert_channel_ck", sql`${t.alertChannel} in ('email', 'push', 'sms')`),
+  ],
 );
 
 // One-time codes a clinician gives a patient to open their portal account. Only an HMAC of the

@@ -1,6 +1,6 @@
 // What patients and carers record: check-ins, diary entries and uploads.
 import { sql } from "drizzle-orm";
-import { check, index, integer, jsonb, pgTable, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import { check, index, integer, jsonb, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { user } from "./auth";
 import { timestamps } from "./columns";
 import { patients } from "./patients";
@@ -92,3 +92,46 @@ export const readingPreferences = pgTable(
   },
   (t) => [check("reading_preferences_text_size", sql`${t.textSize} between 0 and 3`)],
 );
+
+// One browser's Web Push subscription (a phone, a laptop), per person. A push service answering
+// 404/410 for it removes the row (lib/push).
+export const pushSubscriptions = pgTable(
+  "push_subscriptions",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    userId: text("user_id")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
+    endpoint: text("endpoint").notNull(),
+    p256dh: text("p256dh").notNull(),
+    auth: text("auth").notNull(),
+    ...timestamps,
+  },
+  (t) => [uniqueIndex("push_subscriptions_endpoint_idx").on(t.endpoint), index("push_subscriptions_user_idx").on(t.userId)],
+);
+export type PushSubscriptionRow = typeof pushSubscriptions.$inferSelect;
+
+/** One reminder the person chose: on or off, the times of day ("HH:MM"), the weekday of a weekly one (0 = Sunday), and how it comes. */
+export type ReminderChoice = { on: boolean; times: string[]; day?: number; channel: "push" | "sms" | "email" };
+
+// How the portal reaches a person (patient or carer): the mobile number for texts (E.164) and
+// when they agreed to texts, quiet hours, and the reminders they chose (lib/portal/reach.ts).
+export const reachSettings = pgTable(
+  "reach_settings",
+  {
+    userId: text("user_id")
+      .primaryKey()
+      .references(() => user.id, { onDelete: "cascade" }),
+    phone: text("phone"),
+    smsConsentAt: timestamp("sms_consent_at", { withTimezone: true }),
+    quietStart: text("quiet_start").notNull().default("22:00"),
+    quietEnd: text("quiet_end").notNull().default("07:00"),
+    reminders: jsonb("reminders").$type<Partial<Record<string, ReminderChoice>>>().notNull().default(sql`'{}'::jsonb`),
+    ...timestamps,
+  },
+  (t) => [
+    check("reach_settings_phone_ck", sql`${t.phone} is null or ${t.phone} ~ '^\\+[1-9][0-9]{6,14}$'`),
+    check("reach_settings_quiet_ck", sql`${t.quietStart} ~ '^([01][0-9]|2[0-3]):[0-5][0-9]$' and ${t.quietEnd} ~ '^([01][0-9]|2[0-3]):[0-5][0-9]$'`),
+  ],
+);
+export type ReachSettings = typeof reachSettings.$inferSelect;

@@ -99,6 +99,11 @@ export function assertUploadStarter(viewer: Viewer, upload: Pick<Upload, "upload
   if ((viewer.role === "patient" || viewer.role === "carer") && upload.uploadedByUserId !== viewer.userId) throw new AppError("not_found");
 }
 
+/** Reminders (bag, valve, change, drinks, check-in) are the patient's own choice; a carer sets her number and alerts only. */
+export function mayChooseReminders(viewer: Viewer): boolean {
+  return viewer.role === "patient";
+}
+
 /** Portal route handlers: a patient or carer (staff are refused with 403). */
 export async function requirePortalViewer(request: Request): Promise<Viewer> {
   return requireRole(request, "patient", "carer");

@@ -52,6 +52,17 @@ const schema = z.object({
   // Salt for the hashed IP addresses kept in audit events and rate-limit keys.
   AUDIT_IP_SALT: z.string().min(8).default("caddis-local-ip-salt"),
   CADDIS_DATA_DIR: z.string().default(".data"),
+  // Text messages (lib/sms): the SMS service's base URL (the local fake from scripts/services.ts
+  // unless set), its key and secret, and the sender name or number.
+  SMS_API_URL: z.url().default("http://127.0.0.1:4590"),
+  SMS_API_KEY: z.string().min(1).default("caddis-local"),
+  SMS_API_SECRET: z.string().min(1).default("caddis-local-secret"),
+  SMS_FROM: z.string().min(1).max(15).default("Caddis"),
+  // Web Push (lib/push): VAPID keys; when unset, lib/config/push.ts reads the pair that
+  // scripts/services.ts made in CADDIS_DATA_DIR/vapid.json.
+  VAPID_PUBLIC_KEY: z.string().min(20).optional(),
+  VAPID_PRIVATE_KEY: z.string().min(20).optional(),
+  VAPID_SUBJECT: z.string().min(8).default("mailto:no-reply@caddis.invalid"),
 });
 
 export type Env = z.infer<typeof schema>;

@@ -4,11 +4,11 @@ import "server-only";
 // raiseAlert, the one alert path), and the two letters when a carer is removed.
 import { and, eq } from "drizzle-orm";
 import type { Executor } from "@/db";
-import { carerLinks, patients, user } from "@/db/schema";
+import { carerLinks, patients, reachSettings, user } from "@/db/schema";
 import { env } from "@/lib/config/env";
 import { getEmergencyNumber, getRegion } from "@/lib/config/settings";
 import { emailDates, emailLocale, emailTranslator } from "./i18n";
-import { queueMessage, type QueuedMessage } from "./outbox";
+import { queueMessage, queuePush, queueText, type QueuedMessage } from "./outbox";
 import { renderEmail } from "./render";
 
 const footer = (t: ReturnType<typeof emailTranslator>) => [t("patient.footerHelp"), t("patient.footerNoReply")];
@@ -22,10 +22,20 @@ export async function queueCarerAlerts(
   { patientId, checkInId, level, reporterUserId }: { patientId: string; checkInId: string; level: "urgent" | "emergency"; reporterUserId?: string | null },
 ): Promise<QueuedMessage[]> {
   const carers = await tx
-    .select({ linkId: carerLinks.id, userId: user.id, email: user.email, locale: user.locale, givenName: patients.givenName })
+    .select({
+      linkId: carerLinks.id,
+      userId: user.id,
+      email: user.email,
+      locale: user.locale,
+      givenName: patients.givenName,
+      channel: carerLinks.alertChannel,
+      phone: reachSettings.phone,
+      smsConsentAt: reachSettings.smsConsentAt,
+    })
     .from(carerLinks)
     .innerJoin(user, eq(user.id, carerLinks.carerUserId))
     .innerJoin(patients, eq(patients.id, carerLinks.patientId))
+    .leftJoin(reachSettings, eq(reachSettings.userId, user.id))
     .where(and(eq(carerLinks.patientId, patientId), eq(carerLinks.status, "active"), eq(carerLinks.alertOnUrgent, true)));
   const emergencyNumber = await getEmergencyNumber(tx);
   const out: QueuedMessage[] = [];
@@ -49,9 +59,23 @@ export async function queueCarerAlerts(
       ],
       footer: footer(t),
     };
+    const key = `carer-alert:${checkInId}:${c.linkId}`;
+    const subject = t(`carerAlert.subject.${level}`, { name: c.givenName });
+    const emergency = emergencyNumber ? t("carerAlert.emergency", { number: emergencyNumber }) : t("carerAlert.emergencyUnset");
+    // Push or text as she chose; when that cannot reach her (no phone subscribed, no number or
+    // no consent), the e-mail goes as well: an alert is never only a failed row.
+    if (c.channel === "push") {
+      const pushed = await queuePush(tx, { idempotencyKey: `${key}:push`, kind: "carer-alert", userId: c.userId, title: subject, body: `${t("carerAlert.teamTold")} ${emergency}`, link: `/${locale}/today?patient=${patientId}`, patientId, locale, sourceId: checkInId });
+      out.push(...pushed);
+      if (pushed.some((r) => r.status !== "failed")) continue;
+    } else if (c.channel === "sms") {
+      const text = await queueText(tx, { idempotencyKey: `${key}:sms`, kind: "carer-alert", to: c.smsConsentAt ? c.phone : null, text: `${subject}. ${t("carerAlert.teamTold")} ${emergency}`, patientId, locale, sourceId: checkInId });
+      out.push(text);
+      if (text.status !== "failed") continue;
+    }
     out.push(
       await queueMessage(tx, {
-        idempotencyKey: `carer-alert:${checkInId}:${c.linkId}`,
+        idempotencyKey: key,
         kind: "carer-alert",
         to: c.email,
         ...renderEmail(content),

@@ -6,7 +6,7 @@ export const clientNamespaces = {
   /** Every page: the root error boundary. */
   root: ["Errors"],
   auth: ["AcceptInvite", "Activate", "CarerInvite", "Common", "Password", "PasswordReset", "SignIn", "SignOut", "TwoFactor"],
-  portal: ["Account", "CheckIn", "Common", "Diary", "Listen", "More", "MyCatheter", "Password", "People", "Pictures", "Portal", "PortalReach", "Reading", "Sessions", "Today", "TwoFactor", "Uploads"],
+  portal: ["Account", "CheckIn", "Common", "Diary", "Listen", "More", "MyCatheter", "Password", "People", "Pictures", "Portal", "PortalReach", "Reading", "Reminders", "Sessions", "Today", "TwoFactor", "Uploads"],
   staff: [
     "Account", "Admin", "AdminOrganisations", "AdminPatients", "AdminSettings", "AdminStaff", "Caseload", "CaseloadState",
     "CareLoop", "Common", "EpisodeForm", "Letters", "Passport", "Password", "PatientDevice", "PatientForm", "PatientRecord",

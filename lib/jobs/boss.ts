@@ -19,6 +19,7 @@ export const QUEUES = {
   acknowledge: "acknowledge-reminders",
   referrals: "referral-reminders",
   twocOverdue: "twoc-overdue",
+  portalReminders: "portal-reminders",
 } as const;
 
 /** The schema version this pg-boss writes (its package's version.json). */
@@ -72,6 +73,15 @@ export async function startBoss({ onSweep, log }: { onSweep: () => Promise<void>
   await boss.schedule(QUEUES.referrals, "*/15 * * * *", {}, { tz: "UTC" });
   // A trial without catheter past its window with no outcome: the lead team is told within 5 minutes.
   await boss.schedule(QUEUES.twocOverdue, "*/5 * * * *", {}, { tz: "UTC" });
+  // The reminders people chose (lib/portal/reminders.ts): every 5 minutes, so one comes within
+  // 5 minutes of its time; its key makes a repeat harmless.
+  await boss.createQueue(QUEUES.portalReminders, { name: QUEUES.portalReminders, retryLimit: 3, retryDelay: 60, expireInSeconds: 300 });
+  await boss.schedule(QUEUES.portalReminders, "*/5 * * * *", {}, { tz: "UTC" });
+  await boss.work(QUEUES.portalReminders, async () => {
+    const { queueDueReminders } = await import("@/lib/portal/reminders");
+    const r = await queueDueReminders();
+    if (r.queued) log(`portal reminders: ${r.queued} queued`);
+  });
   await boss.work(QUEUES.twocOverdue, async () => {
     const { sendOverdueTrialAlerts } = await import("@/lib/records/twoc-overdue");
     await sendOverdueTrialAlerts({ log });

@@ -11,7 +11,11 @@ import {
   markMessageSent,
   OUTBOX_CHANNEL,
 } from "@/db/queries/outbox";
+import { getPushSubscription, removeGoneSubscription } from "@/db/queries/push-subscriptions";
+import type { OutboundMessage } from "@/db/schema";
 import { renderAttachments } from "@/lib/email/attachments";
+import { createPushSender, SubscriptionGone, type PushSender } from "@/lib/push/send";
+import { createSmsSender, type SmsSender } from "@/lib/sms/client";
 import { createMailTransport, type MailTransport } from "@/lib/email/transport";
 import { env } from "@/lib/config/env";
 
@@ -34,9 +38,12 @@ export type OutboxWorkerOptions = {
   /** Deliver only messages whose idempotency key starts with this (a dedicated lane). */
   keyPrefix?: string;
   log?: (message: string) => void;
+  /** Texts (default: the SMS SDK on SMS_API_URL) and pushes (default: web-push). */
+  sms?: SmsSender;
+  push?: PushSender;
 };
 
-type Resolved = Required<Omit<OutboxWorkerOptions, "smtpUrl" | "keyPrefix">> & { smtpUrl: string; keyPrefix: string | undefined };
+type Resolved = Required<Omit<OutboxWorkerOptions, "smtpUrl" | "keyPrefix" | "sms" | "push">> & { smtpUrl: string; keyPrefix: string | undefined };
 
 function resolve(o: OutboxWorkerOptions): Resolved {
   return {
@@ -72,6 +79,36 @@ function describe(error: unknown): string {
 
 export type DeliveryOutcome = "sent" | "retry" | "failed" | "claim-lost";
 
+/** Sends one claimed row on its channel; throws on a failed try. */
+async function sendOn(row: OutboundMessage, o: Resolved, options: OutboxWorkerOptions & { transport: MailTransport }) {
+  if (row.channel === "sms") {
+    await (options.sms ?? createSmsSender()).send({ to: row.toAddress, text: row.text, clientRef: row.id });
+    return;
+  }
+  if (row.channel === "push") {
+    const target = await getPushSubscription({ id: row.toAddress });
+    if (!target) throw new SubscriptionGone("subscription_gone");
+    try {
+      await (options.push ?? createPushSender()).send(target, { title: row.subject, body: row.text, url: row.link, tag: row.idempotencyKey });
+    } catch (error) {
+      if (error instanceof SubscriptionGone) await removeGoneSubscription({ id: target.id });
+      throw error;
+    }
+    return;
+  }
+  const attachments = await renderAttachments(row.attachments);
+  await options.transport.sendMail({
+    from: o.from,
+    to: row.toAddress,
+    subject: row.subject,
+    html: row.html,
+    text: row.text,
+    messageId: row.messageId,
+    headers: { "X-Caddis-Outbox-Id": row.id },
+    attachments,
+  });
+}
+
 /** Claims and sends one due message; null when none is due. */
 export async function deliverNext(options: OutboxWorkerOptions & { transport: MailTransport }): Promise<DeliveryOutcome | null> {
   const o = resolve(options);
@@ -84,19 +121,10 @@ export async function deliverNext(options: OutboxWorkerOptions & { transport: Ma
     return "failed";
   }
   try {
-    const attachments = await renderAttachments(row.attachments);
-    await options.transport.sendMail({
-      from: o.from,
-      to: row.toAddress,
-      subject: row.subject,
-      html: row.html,
-      text: row.text,
-      messageId: row.messageId,
-      headers: { "X-Caddis-Outbox-Id": row.id },
-      attachments,
-    });
+    await sendOn(row, o, options);
   } catch (error) {
-    const final = row.attempts >= o.maxAttempts;
+    // A subscription the push service dropped will never take a message: no retry.
+    const final = row.attempts >= o.maxAttempts || error instanceof SubscriptionGone;
     const message = describe(error);
     await markMessageAttemptFailed({
       id: row.id,

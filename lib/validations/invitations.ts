@@ -35,4 +35,6 @@ export const carerInviteFormSchemas = {
 export const carerAlertSchema = z.strictObject({
   patientId: z.uuid(),
   on: z.boolean(),
+  // How she is told: e-mail (the default), a push to her phones, or a text (her number on More → Reminders).
+  channel: z.enum(["email", "push", "sms"]).optional(),
 });

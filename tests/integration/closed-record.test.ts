@@ -126,6 +126,11 @@ const plans: Record<string, Plan> = {
   "POST /api/admin/staff/[userId]/sign-out": { notARecordWrite: "staff accounts: ends a member of staff's sessions" },
   "DELETE /api/account/sessions": { notARecordWrite: "the viewer's own sign-in sessions" },
   "PUT /api/account/reading": { notARecordWrite: "the viewer's own text size and contrast" },
+  "POST /api/account/push": { notARecordWrite: "the viewer's own browser subscription for notifications" },
+  "DELETE /api/account/push": { notARecordWrite: "the viewer's own browser subscription for notifications" },
+  "PUT /api/account/reach": {
+    notARecordWrite: "the viewer's own number, consent to texts, quiet hours and reminders; nothing in the record (a closed record's reminders stop in the scheduler)",
+  },
   "DELETE /api/account/sessions/[sessionId]": { notARecordWrite: "the viewer's own sign-in sessions" },
 };
 

@@ -83,6 +83,11 @@ export const matrix: Row[] = [
   // Easier reading: a patient's or carer's own text size and contrast (tests/integration/reading-comfort.test.ts).
   { route: "GET /api/account/reading", expect: portalOnly },
   { route: "PUT /api/account/reading", expect: portalOnly },
+  { route: "GET /api/account/push", expect: portalOnly },
+  { route: "POST /api/account/push", expect: portalOnly },
+  { route: "DELETE /api/account/push", expect: portalOnly },
+  { route: "GET /api/account/reach", expect: portalOnly },
+  { route: "PUT /api/account/reach", expect: portalOnly },
   { route: "DELETE /api/account/sessions", expect: anyoneSignedIn },
   {
     route: "DELETE /api/account/sessions/[sessionId]",

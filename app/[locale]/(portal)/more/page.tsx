@@ -4,7 +4,7 @@ import { ReadingComfortForm } from "@/components/account/reading-comfort";
 import { PendingCheckInWarning } from "@/components/check-in/pending-warning";
 import { getReadingComfort } from "@/db/queries/reading";
 import { LanguageSwitcher } from "@/components/layout/language-switcher";
-import { BookIcon, ExitIcon, GlobeIcon, KeyIcon, LifebuoyIcon, PeopleIcon, TubeIcon } from "@/components/portal/nav-icons";
+import { BellIcon, BookIcon, ExitIcon, GlobeIcon, KeyIcon, LifebuoyIcon, PeopleIcon, TubeIcon } from "@/components/portal/nav-icons";
 import { buttonClass } from "@/components/ui/button";
 import { requirePageRole } from "@/lib/auth/permissions";
 import { Link } from "@/lib/i18n/navigation";
@@ -22,11 +22,12 @@ export default async function MorePage({ params }: { params: Promise<{ locale: s
   const viewer = await requirePageRole(locale, "patient", "carer");
   const t = await getTranslations("More");
   const tr = await getTranslations("PortalReach");
+  const tReminders = await getTranslations("Reminders");
   // Only the patient downloads their own data (a carer cannot; an admin does it on request).
   const ownPatient = viewer.role === "patient" ? await portalPatient(viewer, undefined) : null;
   // A carer speaks of the patient by name, and chooses for each whether to be told of urgent check-ins.
   const cared = viewer.role === "carer" ? await portalPatients(viewer) : [];
-  const alerts = await Promise.all(cared.map(async (p) => ({ p, on: (await getCarerAlert({ patientId: p.id, carerUserId: viewer.userId })) ?? false })));
+  const alerts = await Promise.all(cared.map(async (p) => ({ p, choice: (await getCarerAlert({ patientId: p.id, carerUserId: viewer.userId })) ?? { on: false, channel: "email" as const } })));
   const item = (href: string, icon: ReactNode, label: string) => (
     <li>
       <Link href={href} className="flex min-h-16 items-center gap-4 rounded-lg border-2 border-brand bg-paper-raised px-4 py-2 text-xl font-bold text-brand hover:bg-brand-soft">
@@ -45,6 +46,7 @@ export default async function MorePage({ params }: { params: Promise<{ locale: s
         {item("/people", <PeopleIcon className="h-8 w-8 shrink-0" />, t("people"))}
         {item("/help", <LifebuoyIcon className="h-8 w-8 shrink-0" />, t("help"))}
         {item("/more/check-ins", <TubeIcon className="h-8 w-8 shrink-0" />, tr("history.link"))}
+        {item("/more/reminders", <BellIcon className="h-8 w-8 shrink-0" />, tReminders("link"))}
         {viewer.role === "patient" ? item("/more/access", <KeyIcon className="h-8 w-8 shrink-0" />, tr("access.link")) : null}
         {item("/more/security", <KeyIcon className="h-8 w-8 shrink-0" />, t("security.title"))}
       </ul>
@@ -53,8 +55,8 @@ export default async function MorePage({ params }: { params: Promise<{ locale: s
           <h2 id="carer-alerts" className="text-xl font-bold">
             {tr("carers.alertsTitle")}
           </h2>
-          {alerts.map(({ p, on }) => (
-            <CarerAlertToggle key={p.id} patientId={p.id} givenName={p.givenName} initial={on} />
+          {alerts.map(({ p, choice }) => (
+            <CarerAlertToggle key={p.id} patientId={p.id} givenName={p.givenName} initial={choice.on} initialChannel={choice.channel} />
           ))}
         </section>
       ) : null}
