@@ -87,6 +87,13 @@ describe("the portal reaches out", () => {
       await toggle.check();
       await carer.getByTestId("carer-alert-saved").waitFor();
     }
+    // By e-mail (another file may have left her on texts).
+    const channel = carer.getByTestId("carer-alert-channel");
+    if ((await channel.inputValue()) !== "email") {
+      await channel.selectOption("email");
+      await expect.poll(() => channel.inputValue()).toBe("email");
+      await carer.getByTestId("carer-alert-saved").waitFor();
+    }
     await screenshot(carer, "portal-carer-alerts-on-en");
 
     const patient = await phonePage(browser);

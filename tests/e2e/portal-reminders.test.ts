@@ -148,6 +148,9 @@ describe("reminders the patient chooses", () => {
     }
     expect(texts).toHaveLength(1);
     expect(texts[0].text).toMatch(/^Arthur reported an urgent problem\./);
+    // Back to e-mail, as the demo carer had it, for the files after this one.
+    await carer.getByTestId("carer-alert-channel").selectOption("email");
+    await carer.getByTestId("carer-alert-saved").waitFor();
     await carer.context().close();
     await patient.context().close();
   });
