@@ -2,20 +2,18 @@ import "server-only";
 // The cover: the title in both languages, who it belongs to, the QR and its code, the allergies.
 import { Image, Page, Text, View } from "@react-pdf/renderer";
 import { palette as colour } from "../kit/palette";
-import { direction } from "../kit/rtl";
 import type { PdfStrings } from "../kit/strings";
-import { AllergyBox, Columns, DualLabel, Footer, Mark, styles, T } from "./parts";
+import { AllergyBox, Columns, DualLabel, Footer, Mark, styles, T, pageStyle } from "./parts";
 import { iso } from "./rows";
 import type { PassportBookletData } from "./types";
 
-const dir = (s: PdfStrings) => direction(s.rtl);
 
 export function Cover({ all, data }: { all: PdfStrings[]; data: PassportBookletData }) {
   const first = all[0];
   const p = data.patient;
   const row = first.rtl ? "row-reverse" : "row";
   return (
-    <Page size="A5" style={styles.page}>
+    <Page size="A5" style={pageStyle(all)}>
       <View style={[styles.brandRow, { flexDirection: row }]}>
         <Mark />
         <Text style={styles.brandName}>Caddis</Text>
@@ -54,7 +52,8 @@ export function Cover({ all, data }: { all: PdfStrings[]; data: PassportBookletD
         <Image src={data.qrPngDataUrl} style={{ width: 118, height: 118 }} />
         <View style={{ flex: 1 }}>
           <DualLabel all={all} k={(s) => s.t("code")} />
-          <Text style={[dir(first), { fontSize: 19, fontWeight: 700, letterSpacing: 1 }]}>{iso(first, data.shortCode)}</Text>
+          {/* Latin letters only, laid out left to right on the reading side: no direction marks, so no Arabic-script font (and its taller line) joins it. */}
+          <Text style={{ direction: "ltr", textAlign: first.rtl ? "right" : "left", fontSize: 19, fontWeight: 700, letterSpacing: 1 }}>{data.shortCode}</Text>
           {all.map((s, i) => (
             <View key={s.locale} style={{ marginTop: i === 0 ? 3 : 2 }}>
               <T s={s} style={{ fontSize: 9.5, fontWeight: 700 }}>

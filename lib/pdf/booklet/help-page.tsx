@@ -3,7 +3,7 @@ import "server-only";
 import { Page, View } from "@react-pdf/renderer";
 import { palette as colour } from "../kit/palette";
 import type { PdfStrings } from "../kit/strings";
-import { Footer, styles, T } from "./parts";
+import { Footer, styles, T, pageStyle } from "./parts";
 import { iso } from "./rows";
 import type { PassportBookletData } from "./types";
 
@@ -18,7 +18,7 @@ function HelpPage({ s, all, data }: { s: PdfStrings; all: PdfStrings[]; data: Pa
     </T>
   );
   return (
-    <Page size="A5" style={styles.page} wrap>
+    <Page size="A5" style={pageStyle(all)} wrap>
       <View style={{ marginBottom: 6, borderBottomWidth: 1.5, borderBottomColor: colour.brand, paddingBottom: 3 }}>
         <T s={s} style={styles.h2}>
           {s.t("helpTitle")}
