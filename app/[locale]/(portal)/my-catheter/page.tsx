@@ -2,6 +2,7 @@ import { getTranslations } from "next-intl/server";
 import { getFormat } from "@/lib/i18n/format";
 import { SitePhotoUpload } from "@/components/my-catheter/site-photo-upload";
 import { PatientSwitcher } from "@/components/portal/patient-switcher";
+import { buttonClass } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
 import { getMyCatheter } from "@/db/queries/portal";
 import { requirePageRole } from "@/lib/auth/permissions";
@@ -81,6 +82,13 @@ export default async function MyCatheterPage({ params, searchParams }: { params:
           </p>
         ) : null}
         <p className="text-ink-soft">{t("wrong")}</p>
+      </Card>
+      <Card className="flex flex-col gap-2">
+        <h2 className="text-xl font-bold">{t("bookletTitle")}</h2>
+        <p>{t("bookletHint")}</p>
+        <a href={`/api/portal/booklet?patient=${patient.id}`} download className={buttonClass("secondary", "self-start")} data-testid="booklet-download">
+          {t("bookletLink")}
+        </a>
       </Card>
       <SitePhotoUpload patientId={patient.id} />
     </div>
