@@ -1,6 +1,7 @@
 "use client";
 import { parsePlainDecimal } from "@/lib/shared/numbers";
 import { useTranslations } from "next-intl";
+import { WithTerms, type Glossary } from "@/components/glossary/glossary-term";
 import { useEffect, useMemo, useRef, useState } from "react";
 import {
   HOURS_BAND_VALUE,
@@ -38,7 +39,20 @@ function isChosen(question: Question, option: string, answers: SubmittedAnswers)
 }
 
 /** "How am I?": one question per screen, big answers, red flags first, emergency straight to the result. */
-export function CheckInFlow({ patientId, route, contacts, patientName }: { patientId: string; route: Route | null; contacts: Contacts; patientName: string | null }) {
+export function CheckInFlow({
+  patientId,
+  route,
+  contacts,
+  patientName,
+  glossary,
+}: {
+  patientId: string;
+  route: Route | null;
+  contacts: Contacts;
+  patientName: string | null;
+  /** Plain words to tap in the questions and the result (components/glossary). */
+  glossary?: Glossary | null;
+}) {
   const t = useTranslations("CheckIn");
   const tp = useTranslations("Pictures");
   const questions = useMemo(() => questionsFor(route), [route]);
@@ -54,7 +68,7 @@ export function CheckInFlow({ patientId, route, contacts, patientName }: { patie
     headingRef.current?.focus();
   }, [index, done]);
 
-  if (done) return <CheckInResult patientId={patientId} route={route} answers={answers} idempotencyKey={idempotencyKey} contacts={contacts} />;
+  if (done) return <CheckInResult patientId={patientId} route={route} answers={answers} idempotencyKey={idempotencyKey} contacts={contacts} glossary={glossary} />;
 
   const question = questions[index];
   const visible = questions.filter((q) => isAsked(q, answers));
@@ -87,9 +101,13 @@ export function CheckInFlow({ patientId, route, contacts, patientName }: { patie
       </p>
       {patientName ? <p className="font-bold">{t("aboutPatient", { name: patientName })}</p> : null}
       <h1 id="question" ref={headingRef} tabIndex={-1} className="text-3xl font-bold leading-snug outline-none">
-        {t(`questions.${question.id}.${subject}`)}
+        <WithTerms text={t(`questions.${question.id}.${subject}`)} glossary={glossary} />
       </h1>
-      {t.has(`questions.${question.id}.hint` as never) ? <p>{t(`questions.${question.id}.hint` as never)}</p> : null}
+      {t.has(`questions.${question.id}.hint` as never) ? (
+        <p>
+          <WithTerms text={t(`questions.${question.id}.hint` as never)} glossary={glossary} />
+        </p>
+      ) : null}
       {QUESTION_PICTURES[question.id] ? <Picture name={QUESTION_PICTURES[question.id]!} alt={tp(QUESTION_PICTURES[question.id]!)} /> : null}
       <QuestionAnswers key={question.id} question={question} answers={answers} onAnswer={answer} onDraft={(patch) => setAnswers(keepAsked(questions, { ...answers, ...patch }))} />
       {history.length ? (

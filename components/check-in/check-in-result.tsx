@@ -2,6 +2,7 @@
 import { useTranslations } from "next-intl";
 import { useEffect, useMemo, useRef, useState } from "react";
 import { CallButtons, SafetyNotice, type Contacts } from "@/components/portal/call-buttons";
+import { WithTerms, type Glossary } from "@/components/glossary/glossary-term";
 import { LevelBadge } from "@/components/portal/level-badge";
 import { Picture, type PictureKey } from "@/components/pictures/pictures";
 
@@ -20,7 +21,21 @@ type Delivery = "sending" | "sent" | "waiting" | "refused";
  * worked out on the phone with lib/clinical so it shows at once, online or not; the check-in is
  * put in the phone's outbox first and sent from there, so it is never lost.
  */
-export function CheckInResult({ patientId, route, answers, idempotencyKey, contacts }: { patientId: string; route: Route | null; answers: SubmittedAnswers; idempotencyKey: string; contacts: Contacts }) {
+export function CheckInResult({
+  patientId,
+  route,
+  answers,
+  idempotencyKey,
+  contacts,
+  glossary,
+}: {
+  patientId: string;
+  route: Route | null;
+  answers: SubmittedAnswers;
+  idempotencyKey: string;
+  contacts: Contacts;
+  glossary?: Glossary | null;
+}) {
   const t = useTranslations("CheckIn");
   const tp = useTranslations("Pictures");
   const local = useMemo(() => scoreAnswers(answers, route), [answers, route]);
@@ -61,7 +76,9 @@ export function CheckInResult({ patientId, route, answers, idempotencyKey, conta
         <h2 className="text-2xl font-bold">{t("result.whatToDo")}</h2>
         <ul className="flex list-disc flex-col gap-2 ps-6 text-lg">
           {result.advice.map((a) => (
-            <li key={a.key}>{t.has(`advice.${a.key}` as never) ? t(`advice.${a.key}` as never) : a.text}</li>
+            <li key={a.key}>
+              <WithTerms text={t.has(`advice.${a.key}` as never) ? t(`advice.${a.key}` as never) : a.text} glossary={glossary} />
+            </li>
           ))}
         </ul>
       </div>
@@ -76,7 +93,9 @@ export function CheckInResult({ patientId, route, answers, idempotencyKey, conta
           <h2 className="text-2xl font-bold">{t("result.why")}</h2>
           <ul className="flex list-disc flex-col gap-2 ps-6 text-lg">
             {result.reasons.map((r) => (
-              <li key={r.ruleId}>{t.has(`reason.${r.key}` as never) ? t(`reason.${r.key}` as never) : r.text}</li>
+              <li key={r.ruleId}>
+                <WithTerms text={t.has(`reason.${r.key}` as never) ? t(`reason.${r.key}` as never) : r.text} glossary={glossary} />
+              </li>
             ))}
           </ul>
         </div>

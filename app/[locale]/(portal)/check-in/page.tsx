@@ -1,5 +1,6 @@
 import { getTranslations } from "next-intl/server";
 import { CheckInFlow } from "@/components/check-in/check-in-flow";
+import { glossaryEntries } from "@/components/glossary/with-terms";
 import { getActiveRoute } from "@/db/queries/check-ins";
 import { getHelpContacts } from "@/db/queries/contacts";
 import { requirePageRole } from "@/lib/auth/permissions";
@@ -16,6 +17,6 @@ export default async function CheckInPage({ params, searchParams }: { params: Pr
   const t = await getTranslations("Today");
   const patient = await portalPatient(viewer, (await searchParams).patient);
   if (!patient) return <p>{t("noPatient")}</p>;
-  const [route, contacts] = await Promise.all([getActiveRoute({ patientId: patient.id }), getHelpContacts({ patientId: patient.id })]);
-  return <CheckInFlow patientId={patient.id} route={route} contacts={contacts} patientName={subjectName(viewer, patient)} />;
+  const [route, contacts, glossary] = await Promise.all([getActiveRoute({ patientId: patient.id }), getHelpContacts({ patientId: patient.id }), glossaryEntries()]);
+  return <CheckInFlow patientId={patient.id} route={route} contacts={contacts} patientName={subjectName(viewer, patient)} glossary={glossary} />;
 }
