@@ -1,6 +1,6 @@
 // Plain words beyond Learn: the check-in's result, My catheter, Today and Get help make glossary
 // words tappable with the one component (a button with aria-expanded, not a hover), in English
-// and Arabic; axe finds nothing with a meaning open, and at 320 px and 200 % text nothing goes
+// Arabic and Urdu; axe finds nothing with a meaning open, and at 320 px and 200 % text nothing goes
 // sideways and no word breaks inside itself.
 import AxeBuilder from "@axe-core/playwright";
 import type { Browser, Page } from "playwright-core";
@@ -58,7 +58,8 @@ async function openTerm(page: Page, container: string) {
   return term;
 }
 
-for (const [locale, who] of [["en", demo.patient], ["ar", demo.patientAr]] as const) {
+// Urdu: Arthur's pages read in Urdu (Nastaliq), as a patient who chose it would see them.
+for (const [locale, who] of [["en", demo.patient], ["ar", demo.patientAr], ["ur", demo.patient]] as const) {
   describe(`${locale}: plain words on the portal pages`, () => {
     let page: Page;
     beforeAll(async () => {
