@@ -1,6 +1,7 @@
 "use client";
 import { parsePlainDecimal } from "@/lib/shared/numbers";
 import { useTranslations } from "next-intl";
+import { WithTerms, type Glossary } from "@/components/glossary/glossary-term";
 import { useEffect, useMemo, useRef, useState } from "react";
 import {
   HOURS_BAND_VALUE,
@@ -44,6 +45,7 @@ export function CheckInFlow({
   afterCatheter = false,
   contacts,
   patientName,
+  glossary,
 }: {
   patientId: string;
   route: Route | null;
@@ -51,6 +53,8 @@ export function CheckInFlow({
   afterCatheter?: boolean;
   contacts: Contacts;
   patientName: string | null;
+  /** Plain words to tap in the questions and the result (components/glossary). */
+  glossary?: Glossary | null;
 }) {
   const t = useTranslations("CheckIn");
   const tp = useTranslations("Pictures");
@@ -67,7 +71,7 @@ export function CheckInFlow({
     headingRef.current?.focus();
   }, [index, done]);
 
-  if (done) return <CheckInResult patientId={patientId} route={route} afterCatheter={afterCatheter} answers={answers} idempotencyKey={idempotencyKey} contacts={contacts} />;
+  if (done) return <CheckInResult patientId={patientId} route={route} afterCatheter={afterCatheter} answers={answers} idempotencyKey={idempotencyKey} contacts={contacts} glossary={glossary} />;
 
   const question = questions[index];
   const visible = questions.filter((q) => isAsked(q, answers));
@@ -101,9 +105,13 @@ export function CheckInFlow({
       {patientName ? <p className="font-bold">{t("aboutPatient", { name: patientName })}</p> : null}
       <h1 id="question" ref={headingRef} tabIndex={-1} className="text-3xl font-bold leading-snug outline-none">
         {/* After the catheter, pain is asked without "where the catheter goes in". */}
-        {afterCatheter && question.id === "pain" ? t(`questions.painAfter.${subject}`) : t(`questions.${question.id}.${subject}`)}
+        <WithTerms text={afterCatheter && question.id === "pain" ? t(`questions.painAfter.${subject}`) : t(`questions.${question.id}.${subject}`)} glossary={glossary} />
       </h1>
-      {t.has(`questions.${question.id}.hint` as never) ? <p>{t(`questions.${question.id}.hint` as never)}</p> : null}
+      {t.has(`questions.${question.id}.hint` as never) ? (
+        <p>
+          <WithTerms text={t(`questions.${question.id}.hint` as never)} glossary={glossary} />
+        </p>
+      ) : null}
       {QUESTION_PICTURES[question.id] ? <Picture name={QUESTION_PICTURES[question.id]!} alt={tp(QUESTION_PICTURES[question.id]!)} /> : null}
       <QuestionAnswers key={question.id} question={question} answers={answers} onAnswer={answer} onDraft={(patch) => setAnswers(keepAsked(questions, { ...answers, ...patch }))} />
       {history.length ? (

@@ -2,6 +2,7 @@
 import { useTranslations } from "next-intl";
 import { useEffect, useMemo, useRef, useState } from "react";
 import { CallButtons, SafetyNotice, type Contacts } from "@/components/portal/call-buttons";
+import { WithTerms, type Glossary } from "@/components/glossary/glossary-term";
 import { LevelBadge } from "@/components/portal/level-badge";
 import { Picture, type PictureKey } from "@/components/pictures/pictures";
 
@@ -27,6 +28,7 @@ export function CheckInResult({
   answers,
   idempotencyKey,
   contacts,
+  glossary,
 }: {
   patientId: string;
   route: Route | null;
@@ -34,6 +36,7 @@ export function CheckInResult({
   answers: SubmittedAnswers;
   idempotencyKey: string;
   contacts: Contacts;
+  glossary?: Glossary | null;
 }) {
   const t = useTranslations("CheckIn");
   const tp = useTranslations("Pictures");
@@ -75,7 +78,9 @@ export function CheckInResult({
         <h2 className="text-2xl font-bold">{t("result.whatToDo")}</h2>
         <ul className="flex list-disc flex-col gap-2 ps-6 text-lg">
           {result.advice.map((a) => (
-            <li key={a.key}>{t.has(`advice.${a.key}` as never) ? t(`advice.${a.key}` as never) : a.text}</li>
+            <li key={a.key}>
+              <WithTerms text={t.has(`advice.${a.key}` as never) ? t(`advice.${a.key}` as never) : a.text} glossary={glossary} />
+            </li>
           ))}
         </ul>
       </div>
@@ -90,7 +95,9 @@ export function CheckInResult({
           <h2 className="text-2xl font-bold">{t("result.why")}</h2>
           <ul className="flex list-disc flex-col gap-2 ps-6 text-lg">
             {result.reasons.map((r) => (
-              <li key={r.ruleId}>{t.has(`reason.${r.key}` as never) ? t(`reason.${r.key}` as never) : r.text}</li>
+              <li key={r.ruleId}>
+                <WithTerms text={t.has(`reason.${r.key}` as never) ? t(`reason.${r.key}` as never) : r.text} glossary={glossary} />
+              </li>
             ))}
           </ul>
         </div>

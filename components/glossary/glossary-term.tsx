@@ -2,6 +2,32 @@
 // A glossary word on a portal page: tap it to see its plain meaning right after it, tap again
 // (or "Close") to hide it. An inline target in a sentence (WCAG 2.2, 2.5.8 inline exception).
 import { useId, useState } from "react";
+import { findTerms, type GlossaryEntry } from "@/lib/shared/glossary";
+
+/** The glossary of a page's language (components/glossary/with-terms glossaryEntries). */
+export type Glossary = { entries: GlossaryEntry[]; close: string };
+
+/**
+ * Text with its glossary words made tappable: the one way a portal text shows plain words (Learn,
+ * check-in questions and results, Today, My catheter, Get help). Without a glossary, plain text.
+ */
+export function WithTerms({ text, glossary }: { text: string; glossary: Glossary | null | undefined }) {
+  if (!glossary) return <>{text}</>;
+  return (
+    <>
+      {findTerms(text, glossary.entries).map((s, i) => {
+        const entry = s.key ? glossary.entries.find((e) => e.key === s.key) : undefined;
+        return entry ? (
+          <GlossaryTerm key={i} term={entry.term} meaning={entry.meaning} closeLabel={glossary.close}>
+            {s.text}
+          </GlossaryTerm>
+        ) : (
+          <span key={i}>{s.text}</span>
+        );
+      })}
+    </>
+  );
+}
 
 export function GlossaryTerm({ children, term, meaning, closeLabel }: { children: string; term: string; meaning: string; closeLabel: string }) {
   const [open, setOpen] = useState(false);

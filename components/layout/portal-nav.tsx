@@ -15,14 +15,17 @@ export function PortalNav() {
   const t = useTranslations("Portal.nav");
   const pathname = usePathname();
   return (
-    // With very large text (the phone's text size at 200 %), the bar stops floating over the
-    // page and becomes a 2 × 2 block at its end; "Get help" stays in the sticky header.
+    // With very large text (the phone's text size at 200 %, or the person's own largest step on
+    // any phone: a media query's em does not follow it), the bar stops floating over the page and
+    // becomes a block at its end, as many columns of at least 10 rem as fit (one on a phone: a
+    // word such as Urdu "Drinks" in Nastaliq is wider than half of it); "Get help" stays in the
+    // sticky header.
     <nav
       aria-label={t("label")}
       data-testid="portal-nav"
-      className="fixed inset-x-0 bottom-0 z-10 border-t border-stone-faint bg-paper-raised pb-[env(safe-area-inset-bottom)] max-[22em]:static"
+      className="fixed inset-x-0 bottom-0 z-10 border-t border-stone-faint bg-paper-raised pb-[env(safe-area-inset-bottom)] max-[22em]:static in-data-[text-size=3]:static"
     >
-      <ul className="mx-auto flex max-w-xl max-[22em]:grid max-[22em]:grid-cols-2">
+      <ul className="mx-auto flex max-w-xl max-[22em]:grid max-[22em]:grid-cols-[repeat(auto-fit,minmax(min(100%,10rem),1fr))] in-data-[text-size=3]:grid in-data-[text-size=3]:grid-cols-[repeat(auto-fit,minmax(min(100%,10rem),1fr))]">
         {items.map(({ href, key, Icon, match }) => {
           const current = match.some((m) => pathname === m || pathname.startsWith(`${m}/`));
           return (

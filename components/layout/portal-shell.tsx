@@ -39,7 +39,7 @@ export async function PortalShell({ children, reading }: { children: ReactNode; 
           </Link>
         </div>
       </header>
-      <main id="main" className="mx-auto w-full max-w-xl flex-1 px-4 pb-36 pt-5 max-[22em]:px-2 max-[22em]:pb-8">
+      <main id="main" className="mx-auto w-full max-w-xl flex-1 px-4 pb-36 pt-5 max-[22em]:px-2 max-[22em]:pb-8 in-data-[text-size=3]:pb-8">
         <OutboxSync />
         <ListenControl emergencyNumber={await getEmergencyNumber()} />
         {children}

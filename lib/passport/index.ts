@@ -13,6 +13,7 @@ import {
   type PassportSummary,
 } from "@/db/queries/passports";
 import { getPatientForInvite } from "@/db/queries/invitations";
+import { getReadingComfort } from "@/db/queries/reading";
 import { audit } from "@/lib/records/audit";
 import { assertRecordOpen, writeRecord } from "@/lib/records/record-state";
 import type { Viewer } from "@/lib/auth/session";
@@ -36,6 +37,7 @@ import {
   isWellFormedToken,
 } from "./tokens";
 import { isCareTeam } from "@/lib/auth/permissions";
+import { TEXT_SIZES } from "@/lib/validations/reading";
 
 export * from "./tokens";
 
@@ -312,4 +314,17 @@ export async function issuePassport({
     await deleteObject({ key }).catch(() => {});
     throw error;
   }
+}
+
+/**
+ * The booklet a patient or carer downloads from the portal, made now from the record: the same
+ * pages without the QR and passport code (the token is kept only as a hash, and the code is for
+ * clinicians), the patient pages in the reader's own text size and contrast. The caller has
+ * checked that the viewer is the patient or one of their carers.
+ */
+export async function readerBooklet({ viewer, patientId }: { viewer: Viewer; patientId: string }): Promise<Buffer> {
+  const [record, comfort] = await Promise.all([getBookletRecord({ patientId }), getReadingComfort({ userId: viewer.userId })]);
+  if (!record) throw new AppError("not_found");
+  const data = bookletData({ record, url: "", shortCode: "", qrPngDataUrl: "", issuedAt: new Date(), issuedByName: viewer.name });
+  return renderPassportPdf({ ...data, readerCopy: { textScale: TEXT_SIZES[comfort.textSize] / 100, highContrast: comfort.contrast === "high" } });
 }

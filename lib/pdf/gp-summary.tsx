@@ -7,7 +7,7 @@ import type { Styles } from "@react-pdf/renderer";
 import type { Block, EmailContent } from "@/lib/email/render";
 import { emailDates, emailTranslator } from "@/lib/email/i18n";
 import { directionOf } from "@/lib/i18n/routing";
-import { PDF_FONT_FAMILY, registerPdfFonts } from "./kit/fonts";
+import { PDF_FONT_FAMILY, pdfFontFamily, registerPdfFonts } from "./kit/fonts";
 import { palette } from "./kit/palette";
 import { direction as textDirection, pdfText } from "./kit/rtl";
 
@@ -35,28 +35,31 @@ function plainBlock(b: Block, plain: (text: string) => string): Block {
 
 const c = palette;
 
-function styles(rtl: boolean) {
+function styles(locale: string, rtl: boolean) {
   const align = rtl ? ("right" as const) : ("left" as const);
-  const family = rtl ? ["CaddisArabic", ...PDF_FONT_FAMILY.filter((f) => f !== "CaddisArabic")] : PDF_FONT_FAMILY;
+  const stack = pdfFontFamily(locale);
+  const family = rtl ? [stack[stack.length - 1], ...stack.slice(0, -1)] : PDF_FONT_FAMILY;
   // The paragraph direction, set on every text (it is not inherited): a line mixing Arabic with a
   // Latin name then reads from the right.
   const direction = rtl ? ("rtl" as const) : ("ltr" as const);
+  // Nastaliq's words climb from left to right: Urdu needs more leading.
+  const lh = locale === "ur" ? 2.2 : 1.45;
   return {
     page: { paddingTop: 36, paddingBottom: 54, paddingHorizontal: 40, fontFamily: family, fontSize: 10.5, color: c.ink },
     brand: { direction, fontSize: 14, fontWeight: 700, color: c.brand, textAlign: align, marginBottom: 6 },
     title: { direction, fontSize: 18, fontWeight: 700, marginBottom: 6, textAlign: align },
-    intro: { direction, lineHeight: 1.45, marginBottom: 8, textAlign: align },
+    intro: { direction, lineHeight: lh, marginBottom: 8, textAlign: align },
     heading: { direction, fontSize: 12.5, fontWeight: 700, color: c.brand, marginTop: 10, marginBottom: 4, textAlign: align },
     row: { flexDirection: rtl ? "row-reverse" : "row", borderBottomWidth: 0.75, borderBottomColor: c.faint, paddingVertical: 3 },
-    label: { direction, lineHeight: 1.45, width: "38%", fontWeight: 700, color: c.inkSoft, textAlign: align, paddingHorizontal: 3 },
-    value: { direction, lineHeight: 1.45, width: "62%", textAlign: align, paddingHorizontal: 3 },
-    para: { direction, lineHeight: 1.45, marginBottom: 5, textAlign: align },
-    item: { direction, lineHeight: 1.45, marginBottom: 2, textAlign: align },
-    cellHead: { direction, lineHeight: 1.45, flex: 1, fontWeight: 700, backgroundColor: c.sunk, padding: 3, textAlign: align },
-    cell: { direction, lineHeight: 1.45, flex: 1, padding: 3, textAlign: align },
+    label: { direction, lineHeight: lh, width: "38%", fontWeight: 700, color: c.inkSoft, textAlign: align, paddingHorizontal: 3 },
+    value: { direction, lineHeight: lh, width: "62%", textAlign: align, paddingHorizontal: 3 },
+    para: { direction, lineHeight: lh, marginBottom: 5, textAlign: align },
+    item: { direction, lineHeight: lh, marginBottom: 2, textAlign: align },
+    cellHead: { direction, lineHeight: lh, flex: 1, fontWeight: 700, backgroundColor: c.sunk, padding: 3, textAlign: align },
+    cell: { direction, lineHeight: lh, flex: 1, padding: 3, textAlign: align },
     // No lineHeight on the page: inherited, it hides the text this one draws with `render` (@react-pdf 4.9).
     footer: { direction, position: "absolute", bottom: 20, left: 40, right: 40, fontSize: 8.5, color: c.inkSoft, textAlign: align },
-    small: { direction, lineHeight: 1.45, fontSize: 8.5, color: c.inkSoft, marginTop: 2, textAlign: align },
+    small: { direction, lineHeight: lh, fontSize: 8.5, color: c.inkSoft, marginTop: 2, textAlign: align },
   } satisfies Styles;
 }
 
@@ -150,7 +153,7 @@ export async function renderContentPdf(raw: EmailContent, meta: { generatedAt: D
   const { Document, Page, Text, View } = pdf;
   registerPdfFonts(pdf.Font);
   const rtl = directionOf(content.locale) === "rtl";
-  const s = styles(rtl);
+  const s = styles(content.locale, rtl);
   const t = emailTranslator(content.locale);
   const d = emailDates(content.locale, meta.region);
   const doc = (

@@ -13,7 +13,8 @@ const escape = (s: string) => s.replace(/[.*+?^${}()|[\]\\]/g, "\\$&");
  * The text cut where glossary terms are (each `find` form, "a|b", matched from the start of a
  * word to its end, so "balloons" and Polish "balonik" count). "Ch" is matched as written (it is
  * a unit after a number); everything else ignores case. Arabic script words take prefixes (ال،
- * بال…), so there a form may start inside a word.
+ * بال…), so there a form may start inside a word: the whole word is taken, prefix and all, so its
+ * letters stay joined (a word split across two elements loses its joins).
  */
 export function findTerms(text: string, entries: GlossaryEntry[]): Segment[] {
   const forms = entries
@@ -24,7 +25,7 @@ export function findTerms(text: string, entries: GlossaryEntry[]): Segment[] {
   const pattern = forms
     .map(({ form }) => {
       const body = escape(form);
-      return form === "Ch" ? `(?<![\\p{L}\\p{N}])Ch(?![\\p{L}])` : arabicScript(form) ? `${body}[\\p{L}\\p{M}]*` : `(?<![\\p{L}])${body}[\\p{L}\\p{M}]*`;
+      return form === "Ch" ? `(?<![\\p{L}\\p{N}])Ch(?![\\p{L}])` : arabicScript(form) ? `[\\p{L}\\p{M}]*${body}[\\p{L}\\p{M}]*` : `(?<![\\p{L}])${body}[\\p{L}\\p{M}]*`;
     })
     .join("|");
   const re = new RegExp(pattern, "giu");

@@ -3,6 +3,7 @@ import { describe, expect, it } from "vitest";
 import { GET as adminOrganisations } from "@/app/api/admin/organisations/route";
 import { GET as caseload } from "@/app/api/caseload/route";
 import { GET as me } from "@/app/api/me/route";
+import { GET as portalBooklet } from "@/app/api/portal/booklet/route";
 import { GET as portalToday } from "@/app/api/portal/today/route";
 import { call, sessionFor } from "../support/http";
 
@@ -11,6 +12,7 @@ const routes = [
   { name: "GET /api/caseload", handler: caseload, path: "/api/caseload", allowed: ["communityNurse"] },
   { name: "GET /api/admin/organisations", handler: adminOrganisations, path: "/api/admin/organisations", allowed: ["admin"] },
   { name: "GET /api/portal/today", handler: portalToday, path: "/api/portal/today", allowed: ["patient", "carer"] },
+  { name: "GET /api/portal/booklet", handler: portalBooklet, path: "/api/portal/booklet", allowed: ["patient", "carer"] },
   { name: "GET /api/me", handler: me, path: "/api/me", allowed: ["admin", "communityNurse", "patient", "carer"] },
 ] as const;
 const everyone: Who[] = ["anonymous", "admin", "communityNurse", "patient", "carer"];

@@ -38,6 +38,13 @@ describe("plain words", () => {
     expect(findTerms("Open the valve.", en).map((s) => s.text).join("")).toBe("Open the valve.");
   });
 
+  it("an Arabic-script term with a prefix is tapped as the whole word, so its letters stay joined", () => {
+    const ar = entries("ar");
+    // "the balloon": the article is part of the word; split off it would stand unjoined.
+    expect(findTerms("البالون", ar)).toEqual([{ text: "البالون", key: "balloon" }]);
+    expect(findTerms("املأ البالون بالماء.", ar).map((s) => s.text)).toEqual(["املأ ", "البالون", " بالماء."]);
+  });
+
   it.each(["en", "pl", "ar", "ur"])("%s: the Learn pages hold terms to tap (leg bag, night bag, valve at least)", (l) => {
     const found = new Set(findTerms(learnText(l), entries(l)).flatMap((s) => (s.key ? [s.key] : [])));
     for (const key of ["legBag", "nightBag", "valve"] as const) expect(found, `${l} ${key}`).toContain(key);

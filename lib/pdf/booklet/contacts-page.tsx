@@ -3,7 +3,7 @@ import "server-only";
 import { Page, View } from "@react-pdf/renderer";
 import { palette as colour } from "../kit/palette";
 import type { PdfStrings } from "../kit/strings";
-import { Columns, FactTable, Footer, SectionTitle, styles, T } from "./parts";
+import { Columns, FactTable, Footer, SectionTitle, styles, T, pageStyle } from "./parts";
 import { checklistRows, contactRows, eventDetails, eventWhat, iso } from "./rows";
 import type { PassportBookletData } from "./types";
 
@@ -14,7 +14,7 @@ export function ContactsAndHistoryPage({ all, data }: { all: PdfStrings[]; data:
   const cell = { when: { width: "21%" }, what: { width: "28%" }, details: { width: "32%" }, by: { width: "19%" } } as const;
   const cellPad = { paddingHorizontal: 3 };
   return (
-    <Page size="A5" style={styles.page} wrap>
+    <Page size="A5" style={pageStyle(all)} wrap>
       <SectionTitle all={all} k={(s) => s.t("contactsTitle")} />
       <FactTable all={all} rows={contactRows(all, c)} />
       {data.checklist ? (

@@ -3,14 +3,14 @@ import "server-only";
 import { Page, View } from "@react-pdf/renderer";
 import { palette as colour } from "../kit/palette";
 import type { PdfStrings } from "../kit/strings";
-import { Columns, DualLabel, FactTable, Footer, SectionTitle, styles, T } from "./parts";
+import { Columns, DualLabel, FactTable, Footer, SectionTitle, styles, T, pageStyle } from "./parts";
 import { deviceRows, plannedDates } from "./rows";
 import type { PassportBookletData } from "./types";
 
 export function DevicePage({ all, data }: { all: PdfStrings[]; data: PassportBookletData }) {
   const d = data.device;
   return (
-    <Page size="A5" style={styles.page} wrap>
+    <Page size="A5" style={pageStyle(all)} wrap>
       <SectionTitle all={all} k={(s) => s.t("deviceTitle")} />
       {d ? (
         <>

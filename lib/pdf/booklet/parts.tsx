@@ -3,7 +3,7 @@ import "server-only";
 // side per language, labels in every language, the fact table, section titles, the footer.
 import { Path, Rect, StyleSheet, Svg, Text, View } from "@react-pdf/renderer";
 import type { ReactNode } from "react";
-import { PDF_FONT_FAMILY } from "../kit/fonts";
+import { PDF_FONT_FAMILY, pdfFontFamily } from "../kit/fonts";
 import { palette as colour } from "../kit/palette";
 import { direction, pdfText, withoutMarks } from "../kit/rtl";
 import type { PdfStrings } from "../kit/strings";
@@ -48,12 +48,24 @@ export function T({ s, style, children }: { s: PdfStrings; style?: object | obje
   return (
     <Text
       hyphenationPenalty={NO_BREAK}
-      // Arabic script is taller: more leading, one step larger, as on screen.
-      style={[dir(s), { lineHeight: 1.35 }, ...extra, ...(s.rtl ? [{ fontSize: bigger(extra), lineHeight: 1.5 }] : [])]}
+      // Arabic script is taller: more leading, one step larger, as on screen. Nastaliq's words
+      // climb from left to right: react-pdf sets the baseline 1.6 em (the PDF font's ascent) below
+      // the line's top and the tails reach 0.6 em under it, so an Urdu line is 2.2.
+      style={[dir(s), { lineHeight: 1.35 }, ...extra, ...(s.rtl ? [{ fontSize: bigger(extra), lineHeight: s.locale === "ur" ? 2.2 : 1.5 }] : []), ...urdu(s)]}
     >
       {typeof children === "string" ? pdfText(children, s.rtl) : children}
     </Text>
   );
+}
+
+/** Urdu text in its own font stack (Nastaliq); other languages keep the page's. */
+function urdu(s: PdfStrings) {
+  return s.locale === "ur" ? [{ fontFamily: pdfFontFamily(s.locale) as unknown as string }] : [];
+}
+
+/** A booklet page in the first language's font stack; an Urdu footer line needs more room at the foot. */
+export function pageStyle(all: PdfStrings[]) {
+  return [styles.page, { fontFamily: pdfFontFamily(all[0].locale) as unknown as string }, ...(all.some((s) => s.locale === "ur") ? [{ paddingBottom: 64 }] : [])];
 }
 
 function bigger(styleList: object[]): number {
@@ -115,7 +127,7 @@ export function Footer({ all }: { all: PdfStrings[] }) {
         </T>
       ))}
       <Text
-        style={[dir(first), { fontSize: 7.5, color: colour.inkSoft }]}
+        style={[dir(first), { fontSize: 7.5, color: colour.inkSoft }, ...urdu(first)]}
         render={({ pageNumber, totalPages }) => {
           return pdfText(first.t("page", { page: iso(first, String(pageNumber)), total: iso(first, String(totalPages)) }), first.rtl);
         }}

@@ -3,13 +3,13 @@ import "server-only";
 import { Page, Text, View } from "@react-pdf/renderer";
 import { palette as colour } from "../kit/palette";
 import type { PdfStrings } from "../kit/strings";
-import { Columns, DualLabel, Footer, styles, T } from "./parts";
+import { Columns, DualLabel, Footer, styles, T, pageStyle } from "./parts";
 import type { PassportBookletData } from "./types";
 
 export /** The patient's way into the portal: the code once, big, with where to type it and until when. */
 function PortalPage({ all, activation }: { all: PdfStrings[]; activation: NonNullable<PassportBookletData["portalActivation"]> }) {
   return (
-    <Page size="A5" style={styles.page}>
+    <Page size="A5" style={pageStyle(all)}>
       <View style={{ marginBottom: 6, borderBottomWidth: 1.5, borderBottomColor: colour.brand, paddingBottom: 3 }}>
         {all.map((s, i) => (
           <T key={s.locale} s={s} style={i === 0 ? styles.h2 : [styles.h2, { fontSize: 13, color: colour.inkSoft }]}>

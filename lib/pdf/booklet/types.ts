@@ -81,6 +81,11 @@ export type PassportBookletData = {
   };
   /** The latest discharge checklist (null when none): printed with what was not done said plainly. */
   checklist?: BookletChecklist | null;
+  /**
+   * The copy a patient or carer downloads from the portal: no QR or passport code (those are on
+   * the printed booklet only), and the patient pages in the reader's own text size and contrast.
+   */
+  readerCopy?: { textScale: number; highContrast: boolean } | null;
   /** A one-time portal activation code, printed on its own page; never on the stored copy. */
   portalActivation?: { code: string; expiresAt: Date; activateUrl: string } | null;
 };

@@ -44,7 +44,8 @@ describe("security matrix: every route handler × every persona", () => {
         const d = discovered.find((x) => x.key === row.route);
         expect(d, `${row.route} exists`).toBeTruthy();
         const params = row.params ? row.params(fixture) : {};
-        const path = fillPattern(d!.pattern, params) + (row.query ? `?${row.query}` : "");
+        const query = typeof row.query === "function" ? row.query(fixture) : row.query;
+        const path = fillPattern(d!.pattern, params) + (query ? `?${query}` : "");
         const cookie = persona === "anonymous" ? undefined : await sessionFor(personaAccount[persona]);
         const body = d!.method === "GET" || d!.method === "DELETE" ? undefined : {};
         const res = await call(d!.handler, path, { method: d!.method, cookie, params, body });

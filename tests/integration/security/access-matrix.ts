@@ -43,7 +43,7 @@ export type Row =
       route: `${Method} /api/${string}`;
       params?: (f: Fixture) => Record<string, string>;
       /** Query string for GET rows. */
-      query?: string;
+      query?: string | ((f: Fixture) => string);
       expect: Expectations;
     }
   | { route: `${Method} /api/${string}`; exempt: string };
@@ -97,6 +97,12 @@ export const matrix: Row[] = [
   { route: "GET /api/caseload", expect: clinicianOnly },
   { route: "GET /api/admin/organisations", expect: adminOnly },
   { route: "GET /api/portal/today", expect: portalOnly },
+  // The booklet of Arthur for the portal (tests/integration/portal-booklet.test.ts): himself and his carer.
+  {
+    route: "GET /api/portal/booklet",
+    query: (f) => `patient=${f.patientId}`,
+    expect: { anonymous: 401, admin: 403, careTeamClinician: 403, otherClinician: 403, patient: 200, otherPatient: 404, carer: 200 },
+  },
   // Listen: speech for a sentence of a portal page, patients and carers only (tests/integration/speech.test.ts).
   { route: "GET /api/speech", query: "lang=en&text=Drink%20water.", expect: portalOnly },
   // Portal (patients and carers); the data-level cases (other patient 404, revoked carer 404)

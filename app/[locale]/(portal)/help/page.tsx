@@ -1,4 +1,6 @@
 import { getTranslations } from "next-intl/server";
+import { WithTerms } from "@/components/glossary/glossary-term";
+import { glossaryEntries } from "@/components/glossary/with-terms";
 import { CallButtons } from "@/components/portal/call-buttons";
 import { EmergencyIcon, UrgentIcon } from "@/components/ui/level-marks";
 import { getHelpContacts } from "@/db/queries/contacts";
@@ -17,7 +19,7 @@ export default async function HelpPage({ params, searchParams }: { params: Promi
   const viewer = await requirePageRole(locale, "patient", "carer");
   const t = await getTranslations("Help");
   const patient = await portalPatient(viewer, (await searchParams).patient);
-  const contacts = await getHelpContacts({ patientId: patient?.id ?? null });
+  const [contacts, glossary] = await Promise.all([getHelpContacts({ patientId: patient?.id ?? null }), glossaryEntries()]);
   const emergencySigns = ["confused", "breathless", "veryUnwell", "shaking", "noUrine18"] as const;
   const urgentSigns = ["notDraining", "cameOut", "fever", "blood", "pain"] as const;
   return (
@@ -34,7 +36,9 @@ export default async function HelpPage({ params, searchParams }: { params: Promi
         </h2>
         <ul className="flex list-disc flex-col gap-1 ps-6">
           {emergencySigns.map((s) => (
-            <li key={s}>{t(`emergency.${s}`)}</li>
+            <li key={s}>
+              <WithTerms text={t(`emergency.${s}`)} glossary={glossary} />
+            </li>
           ))}
         </ul>
       </section>
@@ -48,7 +52,9 @@ export default async function HelpPage({ params, searchParams }: { params: Promi
         </h2>
         <ul className="flex list-disc flex-col gap-1 ps-6">
           {urgentSigns.map((s) => (
-            <li key={s}>{t(`urgent.${s}`)}</li>
+            <li key={s}>
+              <WithTerms text={t(`urgent.${s}`)} glossary={glossary} />
+            </li>
           ))}
         </ul>
       </section>

@@ -1,7 +1,10 @@
 import { getTranslations } from "next-intl/server";
+import { WithTerms } from "@/components/glossary/glossary-term";
+import { glossaryEntries } from "@/components/glossary/with-terms";
 import { getFormat } from "@/lib/i18n/format";
 import { SitePhotoUpload } from "@/components/my-catheter/site-photo-upload";
 import { PatientSwitcher } from "@/components/portal/patient-switcher";
+import { buttonClass } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
 import { getMyCatheter } from "@/db/queries/portal";
 import { requirePageRole } from "@/lib/auth/permissions";
@@ -23,6 +26,7 @@ export default async function MyCatheterPage({ params, searchParams }: { params:
   const v = await getTranslations("Vocabulary");
   const t = await getTranslations("MyCatheter");
   const format = await getFormat();
+  const glossary = await glossaryEntries();
   const patient = await portalPatient(viewer, (await searchParams).patient);
   if (!patient) return <p>{(await getTranslations("Today"))("noPatient")}</p>;
   const { episode, allergies } = await getMyCatheter({ patientId: patient.id });
@@ -35,9 +39,11 @@ export default async function MyCatheterPage({ params, searchParams }: { params:
   const daysUntil = (d: string) => parseIsoDate("date", d) - parseIsoDate("today", today);
   const row = (label: string, value: string, testId?: string, more?: ReactNode) => (
     <div className="flex flex-col border-b border-stone-faint py-2 last:border-b-0">
-      <dt className="text-ink-soft">{label}</dt>
+      <dt className="text-ink-soft">
+        <WithTerms text={label} glossary={glossary} />
+      </dt>
       <dd className="text-xl font-bold tabular" data-testid={testId}>
-        {value}
+        <WithTerms text={value} glossary={glossary} />
       </dd>
       {more ? <dd>{more}</dd> : null}
     </div>
@@ -81,6 +87,13 @@ export default async function MyCatheterPage({ params, searchParams }: { params:
           </p>
         ) : null}
         <p className="text-ink-soft">{t("wrong")}</p>
+      </Card>
+      <Card className="flex flex-col gap-2">
+        <h2 className="text-xl font-bold">{t("bookletTitle")}</h2>
+        <p>{t("bookletHint")}</p>
+        <a href={`/api/portal/booklet?patient=${patient.id}`} download className={buttonClass("secondary", "self-start")} data-testid="booklet-download">
+          {t("bookletLink")}
+        </a>
       </Card>
       <SitePhotoUpload patientId={patient.id} />
     </div>

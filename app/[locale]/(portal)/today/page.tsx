@@ -1,4 +1,6 @@
 import { getTranslations } from "next-intl/server";
+import { WithTerms } from "@/components/glossary/glossary-term";
+import { glossaryEntries } from "@/components/glossary/with-terms";
 import { getFormat } from "@/lib/i18n/format";
 import { DueWords } from "@/components/portal/due-words";
 import { LevelBadge } from "@/components/portal/level-badge";
@@ -38,6 +40,7 @@ export default async function TodayPage({ params, searchParams }: { params: Prom
   const t = await getTranslations("Today");
   const tc = await getTranslations("CheckIn");
   const format = await getFormat();
+  const glossary = await glossaryEntries();
   const all = await portalPatients(viewer);
   const patient = await portalPatient(viewer, (await searchParams).patient);
   if (!patient) {
@@ -108,7 +111,9 @@ export default async function TodayPage({ params, searchParams }: { params: Prom
           <ul className="flex flex-col gap-2">
             {schedule.map((b) => (
               <li key={b.kind} data-testid={`next-${b.kind}`}>
-                <span className="font-bold">{t(b.kind === "leg-bag" ? "bags.nextLegBag" : "bags.nextValve")}</span>{" "}
+                <span className="font-bold">
+                  <WithTerms text={t(b.kind === "leg-bag" ? "bags.nextLegBag" : "bags.nextValve")} glossary={glossary} />
+                </span>{" "}
                 <span className="font-bold">{day(b.nextOn)}</span>
                 <br />
                 <span className={b.state === "ok" ? "" : "font-bold text-level-urgent-ink"}>
@@ -118,10 +123,14 @@ export default async function TodayPage({ params, searchParams }: { params: Prom
             ))}
           </ul>
         ) : (
-          <p>{t("bags.none", { days: BAG_INTERVALS.legBagDays.value })}</p>
+          <p>
+            <WithTerms text={t("bags.none", { days: BAG_INTERVALS.legBagDays.value })} glossary={glossary} />
+          </p>
         )}
         <BagChangeButtons patientId={patient.id} />
-        <p className="text-ink-soft">{t("bags.nightBag")}</p>
+        <p className="text-ink-soft">
+          <WithTerms text={t("bags.nightBag")} glossary={glossary} />
+        </p>
       </Card>
       </>)}
 

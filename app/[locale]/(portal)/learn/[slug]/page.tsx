@@ -1,6 +1,7 @@
 import { getTranslations } from "next-intl/server";
 import { notFound } from "next/navigation";
-import { glossaryEntries, WithTerms } from "@/components/glossary/with-terms";
+import { WithTerms } from "@/components/glossary/glossary-term";
+import { glossaryEntries } from "@/components/glossary/with-terms";
 import { Picture, type PictureKey } from "@/components/pictures/pictures";
 import { SafetyNotice } from "@/components/portal/call-buttons";
 import { getHelpContacts } from "@/db/queries/contacts";
