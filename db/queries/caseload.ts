@@ -82,10 +82,12 @@ function likePattern(q: string): string {
   return `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
 }
 
-function filterCondition(filter: CaseloadFilter | undefined, today: string, dueSoonDays: number): SQL {
+function filterCondition(filter: CaseloadFilter | undefined, today: string, dueSoonDays: number, searching: boolean): SQL {
   // A patient discharged from the catheter caseload (after a passed trial, no catheter back in)
-  // shows only under "follow-up", until a catheter goes in again.
-  if (filter === "follow-up") return sql`and f.catheter_discharged_at is not null and f.episode_id is null`;
+  // shows only under "follow-up" while a review is to come, until a catheter goes in again; once
+  // the follow-up has ended, only a search by name or number finds them.
+  if (filter === "follow-up") return sql`and f.catheter_discharged_at is not null and f.episode_id is null and f.follow_up_review_on is not null`;
+  if (!filter && searching) return sql``;
   return sql`and (f.catheter_discharged_at is null or f.episode_id is not null) ${dateFilter(filter, today, dueSoonDays)}`;
 }
 
@@ -176,7 +178,7 @@ export function caseloadStatement({
         and (select true from care_team ct where ct.patient_id = p.id and ct.organisation_id = any(${orgs}) limit 1)
     ),
     filtered as not materialized (
-      select f.* from f where true ${search} ${filterCondition(view.filter, today, dueSoonDays)}
+      select f.* from f where true ${search} ${filterCondition(view.filter, today, dueSoonDays, Boolean(view.q))}
     )
     select (select count(*)::int from (select 1 from filtered ${countCap === null ? sql`` : sql`limit ${countCap}`}) c) as total, pg.*
     from (select 1) one

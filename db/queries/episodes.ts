@@ -233,6 +233,16 @@ export async function setCatheterDischarge(
   await tx.update(patients).set({ catheterDischargedAt: dischargedAt, followUpReviewOn }).where(eq(patients.id, patientId));
 }
 
+/** The discharged patient's follow-up review, where one is still to come: its day, or null. */
+export async function getFollowUp({ patientId }: { patientId: string }, tx: Executor) {
+  const [row] = await tx
+    .select({ dischargedAt: patients.catheterDischargedAt, reviewOn: patients.followUpReviewOn })
+    .from(patients)
+    .where(eq(patients.id, patientId))
+    .for("update");
+  return row ?? null;
+}
+
 export async function insertEpisodeEvent({ values }: { values: NewEpisodeEvent }, tx: Executor) {
   const [row] = await tx.insert(episodeEvents).values(values).returning({ id: episodeEvents.id });
   return row.id;

@@ -8,6 +8,7 @@ import {
   closeTrialWithoutCatheter,
   endEpisode,
   getActiveEpisode,
+  getFollowUp,
   getLatestEpisode,
   getPatientForRecording,
   insertEpisode,
@@ -27,7 +28,7 @@ import { reconcileOverrides, runDeviceCheck } from "@/lib/shared/episode-checks"
 import { AppError } from "@/lib/http/errors";
 import { openPatientRecord } from "@/lib/records/patient-record";
 import { assertRecordOpen } from "@/lib/records/record-state";
-import type { ChangeInput, DeviceCheckInput, InsertionInput, RemovalInput, TwocInput, TwocPlanInput } from "@/lib/validations/episode";
+import type { ChangeInput, DeviceCheckInput, FollowUpReviewInput, InsertionInput, RemovalInput, TwocInput, TwocPlanInput } from "@/lib/validations/episode";
 import { dayIn, deploymentTimeZone } from "@/lib/shared/time-zone";
 
 type Ctx = { viewer: Viewer; patientId: string; request: Request };
@@ -355,6 +356,44 @@ export async function planTwoc(ctx: Ctx, input: TwocPlanInput): Promise<{ planne
     const plan = { plannedOn: input.plannedOn ?? null, medicineNote: input.plannedOn ? (input.medicineNote ?? null) : null };
     await setTwocPlan({ episodeId: active.id, ...plan }, tx);
     return plan;
+  });
+}
+
+/**
+ * The follow-up review of a patient discharged after a passed trial, kept in the record's history
+ * on the catheter that came out; another review day keeps them on the caseload's "Follow-up
+ * review" list, none ends the follow-up.
+ */
+export async function recordFollowUpReview(ctx: Ctx, input: FollowUpReviewInput): Promise<{ eventId: string; nextReviewOn: string | null }> {
+  return db.transaction(async (tx) => {
+    await openForWrite(ctx, "episode.follow-up-review", tx);
+    const followUp = await getFollowUp({ patientId: ctx.patientId }, tx);
+    const latest = await getLatestEpisode({ patientId: ctx.patientId }, tx);
+    if (!followUp?.dischargedAt || !followUp.reviewOn || !latest?.removedAt) {
+      throw new AppError("conflict", "No follow-up review is due: the patient is not discharged after a trial.");
+    }
+    if (input.nextReviewOn) assertWithinYear(input.nextReviewOn, "nextReviewOn", "follow_up_range");
+    const reviewedAt = new Date(input.reviewedAt);
+    if (reviewedAt < followUp.dischargedAt) throw new AppError("validation_failed", undefined, { fields: { reviewedAt: ["before_discharge"] } });
+    const organisationId = await organisationForRecord({ patientId: ctx.patientId, organisationIds: ctx.viewer.organisationIds }, tx);
+    const eventId = await insertEpisodeEvent(
+      {
+        values: {
+          episodeId: latest.id,
+          patientId: ctx.patientId,
+          kind: "review",
+          notes: input.notes,
+          occurredAt: reviewedAt,
+          recordedByUserId: ctx.viewer.userId,
+          recordedByName: ctx.viewer.name,
+          organisationId,
+          details: { followUp: true, dueOn: followUp.reviewOn, nextReviewOn: input.nextReviewOn ?? null },
+        },
+      },
+      tx,
+    );
+    await setCatheterDischarge({ patientId: ctx.patientId, dischargedAt: followUp.dischargedAt, followUpReviewOn: input.nextReviewOn ?? null }, tx);
+    return { eventId, nextReviewOn: input.nextReviewOn ?? null };
   });
 }
 

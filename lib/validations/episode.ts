@@ -242,3 +242,17 @@ export const twocPlanSchema = z
   }, always);
 export type TwocPlanInput = z.infer<typeof twocPlanSchema>;
 
+
+/**
+ * The follow-up review of a patient discharged from the catheter caseload after a passed trial:
+ * when it took place, what was found, and the day of another review if one is needed (none: the
+ * follow-up ends and the patient leaves the caseload's "Follow-up review" list).
+ */
+export const followUpReviewSchema = z
+  .object({
+    reviewedAt: pastInstant,
+    notes: requiredText(3, 1000),
+    /** Another review to come (today to a year ahead, checked on the server), or none. */
+    nextReviewOn: isoDate,
+  });
+export type FollowUpReviewInput = z.infer<typeof followUpReviewSchema>;

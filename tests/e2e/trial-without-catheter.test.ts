@@ -200,6 +200,23 @@ describe("trial without catheter", () => {
     await expect.poll(() => nurse.locator("table tr").filter({ hasText: `Marsh${tag}` }).count()).toBe(1);
     expect(await nurse.locator("table tr").filter({ hasText: `Kettle${tag}` }).count()).toBe(0);
 
+    // The follow-up review: recorded on the record with what was found and no further review,
+    // it ends the follow-up; History keeps it; the patient leaves the "Follow-up review" list.
+    await nurse.goto(`/en/patients/${overdue.id}`);
+    const reviewForm = nurse.getByTestId("follow-up-review-form");
+    await reviewForm.getByLabel("What was found").fill("Passing urine well every 3 to 4 hours, no pain, no fever.");
+    await screenshot(nurse, "twoc-follow-up-review-form-en");
+    await reviewForm.getByTestId("follow-up-review-save").click();
+    await expect.poll(() => nurse.getByTestId("catheter-discharged").innerText()).toContain("Follow-up ended.");
+    expect(await nurse.getByTestId("follow-up-review-form").count()).toBe(0);
+    await nurse.goto(`/en/patients/${overdue.id}/history`);
+    await expect.poll(() => nurse.locator("main").innerText()).toContain("Follow-up review after the trial");
+    expect(await nurse.locator("main").innerText()).toContain("Passing urine well every 3 to 4 hours");
+    await screenshot(nurse, "twoc-follow-up-review-history-en");
+    await nurse.goto("/en/caseload?filter=follow-up");
+    await nurse.getByTestId("caseload-table").or(nurse.getByText("No patients")).first().waitFor().catch(() => {});
+    expect(await nurse.locator("table tr").filter({ hasText: `Kettle${tag}` }).count()).toBe(0);
+
     // Phone and Arabic views of the trial under way.
     const phone = await newPage(browser, PHONE);
     await phone.context().addCookies(await nurse.context().cookies());

@@ -61,6 +61,7 @@ const plans: Record<string, Plan> = {
   "POST /api/patients/[patientId]/episodes/change": { who: "communityNurse", params: patient, body: () => ({ ...device, changeKind: "planned", needReviewed: true }) },
   "POST /api/patients/[patientId]/episodes/removal": { who: "communityNurse", params: patient, body: () => ({ removedAt: hourAgo(), reason: "no-longer-needed" }) },
   "POST /api/patients/[patientId]/episodes/twoc-plan": { who: "communityNurse", params: patient, body: () => ({ clear: true }) },
+  "POST /api/patients/[patientId]/episodes/follow-up-review": { who: "communityNurse", params: patient, body: () => ({ reviewedAt: new Date().toISOString(), notes: "Passing urine well." }) },
   "POST /api/patients/[patientId]/episodes/twoc": { who: "communityNurse", params: patient, body: () => ({ occurredAt: hourAgo(), outcome: "passed", voids: [{ volumeMl: 250 }] }) },
   "POST /api/patients/[patientId]/episodes/check": { notARecordWrite: "a look-up: the findings for a draft, nothing stored but the audit event of the view" },
   "POST /api/patients/[patientId]/visits": { who: "communityNurse", params: patient, body: () => ({ occurredAt: hourAgo(), notes: "Visit after closing" }) },

@@ -19,6 +19,8 @@ import { Fhir } from "fhir";
 import { dayIn } from "@/lib/shared/time-zone";
 import { POST as postCheckIn } from "@/app/api/check-ins/route";
 import { POST as postPlan } from "@/app/api/patients/[patientId]/episodes/twoc-plan/route";
+import { POST as postFollowUp } from "@/app/api/patients/[patientId]/episodes/follow-up-review/route";
+import { getPatientHistory } from "@/db/queries/history";
 import { POST as postChecklist } from "@/app/api/patients/[patientId]/discharge-checklist/route";
 import { GET as getCaseload } from "@/app/api/caseload/route";
 import { GET as getSettingsRoute, PATCH as patchSettings } from "@/app/api/admin/settings/route";
@@ -258,6 +260,41 @@ describe("a trial without catheter under way", () => {
     expect(again.status).toBe(201);
     expect(await rowsOf("follow-up", patientId)).toEqual([]);
     expect((await rowsOf(undefined, patientId)).map((r) => r.followUp)).toEqual([false]);
+  });
+
+  it("the follow-up review is recorded in History; another review day keeps the patient under follow-up, none ends it (a search still finds them)", async () => {
+    const { patientId } = await patientWithCatheter();
+    const [{ familyName }] = await db.select({ familyName: patients.familyName }).from(patients).where(eq(patients.id, patientId));
+    // Not discharged yet: nothing to review.
+    expect((await post(postFollowUp, patientId, "/follow-up-review", { reviewedAt: minutesAgo(1), notes: "Passing urine well." })).status).toBe(409);
+    await post(postRemoval, patientId, "/removal", { removedAt: minutesAgo(300), reason: "trial-without-catheter" });
+    await post(postTwoc, patientId, "/twoc", { occurredAt: minutesAgo(200), voids: [{ volumeMl: 300 }], outcome: "passed", discharge: true, followUpReviewOn: dayFromToday(3) });
+    // Bad input writes nothing: no notes, a next day out of range, a review before the discharge.
+    const bad = await post(postFollowUp, patientId, "/follow-up-review", { reviewedAt: minutesAgo(1), notes: "", nextReviewOn: dayFromToday(500) });
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.fields.notes).toBeDefined();
+    expect((await post(postFollowUp, patientId, "/follow-up-review", { reviewedAt: minutesAgo(1), notes: "Passing urine well.", nextReviewOn: dayFromToday(500) })).body.error.fields.nextReviewOn).toEqual(["follow_up_range"]);
+    expect((await post(postFollowUp, patientId, "/follow-up-review", { reviewedAt: minutesAgo(250), notes: "Passing urine well." })).body.error.fields.reviewedAt).toEqual(["before_discharge"]);
+    expect((await rowsOf("follow-up", patientId))[0].reviewDueOn).toBe(dayFromToday(3));
+
+    // A first review with another to come: still under follow-up, on the new day.
+    const next = dayFromToday(30);
+    const first = await post(postFollowUp, patientId, "/follow-up-review", { reviewedAt: minutesAgo(2), notes: "Some frequency, no pain.", nextReviewOn: next });
+    expect(first.status).toBe(201);
+    expect((await rowsOf("follow-up", patientId))[0].reviewDueOn).toBe(next);
+    // The last review: the follow-up ends; off every list, but a search by name finds them.
+    expect((await post(postFollowUp, patientId, "/follow-up-review", { reviewedAt: minutesAgo(1), notes: "Passing urine well, no symptoms." })).status).toBe(201);
+    expect(await rowsOf("follow-up", patientId)).toEqual([]);
+    expect(await rowsOf(undefined, patientId)).toEqual([]);
+    const found = await listCaseload({ organisationIds: [harbourside], dueSoonDays: 7, query: caseloadQuerySchema.parse({ q: familyName, pageSize: 100 }) });
+    expect(found.rows.map((r) => r.patientId)).toContain(patientId);
+    // Nothing more to review.
+    expect((await post(postFollowUp, patientId, "/follow-up-review", { reviewedAt: minutesAgo(0), notes: "Again." })).status).toBe(409);
+    // History keeps both reviews on the catheter that came out, with their notes.
+    const history = await getPatientHistory({ patientId });
+    const reviews = history.episodes.flatMap((e) => e.events).filter((v) => v.kind === "review");
+    expect(reviews.map((v) => v.notes).sort()).toEqual(["Passing urine well, no symptoms.", "Some frequency, no pain."]);
+    expect(reviews.map((v) => v.details.nextReviewOn ?? null).sort()).toEqual([next, null].sort());
   });
 
   it("after the catheter the portal's check-in is scored on passing urine: unable to pass urine → urgent, the lead team told (the server decides it is after the catheter, not the phone)", async () => {

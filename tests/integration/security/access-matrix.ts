@@ -140,6 +140,7 @@ export const matrix: Row[] = [
   { route: "POST /api/patients/[patientId]/episodes/removal", params: patient, expect: staffOnPatient },
   { route: "POST /api/patients/[patientId]/episodes/twoc", params: patient, expect: staffOnPatient },
   { route: "POST /api/patients/[patientId]/episodes/twoc-plan", params: patient, expect: staffOnPatient },
+  { route: "POST /api/patients/[patientId]/episodes/follow-up-review", params: patient, expect: staffOnPatient },
   { route: "POST /api/patients/[patientId]/episodes/check", params: patient, expect: staffOnPatient },
   // Clinician workspace: caseload export, registration, the record's details, history, access log.
   { route: "GET /api/caseload/export", expect: clinicianOnly },

@@ -11,6 +11,7 @@ import { charriereToMm, parseIsoDate, stateFor } from "@/lib/clinical";
 import { getPlanDefaults, getTwocVoidWindowHours } from "@/lib/config/settings";
 import { getLatestEpisode } from "@/db/queries/episodes";
 import { TrialPanel } from "@/components/twoc/trial-panel";
+import { FollowUpReviewForm } from "@/components/twoc/follow-up-review-form";
 import { TwocPlanForm } from "@/components/twoc/twoc-plan-form";
 import { trialInProgress } from "@/lib/records/episodes";
 import { Link } from "@/lib/i18n/navigation";
@@ -185,14 +186,23 @@ export default async function DeviceTab({ params }: { params: Promise<{ locale: 
         ) : trial ? (
           <TrialPanel patientId={patientId} removedAt={trial.removedAt!.toISOString()} windowHours={windowHours} closed={closed} />
         ) : (
+          <>
           <Card>
             {record.patient.catheterDischargedAt ? (
               <p className="font-bold" data-testid="catheter-discharged">
-                {t("discharged", { date: dateTime(record.patient.catheterDischargedAt), review: date(record.patient.followUpReviewOn) })}
+                {record.patient.followUpReviewOn
+                  ? t("discharged", { date: dateTime(record.patient.catheterDischargedAt), review: date(record.patient.followUpReviewOn) })
+                  : t("dischargedFollowUpEnded", { date: dateTime(record.patient.catheterDischargedAt) })}
               </p>
             ) : null}
             <p>{t("noneInPlaceBody")}</p>
           </Card>
+          {record.patient.catheterDischargedAt && record.patient.followUpReviewOn && !closed ? (
+            <Card>
+              <FollowUpReviewForm patientId={patientId} />
+            </Card>
+          ) : null}
+          </>
         )}
       </section>
 

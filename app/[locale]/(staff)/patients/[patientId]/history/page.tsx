@@ -23,13 +23,14 @@ export default async function HistoryTab({ params }: { params: Promise<{ locale:
   const t = await getTranslations("PatientHistory");
   const vocab = await getTranslations("Vocabulary");
   const tw = await getTranslations("Twoc.result");
+  const tf = await getTranslations("Twoc.followUp");
   const format = await getFormat();
   const dateTime = (iso: string) => format.dateTime(new Date(iso), { dateStyle: "medium", timeStyle: "short" });
   const date = (iso: string) => format.dateTime(new Date(`${iso}T12:00:00Z`), { dateStyle: "medium" });
   const b = history.blockage;
 
   const eventLine = (v: HistoryEvent) => {
-    const parts = [vocab(`eventKind.${v.kind}`)];
+    const parts = [v.kind === "review" && v.details.followUp ? tf("historyLabel") : vocab(`eventKind.${v.kind}`)];
     if (v.reason) parts.push(vocab(`unplannedReason.${v.reason}`));
     if (v.twocOutcome) parts.push(vocab(`twocOutcome.${v.twocOutcome}`));
     return parts.join(" — ");
@@ -119,7 +120,11 @@ export default async function HistoryTab({ params }: { params: Promise<{ locale:
                             (a) => vocab(`failedAction.${a}`),
                             (s) => vocab(`twocSymptom.${s}`),
                           ).join(" · ")
-                        : null,
+                        : v.kind === "review" && v.details.followUp
+                          ? typeof v.details.nextReviewOn === "string"
+                            ? tf("historyNext", { date: date(v.details.nextReviewOn) })
+                            : tf("historyEnded")
+                          : null,
                   }),
                 }}
               />
