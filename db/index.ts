@@ -20,6 +20,9 @@ function createPool() {
     idleTimeoutMillis: 30_000,
     // Finds a connection the network or a database restart dropped, instead of waiting on it.
     keepAlive: true,
+    // No JIT: the app's statements are short, and compiling the caseload's (its cost passes the
+    // JIT threshold at 100,000 patients) took 0.8 s of its 1.5 s (docs/performance.md).
+    options: "-c jit=off",
   });
   // A dropped connection (e.g. a database restart) must not crash the process; the pool
   // replaces the client on the next query.

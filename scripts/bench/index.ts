@@ -250,7 +250,8 @@ async function main() {
   let counts = await seedLarge(databaseUrl, { patients: SMALL });
   add("data set, small", `${counts.patients} patients, ${counts.episodes} episodes, ${counts.events} events, ${counts.diary} diary entries (loaded in ${((Date.now() - t0) / 1000).toFixed(1)} s: ${stepTimes(counts.times)})`);
 
-  const client = new pg.Client({ connectionString: databaseUrl });
+  // As the app connects (db/index.ts): no JIT, so the EXPLAIN below is what the app runs.
+  const client = new pg.Client({ connectionString: databaseUrl, options: "-c jit=off" });
   await client.connect();
   add("load average before the build (1, 5, 15 min)", loadAverage());
 
