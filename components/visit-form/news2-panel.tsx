@@ -2,21 +2,12 @@
 // RCP response, with the words that local policy, the maker's instructions and clinical judgement
 // come first. Band shown by a word and a bordered box, never by colour alone.
 import { useTranslations } from "next-intl";
-import { news2HomeResponse, type Consciousness, type News2ResponseKey, type News2Risk } from "@/lib/clinical";
+import { news2HomeResponse, type News2Observations, type News2ResponseKey, type News2Risk } from "@/lib/clinical";
 
 export type News2View = { total: number; subscores: Record<string, number>; risk: News2Risk; response: News2ResponseKey };
 
 /** The observations as measured (the record's ObservationDto values). */
-export type News2Values = {
-  respirationRate: number;
-  spo2: number;
-  spo2Scale: 1 | 2;
-  onOxygen: boolean;
-  systolicBp: number;
-  pulse: number;
-  consciousness: Consciousness;
-  temperatureC: number;
-};
+export type News2Values = News2Observations;
 
 /** The numbers to call from the home (the care team's from its organisations, the emergency number from Settings). */
 export type News2Contacts = { emergencyNumber: string | null; team: { name: string; phone: string | null; outOfHoursPhone: string | null }[] };

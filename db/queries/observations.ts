@@ -3,22 +3,14 @@ import "server-only";
 import { and, desc, eq, sql } from "drizzle-orm";
 import { db, type Executor } from "@/db";
 import { episodeEvents, observations, type NewObservation, type Observation } from "@/db/schema";
+import type { News2Observations } from "@/lib/clinical";
 import { visitFindingsSchema, type VisitFindings } from "@/lib/validations/visit";
 
 export type ObservationDto = {
   id: string;
   eventId: string | null;
   takenAt: string;
-  values: {
-    respirationRate: number;
-    spo2: number;
-    spo2Scale: 1 | 2;
-    onOxygen: boolean;
-    systolicBp: number;
-    pulse: number;
-    consciousness: Observation["consciousness"];
-    temperatureC: number;
-  };
+  values: News2Observations;
   news2: { total: number; subscores: Record<string, number>; risk: Observation["news2Risk"]; response: Observation["news2Response"] };
   recordedByName: string;
 };

@@ -272,34 +272,20 @@ export function buildFhirBundle(input: FhirInput) {
       performer: [{ display: trial.recordedByName }],
     };
     const members: string[] = [];
-    r.voids.forEach((v, i) => {
-      const id = childId(trial.id, i + 1);
+    // Each void and the residual: an Observation of its own, a member of the trial's outcome.
+    const member = (id: string, fields: Record<string, unknown>) => {
       members.push(id);
-      entries.push({
-        fullUrl: urn(id),
-        resource: {
-          resourceType: "Observation",
-          id,
-          ...base,
-          code: { coding: [URINE_VOLUME], text: `Voided volume ${i + 1} (trial without catheter)` },
-          valueQuantity: ML(v.volumeMl),
-          ...(v.at ? { note: [{ text: `Passed at ${v.at} (local time)` }] } : {}),
-        },
-      });
-    });
+      entries.push({ fullUrl: urn(id), resource: { resourceType: "Observation", id, ...base, ...fields } });
+    };
+    r.voids.forEach((v, i) =>
+      member(childId(trial.id, i + 1), {
+        code: { coding: [URINE_VOLUME], text: `Voided volume ${i + 1} (trial without catheter)` },
+        valueQuantity: ML(v.volumeMl),
+        ...(v.at ? { note: [{ text: `Passed at ${v.at} (local time)` }] } : {}),
+      }),
+    );
     if (r.postVoidResidualMl !== null) {
-      const id = childId(trial.id, 30);
-      members.push(id);
-      entries.push({
-        fullUrl: urn(id),
-        resource: {
-          resourceType: "Observation",
-          id,
-          ...base,
-          code: { text: "Post-void residual urine volume (bladder scan)" },
-          valueQuantity: ML(r.postVoidResidualMl),
-        },
-      });
+      member(childId(trial.id, 30), { code: { text: "Post-void residual urine volume (bladder scan)" }, valueQuantity: ML(r.postVoidResidualMl) });
     }
     const notes = [r.reason ? `Reason: ${r.reason}` : null, r.failedAction ? `What was done: ${r.failedAction}` : null].filter((n): n is string => n !== null);
     entries.push({

@@ -20,7 +20,7 @@ import {
   type EpisodeDto,
   type PatientForRecording,
 } from "@/db/queries/episodes";
-import type { CatheterEpisode, NewCatheterEpisode } from "@/db/schema";
+import type { CatheterEpisode, NewCatheterEpisode, NewEpisodeEvent } from "@/db/schema";
 import type { Viewer } from "@/lib/auth/session";
 import { planDates, type Finding, type PlanDefaults } from "@/lib/clinical";
 import { getPlanDefaults } from "@/lib/config/settings";
@@ -45,6 +45,17 @@ async function openForWrite(ctx: Ctx, action: string, tx: Transaction): Promise<
   const patient = await getPatientForRecording({ patientId: ctx.patientId, lock: true }, tx);
   if (!patient) throw new AppError("not_found");
   return patient;
+}
+
+/** An event of the record by the viewer, for their organisation on it (looked up unless given). */
+async function recordEvent(
+  ctx: Ctx,
+  values: Omit<NewEpisodeEvent, "patientId" | "recordedByUserId" | "recordedByName" | "organisationId">,
+  tx: Transaction,
+  organisationId?: string | null,
+) {
+  const organisation = organisationId === undefined ? await organisationForRecord({ patientId: ctx.patientId, organisationIds: ctx.viewer.organisationIds }, tx) : organisationId;
+  return insertEpisodeEvent({ values: { ...values, patientId: ctx.patientId, recordedByUserId: ctx.viewer.userId, recordedByName: ctx.viewer.name, organisationId: organisation } }, tx);
 }
 
 /** Device checks on the server; a stop without an override reason refuses the whole request. */
@@ -160,20 +171,16 @@ export async function recordInsertion(ctx: Ctx, input: InsertionInput): Promise<
     // patient discharged after an earlier trial back on the catheter caseload.
     if (latest?.awaitingTwoc) await closeTrialWithoutCatheter({ episodeId: latest.id }, tx);
     await setCatheterDischarge({ patientId: ctx.patientId, dischargedAt: null, followUpReviewOn: null }, tx);
-    const eventId = await insertEpisodeEvent(
+    const eventId = await recordEvent(
+      ctx,
       {
-        values: {
-          episodeId: episode.id,
-          patientId: ctx.patientId,
-          kind: "insertion",
-          occurredAt: insertedAt,
-          recordedByUserId: ctx.viewer.userId,
-          recordedByName: ctx.viewer.name,
-          organisationId,
-          details: checkDetails(findings, overrides, ctx.viewer),
-        },
+        episodeId: episode.id,
+        kind: "insertion",
+        occurredAt: insertedAt,
+        details: checkDetails(findings, overrides, ctx.viewer),
       },
       tx,
+      organisationId,
     );
     // The GP practice hears of it in this same transaction (docs/email.md).
     await queueGpSummary(tx, { patientId: ctx.patientId, eventId, cause: "insertion", actorName: ctx.viewer.name });
@@ -205,22 +212,18 @@ export async function recordChange(ctx: Ctx, input: ChangeInput): Promise<Record
       { values: episodeValues(input, ctx, { organisationId, previousEpisodeId: current.id, findings, overrides, timeZone, planning: await getPlanDefaults(tx) }) },
       tx,
     );
-    const eventId = await insertEpisodeEvent(
+    const eventId = await recordEvent(
+      ctx,
       {
-        values: {
-          episodeId: episode.id,
-          patientId: ctx.patientId,
-          kind: unplanned ? "unplanned_change" : "planned_change",
-          reason: unplanned ? input.unplannedReason! : null,
-          notes: input.reasonNotes ?? null,
-          occurredAt: insertedAt,
-          recordedByUserId: ctx.viewer.userId,
-          recordedByName: ctx.viewer.name,
-          organisationId,
-          details: { previousEpisodeId: current.id, needReviewed: input.needReviewed, ...checkDetails(findings, overrides, ctx.viewer) },
-        },
+        episodeId: episode.id,
+        kind: unplanned ? "unplanned_change" : "planned_change",
+        reason: unplanned ? input.unplannedReason! : null,
+        notes: input.reasonNotes ?? null,
+        occurredAt: insertedAt,
+        details: { previousEpisodeId: current.id, needReviewed: input.needReviewed, ...checkDetails(findings, overrides, ctx.viewer) },
       },
       tx,
+      organisationId,
     );
     // The GP practice hears of it in this same transaction (docs/email.md).
     await queueGpSummary(tx, { patientId: ctx.patientId, eventId, cause: "change", actorName: ctx.viewer.name });
@@ -242,24 +245,18 @@ export async function recordRemoval(ctx: Ctx, input: RemovalInput): Promise<Reco
     const startTwoc = input.startTwoc || input.reason === "trial-without-catheter";
     const ended = await endEpisode({ episodeId: current.id, removedAt, removalReason: input.reason, awaitingTwoc: startTwoc }, tx);
     if (!ended) throw new AppError("conflict", "The catheter was removed by someone else meanwhile.");
-    const organisationId = await organisationForRecord({ patientId: ctx.patientId, organisationIds: ctx.viewer.organisationIds }, tx);
-    const eventId = await insertEpisodeEvent(
+    const eventId = await recordEvent(
+      ctx,
       {
-        values: {
-          episodeId: current.id,
-          patientId: ctx.patientId,
-          kind: "removal",
-          notes: input.notes ?? null,
-          occurredAt: removedAt,
-          recordedByUserId: ctx.viewer.userId,
-          recordedByName: ctx.viewer.name,
-          organisationId,
-          details: {
-            reason: input.reason,
-            startTwoc,
-            balloonDeflatedMl: input.balloonDeflatedMl ?? null,
-            catheterIntact: input.catheterIntact,
-          },
+        episodeId: current.id,
+        kind: "removal",
+        notes: input.notes ?? null,
+        occurredAt: removedAt,
+        details: {
+          reason: input.reason,
+          startTwoc,
+          balloonDeflatedMl: input.balloonDeflatedMl ?? null,
+          catheterIntact: input.catheterIntact,
         },
       },
       tx,
@@ -300,29 +297,23 @@ export async function recordTwoc(ctx: Ctx, input: TwocInput): Promise<RecordedTw
     await closeTrialWithoutCatheter({ episodeId: trial.id }, tx);
     if (input.discharge) await setCatheterDischarge({ patientId: ctx.patientId, dischargedAt: occurredAt, followUpReviewOn: input.followUpReviewOn! }, tx);
     const totalVoidedMl = input.voids.reduce((sum, v) => sum + v.volumeMl, 0);
-    const organisationId = await organisationForRecord({ patientId: ctx.patientId, organisationIds: ctx.viewer.organisationIds }, tx);
-    const eventId = await insertEpisodeEvent(
+    const eventId = await recordEvent(
+      ctx,
       {
-        values: {
-          episodeId: trial.id,
-          patientId: ctx.patientId,
-          kind: "twoc_outcome",
-          twocOutcome: input.outcome,
-          notes: input.notes ?? null,
-          occurredAt,
-          recordedByUserId: ctx.viewer.userId,
-          recordedByName: ctx.viewer.name,
-          organisationId,
-          details: {
-            voidsMl: input.voids.map((v) => v.volumeMl),
-            voids: input.voids.map((v) => ({ at: v.at ?? null, volumeMl: v.volumeMl })),
-            totalVoidedMl,
-            postVoidResidualMl: input.postVoidResidualMl ?? null,
-            symptoms: input.symptoms,
-            reason: input.reason ?? null,
-            failedAction: input.failedAction ?? null,
-            followUpReviewOn: input.followUpReviewOn ?? null,
-          },
+        episodeId: trial.id,
+        kind: "twoc_outcome",
+        twocOutcome: input.outcome,
+        notes: input.notes ?? null,
+        occurredAt,
+        details: {
+          voidsMl: input.voids.map((v) => v.volumeMl),
+          voids: input.voids.map((v) => ({ at: v.at ?? null, volumeMl: v.volumeMl })),
+          totalVoidedMl,
+          postVoidResidualMl: input.postVoidResidualMl ?? null,
+          symptoms: input.symptoms,
+          reason: input.reason ?? null,
+          failedAction: input.failedAction ?? null,
+          followUpReviewOn: input.followUpReviewOn ?? null,
         },
       },
       tx,
@@ -375,20 +366,14 @@ export async function recordFollowUpReview(ctx: Ctx, input: FollowUpReviewInput)
     if (input.nextReviewOn) assertWithinYear(input.nextReviewOn, "nextReviewOn", "follow_up_range");
     const reviewedAt = new Date(input.reviewedAt);
     if (reviewedAt < followUp.dischargedAt) throw new AppError("validation_failed", undefined, { fields: { reviewedAt: ["before_discharge"] } });
-    const organisationId = await organisationForRecord({ patientId: ctx.patientId, organisationIds: ctx.viewer.organisationIds }, tx);
-    const eventId = await insertEpisodeEvent(
+    const eventId = await recordEvent(
+      ctx,
       {
-        values: {
-          episodeId: latest.id,
-          patientId: ctx.patientId,
-          kind: "review",
-          notes: input.notes,
-          occurredAt: reviewedAt,
-          recordedByUserId: ctx.viewer.userId,
-          recordedByName: ctx.viewer.name,
-          organisationId,
-          details: { followUp: true, dueOn: followUp.reviewOn, nextReviewOn: input.nextReviewOn ?? null },
-        },
+        episodeId: latest.id,
+        kind: "review",
+        notes: input.notes,
+        occurredAt: reviewedAt,
+        details: { followUp: true, dueOn: followUp.reviewOn, nextReviewOn: input.nextReviewOn ?? null },
       },
       tx,
     );
