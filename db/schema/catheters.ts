@@ -78,6 +78,13 @@ export const catheterEpisodes = pgTable(
     // the index, so a page of 50 at 100,000 patients reads only its own rows.
     index("episodes_active_change_review_idx").on(t.plannedChangeOn, t.reviewDueOn).where(sql`${t.removedAt} is null`),
     index("episodes_active_review_idx").on(t.reviewDueOn).where(sql`${t.removedAt} is null`),
+    // The caseload's other orders and its trial filter walk these (db/queries/caseload.ts).
+    index("episodes_active_inserted_idx").on(t.insertedAt).where(sql`${t.removedAt} is null`),
+    index("episodes_active_twoc_idx")
+      .on(t.plannedChangeOn)
+      .where(sql`${t.removedAt} is null and (${t.awaitingTwoc} or ${t.twocPlannedOn} is not null)`),
+    // A trial under way: the catheter is out and its outcome is not recorded.
+    index("episodes_trial_awaiting_idx").on(t.patientId).where(sql`${t.awaitingTwoc} and ${t.removedAt} is not null`),
     check("episodes_size_ck", sql`${t.sizeCh} between 6 and 30`),
     check("episodes_balloon_ck", sql`${t.balloonMl} > 0 and ${t.balloonMl} <= 30`),
     check("episodes_maker_balloon_ck", sql`${t.makerBalloonMl} is null or ${t.makerBalloonMl} > 0`),

@@ -46,6 +46,15 @@ export const patients = pgTable(
     uniqueIndex("patients_hrn_uq").on(t.healthRecordNumber),
     index("patients_family_name_idx").on(sql`lower(${t.familyName})`),
     index("patients_gp_idx").on(t.gpPracticeId),
+    // The caseload's search ("contains", either name order or the record number): trigrams, so
+    // it need not read every patient (db/queries/caseload.ts searchText is the same expression).
+    index("patients_search_trgm_idx").using(
+      "gin",
+      sql`lower(${t.givenName} || ' ' || ${t.familyName} || E'\n' || ${t.familyName} || ' ' || ${t.givenName} || E'\n' || ${t.healthRecordNumber}) gin_trgm_ops`,
+    ),
+    // The caseload's "urgent" and "follow-up" filters start from these few patients.
+    index("patients_urgent_idx").on(t.id).where(sql`${t.latestCheckInLevel} in ('urgent', 'emergency')`),
+    index("patients_follow_up_idx").on(t.followUpReviewOn).where(sql`${t.followUpReviewOn} is not null`),
     check("patients_weight_ck", sql`${t.weightKg} is null or (${t.weightKg} > 0 and ${t.weightKg} < 500)`),
     check("patients_follow_up_ck", sql`${t.followUpReviewOn} is null or ${t.catheterDischargedAt} is not null`),
     check("patients_fluid_limit_ck", sql`${t.fluidLimitMl} is null or ${t.fluidLimitMl} > 0`),

@@ -27,7 +27,7 @@ const connections = Number(process.env.BENCH_CONNECTIONS ?? 50);
 // The data set at two sizes, to show how the figures move with ten times the data.
 const SMALL = Number(process.env.BENCH_PATIENTS_SMALL ?? 10_000);
 const LARGE = Number(process.env.BENCH_PATIENTS_LARGE ?? 100_000);
-let caseloadPlan = "";
+let caseloadPlans: { label: string; plan: string }[] = [];
 
 // BENCH_SKIP_BUILD=1 reuses the .next build already in the worktree (built from the same tree).
 const skipBuild = process.env.BENCH_SKIP_BUILD === "1" && fs.existsSync(path.join(root, ".next/BUILD_ID"));
@@ -208,24 +208,35 @@ async function otherCaseloadViews(nurse: string, label: string) {
   }
 }
 
-/** EXPLAIN ANALYZE of the caseload's one statement, as the API sends it for the bench nurse. */
+/** The caseload views whose statements docs/performance.md shows: label, view, page. */
+const EXPLAINED = [
+  ["page 3 of 50, due soon, by next change", { filter: "due-soon", sort: "next-change", dir: "asc", q: "" }, 3],
+  ["first page of 50, no filter, by next change: the part with a catheter", { sort: "next-change", dir: "asc", q: "" }, 1],
+] as const;
+
+/** EXPLAIN ANALYZE of the caseload's first statement for each EXPLAINED view, as the API sends it for the bench nurse. */
 async function explainCaseload(client: pg.Client) {
-  const { caseloadStatement, COUNT_CAP } = await import("../../db/queries/caseload");
+  const { caseloadParts, caseloadStatement, COUNT_CAP } = await import("../../db/queries/caseload");
   const { PgDialect } = await import("drizzle-orm/pg-core");
   const orgs = await client.query("select organisation_id from memberships m join \"user\" u on u.id = m.user_id where u.email = 'community.nurse@eastmere.example'");
-  const statement = caseloadStatement({
-    organisationIds: orgs.rows.map((r) => r.organisation_id as string),
-    view: { filter: "due-soon", sort: "next-change", dir: "asc", q: "" },
-    today: new Date().toISOString().slice(0, 10),
-    dueSoonDays: 14,
-    timeZone: "Europe/London",
-    limit: 50,
-    offset: 100,
-    countCap: COUNT_CAP + 1,
-  });
-  const query = new PgDialect().sqlToQuery(statement);
-  const plan = await client.query(`explain (analyze, buffers) ${query.sql}`, query.params as unknown[]);
-  return plan.rows.map((r) => r["QUERY PLAN"] as string).join("\n");
+  const plans: { label: string; plan: string }[] = [];
+  for (const [label, view, page] of EXPLAINED) {
+    const statement = caseloadStatement({
+      part: caseloadParts(view)[0],
+      organisationIds: orgs.rows.map((r) => r.organisation_id as string),
+      view,
+      today: new Date().toISOString().slice(0, 10),
+      dueSoonDays: 14,
+      timeZone: "Europe/London",
+      limit: 50,
+      offset: (page - 1) * 50,
+      countCap: Math.max(COUNT_CAP, page * 50) + 1,
+    });
+    const query = new PgDialect().sqlToQuery(statement);
+    const plan = await client.query(`explain (analyze, buffers) ${query.sql}`, query.params as unknown[]);
+    plans.push({ label, plan: plan.rows.map((r) => r["QUERY PLAN"] as string).join("\n") });
+  }
+  return plans;
 }
 
 /** The loader's steps; episodes with their events and the diary entries run side by side. */
@@ -308,7 +319,7 @@ async function main() {
       `cost curve, ${small.patients} → ${counts.patients} patients`,
       `card ${cardSmall.rps.toFixed(0)} → ${cardLarge.rps.toFixed(0)} req/s (p99 ${cardSmall.p99} → ${cardLarge.p99} ms); caseload p50 ${caseSmall.p50.toFixed(1)} → ${caseLarge.p50.toFixed(1)} ms, p99 ${caseSmall.p99.toFixed(1)} → ${caseLarge.p99.toFixed(1)} ms`,
     );
-    caseloadPlan = await explainCaseload(client);
+    caseloadPlans = await explainCaseload(client);
 
     // 5. Passport booklet PDF for a patient with 3 and with 30 history entries (two large-set
     // patients, their event history cut or padded to n), alone and as part of an issue.
@@ -393,9 +404,7 @@ function writeReport() {
     "|---|---|---|---|",
     ...rows.map((r) => `| ${r.what} | ${r.figure} | ${r.target ?? ""} | ${r.target ? (r.met ? "yes" : "**no**") : ""} |`),
     "",
-    ...(caseloadPlan
-      ? ["The caseload's statement at the large data set (page 3 of 50, due soon, by next change), `EXPLAIN (ANALYZE, BUFFERS)`:", "", "```", caseloadPlan, "```", ""]
-      : []),
+    ...caseloadPlans.flatMap(({ label, plan }) => [`The caseload's statement at the large data set (${label}), \`EXPLAIN (ANALYZE, BUFFERS)\`:`, "", "```", plan, "```", ""]),
   ];
   // Hand-written notes below the marker (why a target was missed) survive a new run.
   const file = path.join(root, "docs/performance.md");
