@@ -114,12 +114,18 @@ function filterCondition(filter: CaseloadFilter | undefined, today: string, dueS
   if (filter === "follow-up") return sql`and f.catheter_discharged_at is not null and f.episode_id is null and f.follow_up_review_on is not null`;
   if (!filter && searching) return sql``;
   return sql`and (f.catheter_discharged_at is null or f.episode_id is not null) ${dateFilter(filter, today, dueSoonDays)}
-    ${filter === "twoc" && part === "without-catheter" ? trialUnderWay : sql``}`;
+    ${filter === "twoc" ? trialCandidates[part] : sql``}`;
 }
 
-// Without a catheter, a trial is under way only for a patient who has a removed catheter still
-// awaiting its outcome: said as a join the planner can start from (episodes_trial_awaiting_idx).
-const trialUnderWay = sql`and exists (select 1 from catheter_episodes t where t.patient_id = f.patient_id and t.awaiting_twoc and t.removed_at is not null)`;
+// Who can pass the trial filter, said as a join the planner can start from (the trial's two
+// partial indexes), so it need not walk every patient: a catheter in place awaiting or planned
+// for a trial, or one out for a trial with no outcome yet. Implied by the filter, never wider.
+const trialCandidates: Record<CaseloadPart, SQL> = {
+  "with-catheter": sql``,
+  "without-catheter": sql`and exists (select 1 from catheter_episodes t where t.patient_id = f.patient_id and t.awaiting_twoc and t.removed_at is not null)`,
+  whole: sql`and f.patient_id in (select t.patient_id from catheter_episodes t
+    where (t.removed_at is null and (t.awaiting_twoc or t.twoc_planned_on is not null)) or (t.awaiting_twoc and t.removed_at is not null))`,
+};
 
 function dateFilter(filter: CaseloadFilter | undefined, today: string, dueSoonDays: number): SQL {
   // The states compare the stored planDates dates with today, as stateFor does: overdue once a
