@@ -195,11 +195,14 @@ async function caseload(client: pg.Client, nurse: string, label: string) {
   return { p50: pct(lat, 50), p99: pct(lat, 99) };
 }
 
-/** p50/p99 of other caseload views at the large set: the first page as it opens, and the trial filter. */
+/** p50/p99 of other caseload views at the large set: the first page as it opens, the trial filter, other orders and a search. */
 async function otherCaseloadViews(nurse: string, label: string) {
   for (const [name, query] of [
     ["first page, no filter", "page=1&pageSize=50"],
     ["trial without catheter filter", "page=1&pageSize=50&filter=twoc"],
+    ["sorted by name, page 3", "page=3&pageSize=50&sort=name"],
+    ["by days since insertion, longest first", "page=1&pageSize=50&sort=days-inserted&dir=desc"],
+    ["search by part of a name", "page=1&pageSize=50&q=patient0421"],
   ] as const) {
     const path = `${base}/api/caseload?${query}`;
     for (let i = 0; i < 5; i++) await fetch(path, { headers: { cookie: nurse } }).then((r) => r.text());
