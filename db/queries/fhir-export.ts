@@ -8,7 +8,7 @@ import { alertTeams } from "@/lib/records/alert-team";
 import type { FhirInput } from "@/lib/fhir/export";
 import { twocResult } from "@/lib/shared/twoc-result";
 
-export async function getFhirExportData({ patientId }: { patientId: string }, tx: Executor = db): Promise<Omit<FhirInput, "identifierSystem" | "now"> | null> {
+export async function getFhirExportData({ patientId }: { patientId: string }, tx: Executor = db): Promise<Omit<FhirInput, "identifierSystem" | "now" | "words"> | null> {
   const [p] = await tx
     .select({
       id: patients.id,

@@ -28,6 +28,7 @@ export const REMOVAL_REASONS = ["no-longer-needed", "trial-without-catheter", "p
 export const TWOC_OUTCOMES = ["passed", "failed", "abandoned"] as const;
 export type TwocOutcome = (typeof TWOC_OUTCOMES)[number];
 export const TWOC_FAILED_ACTIONS = ["re-catheterised", "intermittent-self-catheterisation", "referred", "other"] as const;
+export type TwocFailedAction = (typeof TWOC_FAILED_ACTIONS)[number];
 /** What the patient felt during the trial (none ticked: none reported). */
 export const TWOC_SYMPTOMS = ["urgency", "frequency", "pain-passing-urine", "lower-tummy-pain", "feels-not-empty", "leaking", "blood-in-urine", "fever"] as const;
 export type TwocSymptom = (typeof TWOC_SYMPTOMS)[number];

@@ -9,7 +9,7 @@ import "server-only";
 // (NHS England's UK Core FHIR implementation guide uses it for the NEWS2 observation).
 // A trial without catheter: one Observation of its outcome (symptoms as components, the reason as
 // a note) with a member Observation per voided volume and one for the post-void residual.
-import type { Sex, TwocOutcome } from "@/lib/clinical";
+import type { Sex, TwocFailedAction, TwocOutcome, TwocSymptom } from "@/lib/clinical";
 import type { TwocResult } from "@/lib/shared/twoc-result";
 
 export type FhirInput = {
@@ -65,6 +65,8 @@ export type FhirInput = {
   trials?: { id: string; episodeId: string; occurredAt: Date; outcome: TwocOutcome; result: TwocResult; recordedByName: string }[];
   /** The health record number's identifier system (a namespace URI from configuration). */
   identifierSystem: string;
+  /** The record vocabulary's words (the English catalogue's), so a reader sees words, not stored keys. */
+  words: { symptom: (s: TwocSymptom) => string; failedAction: (a: TwocFailedAction) => string };
   now?: Date;
 };
 
@@ -287,7 +289,7 @@ export function buildFhirBundle(input: FhirInput) {
     if (r.postVoidResidualMl !== null) {
       member(childId(trial.id, 30), { code: { text: "Post-void residual urine volume (bladder scan)" }, valueQuantity: ML(r.postVoidResidualMl) });
     }
-    const notes = [r.reason ? `Reason: ${r.reason}` : null, r.failedAction ? `What was done: ${r.failedAction}` : null].filter((n): n is string => n !== null);
+    const notes = [r.reason ? `Reason: ${r.reason}` : null, r.failedAction ? `What was done: ${input.words.failedAction(r.failedAction)}` : null].filter((n): n is string => n !== null);
     entries.push({
       fullUrl: urn(trial.id),
       resource: {
@@ -297,7 +299,7 @@ export function buildFhirBundle(input: FhirInput) {
         code: { text: "Trial without catheter (TWOC) outcome" },
         valueCodeableConcept: { text: TWOC_OUTCOME_TEXT[trial.outcome] },
         ...(members.length ? { hasMember: members.map((id) => ({ reference: urn(id) })) } : {}),
-        ...(r.symptoms.length ? { component: r.symptoms.map((s) => ({ code: { text: "Symptom during the trial" }, valueString: s })) } : {}),
+        ...(r.symptoms.length ? { component: r.symptoms.map((s) => ({ code: { text: "Symptom during the trial" }, valueString: input.words.symptom(s) })) } : {}),
         ...(notes.length ? { note: notes.map((text) => ({ text })) } : {}),
       },
     });

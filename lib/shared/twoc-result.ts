@@ -3,9 +3,7 @@
 // the residual after voiding, the symptoms, the reason a trial failed or was abandoned and what was
 // done after it. Events saved before void times were kept hold only `voidsMl`; events saved before
 // symptoms and reasons were kept hold neither.
-import { TWOC_FAILED_ACTIONS, TWOC_SYMPTOMS, type TwocSymptom } from "@/lib/clinical";
-
-type TwocFailedAction = (typeof TWOC_FAILED_ACTIONS)[number];
+import { TWOC_FAILED_ACTIONS, TWOC_SYMPTOMS, type TwocFailedAction, type TwocSymptom } from "@/lib/clinical";
 
 export type TwocResult = {
   voids: { at: string | null; volumeMl: number }[];

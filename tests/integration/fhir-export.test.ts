@@ -143,6 +143,7 @@ describe("GET /api/patients/[patientId]/fhir", () => {
   it("leaves out what was not recorded rather than sending empty values", () => {
     const b = buildFhirBundle({
       identifierSystem: "urn:oid:2.16.840.1.113883.2.1.4.1",
+      words: { symptom: (s) => s, failedAction: (a) => a },
       visits: [],
       careTeam: [],
       patient: { id: "6f1c2d8e-4b8a-4a1e-9c7d-1a2b3c4d5e6f", givenName: "Test", familyName: "Person", healthRecordNumber: "T-1", dateOfBirth: "1950-01-01", sex: "female", preferredLocale: "pl" },

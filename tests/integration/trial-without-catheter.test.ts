@@ -220,8 +220,9 @@ describe("a trial without catheter under way", () => {
       resourceType: "Observation",
       focus: [{ reference: `urn:uuid:${episodeId}` }],
       valueCodeableConcept: { text: "Abandoned" },
-      component: [{ valueString: "fever" }],
-      note: [{ text: "Reason: Became unwell with a fever; trial stopped" }, { text: "What was done: re-catheterised" }],
+      // Words a reader understands (the vocabulary's English), never the stored keys.
+      component: [{ code: { text: "Symptom during the trial" }, valueString: "Fever or shivering" }],
+      note: [{ text: "Reason: Became unwell with a fever; trial stopped" }, { text: "What was done: Re-catheterised" }],
     });
     const members = (trial.hasMember as { reference: string }[]).map((m) => bundle.entry.find((e) => `urn:uuid:${e.resource.id}` === m.reference)!.resource);
     // Source: LOINC 9187-6 "Urine output" (from memory); UCUM mL.
