@@ -2,11 +2,11 @@
 // then those without one) gives exactly the rows, order and totals of the whole view read in one
 // walk, for every sort, direction and filter, page after page; and never more than two
 // statements a page.
-import pg from "pg";
 import { sql } from "drizzle-orm";
-import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { caseloadParts, caseloadStatement, listCaseload, listCaseloadAll } from "@/db/queries/caseload";
 import { db } from "@/db";
+import { countQueries } from "../support/count-queries";
 import { organisations } from "@/db/schema";
 import { deploymentTimeZone, todayIso } from "@/lib/shared/time-zone";
 import { caseloadFilters, caseloadQuerySchema, type CaseloadQueryInput } from "@/lib/validations/caseload";
@@ -70,16 +70,6 @@ async function reference(input: CaseloadQueryInput) {
     caseloadStatement({ part: "whole", organisationIds: [orgId], view, today: todayIso(), dueSoonDays: DUE_SOON, timeZone: deploymentTimeZone(), limit: null, offset: 0, countCap: null }),
   );
   return result.rows.filter((r) => r.patient_id !== null).map((r) => r.patient_id!);
-}
-
-async function countQueries<T>(fn: () => Promise<T>): Promise<{ result: T; queries: number }> {
-  const spy = vi.spyOn(pg.Client.prototype, "query");
-  try {
-    const result = await fn();
-    return { result, queries: spy.mock.calls.length };
-  } finally {
-    spy.mockRestore();
-  }
 }
 
 const sorts = ["next-change", "review", "days-inserted", "name"] as const;

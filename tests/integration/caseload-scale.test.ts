@@ -1,11 +1,11 @@
 // The caseload with 10,000 patients in one team: one SQL statement per page whatever the page
 // size (no query per row; two when a view's second part, the patients without a catheter, is
 // reached: tests/integration/caseload-order.test.ts), and fast enough to page, search and filter.
-import pg from "pg";
 import { sql } from "drizzle-orm";
-import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { COUNT_CAP, listCaseload, listCaseloadAll } from "@/db/queries/caseload";
 import { db } from "@/db";
+import { countQueries } from "../support/count-queries";
 import { organisations } from "@/db/schema";
 import { caseloadQuerySchema, type CaseloadQueryInput } from "@/lib/validations/caseload";
 
@@ -48,16 +48,6 @@ afterAll(async () => {
 
 function query(input: CaseloadQueryInput) {
   return caseloadQuerySchema.parse(input);
-}
-
-async function countQueries<T>(fn: () => Promise<T>): Promise<{ result: T; queries: number }> {
-  const spy = vi.spyOn(pg.Client.prototype, "query");
-  try {
-    const result = await fn();
-    return { result, queries: spy.mock.calls.length };
-  } finally {
-    spy.mockRestore();
-  }
 }
 
 describe("caseload at 10,000 patients", () => {
