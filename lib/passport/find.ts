@@ -1,7 +1,7 @@
 import "server-only";
 // Finding the current passport by its QR token or typed short code. Apart from the rest of
 // lib/passport (issuing, the booklet PDF, object storage, e-mail), so the public device card's
-// route loads none of those: its first scan after a start was about a second slower for them.
+// route loads none of those (its first scan after a start took about 1 s with them, 0.2 s without).
 import { findPassportRowByShortCodeHash, findPassportRowByTokenHash } from "@/db/queries/passports";
 import { hashesEqual, hashShortCode, hashToken, isWellFormedShortCode, isWellFormedToken } from "./tokens";
 

@@ -78,6 +78,18 @@ describe("the device card document", () => {
     expect(after.length).toBe(before.length + 1);
   });
 
+  it("records who scanned when signed in, and nobody for an anonymous scan, through the route", async () => {
+    const cookie = await sessionFor("communityNurse");
+    const nurse = (await getViewerFromHeaders(new Headers({ cookie })))!;
+    const signedIn = await call(cardGet, `/en/p/${tokenOf(passport)}`, { headers, cookie, params: { locale: "en", token: tokenOf(passport) } });
+    expect(signedIn.status).toBe(200);
+    await card("en", tokenOf(passport));
+    const rows = await db.select().from(auditEvents).where(and(eq(auditEvents.patientId, yusuf), eq(auditEvents.action, "passport.card.view"))).orderBy(desc(auditEvents.id)).limit(2);
+    expect(rows[1]).toMatchObject({ via: "qr", actorUserId: nurse.userId, actorRole: nurse.role });
+    expect(rows[0]).toMatchObject({ via: "qr", actorUserId: null, actorRole: null });
+    expect(rows[0]!.details).toMatchObject({ passportId: passport.passport.id, by: "token" });
+  });
+
   it("answers an unknown token with the one 'no longer valid' page, and a bad locale with 404", async () => {
     const { res, body } = await card("pl", "A".repeat(43));
     expect(res.status).toBe(200);
