@@ -1,12 +1,13 @@
 import "server-only";
 // Fixed-window attempt counters (table attempt_counters; lib/http/rate-limit.ts has the rules).
-import { sql } from "drizzle-orm";
+import { sql, type Placeholder } from "drizzle-orm";
 
 /**
  * Counts one attempt against `key`, starting a new window when the last one is over; returns
- * `count` and `window_started_at`. A fragment, so a statement can count and work in one trip.
+ * `count` and `window_started_at`. A fragment, so a statement can count and work in one trip
+ * (placeholders for a statement prepared once: db/queries/passport-card.ts).
  */
-export function countAttemptQuery({ key, windowSeconds }: { key: string; windowSeconds: number }) {
+export function countAttemptQuery({ key, windowSeconds }: { key: string | Placeholder; windowSeconds: number | Placeholder }) {
   return sql`
     insert into attempt_counters (key, count, window_started_at) values (${key}, 1, now())
     on conflict (key) do update set

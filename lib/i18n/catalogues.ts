@@ -31,17 +31,34 @@ const translators = new Map<string, unknown>();
 /**
  * next-intl's translator for one namespace, outside a React request. Kept per locale and
  * namespace: a translator keeps each message it has parsed, so the device card (a few dozen
- * messages in two languages on every view) parses them once per process, not per request.
+ * messages in two languages on every view) parses them once per process, not per request. A
+ * message asked for without values is the same text every time, so it is also kept as text
+ * (formatting it again cost the card about a third of its rendering).
  */
 export function translatorFor<N extends NamespaceKeys<Messages, NestedKeyOf<Messages>>>(locale: string, namespace: N) {
   const l = catalogueLocale(locale);
   const key = `${l}:${namespace}`;
   let t = translators.get(key) as ReturnType<typeof createTranslator<Messages, N>> | undefined;
   if (!t) {
-    t = createTranslator({ locale: l, messages: catalogues[l], namespace });
+    t = keepPlainTexts(createTranslator({ locale: l, messages: catalogues[l], namespace }) as unknown as Translate) as unknown as NonNullable<typeof t>;
     translators.set(key, t);
   }
   return t;
+}
+
+type Translate = (key: string, ...rest: unknown[]) => string;
+
+/** The translator, with each message asked for without values formatted once. */
+function keepPlainTexts(t: Translate): Translate {
+  const texts = new Map<string, string>();
+  const kept: Translate = (key, ...rest) => {
+    if (rest.length) return t(key, ...rest);
+    let text = texts.get(key);
+    if (text === undefined) texts.set(key, (text = t(key)));
+    return text;
+  };
+  // t.rich, t.markup, t.raw and t.has as they were.
+  return Object.assign(kept, t);
 }
 
 /** Dates and numbers (lib/shared/formats) in a locale and the deployment's region (Settings `region`). */

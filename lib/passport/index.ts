@@ -5,8 +5,6 @@ import "server-only";
 import { randomUUID } from "node:crypto";
 import { db } from "@/db";
 import {
-  findPassportRowByShortCodeHash,
-  findPassportRowByTokenHash,
   getBookletRecord,
   replacePassport,
   type BookletRecord,
@@ -30,15 +28,13 @@ import {
   formatShortCode,
   generateShortCode,
   generateToken,
-  hashesEqual,
   hashShortCode,
   hashToken,
-  isWellFormedShortCode,
-  isWellFormedToken,
 } from "./tokens";
 import { isCareTeam } from "@/lib/auth/permissions";
 import { TEXT_SIZES } from "@/lib/validations/reading";
 
+export * from "./find";
 export * from "./tokens";
 
 /** The address the QR encodes: the public device card (a later issue serves it). */
@@ -60,30 +56,6 @@ export function passportPdfPrefix(patientId: string): string {
 export function passportLanguages(preferredLocale: string): string[] {
   const first = isLocale(preferredLocale) ? preferredLocale : "en";
   return first === "en" ? ["en"] : [first, "en"];
-}
-
-export type FoundPassport = { passportId: string; patientId: string; issuedAt: Date };
-
-/**
- * The current passport a QR token opens, or null (malformed, unknown or revoked). The lookup
- * goes by the SHA-256 of the token; the stored and computed hashes are then compared in
- * constant time, so response timing says nothing about how much of a guess matched.
- */
-export async function findPassportByToken(token: string): Promise<FoundPassport | null> {
-  if (typeof token !== "string" || !isWellFormedToken(token)) return null;
-  const hash = hashToken(token);
-  const row = await findPassportRowByTokenHash({ tokenHash: hash });
-  if (!row || !hashesEqual(row.tokenHash, hash) || row.revokedAt) return null;
-  return { passportId: row.id, patientId: row.patientId, issuedAt: row.issuedAt };
-}
-
-/** The same for the short code a visiting clinician types (callers must rate-limit it). */
-export async function findPassportByShortCode(code: string): Promise<FoundPassport | null> {
-  if (typeof code !== "string" || !isWellFormedShortCode(code)) return null; // a typo (readShortCode) or not a code
-  const hash = hashShortCode(code);
-  const row = await findPassportRowByShortCodeHash({ shortCodeHash: hash });
-  if (!row || !hashesEqual(row.shortCodeHash, hash) || row.revokedAt) return null;
-  return { passportId: row.id, patientId: row.patientId, issuedAt: row.issuedAt };
 }
 
 /** What the booklet prints, from the record as it is now. */

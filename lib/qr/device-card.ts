@@ -10,7 +10,7 @@ import { checkAddress, limitKey } from "@/lib/http/rate-limit";
 import { CARD_LIMIT } from "@/lib/qr/card-limit";
 import { audit } from "@/lib/records/audit";
 import type { Viewer } from "@/lib/auth/session";
-import { findPassportByShortCode, findPassportByToken, type FoundPassport } from "@/lib/passport";
+import { findPassportByShortCode, findPassportByToken, type FoundPassport } from "@/lib/passport/find";
 import { hashToken, isWellFormedToken, readShortCode } from "@/lib/passport/tokens";
 
 /**

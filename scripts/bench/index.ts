@@ -28,6 +28,12 @@ const connections = Number(process.env.BENCH_CONNECTIONS ?? 50);
 const SMALL = Number(process.env.BENCH_PATIENTS_SMALL ?? 10_000);
 const LARGE = Number(process.env.BENCH_PATIENTS_LARGE ?? 100_000);
 let caseloadPlans: { label: string; plan: string }[] = [];
+// BENCH_ONLY=card: only the card against /en/p and /icon.svg (and what the card sends), at the
+// small data set; no large data set, caseload, PDFs or Lighthouse, and docs/performance.md is
+// left alone (the figures are printed). For working on the card; the default run is unchanged.
+const only = process.env.BENCH_ONLY === "card" ? "card" : null;
+// Its own database, so two benches (or a bench and a helper's) do not drop each other's.
+const benchDatabase = process.env.BENCH_DATABASE ?? "caddis_bench";
 
 // BENCH_SKIP_BUILD=1 reuses the .next build already in the worktree (built from the same tree).
 const skipBuild = process.env.BENCH_SKIP_BUILD === "1" && fs.existsSync(path.join(root, ".next/BUILD_ID"));
@@ -181,7 +187,7 @@ async function caseload(client: pg.Client, nurse: string, label: string) {
   // so wait that long before each reading; the bench's own reading is one transaction.
   const settled = async () => {
     await new Promise((r) => setTimeout(r, 11_000));
-    return xacts(client, "caddis_bench");
+    return xacts(client, benchDatabase);
   };
   const perRequest: string[] = [];
   let before = await settled();
@@ -252,7 +258,7 @@ async function main() {
   ensureTools();
   await servicesUp();
   const url = new URL(defaults.databaseUrl);
-  url.pathname = "/caddis_bench";
+  url.pathname = `/${benchDatabase}`;
   const databaseUrl = url.toString();
   await dropDatabase(databaseUrl);
   await ensureDatabase(databaseUrl);
@@ -273,7 +279,9 @@ async function main() {
   if (await portOpen(port)) throw new Error(`port ${port} is busy (BENCH_PORT)`);
   // Through the server entry, as behind a load balancer on loopback: the bench says which client
   // each request plays in X-Forwarded-For.
-  const server: ChildProcess = spawnAppServer({ port, env: { ...env, NODE_ENV: "production", TRUSTED_PROXIES: "127.0.0.1" }, stdio: "ignore" });
+  // BENCH_SERVER_NODE_OPTIONS (e.g. "--cpu-prof --cpu-prof-dir=/tmp/prof") profiles the server alone.
+  const serverNodeOptions = process.env.BENCH_SERVER_NODE_OPTIONS ? { NODE_OPTIONS: process.env.BENCH_SERVER_NODE_OPTIONS } : {};
+  const server: ChildProcess = spawnAppServer({ port, env: { ...env, ...serverNodeOptions, NODE_ENV: "production", TRUSTED_PROXIES: "127.0.0.1" }, stdio: "ignore" });
   try {
     for (let i = 0; i < 240 && !(await fetch(`${base}/en/sign-in`).then((r) => r.ok).catch(() => false)); i++) await new Promise((r) => setTimeout(r, 250));
 
@@ -302,6 +310,11 @@ async function main() {
     for (const locale of ["en", "pl"]) {
       const t = await cardTransfer(`/${locale}/p/${token}`);
       add(`device card transfer, /${locale}`, `${(t.bytes / 1024).toFixed(1)} KB uncompressed (${(t.gzip / 1024).toFixed(1)} KB gzip), ${t.subresources} other files`, "≤ 30 KB", t.bytes <= 30 * 1024);
+    }
+    if (only === "card") {
+      add("load average at the end", loadAverage());
+      printReport();
+      return;
     }
 
     // 3. Caseload at the small data set.
@@ -396,6 +409,11 @@ async function main() {
   writeReport();
 }
 
+/** The table, printed only (BENCH_ONLY): a partial run never replaces the full run's figures. */
+function printReport() {
+  console.log(["", "| measure | figure | target | met |", "|---|---|---|---|", ...rows.map((r) => `| ${r.what} | ${r.figure} | ${r.target ?? ""} | ${r.target ? (r.met ? "yes" : "**no**") : ""} |`)].join("\n"));
+}
+
 function writeReport() {
   const machine = `${os.cpus().length} × ${os.cpus()[0]?.model ?? "cpu"}, ${(os.totalmem() / 2 ** 30).toFixed(0)} GiB, Node.js ${process.version}`;
   const lines = [
@@ -421,6 +439,7 @@ function writeReport() {
 
 main().catch((e) => {
   console.error("[bench]", e);
-  writeReport();
+  if (only) printReport();
+  else writeReport();
   process.exit(1);
 });

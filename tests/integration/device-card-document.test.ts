@@ -12,6 +12,7 @@ import { auditEvents } from "@/db/schema";
 import { getViewerFromHeaders } from "@/lib/auth/session";
 import { CLIENT_ADDRESS_HEADER } from "@/lib/http/client-ip";
 import { issuePassport, type IssuedPassport } from "@/lib/passport";
+import { hashToken } from "@/lib/passport/tokens";
 import { html } from "@/lib/shared/html";
 import { CARD_LIMIT } from "@/lib/qr/card-limit";
 import { patientIdByHrn } from "../support/fixtures";
@@ -77,6 +78,18 @@ describe("the device card document", () => {
     expect(after.length).toBe(before.length + 1);
   });
 
+  it("records who scanned when signed in, and nobody for an anonymous scan, through the route", async () => {
+    const cookie = await sessionFor("communityNurse");
+    const nurse = (await getViewerFromHeaders(new Headers({ cookie })))!;
+    const signedIn = await call(cardGet, `/en/p/${tokenOf(passport)}`, { headers, cookie, params: { locale: "en", token: tokenOf(passport) } });
+    expect(signedIn.status).toBe(200);
+    await card("en", tokenOf(passport));
+    const rows = await db.select().from(auditEvents).where(and(eq(auditEvents.patientId, yusuf), eq(auditEvents.action, "passport.card.view"))).orderBy(desc(auditEvents.id)).limit(2);
+    expect(rows[1]).toMatchObject({ via: "qr", actorUserId: nurse.userId, actorRole: nurse.role });
+    expect(rows[0]).toMatchObject({ via: "qr", actorUserId: null, actorRole: null });
+    expect(rows[0]!.details).toMatchObject({ passportId: passport.passport.id, by: "token" });
+  });
+
   it("answers an unknown token with the one 'no longer valid' page, and a bad locale with 404", async () => {
     const { res, body } = await card("pl", "A".repeat(43));
     expect(res.status).toBe(200);
@@ -107,6 +120,22 @@ describe("one round trip", () => {
     expect(result.body).toContain('data-testid="card-size"');
     expect(count).toBe(1);
     expect(await audits("passport.card.view")).toBe(views + 1);
+  });
+
+  it("is a named prepared statement: a connection parses and plans it once, then only binds the values", async () => {
+    const spy = vi.spyOn(pg.Client.prototype, "query");
+    try {
+      for (let i = 0; i < 3; i++) expect((await card("en", tokenOf(passport))).res.status).toBe(200);
+      const sent = spy.mock.calls.map(([q]) => q as { name?: string; text?: string });
+      expect(sent).toHaveLength(3);
+      expect(new Set(sent.map((q) => q.name))).toEqual(new Set(["caddis_open_card_by_token"]));
+      expect(new Set(sent.map((q) => q.text)).size).toBe(1);
+      // Only the values travel with each scan; the token's hash is one of them, never in the text.
+      expect(sent[0]!.text).not.toContain(hashToken(tokenOf(passport)));
+      expect((sent[0] as { values?: unknown[] }).values).toContain(hashToken(tokenOf(passport)));
+    } finally {
+      spy.mockRestore();
+    }
   });
 
   it("an unknown token costs one statement too, and its miss is audited without a patient", async () => {

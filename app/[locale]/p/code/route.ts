@@ -3,7 +3,7 @@
 // against the address's card limit first.
 import { getRegion } from "@/lib/config/settings";
 import { isLocale } from "@/lib/i18n/routing";
-import { normaliseShortCode } from "@/lib/passport";
+import { normaliseShortCode } from "@/lib/passport/tokens";
 import { cardRequest } from "@/lib/qr/card-page";
 import { cardAnswer, deviceCardDocument, htmlResponse, shortCodeDocument } from "@/lib/qr/card-html";
 import { limitCardRequest } from "@/lib/qr/card-limit";
