@@ -17,6 +17,7 @@ import { html } from "@/lib/shared/html";
 import { CARD_LIMIT } from "@/lib/qr/card-limit";
 import { patientIdByHrn } from "../support/fixtures";
 import { call, sessionFor } from "../support/http";
+import { countQueries } from "../support/count-queries";
 
 let yusuf: string;
 let passport: IssuedPassport;
@@ -102,20 +103,11 @@ describe("the device card document", () => {
 });
 
 describe("one round trip", () => {
-  async function statements<T>(fn: () => Promise<T>) {
-    const spy = vi.spyOn(pg.Client.prototype, "query");
-    try {
-      const result = await fn();
-      return { result, count: spy.mock.calls.length };
-    } finally {
-      spy.mockRestore();
-    }
-  }
   const audits = async (action: string) => (await db.select().from(auditEvents).where(eq(auditEvents.action, action))).length;
 
   it("an anonymous QR view costs one statement: limit, lookup, card and audit together", async () => {
     const views = await audits("passport.card.view");
-    const { result, count } = await statements(() => card("en", tokenOf(passport)));
+    const { result, queries: count } = await countQueries(() => card("en", tokenOf(passport)));
     expect(result.res.status).toBe(200);
     expect(result.body).toContain('data-testid="card-size"');
     expect(count).toBe(1);
@@ -140,7 +132,7 @@ describe("one round trip", () => {
 
   it("an unknown token costs one statement too, and its miss is audited without a patient", async () => {
     const misses = await audits("passport.card.invalid");
-    const { result, count } = await statements(() => card("en", "B".repeat(43)));
+    const { result, queries: count } = await countQueries(() => card("en", "B".repeat(43)));
     expect(result.body).toContain('data-testid="card-invalid"');
     expect(count).toBe(1);
     const rows = await db.select().from(auditEvents).where(eq(auditEvents.action, "passport.card.invalid")).orderBy(desc(auditEvents.id));
