@@ -1,6 +1,7 @@
 // The database client: one pg pool per process, cached on globalThis so development reloads
 // do not open a new pool each time.
 import { drizzle, type NodePgDatabase } from "drizzle-orm/node-postgres";
+import { PgTransaction } from "drizzle-orm/pg-core";
 import pg from "pg";
 import { env } from "@/lib/config/env";
 import * as schema from "./schema";
@@ -42,3 +43,15 @@ cache.caddisPool = pool;
 cache.caddisDb = db;
 
 export { schema };
+
+/**
+ * Runs independent reads side by side on the pool, but one after another inside a transaction:
+ * a transaction is one connection, which runs one statement at a time (pg queues a second one
+ * and warns that it will refuse it in a later version).
+ */
+export async function readTogether<T extends readonly unknown[]>(tx: Executor, ...reads: { [K in keyof T]: () => Promise<T[K]> }): Promise<T> {
+  if (!(tx instanceof PgTransaction)) return (await Promise.all(reads.map((read) => read()))) as unknown as T;
+  const results: unknown[] = [];
+  for (const read of reads) results.push(await read());
+  return results as unknown as T;
+}

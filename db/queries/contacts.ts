@@ -1,6 +1,6 @@
 import "server-only";
 import { sql, type SQL } from "drizzle-orm";
-import { db, type Executor } from "@/db";
+import { db, readTogether, type Executor } from "@/db";
 import { getEmergencyNumber, getSettings } from "@/lib/config/settings";
 
 /** A phone number as typed by an admin, reduced to what a tel: link takes. */
@@ -63,7 +63,7 @@ export function leadTeamContact(row: LeadTeamRow, service: { outOfHoursPhone: st
 }
 
 export async function getLeadTeamContact({ patientId }: { patientId: string }, tx: Executor = db): Promise<LeadTeamContact | null> {
-  const [result, settings] = await Promise.all([tx.execute<LeadTeamRow>(leadTeamQuery(sql`${patientId}::uuid`)), getSettings(tx)]);
+  const [result, settings] = await readTogether(tx, () => tx.execute<LeadTeamRow>(leadTeamQuery(sql`${patientId}::uuid`)), () => getSettings(tx));
   const row = result.rows[0];
   return row ? leadTeamContact(row, settings) : null;
 }

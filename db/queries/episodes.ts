@@ -2,7 +2,7 @@ import "server-only";
 // Reads and writes of catheter episodes and their events. Callers pass the transaction they
 // opened with the access check, so a record and its audit event commit or fail together.
 import { and, desc, eq, inArray, isNull, sql, type SQL } from "drizzle-orm";
-import { db, type Executor } from "@/db";
+import { db, readTogether, type Executor } from "@/db";
 import type { AllergyAnswers, TwocOutcome } from "@/lib/clinical";
 import {
   careTeam,
@@ -250,12 +250,13 @@ export async function insertEpisodeEvent({ values }: { values: NewEpisodeEvent }
 
 /** Everything a recording form needs to open: the patient, the catheter in place, the last one, and how past ones ended. */
 export async function getRecordingContext({ patientId }: { patientId: string }, tx: Executor = db) {
-  const [patient, active, latest, endings] = await Promise.all([
-    getPatientForRecording({ patientId }, tx),
-    getActiveEpisode({ patientId }, tx),
-    getLatestEpisode({ patientId }, tx),
-    listEpisodeEndings({ patientId }, tx),
-  ]);
+  const [patient, active, latest, endings] = await readTogether(
+    tx,
+    () => getPatientForRecording({ patientId }, tx),
+    () => getActiveEpisode({ patientId }, tx),
+    () => getLatestEpisode({ patientId }, tx),
+    () => listEpisodeEndings({ patientId }, tx),
+  );
   return {
     patient,
     active: active ? toEpisodeDto(active) : null,

@@ -1,7 +1,7 @@
 import "server-only";
 // What the FHIR export needs of one patient (access is checked by the caller).
 import { and, asc, eq } from "drizzle-orm";
-import { db, type Executor } from "@/db";
+import { db, readTogether, type Executor } from "@/db";
 import { catheterEpisodes, episodeEvents, observations, organisations, patients } from "@/db/schema";
 import { getCareTeamOrganisations } from "@/db/queries/mail-context";
 import { alertTeams } from "@/lib/records/alert-team";
@@ -22,8 +22,9 @@ export async function getFhirExportData({ patientId }: { patientId: string }, tx
     .from(patients)
     .where(eq(patients.id, patientId));
   if (!p) return null;
-  const [episodes, obs, visits, team, lead, trials] = await Promise.all([
-    tx
+  const [episodes, obs, visits, team, lead, trials] = await readTogether(
+    tx,
+    () => tx
       .select({
         id: catheterEpisodes.id,
         route: catheterEpisodes.route,
@@ -45,17 +46,17 @@ export async function getFhirExportData({ patientId }: { patientId: string }, tx
       .from(catheterEpisodes)
       .where(eq(catheterEpisodes.patientId, patientId))
       .orderBy(asc(catheterEpisodes.insertedAt)),
-    tx.select().from(observations).where(eq(observations.patientId, patientId)).orderBy(asc(observations.takenAt)),
-    tx
+    () => tx.select().from(observations).where(eq(observations.patientId, patientId)).orderBy(asc(observations.takenAt)),
+    () => tx
       .select({ id: episodeEvents.id, occurredAt: episodeEvents.occurredAt, recordedByName: episodeEvents.recordedByName, organisationName: organisations.name })
       .from(episodeEvents)
       .leftJoin(organisations, eq(organisations.id, episodeEvents.organisationId))
       .where(and(eq(episodeEvents.patientId, patientId), eq(episodeEvents.kind, "visit")))
       .orderBy(asc(episodeEvents.occurredAt)),
-    getCareTeamOrganisations({ patientId }, tx),
+    () => getCareTeamOrganisations({ patientId }, tx),
     // The lead team is the one alerts go to (lib/records/alert-team.ts).
-    alertTeams({ patientId }, tx),
-    tx
+    () => alertTeams({ patientId }, tx),
+    () => tx
       .select({
         id: episodeEvents.id,
         episodeId: episodeEvents.episodeId,
@@ -67,7 +68,7 @@ export async function getFhirExportData({ patientId }: { patientId: string }, tx
       .from(episodeEvents)
       .where(and(eq(episodeEvents.patientId, patientId), eq(episodeEvents.kind, "twoc_outcome")))
       .orderBy(asc(episodeEvents.occurredAt)),
-  ]);
+  );
   const leadIds = new Set(lead.map((o) => o.id));
   return {
     patient: p,

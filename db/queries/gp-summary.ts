@@ -3,7 +3,7 @@ import "server-only";
 // ago in the same transaction is seen) and again at send time for the PDF: both read the same
 // rows, so the e-mail and its attachment agree.
 import { and, asc, count, eq, gt, isNull, max } from "drizzle-orm";
-import { db, type Executor } from "@/db";
+import { db, readTogether, type Executor } from "@/db";
 import type { AllergyAnswers } from "@/lib/clinical";
 import {
   careTeam,
@@ -212,7 +212,7 @@ export async function loadGpSummaryFacts(
     }
   }
   const findingsFrom = cause === "insertion" || cause === "change" ? device : undefined;
-  const [lead, checklistRow] = await Promise.all([getLeadTeamContact({ patientId }, tx), getLatestDischargeChecklist({ patientId }, tx)]);
+  const [lead, checklistRow] = await readTogether(tx, () => getLeadTeamContact({ patientId }, tx), () => getLatestDischargeChecklist({ patientId }, tx));
   const seq = sequence ?? (await gpSummarySequence({ patientId }, tx));
   const changes: { at: string; kind: string }[] = [];
   if (seq.previousAt) {

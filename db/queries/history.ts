@@ -2,7 +2,7 @@ import "server-only";
 // A patient's catheter history: every episode (newest first) with its events, dwell days and why
 // it ended, and the blockage pattern computed from it by lib/clinical.
 import { asc, desc, eq } from "drizzle-orm";
-import { db, type Executor } from "@/db";
+import { db, readTogether, type Executor } from "@/db";
 import { catheterEpisodes, episodeEvents, observations, organisations, type CatheterEpisode } from "@/db/schema";
 import { toObservationDto, type ObservationDto } from "./observations";
 import {
@@ -98,21 +98,22 @@ function endReasonOf(episode: { id: string; removedAt: Date | null; removalReaso
 }
 
 export async function getPatientHistory({ patientId, today = todayIso() }: { patientId: string; today?: string }, tx: Executor = db): Promise<PatientHistory> {
-  const [episodeRows, eventRows] = await Promise.all([
-    tx
+  const [episodeRows, eventRows] = await readTogether(
+    tx,
+    () => tx
       .select({ e: catheterEpisodes, organisationName: organisations.name })
       .from(catheterEpisodes)
       .leftJoin(organisations, eq(organisations.id, catheterEpisodes.organisationId))
       .where(eq(catheterEpisodes.patientId, patientId))
       .orderBy(asc(catheterEpisodes.insertedAt)),
-    tx
+    () => tx
       .select({ v: episodeEvents, organisationName: organisations.name, o: observations })
       .from(episodeEvents)
       .leftJoin(organisations, eq(organisations.id, episodeEvents.organisationId))
       .leftJoin(observations, eq(observations.eventId, episodeEvents.id))
       .where(eq(episodeEvents.patientId, patientId))
       .orderBy(desc(episodeEvents.occurredAt), desc(episodeEvents.createdAt)),
-  ]);
+  );
 
   const eventsByEpisode = new Map<string, HistoryEvent[]>();
   for (const { v, organisationName, o } of eventRows) {

@@ -2,7 +2,7 @@ import "server-only";
 // Passports: the rows (hashes only, never a plain token), the data the booklet prints, and the
 // one-transaction reissue. Access checks happen before these are called.
 import { and, desc, eq, isNull, max, sql } from "drizzle-orm";
-import { db, type Executor } from "@/db";
+import { db, readTogether, type Executor } from "@/db";
 import type { AllergyAnswers } from "@/lib/clinical";
 import { getSettings } from "@/lib/config/settings";
 import { getLeadTeamContact } from "./contacts";
@@ -170,19 +170,20 @@ export type BookletRecord = {
 export async function getBookletRecord({ patientId }: { patientId: string }, tx: Executor = db): Promise<BookletRecord | null> {
   const [p] = await tx.select().from(patients).where(eq(patients.id, patientId));
   if (!p) return null;
-  const [current, episodes, events, teams, gpRows, deployment, checklist] = await Promise.all([
-    tx
+  const [current, episodes, events, teams, gpRows, deployment, checklist] = await readTogether(
+    tx,
+    () => tx
       .select({ episode: catheterEpisodes, organisationName: organisations.name })
       .from(catheterEpisodes)
       .leftJoin(organisations, eq(organisations.id, catheterEpisodes.organisationId))
       .where(and(eq(catheterEpisodes.patientId, patientId), isNull(catheterEpisodes.removedAt)))
       .orderBy(desc(catheterEpisodes.insertedAt))
       .limit(1),
-    tx
+    () => tx
       .select({ id: catheterEpisodes.id, sizeCh: catheterEpisodes.sizeCh, material: catheterEpisodes.material, lot: catheterEpisodes.lot })
       .from(catheterEpisodes)
       .where(eq(catheterEpisodes.patientId, patientId)),
-    tx
+    () => tx
       .select({
         episodeId: episodeEvents.episodeId,
         kind: episodeEvents.kind,
@@ -197,16 +198,16 @@ export async function getBookletRecord({ patientId }: { patientId: string }, tx:
       .where(eq(episodeEvents.patientId, patientId))
       .orderBy(desc(episodeEvents.occurredAt), desc(episodeEvents.createdAt)),
     // The lead team alone, with its out-of-hours number or the deployment's service (one place: contacts.ts).
-    getLeadTeamContact({ patientId }, tx),
-    p.gpPracticeId
+    () => getLeadTeamContact({ patientId }, tx),
+    () => p.gpPracticeId
       ? tx
           .select({ name: organisations.name, phone: organisations.phone, outOfHoursPhone: organisations.outOfHoursPhone })
           .from(organisations)
           .where(eq(organisations.id, p.gpPracticeId))
       : Promise.resolve([]),
-    getSettings(tx),
-    getLatestDischargeChecklist({ patientId }, tx),
-  ]);
+    () => getSettings(tx),
+    () => getLatestDischargeChecklist({ patientId }, tx),
+  );
   return {
     patient: {
       givenName: p.givenName,

@@ -2,7 +2,7 @@ import "server-only";
 // Registering, reading and editing a patient's details. Access checks happen before these are
 // called (lib/records/patient-record.ts); these functions return explicit DTOs, never whole rows.
 import { and, asc, desc, eq, inArray, isNull } from "drizzle-orm";
-import { db, type Executor } from "@/db";
+import { db, readTogether, type Executor } from "@/db";
 import { careTeam, catheterEpisodes, organisations, patients, type CatheterEpisode, type Patient } from "@/db/schema";
 import type { AllergyAnswers } from "@/lib/clinical";
 import { AppError, pgConstraint, toAppError } from "@/lib/http/errors";
@@ -95,26 +95,27 @@ export async function getRecordClosedAt({ patientId }: { patientId: string }, tx
 export async function getPatientRecord({ patientId }: { patientId: string }, tx: Executor = db): Promise<PatientRecord | null> {
   const [p] = await tx.select().from(patients).where(eq(patients.id, patientId));
   if (!p) return null;
-  const [gpRows, team, episodes] = await Promise.all([
-    p.gpPracticeId
+  const [gpRows, team, episodes] = await readTogether(
+    tx,
+    () => p.gpPracticeId
       ? tx
           .select({ id: organisations.id, name: organisations.name, phone: organisations.phone })
           .from(organisations)
           .where(eq(organisations.id, p.gpPracticeId))
       : Promise.resolve([]),
-    tx
+    () => tx
       .select({ id: organisations.id, name: organisations.name, kind: organisations.kind, phone: organisations.phone })
       .from(careTeam)
       .innerJoin(organisations, eq(organisations.id, careTeam.organisationId))
       .where(eq(careTeam.patientId, patientId))
       .orderBy(asc(organisations.name)),
-    tx
+    () => tx
       .select()
       .from(catheterEpisodes)
       .where(and(eq(catheterEpisodes.patientId, patientId), isNull(catheterEpisodes.removedAt)))
       .orderBy(desc(catheterEpisodes.insertedAt))
       .limit(1),
-  ]);
+  );
   return {
     patient: toDetails(p, gpRows[0] ?? null, team),
     currentEpisode: episodes[0] ? toEpisode(episodes[0]) : null,

@@ -2,7 +2,7 @@ import "server-only";
 // Referrals between care-team organisations and the care team's own changes (add a team, change
 // the lead, leave). Every write takes the caller's transaction, which holds the audit event.
 import { aliasedTable, and, asc, desc, eq, ilike, inArray, lt, ne, or, sql } from "drizzle-orm";
-import { db, type Executor } from "@/db";
+import { db, readTogether, type Executor } from "@/db";
 import { auditEvents, careTeam, dischargeChecklists, organisations, patients, referrals, user, type Referral } from "@/db/schema";
 import type { DischargeChecklistValues } from "@/lib/validations/referrals";
 
@@ -150,11 +150,12 @@ export async function listCaseloadReferrals({ organisationIds, hours }: { organi
   const open = sql`${patients.closedAt} is null`;
   // Unanswered past the reminder time: flagged on the referrer's caseload.
   const overdue = sql<boolean>`${referrals.status} = 'pending' and ${referrals.createdAt} < now() - make_interval(hours => ${hours}::int)`;
-  const [incoming, outgoing] = await Promise.all([
-    referralQuery(tx)
+  const [incoming, outgoing] = await readTogether(
+    tx,
+    () => referralQuery(tx)
       .where(and(inArray(referrals.toOrganisationId, organisationIds), eq(referrals.status, "pending"), open))
       .orderBy(asc(referrals.createdAt)),
-    tx
+    () => tx
       .select({ ...referralColumns, overdue })
       .from(referrals)
       .innerJoin(patients, eq(patients.id, referrals.patientId))
@@ -170,7 +171,7 @@ export async function listCaseloadReferrals({ organisationIds, hours }: { organi
         ),
       )
       .orderBy(asc(referrals.createdAt)),
-  ]);
+  );
   return { incoming, outgoing };
 }
 

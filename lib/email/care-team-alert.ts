@@ -2,7 +2,7 @@ import "server-only";
 // Urgent and emergency check-ins, and medium or high NEWS2, e-mail every care-team organisation
 // of the patient at once (in each organisation's language). Called inside the transaction that
 // stores the check-in or the observations, so the alert exists exactly when they do.
-import type { Executor } from "@/db";
+import { readTogether, type Executor } from "@/db";
 import type { AlertReporter } from "@/db/schema";
 import { getLeadTeamContact, type LeadTeamContact } from "@/db/queries/contacts";
 import { getActiveEpisode, getPatientForMail } from "@/db/queries/mail-context";
@@ -117,11 +117,12 @@ export async function queueCareTeamAlert(tx: Executor, input: CareTeamAlertInput
   if (!isAlertLevel(input.kind, input.level)) return [];
   const patient = await getPatientForMail({ patientId: input.patientId }, tx);
   if (!patient) throw new Error(`care-team alert: patient ${input.patientId} not found`);
-  const [teams, episode, lead] = await Promise.all([
-    alertTeams({ patientId: input.patientId }, tx),
-    getActiveEpisode({ patientId: input.patientId }, tx),
-    getLeadTeamContact({ patientId: input.patientId }, tx),
-  ]);
+  const [teams, episode, lead] = await readTogether(
+    tx,
+    () => alertTeams({ patientId: input.patientId }, tx),
+    () => getActiveEpisode({ patientId: input.patientId }, tx),
+    () => getLeadTeamContact({ patientId: input.patientId }, tx),
+  );
   const region = await getRegion(tx);
   const out: QueuedMessage[] = [];
   // No care team at all: keep a failed row so the gap is visible rather than silent.

@@ -2,7 +2,7 @@ import "server-only";
 // Referral e-mails through the outbox, in the receiving organisation's language: a new referral
 // and each reminder to the receiving team; a decline (with its reason) back to the referring team.
 // One message per referral and event (`referral:<event>:<referralId>[:<n>]`).
-import { db, type Executor } from "@/db";
+import { db, readTogether, type Executor } from "@/db";
 import { getReferral, getTeamOrganisation, listOverdueReferrals, markReminded } from "@/db/queries/referrals";
 import { getPatientForMail } from "@/db/queries/mail-context";
 import { env } from "@/lib/config/env";
@@ -17,11 +17,12 @@ export type ReferralMailEvent = "new" | "reminder" | "declined";
 export async function queueReferralMail(tx: Executor, { referralId, event, reminder = 0 }: { referralId: string; event: ReferralMailEvent; reminder?: number }): Promise<QueuedMessage> {
   const referral = await getReferral({ id: referralId }, tx);
   if (!referral) throw new Error(`referral ${referralId} not found`);
-  const [patient, from, to] = await Promise.all([
-    getPatientForMail({ patientId: referral.patientId }, tx),
-    getTeamOrganisation({ id: referral.fromOrganisationId }, tx),
-    getTeamOrganisation({ id: referral.toOrganisationId }, tx),
-  ]);
+  const [patient, from, to] = await readTogether(
+    tx,
+    () => getPatientForMail({ patientId: referral.patientId }, tx),
+    () => getTeamOrganisation({ id: referral.fromOrganisationId }, tx),
+    () => getTeamOrganisation({ id: referral.toOrganisationId }, tx),
+  );
   if (!patient || !from || !to) throw new Error(`referral ${referralId}: patient or organisation missing`);
   const recipient = event === "declined" ? from : to;
   const locale = emailLocale(recipient.locale);
